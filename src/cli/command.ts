@@ -1,0 +1,23 @@
+/**
+ * The shape every CLI command has. A command parses its own arguments (with
+ * node:util parseArgs, see options.ts), does its file access, calls the pure
+ * core, and writes to the streams it is given, so tests can run it in process.
+ */
+export interface CliIo {
+  stdout: (text: string) => void;
+  stderr: (text: string) => void;
+  /** True when stdout is a terminal (progress bars only then). */
+  isTty: boolean;
+  cwd: string;
+  env: Record<string, string | undefined>;
+}
+
+export interface Command {
+  name: string;
+  /** One line for `fieldgap --help`. */
+  summary: string;
+  /** Full usage text for `fieldgap NAME --help`. */
+  usage: string;
+  /** Returns the exit code: 0 success, 1 some items failed (batch), 2 bad input. */
+  run(argv: string[], io: CliIo): Promise<number>;
+}

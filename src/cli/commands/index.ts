@@ -1,0 +1,7 @@
+import type { Command } from '../command.js';
+
+/**
+ * Every CLI command, in the order `fieldgap --help` lists them. A new command
+ * is one file under commands/ and one line here.
+ */
+export const commands: Command[] = [];
