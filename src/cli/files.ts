@@ -1,0 +1,56 @@
+import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { extname, join, relative, resolve } from 'node:path';
+import { FieldgapError } from '../errors.js';
+
+/** File endings taken from a folder; a file named explicitly is read whatever its ending. */
+export const SPECTRUM_EXTENSIONS = ['.csv', '.tsv', '.txt', '.dat', '.asc', '.prn', '.jdx', '.dx', '.jcamp'];
+
+/**
+ * Expands the FILES-or-DIRS arguments into a sorted list of files. A folder
+ * contributes the spectrum files directly inside it and in its subfolders
+ * (hidden entries skipped). A path that does not exist is an error naming it.
+ */
+export function expandInputPaths(paths: string[], cwd: string): string[] {
+  const files: string[] = [];
+  for (const given of paths) {
+    const full = resolve(cwd, given);
+    let stats;
+    try {
+      stats = statSync(full);
+    } catch {
+      throw new FieldgapError('not-found', `no such file or folder`, given);
+    }
+    if (stats.isDirectory()) {
+      const found = filesInFolder(full);
+      if (found.length === 0) {
+        throw new FieldgapError('not-found', `folder holds no spectrum files (${SPECTRUM_EXTENSIONS.join(' ')})`, given);
+      }
+      files.push(...found.map((f) => relative(cwd, f) || f));
+    } else {
+      files.push(given);
+    }
+  }
+  return files;
+}
+
+function filesInFolder(folder: string): string[] {
+  const out: string[] = [];
+  for (const entry of readdirSync(folder, { withFileTypes: true }).sort((a, b) => a.name.localeCompare(b.name))) {
+    if (entry.name.startsWith('.')) continue;
+    const full = join(folder, entry.name);
+    if (entry.isDirectory()) out.push(...filesInFolder(full));
+    else if (entry.isFile() && SPECTRUM_EXTENSIONS.includes(extname(entry.name).toLowerCase())) out.push(full);
+  }
+  return out;
+}
+
+/** Reads a file as bytes (never writes it), with an error naming it. */
+export function readInputFile(path: string, cwd: string): Uint8Array {
+  try {
+    return readFileSync(resolve(cwd, path));
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    const why = code === 'ENOENT' ? 'no such file' : code === 'EACCES' ? 'permission denied' : code === 'EISDIR' ? 'is a folder' : 'cannot be read';
+    throw new FieldgapError('not-found', why, path);
+  }
+}
