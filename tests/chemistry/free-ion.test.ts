@@ -1,0 +1,56 @@
+import { describe, expect, it } from 'vitest';
+import { freeIonRacah, FREE_ION_RACAH } from '../../src/chemistry/free-ion.js';
+import { parseIon } from '../../src/chemistry/ions.js';
+
+describe('freeIonRacah', () => {
+  // Free-ion B0 in cm-1: from memory; cf. Lever, Inorganic Electronic Spectroscopy, 2nd ed. (1984)
+  // and Figgis & Hitchman, Ligand Field Theory and Its Applications (2000), free-ion tables.
+  const recalled: [string, number][] = [
+    ['Ti2+', 718], // from memory (Figgis & Hitchman 2000 table)
+    ['V2+', 766], // from memory (Figgis & Hitchman 2000 table)
+    ['V3+', 861], // from memory (Figgis & Hitchman 2000 table)
+    ['Cr2+', 830], // from memory (Figgis & Hitchman 2000 table)
+    ['Cr3+', 918], // from memory (Figgis & Hitchman 2000 table)
+    ['Mn2+', 960], // from memory (Figgis & Hitchman 2000 table)
+    ['Mn3+', 1140], // from memory (Figgis & Hitchman 2000 table)
+    ['Fe2+', 1058], // from memory (Figgis & Hitchman 2000 table)
+    ['Co2+', 1115], // from memory (Figgis & Hitchman 2000 table)
+    ['Ni2+', 1041], // from memory (Figgis & Hitchman 2000 table; 1080 also quoted)
+  ];
+  for (const [label, b] of recalled) {
+    it(`${label}: B0 = ${b} cm-1`, () => {
+      const entry = freeIonRacah(parseIon(label));
+      expect(entry?.b).toBe(b);
+      expect(entry?.source).toMatch(/^from memory/);
+    });
+  }
+
+  it('Mn2+ C0 = 3325 cm-1 and Cr3+ C0 = 3850 cm-1', () => {
+    expect(freeIonRacah(parseIon('Mn2+'))?.c).toBe(3325); // from memory (Figgis & Hitchman 2000 table)
+    expect(freeIonRacah(parseIon('Cr3+'))?.c).toBe(3850); // from memory (Figgis & Hitchman 2000 table)
+  });
+
+  it('every entry is a d2–d8 ion with a named source and a C/B ratio in the usual range', () => {
+    for (const [label, entry] of FREE_ION_RACAH) {
+      const ion = parseIon(label);
+      expect(ion.d).toBeGreaterThanOrEqual(2);
+      expect(ion.d).toBeLessThanOrEqual(8);
+      expect(entry.source).toMatch(/from memory/);
+      // C/B between about 3 and 5 for free 3d ions: common practice
+      expect(entry.c / entry.b).toBeGreaterThan(3);
+      expect(entry.c / entry.b).toBeLessThan(5);
+    }
+  });
+
+  it('has no entry for d1, d9 or ions without a recalled value', () => {
+    expect(freeIonRacah(parseIon('Ti3+'))).toBeUndefined();
+    expect(freeIonRacah(parseIon('Cu2+'))).toBeUndefined();
+    expect(freeIonRacah(parseIon('Rh3+'))).toBeUndefined();
+  });
+
+  it('returns a copy that cannot change the table', () => {
+    const entry = freeIonRacah(parseIon('Cr3+'));
+    if (entry) entry.b = 0;
+    expect(freeIonRacah(parseIon('Cr3+'))?.b).toBe(918);
+  });
+});
