@@ -1,0 +1,108 @@
+import type { Database } from 'better-sqlite3';
+import { FieldgapError } from '../../src/errors.js';
+
+/**
+ * The library's schema, as ordered migrations. `PRAGMA user_version` holds
+ * the number of migrations applied; opening a library applies the missing
+ * ones, each in its own IMMEDIATE transaction that re-reads the version
+ * first, so two processes opening the same fresh folder at once do not both
+ * apply a step. A migration is never edited once released: a change is a new
+ * step at the end.
+ *
+ * Layout: `analyses` holds what the user says about a sample; `originals`
+ * the file byte for byte (one per analysis, immutable); `revisions` every
+ * analysis of that file, the latest being the current one, with the fit
+ * numbers copied into columns for listing, sorting and export.
+ */
+export const MIGRATIONS: ReadonlyArray<(db: Database) => void> = [
+  // 1: the three tables.
+  (db) => {
+    db.exec(`
+      CREATE TABLE analyses (
+        id          INTEGER PRIMARY KEY AUTOINCREMENT,
+        created_at  TEXT NOT NULL,
+        updated_at  TEXT NOT NULL,
+        sample      TEXT NOT NULL,
+        formula     TEXT,
+        ion         TEXT,
+        ion_key     TEXT,
+        ligands     TEXT NOT NULL DEFAULT '[]',
+        solvent     TEXT,
+        temperature REAL,
+        measured_on TEXT,
+        note        TEXT
+      );
+      CREATE TABLE originals (
+        analysis_id INTEGER PRIMARY KEY REFERENCES analyses(id) ON DELETE CASCADE,
+        file_name   TEXT NOT NULL,
+        sha256      TEXT NOT NULL,
+        size        INTEGER NOT NULL,
+        bytes       BLOB NOT NULL
+      );
+      CREATE TABLE revisions (
+        id           INTEGER PRIMARY KEY AUTOINCREMENT,
+        analysis_id  INTEGER NOT NULL REFERENCES analyses(id) ON DELETE CASCADE,
+        revision     INTEGER NOT NULL,
+        created_at   TEXT NOT NULL,
+        tool_version TEXT NOT NULL,
+        options      TEXT NOT NULL,
+        result       TEXT NOT NULL,
+        ten_dq       REAL,
+        b            REAL,
+        c            REAL,
+        beta         REAL,
+        spin_state   TEXT,
+        rms          REAL,
+        status       TEXT,
+        UNIQUE (analysis_id, revision)
+      );
+    `);
+  },
+  // 2: uncertainties as columns (backfilled from the stored results), an
+  // index for the ion filter, and a guard that makes the originals immutable.
+  (db) => {
+    db.exec(`
+      ALTER TABLE revisions ADD COLUMN ten_dq_sd REAL;
+      ALTER TABLE revisions ADD COLUMN b_sd REAL;
+      ALTER TABLE revisions ADD COLUMN beta_sd REAL;
+      UPDATE revisions SET
+        ten_dq_sd = json_extract(result, '$.fit.uncertainty.tenDq'),
+        b_sd      = json_extract(result, '$.fit.uncertainty.b');
+      UPDATE revisions SET beta_sd = b_sd / json_extract(result, '$.fit.freeIonB')
+        WHERE b_sd IS NOT NULL AND json_extract(result, '$.fit.freeIonB') > 0;
+      CREATE INDEX analyses_by_ion ON analyses(ion_key);
+      CREATE TRIGGER originals_are_immutable BEFORE UPDATE ON originals
+        BEGIN SELECT RAISE(ABORT, 'stored originals are never modified'); END;
+    `);
+  },
+];
+
+/** The schema version this fieldgap writes. */
+export const SCHEMA_VERSION = MIGRATIONS.length;
+
+export function schemaVersion(db: Database): number {
+  return db.pragma('user_version', { simple: true }) as number;
+}
+
+/**
+ * Brings the database up to `target` (default: the latest). Refuses a
+ * library written by a newer fieldgap rather than guess at its layout.
+ */
+export function migrate(db: Database, where: string, target = SCHEMA_VERSION): void {
+  const found = schemaVersion(db);
+  if (found > SCHEMA_VERSION) {
+    throw new FieldgapError(
+      'unsupported-format',
+      `this library has schema version ${found}, newer than this fieldgap knows (${SCHEMA_VERSION}); use a newer fieldgap`,
+      where,
+    );
+  }
+  for (let step = found; step < target; step++) {
+    db.transaction(() => {
+      // Another process may have applied this step while we waited for the lock.
+      if (schemaVersion(db) !== step) return;
+      MIGRATIONS[step]!(db);
+      db.pragma(`user_version = ${step + 1}`);
+    }).immediate();
+  }
+}

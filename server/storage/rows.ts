@@ -1,0 +1,127 @@
+import type { AnalysisDetails, AnalysisSummary, FitSummary, RevisionInfo, StoredOptions } from './types.js';
+
+/**
+ * The SQL rows the library reads and their mapping to the JSON records.
+ * SQL NULL becomes an absent field in the details (so a record round-trips
+ * through JSON unchanged) and null in the fit summary (a number that the fit
+ * does not have is shown as such).
+ */
+
+/** The columns of one list row: the analysis, its original's metadata, its latest revision. */
+export const SUMMARY_SELECT = `
+  SELECT a.id, a.created_at, a.updated_at, a.sample, a.formula, a.ion, a.ligands, a.solvent,
+         a.temperature, a.measured_on, a.note,
+         o.file_name, o.sha256, o.size,
+         r.revision, r.tool_version, r.ten_dq, r.ten_dq_sd, r.b, r.b_sd, r.c, r.beta, r.beta_sd,
+         r.spin_state, r.rms, r.status
+  FROM analyses a
+  JOIN originals o ON o.analysis_id = a.id
+  JOIN revisions r ON r.analysis_id = a.id
+   AND r.revision = (SELECT max(revision) FROM revisions WHERE analysis_id = a.id)`;
+
+export interface FitColumns {
+  ten_dq: number | null;
+  ten_dq_sd: number | null;
+  b: number | null;
+  b_sd: number | null;
+  c: number | null;
+  beta: number | null;
+  beta_sd: number | null;
+  spin_state: string | null;
+  rms: number | null;
+  status: string | null;
+}
+
+export interface SummaryRow extends FitColumns {
+  id: number;
+  created_at: string;
+  updated_at: string;
+  sample: string;
+  formula: string | null;
+  ion: string | null;
+  ligands: string;
+  solvent: string | null;
+  temperature: number | null;
+  measured_on: string | null;
+  note: string | null;
+  file_name: string;
+  sha256: string;
+  size: number;
+  revision: number;
+  tool_version: string;
+}
+
+export interface RevisionRow extends FitColumns {
+  revision: number;
+  created_at: string;
+  tool_version: string;
+  options: string;
+}
+
+export function summaryFromRow(row: SummaryRow): AnalysisSummary {
+  const details: AnalysisDetails = { sample: row.sample };
+  if (row.formula !== null) details.formula = row.formula;
+  if (row.ion !== null) details.ion = row.ion;
+  const ligands = JSON.parse(row.ligands) as string[];
+  if (ligands.length > 0) details.ligands = ligands;
+  if (row.solvent !== null) details.solvent = row.solvent;
+  if (row.temperature !== null) details.temperature = row.temperature;
+  if (row.measured_on !== null) details.measuredOn = row.measured_on;
+  if (row.note !== null) details.note = row.note;
+  return {
+    id: row.id,
+    createdAt: row.created_at,
+    updatedAt: row.updated_at,
+    ...details,
+    original: { fileName: row.file_name, sha256: row.sha256, size: row.size },
+    revision: row.revision,
+    toolVersion: row.tool_version,
+    summary: fitFromColumns(row),
+  };
+}
+
+export function revisionFromRow(row: RevisionRow): RevisionInfo {
+  return {
+    revision: row.revision,
+    createdAt: row.created_at,
+    toolVersion: row.tool_version,
+    options: JSON.parse(row.options) as StoredOptions,
+    summary: fitFromColumns(row),
+  };
+}
+
+export function fitFromColumns(row: FitColumns): FitSummary {
+  return {
+    tenDq: row.ten_dq,
+    tenDqSd: row.ten_dq_sd,
+    b: row.b,
+    bSd: row.b_sd,
+    c: row.c,
+    beta: row.beta,
+    betaSd: row.beta_sd,
+    spinState: row.spin_state,
+    rmsResidual: row.rms,
+    status: row.status,
+  };
+}
+
+/** The named parameters of a revision insert, from a summary. */
+export function fitParams(s: FitSummary): FitColumns {
+  return {
+    ten_dq: s.tenDq,
+    ten_dq_sd: s.tenDqSd,
+    b: s.b,
+    b_sd: s.bSd,
+    c: s.c,
+    beta: s.beta,
+    beta_sd: s.betaSd,
+    spin_state: s.spinState,
+    rms: s.rmsResidual,
+    status: s.status,
+  };
+}
+
+/** A word for SQL LIKE, matched anywhere, with LIKE's wildcards taken literally. */
+export function likeWord(word: string): string {
+  return `%${word.replace(/[\\%_]/g, (ch) => `\\${ch}`)}%`;
+}

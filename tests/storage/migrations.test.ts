@@ -1,0 +1,85 @@
+import Database from 'better-sqlite3';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { FieldgapError } from '../../src/errors.js';
+import { LIBRARY_FILE, openLibrary } from '../../server/storage/library.js';
+import { migrate, SCHEMA_VERSION, schemaVersion } from '../../server/storage/migrations.js';
+
+let dir: string;
+beforeEach(() => {
+  dir = mkdtempSync(join(tmpdir(), 'fieldgap-mig-'));
+});
+afterEach(() => rmSync(dir, { recursive: true, force: true }));
+
+function openError(): FieldgapError {
+  try {
+    openLibrary(dir).close();
+  } catch (error) {
+    if (error instanceof FieldgapError) return error;
+    throw error;
+  }
+  throw new Error('expected openLibrary to fail');
+}
+
+/** A library as the first schema left it, with one analysis written by hand in that layout. */
+function writeVersion1Library(): void {
+  const db = new Database(join(dir, LIBRARY_FILE));
+  migrate(db, 'test', 1);
+  db.exec(`
+    INSERT INTO analyses (created_at, updated_at, sample, ion, ion_key, ligands)
+      VALUES ('2025-01-01T00:00:00.000Z', '2025-01-01T00:00:00.000Z', 'old sample', 'V3+', 'v3+', '["H2O"]');
+    INSERT INTO originals (analysis_id, file_name, sha256, size, bytes)
+      VALUES (1, 'old.csv', '00', 3, X'616263');
+    INSERT INTO revisions (analysis_id, revision, created_at, tool_version, options, result, ten_dq, b)
+      VALUES (1, 1, '2025-01-01T00:00:00.000Z', '0.0.1', '{}',
+        '{"fit":{"tenDq":18000,"b":600,"freeIonB":800,"uncertainty":{"tenDq":90,"b":12}}}', 18000, 600);
+  `);
+  expect(schemaVersion(db)).toBe(1);
+  db.close();
+}
+
+describe('schema migrations', () => {
+  it('creates the latest schema in an empty folder', () => {
+    openLibrary(dir).close();
+    const db = new Database(join(dir, LIBRARY_FILE), { readonly: true });
+    expect(schemaVersion(db)).toBe(SCHEMA_VERSION);
+    db.close();
+  });
+
+  it('brings an old library up to date and keeps its records', () => {
+    writeVersion1Library();
+    const library = openLibrary(dir);
+    try {
+      const record = library.get(1);
+      expect(record).toMatchObject({ sample: 'old sample', ion: 'V3+', ligands: ['H2O'], toolVersion: '0.0.1' });
+      // step 2 backfills the uncertainty columns from the stored result JSON
+      expect(record.summary).toMatchObject({ tenDq: 18000, tenDqSd: 90, bSd: 12 });
+      expect(record.summary.betaSd).toBeCloseTo(12 / 800, 12);
+      expect(library.getOriginal(1).bytes.toString('latin1')).toBe('abc');
+      expect(library.list({ ion: 'v3+' }).total).toBe(1);
+    } finally {
+      library.close();
+    }
+    const db = new Database(join(dir, LIBRARY_FILE));
+    expect(schemaVersion(db)).toBe(SCHEMA_VERSION);
+    expect(() => db.prepare(`UPDATE originals SET file_name = 'x'`).run()).toThrow(/never modified/);
+    db.close();
+  });
+
+  it('refuses a library from a newer fieldgap', () => {
+    openLibrary(dir).close();
+    const db = new Database(join(dir, LIBRARY_FILE));
+    db.pragma(`user_version = ${SCHEMA_VERSION + 1}`);
+    db.close();
+    expect(openError()).toMatchObject({ code: 'unsupported-format', path: join(dir, LIBRARY_FILE) });
+  });
+
+  it('refuses a file that is not a database, without changing it', () => {
+    const text = 'nm,absorbance\n400,0.1\n'.repeat(200);
+    writeFileSync(join(dir, LIBRARY_FILE), text);
+    expect(openError()).toMatchObject({ code: 'unsupported-format' });
+    expect(readFileSync(join(dir, LIBRARY_FILE), 'utf8')).toBe(text);
+  });
+});
