@@ -1,0 +1,144 @@
+/**
+ * The service's side of errors: FieldgapError codes → HTTP status (the one
+ * place that map lives), the JSON error body, and zod issues turned into a
+ * FieldgapError that names the field. The core never sees any of this.
+ */
+import type { z } from 'zod';
+import { FieldgapError, isFieldgapError, type ErrorCode } from '../src/errors.js';
+
+/** The body of every error answer: `{ "error": { "code", "message", "path" } }`. */
+export interface ErrorBody {
+  error: { code: ErrorCode; message: string; path: string };
+}
+
+/**
+ * The work could not start because every worker is busy and the queue is
+ * full: answered 503 (try again later), whereas a task that ran out of its
+ * time limit is answered 504.
+ */
+export class ServiceBusyError extends FieldgapError {
+  constructor(message = 'the server is busy: too many analyses are waiting; try again shortly') {
+    super('timeout', message, '');
+  }
+}
+
+/**
+ * A bug inside a task (or a worker that died): carries the original message and stack for the log;
+ * the client gets the generic internal-error answer.
+ */
+export class TaskBugError extends FieldgapError {
+  readonly detail: string;
+  constructor(message: string, detail: string) {
+    super('internal', message, '');
+    this.detail = detail;
+  }
+}
+
+const STATUS: Record<ErrorCode, number> = {
+  'invalid-argument': 400,
+  'parse-error': 400,
+  'unsupported-format': 415,
+  unexplained: 422,
+  'not-found': 404,
+  'too-large': 413,
+  timeout: 504,
+  internal: 500,
+};
+
+/** The HTTP status for an error the service answers with. */
+export function httpStatusFor(error: FieldgapError): number {
+  if (error instanceof ServiceBusyError) return 503;
+  return STATUS[error.code];
+}
+
+/** The JSON body for a FieldgapError. */
+export function errorBody(error: FieldgapError): ErrorBody {
+  return { error: error.toJSON() };
+}
+
+/** The generic answer to a bug: the details go to the log, never to the client. */
+export const INTERNAL_ERROR = new FieldgapError(
+  'internal',
+  'internal error: the server could not complete this request (the details are in its log)',
+);
+
+/** Any thrown value as the FieldgapError to answer with (bugs become INTERNAL_ERROR). */
+export function toFieldgapError(error: unknown): FieldgapError {
+  return isFieldgapError(error) ? error : INTERNAL_ERROR;
+}
+
+/** ["bands", 2, "position"] → "bands[2].position". */
+export function formatIssuePath(path: readonly PropertyKey[]): string {
+  let out = '';
+  for (const key of path) {
+    if (typeof key === 'number') out += `[${key}]`;
+    else out += out === '' ? String(key) : `.${String(key)}`;
+  }
+  return out;
+}
+
+function valueAt(input: unknown, path: readonly PropertyKey[]): unknown {
+  let value = input;
+  for (const key of path) {
+    if (value === null || typeof value !== 'object') return undefined;
+    value = (value as Record<PropertyKey, unknown>)[key];
+  }
+  return value;
+}
+
+function describeValue(value: unknown): string {
+  if (value === undefined) return 'nothing';
+  const text = JSON.stringify(value);
+  if (text === undefined) return typeof value;
+  return text.length > 40 ? `${text.slice(0, 37)}...` : text;
+}
+
+type Issue = z.core.$ZodIssue;
+
+/**
+ * The most telling issue of a failed union: the branch that got furthest
+ * into the value (an object whose field is wrong beats "expected a number").
+ */
+function bestUnionIssue(issue: Issue & { code: 'invalid_union' }): Issue | undefined {
+  let best: Issue | undefined;
+  for (const branch of issue.errors) {
+    const first = branch[0];
+    if (first === undefined) continue;
+    if (best === undefined || first.path.length > best.path.length) best = first;
+  }
+  if (best === undefined) return undefined;
+  return { ...best, path: [...issue.path, ...best.path] };
+}
+
+/** One zod issue as a sentence that starts with the field it is about. */
+function issueMessage(issue: Issue, input: unknown): { path: string; message: string } {
+  if (issue.code === 'invalid_union') {
+    const inner = bestUnionIssue(issue);
+    if (inner) return issueMessage(inner, input);
+  }
+  if (issue.code === 'unrecognized_keys') {
+    const where = formatIssuePath(issue.path);
+    const key = issue.keys[0] ?? '';
+    const path = where === '' ? key : `${where}.${key}`;
+    const keys = issue.keys.map((k) => `"${k}"`).join(', ');
+    return { path, message: `${path}: unknown field${issue.keys.length > 1 ? 's' : ''} ${keys}` };
+  }
+  const path = formatIssuePath(issue.path) || 'body';
+  const got = valueAt(input, issue.path);
+  let detail = issue.message.replace(/^Invalid input: /, '');
+  if (issue.code === 'invalid_type') {
+    detail = got === undefined ? `is required (${issue.expected})` : `expected ${issue.expected}, got ${describeValue(got)}`;
+  } else if (issue.code === 'invalid_value' || issue.code === 'too_big' || issue.code === 'too_small') {
+    detail = `${detail.replace(/^Invalid option: /, '')}, got ${describeValue(got)}`;
+  }
+  return { path, message: `${path}: ${detail}` };
+}
+
+/** A failed zod parse as one FieldgapError('invalid-argument') naming the first bad field. */
+export function zodToFieldgapError(error: z.ZodError, input: unknown): FieldgapError {
+  const first = error.issues[0];
+  if (first === undefined) return new FieldgapError('invalid-argument', 'invalid request', 'body');
+  const { path, message } = issueMessage(first, input);
+  const more = error.issues.length > 1 ? ` (and ${error.issues.length - 1} more problem${error.issues.length > 2 ? 's' : ''})` : '';
+  return new FieldgapError('invalid-argument', `${message}${more}`, path);
+}

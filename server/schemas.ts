@@ -1,0 +1,114 @@
+/**
+ * The request schemas of the REST service: the one description of what each
+ * endpoint accepts. The routes validate with them (after coerceFields for
+ * text from query strings and forms), and openapi.ts builds the OpenAPI
+ * document from them, so the two cannot drift apart. Energies in cm-1.
+ *
+ * These are the edge of the service: they check types and ranges a request
+ * can get wrong on its own; the chemistry (is this ion a d^n ion, does a band
+ * list make sense) is checked by the core, which answers with its own errors.
+ */
+import { z } from 'zod';
+
+const geometry = z.enum(['octahedral', 'tetrahedral']).meta({
+  description: 'Coordination geometry: sets the sign of the cubic field.',
+});
+
+const dCount = z.number().int().min(0).max(10).meta({ description: 'Number of d electrons (d^n).' });
+
+const ion = z.string().trim().min(1).max(40).meta({
+  description: 'Metal ion with its charge, e.g. "Cr3+" or "Co(II)"; instead of d.',
+  examples: ['Cr3+'],
+});
+
+const positive = (description: string) => z.number().positive().finite().meta({ description });
+
+/** Limits that keep one request from occupying a worker for long. */
+export const LIMITS = {
+  maxSteps: 2000,
+  maxDqOverB: 20,
+  maxBands: 40,
+  maxEnergy: 200_000,
+} as const;
+
+export const levelsQuery = z.strictObject({
+  d: dCount,
+  geometry: geometry.default('octahedral'),
+  dq: z.number().min(0).max(LIMITS.maxEnergy).meta({ description: 'Dq in cm-1 (10Dq = 10·dq), ≥ 0.' }),
+  b: positive('Racah B in cm-1.').max(LIMITS.maxEnergy),
+  c: positive('Racah C in cm-1; default cOverB·B.').max(LIMITS.maxEnergy).optional(),
+  cOverB: positive('C/B ratio used when c is not given.').max(20).default(4),
+});
+export type LevelsQuery = z.infer<typeof levelsQuery>;
+
+export const diagramQuery = z.strictObject({
+  d: dCount,
+  geometry: geometry.default('octahedral'),
+  cOverB: positive('C/B ratio of the diagram.').max(20).default(4),
+  maxDqOverB: positive('Largest Dq/B on the axis.').max(LIMITS.maxDqOverB).default(4),
+  steps: z.number().int().min(1).max(LIMITS.maxSteps).default(100).meta({
+    description: 'Number of Dq/B intervals from 0 to maxDqOverB.',
+  }),
+});
+export type DiagramQuery = z.infer<typeof diagramQuery>;
+
+const bandObject = z.strictObject({
+  position: positive('Band maximum in cm-1.').max(LIMITS.maxEnergy),
+  uncertainty: positive('Standard uncertainty of the position, cm-1.').max(LIMITS.maxEnergy).optional(),
+  epsilon: z.number().min(0).finite().optional().meta({ description: 'Molar absorption coefficient, L mol-1 cm-1.' }),
+  flags: z.array(z.string().min(1).max(40)).max(10).optional().meta({
+    description: 'Hints about the band passed to the fit, e.g. "shoulder", "spin-forbidden", "charge-transfer".',
+  }),
+});
+
+export const band = z.union([positive('Band maximum in cm-1.').max(LIMITS.maxEnergy), bandObject]);
+
+export const fitBody = z
+  .strictObject({
+    ion: ion.optional(),
+    d: dCount.optional(),
+    geometry: geometry.optional(),
+    bands: z.array(band).min(1).max(LIMITS.maxBands).meta({
+      description: 'Observed d-d band maxima in cm-1, as numbers or objects.',
+    }),
+    cOverB: positive('Fixed C/B ratio for the fit.').max(20).optional(),
+    c: positive('Fixed Racah C in cm-1.').max(LIMITS.maxEnergy).optional(),
+    freeC: z.boolean().optional().meta({ description: 'Fit C as a free parameter (needs enough bands).' }),
+  })
+  .refine((body) => body.ion !== undefined || body.d !== undefined, {
+    message: 'give the metal as "ion" (e.g. "Cr3+") or as "d" (the d-electron count)',
+    path: ['ion'],
+  });
+export type FitBody = z.infer<typeof fitBody>;
+
+export const X_UNITS = ['nm', 'cm-1', 'eV', 'um'] as const;
+
+/** Fields of POST /analyze, as query parameters or multipart form fields. */
+export const analyzeFields = z.strictObject({
+  ion: ion.optional(),
+  d: dCount.optional(),
+  geometry: geometry.optional(),
+  conc: positive('Concentration in mol/L (for molar absorption coefficients).').optional(),
+  path: positive('Path length in cm (default 1).').optional(),
+  xUnit: z.enum(X_UNITS).optional().meta({ description: 'Unit of the x column when the file does not say.' }),
+  column: z
+    .union([z.number().int().min(0), z.string().trim().min(1).max(80)])
+    .optional()
+    .meta({ description: 'Which y column to use: its number or its header.' }),
+  cOverB: positive('Fixed C/B ratio for the fit.').max(20).optional(),
+  c: positive('Fixed Racah C in cm-1.').max(LIMITS.maxEnergy).optional(),
+  freeC: z.boolean().optional().meta({ description: 'Fit C as a free parameter.' }),
+  fileName: z.string().trim().min(1).max(200).optional().meta({
+    description: 'Name used in error positions (file:line:column) for a raw-body upload.',
+  }),
+});
+export type AnalyzeFields = z.infer<typeof analyzeFields>;
+
+/** Content types POST /analyze accepts as a raw body (besides multipart/form-data). */
+export const SPECTRUM_CONTENT_TYPES = [
+  'text/csv',
+  'text/plain',
+  'text/tab-separated-values',
+  'chemical/x-jcamp-dx',
+  'application/octet-stream',
+] as const;
