@@ -1,0 +1,148 @@
+/**
+ * The OpenAPI 3.1 description of the service, assembled from the same zod
+ * schemas that validate the requests (schemas.ts) and describe the answers
+ * (responses.ts) via z.toJSONSchema: there is no hand-written copy of a
+ * schema to fall out of date. Built once per app.
+ */
+import { z } from 'zod';
+import { analyzeFields, diagramQuery, fitBody, levelsQuery, SPECTRUM_CONTENT_TYPES } from './schemas.js';
+import {
+  analyzeResponse,
+  diagramResponse,
+  errorResponse,
+  fitResponse,
+  healthResponse,
+  levelsResponse,
+} from './responses.js';
+
+type JsonSchema = Record<string, unknown>;
+
+/** JSON Schema 2020-12 (OpenAPI 3.1's dialect): what a client sends ("input") or gets back ("output"). */
+function jsonSchema(schema: z.ZodType, io: 'input' | 'output' = 'input'): JsonSchema {
+  const { $schema: _dialect, ...rest } = z.toJSONSchema(schema, { io, unrepresentable: 'any' }) as JsonSchema;
+  return rest;
+}
+
+/** One OpenAPI query parameter per field of an object schema. */
+function queryParameters(schema: z.ZodObject): JsonSchema[] {
+  const object = jsonSchema(schema) as { properties?: Record<string, JsonSchema>; required?: string[] };
+  const required = new Set(object.required ?? []);
+  return Object.entries(object.properties ?? {}).map(([name, property]) => {
+    const { description, ...rest } = property;
+    return {
+      name,
+      in: 'query',
+      required: required.has(name),
+      ...(typeof description === 'string' ? { description } : {}),
+      schema: rest,
+    };
+  });
+}
+
+const ERRORS: Record<string, string> = {
+  '400': 'Bad input: a field of the wrong type or range, or a file that could not be parsed. `path` names the field.',
+  '404': 'Unknown route or record.',
+  '413': 'Body over the size limit.',
+  '415': 'Unsupported Content-Type.',
+  '422': 'Valid input that no ligand-field model explains.',
+  '500': 'A bug; the answer carries no details (they are in the server log).',
+  '503': 'All workers busy and the queue full; retry later.',
+  '504': 'The computation exceeded the time limit.',
+};
+
+function errorResponses(codes: string[]): Record<string, JsonSchema> {
+  const out: Record<string, JsonSchema> = {};
+  for (const code of codes) {
+    out[code] = { description: ERRORS[code], content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } } };
+  }
+  return out;
+}
+
+function ok(description: string, schemaName: string): JsonSchema {
+  return { description, content: { 'application/json': { schema: { $ref: `#/components/schemas/${schemaName}` } } } };
+}
+
+const COMPUTE_ERRORS = ['400', '500', '503', '504'];
+
+/** The OpenAPI document for a server of this version. */
+export function buildOpenApiDocument(version: string): JsonSchema {
+  const fields = jsonSchema(analyzeFields) as { properties?: Record<string, JsonSchema> };
+  const formSchema = {
+    type: 'object',
+    required: ['spectrum'],
+    properties: {
+      spectrum: { type: 'string', contentMediaType: 'application/octet-stream', description: 'The spectrum file (CSV, text table or JCAMP-DX).' },
+      ...fields.properties,
+    },
+  };
+  const rawBody = Object.fromEntries(SPECTRUM_CONTENT_TYPES.map((type) => [type, { schema: { type: 'string' } }]));
+
+  return {
+    openapi: '3.1.0',
+    info: {
+      title: 'fieldgap',
+      version,
+      description:
+        'Ligand-field parameters (10Dq, Racah B and C, beta, spin state) from UV-vis-NIR spectra of d1-d9 complexes. All energies in cm-1; level energies from the ground level.',
+    },
+    paths: {
+      '/api/v1/health': {
+        get: { operationId: 'health', summary: 'Liveness check', responses: { '200': ok('The server is up.', 'Health') } },
+      },
+      '/api/v1/openapi.json': {
+        get: { operationId: 'openapi', summary: 'This document', responses: { '200': { description: 'OpenAPI 3.1 document.' } } },
+      },
+      '/api/v1/levels': {
+        get: {
+          operationId: 'levels',
+          summary: 'Energy levels of d^n in a cubic field for given Dq, B, C',
+          parameters: queryParameters(levelsQuery),
+          responses: { '200': ok('The levels, as `fieldgap levels --json` prints them.', 'LevelsResult'), ...errorResponses(COMPUTE_ERRORS) },
+        },
+      },
+      '/api/v1/diagram': {
+        get: {
+          operationId: 'diagram',
+          summary: 'Tanabe–Sugano diagram: E/B against Dq/B',
+          parameters: queryParameters(diagramQuery),
+          responses: { '200': ok('The diagram, as `fieldgap diagram --json` prints it.', 'Diagram'), ...errorResponses(COMPUTE_ERRORS) },
+        },
+      },
+      '/api/v1/fit': {
+        post: {
+          operationId: 'fit',
+          summary: 'Fit 10Dq, B (and C) to observed band maxima',
+          requestBody: { required: true, content: { 'application/json': { schema: jsonSchema(fitBody) } } },
+          responses: {
+            '200': ok('The fit.', 'FitResult'),
+            ...errorResponses(['400', '413', '415', '422', '500', '503', '504']),
+          },
+        },
+      },
+      '/api/v1/analyze': {
+        post: {
+          operationId: 'analyze',
+          summary: 'Analyse a spectrum: bands, assignment and fit',
+          description:
+            'Send the spectrum as the multipart form field `spectrum`, or as the raw body with one of the listed content types. Options go in the query string or as form fields.',
+          parameters: queryParameters(analyzeFields),
+          requestBody: { required: true, content: { 'multipart/form-data': { schema: formSchema }, ...rawBody } },
+          responses: {
+            '200': ok('The analysis, as `fieldgap analyze --json` prints it.', 'AnalyzeResult'),
+            ...errorResponses(['400', '413', '415', '422', '500', '503', '504']),
+          },
+        },
+      },
+    },
+    components: {
+      schemas: {
+        Error: jsonSchema(errorResponse, 'output'),
+        Health: jsonSchema(healthResponse, 'output'),
+        LevelsResult: jsonSchema(levelsResponse, 'output'),
+        Diagram: jsonSchema(diagramResponse, 'output'),
+        FitResult: jsonSchema(fitResponse, 'output'),
+        AnalyzeResult: jsonSchema(analyzeResponse, 'output'),
+      },
+    },
+  };
+}
