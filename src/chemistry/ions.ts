@@ -36,6 +36,10 @@ export interface ParseIonOptions {
 /** The accepted spellings, quoted in every parse error. */
 export const ION_FORMS = 'Cr3+, Cr(III), Cr 3+, Cr+3, Cr^3+, Cu+, Fe(0), Fe(-II)';
 
+/** Oxidation states of d-block metals in compounds lie in −4…+8 (common practice). */
+export const MIN_OXIDATION_STATE = -4;
+export const MAX_OXIDATION_STATE = 8;
+
 const ROMAN = ['0', 'I', 'II', 'III', 'IV', 'V', 'VI', 'VII', 'VIII'];
 const SUPERSCRIPTS: Record<string, string> = {
   '⁰': '0', '¹': '1', '²': '2', '³': '3', '⁴': '4', '⁵': '5', '⁶': '6', '⁷': '7', '⁸': '8', '⁹': '9',
@@ -51,7 +55,8 @@ export function ionLabel(symbol: string, charge: number): string {
 
 /** Roman numeral for an oxidation state, with a sign when negative: "III", "-II", "0". */
 export function romanOxidationState(charge: number): string {
-  const roman = ROMAN[Math.abs(charge)] ?? String(Math.abs(charge));
+  const roman = ROMAN[Math.abs(charge)];
+  if (roman === undefined) return charge > 0 ? `+${charge}` : String(charge);
   return charge < 0 ? `-${roman}` : roman;
 }
 
@@ -72,6 +77,13 @@ export function ionFromOxidationState(symbol: string, charge: number, path = 'io
   }
   const label = ionLabel(symbol, charge);
   const d = element.group - charge;
+  if (Number.isInteger(charge) && (charge > MAX_OXIDATION_STATE || charge < MIN_OXIDATION_STATE)) {
+    throw new FieldgapError(
+      'invalid-argument',
+      `${symbol}(${romanOxidationState(charge)}) is an impossible oxidation state: fieldgap reads oxidation states from ${MIN_OXIDATION_STATE} to +${MAX_OXIDATION_STATE}`,
+      path,
+    );
+  }
   if (!Number.isInteger(charge) || d < 0 || d > 10) {
     throw new FieldgapError(
       'invalid-argument',
