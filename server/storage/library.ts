@@ -10,7 +10,7 @@ import { ionOfResult, summarizeResult } from './summary.js';
 import type {
   AnalysisPatch, AnalysisRecord, AnalysisSummary, ListOptions, ListPage, NewAnalysis, OriginalFile, StoredOptions, StoredResult,
 } from './types.js';
-import { baseFileName, checkDetails, ionKey } from './validate.js';
+import { baseFileName, canonicalIon, canonicalIonOrNull, checkDetails } from './validate.js';
 import { toolVersion } from './version.js';
 
 /** The file the library keeps inside its data folder (with -wal and -shm beside it). */
@@ -100,8 +100,8 @@ function makeLibrary(db: Database.Database, file: string, maxOriginalBytes: numb
   };
 
   const insertAnalysis = db.prepare(`INSERT INTO analyses
-    (created_at, updated_at, sample, formula, ion, ion_key, ligands, solvent, temperature, measured_on, note)
-    VALUES (@now, @now, @sample, @formula, @ion, @ion_key, @ligands, @solvent, @temperature, @measured_on, @note)`);
+    (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note)
+    VALUES (@now, @now, @sample, @formula, @ion, @ligands, @solvent, @temperature, @measured_on, @note)`);
   const insertOriginal = db.prepare(`INSERT INTO originals (analysis_id, file_name, sha256, size, bytes)
     VALUES (?, ?, ?, ?, ?)`);
   const insertRevision = db.prepare(`INSERT INTO revisions
@@ -146,8 +146,8 @@ function makeLibrary(db: Database.Database, file: string, maxOriginalBytes: numb
       params[`w${i}`] = likeWord(word);
     });
     if (filter.ion !== undefined && filter.ion.trim() !== '') {
-      clauses.push('a.ion_key = @ion');
-      params['ion'] = ionKey(filter.ion);
+      clauses.push('a.ion = @ion');
+      params['ion'] = canonicalIon(filter.ion);
     }
     return { where: clauses.length ? `WHERE ${clauses.join(' AND ')}` : '', params };
   };
@@ -159,11 +159,11 @@ function makeLibrary(db: Database.Database, file: string, maxOriginalBytes: numb
       const details = checkDetails({ ...record, sample: record.sample ?? '' });
       const fileName = baseFileName(record.fileName);
       const content = originalBytes(record.content, maxOriginalBytes);
-      const ion = details.ion ?? ionOfResult(record.result) ?? ionOfOptions(record.options);
+      const ion = details.ion ?? canonicalIonOrNull(ionOfResult(record.result)) ?? canonicalIonOrNull(ionOfOptions(record.options));
       const now = new Date().toISOString();
       const id = db.transaction(() => {
         const { lastInsertRowid } = insertAnalysis.run({
-          now, sample: details.sample!, formula: details.formula ?? null, ion, ion_key: ion === null ? null : ionKey(ion),
+          now, sample: details.sample!, formula: details.formula ?? null, ion,
           ligands: JSON.stringify(details.ligands ?? []), solvent: details.solvent ?? null,
           temperature: details.temperature ?? null, measured_on: details.measuredOn ?? null, note: details.note ?? null,
         });
@@ -218,10 +218,6 @@ function makeLibrary(db: Database.Database, file: string, maxOriginalBytes: numb
         if (checked === undefined && key === 'sample') throw invalidArgument('sample', 'sample: a sample name is required');
         sets.push(`${column} = @${column}`);
         params[column] = checked ?? null;
-        if (key === 'ion') {
-          sets.push('ion_key = @ion_key');
-          params['ion_key'] = typeof checked === 'string' ? ionKey(checked) : null;
-        }
       }
       if (patch.ligands !== undefined) {
         sets.push('ligands = @ligands');
@@ -288,9 +284,8 @@ function jsonText(field: string, value: unknown): string {
   return JSON.stringify(value);
 }
 
-function ionOfOptions(options: unknown): string | null {
-  const ion = (options as { ion?: unknown } | null)?.ion;
-  return typeof ion === 'string' && ion.trim() !== '' ? ion.trim() : null;
+function ionOfOptions(options: unknown): unknown {
+  return (options as { ion?: unknown } | null)?.ion;
 }
 
 function words(query: string | undefined): string[] {

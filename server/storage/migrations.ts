@@ -24,8 +24,7 @@ export const MIGRATIONS: ReadonlyArray<(db: Database) => void> = [
         updated_at  TEXT NOT NULL,
         sample      TEXT NOT NULL,
         formula     TEXT,
-        ion         TEXT,
-        ion_key     TEXT,
+        ion         TEXT,  -- canonical label ("Cr3+"), so the ion filter is an equality
         ligands     TEXT NOT NULL DEFAULT '[]',
         solvent     TEXT,
         temperature REAL,
@@ -70,7 +69,7 @@ export const MIGRATIONS: ReadonlyArray<(db: Database) => void> = [
         b_sd      = json_extract(result, '$.fit.uncertainty.b');
       UPDATE revisions SET beta_sd = b_sd / json_extract(result, '$.fit.freeIonB')
         WHERE b_sd IS NOT NULL AND json_extract(result, '$.fit.freeIonB') > 0;
-      CREATE INDEX analyses_by_ion ON analyses(ion_key);
+      CREATE INDEX analyses_by_ion ON analyses(ion);
       CREATE TRIGGER originals_are_immutable BEFORE UPDATE ON originals
         BEGIN SELECT RAISE(ABORT, 'stored originals are never modified'); END;
     `);

@@ -23,7 +23,10 @@ export interface AnalysisDetails {
   sample: string;
   /** The complex formula as written by the user, e.g. "[Cr(H2O)6]Cl3". */
   formula?: string;
-  /** The metal ion, e.g. "Cr3+". When not given, taken from the fit or the options. */
+  /**
+   * The metal ion as its canonical label ("Cr(III)" is stored as "Cr3+").
+   * When not given, taken from the fit or the options.
+   */
   ion?: string;
   /** The ligands, in the user's spelling, e.g. ["H2O"]; a homoleptic complex has one. */
   ligands?: string[];
@@ -132,7 +135,7 @@ export interface AnalysisPatch {
 export interface ListOptions {
   /** Words that must each occur (case-insensitive) in the sample, formula, ion, ligands, solvent or note. */
   query?: string;
-  /** Only this ion (case- and space-insensitive), e.g. "Cr3+". */
+  /** Only this ion, in any spelling src/chemistry reads: "Cr3+", "Cr(III)", "cr 3+". */
   ion?: string;
   /** Page size, 1 to 1000; default 50. */
   limit?: number;

@@ -1,3 +1,4 @@
+import { parseIon } from '../../src/chemistry/ions.js';
 import { invalidArgument } from '../../src/errors.js';
 import type { AnalysisDetails } from './types.js';
 
@@ -10,6 +11,7 @@ export const MAX_NOTE = 10_000;
  * Checks the details a user gives and returns them trimmed, with empty
  * optional texts dropped. Errors name the field ("sample", "ligands[1]").
  * Only the fields present in `details` are checked, so a patch can use it.
+ * The ion is kept as its canonical label ("Cr(III)" is stored as "Cr3+").
  */
 export function checkDetails(details: Partial<Record<keyof AnalysisDetails, unknown>>): Partial<AnalysisDetails> {
   const out: Partial<AnalysisDetails> = {};
@@ -18,10 +20,14 @@ export function checkDetails(details: Partial<Record<keyof AnalysisDetails, unkn
     if (sample === undefined) throw invalidArgument('sample', 'sample: a sample name is required');
     out.sample = sample;
   }
-  for (const key of ['formula', 'ion', 'solvent'] as const) {
+  for (const key of ['formula', 'solvent'] as const) {
     if (details[key] === undefined) continue;
     const value = shortText(key, details[key]);
     if (value !== undefined) out[key] = value;
+  }
+  if (details.ion !== undefined) {
+    const ion = shortText('ion', details.ion);
+    if (ion !== undefined) out.ion = parseIon(ion, { path: 'ion' }).label;
   }
   if (details.note !== undefined) {
     const note = textOf('note', details.note, MAX_NOTE);
@@ -80,7 +86,20 @@ function isoDate(value: unknown): string {
   throw invalidArgument('measuredOn', `measuredOn: expected a date as YYYY-MM-DD, got ${JSON.stringify(value)}`);
 }
 
-/** The form used to compare ions: no spaces, lower case ("Cr 3+" and "cr3+" match). */
-export function ionKey(ion: string): string {
-  return ion.replace(/\s+/g, '').toLowerCase();
+/**
+ * The canonical label of an ion ("Cr(III)", "cr 3+" → "Cr3+"), as
+ * src/chemistry reads it; FieldgapError naming `path` when it is no ion.
+ */
+export function canonicalIon(text: string, path = 'ion'): string {
+  return parseIon(text, { path }).label;
+}
+
+/** The canonical label, or null for text that is not an ion (from a result or options we only store). */
+export function canonicalIonOrNull(text: unknown): string | null {
+  if (typeof text !== 'string' || text.trim() === '') return null;
+  try {
+    return canonicalIon(text);
+  } catch {
+    return null;
+  }
 }

@@ -82,6 +82,7 @@ describe('add and get', () => {
     expect(errorOf(() => library.add(handBuiltRecord({ measuredOn: '2025-02-30' })))).toMatchObject({ path: 'measuredOn' });
     expect(errorOf(() => library.add(handBuiltRecord({ ligands: ['H2O', 7 as unknown as string] })))).toMatchObject({ path: 'ligands[1]' });
     expect(errorOf(() => library.add(handBuiltRecord({ fileName: '' })))).toMatchObject({ path: 'fileName' });
+    expect(errorOf(() => library.add(handBuiltRecord({ ion: 'Cr3' })))).toMatchObject({ path: 'ion' });
     expect(library.list().total).toBe(0);
   });
 
@@ -138,8 +139,10 @@ describe('list and search', () => {
     expect(samples('cobalt')).toEqual([]);
   });
 
-  it('filters by ion ignoring case and spaces', () => {
+  it('filters by ion in any spelling, stored as its canonical label', () => {
     expect(library.list({ ion: 'cr3+' }).analyses.map((a) => a.id)).toEqual([2, 1]);
+    expect(library.list({ ion: 'Cr(III)' }).analyses.map((a) => a.ion)).toEqual(['Cr3+', 'Cr3+']);
+    expect(errorOf(() => library.list({ ion: 'Xx9' }))).toMatchObject({ code: 'invalid-argument', path: 'ion' });
     expect(library.listAll({ ion: 'Ni2+', query: 'ammine' }).map((a) => a.id)).toEqual([3]);
   });
 });

@@ -28,8 +28,8 @@ function writeVersion1Library(): void {
   const db = new Database(join(dir, LIBRARY_FILE));
   migrate(db, 'test', 1);
   db.exec(`
-    INSERT INTO analyses (created_at, updated_at, sample, ion, ion_key, ligands)
-      VALUES ('2025-01-01T00:00:00.000Z', '2025-01-01T00:00:00.000Z', 'old sample', 'V3+', 'v3+', '["H2O"]');
+    INSERT INTO analyses (created_at, updated_at, sample, ion, ligands)
+      VALUES ('2025-01-01T00:00:00.000Z', '2025-01-01T00:00:00.000Z', 'old sample', 'V3+', '["H2O"]');
     INSERT INTO originals (analysis_id, file_name, sha256, size, bytes)
       VALUES (1, 'old.csv', '00', 3, X'616263');
     INSERT INTO revisions (analysis_id, revision, created_at, tool_version, options, result, ten_dq, b)
@@ -58,7 +58,7 @@ describe('schema migrations', () => {
       expect(record.summary).toMatchObject({ tenDq: 18000, tenDqSd: 90, bSd: 12 });
       expect(record.summary.betaSd).toBeCloseTo(12 / 800, 12);
       expect(library.getOriginal(1).bytes.toString('latin1')).toBe('abc');
-      expect(library.list({ ion: 'v3+' }).total).toBe(1);
+      expect(library.list({ ion: 'v(III)' }).total).toBe(1);
     } finally {
       library.close();
     }
