@@ -1,0 +1,103 @@
+/**
+ * Calls to the fieldgap service. Every failure becomes an ApiError carrying
+ * the service's { code, message, path } so the page can show where the
+ * problem is; a network failure or a non-JSON answer gets code 'network'.
+ */
+import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult } from './types.js';
+import type { FitRequest, SampleDetails } from './state.js';
+
+export class ApiError extends Error {
+  readonly body: ApiErrorBody;
+  constructor(body: ApiErrorBody) {
+    super(body.message);
+    this.body = body;
+  }
+}
+
+const BASE = '/api/v1';
+
+function isErrorBody(value: unknown): value is { error: ApiErrorBody } {
+  if (typeof value !== 'object' || value === null || !('error' in value)) return false;
+  const error = (value as { error: unknown }).error;
+  return typeof error === 'object' && error !== null && 'message' in error;
+}
+
+async function readJson<T>(response: Response, what: string): Promise<T> {
+  let body: unknown;
+  try {
+    body = await response.json();
+  } catch {
+    throw new ApiError({
+      code: 'network',
+      message: `The service sent an answer that is not JSON for ${what} (HTTP ${response.status}).`,
+      path: '',
+    });
+  }
+  if (!response.ok || isErrorBody(body)) {
+    if (isErrorBody(body)) {
+      const { code, message, path } = body.error;
+      throw new ApiError({ code: String(code ?? 'error'), message: String(message), path: String(path ?? '') });
+    }
+    throw new ApiError({ code: 'http', message: `${what} failed with HTTP ${response.status}.`, path: '' });
+  }
+  return body as T;
+}
+
+async function send<T>(url: string, init: RequestInit, what: string): Promise<T> {
+  let response: Response;
+  try {
+    response = await fetch(url, init);
+  } catch {
+    throw new ApiError({ code: 'network', message: `Could not reach the fieldgap service for ${what}.`, path: '' });
+  }
+  return readJson<T>(response, what);
+}
+
+/** The query fields of POST /analyze for the sample details given. */
+export function analyzeQuery(details: SampleDetails): URLSearchParams {
+  const query = new URLSearchParams();
+  const ion = details.ion.trim();
+  if (ion !== '') query.set('ion', ion);
+  else if (details.d !== null) query.set('d', String(details.d));
+  query.set('geometry', details.geometry);
+  if (details.concentration !== null) query.set('conc', String(details.concentration));
+  if (details.pathLength !== null) query.set('path', String(details.pathLength));
+  if (details.xUnit !== null) query.set('xUnit', details.xUnit);
+  if (details.column.trim() !== '') query.set('column', details.column.trim());
+  if (details.cOverB !== null) query.set('cOverB', String(details.cOverB));
+  if (details.freeC) query.set('freeC', 'true');
+  return query;
+}
+
+export function analyze(file: File, details: SampleDetails): Promise<AnalyzeResult> {
+  const form = new FormData();
+  form.append('spectrum', file, file.name);
+  return send<AnalyzeResult>(`${BASE}/analyze?${analyzeQuery(details).toString()}`, { method: 'POST', body: form }, `the analysis of ${file.name}`);
+}
+
+export function fit(request: FitRequest): Promise<FitResult> {
+  return send<FitResult>(
+    `${BASE}/fit`,
+    { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(request) },
+    'the refit',
+  );
+}
+
+export interface DiagramQuery {
+  d: number;
+  geometry: string;
+  cOverB: number;
+  maxDqOverB: number;
+  steps: number;
+}
+
+export function diagram(query: DiagramQuery): Promise<Diagram> {
+  const params = new URLSearchParams({
+    d: String(query.d),
+    geometry: query.geometry,
+    cOverB: String(query.cOverB),
+    maxDqOverB: String(query.maxDqOverB),
+    steps: String(query.steps),
+  });
+  return send<Diagram>(`${BASE}/diagram?${params.toString()}`, { method: 'GET' }, 'the energy-level diagram');
+}

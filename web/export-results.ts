@@ -1,0 +1,71 @@
+/**
+ * The downloads of one analysis: JSON (everything the page knows: sample
+ * details, bands as corrected, the fit shown) and CSV (parameters, then the
+ * band and assignment table). Pure; cm-1 throughout, nm as an extra column.
+ */
+import Papa from 'papaparse';
+import type { AnalysisEntry } from './state.js';
+import { shownFit } from './state.js';
+import { assignmentForBand, bandCaption } from './plots/spectrum-spec.js';
+
+export function resultJson(entry: AnalysisEntry): string {
+  const fit = shownFit(entry);
+  return JSON.stringify(
+    {
+      fileName: entry.fileName,
+      sample: entry.details,
+      spectrum: entry.result?.spectrum ?? null,
+      bands: entry.bands,
+      fit,
+      warnings: [...(entry.result?.warnings ?? []), ...(fit?.warnings ?? [])],
+      cOverB: entry.cOverB,
+      freeC: entry.freeC,
+    },
+    null,
+    2,
+  );
+}
+
+type Row = (string | number | null)[];
+
+function cell(value: number | null | undefined): number | null {
+  return value === null || value === undefined || !Number.isFinite(value) ? null : value;
+}
+
+export function resultCsv(entry: AnalysisEntry): string {
+  const fit = shownFit(entry);
+  const rows: Row[] = [['quantity', 'value', 'uncertainty', 'unit']];
+  if (fit !== null) {
+    rows.push(
+      ['10Dq', cell(fit.tenDq), cell(fit.uncertainty.tenDq), 'cm-1'],
+      ['B', cell(fit.b), cell(fit.uncertainty.b), 'cm-1'],
+      ['C', cell(fit.c), cell(fit.uncertainty.c), 'cm-1'],
+      ['C/B', cell(fit.cOverB), null, ''],
+      ['beta', cell(fit.beta), null, ''],
+      ['free-ion B', cell(fit.freeIonB), null, 'cm-1'],
+      ['ground term', fit.groundTerm, null, ''],
+      ['spin state', fit.spinState, null, ''],
+      ['unpaired electrons', fit.unpairedElectrons, null, ''],
+      ['spin-only moment', cell(fit.spinOnlyMoment), null, 'muB'],
+      ['rms residual', cell(fit.rmsResidual), null, 'cm-1'],
+      ['fit status', fit.status, null, ''],
+    );
+  }
+  rows.push([], ['band', 'position (cm-1)', 'wavelength (nm)', 'epsilon (L mol-1 cm-1)', 'kind', 'shoulder', 'in fit', 'assignment', 'calculated (cm-1)']);
+  const assignments = fit?.assignments ?? [];
+  entry.bands.forEach((band, i) => {
+    const a = band.included ? assignmentForBand(band.position, assignments) : undefined;
+    rows.push([
+      i + 1,
+      band.position,
+      Number((1e7 / band.position).toFixed(1)),
+      cell(band.epsilon),
+      band.kind,
+      band.shoulder ? 'yes' : 'no',
+      band.included ? 'yes' : 'no',
+      bandCaption(band, assignments),
+      cell(a?.calculated),
+    ]);
+  });
+  return Papa.unparse(rows, { newline: '\n' }) + '\n';
+}

@@ -1,0 +1,80 @@
+/**
+ * Number and unit formatting for display. Values arrive in cm-1; nm only
+ * appears here, at the edge. Pure functions, unit-tested in tests/e2e/.
+ */
+
+export const UNIT = {
+  wavenumber: 'cm⁻¹',
+  wavelength: 'nm',
+  epsilon: 'L mol⁻¹ cm⁻¹',
+  moment: 'μB',
+} as const;
+
+/** nm ↔ cm-1: the conversion is its own inverse (1e7 / x). */
+export function nmFromWavenumber(wavenumber: number): number {
+  return 1e7 / wavenumber;
+}
+
+/** Digits after the point that show an uncertainty to two significant figures. */
+export function decimalsForUncertainty(uncertainty: number): number {
+  if (!Number.isFinite(uncertainty) || uncertainty <= 0) return 0;
+  const digits = 1 - Math.floor(Math.log10(uncertainty));
+  return Math.max(0, digits);
+}
+
+/**
+ * "17 400 ± 120": the value rounded to the place of the uncertainty's second
+ * significant figure; a missing uncertainty shows as the value alone with
+ * `fallbackDecimals` digits.
+ */
+export function formatWithUncertainty(
+  value: number | null | undefined,
+  uncertainty: number | null | undefined,
+  fallbackDecimals = 0,
+): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  if (uncertainty === null || uncertainty === undefined || !Number.isFinite(uncertainty) || uncertainty <= 0) {
+    return formatNumber(value, fallbackDecimals);
+  }
+  const decimals = decimalsForUncertainty(uncertainty);
+  return `${formatNumber(value, decimals)} ± ${formatNumber(uncertainty, decimals)}`;
+}
+
+/** Fixed decimals, with a thin space grouping thousands (SI style) and a real minus sign. */
+export function formatNumber(value: number | null | undefined, decimals = 0): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  const fixed = Math.abs(value).toFixed(decimals);
+  const [whole = '0', fraction] = fixed.split('.');
+  const grouped = whole.length > 4 ? whole.replace(/\B(?=(\d{3})+(?!\d))/g, '\u2009') : whole;
+  const sign = value < 0 && Number(fixed) !== 0 ? '−' : '';
+  return fraction === undefined ? `${sign}${grouped}` : `${sign}${grouped}.${fraction}`;
+}
+
+/** Plain machine-readable number for CSV and JSON cells (no grouping). */
+export function plainNumber(value: number | null | undefined, decimals?: number): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '';
+  return decimals === undefined ? String(value) : value.toFixed(decimals);
+}
+
+/** "4T1g(P)" → term and parent as given by the service, for display. */
+export function levelLabel(term: string, parent: string | undefined): string {
+  return parent === undefined || parent === '' ? term : `${term}(${parent})`;
+}
+
+/** "high-spin" → "high spin"; unknown words pass through. */
+export function spinStateText(spinState: string): string {
+  if (spinState === 'no-choice') return 'only one spin state for this dⁿ';
+  return spinState.replace('-', ' ');
+}
+
+/** "d7" with a superscript count, for headings. */
+export function dCountText(d: number): string {
+  const sup = ['⁰', '¹', '²', '³', '⁴', '⁵', '⁶', '⁷', '⁸', '⁹'];
+  return `d${String(d).split('').map((ch) => sup[Number(ch)] ?? ch).join('')}`;
+}
+
+/** A file name safe for downloads: letters, digits, dot, dash, underscore. */
+export function safeFileStem(name: string): string {
+  const stem = name.replace(/\.[^.]*$/, '').replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^_+|_+$/g, '');
+  return stem === '' ? 'analysis' : stem;
+}

@@ -1,0 +1,205 @@
+/**
+ * The page: holds the analyses, runs the calls to the service and redraws
+ * the views when something changes.
+ */
+import 'uplot/dist/uPlot.min.css';
+import './styles.css';
+import * as api from './api.js';
+import { download, h, keepingFocus } from './dom.js';
+import { dCountText, safeFileStem } from './format.js';
+import { resultCsv, resultJson } from './export-results.js';
+import type { AnalysisEntry, EditableBand, SampleDetails } from './state.js';
+import { editableBandsFromResult, fitRequestFor, nextKey, shownFit } from './state.js';
+import type { ApiErrorBody } from './types.js';
+import type { AxisUnit } from './plots/spectrum-spec.js';
+import { createUploadPanel } from './views/upload.js';
+import { alternativesPanel, assignmentTable, parameterCards, warningsBox } from './views/results.js';
+import { bandsPanel } from './views/bands.js';
+import { diagramFigure, spectrumFigures } from './views/plots.js';
+import { renderCompare } from './views/compare.js';
+import { setupTabs } from './views/tabs.js';
+
+interface PageState {
+  entries: AnalysisEntry[];
+  currentKey: string | null;
+  unit: AxisUnit;
+  pickArmed: boolean;
+  refitting: boolean;
+  tab: 'analyse' | 'compare' | 'library';
+}
+
+const state: PageState = { entries: [], currentKey: null, unit: 'cm-1', pickArmed: false, refitting: false, tab: 'analyse' };
+
+const byId = (id: string): HTMLElement => {
+  const el = document.getElementById(id);
+  if (el === null) throw new Error(`page element #${id} is missing`);
+  return el;
+};
+
+function current(): AnalysisEntry | null {
+  return state.entries.find((e) => e.key === state.currentKey) ?? null;
+}
+
+function errorText(error: ApiErrorBody): string {
+  return error.path === '' ? error.message : `${error.message} (at ${error.path})`;
+}
+
+function asErrorBody(error: unknown): ApiErrorBody {
+  if (error instanceof api.ApiError) return error.body;
+  return { code: 'internal', message: 'Something went wrong in the page; reload it and try again.', path: '' };
+}
+
+/** A message at the top of the page that screen readers announce. */
+function notify(message: string, kind: 'error' | 'info' = 'error'): void {
+  const notice = byId('notice');
+  notice.replaceChildren(message === '' ? '' : h('div', { class: `notice ${kind}` }, h('span', {}, message), h('button', { type: 'button', class: 'button small', id: 'notice-close', onclick: () => notify('') }, 'Dismiss')));
+}
+
+async function analyseFiles(files: File[], details: SampleDetails): Promise<void> {
+  const entries = files.map((file) => {
+    const entry: AnalysisEntry = {
+      key: nextKey(), fileName: file.name, details: { ...details }, status: 'pending', result: null, error: null, fit: null,
+      originalFit: null, bands: [], cOverB: details.cOverB, freeC: details.freeC, shownAlternative: null, libraryId: null,
+    };
+    return { file, entry };
+  });
+  state.entries.push(...entries.map((e) => e.entry));
+  if (entries[0] !== undefined) state.currentKey = entries[0].entry.key;
+  render();
+  await Promise.all(
+    entries.map(async ({ file, entry }) => {
+      try {
+        const result = await api.analyze(file, entry.details);
+        entry.result = result;
+        entry.fit = result.fit;
+        entry.originalFit = result.fit;
+        entry.bands = editableBandsFromResult(result.bands);
+        entry.status = 'done';
+      } catch (error) {
+        entry.status = 'failed';
+        entry.error = asErrorBody(error);
+      }
+      render();
+    }),
+  );
+}
+
+async function refit(entry: AnalysisEntry): Promise<void> {
+  state.refitting = true;
+  render();
+  try {
+    entry.fit = await api.fit(fitRequestFor(entry));
+    entry.shownAlternative = null;
+    notify('');
+  } catch (error) {
+    notify(`Refit failed: ${errorText(asErrorBody(error))}`);
+  } finally {
+    state.refitting = false;
+    render();
+  }
+}
+
+function patchBand(entry: AnalysisEntry, index: number, patch: Partial<EditableBand>): void {
+  const band = entry.bands[index];
+  if (band !== undefined) entry.bands[index] = { ...band, ...patch };
+  render();
+}
+
+function addBand(entry: AnalysisEntry, position: number): void {
+  const range = entry.result?.spectrum.range;
+  if (range !== undefined && (position < range[0] || position > range[1])) {
+    notify(`${Math.round(position)} cm⁻¹ is outside the measured range ${Math.round(range[0])}–${Math.round(range[1])} cm⁻¹.`);
+    return;
+  }
+  entry.bands.push({ position: Math.round(position), uncertainty: null, epsilon: null, kind: 'd-d', shoulder: false, included: true, origin: 'added', sourceIndex: null });
+  entry.bands.sort((a, b) => a.position - b.position);
+  state.pickArmed = false;
+  notify('');
+  render();
+}
+
+function renderMain(root: HTMLElement): void {
+  const entry = current();
+  if (entry === null) {
+    root.replaceChildren(
+      h('section', { class: 'panel intro' }, h('h2', {}, 'Start here'), h('p', {}, 'Choose or drop one or more absorption spectra on the left, say which metal ion and geometry they are, and press Analyse. fieldgap finds the bands, assigns them to ligand-field transitions and reports 10Dq, the Racah parameters B and C, β and the spin state.')),
+    );
+    return;
+  }
+  const title = h('h2', { id: 'result-title' }, entry.details.sample || entry.fileName, entry.details.ligand === '' ? '' : h('span', { class: 'muted' }, ` · ${entry.details.ligand}`));
+  if (entry.status === 'pending') {
+    root.replaceChildren(title, h('p', { class: 'busy', role: 'status' }, `Analysing ${entry.fileName}…`));
+    return;
+  }
+  if (entry.status === 'failed' || entry.result === null) {
+    const error = entry.error ?? { code: 'internal', message: 'No result.', path: '' };
+    root.replaceChildren(title, h('div', { class: 'error-box', role: 'alert', id: 'analysis-error' }, h('h3', {}, `${entry.fileName} could not be analysed`), h('p', {}, error.message), error.path === '' ? null : h('p', {}, 'Where: ', h('code', {}, error.path))));
+    return;
+  }
+  const fit = shownFit(entry);
+  const warnings = [...entry.result.warnings, ...(fit?.warnings ?? [])];
+  const stem = safeFileStem(entry.fileName);
+  const subtitle = fit === null ? 'No ligand-field fit for this spectrum.' : `${fit.ion ?? entry.details.ion ?? ''} ${dCountText(fit.d)}, ${fit.geometry}${entry.shownAlternative === null ? '' : ` — showing alternative ${entry.shownAlternative + 1}`}`;
+  root.replaceChildren(
+    title,
+    h('p', { class: 'subtitle', id: 'result-subtitle' }, subtitle, h('span', { class: 'muted' }, ` · ${entry.fileName}, ${entry.result.spectrum.points} points`)),
+    warningsBox(warnings) ?? '',
+    fit === null ? '' : parameterCards(fit, entry.originalFit),
+    h(
+      'div',
+      { class: 'toolbar downloads' },
+      h('button', { type: 'button', class: 'button small', id: 'download-json', onclick: () => download(`${stem}-fieldgap.json`, resultJson(entry), 'application/json') }, 'Download JSON'),
+      h('button', { type: 'button', class: 'button small', id: 'download-csv', onclick: () => download(`${stem}-fieldgap.csv`, resultCsv(entry), 'text/csv') }, 'Download CSV'),
+    ),
+    ...spectrumFigures(entry, state.unit, state.pickArmed, {
+      onUnit: (unit) => { state.unit = unit; render(); },
+      onPick: (position) => addBand(entry, position),
+    }),
+    fit === null ? '' : h('section', { class: 'panel' }, assignmentTable(fit)),
+    alternativesPanel(entry, { onShowAlternative: (index) => { entry.shownAlternative = index; render(); } }) ?? '',
+    diagramFigure(entry) ?? '',
+    bandsPanel(entry, state.pickArmed, state.refitting, {
+      onPatch: (index, patch) => patchBand(entry, index, patch),
+      onDelete: (index) => { entry.bands.splice(index, 1); render(); },
+      onAdd: (position) => addBand(entry, position),
+      onArmPick: (armed) => { state.pickArmed = armed; render(); if (armed) byId('spectrum-figure').scrollIntoView({ block: 'nearest' }); },
+      onCOverB: (value) => { entry.cOverB = value; },
+      onFreeC: (value) => { entry.freeC = value; },
+      onRefit: () => void refit(entry),
+      onUndo: () => {
+        if (entry.result === null) return;
+        entry.bands = editableBandsFromResult(entry.result.bands);
+        entry.fit = entry.originalFit;
+        entry.cOverB = entry.details.cOverB;
+        entry.freeC = entry.details.freeC;
+        entry.shownAlternative = null;
+        render();
+      },
+    }),
+  );
+}
+
+let upload: ReturnType<typeof createUploadPanel> | null = null;
+
+function render(): void {
+  keepingFocus(() => {
+    upload?.renderEntries(state.entries, state.currentKey);
+    if (state.tab === 'analyse') renderMain(byId('main'));
+    if (state.tab === 'compare') renderCompare(byId('view-compare'), state.entries, state.unit, (unit) => { state.unit = unit; render(); });
+  });
+}
+
+setupTabs((tab) => { state.tab = tab; render(); });
+
+function start(): void {
+  upload = createUploadPanel(byId('side'), {
+    onAnalyse: (files, details) => void analyseFiles(files, details),
+    onSelect: (key) => { state.currentKey = key; state.pickArmed = false; render(); byId('main').focus({ preventScroll: true }); },
+  });
+  document.addEventListener('keydown', (event) => {
+    if (event.key === 'Escape' && state.pickArmed) { state.pickArmed = false; render(); }
+  });
+  render();
+}
+
+start();

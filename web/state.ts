@@ -1,0 +1,155 @@
+/**
+ * The page's working state: one entry per analysed file, the bands as the
+ * user has corrected them, and the fit currently shown. Plain data; views
+ * read it and call the actions in main.ts to change it.
+ */
+import type { AnalyzeResult, ApiErrorBody, Band, BandFlag, BandKind, FitResult, Geometry, XUnit } from './types.js';
+
+/** What the user says about the sample; sent with the analysis and stored with it. */
+export interface SampleDetails {
+  ion: string;
+  /** Used only when no ion is given. */
+  d: number | null;
+  geometry: Geometry;
+  /** mol/L. */
+  concentration: number | null;
+  /** cm; the service assumes 1 cm when absent. */
+  pathLength: number | null;
+  sample: string;
+  ligand: string;
+  xUnit: XUnit | null;
+  column: string;
+  cOverB: number | null;
+  freeC: boolean;
+}
+
+/** A band as the user has corrected it. */
+export interface EditableBand {
+  /** cm-1. */
+  position: number;
+  uncertainty: number | null;
+  epsilon: number | null;
+  kind: BandKind;
+  shoulder: boolean;
+  /** false once the user removes it; kept so it can be put back. */
+  included: boolean;
+  /** 'found' by the band finder, 'added' by the user. */
+  origin: 'found' | 'added';
+  /** Index into result.bands for found bands, to find its fitted curve. */
+  sourceIndex: number | null;
+}
+
+export interface AnalysisEntry {
+  /** Page-local identity. */
+  key: string;
+  fileName: string;
+  details: SampleDetails;
+  status: 'pending' | 'done' | 'failed';
+  result: AnalyzeResult | null;
+  error: ApiErrorBody | null;
+  /** The best fit for the current band list (after a refit, the refit). */
+  fit: FitResult | null;
+  /** The fit of the first analysis, kept to show what a correction changed. */
+  originalFit: FitResult | null;
+  bands: EditableBand[];
+  /** C/B used for the next refit; null lets the fit choose. */
+  cOverB: number | null;
+  freeC: boolean;
+  /** Index into fit.alternatives being shown instead of the best fit. */
+  shownAlternative: number | null;
+  /** Id in the results library once saved. */
+  libraryId: string | null;
+}
+
+export function defaultDetails(): SampleDetails {
+  return {
+    ion: '',
+    d: null,
+    geometry: 'octahedral',
+    concentration: null,
+    pathLength: null,
+    sample: '',
+    ligand: '',
+    xUnit: null,
+    column: '',
+    cOverB: null,
+    freeC: false,
+  };
+}
+
+/** The editable band list a fresh analysis starts with. */
+export function editableBandsFromResult(bands: readonly Band[]): EditableBand[] {
+  return bands.map((band, index) => ({
+    position: band.position,
+    uncertainty: typeof band.uncertainty === 'number' ? band.uncertainty : null,
+    epsilon: typeof band.epsilon === 'number' ? band.epsilon : null,
+    kind: band.kind,
+    shoulder: band.shoulder === true || (band.flags ?? []).includes('shoulder'),
+    included: true,
+    origin: 'found',
+    sourceIndex: index,
+  }));
+}
+
+/** Flags the fit endpoint reads for one band. */
+export function bandFlags(band: EditableBand): BandFlag[] {
+  const flags: BandFlag[] = [];
+  if (band.kind === 'charge-transfer') flags.push('charge-transfer');
+  if (band.kind === 'spin-forbidden') flags.push('spin-forbidden');
+  if (band.shoulder) flags.push('shoulder');
+  return flags;
+}
+
+export interface FitRequestBand {
+  position: number;
+  uncertainty?: number;
+  epsilon?: number;
+  flags: BandFlag[];
+}
+
+export interface FitRequest {
+  ion?: string;
+  d?: number;
+  geometry: Geometry;
+  bands: FitRequestBand[];
+  cOverB?: number;
+  freeC: boolean;
+}
+
+/** The POST /api/v1/fit body for the entry's current corrections. */
+export function fitRequestFor(entry: AnalysisEntry): FitRequest {
+  const request: FitRequest = {
+    geometry: entry.details.geometry,
+    bands: entry.bands
+      .filter((band) => band.included)
+      .map((band) => {
+        const out: FitRequestBand = { position: band.position, flags: bandFlags(band) };
+        if (band.uncertainty !== null) out.uncertainty = band.uncertainty;
+        if (band.epsilon !== null) out.epsilon = band.epsilon;
+        return out;
+      })
+      .sort((a, b) => a.position - b.position),
+    freeC: entry.freeC,
+  };
+  const ion = entry.details.ion.trim();
+  if (ion !== '') request.ion = ion;
+  else if (entry.details.d !== null) request.d = entry.details.d;
+  if (entry.cOverB !== null) request.cOverB = entry.cOverB;
+  return request;
+}
+
+/** The fit shown: an alternative when the user picked one, else the best. */
+export function shownFit(entry: AnalysisEntry): FitResult | null {
+  const fit = entry.fit;
+  if (fit === null) return null;
+  const index = entry.shownAlternative;
+  const alternative = index === null ? undefined : fit.alternatives?.[index];
+  if (alternative === undefined) return fit;
+  return { ...fit, ...alternative, alternatives: fit.alternatives ?? [] } as FitResult;
+}
+
+let counter = 0;
+export function nextKey(): string {
+  counter += 1;
+  return `a${counter}`;
+}

@@ -1,0 +1,137 @@
+/**
+ * The JSON shapes the page reads from the fieldgap service (/api/v1).
+ * Energies and positions are in cm-1; epsilon in L mol-1 cm-1; moments in μB.
+ * Fields the page does not need are left out; everything it reads but may be
+ * missing in an older or newer service is optional.
+ */
+
+export type Geometry = 'octahedral' | 'tetrahedral';
+export type BandKind = 'd-d' | 'spin-forbidden' | 'charge-transfer';
+export type BandFlag = 'charge-transfer' | 'spin-forbidden' | 'shoulder';
+export type XUnit = 'nm' | 'cm-1' | 'eV' | 'um';
+
+export interface ApiErrorBody {
+  code: string;
+  message: string;
+  path: string;
+}
+
+export interface MaskedRange {
+  from: number;
+  to: number;
+  reason: string;
+}
+
+export interface SpectrumSummary {
+  points: number;
+  /** [min, max] in cm-1. */
+  range: [number, number];
+  xUnit: string;
+  yUnit: string;
+  masked: MaskedRange[];
+}
+
+export interface Band {
+  /** cm-1. */
+  position: number;
+  /** nm. */
+  wavelength?: number;
+  height?: number;
+  /** L mol-1 cm-1, when a concentration was given. */
+  epsilon?: number | null;
+  /** cm-1. */
+  fwhm?: number;
+  area?: number;
+  oscillatorStrength?: number | null;
+  kind: BandKind;
+  /** cm-1: how well the position is known, when the band finder says. */
+  uncertainty?: number;
+  shoulder?: boolean;
+  flags?: BandFlag[];
+}
+
+export interface Assignment {
+  /** cm-1. */
+  observed: number;
+  /** cm-1. */
+  calculated: number;
+  term: string;
+  parent: string;
+  label?: string;
+}
+
+export interface PredictedLevel {
+  energy: number;
+  term: string;
+  parent?: string;
+  label?: string;
+  spinAllowed: boolean;
+}
+
+/** The fit result: dq, tenDq, b, c in cm-1; beta = b / freeIonB. */
+export interface FitResult {
+  d: number;
+  ion?: string | null;
+  geometry: Geometry;
+  dq: number;
+  tenDq: number;
+  b: number;
+  c: number;
+  cOverB: number;
+  beta: number | null;
+  freeIonB: number | null;
+  groundTerm: string;
+  spinState: string;
+  unpairedElectrons: number;
+  spinOnlyMoment: number;
+  lfse?: number | null;
+  rmsResidual: number | null;
+  status: string;
+  message?: string;
+  uncertainty: { tenDq: number | null; b: number | null; c: number | null };
+  assignments: Assignment[];
+  alternatives?: Alternative[];
+  predicted: PredictedLevel[];
+  warnings: string[];
+}
+
+/** A competing assignment the fit found close to the best one. */
+export type Alternative = Partial<FitResult> & { assignments?: Assignment[] };
+
+/** The curves behind the spectrum plot, on one grid in cm-1. */
+export interface Curves {
+  grid: number[];
+  signal: number[];
+  baseline?: number[];
+  /** Sum of the fitted bands (without the baseline). */
+  model?: number[];
+  components?: number[][];
+}
+
+export interface AnalyzeResult {
+  spectrum: SpectrumSummary;
+  bands: Band[];
+  fit: FitResult | null;
+  warnings: string[];
+  curves?: Curves;
+}
+
+export interface DiagramLine {
+  label: string;
+  term: string;
+  parent: string;
+  multiplicity: number;
+  irrep: string;
+  rank: number;
+  /** E/B above the ground level at each step. */
+  energies: number[];
+}
+
+export interface Diagram {
+  d: number;
+  geometry: Geometry;
+  cOverB: number;
+  dqOverB: number[];
+  groundTerms: string[];
+  lines: DiagramLine[];
+}

@@ -1,0 +1,117 @@
+/**
+ * The numbers of one analysis: warnings first, then 10Dq, B, C, β, spin
+ * state and magnetism with uncertainties and units, the assignment table and
+ * the close alternative assignments.
+ */
+import { h } from '../dom.js';
+import { UNIT, dCountText, formatNumber, formatWithUncertainty, nmFromWavenumber, spinStateText } from '../format.js';
+import type { AnalysisEntry } from '../state.js';
+import type { Alternative, FitResult } from '../types.js';
+
+export interface ResultHandlers {
+  onShowAlternative(index: number | null): void;
+}
+
+export function warningsBox(messages: readonly string[]): HTMLElement | null {
+  if (messages.length === 0) return null;
+  return h(
+    'div',
+    { class: 'warnings', id: 'warnings', role: 'status' },
+    h('h3', {}, messages.length === 1 ? 'Warning' : `${messages.length} warnings`),
+    h('ul', {}, ...messages.map((m) => h('li', {}, m))),
+  );
+}
+
+function card(id: string, name: string, value: string, unit: string, note?: string): HTMLElement {
+  return h(
+    'div',
+    { class: 'card', id },
+    h('div', { class: 'card-name' }, name),
+    h('div', { class: 'card-value' }, h('span', { class: 'value' }, value), unit === '' ? '' : h('span', { class: 'unit' }, ` ${unit}`)),
+    note === undefined ? null : h('div', { class: 'card-note' }, note),
+  );
+}
+
+/** "was 17 400" under a value a correction changed. */
+function previously(now: number | null, before: number | null | undefined, decimals: number): string | undefined {
+  if (before === null || before === undefined || now === null) return undefined;
+  if (Math.abs(now - before) < 0.5 * 10 ** -decimals) return undefined;
+  return `was ${formatNumber(before, decimals)} before the corrections`;
+}
+
+export function parameterCards(fit: FitResult, original: FitResult | null): HTMLElement {
+  const u = fit.uncertainty;
+  const betaUncertainty = u.b !== null && fit.freeIonB !== null && fit.freeIonB > 0 ? u.b / fit.freeIonB : null;
+  return h(
+    'div',
+    { class: 'cards', id: 'parameters' },
+    card('p-tendq', '10Dq', formatWithUncertainty(fit.tenDq, u.tenDq), UNIT.wavenumber, previously(fit.tenDq, original?.tenDq, 0)),
+    card('p-b', 'Racah B', formatWithUncertainty(fit.b, u.b), UNIT.wavenumber, previously(fit.b, original?.b, 0)),
+    card('p-c', 'Racah C', formatWithUncertainty(fit.c, u.c), UNIT.wavenumber, `C/B = ${formatNumber(fit.cOverB, 2)}`),
+    card('p-beta', 'β = B/B(free ion)', fit.beta === null ? '—' : formatWithUncertainty(fit.beta, betaUncertainty, 2), '', fit.freeIonB === null ? 'free-ion B not known for this ion' : `free-ion B = ${formatNumber(fit.freeIonB)} ${UNIT.wavenumber}`),
+    card('p-spin', 'Spin state', spinStateText(fit.spinState), '', `ground term ${fit.groundTerm}`),
+    card('p-unpaired', 'Unpaired electrons', String(fit.unpairedElectrons), ''),
+    card('p-moment', 'Spin-only moment', formatNumber(fit.spinOnlyMoment, 2), UNIT.moment),
+    card('p-rms', 'RMS residual', formatNumber(fit.rmsResidual, 0), UNIT.wavenumber, `fit: ${fit.status}${fit.message === undefined ? '' : ` — ${fit.message}`}`),
+  );
+}
+
+export function assignmentTable(fit: FitResult): HTMLElement {
+  if (fit.assignments.length === 0) return h('p', { class: 'muted' }, 'No band is assigned.');
+  return h(
+    'table',
+    { class: 'data', id: 'assignments' },
+    h('caption', {}, `Assignments (${dCountText(fit.d)}, ${fit.geometry}; transitions from ${fit.groundTerm})`),
+    h(
+      'thead',
+      {},
+      h('tr', {}, h('th', { scope: 'col' }, 'Level'), h('th', { scope: 'col' }, `Observed / ${UNIT.wavenumber}`), h('th', { scope: 'col' }, 'Observed / nm'), h('th', { scope: 'col' }, `Calculated / ${UNIT.wavenumber}`), h('th', { scope: 'col' }, `Obs. − calc. / ${UNIT.wavenumber}`)),
+    ),
+    h(
+      'tbody',
+      {},
+      ...fit.assignments.map((a) =>
+        h(
+          'tr',
+          {},
+          h('th', { scope: 'row' }, `${fit.groundTerm} → ${a.label ?? `${a.term}(${a.parent})`}`),
+          h('td', { class: 'num' }, formatNumber(a.observed)),
+          h('td', { class: 'num' }, formatNumber(nmFromWavenumber(a.observed), 1)),
+          h('td', { class: 'num' }, formatNumber(a.calculated)),
+          h('td', { class: 'num' }, formatNumber(a.observed - a.calculated)),
+        ),
+      ),
+    ),
+  );
+}
+
+function alternativeSummary(alternative: Alternative): string {
+  const parts: string[] = [];
+  if (typeof alternative.tenDq === 'number') parts.push(`10Dq ${formatNumber(alternative.tenDq)} ${UNIT.wavenumber}`);
+  if (typeof alternative.b === 'number') parts.push(`B ${formatNumber(alternative.b)} ${UNIT.wavenumber}`);
+  if (typeof alternative.rmsResidual === 'number') parts.push(`rms ${formatNumber(alternative.rmsResidual)} ${UNIT.wavenumber}`);
+  if (typeof alternative.spinState === 'string') parts.push(spinStateText(alternative.spinState));
+  const levels = (alternative.assignments ?? []).map((a) => a.label ?? `${a.term}(${a.parent})`);
+  if (levels.length > 0) parts.push(levels.join(', '));
+  return parts.join(' · ');
+}
+
+export function alternativesPanel(entry: AnalysisEntry, handlers: ResultHandlers): HTMLElement | null {
+  const alternatives = entry.fit?.alternatives ?? [];
+  if (alternatives.length === 0) return null;
+  const shown = entry.shownAlternative;
+  return h(
+    'section',
+    { class: 'panel', id: 'alternatives', 'aria-labelledby': 'alternatives-title' },
+    h('h3', { id: 'alternatives-title' }, 'Other assignments that fit almost as well'),
+    h('p', { class: 'muted' }, 'Choose one to show its numbers, assignments and levels instead of the best fit.'),
+    h(
+      'ul',
+      { class: 'choices' },
+      h('li', {}, h('button', { type: 'button', id: 'alt-best', class: shown === null ? 'choice chosen' : 'choice', 'aria-pressed': String(shown === null), onclick: () => handlers.onShowAlternative(null) }, 'Best fit: ', alternativeSummary(entry.fit!))),
+      ...alternatives.map((alternative, index) =>
+        h('li', {}, h('button', { type: 'button', id: `alt-${index}`, class: shown === index ? 'choice chosen' : 'choice', 'aria-pressed': String(shown === index), onclick: () => handlers.onShowAlternative(index) }, `Alternative ${index + 1}: `, alternativeSummary(alternative))),
+      ),
+    ),
+  );
+}

@@ -1,0 +1,155 @@
+/**
+ * The side panel: choose or drop spectrum files, describe the sample, start
+ * the analysis; below, the list of analysed files to switch between.
+ */
+import { h, numberOrNull } from '../dom.js';
+import type { AnalysisEntry, SampleDetails } from '../state.js';
+import type { Geometry, XUnit } from '../types.js';
+
+export interface UploadHandlers {
+  onAnalyse(files: File[], details: SampleDetails): void;
+  onSelect(key: string): void;
+}
+
+/** Ions the page suggests; any other the service knows can be typed. */
+const ION_SUGGESTIONS = ['Ti3+', 'V3+', 'V2+', 'Cr3+', 'Cr2+', 'Mn2+', 'Mn3+', 'Fe2+', 'Fe3+', 'Co2+', 'Co3+', 'Ni2+', 'Cu2+'];
+
+function field(id: string, label: string, input: HTMLElement, hint?: string): HTMLElement {
+  return h('div', { class: 'field' }, h('label', { for: id }, label), input, hint === undefined ? null : h('small', { id: `${id}-hint` }, hint));
+}
+
+export interface UploadPanel {
+  /** Redraws the list of analyses; the form keeps what the user typed. */
+  renderEntries(entries: readonly AnalysisEntry[], currentKey: string | null): void;
+}
+
+/** Builds the form once inside `root`. */
+export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): UploadPanel {
+  const queued: File[] = [];
+  const fileInput = h('input', { type: 'file', id: 'file-input', multiple: true, accept: '.csv,.txt,.tsv,.dat,.jdx,.dx,.jcamp,text/plain,text/csv' });
+  const queueList = h('ul', { class: 'queue', id: 'queue', 'aria-live': 'polite' });
+  const showQueue = (): void => {
+    queueList.replaceChildren(...queued.map((file) => h('li', {}, file.name, h('span', { class: 'muted' }, ` ${(file.size / 1024).toFixed(1)} kB`))));
+    analyseButton.disabled = queued.length === 0;
+  };
+  const addFiles = (files: FileList | null): void => {
+    if (files === null) return;
+    for (const file of Array.from(files)) if (!queued.some((q) => q.name === file.name && q.size === file.size)) queued.push(file);
+    showQueue();
+  };
+  fileInput.addEventListener('change', () => addFiles(fileInput.files));
+
+  const drop = h(
+    'div',
+    { class: 'drop', id: 'drop-zone' },
+    h('p', {}, 'Drop spectrum files here'),
+    h('p', { class: 'muted' }, 'text columns (CSV, TSV, whitespace) or JCAMP-DX; several at once'),
+    h('label', { class: 'button secondary', for: 'file-input' }, 'Choose files…'),
+    fileInput,
+  );
+  drop.addEventListener('dragover', (event) => {
+    event.preventDefault();
+    drop.classList.add('over');
+  });
+  drop.addEventListener('dragleave', () => drop.classList.remove('over'));
+  drop.addEventListener('drop', (event) => {
+    event.preventDefault();
+    drop.classList.remove('over');
+    addFiles(event.dataTransfer?.files ?? null);
+  });
+
+  const ion = h('input', { id: 'ion', name: 'ion', list: 'ion-list', autocomplete: 'off', placeholder: 'e.g. Ni2+', 'aria-describedby': 'ion-hint' });
+  const ionList = h('datalist', { id: 'ion-list' }, ...ION_SUGGESTIONS.map((value) => h('option', { value })));
+  const dCount = h('select', { id: 'd-count', name: 'd' }, h('option', { value: '' }, '—'), ...[1, 2, 3, 4, 5, 6, 7, 8, 9].map((d) => h('option', { value: String(d) }, `d${d}`)));
+  const geometry = h('select', { id: 'geometry', name: 'geometry' }, h('option', { value: 'octahedral' }, 'octahedral'), h('option', { value: 'tetrahedral' }, 'tetrahedral'));
+  const conc = h('input', { id: 'conc', name: 'conc', inputmode: 'decimal', placeholder: 'mol L⁻¹' });
+  const path = h('input', { id: 'path', name: 'path', inputmode: 'decimal', placeholder: '1' });
+  const sample = h('input', { id: 'sample', name: 'sample', placeholder: 'e.g. complex in water' });
+  const ligand = h('input', { id: 'ligand', name: 'ligand', placeholder: 'e.g. H2O' });
+  const xUnit = h('select', { id: 'x-unit', name: 'xUnit' }, h('option', { value: '' }, 'from the file'), h('option', { value: 'nm' }, 'nm'), h('option', { value: 'cm-1' }, 'cm⁻¹'), h('option', { value: 'eV' }, 'eV'), h('option', { value: 'um' }, 'µm'));
+  const column = h('input', { id: 'column', name: 'column', placeholder: 'first y column' });
+  const cOverB = h('input', { id: 'c-over-b', name: 'cOverB', inputmode: 'decimal', placeholder: 'free-ion value' });
+  const freeC = h('input', { id: 'free-c', name: 'freeC', type: 'checkbox' });
+
+  const analyseButton = h('button', { type: 'submit', id: 'analyse', class: 'button primary', disabled: queued.length === 0 }, 'Analyse');
+  const form = h(
+    'form',
+    { id: 'sample-form', novalidate: true },
+    h('h2', {}, 'Spectra'),
+    drop,
+    queueList,
+    h('h2', {}, 'Sample'),
+    h('div', { class: 'row' }, field('ion', 'Metal ion', ion, 'charge with the sign: Co2+'), field('d-count', 'or dⁿ', dCount)),
+    ionList,
+    field('geometry', 'Geometry', geometry),
+    h('div', { class: 'row' }, field('conc', 'Concentration / mol L⁻¹', conc), field('path', 'Path length / cm', path)),
+    h('div', { class: 'row' }, field('sample', 'Sample', sample), field('ligand', 'Ligand', ligand)),
+    h(
+      'details',
+      {},
+      h('summary', {}, 'More: file columns, C/B'),
+      h('div', { class: 'row' }, field('x-unit', 'x unit of the file', xUnit), field('column', 'y column (number or name)', column)),
+      field('c-over-b', 'C/B', cOverB),
+      h('div', { class: 'check' }, freeC, h('label', { for: 'free-c' }, 'fit C as well (needs enough bands)')),
+    ),
+    analyseButton,
+  );
+  form.addEventListener('submit', (event) => {
+    event.preventDefault();
+    const dValue = numberOrNull(dCount.value);
+    const details: SampleDetails = {
+      ion: ion.value.trim(),
+      d: dValue,
+      geometry: geometry.value as Geometry,
+      concentration: numberOrNull(conc.value),
+      pathLength: numberOrNull(path.value),
+      sample: sample.value.trim(),
+      ligand: ligand.value.trim(),
+      xUnit: xUnit.value === '' ? null : (xUnit.value as XUnit),
+      column: column.value.trim(),
+      cOverB: numberOrNull(cOverB.value),
+      freeC: freeC.checked,
+    };
+    const files = queued.splice(0, queued.length);
+    showQueue();
+    handlers.onAnalyse(files, details);
+  });
+
+  const heading = h('h2', { hidden: true }, 'Analyses');
+  const list = h('ul', { class: 'entries', id: 'entries' });
+  root.replaceChildren(form, heading, list);
+  showQueue();
+  return {
+    renderEntries(entries, currentKey) {
+      heading.hidden = entries.length === 0;
+      list.replaceChildren(...entries.map((entry) => entryItem(entry, currentKey, handlers)));
+    },
+  };
+}
+
+function entryStatus(entry: AnalysisEntry): string {
+  if (entry.status === 'pending') return 'analysing…';
+  if (entry.status === 'failed') return 'failed';
+  if (entry.fit === null) return 'no fit';
+  return `10Dq ${Math.round(entry.fit.tenDq)} cm⁻¹`;
+}
+
+function entryItem(entry: AnalysisEntry, currentKey: string | null, handlers: UploadHandlers): HTMLElement {
+  const current = entry.key === currentKey;
+  return h(
+    'li',
+    {},
+    h(
+      'button',
+      {
+        type: 'button',
+        class: current ? 'entry current' : 'entry',
+        id: `entry-${entry.key}`,
+        'aria-current': current ? 'true' : undefined,
+        onclick: () => handlers.onSelect(entry.key),
+      },
+      h('span', { class: 'name' }, entry.details.sample || entry.fileName),
+      h('span', { class: `status ${entry.status}` }, entryStatus(entry)),
+    ),
+  );
+}
