@@ -1,0 +1,204 @@
+/**
+ * Dense real-symmetric eigenproblems on row-major Float64Array: Householder
+ * reduction to tridiagonal form, then the implicit QL algorithm with Wilkinson
+ * shifts (the classic EISPACK tred2/tql2 scheme, written afresh here).
+ *
+ * Only the lower triangle of the input is read. Eigenvalues come out
+ * ascending; eigenvectors are the columns of `vectors` (element [i·n + j] is
+ * component i of eigenvector j), orthonormal.
+ */
+
+const EPSILON = 2 ** -52;
+const MAX_SWEEPS = 60;
+
+/** Scratch arrays reused between calls of the same size, so hot loops do not allocate. */
+export interface EigenWorkspace {
+  offDiagonal: Float64Array;
+}
+
+export function createEigenWorkspace(n: number): EigenWorkspace {
+  return { offDiagonal: new Float64Array(Math.max(n, 1)) };
+}
+
+/**
+ * Householder tridiagonalisation of a (destroyed). Leaves the diagonal in d,
+ * the sub-diagonal in e[1..n−1], and, when accumulate is set, the orthogonal
+ * transformation Q (A = Q T Qᵀ) in a.
+ */
+function tridiagonalise(a: Float64Array, n: number, d: Float64Array, e: Float64Array, accumulate: boolean): void {
+  for (let i = n - 1; i > 0; i--) {
+    const l = i - 1;
+    const rowI = i * n;
+    let h = 0;
+    if (l > 0) {
+      let scale = 0;
+      for (let k = 0; k <= l; k++) scale += Math.abs(a[rowI + k]!);
+      if (scale === 0) {
+        e[i] = a[rowI + l]!;
+      } else {
+        for (let k = 0; k <= l; k++) {
+          const v = a[rowI + k]! / scale;
+          a[rowI + k] = v;
+          h += v * v;
+        }
+        let f = a[rowI + l]!;
+        let g = f >= 0 ? -Math.sqrt(h) : Math.sqrt(h);
+        e[i] = scale * g;
+        h -= f * g;
+        a[rowI + l] = f - g;
+        f = 0;
+        for (let j = 0; j <= l; j++) {
+          const rowJ = j * n;
+          if (accumulate) a[rowJ + i] = a[rowI + j]! / h;
+          g = 0;
+          for (let k = 0; k <= j; k++) g += a[rowJ + k]! * a[rowI + k]!;
+          for (let k = j + 1; k <= l; k++) g += a[k * n + j]! * a[rowI + k]!;
+          e[j] = g / h;
+          f += e[j]! * a[rowI + j]!;
+        }
+        const hh = f / (h + h);
+        for (let j = 0; j <= l; j++) {
+          const rowJ = j * n;
+          const fj = a[rowI + j]!;
+          const gj = e[j]! - hh * fj;
+          e[j] = gj;
+          for (let k = 0; k <= j; k++) a[rowJ + k] = a[rowJ + k]! - (fj * e[k]! + gj * a[rowI + k]!);
+        }
+      }
+    } else {
+      e[i] = a[rowI + l]!;
+    }
+    d[i] = h;
+  }
+  d[0] = 0;
+  e[0] = 0;
+  for (let i = 0; i < n; i++) {
+    const rowI = i * n;
+    if (accumulate) {
+      if (d[i] !== 0) {
+        for (let j = 0; j < i; j++) {
+          let g = 0;
+          for (let k = 0; k < i; k++) g += a[rowI + k]! * a[k * n + j]!;
+          for (let k = 0; k < i; k++) a[k * n + j] = a[k * n + j]! - g * a[k * n + i]!;
+        }
+      }
+      d[i] = a[rowI + i]!;
+      a[rowI + i] = 1;
+      for (let j = 0; j < i; j++) {
+        a[j * n + i] = 0;
+        a[rowI + j] = 0;
+      }
+    } else {
+      d[i] = a[rowI + i]!;
+    }
+  }
+}
+
+/**
+ * Implicit QL on the tridiagonal (d, e from tridiagonalise). Overwrites d with
+ * the eigenvalues (unsorted); rotates the columns of z when given.
+ */
+function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Float64Array | undefined): void {
+  for (let i = 1; i < n; i++) e[i - 1] = e[i]!;
+  if (n > 0) e[n - 1] = 0;
+  for (let l = 0; l < n; l++) {
+    let sweeps = 0;
+    for (;;) {
+      let m = l;
+      for (; m < n - 1; m++) {
+        const dd = Math.abs(d[m]!) + Math.abs(d[m + 1]!);
+        if (Math.abs(e[m]!) <= EPSILON * dd) break;
+      }
+      if (m === l) break;
+      if (++sweeps > MAX_SWEEPS) throw new Error('symmetric eigensolver: QL did not converge');
+      let g = (d[l + 1]! - d[l]!) / (2 * e[l]!);
+      let r = Math.sqrt(g * g + 1);
+      g = d[m]! - d[l]! + e[l]! / (g + (g >= 0 ? r : -r));
+      let s = 1;
+      let c = 1;
+      let p = 0;
+      let underflow = false;
+      for (let i = m - 1; i >= l; i--) {
+        const f = s * e[i]!;
+        const b = c * e[i]!;
+        r = Math.sqrt(f * f + g * g);
+        e[i + 1] = r;
+        if (r === 0) {
+          d[i + 1] = d[i + 1]! - p;
+          e[m] = 0;
+          underflow = true;
+          break;
+        }
+        s = f / r;
+        c = g / r;
+        g = d[i + 1]! - p;
+        r = (d[i]! - g) * s + 2 * c * b;
+        p = s * r;
+        d[i + 1] = g + p;
+        g = c * r - b;
+        if (z) {
+          for (let k = 0; k < n; k++) {
+            const row = k * n;
+            const zf = z[row + i + 1]!;
+            z[row + i + 1] = s * z[row + i]! + c * zf;
+            z[row + i] = c * z[row + i]! - s * zf;
+          }
+        }
+      }
+      if (underflow) continue;
+      d[l] = d[l]! - p;
+      e[l] = g;
+      e[m] = 0;
+    }
+  }
+}
+
+/**
+ * Eigenvalues of the symmetric n×n matrix a, ascending, into values[0..n−1].
+ * Destroys a. The fast path: no eigenvectors are accumulated.
+ */
+export function symmetricEigenvaluesInPlace(
+  a: Float64Array,
+  n: number,
+  values: Float64Array,
+  workspace: EigenWorkspace = createEigenWorkspace(n),
+): void {
+  if (n === 0) return;
+  const e = workspace.offDiagonal;
+  tridiagonalise(a, n, values, e, false);
+  tridiagonalQl(values, e, n, undefined);
+  values.subarray(0, n).sort();
+}
+
+/** Eigenvalues of the symmetric n×n matrix a (not modified), ascending. */
+export function symmetricEigenvalues(a: Float64Array, n: number): Float64Array {
+  const values = new Float64Array(n);
+  symmetricEigenvaluesInPlace(Float64Array.from(a.subarray(0, n * n)), n, values);
+  return values;
+}
+
+export interface SymmetricEigen {
+  /** Ascending. */
+  values: Float64Array;
+  /** Row-major n×n; column j is the unit eigenvector of values[j]. */
+  vectors: Float64Array;
+}
+
+/** Eigenvalues and orthonormal eigenvectors of the symmetric n×n matrix a (not modified). */
+export function symmetricEigen(a: Float64Array, n: number): SymmetricEigen {
+  const z = Float64Array.from(a.subarray(0, n * n));
+  const d = new Float64Array(n);
+  const e = new Float64Array(Math.max(n, 1));
+  if (n > 0) {
+    tridiagonalise(z, n, d, e, true);
+    tridiagonalQl(d, e, n, z);
+  }
+  const order = Array.from({ length: n }, (_, i) => i).sort((i, j) => d[i]! - d[j]!);
+  const values = new Float64Array(n);
+  const vectors = new Float64Array(n * n);
+  order.forEach((source, target) => {
+    values[target] = d[source]!;
+    for (let k = 0; k < n; k++) vectors[k * n + target] = z[k * n + source]!;
+  });
+  return { values, vectors };
+}

@@ -1,0 +1,10 @@
+/**
+ * The d1–d9 ligand-field engine: energy levels of d^n ions in octahedral and
+ * tetrahedral fields from Dq and the Racah parameters B and C, their labels,
+ * Tanabe–Sugano-type diagrams, free-ion terms and spin-state helpers.
+ * Energies in cm-1, measured from the ground level.
+ */
+export { computeLevels } from './levels.js';
+export { freeIonTerms } from './public-free-ion.js';
+export { spinStateChoice } from './spin-state.js';
+export * from './types.js';

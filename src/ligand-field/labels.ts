@@ -1,0 +1,64 @@
+import { cubicComponentsOfL } from './term-splitting.js';
+import type { CubicIrrep, FreeIonTerm, Geometry } from './types.js';
+
+/**
+ * Names of levels and their free-ion parents.
+ *
+ * Parent rule. Along a path Dq = 0 → Dq at fixed B and C, levels of the same
+ * (S, Γ) never cross (non-crossing rule: they are eigenvalues of one block
+ * of a Hamiltonian that depends on one parameter, and generic same-symmetry
+ * levels repel). So their energy order is the same at every Dq, and the i-th
+ * lowest (S, Γ) level is the one that, followed continuously to Dq → 0,
+ * ends on the i-th lowest (S, Γ) component of the free-ion terms, the terms
+ * taken in ascending energy and each split by L → Γ (S→A1, P→T1, D→E+T2,
+ * F→A2+T1+T2, …). tests/ligand-field/labels.test.ts checks both halves:
+ * no same-(S, Γ) gap closes along a fine Dq path, and at small Dq each
+ * level sits next to its parent term's energy.
+ */
+export interface ParentTable {
+  /** `${2S+1}:${irrep}` → parent term names, in the order of the levels' rank. */
+  sequences: Map<string, string[]>;
+  /** Number of (S, Γ) levels d^n has. */
+  expected(twoS: number, irrep: CubicIrrep): number;
+}
+
+export function levelKey(multiplicity: number, irrep: CubicIrrep): string {
+  return `${multiplicity}:${irrep}`;
+}
+
+const tables = new WeakMap<readonly FreeIonTerm[], ParentTable>();
+
+/** The parent sequences of free-ion terms listed in ascending energy (cached per array). */
+export function parentTable(terms: readonly FreeIonTerm[]): ParentTable {
+  const hit = tables.get(terms);
+  if (hit) return hit;
+  const sequences = new Map<string, string[]>();
+  for (const term of terms)
+    for (const irrep of cubicComponentsOfL(term.L)) {
+      const key = levelKey(term.multiplicity, irrep);
+      const list = sequences.get(key) ?? [];
+      list.push(term.term);
+      sequences.set(key, list);
+    }
+  const table: ParentTable = {
+    sequences,
+    expected: (twoS, irrep) => sequences.get(levelKey(twoS + 1, irrep))?.length ?? 0,
+  };
+  tables.set(terms, table);
+  return table;
+}
+
+/** "T1g" (octahedral: all d^n states are gerade) or "T1" (tetrahedral: no inversion centre). */
+export function irrepName(irrep: CubicIrrep, geometry: Geometry): string {
+  return geometry === 'octahedral' ? `${irrep}g` : irrep;
+}
+
+/** "4T1g". */
+export function termName(multiplicity: number, irrep: CubicIrrep, geometry: Geometry): string {
+  return `${multiplicity}${irrepName(irrep, geometry)}`;
+}
+
+/** "4T1g(P)", "2T2g(D2)": the term with its parent's letter (and repetition number). */
+export function levelLabel(term: string, parent: string): string {
+  return `${term}(${parent.replace(/^\d+/, '')})`;
+}

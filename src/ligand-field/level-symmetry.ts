@@ -1,0 +1,100 @@
+import { cubicBlockEigenvalues, sortedMultisetDifference } from './block-spectra.js';
+import type { CubicBlocks } from './blocks.js';
+import { clusterIrrepsByCharacters } from './cluster-characters.js';
+import { CUBIC_IRREPS, irrepFromC4Counts } from './cubic-group.js';
+import type { CubicIrrep } from './types.js';
+
+/**
+ * From block eigenvalues to (S, Γ) levels.
+ *
+ * Spin: the levels of spin S are the eigenvalues of block M_S = S less (as a
+ * multiset, per C4 block) those of M_S = S + 1. Symmetry: eigenvalues of one
+ * spin within tol of each other form a cluster; its counts (n0, n1, n2) in
+ * the C4 blocks k = 0, 1, 2 name the irrep (see cubic-group.ts). Clusters
+ * with any other count pattern are reduced by the characters of O
+ * (cluster-characters.ts), which is exact for any degeneracy.
+ */
+export interface RawLevel {
+  /** 2S. */
+  twoS: number;
+  irrep: CubicIrrep;
+  /** cm-1, on the Hamiltonian's own zero (not yet from the ground level). */
+  energy: number;
+}
+
+interface Cluster {
+  energy: number;
+  lo: number;
+  hi: number;
+  counts: [number, number, number];
+}
+
+/** Clusters of the spin-S eigenvalues, given per C4 block k = 0, 1, 2 (each sorted). */
+function clustersOf(perK: number[][], tol: number): Cluster[] {
+  const items: Array<[number, number]> = [];
+  perK.forEach((values, k) => values.forEach((e) => items.push([e, k])));
+  items.sort((x, y) => x[0] - y[0]);
+  const clusters: Cluster[] = [];
+  for (let i = 0; i < items.length; ) {
+    let j = i + 1;
+    while (j < items.length && items[j]![0] - items[j - 1]![0] <= tol) j++;
+    const counts: [number, number, number] = [0, 0, 0];
+    let sum = 0;
+    for (let t = i; t < j; t++) {
+      counts[items[t]![1]]!++;
+      sum += items[t]![0];
+    }
+    clusters.push({ energy: sum / (j - i), lo: items[i]![0] - tol, hi: items[j - 1]![0] + tol, counts });
+    i = j;
+  }
+  return clusters;
+}
+
+/**
+ * Levels of every spin at parameters [dq, b, c]. expected(twoS, irrep) gives
+ * the number of (S, Γ) levels the free-ion terms predict; a spin whose count
+ * disagrees (only possible when an A1 + A2 pair coincided and read as E) is
+ * redone with characters for every E-pattern cluster.
+ */
+export function rawLevels(
+  blocks: CubicBlocks,
+  coefficients: readonly number[],
+  tol: number,
+  expected: (twoS: number, irrep: CubicIrrep) => number,
+): RawLevel[] {
+  const values = cubicBlockEigenvalues(blocks, coefficients);
+  const top = blocks.twoMsValues.length - 1;
+  const levels: RawLevel[] = [];
+  for (let s = top; s >= 0; s--) {
+    const twoS = blocks.twoMsValues[s]!;
+    const perK = [0, 1, 2].map((k) =>
+      s === top ? Array.from(values[s]![k]!) : sortedMultisetDifference(values[s]![k]!, values[s + 1]![k]!, tol),
+    );
+    const clusters = clustersOf(perK, tol);
+    const resolve = (forceCharacters: boolean): RawLevel[] => {
+      const out: RawLevel[] = [];
+      for (const cluster of clusters) {
+        const single = irrepFromC4Counts(...cluster.counts);
+        if (single && !(forceCharacters && single === 'E')) {
+          out.push({ twoS, irrep: single, energy: cluster.energy });
+          continue;
+        }
+        const counts = clusterIrrepsByCharacters(blocks, s, coefficients, cluster.lo, cluster.hi, cluster.counts);
+        for (const irrep of CUBIC_IRREPS)
+          for (let i = 0; i < counts[irrep]; i++) out.push({ twoS, irrep, energy: cluster.energy });
+      }
+      return out;
+    };
+    let found = resolve(false);
+    if (!countsMatch(found, twoS, expected)) found = resolve(true);
+    if (!countsMatch(found, twoS, expected)) {
+      throw new Error(`ligand-field levels of spin ${twoS}/2 do not match the free-ion terms`);
+    }
+    levels.push(...found);
+  }
+  return levels;
+}
+
+function countsMatch(levels: RawLevel[], twoS: number, expected: (twoS: number, irrep: CubicIrrep) => number): boolean {
+  return CUBIC_IRREPS.every((irrep) => levels.filter((l) => l.irrep === irrep).length === expected(twoS, irrep));
+}

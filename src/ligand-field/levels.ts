@@ -1,0 +1,97 @@
+import { FieldgapError } from '../errors.js';
+import { cubicBlocks } from './blocks.js';
+import { freeIonTermsUnitB } from './free-ion.js';
+import { CUBIC_IRREPS, IRREP_DIMENSION } from './cubic-group.js';
+import { levelKey, levelLabel, parentTable, termName, irrepName } from './labels.js';
+import { rawLevels, type RawLevel } from './level-symmetry.js';
+import { hundTwoSpin, spinStateChoice } from './spin-state.js';
+import type { FieldParameters, Geometry, Level, LevelsResult, SpinState } from './types.js';
+import { validateD, validateFieldParameters, validateGeometry } from './validate.js';
+
+/**
+ * Cluster tolerance in cm-1: far below any physical splitting, far above
+ * round-off (eigenvalues are good to ~1e-15 of the matrix norm, itself below
+ * this scale).
+ */
+export function energyTolerance({ dq, b, c }: FieldParameters): number {
+  return 1e-9 * (10 * Math.abs(dq) + 20 * b + 10 * c);
+}
+
+function closedShell(d: number, geometry: Geometry, params: FieldParameters): LevelsResult {
+  const term = termName(1, 'A1', geometry);
+  const level: Level = {
+    energy: 0, term, multiplicity: 1, irrep: irrepName('A1', geometry), cubicIrrep: 'A1',
+    degeneracy: 1, parent: '1S', label: levelLabel(term, '1S'), rank: 0,
+  };
+  return {
+    d, geometry, ...pick(params), groundTerm: term, spinState: 'no-choice', unpairedElectrons: 0, levels: [level],
+    notes: [`d${d} is a closed configuration (1A1${geometry === 'octahedral' ? 'g' : ''} only): it has no ligand-field transitions`],
+  };
+}
+
+function pick({ dq, b, c }: FieldParameters): FieldParameters {
+  return { dq, b, c };
+}
+
+const IRREP_ORDER = new Map(CUBIC_IRREPS.map((irrep, i) => [irrep, i]));
+
+/** Ascending energy; ties by higher spin, then irrep order A1, A2, E, T1, T2. */
+function byEnergy(x: RawLevel, y: RawLevel): number {
+  return x.energy - y.energy || y.twoS - x.twoS || IRREP_ORDER.get(x.irrep)! - IRREP_ORDER.get(y.irrep)!;
+}
+
+/**
+ * All (2S+1, Γ) levels of d^n in a cubic field, with energies in cm-1 above
+ * the ground level, labelled by term, parent free-ion term and rank.
+ *
+ * params: Dq, B, C in cm-1 (Dq ≥ 0, B > 0, C ≥ 0); the geometry sets the sign
+ * of the field. The per-(d, geometry) operator matrices are built once and
+ * cached, so repeated calls cost a handful of small diagonalisations.
+ * d0 and d10 give the single 1A1(g) level and a note.
+ */
+export function computeLevels(d: number, geometry: Geometry, params: FieldParameters): LevelsResult {
+  validateD(d);
+  validateGeometry(geometry);
+  validateFieldParameters(params);
+  if (d === 0 || d === 10) return closedShell(d, geometry, params);
+  const { dq, b, c } = params;
+  const terms = freeIonTermsUnitB(d, c / b);
+  const table = parentTable(terms);
+  const raw = rawLevels(cubicBlocks(d, geometry), [dq, b, c], energyTolerance(params), table.expected);
+  raw.sort(byEnergy);
+  const ground = raw[0]!;
+  const tol = energyTolerance(params);
+  const ranks = new Map<string, number>();
+  const levels: Level[] = raw.map((r) => {
+    const multiplicity = r.twoS + 1;
+    const key = levelKey(multiplicity, r.irrep);
+    const rank = ranks.get(key) ?? 0;
+    ranks.set(key, rank + 1);
+    const parent = table.sequences.get(key)?.[rank];
+    if (parent === undefined) throw new FieldgapError('internal', `no free-ion parent for level ${key} #${rank}`);
+    const term = termName(multiplicity, r.irrep, geometry);
+    const energy = r.energy - ground.energy;
+    return {
+      energy: energy < tol ? 0 : energy,
+      term,
+      multiplicity,
+      irrep: irrepName(r.irrep, geometry),
+      cubicIrrep: r.irrep,
+      degeneracy: multiplicity * IRREP_DIMENSION[r.irrep],
+      parent,
+      label: levelLabel(term, parent),
+      rank,
+    };
+  });
+  const groundLevel = levels[0]!;
+  let spinState: SpinState = 'no-choice';
+  if (spinStateChoice(d, geometry)) spinState = ground.twoS === hundTwoSpin(d) ? 'high-spin' : 'low-spin';
+  const notes: string[] = [];
+  if (levels.length > 1 && levels[1]!.energy === 0) {
+    notes.push(`the ground level is degenerate: ${levels.filter((l) => l.energy === 0).map((l) => l.label).join(', ')} coincide`);
+  }
+  return {
+    d, geometry, ...pick(params), groundTerm: groundLevel.term, spinState, unpairedElectrons: ground.twoS,
+    levels, notes,
+  };
+}

@@ -1,0 +1,102 @@
+import { bitIsAlpha, bitOrbital, excitationSign, maskPopcount, signBelow, SPIN_ORBITALS } from './determinants.js';
+import { integralIndex } from './repulsion.js';
+
+/**
+ * Dense many-electron matrices of spin-free operators between the
+ * determinants of one block, by the Slater–Condon rules. Determinants and
+ * signs as in determinants.ts. Matrices are row-major n×n Float64Array with
+ * element [row·n + col] = <masks[row]| O |masks[col]>.
+ */
+
+/** Lowest set bit index of a nonzero mask. */
+function lowestBit(mask: number): number {
+  return 31 - Math.clz32(mask & -mask);
+}
+
+/**
+ * A one-electron spin-free operator h (5×5 spatial, row-major, index m_l + 2)
+ * between determinants: diagonal Σ h_ii over occupied spin-orbitals; single
+ * excitation q → p (same spin) sign·h_pq; zero otherwise.
+ */
+export function oneBodyBlockMatrix(masks: readonly number[], h: Float64Array): Float64Array {
+  const n = masks.length;
+  const out = new Float64Array(n * n);
+  for (let row = 0; row < n; row++) {
+    const bra = masks[row]!;
+    for (let col = 0; col < n; col++) {
+      const ket = masks[col]!;
+      const diff = bra ^ ket;
+      if (diff === 0) {
+        let sum = 0;
+        for (let bit = 0; bit < SPIN_ORBITALS; bit++) if (ket & (1 << bit)) sum += h[bitOrbital(bit) * 5 + bitOrbital(bit)]!;
+        out[row * n + col] = sum;
+      } else if (maskPopcount(diff) === 2) {
+        const p = lowestBit(diff & bra);
+        const q = lowestBit(diff & ket);
+        if (bitIsAlpha(p) !== bitIsAlpha(q)) continue;
+        out[row * n + col] = excitationSign(ket, p, q) * h[bitOrbital(p) * 5 + bitOrbital(q)]!;
+      }
+    }
+  }
+  return out;
+}
+
+/** Antisymmetrised spin-orbital integral <pq||rs> from spatial integrals g. */
+function antisymmetrised(g: Float64Array, p: number, q: number, r: number, s: number): number {
+  const [sp, sq, sr, ss] = [bitIsAlpha(p), bitIsAlpha(q), bitIsAlpha(r), bitIsAlpha(s)];
+  const [op, oq, or, os] = [bitOrbital(p), bitOrbital(q), bitOrbital(r), bitOrbital(s)];
+  const direct = sp === sr && sq === ss ? g[integralIndex(op, oq, or, os)]! : 0;
+  const exchange = sp === ss && sq === sr ? g[integralIndex(op, oq, os, or)]! : 0;
+  return direct - exchange;
+}
+
+/**
+ * A two-electron spin-free operator with spatial integrals g (625 entries,
+ * see repulsion.ts) between determinants:
+ *   same determinant: Σ_{i<j} <ij||ij>;
+ *   one spin-orbital q → p: sign(a†p a_q) Σ_{j≠q} <pj||qj>;
+ *   two, q1 < q2 → p1 < p2: sign(a†p1 a†p2 a_q2 a_q1) <p1p2||q1q2>.
+ */
+export function twoBodyBlockMatrix(masks: readonly number[], g: Float64Array): Float64Array {
+  const n = masks.length;
+  const out = new Float64Array(n * n);
+  for (let row = 0; row < n; row++) {
+    const bra = masks[row]!;
+    for (let col = 0; col < n; col++) {
+      const ket = masks[col]!;
+      const diff = bra ^ ket;
+      const changed = maskPopcount(diff);
+      let value = 0;
+      if (changed === 0) {
+        for (let i = 0; i < SPIN_ORBITALS; i++) {
+          if (!(ket & (1 << i))) continue;
+          for (let j = i + 1; j < SPIN_ORBITALS; j++) if (ket & (1 << j)) value += antisymmetrised(g, i, j, i, j);
+        }
+      } else if (changed === 2) {
+        const p = lowestBit(diff & bra);
+        const q = lowestBit(diff & ket);
+        let sum = 0;
+        for (let j = 0; j < SPIN_ORBITALS; j++) if (j !== q && ket & (1 << j)) sum += antisymmetrised(g, p, j, q, j);
+        value = excitationSign(ket, p, q) * sum;
+      } else if (changed === 4) {
+        const created = diff & bra;
+        const removed = diff & ket;
+        const p1 = lowestBit(created);
+        const p2 = lowestBit(created & ~(1 << p1));
+        const q1 = lowestBit(removed);
+        const q2 = lowestBit(removed & ~(1 << q1));
+        let state = ket;
+        let sign = signBelow(state, q1);
+        state &= ~(1 << q1);
+        sign *= signBelow(state, q2);
+        state &= ~(1 << q2);
+        sign *= signBelow(state, p2);
+        state |= 1 << p2;
+        sign *= signBelow(state, p1);
+        value = sign * antisymmetrised(g, p1, p2, q1, q2);
+      }
+      out[row * n + col] = value;
+    }
+  }
+  return out;
+}
