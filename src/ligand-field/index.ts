@@ -5,6 +5,8 @@
  * Energies in cm-1, measured from the ground level.
  */
 export { computeLevels } from './levels.js';
+export { computeDiagram, DIAGRAM_DEFAULTS, type DiagramOptions } from './diagram.js';
+export { crossoverDqOverB, type CrossoverOptions } from './crossover.js';
 export { freeIonTerms } from './public-free-ion.js';
 export { spinStateChoice } from './spin-state.js';
 export * from './types.js';
