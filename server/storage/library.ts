@@ -11,7 +11,7 @@ import type {
   AnalysisPatch, AnalysisRecord, AnalysisSummary, ListOptions, ListPage, NewAnalysis, OriginalFile, StoredOptions, StoredResult,
 } from './types.js';
 import { baseFileName, canonicalIon, canonicalIonOrNull, checkDetails } from './validate.js';
-import { toolVersion } from './version.js';
+import { packageVersion as toolVersion } from '../paths.js';
 
 /** The file the library keeps inside its data folder (with -wal and -shm beside it). */
 export const LIBRARY_FILE = 'library.sqlite';
