@@ -56,9 +56,15 @@ export function plainNumber(value: number | null | undefined, decimals?: number)
   return decimals === undefined ? String(value) : value.toFixed(decimals);
 }
 
-/** "4T1g(P)" → term and parent as given by the service, for display. */
-export function levelLabel(term: string, parent: string | undefined): string {
-  return parent === undefined || parent === '' ? term : `${term}(${parent})`;
+/**
+ * A level's display name: the service's label when it sent one, else the
+ * term with the parent's letter (and repeat number) but not its multiplicity,
+ * as DEVELOPERS.md writes them: ("4T1g", "4P") → "4T1g(P)", ("2T2g", "2D2") → "2T2g(D2)".
+ */
+export function levelLabel(term: string, parent: string | undefined, label?: string): string {
+  if (label !== undefined && label !== '') return label;
+  if (parent === undefined || parent === '') return term;
+  return `${term}(${parent.replace(/^\d+/, '')})`;
 }
 
 /** "high-spin" → "high spin"; unknown words pass through. */

@@ -111,7 +111,7 @@ function addBand(entry: AnalysisEntry, position: number): void {
     notify(`${Math.round(position)} cm⁻¹ is outside the measured range ${Math.round(range[0])}–${Math.round(range[1])} cm⁻¹.`);
     return;
   }
-  entry.bands.push({ position: Math.round(position), uncertainty: null, epsilon: null, kind: 'd-d', shoulder: false, included: true, origin: 'added', sourceIndex: null });
+  entry.bands.push({ position: Math.round(position), uncertainty: null, epsilon: null, width: null, kind: 'd-d', shoulder: false, included: true, origin: 'added', sourceIndex: null });
   entry.bands.sort((a, b) => a.position - b.position);
   state.pickArmed = false;
   notify('');

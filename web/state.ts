@@ -29,6 +29,8 @@ export interface EditableBand {
   position: number;
   uncertainty: number | null;
   epsilon: number | null;
+  /** Full width at half maximum, cm-1, when known. */
+  width: number | null;
   kind: BandKind;
   shoulder: boolean;
   /** false once the user removes it; kept so it can be put back. */
@@ -83,6 +85,7 @@ export function editableBandsFromResult(bands: readonly Band[]): EditableBand[] 
     position: band.position,
     uncertainty: typeof band.uncertainty === 'number' ? band.uncertainty : null,
     epsilon: typeof band.epsilon === 'number' ? band.epsilon : null,
+    width: typeof band.fwhm === 'number' && band.fwhm > 0 ? band.fwhm : null,
     kind: band.kind,
     shoulder: band.shoulder === true || (band.flags ?? []).includes('shoulder'),
     included: true,
@@ -104,6 +107,7 @@ export interface FitRequestBand {
   position: number;
   uncertainty?: number;
   epsilon?: number;
+  width?: number;
   flags: BandFlag[];
 }
 
@@ -126,6 +130,7 @@ export function fitRequestFor(entry: AnalysisEntry): FitRequest {
         const out: FitRequestBand = { position: band.position, flags: bandFlags(band) };
         if (band.uncertainty !== null) out.uncertainty = band.uncertainty;
         if (band.epsilon !== null) out.epsilon = band.epsilon;
+        if (band.width !== null) out.width = band.width;
         return out;
       })
       .sort((a, b) => a.position - b.position),

@@ -8,6 +8,7 @@
 import type { Assignment, Curves, MaskedRange } from '../types.js';
 import type { EditableBand } from '../state.js';
 import type { Mark, PlotSpec, SeriesSpec } from './spec.js';
+import { levelLabel } from '../format.js';
 import { dataRange } from './spec.js';
 
 export type AxisUnit = 'cm-1' | 'nm';
@@ -53,7 +54,7 @@ export function bandCaption(band: EditableBand, assignments: readonly Assignment
   if (!band.included) return 'removed';
   if (band.kind === 'charge-transfer') return 'charge transfer';
   const a = assignmentForBand(band.position, assignments);
-  const name = a === undefined ? 'unassigned' : a.label ?? `${a.term}(${a.parent})`;
+  const name = a === undefined ? 'unassigned' : levelLabel(a.term, a.parent, a.label);
   return band.kind === 'spin-forbidden' ? `${name} (spin-forbidden)` : name;
 }
 

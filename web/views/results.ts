@@ -4,7 +4,7 @@
  * the close alternative assignments.
  */
 import { h } from '../dom.js';
-import { UNIT, dCountText, formatNumber, formatWithUncertainty, nmFromWavenumber, spinStateText } from '../format.js';
+import { UNIT, dCountText, formatNumber, formatWithUncertainty, levelLabel, nmFromWavenumber, spinStateText } from '../format.js';
 import type { AnalysisEntry } from '../state.js';
 import type { Alternative, FitResult } from '../types.js';
 
@@ -74,7 +74,7 @@ export function assignmentTable(fit: FitResult): HTMLElement {
         h(
           'tr',
           {},
-          h('th', { scope: 'row' }, `${fit.groundTerm} → ${a.label ?? `${a.term}(${a.parent})`}`),
+          h('th', { scope: 'row' }, `${fit.groundTerm} → ${levelLabel(a.term, a.parent, a.label)}`),
           h('td', { class: 'num' }, formatNumber(a.observed)),
           h('td', { class: 'num' }, formatNumber(nmFromWavenumber(a.observed), 1)),
           h('td', { class: 'num' }, formatNumber(a.calculated)),
@@ -91,7 +91,7 @@ function alternativeSummary(alternative: Alternative): string {
   if (typeof alternative.b === 'number') parts.push(`B ${formatNumber(alternative.b)} ${UNIT.wavenumber}`);
   if (typeof alternative.rmsResidual === 'number') parts.push(`rms ${formatNumber(alternative.rmsResidual)} ${UNIT.wavenumber}`);
   if (typeof alternative.spinState === 'string') parts.push(spinStateText(alternative.spinState));
-  const levels = (alternative.assignments ?? []).map((a) => a.label ?? `${a.term}(${a.parent})`);
+  const levels = (alternative.assignments ?? []).map((a) => levelLabel(a.term, a.parent, a.label));
   if (levels.length > 0) parts.push(levels.join(', '));
   return parts.join(' · ');
 }

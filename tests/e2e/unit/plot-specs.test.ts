@@ -1,0 +1,112 @@
+import { describe, expect, it } from 'vitest';
+import type { EditableBand } from '../../../web/state.js';
+import type { Assignment, Curves, Diagram } from '../../../web/types.js';
+import { assignmentForBand, axisValues, bandCaption, overlaySpec, residualSpec, spectrumSpec } from '../../../web/plots/spectrum-spec.js';
+import { diagramRangeFor, diagramSpec, multiplicityOf, nearestIndex } from '../../../web/plots/diagram-spec.js';
+
+const band = (position: number, patch: Partial<EditableBand> = {}): EditableBand => ({
+  position, uncertainty: null, epsilon: null, width: null, kind: 'd-d', shoulder: false, included: true, origin: 'found', sourceIndex: null, ...patch,
+});
+
+const curves: Curves = {
+  grid: [10_000, 12_500, 15_000, 17_500, 20_000],
+  signal: [0.1, 0.4, 0.2, 0.5, 0.15],
+  baseline: [0.05, 0.05, 0.05, 0.05, 0.05],
+  model: [0.04, 0.34, 0.16, 0.46, 0.1],
+  components: [
+    [0.04, 0.34, 0.1, 0.01, 0],
+    [0, 0, 0.06, 0.45, 0.1],
+  ],
+};
+
+const assignments: Assignment[] = [
+  { observed: 12_500, calculated: 12_480, term: '3T2g', parent: '3F' },
+  { observed: 17_500, calculated: 17_530, term: '3T1g', parent: '3F' },
+];
+
+describe('spectrum plot data', () => {
+  it('keeps x ascending in both units and carries each y with its own x', () => {
+    const { x, order } = axisValues(curves.grid, 'nm');
+    expect(x[0]).toBeCloseTo(500, 9); // common practice: 10^7 / 20000 cm-1
+    for (let i = 1; i < x.length; i++) expect(x[i]!).toBeGreaterThan(x[i - 1]!);
+    const spec = spectrumSpec({ title: 't', curves, yUnit: 'absorbance', bands: [], assignments, masked: [], unit: 'nm' });
+    order.forEach((source, k) => expect(spec.ys[0]![k]).toBe(curves.signal[source]));
+    expect(spec.xLabel).toMatch(/nm/);
+  });
+
+  it('draws each fitted band and the sum on top of the baseline', () => {
+    const spec = spectrumSpec({ title: 't', curves, yUnit: '', bands: [], assignments, masked: [], unit: 'cm-1' });
+    const labels = spec.series.map((s) => s.label);
+    expect(labels).toEqual(['measured', 'baseline', 'band 1', 'band 2', 'sum of bands']);
+    const sum = spec.ys[4]!;
+    sum.forEach((v, k) => expect(v).toBeCloseTo(curves.model![k]! + curves.baseline![k]!, 12));
+    expect(spec.ys[2]![1]).toBeCloseTo(0.34 + 0.05, 12);
+  });
+
+  it('labels bands with their assignment and greys out removed or charge-transfer bands', () => {
+    const bands = [band(12_500, { sourceIndex: 0 }), band(17_500, { sourceIndex: 1, kind: 'charge-transfer' })];
+    const spec = spectrumSpec({ title: 't', curves, yUnit: '', bands, assignments, masked: [{ from: 19_000, to: 20_000, reason: 'detector change' }], unit: 'cm-1' });
+    const texts = spec.marks.flatMap((m) => (m.kind === 'text' ? [m.text] : []));
+    expect(texts).toEqual(['3T2g(F)', 'charge transfer']);
+    expect(spec.series[3]!.dash).toBeDefined();
+    expect(spec.marks.some((m) => m.kind === 'shade' && m.text === 'detector change')).toBe(true);
+  });
+
+  it('matches a band to an assignment only within 1 cm-1', () => {
+    expect(assignmentForBand(12_500.8, assignments)?.term).toBe('3T2g');
+    expect(assignmentForBand(12_502, assignments)).toBeUndefined();
+    expect(bandCaption(band(12_502), assignments)).toBe('unassigned');
+    expect(bandCaption(band(12_500, { included: false }), assignments)).toBe('removed');
+    expect(bandCaption(band(17_500, { kind: 'spin-forbidden' }), assignments)).toBe('3T1g(F) (spin-forbidden)');
+  });
+
+  it('residuals are measured minus baseline plus bands', () => {
+    const spec = residualSpec('r', curves, 'cm-1', 'absorbance');
+    expect(spec).not.toBeNull();
+    spec!.ys[0]!.forEach((v, k) => expect(v).toBeCloseTo(curves.signal[k]! - curves.baseline![k]! - curves.model![k]!, 12));
+    expect(residualSpec('r', { grid: [1, 2], signal: [1, 2] }, 'cm-1', '')).toBeNull();
+  });
+
+  it('overlays spectra each scaled to its own maximum, blank outside its range', () => {
+    const other: Curves = { grid: [15_000, 20_000], signal: [2, 4] };
+    const spec = overlaySpec([{ name: 'a', curves }, { name: 'b', curves: other }], 'cm-1');
+    expect(Math.max(...(spec.ys[0]!.filter((v) => v !== null) as number[]))).toBeCloseTo(1, 12);
+    expect(spec.ys[1]![0]).toBeNull();
+    expect(spec.ys[1]![spec.x.indexOf(20_000)]).toBeCloseTo(1, 12);
+    expect(spec.ys[1]![spec.x.indexOf(17_500)]).toBeCloseTo(0.75, 12);
+  });
+});
+
+describe('energy-level diagram data', () => {
+  const diagram: Diagram = {
+    d: 8,
+    geometry: 'octahedral',
+    cOverB: 4.5,
+    dqOverB: [0, 0.5, 1, 1.5, 2],
+    groundTerms: ['3A2g', '3A2g', '3A2g', '3A2g', '3A2g'],
+    lines: [
+      { label: '3A2g(F)', term: '3A2g', parent: '3F', multiplicity: 3, irrep: 'A2g', rank: 0, energies: [0, 0, 0, 0, 0] },
+      { label: '3T2g(F)', term: '3T2g', parent: '3F', multiplicity: 3, irrep: 'T2g', rank: 0, energies: [0, 5, 10, 15, 20] },
+      { label: '1Eg(D)', term: '1Eg', parent: '1D', multiplicity: 1, irrep: 'Eg', rank: 0, energies: [12, 13, 14, 15, 16] },
+    ],
+  };
+
+  it('puts each observed band at the fitted Dq/B and E/B = observed / B', () => {
+    const spec = diagramSpec({ diagram, dqOverB: 1.1, b: 800, assignments: [{ observed: 8800, calculated: 8790, term: '3T2g', parent: '3F' }] });
+    const point = spec.marks.find((m) => m.kind === 'point');
+    expect(point).toMatchObject({ x: 1.1, y: 11, text: '3T2g(F)' });
+    expect(spec.marks.some((m) => m.kind === 'vline' && m.x === 1.1)).toBe(true);
+    // Ground-spin levels strong and labelled; the singlet faint and unlabelled.
+    expect(spec.series[2]!.width).toBeLessThan(spec.series[1]!.width);
+    expect(spec.marks.filter((m) => m.kind === 'text').map((m) => (m.kind === 'text' ? m.text : ''))).toEqual(['3A2g(F)', '3T2g(F)']);
+  });
+
+  it('helpers', () => {
+    expect(multiplicityOf('4T1g')).toBe(4);
+    expect(multiplicityOf('')).toBe(0);
+    expect(nearestIndex([0, 1, 2, 3], 1.6)).toBe(2);
+    expect(diagramRangeFor(1.1)).toBe(2);
+    expect(diagramRangeFor(2.9)).toBe(5);
+    expect(diagramRangeFor(Number.NaN)).toBe(4);
+  });
+});

@@ -1,0 +1,92 @@
+import { describe, expect, it } from 'vitest';
+import Papa from 'papaparse';
+import type { AnalysisEntry } from '../../../web/state.js';
+import { defaultDetails, editableBandsFromResult, fitRequestFor, shownFit } from '../../../web/state.js';
+import { resultCsv, resultJson } from '../../../web/export-results.js';
+import { analyzeQuery } from '../../../web/api.js';
+import type { FitResult } from '../../../web/types.js';
+
+const fit: FitResult = {
+  d: 8, ion: 'Ni2+', geometry: 'octahedral', dq: 850, tenDq: 8500, b: 900, c: 4000, cOverB: 4.44, beta: 0.87, freeIonB: 1030,
+  groundTerm: '3A2g', spinState: 'no-choice', unpairedElectrons: 2, spinOnlyMoment: 2.83, lfse: -10_200, rmsResidual: 40, status: 'converged',
+  uncertainty: { tenDq: 60, b: 12, c: null },
+  assignments: [{ observed: 8500, calculated: 8500, term: '3T2g', parent: '3F' }],
+  alternatives: [{ tenDq: 9100, b: 700, rmsResidual: 90, assignments: [] }],
+  predicted: [], warnings: [],
+};
+
+function entry(): AnalysisEntry {
+  const bands = editableBandsFromResult([
+    { position: 8500, kind: 'd-d', epsilon: 4.5, fwhm: 2000, uncertainty: 30 },
+    { position: 13_800, kind: 'd-d', fwhm: 2500, flags: ['shoulder'] },
+    { position: 25_300, kind: 'd-d', epsilon: null },
+  ]);
+  return {
+    key: 'a1', fileName: 'x.csv', details: { ...defaultDetails(), ion: ' Ni2+ ', sample: 'invented' }, status: 'done',
+    result: null, error: null, fit, originalFit: fit, bands, cOverB: null, freeC: false, shownAlternative: null, libraryId: null,
+  };
+}
+
+describe('page state', () => {
+  it('sends only included bands, sorted, with their flags and known fields', () => {
+    const e = entry();
+    e.bands[2] = { ...e.bands[2]!, kind: 'charge-transfer' };
+    e.bands[0] = { ...e.bands[0]!, included: false };
+    e.bands.push({ position: 11_000, uncertainty: null, epsilon: null, width: null, kind: 'spin-forbidden', shoulder: false, included: true, origin: 'added', sourceIndex: null });
+    e.cOverB = 4.2;
+    const request = fitRequestFor(e);
+    expect(request).toEqual({
+      ion: 'Ni2+',
+      geometry: 'octahedral',
+      freeC: false,
+      cOverB: 4.2,
+      bands: [
+        { position: 11_000, flags: ['spin-forbidden'] },
+        { position: 13_800, width: 2500, flags: ['shoulder'] },
+        { position: 25_300, flags: ['charge-transfer'] },
+      ],
+    });
+  });
+
+  it('uses d when no ion is given', () => {
+    const e = entry();
+    e.details = { ...e.details, ion: '', d: 3 };
+    expect(fitRequestFor(e).d).toBe(3);
+    expect(fitRequestFor(e).ion).toBeUndefined();
+  });
+
+  it('shows an alternative over the best fit when one is chosen', () => {
+    const e = entry();
+    expect(shownFit(e)?.tenDq).toBe(8500);
+    e.shownAlternative = 0;
+    expect(shownFit(e)?.tenDq).toBe(9100);
+    expect(shownFit(e)?.groundTerm).toBe('3A2g');
+    expect(shownFit(e)?.alternatives).toHaveLength(1);
+  });
+
+  it('names the analyze query fields as the service reads them', () => {
+    const q = analyzeQuery({ ...defaultDetails(), ion: 'Cr3+', concentration: 0.01, pathLength: 0.5, xUnit: 'nm', column: '2', freeC: true });
+    expect(Object.fromEntries(q)).toEqual({ ion: 'Cr3+', geometry: 'octahedral', conc: '0.01', path: '0.5', xUnit: 'nm', column: '2', freeC: 'true' });
+  });
+});
+
+describe('result downloads', () => {
+  it('CSV holds the parameters with units and one row per band', () => {
+    const csv = resultCsv(entry());
+    const [params, bands] = csv.trim().split(/\n\s*\n/);
+    const p = Papa.parse<string[]>(params!).data;
+    expect(p[0]).toEqual(['quantity', 'value', 'uncertainty', 'unit']);
+    expect(p.find((r) => r[0] === '10Dq')).toEqual(['10Dq', '8500', '60', 'cm-1']);
+    expect(p.find((r) => r[0] === 'spin-only moment')).toEqual(['spin-only moment', '2.83', '', 'muB']);
+    const b = Papa.parse<string[]>(bands!).data;
+    expect(b).toHaveLength(4);
+    expect(b[1]![7]).toBe('3T2g(F)');
+    expect(b[2]![5]).toBe('yes');
+  });
+
+  it('JSON round-trips the fit shown', () => {
+    const parsed = JSON.parse(resultJson(entry())) as { fit: FitResult; sample: { sample: string } };
+    expect(parsed.fit.tenDq).toBe(8500);
+    expect(parsed.sample.sample).toBe('invented');
+  });
+});
