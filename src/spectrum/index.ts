@@ -1,0 +1,18 @@
+/**
+ * fieldgap's spectrum stage: read instrument exports (delimited text,
+ * JCAMP-DX), convert units, mask, fit baseline and bands, classify them.
+ * Everything here is pure; file access lives in src/cli/ and server/.
+ */
+export type * from './types.js';
+export { parseSpectrumText, type ParseSpectrumOptions } from './parseSpectrumText.js';
+export { CM1_PER_EV, X_UNITS, parseXUnitOption, valueToWavenumber, wavenumberToValue, xUnitFromName } from './units.js';
+export { xToWavenumber } from './xToWavenumber.js';
+export { yToAbsorbance } from './yToAbsorbance.js';
+export { absorbanceToEpsilon, epsilonToAbsorbance, yAbsorbanceToEpsilon } from './yAbsorbanceToEpsilon.js';
+export {
+  OSCILLATOR_STRENGTH_FACTOR, bandOscillatorStrength, gaussianArea, integratedEpsilonToOscillatorStrength,
+} from './bandOscillatorStrength.js';
+export { synthesizeSpectrum, type SynthesizeOptions, type SyntheticBand, type SyntheticSpectrum } from './synthesize.js';
+export { formatDelimited, type FormatDelimitedOptions } from './format/formatDelimited.js';
+export { formatJcamp, type FormatJcampOptions } from './format/formatJcamp.js';
+export { mulberry32, gaussianDeviates } from './random.js';

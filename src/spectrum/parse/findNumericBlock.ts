@@ -1,0 +1,73 @@
+/**
+ * Finding the data block of a delimited file: instrument exports put lines
+ * of metadata (and sometimes a footer) around the numbers, which papaparse
+ * does not tell apart.
+ *
+ * The block is the longest run of lines holding at least two numeric fields
+ * with one field count (blank and comment lines inside do not break it),
+ * tried with each separator; ties go to tab, then ';', then ',', then
+ * whitespace.
+ */
+import { isMissingCell, isNumberCell } from './cells.js';
+import { type Separator, splitLineQuick } from './splitLines.js';
+
+const SEPARATORS: readonly Separator[] = ['\t', ';', ',', 'whitespace'];
+
+export interface NumericRun {
+  separator: Separator;
+  /** Field count of the block's lines (x plus the y columns). */
+  fields: number;
+  /** Index (0-based) of the first and last numeric line of the run. */
+  first: number;
+  last: number;
+  /** Number of numeric lines in the run. */
+  count: number;
+}
+
+/** Lines skipped anywhere: blank, or starting with '#' or '//'. */
+export function isSkippableLine(line: string): boolean {
+  const t = line.trim();
+  return t === '' || t.startsWith('#') || t.startsWith('//');
+}
+
+/** Field count of a line that holds only numbers (first one present) or missing values, else 0. */
+export function numericFieldCount(cells: string[], allowComma: boolean): number {
+  if (cells.length < 2 || !isNumberCell(cells[0] as string, allowComma)) return 0;
+  for (let i = 1; i < cells.length; i++) {
+    const c = cells[i] as string;
+    if (!isNumberCell(c, allowComma) && !isMissingCell(c)) return 0;
+  }
+  return cells.length;
+}
+
+/** The longest numeric run with one separator, or null when there is none. */
+export function findRunWithSeparator(lines: string[], separator: Separator): NumericRun | null {
+  const allowComma = separator !== ',';
+  let best: NumericRun | null = null;
+  let current: NumericRun | null = null;
+  for (let i = 0; i < lines.length; i++) {
+    const line = lines[i] as string;
+    if (isSkippableLine(line)) continue;
+    const fields = numericFieldCount(splitLineQuick(line, separator), allowComma);
+    if (fields >= 2 && current !== null && current.fields === fields) {
+      current.last = i;
+      current.count++;
+    } else if (fields >= 2) {
+      current = { separator, fields, first: i, last: i, count: 1 };
+    } else {
+      current = null;
+    }
+    if (current !== null && (best === null || current.count > best.count)) best = { ...current };
+  }
+  return best;
+}
+
+/** The longest numeric run over all separators, or null when the text has no numeric block. */
+export function findNumericBlock(lines: string[]): NumericRun | null {
+  let best: NumericRun | null = null;
+  for (const separator of SEPARATORS) {
+    const run = findRunWithSeparator(lines, separator);
+    if (run !== null && (best === null || run.count > best.count)) best = run;
+  }
+  return best;
+}
