@@ -57,18 +57,22 @@ export function computeLevels(d: number, geometry: Geometry, params: FieldParame
   const { dq, b, c } = params;
   const terms = freeIonTermsUnitB(d, c / b);
   const table = parentTable(terms);
-  const raw = rawLevels(cubicBlocks(d, geometry), [dq, b, c], energyTolerance(params), table.expected);
-  raw.sort(byEnergy);
-  const ground = raw[0]!;
+  const blocks = cubicBlocks(d, geometry);
   const tol = energyTolerance(params);
-  const ranks = new Map<string, number>();
-  const levels: Level[] = raw.map((r) => {
+  const ranked = rankLevels(rawLevels(blocks, [dq, b, c], tol, table.expected));
+  if (dq === 0) {
+    // At Dq = 0 a free-ion term's components coincide; list them in the order
+    // they take as soon as the field is on, so the ground level is the one a
+    // Dq → 0 limit gives (5T2g, not 5Eg, for octahedral d6).
+    const onset = rankLevels(rawLevels(blocks, [1e-6 * b, b, c], tol, table.expected));
+    const position = new Map(onset.map((r, i) => [rankedKey(r), i]));
+    ranked.sort((x, y) => x.energy - y.energy || position.get(rankedKey(x))! - position.get(rankedKey(y))!);
+  }
+  const ground = ranked[0]!;
+  const levels: Level[] = ranked.map((r) => {
     const multiplicity = r.twoS + 1;
-    const key = levelKey(multiplicity, r.irrep);
-    const rank = ranks.get(key) ?? 0;
-    ranks.set(key, rank + 1);
-    const parent = table.sequences.get(key)?.[rank];
-    if (parent === undefined) throw new FieldgapError('internal', `no free-ion parent for level ${key} #${rank}`);
+    const parent = table.sequences.get(levelKey(multiplicity, r.irrep))?.[r.rank];
+    if (parent === undefined) throw new FieldgapError('internal', `no free-ion parent for level ${rankedKey(r)}`);
     const term = termName(multiplicity, r.irrep, geometry);
     const energy = r.energy - ground.energy;
     return {
@@ -80,18 +84,39 @@ export function computeLevels(d: number, geometry: Geometry, params: FieldParame
       degeneracy: multiplicity * IRREP_DIMENSION[r.irrep],
       parent,
       label: levelLabel(term, parent),
-      rank,
+      rank: r.rank,
     };
   });
   const groundLevel = levels[0]!;
   let spinState: SpinState = 'no-choice';
   if (spinStateChoice(d, geometry)) spinState = ground.twoS === hundTwoSpin(d) ? 'high-spin' : 'low-spin';
   const notes: string[] = [];
-  if (levels.length > 1 && levels[1]!.energy === 0) {
+  if (dq === 0) notes.push('Dq = 0: the free ion; each level is one cubic component of a free-ion term');
+  else if (levels.length > 1 && levels[1]!.energy === 0) {
     notes.push(`the ground level is degenerate: ${levels.filter((l) => l.energy === 0).map((l) => l.label).join(', ')} coincide`);
   }
   return {
     d, geometry, ...pick(params), groundTerm: groundLevel.term, spinState, unpairedElectrons: ground.twoS,
     levels, notes,
   };
+}
+
+interface RankedLevel extends RawLevel {
+  rank: number;
+}
+
+function rankedKey(r: RankedLevel): string {
+  return `${r.twoS}:${r.irrep}:${r.rank}`;
+}
+
+/** Sorts by energy and numbers the levels of each (S, Γ) from 0 upwards. */
+function rankLevels(raw: RawLevel[]): RankedLevel[] {
+  raw.sort(byEnergy);
+  const ranks = new Map<string, number>();
+  return raw.map((r) => {
+    const key = `${r.twoS}:${r.irrep}`;
+    const rank = ranks.get(key) ?? 0;
+    ranks.set(key, rank + 1);
+    return { ...r, rank };
+  });
 }

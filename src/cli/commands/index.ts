@@ -1,7 +1,12 @@
 import type { Command } from '../command.js';
+import { levelsCommand } from './levels.js';
+import { diagramCommand } from './diagram.js';
 
 /**
  * Every CLI command, in the order `fieldgap --help` lists them. A new command
  * is one file under commands/ and one line here.
  */
-export const commands: Command[] = [];
+export const commands: Command[] = [
+  levelsCommand,
+  diagramCommand,
+];

@@ -1,0 +1,146 @@
+import { invalidArgument } from '../../errors.js';
+import { computeLevels, freeIonTerms, GEOMETRIES, type LevelsResult } from '../../ligand-field/index.js';
+import type { Command } from '../command.js';
+import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
+
+/**
+ * `fieldgap levels`: the ligand-field levels of one d^n ion at given Dq, B
+ * and C, as a table (cm-1 and nm) or as JSON.
+ */
+const USAGE = `Usage: fieldgap levels --d N --dq DQ --b B (--c C | --c-over-b R) [--geometry G] [--json]
+
+Energy levels of a d^n ion in a cubic ligand field, from the ground level up.
+
+Options:
+  --d N            number of d electrons, 0 to 10 (required)
+  --geometry G     octahedral or tetrahedral (default octahedral)
+  --dq DQ          ligand-field parameter Dq in cm-1, ≥ 0 (10Dq = 10 × DQ) (required)
+  --b B            Racah B in cm-1, > 0 (required)
+  --c C            Racah C in cm-1, ≥ 0
+  --c-over-b R     C given as the ratio C/B instead of --c (one of the two is required)
+  --json           print the result as JSON instead of a table
+
+Example: fieldgap levels --d 3 --dq 1740 --b 725 --c 2900
+`;
+
+/**
+ * "--dq -5" would read as two options; joined to "--dq=-5" it reaches the
+ * range check, which names the option and the allowed range in one line.
+ */
+export function joinNegativeValues(argv: string[]): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const arg = argv[i]!;
+    const next = argv[i + 1];
+    if (arg.startsWith('--') && !arg.includes('=') && next !== undefined && /^-\d|^-\.\d/.test(next)) {
+      out.push(`${arg}=${next}`);
+      i++;
+    } else {
+      out.push(arg);
+    }
+  }
+  return out;
+}
+
+interface LevelsArgs {
+  d: number;
+  geometry: (typeof GEOMETRIES)[number];
+  dq: number;
+  b: number;
+  c: number;
+  json: boolean;
+}
+
+/** Reads and checks the options; every failure names its option. */
+export function parseLevelsArgs(argv: string[]): LevelsArgs {
+  const { values } = parseCommandArgs(joinNegativeValues(argv), {
+    d: { type: 'string' },
+    geometry: { type: 'string' },
+    dq: { type: 'string' },
+    b: { type: 'string' },
+    c: { type: 'string' },
+    'c-over-b': { type: 'string' },
+    json: { type: 'boolean' },
+  });
+  const d = numberOption('d', values.d, { required: true, min: 0, max: 10, integer: true })!;
+  const geometry = choiceOption('geometry', values.geometry, GEOMETRIES, 'octahedral');
+  const dq = numberOption('dq', values.dq, { required: true })!;
+  if (dq < 0) throw invalidArgument('--dq', '--dq must be ≥ 0 cm-1 (the geometry sets the sign of the field)');
+  const b = numberOption('b', values.b, { required: true })!;
+  if (b <= 0) throw invalidArgument('--b', '--b: Racah B must be greater than 0 cm-1');
+  if (values.c !== undefined && values['c-over-b'] !== undefined) {
+    throw invalidArgument('--c-over-b', 'give either --c or --c-over-b, not both');
+  }
+  const c =
+    values.c !== undefined
+      ? numberOption('c', values.c)!
+      : values['c-over-b'] !== undefined
+        ? numberOption('c-over-b', values['c-over-b'])! * b
+        : undefined;
+  if (c !== undefined && c < 0) {
+    const name = values.c !== undefined ? '--c' : '--c-over-b';
+    throw invalidArgument(name, `${name} must be ≥ 0`);
+  }
+  if (c === undefined) throw invalidArgument('--c', '--c (Racah C in cm-1) or --c-over-b is required');
+  return { d, geometry, dq, b, c, json: values.json ?? false };
+}
+
+/** The JSON document of `levels --json`: the contract fields first, then extras. */
+export function levelsJson(result: LevelsResult): object {
+  const { d, geometry, dq, b, c, groundTerm, spinState, unpairedElectrons, levels, notes } = result;
+  return {
+    d, geometry, dq, b, c, groundTerm, spinState, unpairedElectrons,
+    levels: levels.map(({ energy, term, multiplicity, irrep, degeneracy, parent, label, cubicIrrep, rank }) => ({
+      energy, term, multiplicity, irrep, degeneracy, parent, label, cubicIrrep, rank,
+    })),
+    groundLabel: levels[0]?.label,
+    cOverB: c / b,
+    tenDq: 10 * dq,
+    freeIonTerms: freeIonTerms(d, b, c),
+    notes,
+  };
+}
+
+function formatNumber(value: number, digits: number): string {
+  return value.toLocaleString('en-US', { minimumFractionDigits: digits, maximumFractionDigits: digits, useGrouping: false });
+}
+
+/** The readable table of `levels`. */
+export function levelsTable(result: LevelsResult): string {
+  const { d, geometry, dq, b, c, levels } = result;
+  const ground = levels[0]!;
+  const lines = [
+    `d${d} ${geometry}: Dq = ${dq} cm-1 (10Dq = ${formatNumber(10 * dq, 0)} cm-1), B = ${b} cm-1, C = ${formatNumber(c, 1).replace(/\.0$/, "")} cm-1 (C/B = ${formatNumber(c / b, 3)})`,
+    `Ground level: ${ground.label}, ${result.unpairedElectrons} unpaired electron${result.unpairedElectrons === 1 ? '' : 's'}; ${
+      result.spinState === 'no-choice' ? `d${d} ${geometry} has no high-/low-spin choice` : result.spinState
+    }`,
+    '',
+  ];
+  const header = ['level', 'energy / cm-1', 'wavelength / nm', 'E/B', 'degeneracy', ''];
+  const rows = levels.map((level, i) => [
+    level.label,
+    formatNumber(level.energy, 0),
+    i === 0 || level.energy === 0 ? '' : formatNumber(1e7 / level.energy, 0),
+    formatNumber(level.energy / b, 2),
+    String(level.degeneracy),
+    i > 0 && level.multiplicity === ground.multiplicity ? '*' : '',
+  ]);
+  const widths = header.map((h, col) => Math.max(h.length, ...rows.map((r) => r[col]!.length)));
+  const render = (cells: string[]): string =>
+    cells.map((cell, col) => (col === 0 ? cell.padEnd(widths[col]!) : cell.padStart(widths[col]!))).join('  ').trimEnd();
+  lines.push(render(header), ...rows.map(render), '', '* spin-allowed from the ground level (same multiplicity)');
+  for (const note of result.notes) lines.push(`Note: ${note}`);
+  return `${lines.join('\n')}\n`;
+}
+
+export const levelsCommand: Command = {
+  name: 'levels',
+  summary: 'energy levels of a d^n ion in an octahedral or tetrahedral field (Dq, B, C in cm-1)',
+  usage: USAGE,
+  async run(argv, io) {
+    const args = parseLevelsArgs(argv);
+    const result = computeLevels(args.d, args.geometry, { dq: args.dq, b: args.b, c: args.c });
+    io.stdout(args.json ? `${JSON.stringify(levelsJson(result), null, 2)}\n` : levelsTable(result));
+    return 0;
+  },
+};
