@@ -1,0 +1,80 @@
+/**
+ * The computations the service runs, as plain data in and plain JSON out, so
+ * the same dispatch serves a worker thread (worker.ts) and the in-process
+ * mode used by tests. A FieldgapError cannot cross a thread boundary as a
+ * class, so the outcome carries it as `{ code, message, path }` and
+ * `rebuildError` makes it a FieldgapError again on the main side.
+ */
+import { FieldgapError, isFieldgapError, type ErrorCode } from '../src/errors.js';
+import { computeDiagram, computeLevels } from '../src/ligand-field/index.js';
+import type { Geometry } from '../src/ligand-field/types.js';
+import { TaskBugError } from './errors.js';
+
+export interface LevelsTaskInput {
+  d: number;
+  geometry: Geometry;
+  dq: number;
+  b: number;
+  c: number;
+}
+
+export interface DiagramTaskInput {
+  d: number;
+  geometry: Geometry;
+  cOverB: number;
+  maxDqOverB: number;
+  steps: number;
+}
+
+export type Task =
+  | { kind: 'levels'; input: LevelsTaskInput }
+  | { kind: 'diagram'; input: DiagramTaskInput };
+
+export type TaskKind = Task['kind'];
+
+export interface SerializedError {
+  code: ErrorCode;
+  message: string;
+  path: string;
+}
+
+/** What a task gives back: its JSON result, or the error it raised. */
+export type Outcome =
+  | { ok: true; value: unknown }
+  | { ok: false; error: SerializedError; /** Stack of a bug, for the log only. */ detail?: string };
+
+function runTask(task: Task): unknown {
+  switch (task.kind) {
+    case 'levels': {
+      const { d, geometry, dq, b, c } = task.input;
+      return computeLevels(d, geometry, { dq, b, c });
+    }
+    case 'diagram': {
+      const { d, geometry, cOverB, maxDqOverB, steps } = task.input;
+      return computeDiagram(d, geometry, { cOverB, maxDqOverB, steps });
+    }
+    default: {
+      const kind = (task as { kind?: unknown }).kind;
+      throw new FieldgapError('internal', `unknown task kind ${JSON.stringify(kind)}`);
+    }
+  }
+}
+
+/** Runs one task and never throws: errors become the outcome's `error`. */
+export function dispatchTask(task: Task): Outcome {
+  try {
+    return { ok: true, value: runTask(task) };
+  } catch (error) {
+    if (isFieldgapError(error)) return { ok: false, error: error.toJSON() };
+    const message = error instanceof Error ? error.message : String(error);
+    const detail = error instanceof Error && error.stack ? error.stack : message;
+    return { ok: false, error: { code: 'internal', message, path: '' }, detail };
+  }
+}
+
+/** The outcome's error as a FieldgapError on this side of the thread boundary. */
+export function rebuildError(outcome: Outcome & { ok: false }): FieldgapError {
+  const { code, message, path } = outcome.error;
+  if (code === 'internal') return new TaskBugError(message, outcome.detail ?? message);
+  return new FieldgapError(code, message, path);
+}
