@@ -9,6 +9,7 @@
  * list make sense) is checked by the core, which answers with its own errors.
  */
 import { z } from 'zod';
+import { DIAGRAM_DEFAULTS } from '../src/ligand-field/index.js';
 
 const geometry = z.enum(['octahedral', 'tetrahedral']).meta({
   description: 'Coordination geometry: sets the sign of the cubic field.',
@@ -31,22 +32,31 @@ export const LIMITS = {
   maxEnergy: 200_000,
 } as const;
 
-export const levelsQuery = z.strictObject({
-  d: dCount,
-  geometry: geometry.default('octahedral'),
-  dq: z.number().min(0).max(LIMITS.maxEnergy).meta({ description: 'Dq in cm-1 (10Dq = 10·dq), ≥ 0.' }),
-  b: positive('Racah B in cm-1.').max(LIMITS.maxEnergy),
-  c: positive('Racah C in cm-1; default cOverB·B.').max(LIMITS.maxEnergy).optional(),
-  cOverB: positive('C/B ratio used when c is not given.').max(20).default(4),
-});
+export const levelsQuery = z
+  .strictObject({
+    d: dCount,
+    geometry: geometry.default('octahedral'),
+    dq: z.number().min(0).max(LIMITS.maxEnergy).meta({ description: 'Dq in cm-1 (10Dq = 10·dq), ≥ 0.' }),
+    b: positive('Racah B in cm-1.').max(LIMITS.maxEnergy),
+    c: z.number().min(0).max(LIMITS.maxEnergy).optional().meta({ description: 'Racah C in cm-1 (give c or cOverB).' }),
+    cOverB: z.number().min(0).max(20).optional().meta({ description: 'C given as the ratio C/B instead of c.' }),
+  })
+  .refine((q) => q.c !== undefined || q.cOverB !== undefined, {
+    message: 'give Racah C as "c" (cm-1) or as the ratio "cOverB"',
+    path: ['c'],
+  })
+  .refine((q) => q.c === undefined || q.cOverB === undefined, {
+    message: 'give either "c" or "cOverB", not both',
+    path: ['cOverB'],
+  });
 export type LevelsQuery = z.infer<typeof levelsQuery>;
 
 export const diagramQuery = z.strictObject({
   d: dCount,
   geometry: geometry.default('octahedral'),
-  cOverB: positive('C/B ratio of the diagram.').max(20).default(4),
-  maxDqOverB: positive('Largest Dq/B on the axis.').max(LIMITS.maxDqOverB).default(4),
-  steps: z.number().int().min(1).max(LIMITS.maxSteps).default(100).meta({
+  cOverB: positive('C/B ratio of the diagram.').max(20).default(DIAGRAM_DEFAULTS.cOverB),
+  maxDqOverB: positive('Largest Dq/B on the axis.').max(LIMITS.maxDqOverB).default(DIAGRAM_DEFAULTS.maxDqOverB),
+  steps: z.number().int().min(1).max(LIMITS.maxSteps).default(DIAGRAM_DEFAULTS.steps).meta({
     description: 'Number of Dq/B intervals from 0 to maxDqOverB.',
   }),
 });
@@ -56,8 +66,9 @@ const bandObject = z.strictObject({
   position: positive('Band maximum in cm-1.').max(LIMITS.maxEnergy),
   uncertainty: positive('Standard uncertainty of the position, cm-1.').max(LIMITS.maxEnergy).optional(),
   epsilon: z.number().min(0).finite().optional().meta({ description: 'Molar absorption coefficient, L mol-1 cm-1.' }),
+  width: positive('Full width at half maximum, cm-1.').max(LIMITS.maxEnergy).optional(),
   flags: z.array(z.string().min(1).max(40)).max(10).optional().meta({
-    description: 'Hints about the band passed to the fit, e.g. "shoulder", "spin-forbidden", "charge-transfer".',
+    description: 'Hints for the fit: "shoulder" (sh), "spin-forbidden" (sf), "charge-transfer" (ct, left out of the fit).',
   }),
 });
 

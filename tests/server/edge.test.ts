@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { FieldgapError } from '../../src/errors.js';
+import { DIAGRAM_DEFAULTS } from '../../src/ligand-field/index.js';
 import { coerceFields, coerceText } from '../../server/coerce.js';
 import { formatIssuePath, httpStatusFor, ServiceBusyError, toFieldgapError, INTERNAL_ERROR } from '../../server/errors.js';
 import { analyzeFields, diagramQuery, fitBody, levelsQuery } from '../../server/schemas.js';
@@ -50,30 +51,35 @@ describe('coerceText', () => {
 
 describe('request validation', () => {
   it('applies the documented defaults', () => {
-    expect(parseTextFields(levelsQuery, { d: '3', dq: '1750', b: '700' })).toEqual({
+    expect(parseTextFields(levelsQuery, { d: '3', dq: '1750', b: '700', cOverB: '4' })).toEqual({
       d: 3,
       geometry: 'octahedral',
       dq: 1750,
       b: 700,
       cOverB: 4,
     });
-    expect(parseTextFields(diagramQuery, { d: '6' })).toEqual({ d: 6, geometry: 'octahedral', cOverB: 4, maxDqOverB: 4, steps: 100 });
+    expect(parseTextFields(diagramQuery, { d: '6' })).toEqual({ d: 6, geometry: 'octahedral', ...DIAGRAM_DEFAULTS });
   });
   it('names the field and the value that is wrong', () => {
-    const junk = failure(() => parseTextFields(levelsQuery, { d: '3', dq: 'abc', b: '700' }));
+    const junk = failure(() => parseTextFields(levelsQuery, { d: '3', dq: 'abc', b: '700', c: '2800' }));
     expect(junk.code).toBe('invalid-argument');
     expect(junk.path).toBe('dq');
     expect(junk.message).toBe('dq: expected number, got "abc"');
-    const missing = failure(() => parseTextFields(levelsQuery, { d: '3', dq: '100' }));
+    const missing = failure(() => parseTextFields(levelsQuery, { d: '3', dq: '100', c: '2800' }));
     expect(missing.path).toBe('b');
     expect(missing.message).toMatch(/^b: is required/);
-    const range = failure(() => parseTextFields(levelsQuery, { d: '12', dq: '100', b: '700' }));
+    const noC = failure(() => parseTextFields(levelsQuery, { d: '3', dq: '100', b: '700' }));
+    expect(noC.path).toBe('c');
+    expect(noC.message).toBe('c: give Racah C as "c" (cm-1) or as the ratio "cOverB"');
+    const both = failure(() => parseTextFields(levelsQuery, { d: '3', dq: '100', b: '700', c: '2800', cOverB: '4' }));
+    expect(both.path).toBe('cOverB');
+    const range = failure(() => parseTextFields(levelsQuery, { d: '12', dq: '100', b: '700', c: '2800' }));
     expect(range.path).toBe('d');
     expect(range.message).toMatch(/^d: .*10.*got 12$/);
     const choice = failure(() => parseTextFields(diagramQuery, { d: '3', geometry: 'square' }));
     expect(choice.path).toBe('geometry');
     expect(choice.message).toContain('"octahedral"');
-    const typo = failure(() => parseTextFields(levelsQuery, { d: '3', dq: '100', b: '700', Dq: '1' }));
+    const typo = failure(() => parseTextFields(levelsQuery, { d: '3', dq: '100', b: '700', c: '2800', Dq: '1' }));
     expect(typo.path).toBe('Dq');
     expect(typo.message).toBe('Dq: unknown field "Dq"');
   });

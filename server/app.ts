@@ -1,0 +1,116 @@
+/**
+ * createApp: the fieldgap REST service as an Express 5 app, built without
+ * listening (server/main.ts listens; tests run supertest against the app).
+ *
+ * Routes, all JSON, energies in cm-1:
+ *   GET  /api/v1/health       { status: "ok", version, uptime }
+ *   GET  /api/v1/openapi.json the OpenAPI 3.1 document
+ *   GET  /api/v1/levels       levels of d^n for Dq, B, C
+ *   GET  /api/v1/diagram      a Tanabe–Sugano diagram
+ *   POST /api/v1/fit          fit band maxima
+ *   POST /api/v1/analyze      analyse an uploaded spectrum
+ *   /api/v1/analyses, /api/v1 (series): the results library (its own routers)
+ *   /                         the web page (static files of staticDir)
+ */
+import { existsSync } from 'node:fs';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import type { Logger } from 'pino';
+import { errorHandler, notFoundHandler } from './error-handler.js';
+import { createLogger, requestLogger } from './logging.js';
+import { buildOpenApiDocument } from './openapi.js';
+import { defaultStaticDir, packageVersion } from './paths.js';
+import { createInProcessPool, createWorkerPool, type ComputePool } from './pool.js';
+import { createComputeRouter } from './routes/compute.js';
+
+export const MIB = 1024 * 1024;
+
+export interface AppOptions {
+  /**
+   * Where computations run: a ComputePool you own (you close it), "workers"
+   * (default: a worker-thread pool the app owns and app.close() stops), or
+   * "in-process" (on the event loop, no time limit: for tests).
+   */
+  pool?: ComputePool | 'workers' | 'in-process';
+  /** Time limit of one computation, ms; default 10 000. Over it: 504. */
+  requestTimeoutMs?: number;
+  /** Largest spectrum upload, bytes; default 10 MiB (10 485 760). Over it: 413. */
+  maxBodyBytes?: number;
+  /** Largest JSON body, bytes; default 1 MiB. Over it: 413. */
+  maxJsonBytes?: number;
+  /** pino logger for the request lines and errors; default JSON lines on stdout at "info". */
+  logger?: Logger;
+  /** Folder of the web page served at /; default server/public (found from source or dist); false: no page. */
+  staticDir?: string | false;
+  /** Folder of the results library; default $FIELDGAP_DATA, else ./fieldgap-data. */
+  dataDir?: string;
+}
+
+/** The app, plus what it needs to stop: the pool it owns and the library. */
+export type FieldgapApp = Express & {
+  /** Stops what the app owns (its worker pool); the HTTP server is the caller's. */
+  close(): Promise<void>;
+  readonly pool: ComputePool;
+};
+
+const CSP_DIRECTIVES = {
+  defaultSrc: ["'self'"],
+  scriptSrc: ["'self'"],
+  styleSrc: ["'self'"],
+  fontSrc: ["'self'"],
+  imgSrc: ["'self'"],
+  connectSrc: ["'self'"],
+  objectSrc: ["'none'"],
+  baseUri: ["'self'"],
+  formAction: ["'self'"],
+  frameAncestors: ["'none'"],
+};
+
+export function createApp(options: AppOptions = {}): FieldgapApp {
+  const {
+    pool: poolOption = 'workers',
+    requestTimeoutMs = 10_000,
+    maxJsonBytes = MIB,
+    logger = createLogger(),
+    staticDir = defaultStaticDir(),
+  } = options;
+  const ownsPool = typeof poolOption === 'string';
+  const pool = poolOption === 'workers' ? createWorkerPool() : poolOption === 'in-process' ? createInProcessPool() : poolOption;
+  const version = packageVersion();
+  const openapi = buildOpenApiDocument(version);
+  const startedAt = Date.now();
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.use(
+    helmet({
+      contentSecurityPolicy: { useDefaults: false, directives: CSP_DIRECTIVES },
+      // Served over plain HTTP on loopback: HSTS would pin localhost to https for other tools.
+      strictTransportSecurity: false,
+    }),
+  );
+  app.use(requestLogger(logger));
+  app.use('/api', express.json({ limit: maxJsonBytes }));
+
+  const api = express.Router();
+  api.get('/health', (_req, res) => {
+    res.json({ status: 'ok', version, uptime: (Date.now() - startedAt) / 1000 });
+  });
+  api.get('/openapi.json', (_req, res) => {
+    res.json(openapi);
+  });
+  api.use(createComputeRouter({ pool, timeoutMs: requestTimeoutMs }));
+  // The results library mounts here: /api/v1/analyses and the series routes under /api/v1.
+  app.use('/api/v1', api);
+
+  if (staticDir !== false && existsSync(staticDir)) {
+    app.use(express.static(staticDir, { dotfiles: 'ignore', index: 'index.html', redirect: false }));
+  }
+  app.use(notFoundHandler);
+  app.use(errorHandler(logger));
+
+  const close = async () => {
+    if (ownsPool) await pool.close();
+  };
+  return Object.assign(app, { close, pool });
+}

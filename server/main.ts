@@ -1,0 +1,152 @@
+/**
+ * The service's entry point: listens (127.0.0.1:5177 unless asked otherwise),
+ * prints the URL, and on SIGTERM or SIGINT stops gracefully: no new
+ * connections, in-flight requests finish (up to a grace period), the worker
+ * pool closes, the process exits. `node dist/server/main.js [--port N]
+ * [--host H] [--data DIR]` and `fieldgap serve` run the same code.
+ */
+import type { AddressInfo } from 'node:net';
+import { createServer, type Server } from 'node:http';
+import { pathToFileURL } from 'node:url';
+import type { Logger } from 'pino';
+import { FieldgapError, isFieldgapError } from '../src/errors.js';
+import { numberOption, parseCommandArgs } from '../src/cli/options.js';
+import { createApp, type AppOptions, type FieldgapApp } from './app.js';
+import { createLogger } from './logging.js';
+import { resolveDataDir } from './storage/data-dir.js';
+
+export const DEFAULT_PORT = 5177;
+export const DEFAULT_HOST = '127.0.0.1';
+
+export interface ServeOptions extends Omit<AppOptions, 'logger'> {
+  /** TCP port; default 5177; 0 picks a free one. */
+  port?: number;
+  /** Interface to listen on; default 127.0.0.1 (loopback only). */
+  host?: string;
+  logger?: Logger;
+  /** How long in-flight requests may take to finish on shutdown, ms; default 15 000. */
+  shutdownGraceMs?: number;
+}
+
+export interface RunningServer {
+  /** "http://127.0.0.1:5177/". */
+  url: string;
+  port: number;
+  server: Server;
+  app: FieldgapApp;
+  /** Graceful stop: refuse new connections, finish in-flight requests, close the pool. Idempotent. */
+  close(): Promise<void>;
+}
+
+function listenError(error: NodeJS.ErrnoException, host: string, port: number): FieldgapError {
+  if (error.code === 'EADDRINUSE') return new FieldgapError('invalid-argument', `--port: port ${port} on ${host} is already in use; choose another with --port`, '--port');
+  if (error.code === 'EACCES') return new FieldgapError('invalid-argument', `--port: not allowed to listen on port ${port}`, '--port');
+  if (error.code === 'EADDRNOTAVAIL' || error.code === 'ENOTFOUND') return new FieldgapError('invalid-argument', `--host: ${host} is not an address of this machine`, '--host');
+  return new FieldgapError('internal', `could not listen on ${host}:${port}: ${error.message}`);
+}
+
+function formatUrl(host: string, port: number): string {
+  const shown = host.includes(':') ? `[${host}]` : host === '0.0.0.0' ? '127.0.0.1' : host;
+  return `http://${shown}:${port}/`;
+}
+
+/** Builds the app and listens; resolves once listening. */
+export async function startServer(options: ServeOptions = {}): Promise<RunningServer> {
+  const { port = DEFAULT_PORT, host = DEFAULT_HOST, logger = createLogger(), shutdownGraceMs = 15_000, ...appOptions } = options;
+  const app = createApp({ ...appOptions, logger });
+  const server = createServer(app);
+  // Slow or stuck clients do not hold a connection forever.
+  server.headersTimeout = 20_000;
+  server.requestTimeout = 60_000;
+  server.keepAliveTimeout = 5_000;
+  try {
+    await new Promise<void>((resolveListen, rejectListen) => {
+      server.once('error', rejectListen);
+      server.listen(port, host, () => {
+        server.off('error', rejectListen);
+        resolveListen();
+      });
+    });
+  } catch (error) {
+    await app.close();
+    throw listenError(error as NodeJS.ErrnoException, host, port);
+  }
+  const actualPort = (server.address() as AddressInfo).port;
+
+  let closing: Promise<void> | undefined;
+  const close = () => {
+    closing ??= (async () => {
+      const closed = new Promise<void>((resolveClose) => server.close(() => resolveClose()));
+      // A keep-alive connection becomes idle when its in-flight request ends: close it then, not after keepAliveTimeout.
+      server.closeIdleConnections();
+      const sweep = setInterval(() => server.closeIdleConnections(), 50);
+      const grace = setTimeout(() => server.closeAllConnections(), shutdownGraceMs);
+      grace.unref();
+      await closed;
+      clearInterval(sweep);
+      clearTimeout(grace);
+      await app.close();
+    })();
+    return closing;
+  };
+  return { url: formatUrl(host, actualPort), port: actualPort, server, app, close };
+}
+
+export interface ServeIo {
+  stdout: (text: string) => void;
+  stderr: (text: string) => void;
+  cwd: string;
+  env: Record<string, string | undefined>;
+}
+
+/** Parses the serve options, serves until SIGTERM/SIGINT, then resolves with the exit code. */
+export async function runServe(argv: string[], io: ServeIo): Promise<number> {
+  const { values } = parseCommandArgs(argv, {
+    port: { type: 'string' },
+    host: { type: 'string' },
+    data: { type: 'string' },
+  });
+  const port = numberOption('port', values.port, { min: 0, max: 65_535, integer: true }) ?? DEFAULT_PORT;
+  const host = values.host?.trim() || DEFAULT_HOST;
+  const dataDir = resolveDataDir({ flag: values.data, env: io.env, cwd: io.cwd });
+  const running = await startServer({ port, host, dataDir });
+  io.stdout(`fieldgap: serving on ${running.url} (API ${running.url}api/v1, press Ctrl-C to stop)\n`);
+  if (host !== DEFAULT_HOST && host !== 'localhost' && host !== '::1') {
+    io.stderr(`fieldgap: listening on ${host}: other machines may reach this server; it has no authentication\n`);
+  }
+
+  await new Promise<void>((resolveStop) => {
+    const stop = (signal: NodeJS.Signals) => {
+      io.stderr(`fieldgap: ${signal}: finishing requests in progress, then stopping\n`);
+      process.off('SIGTERM', stop);
+      process.off('SIGINT', stop);
+      // A second Ctrl-C while draining ends at once.
+      process.once('SIGINT', () => running.server.closeAllConnections());
+      void running.close().then(resolveStop, resolveStop);
+    };
+    process.on('SIGTERM', stop);
+    process.on('SIGINT', stop);
+  });
+  io.stderr('fieldgap: stopped\n');
+  return 0;
+}
+
+/** `node dist/server/main.js [options]`: same as `fieldgap serve`. */
+async function main(): Promise<void> {
+  const io: ServeIo = {
+    stdout: (text) => process.stdout.write(text),
+    stderr: (text) => process.stderr.write(text),
+    cwd: process.cwd(),
+    env: process.env,
+  };
+  try {
+    process.exitCode = await runServe(process.argv.slice(2), io);
+  } catch (error) {
+    const message = isFieldgapError(error) ? error.message : `internal error: ${(error as Error)?.message ?? String(error)}`;
+    io.stderr(`fieldgap serve: ${message}\n`);
+    process.exitCode = 2;
+  }
+}
+
+const entry = process.argv[1];
+if (entry !== undefined && import.meta.url === pathToFileURL(entry).href) await main();

@@ -1,0 +1,183 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { z } from 'zod';
+import { readFileSync } from 'node:fs';
+import { computeDiagram, computeLevels } from '../../src/ligand-field/index.js';
+import { FieldgapError } from '../../src/errors.js';
+import type { ComputePool } from '../../server/pool.js';
+import { diagramResponse, errorResponse, healthResponse, levelsResponse } from '../../server/responses.js';
+import { fitBody } from '../../server/schemas.js';
+import { makeTestApp, type TestApp } from './helpers.js';
+
+const packageJson = JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as { version: string };
+
+let t: TestApp;
+beforeAll(() => {
+  t = makeTestApp();
+});
+afterAll(async () => {
+  await t.dispose();
+});
+
+describe('GET /api/v1/health', () => {
+  it('answers ok with the package version', async () => {
+    const res = await request(t.app).get('/api/v1/health').expect(200).expect('content-type', /json/);
+    const body = healthResponse.parse(res.body);
+    expect(body.version).toBe(packageJson.version);
+    expect(body.uptime).toBeGreaterThanOrEqual(0);
+  });
+  it('sends the security headers: a self-only CSP, nosniff, no x-powered-by', async () => {
+    const res = await request(t.app).get('/api/v1/health');
+    const csp = String(res.headers['content-security-policy']);
+    for (const directive of ['default-src', 'script-src', 'style-src', 'font-src', 'img-src', 'connect-src']) {
+      expect(csp).toContain(`${directive} 'self'`);
+    }
+    expect(csp).not.toMatch(/unsafe-inline|unsafe-eval|https?:/);
+    expect(res.headers['x-content-type-options']).toBe('nosniff');
+    expect(res.headers['x-powered-by']).toBeUndefined();
+  });
+  it('writes one log line per request with method, url, status and ms', async () => {
+    const before = t.logs.length;
+    await request(t.app).get('/api/v1/health?probe=1');
+    const lines = t.logs.slice(before).filter((l) => l['url'] === '/api/v1/health?probe=1');
+    expect(lines).toHaveLength(1);
+    expect(lines[0]).toMatchObject({ method: 'GET', status: 200 });
+    expect(typeof lines[0]!['ms']).toBe('number');
+  });
+});
+
+describe('GET /api/v1/openapi.json', () => {
+  it('is an OpenAPI 3.1 document built from the request schemas', async () => {
+    const res = await request(t.app).get('/api/v1/openapi.json').expect(200);
+    const doc = res.body as {
+      openapi: string;
+      paths: Record<string, Record<string, { parameters?: { name: string; required: boolean }[]; requestBody?: { content: Record<string, { schema: unknown }> } }>>;
+    };
+    expect(doc.openapi).toBe('3.1.0');
+    for (const path of ['/api/v1/health', '/api/v1/levels', '/api/v1/diagram', '/api/v1/fit', '/api/v1/analyze']) {
+      expect(Object.keys(doc.paths)).toContain(path);
+    }
+    const levels = doc.paths['/api/v1/levels']!['get']!.parameters!;
+    expect(levels.map((p) => p.name).sort()).toEqual(['b', 'c', 'cOverB', 'd', 'dq', 'geometry']);
+    expect(levels.find((p) => p.name === 'dq')!.required).toBe(true);
+    expect(levels.find((p) => p.name === 'c')!.required).toBe(false);
+    // The same schema that validates the fit body, not a copy.
+    const { $schema: _dialect, ...fitSchema } = z.toJSONSchema(fitBody, { io: 'input' });
+    expect(doc.paths['/api/v1/fit']!['post']!.requestBody!.content['application/json']!.schema).toEqual(fitSchema);
+    const analyze = doc.paths['/api/v1/analyze']!['post']!;
+    expect(Object.keys(analyze.requestBody!.content)).toEqual(
+      expect.arrayContaining(['multipart/form-data', 'text/csv', 'chemical/x-jcamp-dx']),
+    );
+  });
+});
+
+describe('GET /api/v1/levels', () => {
+  it('answers what the engine computes, for the same parameters', async () => {
+    const res = await request(t.app).get('/api/v1/levels').query({ d: 3, geometry: 'octahedral', dq: 1740, b: 720, c: 2900 }).expect(200);
+    expect(res.body).toEqual(JSON.parse(JSON.stringify(computeLevels(3, 'octahedral', { dq: 1740, b: 720, c: 2900 }))));
+    levelsResponse.parse(res.body);
+  });
+  it('takes C as cOverB·B when cOverB is given instead of c, as the CLI does', async () => {
+    const res = await request(t.app).get('/api/v1/levels?d=8&geometry=tetrahedral&dq=400&b=800&cOverB=4.5').expect(200);
+    expect(res.body).toEqual(JSON.parse(JSON.stringify(computeLevels(8, 'tetrahedral', { dq: 400, b: 800, c: 3600 }))));
+    const neither = await request(t.app).get('/api/v1/levels?d=8&dq=400&b=800').expect(400);
+    expect(neither.body.error.path).toBe('c');
+  });
+  it('rejects junk with the field and the value', async () => {
+    const res = await request(t.app).get('/api/v1/levels?d=3&dq=abc&b=700&c=2800').expect(400);
+    expect(errorResponse.parse(res.body).error).toEqual({ code: 'invalid-argument', path: 'dq', message: 'dq: expected number, got "abc"' });
+    const missing = await request(t.app).get('/api/v1/levels?d=3&b=700&c=2800').expect(400);
+    expect(missing.body.error.path).toBe('dq');
+    const repeated = await request(t.app).get('/api/v1/levels?d=3&d=4&dq=1&b=700&c=2800').expect(400);
+    expect(repeated.body.error.path).toBe('d');
+  });
+});
+
+describe('GET /api/v1/diagram', () => {
+  it('answers what the engine computes', async () => {
+    const res = await request(t.app).get('/api/v1/diagram').query({ d: 6, cOverB: 4.8, maxDqOverB: 3, steps: 30 }).expect(200);
+    expect(res.body).toEqual(JSON.parse(JSON.stringify(computeDiagram(6, 'octahedral', { cOverB: 4.8, maxDqOverB: 3, steps: 30 }))));
+    const diagram = diagramResponse.parse(res.body);
+    expect(diagram.dqOverB).toHaveLength(31);
+  });
+  it('refuses more steps than the documented limit, naming the field', async () => {
+    const res = await request(t.app).get('/api/v1/diagram?d=6&steps=1000000').expect(400);
+    expect(res.body.error.path).toBe('steps');
+  });
+});
+
+describe('unknown routes and bugs', () => {
+  it('answers 404 in the error format', async () => {
+    const res = await request(t.app).get('/api/v1/nothing-here').expect(404);
+    expect(errorResponse.parse(res.body).error).toMatchObject({ code: 'not-found', path: '/api/v1/nothing-here' });
+    await request(t.app).delete('/api/v1/levels').expect(404);
+  });
+  it('answers a bug with 500 and a generic message, and logs the stack', async () => {
+    const broken: ComputePool = {
+      mode: 'in-process',
+      run: async () => {
+        throw new TypeError("Cannot read properties of undefined (reading 'secretInternalField')");
+      },
+      close: async () => {},
+    };
+    const b = makeTestApp({ pool: broken });
+    try {
+      const res = await request(b.app).get('/api/v1/levels?d=3&dq=1700&b=700&c=2800').expect(500);
+      const body = errorResponse.parse(res.body);
+      expect(body.error.code).toBe('internal');
+      expect(res.text).not.toContain('secretInternalField');
+      expect(res.text).not.toMatch(/\bat .*\.(ts|js):\d+/);
+      const logged = b.logs.find((l) => l['msg'] === 'internal error');
+      expect(String(logged?.['err'])).toContain('secretInternalField');
+      expect(String(logged?.['err'])).toMatch(/at .*:\d+/);
+    } finally {
+      await b.dispose();
+    }
+  });
+  it('passes a FieldgapError from the core through with its code and path', async () => {
+    const picky: ComputePool = {
+      mode: 'in-process',
+      run: async () => {
+        throw new FieldgapError('not-found', 'no analysis with id 42', 'id');
+      },
+      close: async () => {},
+    };
+    const p = makeTestApp({ pool: picky });
+    try {
+      const res = await request(p.app).get('/api/v1/levels?d=3&dq=1700&b=700&c=2800').expect(404);
+      expect(res.body).toEqual({ error: { code: 'not-found', message: 'no analysis with id 42', path: 'id' } });
+    } finally {
+      await p.dispose();
+    }
+  });
+});
+
+describe('the web page', () => {
+  it('serves the page folder at / and nothing outside it', async () => {
+    const { mkdtempSync, writeFileSync, mkdirSync, rmSync } = await import('node:fs');
+    const { join } = await import('node:path');
+    const { tmpdir } = await import('node:os');
+    const root = mkdtempSync(join(tmpdir(), 'fieldgap-static-'));
+    const page = join(root, 'public');
+    mkdirSync(page);
+    writeFileSync(join(page, 'index.html'), '<!doctype html><title>page</title>');
+    writeFileSync(join(page, '.env'), 'SECRET=1');
+    writeFileSync(join(root, 'outside.txt'), 'outside');
+    const s = makeTestApp({ staticDir: page });
+    try {
+      const index = await request(s.app).get('/').expect(200).expect('content-type', /html/);
+      expect(index.text).toContain('<title>page</title>');
+      expect(String(index.headers['content-security-policy'])).toContain("script-src 'self'");
+      await request(s.app).get('/.env').expect(404);
+      await request(s.app).get('/..%2foutside.txt').expect((res) => expect(res.status).toBeGreaterThanOrEqual(400));
+      const traversal = await request(s.app).get('/%2e%2e/outside.txt');
+      expect(traversal.status).toBe(404);
+      expect(traversal.text).not.toBe('outside');
+      // The API still wins over the static folder.
+      await request(s.app).get('/api/v1/health').expect(200);
+    } finally {
+      await s.dispose();
+      rmSync(root, { recursive: true, force: true });
+    }
+  });
+});
