@@ -1,6 +1,7 @@
 import type { Command } from '../command.js';
 import { levelsCommand } from './levels.js';
 import { diagramCommand } from './diagram.js';
+import { serveCommand } from './serve.js';
 
 /**
  * Every CLI command, in the order `fieldgap --help` lists them. A new command
@@ -9,4 +10,5 @@ import { diagramCommand } from './diagram.js';
 export const commands: Command[] = [
   levelsCommand,
   diagramCommand,
+  serveCommand,
 ];

@@ -1,0 +1,28 @@
+import type { Command } from '../command.js';
+
+/**
+ * `fieldgap serve`: the REST service and the web page. The server code lives
+ * in server/ and is loaded only when this command runs, so other commands do
+ * not pay for Express and the worker pool.
+ */
+export const serveCommand: Command = {
+  name: 'serve',
+  summary: 'run the REST service and the web page on this machine (127.0.0.1:5177)',
+  usage: `Usage: fieldgap serve [--port 5177] [--host 127.0.0.1] [--data DIR]
+
+Runs the REST service (and the web page, when built) until SIGTERM or Ctrl-C.
+
+Options:
+  --port N      TCP port (default 5177; 0 picks a free one)
+  --host H      interface to listen on (default 127.0.0.1: this machine only)
+  --data DIR    folder of the results library (default $FIELDGAP_DATA, else ./fieldgap-data)
+
+API under /api/v1 (health, levels, diagram, fit, analyze, analyses); its
+OpenAPI description at /api/v1/openapi.json. Request logs go to stdout as
+JSON lines (FIELDGAP_LOG_LEVEL=warn for fewer).
+`,
+  async run(argv, io) {
+    const { runServe } = await import('../../../server/main.js');
+    return runServe(argv, io);
+  },
+};
