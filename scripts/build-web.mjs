@@ -31,7 +31,7 @@ export async function buildWeb(options = {}) {
     logLevel: 'warning',
   };
   await build(config);
-  await copyFile(join(root, 'web', 'index.html'), join(outdir, 'index.html'));
+  for (const file of ['index.html', 'favicon.svg']) await copyFile(join(root, 'web', file), join(outdir, file));
   return outdir;
 }
 

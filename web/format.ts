@@ -69,7 +69,7 @@ export function levelLabel(term: string, parent: string | undefined, label?: str
 
 /** "high-spin" → "high spin"; unknown words pass through. */
 export function spinStateText(spinState: string): string {
-  if (spinState === 'no-choice') return 'only one spin state for this dⁿ';
+  if (spinState === 'no-choice') return 'one possible';
   return spinState.replace('-', ' ');
 }
 

@@ -92,6 +92,7 @@ export function diagramSpec(input: DiagramSpecInput): PlotSpec {
     ys,
     series,
     marks,
-    yRange: [0, yMax > 0 ? yMax * 1.05 : 1],
+    // Headroom for the captions of the top line.
+    yRange: [0, yMax > 0 ? yMax * 1.12 : 1],
   };
 }

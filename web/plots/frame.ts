@@ -161,9 +161,11 @@ function drawMarks(u: uPlot, marks: readonly Mark[]): void {
       ctx.fillStyle = mark.color;
       ctx.fillRect(Math.min(x0, x1), top, Math.abs(x1 - x0), height);
       if (mark.text !== undefined) {
-        ctx.fillStyle = '#555';
-        ctx.textAlign = 'left';
-        ctx.fillText(mark.text, Math.min(x0, x1) + 3 * ratio, top + 16 * ratio);
+        // Caption inside the shade, on the side facing the middle of the plot.
+        const onRight = (x0 + x1) / 2 > left + width / 2;
+        ctx.fillStyle = '#444';
+        ctx.textAlign = onRight ? 'right' : 'left';
+        ctx.fillText(mark.text, onRight ? Math.max(x0, x1) - 3 * ratio : Math.min(x0, x1) + 3 * ratio, top + 16 * ratio);
       }
     } else if (mark.kind === 'vline') {
       const x = u.valToPos(mark.x, 'x', true);

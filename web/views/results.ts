@@ -49,7 +49,7 @@ export function parameterCards(fit: FitResult, original: FitResult | null): HTML
     card('p-b', 'Racah B', formatWithUncertainty(fit.b, u.b), UNIT.wavenumber, previously(fit.b, original?.b, 0)),
     card('p-c', 'Racah C', formatWithUncertainty(fit.c, u.c), UNIT.wavenumber, `C/B = ${formatNumber(fit.cOverB, 2)}`),
     card('p-beta', 'β = B/B(free ion)', fit.beta === null ? '—' : formatWithUncertainty(fit.beta, betaUncertainty, 2), '', fit.freeIonB === null ? 'free-ion B not known for this ion' : `free-ion B = ${formatNumber(fit.freeIonB)} ${UNIT.wavenumber}`),
-    card('p-spin', 'Spin state', spinStateText(fit.spinState), '', `ground term ${fit.groundTerm}`),
+    card('p-spin', 'Spin state', spinStateText(fit.spinState), '', fit.spinState === 'no-choice' ? `${dCountText(fit.d)} has no high-/low-spin choice · ground term ${fit.groundTerm}` : `ground term ${fit.groundTerm}`),
     card('p-unpaired', 'Unpaired electrons', String(fit.unpairedElectrons), ''),
     card('p-moment', 'Spin-only moment', formatNumber(fit.spinOnlyMoment, 2), UNIT.moment),
     card('p-rms', 'RMS residual', formatNumber(fit.rmsResidual, 0), UNIT.wavenumber, `fit: ${fit.status}${fit.message === undefined ? '' : ` — ${fit.message}`}`),

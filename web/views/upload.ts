@@ -64,7 +64,7 @@ export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): 
   const geometry = h('select', { id: 'geometry', name: 'geometry' }, h('option', { value: 'octahedral' }, 'octahedral'), h('option', { value: 'tetrahedral' }, 'tetrahedral'));
   const conc = h('input', { id: 'conc', name: 'conc', inputmode: 'decimal', placeholder: 'mol L⁻¹' });
   const path = h('input', { id: 'path', name: 'path', inputmode: 'decimal', placeholder: '1' });
-  const sample = h('input', { id: 'sample', name: 'sample', placeholder: 'e.g. complex in water' });
+  const sample = h('input', { id: 'sample', name: 'sample', placeholder: 'name or formula' });
   const ligand = h('input', { id: 'ligand', name: 'ligand', placeholder: 'e.g. H2O' });
   const xUnit = h('select', { id: 'x-unit', name: 'xUnit' }, h('option', { value: '' }, 'from the file'), h('option', { value: 'nm' }, 'nm'), h('option', { value: 'cm-1' }, 'cm⁻¹'), h('option', { value: 'eV' }, 'eV'), h('option', { value: 'um' }, 'µm'));
   const column = h('input', { id: 'column', name: 'column', placeholder: 'first y column' });

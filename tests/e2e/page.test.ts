@@ -1,0 +1,230 @@
+/**
+ * The page as a chemist uses it, in headless Chromium against the real
+ * service: upload an (invented) spectrum, read 10Dq and the spin state,
+ * correct the bands, refit, download, compare two analyses. Every number the
+ * page shows is checked against the service's own answer for the same input.
+ */
+import { mkdir, mkdtemp, readFile, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { formatWithUncertainty, spinStateText } from '../../web/format.js';
+import type { AnalyzeResult, FitResult } from '../../web/types.js';
+import { browserTestsSkipped, launchBrowser, type Browser } from './helpers/browser.js';
+import { startService, type RunningService } from './helpers/server.js';
+import { writeInventedD3, type DemoFile } from './helpers/demo.js';
+
+const SHOTS = resolve(import.meta.dirname, '..', '..', 'test-results', 'e2e');
+
+async function apiAnalyze(service: RunningService, file: DemoFile): Promise<AnalyzeResult> {
+  const form = new FormData();
+  form.append('spectrum', new Blob([await readFile(file.path)]), file.name);
+  const query = new URLSearchParams({ ion: file.ion, geometry: file.geometry, conc: String(file.concentration) });
+  const response = await fetch(`${service.baseUrl}/api/v1/analyze?${query}`, { method: 'POST', body: form });
+  expect(response.status).toBe(200);
+  return (await response.json()) as AnalyzeResult;
+}
+
+async function apiFit(service: RunningService, body: unknown): Promise<FitResult> {
+  const response = await fetch(`${service.baseUrl}/api/v1/fit`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
+  expect(response.status).toBe(200);
+  return (await response.json()) as FitResult;
+}
+
+async function cardValue(page: Page, id: string): Promise<string> {
+  return ((await page.locator(`#${id} .value`).textContent()) ?? '').trim();
+}
+
+async function uploadAndAnalyse(page: Page, files: DemoFile[]): Promise<void> {
+  await page.setInputFiles('#file-input', files.map((f) => f.path));
+  await page.fill('#ion', files[0]!.ion);
+  await page.selectOption('#geometry', files[0]!.geometry);
+  await page.fill('#conc', String(files[0]!.concentration));
+  await page.click('#analyse');
+}
+
+describe.skipIf(browserTestsSkipped())('the web page in headless Chromium', () => {
+  let service: RunningService;
+  let browser: Browser;
+  let folder: string;
+  let page: Page;
+  /** The service's answer for the first file. */
+  let first: AnalyzeResult;
+  const outside: string[] = [];
+  const problems: string[] = [];
+
+  beforeAll(async () => {
+    folder = await mkdtemp(join(tmpdir(), 'fieldgap-e2e-'));
+    await mkdir(SHOTS, { recursive: true });
+    service = await startService();
+    browser = await launchBrowser();
+    page = await browser.context.newPage();
+    // The page must work offline: any request to another origin is recorded and refused.
+    await browser.context.route('**/*', (route) => {
+      const url = route.request().url();
+      if (url.startsWith(service.baseUrl) || url.startsWith('data:') || url.startsWith('blob:')) return route.continue();
+      outside.push(url);
+      return route.abort();
+    });
+    page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
+    page.on('console', (message) => {
+      if (message.type() === 'error') problems.push(`console: ${message.text()}`);
+    });
+  }, 60_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    await service?.stop();
+    if (folder !== undefined) await rm(folder, { recursive: true, force: true });
+  });
+
+  it('analyses an uploaded spectrum and shows the service\'s 10Dq and spin state', async () => {
+    const file = await writeInventedD3(folder, 'invented-d3-a.csv', [17_400, 24_500]);
+    const expected = await apiAnalyze(service, file);
+    first = expected;
+    expect(expected.fit).not.toBeNull();
+    const fit = expected.fit!;
+
+    await page.goto(service.baseUrl);
+    await expect(page.title()).resolves.toMatch(/fieldgap/);
+    await uploadAndAnalyse(page, [file]);
+    await page.waitForSelector('#p-tendq', { timeout: 30_000 });
+
+    expect(await cardValue(page, 'p-tendq')).toBe(formatWithUncertainty(fit.tenDq, fit.uncertainty.tenDq));
+    expect(await cardValue(page, 'p-b')).toBe(formatWithUncertainty(fit.b, fit.uncertainty.b));
+    expect(await cardValue(page, 'p-spin')).toBe(spinStateText(fit.spinState));
+    expect(await cardValue(page, 'p-unpaired')).toBe(String(fit.unpairedElectrons));
+    expect(await page.locator('#assignments tbody tr').count()).toBe(fit.assignments.length);
+    // The plots are uPlot canvases, drawn.
+    await page.waitForSelector('#spectrum-plot canvas');
+    await page.waitForSelector('#diagram-plot canvas', { timeout: 20_000 });
+    await page.waitForSelector('#residuals-plot canvas');
+    await page.screenshot({ path: join(SHOTS, 'analysed.png'), fullPage: true });
+  }, 60_000);
+
+  it('switches the spectrum axis to nm and back', async () => {
+    await page.click('#unit-nm');
+    await page.waitForSelector('#unit-nm[aria-pressed="true"]');
+    await expect(page.locator('#spectrum-plot .u-legend').first().textContent()).resolves.toMatch(/nm/);
+    await page.click('#unit-cm-1');
+    await page.waitForSelector('#unit-cm-1[aria-pressed="true"]');
+  }, 30_000);
+
+  it('refits after a change of C/B: for d3 the quartet bands fix 10Dq and B, so only C follows C/B', async () => {
+    const before10Dq = await cardValue(page, 'p-tendq');
+    const beforeB = await cardValue(page, 'p-b');
+    await page.fill('#refit-c-over-b', '3.2');
+    await page.dispatchEvent('#refit-c-over-b', 'change');
+    await page.click('#refit');
+    await page.waitForSelector('#refit:not([disabled])');
+    await page.waitForFunction(() => document.querySelector('#p-c .card-note')?.textContent?.includes('3.20'));
+    // d3 octahedral: spin-allowed (quartet) energies depend on Dq and B only — Tanabe & Sugano (1954), J. Phys. Soc. Jpn. 9, 753.
+    expect(await cardValue(page, 'p-tendq')).toBe(before10Dq);
+    expect(await cardValue(page, 'p-b')).toBe(beforeB);
+    const bText = (await cardValue(page, 'p-b')).split(' ± ')[0]!.replace(/\u2009/g, '');
+    const cText = (await cardValue(page, 'p-c')).split(' ± ')[0]!.replace(/\u2009/g, '');
+    expect(Number(cText)).toBeCloseTo(3.2 * Number(bText), -1);
+  }, 30_000);
+
+  it('removes a band, refits, and shows what the service fits for the corrected list', async () => {
+    const rows = page.locator('#band-table tbody tr');
+    const count = await rows.count();
+    expect(count).toBeGreaterThanOrEqual(2);
+    const before = await cardValue(page, 'p-tendq');
+    // Remove the highest band: the fit then rests on the others.
+    const lastPosition = Number(await rows.nth(count - 1).getAttribute('data-position'));
+    await page.click(`#band-${count - 1}-remove`);
+    await page.waitForSelector(`#band-${count - 1}-restore`);
+    const requestPromise = page.waitForRequest((r) => r.url().endsWith('/api/v1/fit') && r.method() === 'POST');
+    await page.click('#refit');
+    const request = await requestPromise;
+    const body = request.postDataJSON() as { bands: { position: number }[] };
+    expect(body.bands.map((b) => b.position)).not.toContain(lastPosition);
+    await page.waitForSelector('#refit:not([disabled])');
+    const expected = await apiFit(service, body);
+    const shown = await cardValue(page, 'p-tendq');
+    expect(shown).toBe(formatWithUncertainty(expected.tenDq, expected.uncertainty.tenDq));
+    expect(await page.locator('#assignments tbody tr').count()).toBe(expected.assignments.length);
+    if (shown !== before) {
+      await expect(page.locator('#p-tendq .card-note').textContent()).resolves.toMatch(/was .* before the corrections/);
+    }
+    await page.screenshot({ path: join(SHOTS, 'corrected.png'), fullPage: true });
+    await page.click('#undo');
+    await page.waitForFunction((text) => document.querySelector('#p-tendq .value')?.textContent === text, formatWithUncertainty(first.fit!.tenDq, first.fit!.uncertainty.tenDq));
+  }, 30_000);
+
+  it('adds a band where the spectrum is clicked', async () => {
+    const rows = page.locator('#band-table tbody tr');
+    const count = await rows.count();
+    await page.click('#pick-band');
+    await page.waitForSelector('#pick-band[aria-pressed="true"]');
+    const over = page.locator('#spectrum-plot .u-over');
+    await over.scrollIntoViewIfNeeded();
+    const box = (await over.boundingBox())!;
+    await page.mouse.click(box.x + box.width * 0.5, box.y + box.height * 0.5);
+    await page.waitForFunction((n) => document.querySelectorAll('#band-table tbody tr').length === n + 1, count);
+    const added = page.locator('#band-table tbody tr', { hasText: 'added' });
+    const position = Number(await added.getAttribute('data-position'));
+    // Clicked halfway across the unzoomed cm-1 axis, which spans the curves' grid.
+    const grid = first.curves?.grid ?? [];
+    const middle = (grid[0]! + grid[grid.length - 1]!) / 2;
+    expect(Math.abs(position - middle)).toBeLessThan(0.02 * (grid[grid.length - 1]! - grid[0]!));
+    await page.locator('#band-table tbody tr', { hasText: 'added' }).getByRole('button', { name: 'Delete' }).click();
+    await page.waitForFunction((n) => document.querySelectorAll('#band-table tbody tr').length === n, count);
+  }, 30_000);
+
+  it('downloads the results as JSON and CSV and the spectrum as SVG and PNG', async () => {
+    const grab = async (id: string): Promise<string> => {
+      const [download] = await Promise.all([page.waitForEvent('download'), page.click(`#${id}`)]);
+      const path = await download.path();
+      return readFile(path, id.endsWith('png') ? 'latin1' : 'utf8');
+    };
+    const json = JSON.parse(await grab('download-json')) as { fit: FitResult };
+    const shown = await cardValue(page, 'p-tendq');
+    expect(formatWithUncertainty(json.fit.tenDq, json.fit.uncertainty.tenDq)).toBe(shown);
+    const csv = await grab('download-csv');
+    expect(csv.split('\n')[0]).toBe('quantity,value,uncertainty,unit');
+    expect(csv).toContain(`10Dq,${json.fit.tenDq},`);
+    const svg = await grab('spectrum-svg');
+    expect(svg).toMatch(/^<svg xmlns="http:\/\/www.w3.org\/2000\/svg"/);
+    expect(svg).toContain('wavenumber / cm⁻¹');
+    const png = await grab('spectrum-png');
+    expect(png.slice(1, 4)).toBe('PNG');
+  }, 30_000);
+
+  it('compares two analyses side by side', async () => {
+    const a = await writeInventedD3(folder, 'invented-d3-b.csv', [16_200, 23_000], 11);
+    const b = await writeInventedD3(folder, 'invented-d3-c.csv', [21_600, 28_300], 12);
+    const [fitB, fitC] = await Promise.all([apiAnalyze(service, a), apiAnalyze(service, b)]);
+    await uploadAndAnalyse(page, [a, b]);
+    await page.waitForFunction(() => document.querySelectorAll('#entries .status.pending').length === 0 && document.querySelectorAll('#entries li').length === 3);
+    await page.click('#tab-compare');
+    await page.waitForSelector('#compare-table');
+    const rows = page.locator('#compare-table tbody tr');
+    expect(await rows.count()).toBe(3);
+    const row = (name: string) => page.locator('#compare-table tbody tr', { hasText: name }).locator('td').nth(3);
+    expect(await row('invented-d3-b.csv').textContent()).toBe(formatWithUncertainty(fitB.fit!.tenDq, fitB.fit!.uncertainty.tenDq));
+    expect(await row('invented-d3-c.csv').textContent()).toBe(formatWithUncertainty(fitC.fit!.tenDq, fitC.fit!.uncertainty.tenDq));
+    await page.waitForSelector('#overlay-plot canvas');
+    await page.screenshot({ path: join(SHOTS, 'compare.png'), fullPage: true });
+    await page.click('#tab-analyse');
+  }, 60_000);
+
+  it('shows the service\'s error message and where the problem is for a bad file', async () => {
+    const bad = join(folder, 'not-a-spectrum.csv');
+    const { writeFile } = await import('node:fs/promises');
+    await writeFile(bad, 'this,is\nnot,a spectrum\n');
+    await page.setInputFiles('#file-input', [bad]);
+    await page.click('#analyse');
+    await page.waitForSelector('#analysis-error', { timeout: 20_000 });
+    const text = (await page.locator('#analysis-error').textContent()) ?? '';
+    expect(text).toContain('not-a-spectrum.csv could not be analysed');
+    await page.screenshot({ path: join(SHOTS, 'error.png'), fullPage: true });
+  }, 30_000);
+
+  it('made no request outside the service and logged no script error', () => {
+    expect(outside).toEqual([]);
+    expect(problems).toEqual([]);
+  });
+});
