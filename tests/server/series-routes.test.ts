@@ -1,0 +1,66 @@
+import express from 'express';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import request from 'supertest';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { errorHandler, notFoundHandler } from '../../server/error-handler.js';
+import { createSeriesRouter } from '../../server/routes/series.js';
+import { openLibrary, type Library } from '../../server/storage/library.js';
+import { handBuiltRecord } from '../storage/helpers/records.js';
+import { captureLogger } from './helpers.js';
+
+let dir: string;
+let library: Library;
+let app: express.Express;
+
+// Until createApp mounts the library's routers: the router alone, with the app's error handling.
+beforeEach(() => {
+  dir = mkdtempSync(join(tmpdir(), 'fieldgap-series-http-'));
+  library = openLibrary(dir);
+  app = express();
+  app.use(express.json());
+  app.use('/api/v1', createSeriesRouter({ library }));
+  app.use(notFoundHandler);
+  app.use(errorHandler(captureLogger().logger));
+});
+afterEach(() => {
+  library.close();
+  rmSync(dir, { recursive: true, force: true });
+});
+
+describe('GET /api/v1/series', () => {
+  it('ranks the stored analyses of the ion', async () => {
+    // hand-built records; the numbers are made up for the test
+    library.add(handBuiltRecord({ sample: 'en', formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 21_900));
+    library.add(handBuiltRecord({ sample: 'aqua', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_400));
+    const res = await request(app).get('/api/v1/series').query({ ion: 'Cr3+' }).expect(200);
+    expect(res.body).toMatchObject({ ion: 'Cr3+', count: 2, skipped: [] });
+    expect(res.body.spectrochemical.series).toBe('H2O < en');
+    expect(res.body.spectrochemical.entries.map((e: { id: string }) => e.id)).toEqual(['2', '1']);
+    expect(res.body.nephelauxetic.entries).toHaveLength(2);
+    expect(res.body.factors.factors.map((f: { ligand: string }) => f.ligand).sort()).toEqual(['H2O', 'en']);
+  });
+
+  it('answers 404 when the library has none, 400 for a bad or missing ion', async () => {
+    const none = await request(app).get('/api/v1/series?ion=Cr3%2B').expect(404);
+    expect(none.body.error).toMatchObject({ code: 'not-found', path: 'ion' });
+    expect((await request(app).get('/api/v1/series?ion=Zz9').expect(400)).body.error.path).toBe('ion');
+    expect((await request(app).get('/api/v1/series').expect(400)).body.error.path).toBe('ion');
+    expect((await request(app).get('/api/v1/series?ion=Cr3%2B&criterion=3').expect(400)).body.error.path).toBe('criterion');
+  });
+});
+
+describe('POST /api/v1/predict', () => {
+  it('answers predictComplex for the formula', async () => {
+    const res = await request(app).post('/api/v1/predict').send({ formula: '[Cr(H2O)6]Cl3' }).expect(200);
+    expect(res.body).toMatchObject({ ion: 'Cr3+', d: 3, estimate: true, geometry: { value: 'octahedral' } });
+    expect(res.body.tenDq.value).toBeGreaterThan(0);
+  });
+
+  it('names what is wrong', async () => {
+    expect((await request(app).post('/api/v1/predict').send({}).expect(400)).body.error.path).toBe('formula');
+    expect((await request(app).post('/api/v1/predict').send({ formula: '[Cr(H2O)6', extra: 1 }).expect(400)).body.error.code).toBeDefined();
+    expect((await request(app).post('/api/v1/predict').send({ formula: '[Cr(H2O)6' }).expect(400)).body.error).toMatchObject({ code: 'parse-error', path: 'formula' });
+  });
+});
