@@ -46,9 +46,21 @@ export async function writeInventedD3(folder: string, name: string, positions: [
   return { path, name, ion: 'Cr3+', geometry: 'octahedral', concentration };
 }
 
-/** The coordinator's demo spectra folder, when it has files. */
-export function demoFolderFiles(): string[] {
-  const dir = resolve(import.meta.dirname, '..', '..', '..', 'spectra-demo');
-  if (!existsSync(dir)) return [];
-  return readdirSync(dir).filter((f) => /\.(csv|txt|jdx|dx)$/i.test(f)).map((f) => join(dir, f));
+const DEMO_DIR = resolve(import.meta.dirname, '..', '..', '..', 'spectra-demo');
+
+/**
+ * Three single-spectrum files of the invented Cr(III) scenario in
+ * spectra-demo/ (0.05 mol/L, see its README), or, where that folder is
+ * missing, three invented d3 spectra written into `folder`.
+ */
+export async function demoFiles(folder: string): Promise<DemoFile[]> {
+  const names = ['cr-aqua.csv', 'cr-oxalato.txt', 'cr-ammine.jdx'];
+  if (existsSync(DEMO_DIR) && names.every((n) => readdirSync(DEMO_DIR).includes(n))) {
+    return names.map((name) => ({ path: join(DEMO_DIR, name), name, ion: 'Cr3+', geometry: 'octahedral', concentration: 0.05 }));
+  }
+  return Promise.all([
+    writeInventedD3(folder, 'invented-d3-a.csv', [17_400, 24_500], 7),
+    writeInventedD3(folder, 'invented-d3-b.csv', [16_200, 23_000], 11),
+    writeInventedD3(folder, 'invented-d3-c.csv', [21_600, 28_300], 12),
+  ]);
 }
