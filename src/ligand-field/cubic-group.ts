@@ -36,7 +36,7 @@ export function reduceCubicCharacters(chi: readonly number[]): Record<CubicIrrep
     if (Math.abs(count - rounded) > 1e-6 || rounded < 0) {
       throw new Error(`cubic characters [${chi.join(', ')}] do not reduce to irreps of O`);
     }
-    result[irrep] = rounded;
+    result[irrep] = Math.abs(rounded); // no −0 from rounding a tiny negative
   }
   return result;
 }
