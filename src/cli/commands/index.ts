@@ -2,6 +2,7 @@ import type { Command } from '../command.js';
 import { levelsCommand } from './levels.js';
 import { diagramCommand } from './diagram.js';
 import { serveCommand } from './serve.js';
+import { predictCommand } from './predict.js';
 
 /**
  * Every CLI command, in the order `fieldgap --help` lists them. A new command
@@ -11,4 +12,5 @@ export const commands: Command[] = [
   levelsCommand,
   diagramCommand,
   serveCommand,
+  predictCommand,
 ];

@@ -1,0 +1,59 @@
+import { describe, expect, it } from 'vitest';
+import { runCli } from '../../src/cli/main.js';
+import type { CliIo } from '../../src/cli/command.js';
+
+async function run(...argv: string[]): Promise<{ code: number; out: string; err: string }> {
+  let out = '';
+  let err = '';
+  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: process.cwd(), env: {} };
+  const code = await runCli(['predict', ...argv], io);
+  return { code, out, err };
+}
+
+describe('fieldgap predict', () => {
+  it('--json carries the contract fields, each estimate marked', async () => {
+    const { code, out, err } = await run('[Co(NH3)6]3+', '--json');
+    expect(code).toBe(0);
+    expect(err).toBe('');
+    const doc = JSON.parse(out);
+    expect(Object.keys(doc).slice(0, 9)).toEqual(['ion', 'd', 'oxidationState', 'ligands', 'tenDq', 'b', 'spinState', 'unpairedElectrons', 'spinOnlyMoment']);
+    expect(doc.ion).toBe('Co3+');
+    expect(doc.d).toBe(6);
+    expect(doc.oxidationState).toBe(3);
+    expect(doc.ligands[0]).toMatchObject({ key: 'NH3', count: 6 });
+    for (const key of ['tenDq', 'b', 'spinState', 'unpairedElectrons', 'spinOnlyMoment']) {
+      expect(doc[key].estimate, key).toBe(true);
+      expect(typeof doc[key].method, key).toBe('string');
+    }
+    expect(doc.tenDq).toMatchObject({ value: 22750, unit: 'cm-1' }); // 1.25 × 18200: Jørgensen's f and g, from memory
+    expect(doc.b.value).toBe(591.8); // float noise trimmed
+    expect(doc.spinState.value).toBe('low-spin');
+  });
+
+  it('prints a readable report with units', async () => {
+    const { code, out } = await run('[Ni(NH3)6]Cl2');
+    expect(code).toBe(0);
+    expect(out).toMatch(/^\[Ni\(NH3\)6\]2\+: nickel\(II\), Ni2\+, d8/);
+    expect(out).toMatch(/10Dq\s+10875 cm-1 \(920 nm\)/);
+    expect(out).toMatch(/spin-only moment\s+2\.83 μB/);
+    expect(out).toMatch(/not measurements/);
+  });
+
+  it('reads an unquoted "CoCl4 2-" and user factors', async () => {
+    expect((await run('CoCl4', '2-')).out).toMatch(/^\[CoCl4\]2-: cobalt\(II\)/);
+    const own = JSON.parse((await run('[Co(H2O)6]2+', '--k', '0.2', '--h', 'aqua=1', '--f', 'H2O=1.1', '--json')).out);
+    expect(own.tenDq.value).toBeCloseTo(9900, 9);
+    expect(own.spinState.value).toBe('high-spin');
+  });
+
+  it('errors: exit 2, one line', async () => {
+    for (const argv of [['[Co(xyz)6]3+'], [], ['[Cu(H2O)6]2+'], ['[CoCl4]2-', '--geometry', 'square'], ['[CoCl4]2-', '--f', 'Cl'], ['[CoCl4]2-', '--k', '2']]) {
+      const { code, out, err } = await run(...argv);
+      expect(code, argv.join(' ')).toBe(2);
+      expect(out).toBe('');
+      expect(err.trim().split('\n'), argv.join(' ')).toHaveLength(1);
+      expect(err).toMatch(/^fieldgap predict: /);
+    }
+    expect((await run('[Co(xyz)6]3+')).err).toBe('fieldgap predict: formula: unknown ligand "xyz" (character 5 of "[Co(xyz)6]3+")\n');
+  });
+});
