@@ -6,7 +6,7 @@
 export function jacobiEigen(matrix: number[][]): { values: number[]; vectors: number[][] } {
   const n = matrix.length;
   const a = matrix.map((row) => row.slice());
-  const v = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? 1 : 0)));
+  const v: number[][] = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? 1 : 0)));
   const norm = Math.sqrt(a.flat().reduce((s, x) => s + x * x, 0)) || 1;
   for (let sweep = 0; sweep < 100; sweep++) {
     let off = 0;
