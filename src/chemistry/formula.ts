@@ -1,8 +1,9 @@
 import { FieldgapError, isFieldgapError } from '../errors.js';
 import type { Geometry } from '../ligand-field/types.js';
-import { counterIonAt, counterIonByFormula } from './counter-ions.js';
 import { elementSymbolFromText, TRANSITION_ELEMENTS } from './elements.js';
 import { chargeAt, FormulaScanner } from './formula-scan.js';
+import { readCounterIon, readHydrate } from './formula-salt.js';
+import { guessGeometry } from './geometry-guess.js';
 import { ionFromOxidationState, ionLabel, type Ion } from './ions.js';
 import { bareLigandAt, findLigand, type Ligand } from './ligands.js';
 
@@ -144,7 +145,11 @@ function parseBareComplex(scan: FormulaScanner, text: string): ParsedComplex {
   }
   scan.skipSpaces();
   const { metalSymbol, metalAt, ligands } = readInside(scan, end);
-  return assemble({ text, scan, metalSymbol, metalAt, ligands, complexCharge, chargeSource, complexCount: 1, counterIons: [], hydrateWater: 0, warnings });
+  const parsed = assemble({ text, scan, metalSymbol, metalAt, ligands, complexCharge, chargeSource, complexCount: 1, counterIons: [], hydrateWater: 0, warnings });
+  if (parsed.geometry === undefined) {
+    parsed.warnings.push('without brackets every group counts as a ligand: if some are counter-ions, write the complex in brackets ("[Co(NH3)6]Cl3")');
+  }
+  return parsed;
 }
 
 interface LigandAt {
@@ -201,41 +206,6 @@ function readMetal(scan: FormulaScanner): string {
   const letters = /^[A-Za-z][a-z]?/.exec(scan.text.slice(at))?.[0];
   if (!letters) throw scan.error('expected the metal symbol first in the complex', at);
   throw scan.error(`unknown element "${letters}" where the metal should be`, at);
-}
-
-function readCounterIon(scan: FormulaScanner, kind: 'cation' | 'anion'): CounterIonCount {
-  const at = scan.index;
-  let ion;
-  let spelled: string;
-  if (scan.peek() === '(') {
-    const close = scan.closing(at);
-    spelled = scan.text.slice(at + 1, close);
-    ion = counterIonByFormula(spelled, kind);
-    scan.index = close + 1;
-  } else {
-    const found = counterIonAt(scan.text, at, kind);
-    spelled = found?.spelling ?? (/^[A-Za-z0-9]+/.exec(scan.text.slice(at))?.[0] ?? scan.peek());
-    ion = found?.ion;
-    if (found) scan.index += found.spelling.length;
-  }
-  if (!ion) {
-    const where = kind === 'cation' ? 'before' : 'after';
-    throw scan.error(`unknown counter-${kind} "${spelled}" ${where} the complex`, at);
-  }
-  const count = scan.count(1);
-  return { formula: ion.formula, count, charge: ion.charge };
-}
-
-/** "·6H2O", ".H2O", "*2H2O", "·6 H2O" at scan.index: records it and returns true. */
-function readHydrate(scan: FormulaScanner, hydrate: { water: number }): boolean {
-  const m = /^[·.•∙*]\s*(\d*)\s*H2O\s*$/.exec(scan.text.slice(scan.index));
-  if (!m) {
-    if (/^[·.•∙*]/.test(scan.peek())) throw scan.error('cannot read what follows the dot (only water of crystallisation, "·6H2O", is read)');
-    return false;
-  }
-  hydrate.water = m[1] === '' ? 1 : Number(m[1]);
-  scan.index = scan.text.length;
-  return true;
 }
 
 function signed(n: number): string {
@@ -299,24 +269,6 @@ function mergeLigands(list: LigandAt[]): LigandCount[] {
     else merged.push({ key: ligand.key, name: ligand.names[0] ?? ligand.key, count, charge: ligand.charge, denticity: ligand.denticity, donors: ligand.donors });
   }
   return merged;
-}
-
-/** 6 → octahedral, 4 → tetrahedral (warning for d8), anything else → undefined with a warning. */
-function guessGeometry(metal: Ion, coordinationNumber: number, warnings: string[]): Geometry | undefined {
-  if (coordinationNumber === 6) {
-    warnings.push('geometry guessed from the coordination number 6: octahedral');
-    return 'octahedral';
-  }
-  if (coordinationNumber === 4) {
-    warnings.push('geometry guessed from the coordination number 4: tetrahedral');
-    if (metal.d === 8) {
-      const how = metal.row === 1 ? 'often' : 'almost always';
-      warnings.push(`${metal.label} is d8: four-coordinate d8 complexes are ${how} square planar, which fieldgap does not model; treat the tetrahedral results with care`);
-    }
-    return 'tetrahedral';
-  }
-  warnings.push(`coordination number ${coordinationNumber}: no geometry guessed (fieldgap models octahedral, 6, and tetrahedral, 4)`);
-  return undefined;
 }
 
 /** "[Co(NH3)5Cl]2+": simple ligands bare, others in parentheses, counts after. */

@@ -90,6 +90,7 @@ describe('parseFormula: oxidation state, d-count, ligands', () => {
     expect(parseFormula('[Co(NH3)5Cl]2+').warnings.join(' ')).toMatch(/mixed ligands/);
     expect(parseFormula('[Zn(H2O)6]2+').warnings.join(' ')).toMatch(/d10: it has no d–d transitions/);
     expect(parseFormula('[Ag(NH3)2]+').warnings.join(' ')).toMatch(/coordination number 2: no geometry guessed/);
+    expect(parseFormula('Co(NH3)6Cl3').warnings.join(' ')).toMatch(/without brackets every group counts as a ligand/);
   });
 });
 
