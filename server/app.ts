@@ -22,6 +22,9 @@ import { buildOpenApiDocument } from './openapi.js';
 import { defaultStaticDir, packageVersion } from './paths.js';
 import { createInProcessPool, createWorkerPool, type ComputePool } from './pool.js';
 import { createComputeRouter } from './routes/compute.js';
+import { createSeriesRouter } from './routes/series.js';
+import { resolveDataDir } from './storage/data-dir.js';
+import { openLibrary } from './storage/library.js';
 
 export const MIB = 1024 * 1024;
 
@@ -48,7 +51,7 @@ export interface AppOptions {
 
 /** The app, plus what it needs to stop: the pool it owns and the library. */
 export type FieldgapApp = Express & {
-  /** Stops what the app owns (its worker pool); the HTTP server is the caller's. */
+  /** Stops what the app owns (its worker pool, the library); the HTTP server is the caller's. */
   close(): Promise<void>;
   readonly pool: ComputePool;
 };
@@ -73,12 +76,14 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
     maxJsonBytes = MIB,
     logger = createLogger(),
     staticDir = defaultStaticDir(),
+    dataDir = resolveDataDir({ env: process.env, cwd: process.cwd() }),
   } = options;
   const ownsPool = typeof poolOption === 'string';
   const pool = poolOption === 'workers' ? createWorkerPool() : poolOption === 'in-process' ? createInProcessPool() : poolOption;
   const version = packageVersion();
   const openapi = buildOpenApiDocument(version);
   const startedAt = Date.now();
+  const library = openLibrary(dataDir);
 
   const app = express();
   app.disable('x-powered-by');
@@ -100,8 +105,9 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
     res.json(openapi);
   });
   api.use(createComputeRouter({ pool, timeoutMs: requestTimeoutMs }));
-  // The results library mounts here: /api/v1/analyses and the series routes under /api/v1.
   app.use('/api/v1', api);
+  // The results library: /api/v1/analyses (its records) and /api/v1/series, /api/v1/predict.
+  app.use('/api/v1', createSeriesRouter({ library }));
 
   if (staticDir !== false && existsSync(staticDir)) {
     app.use(express.static(staticDir, { dotfiles: 'ignore', index: 'index.html', redirect: false }));
@@ -109,8 +115,15 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
   app.use(notFoundHandler);
   app.use(errorHandler(logger));
 
+  let closed = false;
   const close = async () => {
-    if (ownsPool) await pool.close();
+    if (closed) return;
+    closed = true;
+    try {
+      if (ownsPool) await pool.close();
+    } finally {
+      library.close();
+    }
   };
   return Object.assign(app, { close, pool });
 }
