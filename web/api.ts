@@ -3,7 +3,7 @@
  * the service's { code, message, path } so the page can show where the
  * problem is; a network failure or a non-JSON answer gets code 'network'.
  */
-import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult } from './types.js';
+import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult, LibraryPage, LibraryRecord } from './types.js';
 import type { FitRequest, SampleDetails } from './state.js';
 
 export class ApiError extends Error {
@@ -100,4 +100,60 @@ export function diagram(query: DiagramQuery): Promise<Diagram> {
     steps: String(query.steps),
   });
   return send<Diagram>(`${BASE}/diagram?${params.toString()}`, { method: 'GET' }, 'the energy-level diagram');
+}
+
+/** Details the library stores with an analysis. */
+export interface LibraryDetails {
+  sample: string;
+  ligands: string;
+  formula: string;
+  note: string;
+}
+
+export interface LibraryQuery {
+  query?: string;
+  ion?: string;
+  limit?: number;
+  offset?: number;
+}
+
+/** Whether this service has the results library (older or trimmed services may not). */
+export async function libraryAvailable(): Promise<boolean> {
+  try {
+    const response = await fetch(`${BASE}/analyses?limit=1`);
+    return response.ok;
+  } catch {
+    return false;
+  }
+}
+
+export function listAnalyses(query: LibraryQuery = {}): Promise<LibraryPage> {
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(query)) if (value !== undefined && value !== '') params.set(key, String(value));
+  return send<LibraryPage>(`${BASE}/analyses?${params.toString()}`, { method: 'GET' }, 'the library list');
+}
+
+/**
+ * POST /analyses: the service analyses the original again with the same
+ * fields and stores file, options, result and details together.
+ */
+export function saveAnalysis(file: File, fields: URLSearchParams, details: LibraryDetails): Promise<LibraryRecord> {
+  const form = new FormData();
+  form.append('spectrum', file, file.name);
+  for (const [key, value] of Object.entries(details)) if (value.trim() !== '') form.append(key, value.trim());
+  return send<LibraryRecord>(`${BASE}/analyses?${fields.toString()}`, { method: 'POST', body: form }, `saving ${file.name}`);
+}
+
+export function getAnalysis(id: number): Promise<LibraryRecord> {
+  return send<LibraryRecord>(`${BASE}/analyses/${id}`, { method: 'GET' }, `record ${id}`);
+}
+
+export async function deleteAnalysis(id: number): Promise<void> {
+  let response: Response;
+  try {
+    response = await fetch(`${BASE}/analyses/${id}`, { method: 'DELETE' });
+  } catch {
+    throw new ApiError({ code: 'network', message: `Could not reach the fieldgap service to delete record ${id}.`, path: '' });
+  }
+  if (!response.ok) await readJson<unknown>(response, `deleting record ${id}`);
 }

@@ -18,6 +18,7 @@ import { bandsPanel } from './views/bands.js';
 import { diagramFigure, spectrumFigures } from './views/plots.js';
 import { renderCompare } from './views/compare.js';
 import { setupTabs } from './views/tabs.js';
+import { renderLibrary, saveControls, type LibraryContext } from './views/library.js';
 
 interface PageState {
   entries: AnalysisEntry[];
@@ -26,9 +27,11 @@ interface PageState {
   pickArmed: boolean;
   refitting: boolean;
   tab: 'analyse' | 'compare' | 'library';
+  /** The service has the results library (GET /api/v1/analyses answers). */
+  libraryAvailable: boolean;
 }
 
-const state: PageState = { entries: [], currentKey: null, unit: 'cm-1', pickArmed: false, refitting: false, tab: 'analyse' };
+const state: PageState = { entries: [], currentKey: null, unit: 'cm-1', pickArmed: false, refitting: false, tab: 'analyse', libraryAvailable: false };
 
 const byId = (id: string): HTMLElement => {
   const el = document.getElementById(id);
@@ -58,7 +61,7 @@ function notify(message: string, kind: 'error' | 'info' = 'error'): void {
 async function analyseFiles(files: File[], details: SampleDetails): Promise<void> {
   const entries = files.map((file) => {
     const entry: AnalysisEntry = {
-      key: nextKey(), fileName: file.name, details: { ...details }, status: 'pending', result: null, error: null, fit: null,
+      key: nextKey(), fileName: file.name, file, details: { ...details }, status: 'pending', result: null, error: null, fit: null,
       originalFit: null, bands: [], cOverB: details.cOverB, freeC: details.freeC, shownAlternative: null, libraryId: null,
     };
     return { file, entry };
@@ -150,6 +153,7 @@ function renderMain(root: HTMLElement): void {
       { class: 'toolbar downloads' },
       h('button', { type: 'button', class: 'button small', id: 'download-json', onclick: () => download(`${stem}-fieldgap.json`, resultJson(entry), 'application/json') }, 'Download JSON'),
       h('button', { type: 'button', class: 'button small', id: 'download-csv', onclick: () => download(`${stem}-fieldgap.csv`, resultCsv(entry), 'text/csv') }, 'Download CSV'),
+      ...(state.libraryAvailable ? saveControls(entry, libraryContext) : []),
     ),
     ...spectrumFigures(entry, state.unit, state.pickArmed, {
       onUnit: (unit) => { state.unit = unit; render(); },
@@ -185,11 +189,22 @@ function render(): void {
   keepingFocus(() => {
     upload?.renderEntries(state.entries, state.currentKey);
     if (state.tab === 'analyse') renderMain(byId('main'));
+    if (state.tab === 'library') renderLibrary(byId('view-library'), libraryContext);
     if (state.tab === 'compare') renderCompare(byId('view-compare'), state.entries, state.unit, (unit) => { state.unit = unit; render(); });
   });
 }
 
-setupTabs((tab) => { state.tab = tab; render(); });
+const tabs = setupTabs((tab) => { state.tab = tab; render(); });
+
+const libraryContext: LibraryContext = {
+  open(entry) {
+    state.entries.push(entry);
+    state.currentKey = entry.key;
+    tabs.select('analyse');
+  },
+  notify,
+  changed: render,
+};
 
 function start(): void {
   upload = createUploadPanel(byId('side'), {
@@ -198,6 +213,11 @@ function start(): void {
   });
   document.addEventListener('keydown', (event) => {
     if (event.key === 'Escape' && state.pickArmed) { state.pickArmed = false; render(); }
+  });
+  void api.libraryAvailable().then((available) => {
+    state.libraryAvailable = available;
+    if (available) tabs.enable('library');
+    render();
   });
   render();
 }

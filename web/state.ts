@@ -17,6 +17,8 @@ export interface SampleDetails {
   pathLength: number | null;
   sample: string;
   ligand: string;
+  /** Complex formula as written, e.g. "[Cr(H2O)6]Cl3"; the library reads ligand numbers from it. */
+  formula: string;
   xUnit: XUnit | null;
   column: string;
   cOverB: number | null;
@@ -45,6 +47,8 @@ export interface AnalysisEntry {
   /** Page-local identity. */
   key: string;
   fileName: string;
+  /** The uploaded file, kept to save it to the library; null for a record reopened from it. */
+  file: File | null;
   details: SampleDetails;
   status: 'pending' | 'done' | 'failed';
   result: AnalyzeResult | null;
@@ -60,7 +64,7 @@ export interface AnalysisEntry {
   /** Index into fit.alternatives being shown instead of the best fit. */
   shownAlternative: number | null;
   /** Id in the results library once saved. */
-  libraryId: string | null;
+  libraryId: number | null;
 }
 
 export function defaultDetails(): SampleDetails {
@@ -72,6 +76,7 @@ export function defaultDetails(): SampleDetails {
     pathLength: null,
     sample: '',
     ligand: '',
+    formula: '',
     xUnit: null,
     column: '',
     cOverB: null,
@@ -141,6 +146,17 @@ export function fitRequestFor(entry: AnalysisEntry): FitRequest {
   else if (entry.details.d !== null) request.d = entry.details.d;
   if (entry.cOverB !== null) request.cOverB = entry.cOverB;
   return request;
+}
+
+/** True when the bands or the fit differ from what the analysis found. */
+export function hasBandCorrections(entry: AnalysisEntry): boolean {
+  if (entry.result === null) return false;
+  const found = editableBandsFromResult(entry.result.bands);
+  if (found.length !== entry.bands.length) return true;
+  return entry.bands.some((band, i) => {
+    const f = found[i]!;
+    return band.position !== f.position || band.kind !== f.kind || band.shoulder !== f.shoulder || band.included !== f.included;
+  });
 }
 
 /** The fit shown: an alternative when the user picked one, else the best. */

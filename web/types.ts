@@ -135,3 +135,46 @@ export interface Diagram {
   groundTerms: string[];
   lines: DiagramLine[];
 }
+
+/** The numbers of a stored analysis the library lists (cm-1; sd = one standard deviation). */
+export interface LibrarySummary {
+  tenDq: number | null;
+  tenDqSd: number | null;
+  b: number | null;
+  bSd: number | null;
+  c: number | null;
+  beta: number | null;
+  betaSd: number | null;
+  spinState: string | null;
+  rmsResidual: number | null;
+  status: string | null;
+}
+
+/** One row of GET /api/v1/analyses. */
+export interface LibraryRow {
+  id: number;
+  sample: string;
+  formula?: string;
+  ion?: string;
+  ligands?: string[];
+  solvent?: string;
+  note?: string;
+  createdAt: string;
+  updatedAt: string;
+  original: { fileName: string; sha256: string; size: number };
+  revision: number;
+  summary: LibrarySummary;
+}
+
+export interface LibraryPage {
+  analyses: LibraryRow[];
+  total: number;
+  limit: number;
+  offset: number;
+}
+
+/** GET /api/v1/analyses/:id: the row with the stored options and analysis result. */
+export interface LibraryRecord extends LibraryRow {
+  options: Record<string, unknown>;
+  result: AnalyzeResult;
+}

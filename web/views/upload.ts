@@ -66,6 +66,7 @@ export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): 
   const path = h('input', { id: 'path', name: 'path', inputmode: 'decimal', placeholder: '1' });
   const sample = h('input', { id: 'sample', name: 'sample', placeholder: 'name or formula' });
   const ligand = h('input', { id: 'ligand', name: 'ligand', placeholder: 'e.g. H2O' });
+  const formula = h('input', { id: 'formula', name: 'formula', placeholder: 'e.g. [Cr(H2O)6]Cl3', autocomplete: 'off' });
   const xUnit = h('select', { id: 'x-unit', name: 'xUnit' }, h('option', { value: '' }, 'from the file'), h('option', { value: 'nm' }, 'nm'), h('option', { value: 'cm-1' }, 'cm⁻¹'), h('option', { value: 'eV' }, 'eV'), h('option', { value: 'um' }, 'µm'));
   const column = h('input', { id: 'column', name: 'column', placeholder: 'first y column' });
   const cOverB = h('input', { id: 'c-over-b', name: 'cOverB', inputmode: 'decimal', placeholder: 'free-ion value' });
@@ -84,6 +85,7 @@ export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): 
     field('geometry', 'Geometry', geometry),
     h('div', { class: 'row' }, field('conc', 'Concentration / mol L⁻¹', conc), field('path', 'Path length / cm', path)),
     h('div', { class: 'row' }, field('sample', 'Sample', sample), field('ligand', 'Ligand', ligand)),
+    field('formula', 'Formula (optional)', formula),
     h(
       'details',
       {},
@@ -105,6 +107,7 @@ export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): 
       pathLength: numberOrNull(path.value),
       sample: sample.value.trim(),
       ligand: ligand.value.trim(),
+      formula: formula.value.trim(),
       xUnit: xUnit.value === '' ? null : (xUnit.value as XUnit),
       column: column.value.trim(),
       cOverB: numberOrNull(cOverB.value),

@@ -22,7 +22,7 @@ function entry(): AnalysisEntry {
     { position: 25_300, kind: 'd-d', epsilon: null },
   ]);
   return {
-    key: 'a1', fileName: 'x.csv', details: { ...defaultDetails(), ion: ' Ni2+ ', sample: 'invented' }, status: 'done',
+    key: 'a1', fileName: 'x.csv', file: null, details: { ...defaultDetails(), ion: ' Ni2+ ', sample: 'invented' }, status: 'done',
     result: null, error: null, fit, originalFit: fit, bands, cOverB: null, freeC: false, shownAlternative: null, libraryId: null,
   };
 }
