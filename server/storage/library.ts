@@ -100,30 +100,35 @@ function makeLibrary(db: Database.Database, file: string, maxOriginalBytes: numb
   };
 
   const insertAnalysis = db.prepare(`INSERT INTO analyses
-    (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note)
-    VALUES (@now, @now, @sample, @formula, @ion, @ligands, @solvent, @temperature, @measured_on, @note)`);
-  const insertOriginal = db.prepare(`INSERT INTO originals (analysis_id, file_name, sha256, size, bytes)
-    VALUES (?, ?, ?, ?, ?)`);
+    (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note,
+     original_name, original_sha256, original_size)
+    VALUES (@now, @now, @sample, @formula, @ion, @ligands, @solvent, @temperature, @measured_on, @note,
+     @original_name, @original_sha256, @original_size)`);
+  const insertOriginal = db.prepare('INSERT INTO originals (analysis_id, bytes) VALUES (?, ?)');
   const insertRevision = db.prepare(`INSERT INTO revisions
-    (analysis_id, revision, created_at, tool_version, options, result,
+    (analysis_id, revision, created_at, tool_version, options,
      ten_dq, ten_dq_sd, b, b_sd, c, beta, beta_sd, spin_state, rms, status)
-    VALUES (@analysis_id, @revision, @created_at, @tool_version, @options, @result,
+    VALUES (@analysis_id, @revision, @created_at, @tool_version, @options,
      @ten_dq, @ten_dq_sd, @b, @b_sd, @c, @beta, @beta_sd, @spin_state, @rms, @status)`);
+  const insertResult = db.prepare('INSERT INTO results (revision_id, result) VALUES (?, ?)');
   const selectOne = db.prepare<[number], SummaryRow>(`${SUMMARY_SELECT} WHERE a.id = ?`);
-  const selectCurrent = db.prepare<[number], { options: string; result: string }>(
-    `SELECT options, result FROM revisions WHERE analysis_id = ? ORDER BY revision DESC LIMIT 1`);
+  const selectCurrent = db.prepare<[number], { options: string; result: string }>(`SELECT r.options, x.result
+    FROM revisions r JOIN results x ON x.revision_id = r.id WHERE r.analysis_id = ? ORDER BY r.revision DESC LIMIT 1`);
   const selectRevisions = db.prepare<[number], RevisionRow>(`SELECT revision, created_at, tool_version, options,
     ten_dq, ten_dq_sd, b, b_sd, c, beta, beta_sd, spin_state, rms, status
     FROM revisions WHERE analysis_id = ? ORDER BY revision`);
-  const selectOriginal = db.prepare<[number], { file_name: string; sha256: string; size: number; bytes: Buffer }>(
-    `SELECT file_name, sha256, size, bytes FROM originals WHERE analysis_id = ?`);
+  const selectOriginal = db.prepare<[number], { original_name: string; original_sha256: string; original_size: number; bytes: Buffer }>(
+    `SELECT a.original_name, a.original_sha256, a.original_size, o.bytes
+     FROM originals o JOIN analyses a ON a.id = o.analysis_id WHERE o.analysis_id = ?`);
 
-  const addRevision = (id: number, revision: number, options: StoredOptions, result: StoredResult, version: string, now: string) =>
-    insertRevision.run({
+  const addRevision = (id: number, revision: number, options: StoredOptions, result: StoredResult, version: string, now: string) => {
+    const resultText = jsonText('result', result);
+    const { lastInsertRowid } = insertRevision.run({
       analysis_id: id, revision, created_at: now, tool_version: version,
-      options: jsonText('options', options), result: jsonText('result', result),
-      ...fitParams(summarizeResult(result)),
+      options: jsonText('options', options), ...fitParams(summarizeResult(result)),
     });
+    insertResult.run(lastInsertRowid, resultText);
+  };
 
   const get = (id: number): AnalysisRecord =>
     db.transaction(() => {
@@ -163,12 +168,13 @@ function makeLibrary(db: Database.Database, file: string, maxOriginalBytes: numb
       const now = new Date().toISOString();
       const id = db.transaction(() => {
         const { lastInsertRowid } = insertAnalysis.run({
+          original_name: fileName, original_sha256: sha256Hex(content), original_size: content.length,
           now, sample: details.sample!, formula: details.formula ?? null, ion,
           ligands: JSON.stringify(details.ligands ?? []), solvent: details.solvent ?? null,
           temperature: details.temperature ?? null, measured_on: details.measuredOn ?? null, note: details.note ?? null,
         });
         const newId = Number(lastInsertRowid);
-        insertOriginal.run(newId, fileName, sha256Hex(content), content.length, content);
+        insertOriginal.run(newId, content);
         addRevision(newId, 1, record.options, record.result, record.toolVersion ?? toolVersion(), now);
         return newId;
       }).immediate();
@@ -197,7 +203,7 @@ function makeLibrary(db: Database.Database, file: string, maxOriginalBytes: numb
     getOriginal: guard((id: number) => {
       const row = selectOriginal.get(checkId(id));
       if (!row) throw notFound(id);
-      return { fileName: row.file_name, sha256: row.sha256, size: row.size, bytes: row.bytes };
+      return { fileName: row.original_name, sha256: row.original_sha256, size: row.original_size, bytes: row.bytes };
     }),
 
     update: guard((id: number, patch: AnalysisPatch) => {

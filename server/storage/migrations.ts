@@ -9,33 +9,36 @@ import { FieldgapError } from '../../src/errors.js';
  * apply a step. A migration is never edited once released: a change is a new
  * step at the end.
  *
- * Layout: `analyses` holds what the user says about a sample; `originals`
- * the file byte for byte (one per analysis, immutable); `revisions` every
- * analysis of that file, the latest being the current one, with the fit
- * numbers copied into columns for listing, sorting and export.
+ * Layout: `analyses` holds what the user says about a sample and the
+ * original file's name, size and SHA-256; `originals` the file byte for byte
+ * (one per analysis, immutable); `revisions` every analysis of that file,
+ * the latest being the current one, with its options and the fit numbers
+ * copied into columns for listing, sorting and export; `results` the full
+ * result JSON of each revision.
  */
 export const MIGRATIONS: ReadonlyArray<(db: Database) => void> = [
-  // 1: the three tables.
+  // 1: the tables. Large values live in tables of their own (originals,
+  // results), so listing reads only small rows and never their pages.
   (db) => {
     db.exec(`
       CREATE TABLE analyses (
-        id          INTEGER PRIMARY KEY AUTOINCREMENT,
-        created_at  TEXT NOT NULL,
-        updated_at  TEXT NOT NULL,
-        sample      TEXT NOT NULL,
-        formula     TEXT,
-        ion         TEXT,  -- canonical label ("Cr3+"), so the ion filter is an equality
-        ligands     TEXT NOT NULL DEFAULT '[]',
-        solvent     TEXT,
-        temperature REAL,
-        measured_on TEXT,
-        note        TEXT
+        id              INTEGER PRIMARY KEY AUTOINCREMENT,
+        created_at      TEXT NOT NULL,
+        updated_at      TEXT NOT NULL,
+        sample          TEXT NOT NULL,
+        formula         TEXT,
+        ion             TEXT,  -- canonical label ("Cr3+"), so the ion filter is an equality
+        ligands         TEXT NOT NULL DEFAULT '[]',
+        solvent         TEXT,
+        temperature     REAL,
+        measured_on     TEXT,
+        note            TEXT,
+        original_name   TEXT NOT NULL,
+        original_sha256 TEXT NOT NULL,
+        original_size   INTEGER NOT NULL
       );
       CREATE TABLE originals (
         analysis_id INTEGER PRIMARY KEY REFERENCES analyses(id) ON DELETE CASCADE,
-        file_name   TEXT NOT NULL,
-        sha256      TEXT NOT NULL,
-        size        INTEGER NOT NULL,
         bytes       BLOB NOT NULL
       );
       CREATE TABLE revisions (
@@ -45,7 +48,6 @@ export const MIGRATIONS: ReadonlyArray<(db: Database) => void> = [
         created_at   TEXT NOT NULL,
         tool_version TEXT NOT NULL,
         options      TEXT NOT NULL,
-        result       TEXT NOT NULL,
         ten_dq       REAL,
         b            REAL,
         c            REAL,
@@ -55,22 +57,29 @@ export const MIGRATIONS: ReadonlyArray<(db: Database) => void> = [
         status       TEXT,
         UNIQUE (analysis_id, revision)
       );
+      CREATE TABLE results (
+        revision_id INTEGER PRIMARY KEY REFERENCES revisions(id) ON DELETE CASCADE,
+        result      TEXT NOT NULL
+      );
     `);
   },
   // 2: uncertainties as columns (backfilled from the stored results), an
-  // index for the ion filter, and a guard that makes the originals immutable.
+  // index for the ion filter, and guards that make the originals immutable.
   (db) => {
     db.exec(`
       ALTER TABLE revisions ADD COLUMN ten_dq_sd REAL;
       ALTER TABLE revisions ADD COLUMN b_sd REAL;
       ALTER TABLE revisions ADD COLUMN beta_sd REAL;
       UPDATE revisions SET
-        ten_dq_sd = json_extract(result, '$.fit.uncertainty.tenDq'),
-        b_sd      = json_extract(result, '$.fit.uncertainty.b');
-      UPDATE revisions SET beta_sd = b_sd / json_extract(result, '$.fit.freeIonB')
-        WHERE b_sd IS NOT NULL AND json_extract(result, '$.fit.freeIonB') > 0;
+        ten_dq_sd = (SELECT json_extract(result, '$.fit.uncertainty.tenDq') FROM results WHERE revision_id = revisions.id),
+        b_sd      = (SELECT json_extract(result, '$.fit.uncertainty.b') FROM results WHERE revision_id = revisions.id);
+      UPDATE revisions SET beta_sd = b_sd / (SELECT json_extract(result, '$.fit.freeIonB') FROM results WHERE revision_id = revisions.id)
+        WHERE b_sd IS NOT NULL
+          AND (SELECT json_extract(result, '$.fit.freeIonB') FROM results WHERE revision_id = revisions.id) > 0;
       CREATE INDEX analyses_by_ion ON analyses(ion);
       CREATE TRIGGER originals_are_immutable BEFORE UPDATE ON originals
+        BEGIN SELECT RAISE(ABORT, 'stored originals are never modified'); END;
+      CREATE TRIGGER original_facts_are_immutable BEFORE UPDATE OF original_name, original_sha256, original_size ON analyses
         BEGIN SELECT RAISE(ABORT, 'stored originals are never modified'); END;
     `);
   },

@@ -7,15 +7,13 @@ import type { AnalysisDetails, AnalysisSummary, FitSummary, RevisionInfo, Stored
  * does not have is shown as such).
  */
 
-/** The columns of one list row: the analysis, its original's metadata, its latest revision. */
+/** The columns of one list row: the analysis with its original's name, size and hash, and its latest revision. */
 export const SUMMARY_SELECT = `
   SELECT a.id, a.created_at, a.updated_at, a.sample, a.formula, a.ion, a.ligands, a.solvent,
-         a.temperature, a.measured_on, a.note,
-         o.file_name, o.sha256, o.size,
+         a.temperature, a.measured_on, a.note, a.original_name, a.original_sha256, a.original_size,
          r.revision, r.tool_version, r.ten_dq, r.ten_dq_sd, r.b, r.b_sd, r.c, r.beta, r.beta_sd,
          r.spin_state, r.rms, r.status
   FROM analyses a
-  JOIN originals o ON o.analysis_id = a.id
   JOIN revisions r ON r.analysis_id = a.id
    AND r.revision = (SELECT max(revision) FROM revisions WHERE analysis_id = a.id)`;
 
@@ -44,9 +42,9 @@ export interface SummaryRow extends FitColumns {
   temperature: number | null;
   measured_on: string | null;
   note: string | null;
-  file_name: string;
-  sha256: string;
-  size: number;
+  original_name: string;
+  original_sha256: string;
+  original_size: number;
   revision: number;
   tool_version: string;
 }
@@ -73,7 +71,7 @@ export function summaryFromRow(row: SummaryRow): AnalysisSummary {
     createdAt: row.created_at,
     updatedAt: row.updated_at,
     ...details,
-    original: { fileName: row.file_name, sha256: row.sha256, size: row.size },
+    original: { fileName: row.original_name, sha256: row.original_sha256, size: row.original_size },
     revision: row.revision,
     toolVersion: row.tool_version,
     summary: fitFromColumns(row),

@@ -178,7 +178,8 @@ describe('update, refit and remove', () => {
     expect(errorOf(() => library.get(saved.id))).toMatchObject({ code: 'not-found' });
     const db = new Database(join(dir, LIBRARY_FILE), { readonly: true });
     try {
-      expect(db.prepare('SELECT (SELECT count(*) FROM originals) + (SELECT count(*) FROM revisions) AS n').get()).toEqual({ n: 0 });
+      const left = 'SELECT (SELECT count(*) FROM originals) + (SELECT count(*) FROM revisions) + (SELECT count(*) FROM results) AS n';
+      expect(db.prepare(left).get()).toEqual({ n: 0 });
     } finally {
       db.close();
     }

@@ -28,13 +28,13 @@ function writeVersion1Library(): void {
   const db = new Database(join(dir, LIBRARY_FILE));
   migrate(db, 'test', 1);
   db.exec(`
-    INSERT INTO analyses (created_at, updated_at, sample, ion, ligands)
-      VALUES ('2025-01-01T00:00:00.000Z', '2025-01-01T00:00:00.000Z', 'old sample', 'V3+', '["H2O"]');
-    INSERT INTO originals (analysis_id, file_name, sha256, size, bytes)
-      VALUES (1, 'old.csv', '00', 3, X'616263');
-    INSERT INTO revisions (analysis_id, revision, created_at, tool_version, options, result, ten_dq, b)
-      VALUES (1, 1, '2025-01-01T00:00:00.000Z', '0.0.1', '{}',
-        '{"fit":{"tenDq":18000,"b":600,"freeIonB":800,"uncertainty":{"tenDq":90,"b":12}}}', 18000, 600);
+    INSERT INTO analyses (created_at, updated_at, sample, ion, ligands, original_name, original_sha256, original_size)
+      VALUES ('2025-01-01T00:00:00.000Z', '2025-01-01T00:00:00.000Z', 'old sample', 'V3+', '["H2O"]', 'old.csv', '00', 3);
+    INSERT INTO originals (analysis_id, bytes) VALUES (1, X'616263');
+    INSERT INTO revisions (analysis_id, revision, created_at, tool_version, options, ten_dq, b)
+      VALUES (1, 1, '2025-01-01T00:00:00.000Z', '0.0.1', '{}', 18000, 600);
+    INSERT INTO results (revision_id, result)
+      VALUES (1, '{"fit":{"tenDq":18000,"b":600,"freeIonB":800,"uncertainty":{"tenDq":90,"b":12}}}');
   `);
   expect(schemaVersion(db)).toBe(1);
   db.close();
@@ -64,7 +64,9 @@ describe('schema migrations', () => {
     }
     const db = new Database(join(dir, LIBRARY_FILE));
     expect(schemaVersion(db)).toBe(SCHEMA_VERSION);
-    expect(() => db.prepare(`UPDATE originals SET file_name = 'x'`).run()).toThrow(/never modified/);
+    expect(() => db.prepare(`UPDATE originals SET bytes = X'00'`).run()).toThrow(/never modified/);
+    expect(() => db.prepare(`UPDATE analyses SET original_sha256 = 'x'`).run()).toThrow(/never modified/);
+    expect(() => db.prepare(`UPDATE analyses SET note = 'fine'`).run()).not.toThrow();
     db.close();
   });
 
