@@ -5,6 +5,7 @@
  * schema to fall out of date. Built once per app.
  */
 import { z } from 'zod';
+import { predictBody, seriesQuery } from './routes/series.js';
 import { analyzeFields, diagramQuery, fitBody, levelsQuery, SPECTRUM_CONTENT_TYPES } from './schemas.js';
 import {
   analyzeResponse,
@@ -131,6 +132,22 @@ export function buildOpenApiDocument(version: string): JsonSchema {
             '200': ok('The analysis, as `fieldgap analyze --json` prints it.', 'AnalyzeResult'),
             ...errorResponses(['400', '413', '415', '422', '500', '503', '504']),
           },
+        },
+      },
+      '/api/v1/series': {
+        get: {
+          operationId: 'series',
+          summary: 'Spectrochemical and nephelauxetic ranking of the stored analyses of one ion',
+          parameters: queryParameters(seriesQuery),
+          responses: { '200': { description: 'The ranking and the fitted Jørgensen factors.' }, ...errorResponses(['400', '404', '500']) },
+        },
+      },
+      '/api/v1/predict': {
+        post: {
+          operationId: 'predict',
+          summary: 'Estimate 10Dq, beta, B, C and the spin state from a complex formula',
+          requestBody: { required: true, content: { 'application/json': { schema: jsonSchema(predictBody) } } },
+          responses: { '200': { description: 'Estimates, each marked as such.' }, ...errorResponses(['400', '413', '415', '500']) },
         },
       },
     },
