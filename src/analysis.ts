@@ -1,0 +1,196 @@
+/**
+ * The one pipeline everything calls: a spectrum file's content → one
+ * spectrum → processed bands → a ligand-field fit of the d–d bands. Pure (the
+ * caller reads the file); the CLI, the service, the page and the library all
+ * come through here, so they agree on every number.
+ */
+import { FieldgapError, invalidArgument } from './errors.js';
+import { defaultBandSigma, fitBands, type BandInput, type FitResult } from './fit/index.js';
+import type { Geometry } from './ligand-field/types.js';
+import { gaussianValue } from './spectrum/gaussian.js';
+import { parseSpectrumText, processSpectrum } from './spectrum/index.js';
+import type { Band, MaskedRegion, ParsedFile, Spectrum, XUnit, YUnit } from './spectrum/types.js';
+
+export interface AnalyzeOptions {
+  /** Shown in error paths and warnings. @default "<input>" */
+  fileName?: string;
+  /** "Cr3+", "Cr(III)"; or give `d`. One of them is required for the fit. */
+  ion?: string;
+  d?: number;
+  /** @default "octahedral" */
+  geometry?: Geometry;
+  /** mol/L: with it, heights become ε and bands are classified by ε. @default unknown */
+  concentration?: number;
+  /** cm. @default 1 */
+  pathLength?: number;
+  /** x unit of the file when its header does not say. @default what the file says, else inferred */
+  xUnit?: XUnit;
+  yUnit?: YUnit;
+  /** Which y column (1-based index or header name). @default the first */
+  column?: number | string;
+  /** Fixed C/B. @default the free ion's C0/B0, else 4.5 */
+  cOverB?: number;
+  /** Fixed C, cm-1. */
+  c?: number;
+  /** Fit C as well. @default false */
+  freeC?: boolean;
+  /** Return the curves on the energy grid (for plots). @default false */
+  curves?: boolean;
+}
+
+export interface AnalyzeCurves {
+  /** Uniform wavenumber grid, cm-1, ascending. */
+  grid: number[];
+  /** The data (absorbance, or ε with a concentration); null where masked. */
+  signal: Array<number | null>;
+  baseline: number[];
+  model: number[];
+  /** Each band's Gaussian above the baseline, in the order of `bands`. */
+  components: number[][];
+}
+
+export interface AnalyzeResult {
+  spectrum: {
+    points: number;
+    /** [min, max], cm-1. */
+    range: [number, number];
+    xUnit: XUnit;
+    yUnit: YUnit;
+    masked: MaskedRegion[];
+    name: string;
+    column: number;
+    format: ParsedFile['format'];
+    /** 'absorbance', or 'epsilon' (L mol-1 cm-1) with a concentration. */
+    signalUnit: 'absorbance' | 'epsilon';
+    /** Noise standard deviation, signal unit. */
+    noise: number;
+  };
+  bands: Band[];
+  fit: FitResult;
+  warnings: string[];
+  curves?: AnalyzeCurves;
+}
+
+/** The spectra a file holds, for a batch run that analyses every column. */
+export function listSpectra(content: string | Uint8Array, options: Pick<AnalyzeOptions, 'fileName' | 'xUnit' | 'yUnit'> = {}): Array<{ column: number; name: string }> {
+  return parseSpectrumText(content, parseOptions(options)).spectra.map((s) => ({ column: s.column, name: s.name }));
+}
+
+export function analyzeSpectrum(content: string | Uint8Array, options: AnalyzeOptions): AnalyzeResult {
+  checkOptions(options);
+  const parsed = parseSpectrumText(content, { ...parseOptions(options), ...(options.column !== undefined && { column: options.column }) });
+  const spectrum = parsed.spectra[0];
+  if (spectrum === undefined) throw new FieldgapError('parse-error', 'the file holds no spectrum', options.fileName ?? '<input>');
+  const warnings = [...parsed.warnings];
+  if (options.column === undefined && parsed.spectra.length > 1) {
+    const others = parsed.spectra.slice(1).map((s) => `${s.column} (${s.name})`).join(', ');
+    warnings.push(`the file holds ${parsed.spectra.length} spectra; analysed column ${spectrum.column} (${spectrum.name}); choose another with --column: ${others}`);
+  }
+  return analyzeOne(spectrum, parsed.format, options, warnings);
+}
+
+function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: AnalyzeOptions, warnings: string[]): AnalyzeResult {
+  const geometry = options.geometry ?? 'octahedral';
+  const processed = processSpectrum(spectrum, {
+    geometry,
+    ...(options.concentration !== undefined && { concentration: options.concentration }),
+    ...(options.pathLength !== undefined && { pathLength: options.pathLength }),
+  });
+  warnings.push(...processed.warnings);
+  const where = `${options.fileName ?? '<input>'}${format === 'delimited' && spectrum.column > 1 ? `#${spectrum.column}` : ''}`;
+  const dd = processed.bands.filter((b) => b.kind !== 'charge-transfer');
+  if (dd.length === 0) {
+    const found = processed.bands.length === 0 ? 'no bands were found' : `only charge-transfer bands were found (${positions(processed.bands)} cm-1)`;
+    throw new FieldgapError('unexplained', `no d–d bands to fit: ${found} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`, where);
+  }
+  let fit: FitResult;
+  try {
+    fit = fitBands({
+      ...(options.ion !== undefined && { ion: options.ion }),
+      ...(options.d !== undefined && { d: options.d }),
+      geometry,
+      bands: processed.bands.map(bandToFitInput),
+      ...(options.cOverB !== undefined && { cOverB: options.cOverB }),
+      ...(options.c !== undefined && { c: options.c }),
+      ...(options.freeC !== undefined && { freeC: options.freeC }),
+    });
+  } catch (error) {
+    if (error instanceof FieldgapError && error.code === 'unexplained') {
+      throw new FieldgapError('unexplained', `${error.message} (bands found at ${positions(processed.bands)} cm-1)`, where);
+    }
+    throw error;
+  }
+  const result: AnalyzeResult = {
+    spectrum: {
+      points: processed.points,
+      range: processed.range,
+      xUnit: processed.xUnit,
+      yUnit: processed.yUnit,
+      masked: processed.masked,
+      name: spectrum.name,
+      column: spectrum.column,
+      format,
+      signalUnit: processed.signalUnit,
+      noise: processed.noise,
+    },
+    bands: processed.bands,
+    fit,
+    warnings: [...warnings, ...fit.warnings.map((w) => `fit: ${w}`)],
+  };
+  if (options.curves) {
+    const grid = processed.grid;
+    result.curves = {
+      grid: Array.from(grid),
+      signal: Array.from(processed.signal, (v) => (Number.isFinite(v) ? v : null)),
+      baseline: Array.from(processed.baseline),
+      model: Array.from(processed.model),
+      components: processed.bands.map((b) => Array.from(grid, (x) => gaussianValue(x, b.position, b.height, b.fwhm))),
+    };
+  }
+  return result;
+}
+
+/**
+ * A found band as the fit sees it. Its position uncertainty is the spectral
+ * fit's σ combined in quadrature with the fit's default σ for a band maximum
+ * (max(100 cm-1, 1 %)): the maximum of a broad band is not the vertical
+ * transition energy, and that model error dominates on clean data.
+ */
+function bandToFitInput(band: Band): BandInput {
+  const flags: string[] = [];
+  if (band.kind === 'charge-transfer') flags.push('charge-transfer');
+  if (band.kind === 'spin-forbidden') flags.push('spin-forbidden');
+  if (band.shoulder) flags.push('shoulder');
+  const input: BandInput = {
+    position: band.position,
+    uncertainty: Math.hypot(band.positionUncertainty, defaultBandSigma(band.position)),
+    width: band.fwhm,
+    flags,
+  };
+  if (band.epsilon !== null) input.epsilon = band.epsilon;
+  return input;
+}
+
+function positions(bands: readonly Band[]): string {
+  return bands.map((b) => Math.round(b.position)).join(', ');
+}
+
+function parseOptions(options: Pick<AnalyzeOptions, 'fileName' | 'xUnit' | 'yUnit'>) {
+  return {
+    ...(options.fileName !== undefined && { fileName: options.fileName }),
+    ...(options.xUnit !== undefined && { xUnit: options.xUnit }),
+    ...(options.yUnit !== undefined && { yUnit: options.yUnit }),
+  };
+}
+
+function checkOptions(options: AnalyzeOptions): void {
+  if (options.ion === undefined && options.d === undefined) {
+    throw invalidArgument('ion', 'give the metal ion (e.g. --ion Cr3+) or the d-electron count (--d 3)');
+  }
+  for (const key of ['concentration', 'pathLength'] as const) {
+    const value = options[key];
+    if (value !== undefined && !(Number.isFinite(value) && value > 0)) {
+      throw invalidArgument(key, `${key} must be a positive number, got ${value}`);
+    }
+  }
+}
