@@ -34,6 +34,11 @@ export interface LeastSquaresOptions {
    * (MINPACK's scale-free test; a zero residual satisfies it). Default 1e-10.
    */
   gtol?: number;
+  /**
+   * Stop when the cost itself is at most atol: an exact fit down to rounding,
+   * where the relative tests would only chase noise. Default 0 (off).
+   */
+  atol?: number;
   /** Maximum number of residual evaluations. Default 100·(p + 1). */
   maxEvaluations?: number;
   /** Starting damping relative to max diag(JᵀJ). Default 1e-3. */
@@ -44,8 +49,8 @@ export interface LeastSquaresOptions {
   jacobian?: JacobianFunction;
 }
 
-/** scipy.optimize.least_squares status codes. */
-export type LeastSquaresStatus = 0 | 1 | 2 | 3 | 4;
+/** scipy.optimize.least_squares status codes, and 5 for the atol test (not in scipy). */
+export type LeastSquaresStatus = 0 | 1 | 2 | 3 | 4 | 5;
 
 export const LEAST_SQUARES_MESSAGES: Readonly<Record<LeastSquaresStatus, string>> = {
   0: 'the maximum number of residual evaluations was exceeded',
@@ -53,6 +58,7 @@ export const LEAST_SQUARES_MESSAGES: Readonly<Record<LeastSquaresStatus, string>
   2: 'the relative reduction of the cost fell below ftol',
   3: 'the step size fell below xtol',
   4: 'both the ftol and the xtol conditions were satisfied',
+  5: 'the cost fell below atol (exact to rounding)',
 };
 
 export interface LeastSquaresResult {
@@ -144,7 +150,7 @@ function checkInputs(x0: Float64Array, m: number, options: LeastSquaresOptions):
   if (x0.length === 0) throw invalidArgument('x0', 'least squares needs at least one parameter');
   if (!x0.every(Number.isFinite)) throw invalidArgument('x0', 'every starting parameter must be a finite number');
   if (!Number.isInteger(m) || m < 1) throw invalidArgument('m', `the number of residuals must be a positive whole number, got ${m}`);
-  for (const key of ['ftol', 'xtol', 'gtol', 'initialDamping'] as const) {
+  for (const key of ['ftol', 'xtol', 'gtol', 'atol', 'initialDamping'] as const) {
     const value = options[key];
     if (value !== undefined && !(value >= 0 && Number.isFinite(value))) {
       throw invalidArgument(key, `${key} must be a finite number ≥ 0, got ${value}`);
@@ -174,6 +180,7 @@ export function leastSquares(
     ftol = 1e-10,
     xtol = 1e-10,
     gtol = 1e-10,
+    atol = 0,
     maxEvaluations = 100 * (p + 1),
     initialDamping = 1e-3,
     lower,
@@ -200,6 +207,7 @@ export function leastSquares(
   const trialR = new Float64Array(m);
 
   while (evaluations < maxEvaluations) {
+    if (cost <= atol) { status = 5; break; }
     if (gradientCosine(jac, r, g, m, p) <= gtol) { status = 1; break; }
     iterations++;
     const step = dampedStep(a, g, p, lambda);

@@ -160,3 +160,22 @@ describe('jacobianCovariance', () => {
     }
   });
 });
+
+describe('leastSquares atol', () => {
+  it('stops with status 5 once the cost is below atol', () => {
+    let calls = 0;
+    const result = leastSquares(
+      (p, out) => {
+        calls++;
+        out[0] = p[0]! ** 3 - 8;
+      },
+      Float64Array.of(3),
+      1,
+      { atol: 1e-20 },
+    );
+    expect(result.status).toBe(5);
+    expect(result.message).toMatch(/atol/);
+    expect(result.params[0]).toBeCloseTo(2, 9);
+    expect(calls).toBeLessThan(30);
+  });
+});

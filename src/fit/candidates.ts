@@ -1,0 +1,188 @@
+/**
+ * Grid candidates: every assignment of the bands on one scan, each at its
+ * grid optimum, with an approximate score (grid rms + penalties) used to
+ * choose which few to refine with the full engine.
+ *
+ * Per spin branch (see enumerate.ts):
+ * - a branch with a single transition in its class (d1, d9, high-spin d4
+ *   and d6) takes two or three unflagged bands within a ratio of 1.6 of each
+ *   other as Jahn–Teller components of that one transition, averaged;
+ * - with at least p + 2 bands one unflagged band may also be left
+ *   unexplained (a penalty);
+ * - a single-transition branch left with fewer observations than parameters
+ *   gives a "Dq only" candidate: 10Dq from the band, B not determinable.
+ */
+import type { Branch } from './enumerate.js';
+import { enumerateAssignments, primaryClass, scanBranches } from './enumerate.js';
+import { averageObservations, type Observation, type SortedObservations } from './observations.js';
+import {
+  LIMITS, PENALTY, penaltyTotal, plausibilityPenalties, skippedTransitionPenalties,
+  type ClassTransition,
+} from './penalties.js';
+import { gridOptimum, type GridSolution } from './profile.js';
+import { promotedElectrons, type LevelScan } from './scan.js';
+import type { FitSettings } from './settings.js';
+import type { Penalty } from './types.js';
+
+/** Largest ratio of Jahn–Teller components averaged as one band. */
+export const JAHN_TELLER_MAX_RATIO = 1.6;
+
+export interface Variant {
+  /** Observations in table-column order: primary (sorted), then flagged (sorted). */
+  observations: Observation[];
+  nPrimary: number;
+  classForbidden: boolean;
+  dropped: Observation[];
+  /** Components averaged into the one primary observation, if any. */
+  jahnTeller: Observation[] | null;
+  /** Penalties fixed by the variant itself (unexplained bands, Jahn–Teller pair). */
+  penalties: Penalty[];
+}
+
+export interface GridCandidate {
+  kind: 'grid';
+  scan: LevelScan;
+  branch: Branch;
+  variant: Variant;
+  levels: Int32Array;
+  grid: GridSolution;
+  /** Grid rms plus the variant's own penalties: a lower bound of approxScore. */
+  wrms: number;
+  /** NaN until approximateScore() computes it. */
+  approxScore: number;
+  /** Identity across scans: branch ground, levels and bands. */
+  key: string;
+}
+
+export interface DqOnlyCandidate {
+  kind: 'dq-only';
+  scan: LevelScan;
+  branch: Branch;
+  variant: Variant;
+  /** ids index of the one transition. */
+  level: number;
+}
+
+function jahnTellerPenalty(components: Observation[]): Penalty {
+  const ratio = components[components.length - 1]!.position / components[0]!.position;
+  const amount = PENALTY.jahnTellerPair + 2000 * Math.max(0, ratio - LIMITS.jahnTellerRatio);
+  const list = components.map((o) => Math.round(o.position)).join(' and ');
+  return { rule: 'jahn-teller-pair', amount, detail: `${list} cm-1 averaged as Jahn–Teller components of one transition` };
+}
+
+/** The ways a branch can take the bands (see the module docstring). */
+export function branchVariants(branch: Branch, sorted: SortedObservations, p: number): Variant[] {
+  const cls = primaryClass(branch);
+  let primary = sorted.primary;
+  let flagged = sorted.flagged;
+  if (cls.forbidden) {
+    primary = [...primary, ...flagged].sort((a, b) => a.position - b.position);
+    flagged = [];
+  }
+  let jahnTeller: Observation[] | null = null;
+  const penalties: Penalty[] = [];
+  if (cls.levels.length === 1 && primary.length >= 2) {
+    const ratio = primary[primary.length - 1]!.position / primary[0]!.position;
+    if (primary.length > 3 || ratio > JAHN_TELLER_MAX_RATIO) return [];
+    jahnTeller = primary;
+    penalties.push(jahnTellerPenalty(primary));
+    primary = [averageObservations(primary, sorted.weighted)];
+  }
+  const make = (prim: Observation[], dropped: Observation[], extra: Penalty[]): Variant => ({
+    observations: [...prim, ...flagged], nPrimary: prim.length, classForbidden: cls.forbidden, dropped, jahnTeller,
+    penalties: [...penalties, ...extra],
+  });
+  const variants = [make(primary, [], [])];
+  if (primary.length + flagged.length - 1 >= p + 1 && primary.length >= 2 && !jahnTeller) {
+    primary.forEach((o, i) => {
+      const rest = primary.filter((_, k) => k !== i);
+      variants.push(make(rest, [o], [{
+        rule: 'unexplained-band', amount: PENALTY.unexplainedBand, detail: `the band at ${Math.round(o.position)} cm-1 is left unexplained`,
+      }]));
+    });
+  }
+  return variants;
+}
+
+/** Transitions of the branch's primary class at grid point j and scale b, in cm-1. */
+export function classTransitionsAt(scan: LevelScan, branch: Branch, j: number, b: number): ClassTransition[] {
+  const n = scan.ids.length;
+  const promoted = promotedElectrons(scan, branch.ground);
+  return primaryClass(branch).levels.map((k) => ({
+    level: k, term: scan.ids[k]!.term, label: scan.ids[k]!.label,
+    energy: b * (scan.energies[j * n + k]! - scan.energies[j * n + branch.ground]!),
+    twoElectron: Math.abs(promoted[k]!) >= 2,
+  }));
+}
+
+/**
+ * All grid candidates and Dq-only candidates of one scan. A grid candidate's
+ * `wrms` is a lower bound of its score; `score()` adds the penalties (computed
+ * on first use, so the caller can skip candidates that cannot win).
+ */
+export function gridCandidates(
+  scan: LevelScan,
+  sorted: SortedObservations,
+  p: number,
+): { grid: GridCandidate[]; dqOnly: DqOnlyCandidate[] } {
+  const grid: GridCandidate[] = [];
+  const dqOnly: DqOnlyCandidate[] = [];
+  for (const branch of scanBranches(scan)) {
+    const cls = primaryClass(branch);
+    for (const variant of branchVariants(branch, sorted, p)) {
+      const m = variant.observations.length;
+      if (m === 0) continue;
+      if (m < p) {
+        if (cls.levels.length === 1 && variant.nPrimary === 1 && m === 1) {
+          dqOnly.push({ kind: 'dq-only', scan, branch, variant, level: cls.levels[0]! });
+        }
+        continue;
+      }
+      const table = enumerateAssignments(scan, branch, variant.nPrimary, m - variant.nPrimary);
+      const o = Float64Array.from(variant.observations, (obs) => obs.position);
+      const w = Float64Array.from(variant.observations, (obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
+      const wSum = w.reduce((s, v) => s + v, 0);
+      const variantPenalty = penaltyTotal(variant.penalties);
+      const bandsKey = variant.observations.map((obs) => obs.bands.join('+')).join(',');
+      const work = new Float64Array(m);
+      for (let a = 0; a < table.count; a++) {
+        const solution = gridOptimum(scan, branch, table, a, o, w, work);
+        if (!solution) continue;
+        const levels = table.levels.slice(a * m, (a + 1) * m);
+        grid.push({
+          kind: 'grid', scan, branch, variant, levels, grid: solution,
+          wrms: Math.sqrt(solution.ssr / wSum) + variantPenalty,
+          approxScore: Number.NaN,
+          key: `${scan.ids[branch.ground]!.key}|${Array.from(levels, (k) => scan.ids[k]!.key).join(',')}|${bandsKey}`,
+        });
+      }
+    }
+  }
+  return { grid, dqOnly };
+}
+
+/** Grid rms plus every penalty at the grid optimum (cached on the candidate). */
+export function approximateScore(candidate: GridCandidate, settings: FitSettings, sorted: SortedObservations): number {
+  if (!Number.isNaN(candidate.approxScore)) return candidate.approxScore;
+  const { scan, branch, variant, grid: solution, levels } = candidate;
+  const ctOnset = sorted.chargeTransfer.length ? Math.min(...sorted.chargeTransfer.map((b) => b.position)) : undefined;
+  const transitions = classTransitionsAt(scan, branch, solution.point, solution.b);
+  const n = scan.ids.length;
+  const zero = scan.energies[solution.point * n + branch.ground]!;
+  const assigned = Array.from(levels.subarray(0, variant.nPrimary), (k, i) => {
+    const entry: { level: number; calculated: number; width?: number } = {
+      level: k, calculated: solution.b * (scan.energies[solution.point * n + k]! - zero),
+    };
+    const width = variant.observations[i]!.width;
+    if (width !== undefined) entry.width = width;
+    return entry;
+  });
+  const skip = skippedTransitionPenalties({
+    geometry: settings.geometry, transitions, assigned, classForbidden: variant.classForbidden,
+    ...(ctOnset !== undefined ? { ctOnset } : {}),
+  });
+  const c = settings.mode === 'fixed' ? settings.cFixed : scan.cOverB * solution.b;
+  const plausible = plausibilityPenalties({ b: solution.b, c, mode: settings.mode, b0: settings.b0 });
+  candidate.approxScore = candidate.wrms + penaltyTotal(skip.penalties) + penaltyTotal(plausible);
+  return candidate.approxScore;
+}

@@ -1,0 +1,148 @@
+/**
+ * Turning a grid candidate into a scored solution with the full engine, and
+ * the Dq-only solution of a single-transition branch.
+ */
+import { crossoverAt, levelsAt as computeLevels } from './engine.js';
+import type { FieldParameters, LevelsResult } from '../ligand-field/types.js';
+import type { DqOnlyCandidate, GridCandidate } from './candidates.js';
+import { primaryClass } from './enumerate.js';
+import type { LeastSquaresResult } from './least-squares.js';
+import { penaltyTotal, plausibilityPenalties, skippedTransitionPenalties, type ClassTransition } from './penalties.js';
+import { assignedEnergies, refineSolution, type RefineProblem } from './refine.js';
+import { levelIdentityKey, promotedElectrons } from './scan.js';
+import type { FitSettings } from './settings.js';
+import type { SortedObservations } from './observations.js';
+import type { Penalty, SkippedTransition } from './types.js';
+
+export interface Evaluated {
+  candidate: GridCandidate | DqOnlyCandidate;
+  params: FieldParameters;
+  /** False for a Dq-only solution: b and c in params are nominal. */
+  bDetermined: boolean;
+  levels: LevelsResult;
+  /** Per observation of candidate.variant.observations. */
+  calculated: Float64Array;
+  /** ids index per observation. */
+  levelIndices: Int32Array;
+  wrms: number;
+  penalties: Penalty[];
+  skipped: SkippedTransition[];
+  coincident: string[][];
+  score: number;
+  lsq: LeastSquaresResult | null;
+  problem: RefineProblem | null;
+  /** The refinement crossed the spin crossover; the grid solution is kept. */
+  keptGrid: boolean;
+  notes: string[];
+}
+
+/** Class transitions above the assumed ground at computed levels, cm-1. */
+function classTransitionsOf(candidate: GridCandidate | DqOnlyCandidate, levels: LevelsResult): ClassTransition[] {
+  const { scan, branch } = candidate;
+  const groundKey = scan.ids[branch.ground]!.key;
+  const byKey = new Map(levels.levels.map((l) => [levelIdentityKey(l), l.energy]));
+  const zero = byKey.get(groundKey) ?? 0;
+  const promoted = promotedElectrons(scan, branch.ground);
+  return primaryClass(branch).levels.map((k) => ({
+    level: k, term: scan.ids[k]!.term, label: scan.ids[k]!.label,
+    energy: (byKey.get(scan.ids[k]!.key) ?? Number.NaN) - zero,
+    twoElectron: Math.abs(promoted[k]!) >= 2,
+  }));
+}
+
+function ctOnsetOf(sorted: SortedObservations): number | undefined {
+  return sorted.chargeTransfer.length ? Math.min(...sorted.chargeTransfer.map((b) => b.position)) : undefined;
+}
+
+export function evaluateGridCandidate(
+  candidate: GridCandidate,
+  settings: FitSettings,
+  sorted: SortedObservations,
+  maxEvaluations = 60,
+): Evaluated {
+  const { scan, branch, variant, grid } = candidate;
+  const observations = variant.observations;
+  const problem: RefineProblem = {
+    d: settings.d, geometry: settings.geometry, mode: settings.mode, cOverB: scan.cOverB, cFixed: settings.cFixed,
+    groundKey: scan.ids[branch.ground]!.key,
+    levelKeys: Array.from(candidate.levels, (k) => scan.ids[k]!.key),
+    observed: Float64Array.from(observations, (o) => o.position),
+    sigma: Float64Array.from(observations, (o) => (sorted.weighted ? o.sigma : 1)),
+  };
+  const start: FieldParameters = {
+    dq: grid.x * grid.b, b: grid.b, c: settings.mode === 'fixed' ? settings.cFixed : scan.cOverB * grid.b,
+  };
+  const refined = refineSolution(problem, start, maxEvaluations);
+  let { params, levels, calculated } = refined;
+  const notes: string[] = [];
+  const keptGrid = !refined.selfConsistent;
+  if (keptGrid) {
+    // The optimum of this assignment lies across the spin crossover: keep the best self-consistent grid point.
+    params = start;
+    levels = computeLevels(settings.d, settings.geometry, start);
+    calculated = new Float64Array(observations.length);
+    assignedEnergies(levels, problem.groundKey, problem.levelKeys, calculated);
+    notes.push('the least-squares optimum of this assignment lies across the spin crossover; the best self-consistent grid point is kept');
+  }
+  let ssr = 0;
+  let wSum = 0;
+  observations.forEach((o, i) => {
+    const w = sorted.weighted ? 1 / o.sigma ** 2 : 1;
+    ssr += w * (calculated[i]! - o.position) ** 2;
+    wSum += w;
+  });
+  const assigned = Array.from(candidate.levels.subarray(0, variant.nPrimary), (k, i) => {
+    const entry: { level: number; calculated: number; width?: number } = { level: k, calculated: calculated[i]! };
+    if (observations[i]!.width !== undefined) entry.width = observations[i]!.width!;
+    return entry;
+  });
+  const ctOnset = ctOnsetOf(sorted);
+  const skip = skippedTransitionPenalties({
+    geometry: settings.geometry, transitions: classTransitionsOf(candidate, levels), assigned,
+    classForbidden: variant.classForbidden, ...(ctOnset !== undefined ? { ctOnset } : {}),
+  });
+  const penalties = [
+    ...variant.penalties, ...skip.penalties,
+    ...plausibilityPenalties({ b: params.b, c: params.c, mode: settings.mode, b0: settings.b0 }),
+  ];
+  const wrms = Math.sqrt(ssr / wSum);
+  return {
+    candidate, params, bDetermined: true, levels, calculated, levelIndices: candidate.levels, wrms, penalties,
+    skipped: skip.skipped, coincident: skip.coincident, score: wrms + penaltyTotal(penalties),
+    lsq: keptGrid ? null : refined.lsq, problem, keptGrid, notes,
+  };
+}
+
+/**
+ * 10Dq from the one transition of a single-transition branch (d1, d9,
+ * high-spin d4 and d6): its energy is B-independent, E = slope·Dq with the
+ * slope read from the scan (10 for these cases). B is not determinable. A
+ * branch with a spin crossover is kept only if it can be self-consistent
+ * with a plausible B ≤ B0: Dq/B0 below the crossover.
+ */
+export function evaluateDqOnly(candidate: DqOnlyCandidate, settings: FitSettings): Evaluated | undefined {
+  const { scan, branch, variant, level } = candidate;
+  const n = scan.ids.length;
+  const j = branch.points[0]!;
+  const slope = (scan.energies[j * n + level]! - scan.energies[j * n + branch.ground]!) / scan.x[j]!;
+  const observation = variant.observations[0]!;
+  const dq = observation.position / slope;
+  const notes: string[] = [];
+  const crossover = scan.ground.some((g) => g !== branch.ground)
+    ? crossoverAt(settings.d, settings.geometry, scan.cOverB)
+    : undefined;
+  let b = settings.b0 ?? 1000;
+  if (crossover !== undefined) {
+    const bMin = dq / crossover;
+    if (settings.b0 !== null && bMin >= settings.b0) return undefined;
+    notes.push(`this spin state is self-consistent for B > ${Math.round(bMin)} cm-1 (Dq/B below the crossover at ${crossover.toFixed(2)})`);
+    if (dq / b >= crossover) b = 1.5 * bMin;
+  }
+  const params = { dq, b, c: settings.mode === 'fixed' ? settings.cFixed : scan.cOverB * b };
+  const levels = computeLevels(settings.d, settings.geometry, params);
+  return {
+    candidate, params, bDetermined: false, levels, calculated: Float64Array.of(observation.position),
+    levelIndices: Int32Array.of(level), wrms: 0, penalties: variant.penalties, skipped: [], coincident: [[]],
+    score: penaltyTotal(variant.penalties), lsq: null, problem: null, keptGrid: false, notes,
+  };
+}

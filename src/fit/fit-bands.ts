@@ -1,0 +1,172 @@
+/**
+ * fitBands: 10Dq, Racah B and C from observed band maxima, with automatic
+ * assignment and the spin-state logic.
+ *
+ * 1. Settings (settings.ts) and bands (bands.ts, observations.ts).
+ * 2. Scans of reduced energies e(Dq/B) at the C/B in use (scan.ts): the fixed
+ *    ratio; for a fixed C the ratio C/B_guess rounded to 0.1 (B_guess =
+ *    0.8·B0, else C/4.5), redone once if the fitted C/B lands more than 0.5
+ *    away; for a free C the ratios 3.0, 3.5, …, 6.5.
+ * 3. Every order-consistent assignment on every spin branch at its grid
+ *    optimum (closed-form B per grid point: profile.ts), scored approximately
+ *    (candidates.ts); the best 4, and the best of each spin branch, are
+ *    refined by Levenberg–Marquardt with the full engine (refine.ts) and
+ *    scored again (evaluate.ts, penalties.ts). Only self-consistent solutions
+ *    are kept: the assumed ground level is the ground level at the result.
+ * 4. The lowest score wins. A winner whose rms exceeds max(1000 cm-1, 5% of
+ *    the mean band position) is not a fit: FieldgapError('unexplained').
+ */
+import { FieldgapError } from '../errors.js';
+import { normalizeBands } from './bands.js';
+import { approximateScore, gridCandidates, type DqOnlyCandidate, type GridCandidate } from './candidates.js';
+import { evaluateDqOnly, evaluateGridCandidate, type Evaluated } from './evaluate.js';
+import { sortObservations, type SortedObservations } from './observations.js';
+import { alternativeMargin, buildFitResult } from './result.js';
+import { cachedLevelScan } from './scan.js';
+import { resolveFitSettings, type FitSettings } from './settings.js';
+import type { FitInput, FitOptions, FitResult } from './types.js';
+
+/** Grid candidates refined with the full engine (besides the best of each spin branch). */
+export const REFINED_CANDIDATES = 4;
+/** Ratios scanned when C is free. */
+export const FREE_C_RATIOS = [3.0, 3.5, 4.0, 4.5, 5.0, 5.5, 6.0, 6.5];
+
+/** rms above which the best assignment is reported as a failure, cm-1. */
+export function unexplainedThreshold(positions: readonly number[]): number {
+  const mean = positions.reduce((s, v) => s + v, 0) / positions.length;
+  return Math.max(1000, 0.05 * mean);
+}
+
+function scanRatios(settings: FitSettings): number[] {
+  if (settings.mode === 'free') return FREE_C_RATIOS;
+  if (settings.mode === 'ratio') return [settings.cOverB];
+  const bGuess = settings.b0 !== null ? 0.8 * settings.b0 : settings.cFixed / 4.5;
+  return [Math.min(8, Math.max(2, Math.round((10 * settings.cFixed) / bGuess) / 10))];
+}
+
+function describeSystem(settings: FitSettings): string {
+  return `d${settings.d} ${settings.geometry}${settings.ion ? ` (${settings.ion.label})` : ''}`;
+}
+
+/**
+ * The best REFINED_CANDIDATES grid candidates by approximate score, and the
+ * best of each spin branch. Candidates are visited by ascending grid rms (a
+ * lower bound of the score), so penalties are computed only for those that
+ * can still make the cut.
+ */
+function selectForRefinement(candidates: GridCandidate[], settings: FitSettings, sorted: SortedObservations): GridCandidate[] {
+  candidates.sort((a, b) => a.wrms - b.wrms);
+  const top: GridCandidate[] = [];
+  const branchBest = new Map<number, GridCandidate>();
+  for (const c of candidates) {
+    const kth = top.length < REFINED_CANDIDATES ? Infinity : top[top.length - 1]!.approxScore;
+    const own = branchBest.get(c.branch.multiplicity)?.approxScore ?? Infinity;
+    if (c.wrms >= kth && c.wrms >= own) continue;
+    const score = approximateScore(c, settings, sorted);
+    if (score < kth) {
+      top.push(c);
+      top.sort((a, b) => a.approxScore - b.approxScore);
+      if (top.length > REFINED_CANDIDATES) top.pop();
+    }
+    if (score < own) branchBest.set(c.branch.multiplicity, c);
+  }
+  return [...new Set([...top, ...branchBest.values()])];
+}
+
+function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: number[]): Evaluated[] {
+  const p = settings.mode === 'free' ? 3 : 2;
+  const byKey = new Map<string, GridCandidate>();
+  const dqOnly: DqOnlyCandidate[] = [];
+  for (const ratio of ratios) {
+    const scan = cachedLevelScan(settings.d, settings.geometry, ratio);
+    const found = gridCandidates(scan, sorted, p);
+    for (const c of found.grid) {
+      const old = byKey.get(c.key);
+      if (!old || c.wrms < old.wrms) byKey.set(c.key, c);
+    }
+    if (dqOnly.length === 0) dqOnly.push(...found.dqOnly);
+  }
+  const evaluated: Evaluated[] = [];
+  let bestScore = Infinity;
+  const chosen = selectForRefinement([...byKey.values()], settings, sorted).sort((a, b) => a.approxScore - b.approxScore);
+  for (const c of chosen) {
+    // Refining lowers a score by little more than the grid error, far less than the margin.
+    if (c.approxScore > alternativeMargin(bestScore)) continue;
+    const e = evaluateGridCandidate(c, settings, sorted, evaluated.length === 0 ? 60 : 20);
+    evaluated.push(e);
+    bestScore = Math.min(bestScore, e.score);
+  }
+  for (const c of dqOnly) {
+    const e = evaluateDqOnly(c, settings);
+    if (e) evaluated.push(e);
+  }
+  return evaluated.sort((a, b) => a.score - b.score);
+}
+
+function noAssignmentError(settings: FitSettings, sorted: SortedObservations): FieldgapError {
+  const n = sorted.primary.length + sorted.flagged.length;
+  const p = settings.mode === 'free' ? 3 : 2;
+  if (n === 0) return new FieldgapError('invalid-argument', 'every band is flagged charge-transfer: no d–d band to fit', 'bands');
+  if (n < p) {
+    return new FieldgapError(
+      'invalid-argument',
+      `${n} d–d band${n === 1 ? '' : 's'} cannot determine ${p === 3 ? '10Dq, B and C' : 'both 10Dq and B'} for ${describeSystem(settings)}: give at least ${p}`,
+      settings.mode === 'free' ? 'freeC' : 'bands',
+    );
+  }
+  return new FieldgapError(
+    'unexplained',
+    `no assignment explains these ${n} bands for ${describeSystem(settings)}: more bands than its transitions can take (flag spin-forbidden bands :sf and charge-transfer bands :ct)`,
+    'bands',
+  );
+}
+
+/** True when the fitted C has no influence on the assigned bands (its Jacobian column vanishes). */
+function cUndetermined(best: Evaluated): boolean {
+  if (!best.lsq || best.problem?.mode !== 'free') return false;
+  const { jacobian } = best.lsq;
+  let colB = 0;
+  let colC = 0;
+  for (let i = 0; i < jacobian.length / 3; i++) {
+    colB += jacobian[i * 3 + 1]! ** 2;
+    colC += jacobian[i * 3 + 2]! ** 2;
+  }
+  return Math.sqrt(colC) <= 1e-6 * Math.sqrt(colB) * best.params.c;
+}
+
+export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
+  let settings = resolveFitSettings(input);
+  const bands = normalizeBands(input.bands, 'bands');
+  const sorted = sortObservations(bands);
+  const warnings: string[] = [];
+  let evaluated = evaluateAll(settings, sorted, scanRatios(settings));
+  if (settings.mode === 'fixed' && evaluated[0]?.bDetermined) {
+    const ratio = evaluated[0].params.c / evaluated[0].params.b;
+    if (Math.abs(ratio - scanRatios(settings)[0]!) > 0.5) {
+      evaluated = evaluateAll(settings, sorted, [Math.min(8, Math.max(2, Math.round(ratio * 10) / 10))]);
+    }
+  }
+  if (settings.mode === 'free' && evaluated[0] && (cUndetermined(evaluated[0]) || !evaluated[0].bDetermined)) {
+    warnings.push(
+      `C is not determined by these bands (their energies do not depend on C): C/B fixed at ${settings.cOverB.toFixed(2)} instead (${settings.cOverBSource})`,
+    );
+    settings = { ...settings, mode: 'ratio' };
+    evaluated = evaluateAll(settings, sorted, scanRatios(settings));
+  }
+  let best = evaluated[0];
+  if (!best) throw noAssignmentError(settings, sorted);
+  if (best.lsq && !best.lsq.success && best.candidate.kind === 'grid') {
+    // An alternative's refinement is capped at 20 evaluations; the winner gets the full budget.
+    best = evaluateGridCandidate(best.candidate, settings, sorted, 200);
+  }
+  const positions = [...sorted.primary, ...sorted.flagged].map((o) => o.position);
+  const threshold = unexplainedThreshold(positions);
+  if (best.wrms > threshold) {
+    throw new FieldgapError(
+      'unexplained',
+      `no assignment explains these bands for ${describeSystem(settings)}; best rms ${Math.round(best.wrms)} cm-1 (limit ${Math.round(threshold)} cm-1)`,
+      'bands',
+    );
+  }
+  return buildFitResult({ settings, sorted, best, others: evaluated.slice(1), warnings, options });
+}

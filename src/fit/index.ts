@@ -1,0 +1,14 @@
+/**
+ * Fitting 10Dq, Racah B and C to observed d–d band maxima: automatic
+ * assignment, spin-state logic, uncertainties. See fit-bands.ts for the
+ * method and penalties.ts for the rules that choose between assignments.
+ */
+export { fitBands, unexplainedThreshold } from './fit-bands.js';
+export { parseBandList, normalizeBands, BAND_FLAGS, type BandFlag, type BandInput, type ObservedBand } from './bands.js';
+export { leastSquares, type LeastSquaresOptions, type LeastSquaresResult } from './least-squares.js';
+export { jacobianCovariance } from './covariance.js';
+export { ligandFieldStabilisation, spinOnlyMoment, strongFieldConfiguration, type Lfse } from './lfse.js';
+export { DEFAULT_C_OVER_B } from './settings.js';
+export { defaultBandSigma } from './observations.js';
+export { PENALTY, LIMITS } from './penalties.js';
+export type * from './types.js';

@@ -1,0 +1,73 @@
+/**
+ * The least-squares profile of one assignment along the scan.
+ *
+ * At a grid point the calculated band i is B·e_i (e_i in units of B, from
+ * the scan), so for fixed x = Dq/B the best B has the closed form
+ *   B = Σ w_i o_i e_i / Σ w_i e_i²,
+ * and the weighted sum of squares is Σ w_i (o_i − B e_i)². Minimising that
+ * over the grid points where the assignment holds gives the global optimum
+ * at this C/B to within the grid step, with no local minima to fall into.
+ */
+import type { AssignmentTable, Branch } from './enumerate.js';
+import type { LevelScan } from './scan.js';
+
+export interface ScaleFit {
+  /** Best B, cm-1 (≤ 0 when the energies cannot scale to the bands). */
+  b: number;
+  /** Σ w (o − B e)². */
+  ssr: number;
+}
+
+/** Closed-form best scale B for observed o and reduced energies e with weights w. */
+export function bestScale(o: Float64Array, e: Float64Array, w: Float64Array): ScaleFit {
+  let num = 0;
+  let den = 0;
+  for (let i = 0; i < o.length; i++) {
+    num += w[i]! * o[i]! * e[i]!;
+    den += w[i]! * e[i]! * e[i]!;
+  }
+  const b = den > 0 ? num / den : 0;
+  let ssr = 0;
+  for (let i = 0; i < o.length; i++) ssr += w[i]! * (o[i]! - b * e[i]!) ** 2;
+  return { b, ssr };
+}
+
+export interface GridSolution {
+  /** Row of the assignment table. */
+  assignment: number;
+  /** Grid index. */
+  point: number;
+  /** Dq/B at that point. */
+  x: number;
+  b: number;
+  ssr: number;
+}
+
+/**
+ * The grid optimum of assignment `a` of `table` for observations `o`
+ * (ordered like the table's columns) with weights `w`; undefined when no
+ * point gives a positive B.
+ */
+export function gridOptimum(
+  scan: LevelScan,
+  branch: Branch,
+  table: AssignmentTable,
+  a: number,
+  o: Float64Array,
+  w: Float64Array,
+  work: Float64Array = new Float64Array(o.length),
+): GridSolution | undefined {
+  const n = scan.ids.length;
+  const width = table.width;
+  let best: GridSolution | undefined;
+  for (let p = table.pointStart[a]!; p < table.pointStart[a + 1]!; p++) {
+    const j = table.points[p]!;
+    const base = j * n;
+    const zero = scan.energies[base + branch.ground]!;
+    for (let i = 0; i < width; i++) work[i] = scan.energies[base + table.levels[a * width + i]!]! - zero;
+    const fit = bestScale(o, work, w);
+    if (!(fit.b > 0)) continue;
+    if (!best || fit.ssr < best.ssr) best = { assignment: a, point: j, x: scan.x[j]!, b: fit.b, ssr: fit.ssr };
+  }
+  return best;
+}

@@ -1,0 +1,209 @@
+/**
+ * Assembling the plain-JSON FitResult from the chosen solution and the others.
+ *
+ * Alternatives: the other refined solutions whose score is within
+ * max(2000 cm-1, the winner's score) of the winner, at most
+ * options.maxAlternatives (default 4), skipping relabelings of the winner
+ * (same calculated energies within 1 cm-1: degenerate levels such as
+ * 4A1g/4Eg(G) of d5). Each says why it lost (`reason`).
+ * Near spin crossover: within 10% of the crossover Dq/B.
+ */
+import { spinStateChoice } from '../ligand-field/index.js';
+import { crossoverAt, levelsAt as computeLevels } from './engine.js';
+import type { LevelsResult } from '../ligand-field/types.js';
+import type { Evaluated } from './evaluate.js';
+import { ligandFieldStabilisation, spinOnlyMoment } from './lfse.js';
+import type { SortedObservations } from './observations.js';
+import { promotedElectrons, levelIdentityKey } from './scan.js';
+import type { FitSettings } from './settings.js';
+import { fitUncertainty } from './uncertainty.js';
+import type {
+  Alternative, AssignedBand, CrossoverInfo, FitOptions, FitResult, FitStatus, PredictedTransition,
+} from './types.js';
+
+/** |fitted − crossover| / crossover below this is "near spin crossover". */
+export const NEAR_CROSSOVER_FRACTION = 0.1;
+
+/** Alternatives are shown when their score is at most this (cm-1) for a winner's score. */
+export function alternativeMargin(bestScore: number): number {
+  return bestScore + Math.max(2000, bestScore);
+}
+
+const round = (v: number, digits = 1) => Math.round(v * 10 ** digits) / 10 ** digits;
+
+function assignmentRows(best: Evaluated): AssignedBand[] {
+  const { scan, branch, variant } = best.candidate;
+  return variant.observations
+    .map((o, i): AssignedBand => {
+      const id = scan.ids[best.levelIndices[i]!]!;
+      return {
+        observed: round(o.position), calculated: round(best.calculated[i]!), residual: round(best.calculated[i]! - o.position),
+        term: id.term, parent: id.parent, label: id.label, multiplicity: id.multiplicity,
+        spinAllowed: id.multiplicity === branch.multiplicity, bands: o.bands, flags: o.flags,
+        coincident: best.coincident[i] ?? [],
+      };
+    })
+    .sort((a, b) => a.observed - b.observed);
+}
+
+/** Transitions below the limit at the result; for a Dq-only solution only those that do not depend on B. */
+function predictedTransitions(best: Evaluated, settings: FitSettings, limit: number): PredictedTransition[] {
+  const { scan, branch } = best.candidate;
+  const promoted = promotedElectrons(scan, branch.ground);
+  let other: LevelsResult | undefined;
+  if (!best.bDetermined) other = computeLevels(settings.d, settings.geometry, { ...best.params, b: best.params.b * 1.2, c: best.params.c * 1.2 });
+  const otherEnergy = new Map(other?.levels.map((l) => [levelIdentityKey(l), l.energy]) ?? []);
+  const groundMultiplicity = best.levels.levels[0]!.multiplicity;
+  return best.levels.levels
+    .filter((l) => l.energy > 0 && l.energy <= limit)
+    .filter((l) => !other || Math.abs((otherEnergy.get(levelIdentityKey(l)) ?? Number.NaN) - l.energy) < 1e-6 * l.energy)
+    .map((l) => ({
+      energy: round(l.energy), term: l.term, label: l.label, parent: l.parent, multiplicity: l.multiplicity,
+      spinAllowed: l.multiplicity === groundMultiplicity,
+      twoElectron: Math.abs(promoted[scan.index.get(levelIdentityKey(l)) ?? 0] ?? 0) >= 2 && l.multiplicity === groundMultiplicity,
+    }));
+}
+
+function crossoverOf(best: Evaluated, settings: FitSettings): CrossoverInfo | null {
+  if (!best.bDetermined || !spinStateChoice(settings.d, settings.geometry)) return null;
+  const { dq, b, c } = best.params;
+  const at = crossoverAt(settings.d, settings.geometry, c / b);
+  if (at === undefined) return null;
+  const fitted = dq / b;
+  const percent = (100 * (fitted - at)) / at;
+  return {
+    dqOverB: round(at, 4), fittedDqOverB: round(fitted, 4), difference: round(fitted - at, 4), percent: round(percent, 2),
+    near: Math.abs(percent) < 100 * NEAR_CROSSOVER_FRACTION,
+  };
+}
+
+function statusOf(best: Evaluated): { status: FitStatus; message: string; evaluations: number } {
+  const m = best.candidate.variant.observations.length;
+  if (!best.bDetermined) {
+    return { status: 'exact', message: '10Dq from the one spin-allowed transition; B is not determinable from it', evaluations: 0 };
+  }
+  if (!best.lsq) {
+    return { status: 'not-converged', message: best.notes[0] ?? 'no refinement', evaluations: 0 };
+  }
+  const p = best.problem!.mode === 'free' ? 3 : 2;
+  const evaluations = best.lsq.evaluations;
+  if (!best.lsq.success) return { status: 'not-converged', message: `not converged: ${best.lsq.message} (${evaluations} evaluations)`, evaluations };
+  const how = `${best.lsq.message} after ${evaluations} evaluations`;
+  if (m === p) return { status: 'exact', message: `exact: ${m} bands determine the ${p} parameters; converged (${how})`, evaluations };
+  return { status: 'converged', message: `converged: ${how}`, evaluations };
+}
+
+function sameSolution(a: Evaluated, b: Evaluated): boolean {
+  if (a.calculated.length !== b.calculated.length || a.candidate.branch.ground !== b.candidate.branch.ground) return false;
+  return a.calculated.every((v, i) => Math.abs(v - b.calculated[i]!) < 1) && Math.abs(a.params.dq - b.params.dq) < 1e-3 * a.params.dq;
+}
+
+function reasonAgainst(alt: Evaluated, best: Evaluated): string {
+  const parts: string[] = [];
+  if (alt.levels.spinState !== best.levels.spinState) parts.push(`${alt.levels.spinState} ground level ${alt.levels.groundTerm}`);
+  if (alt.wrms > best.wrms + 1) parts.push(`rms ${Math.round(alt.wrms)} vs ${Math.round(best.wrms)} cm-1`);
+  const bestDetails = new Set(best.penalties.map((p) => p.detail));
+  for (const p of alt.penalties) if (!bestDetails.has(p.detail)) parts.push(`${p.detail} (+${Math.round(p.amount)})`);
+  const missing = best.penalties.filter((p) => !alt.penalties.some((q) => q.detail === p.detail));
+  if (missing.length) parts.push(`though the chosen one has: ${missing.map((p) => p.detail).join('; ')}`);
+  const verdict = alt.score - best.score < 1 ? 'equally good' : `score ${Math.round(alt.score)} vs ${Math.round(best.score)}`;
+  return `${verdict}${parts.length ? `: ${parts.join('; ')}` : ''}`;
+}
+
+function alternativeOf(alt: Evaluated, best: Evaluated, settings: FitSettings): Alternative {
+  const rows = assignmentRows(alt);
+  const b = alt.bDetermined ? alt.params.b : null;
+  return {
+    assignments: rows.map(({ observed, calculated, residual, term, label }) => ({ observed, calculated, residual, term, label })),
+    rmsResidual: round(alt.wrms), score: round(alt.score), penalties: alt.penalties,
+    dq: round(alt.params.dq, 2), tenDq: round(10 * alt.params.dq), b: b === null ? null : round(b),
+    c: b === null ? null : round(alt.params.c), beta: b !== null && settings.b0 ? round(b / settings.b0, 4) : null,
+    groundTerm: alt.levels.groundTerm, spinState: alt.levels.spinState, reason: reasonAgainst(alt, best),
+  };
+}
+
+export interface BuildInput {
+  settings: FitSettings;
+  sorted: SortedObservations;
+  best: Evaluated;
+  others: Evaluated[];
+  warnings: string[];
+  options: FitOptions;
+}
+
+export function buildFitResult({ settings, sorted, best, others, warnings, options }: BuildInput): FitResult {
+  const { predictedLimit = 50_000, maxAlternatives = 4 } = options;
+  const { variant, scan, branch } = best.candidate;
+  const notes = [...best.notes];
+  const levels = best.levels;
+  const unpaired = levels.unpairedElectrons;
+  const bFit = best.bDetermined ? best.params.b : null;
+  const cFit = best.bDetermined ? best.params.c : null;
+  const beta = bFit !== null && settings.b0 !== null ? bFit / settings.b0 : null;
+  const { uncertainty, correlation, basis } = fitUncertainty(best, sorted.weighted);
+  const status = statusOf(best);
+  const crossover = crossoverOf(best, settings);
+  if (status.status === 'not-converged') warnings.push(status.message);
+  if (crossover?.near) {
+    warnings.push(
+      `near spin crossover: Dq/B = ${crossover.fittedDqOverB.toFixed(2)} is ${Math.abs(crossover.percent).toFixed(1)}% ${crossover.percent >= 0 ? 'above' : 'below'} the crossover at ${crossover.dqOverB.toFixed(2)}`,
+    );
+  }
+  // Small penalties (expected-weak transitions skipped) are worth a note, large ones a warning.
+  for (const p of best.penalties) {
+    if (p.rule === 'jahn-teller-pair') continue;
+    (p.amount >= 300 ? warnings : notes).push(`${p.detail} (score +${Math.round(p.amount)})`);
+  }
+  if (!best.bDetermined) {
+    warnings.push(`B is not determinable: ${describeSingle(settings, branch.multiplicity)} has one spin-allowed transition, whose energy is 10Dq`);
+  }
+  if (variant.jahnTeller) {
+    notes.push(`${variant.jahnTeller.map((o) => Math.round(o.position)).join(' and ')} cm-1 are taken as Jahn–Teller components of one transition and averaged (10Dq from their mean)`);
+  }
+  if (bFit !== null) notes.push(`uncertainties from ${basis}`);
+  if (settings.mode === 'ratio' && bFit !== null) notes.push(settings.cOverBSource);
+  if (settings.b0 === null && settings.ion === null) notes.push('beta is null: no ion was given (only d), so no free-ion B0');
+  else if (settings.b0 === null) notes.push(`beta is null: no free-ion B0 is tabulated for ${settings.ion!.label}`);
+  if (settings.freeIonSource) notes.push(`free-ion B0, C0: ${settings.freeIonSource}`);
+  const unassigned = [
+    ...sorted.chargeTransfer.map((b) => ({ observed: round(b.position), band: b.index, reason: 'charge-transfer band: left out of the fit' })),
+    ...variant.dropped.map((o) => ({ observed: round(o.position), band: o.bands[0]!, reason: 'left unexplained by the chosen assignment' })),
+  ];
+  const alternatives = others
+    .filter((o) => !sameSolution(o, best))
+    .filter((o) => o.score <= alternativeMargin(best.score))
+    .slice(0, maxAlternatives)
+    .map((o) => alternativeOf(o, best, settings));
+  return {
+    d: settings.d, ion: settings.ion?.label ?? null, geometry: settings.geometry,
+    dq: round(best.params.dq, 2), tenDq: round(10 * best.params.dq), b: bFit === null ? null : round(bFit),
+    c: cFit === null ? null : round(cFit), cOverB: bFit === null ? null : round(cFit! / bFit, 3), cMode: settings.mode,
+    beta: beta === null ? null : round(beta, 4), freeIonB: settings.b0, freeIonC: settings.c0, freeIonSource: settings.freeIonSource,
+    groundTerm: levels.groundTerm, groundLabel: scan.ids[branch.ground]!.label, spinState: levels.spinState,
+    unpairedElectrons: unpaired, spinOnlyMoment: round(spinOnlyMoment(unpaired), 3),
+    lfse: (() => {
+      const l = ligandFieldStabilisation(settings.d, unpaired, settings.geometry, best.params.dq);
+      return { ...l, cm1: round(l.cm1) };
+    })(),
+    rmsResidual: round(best.wrms), status: status.status, message: status.message, evaluations: status.evaluations,
+    uncertainty: {
+      tenDq: nullableRound(uncertainty.tenDq), dq: nullableRound(uncertainty.dq, 2),
+      b: nullableRound(uncertainty.b), c: nullableRound(uncertainty.c),
+    },
+    correlation: {
+      bDq: nullableRound(correlation.bDq, 4), cDq: nullableRound(correlation.cDq, 4), cB: nullableRound(correlation.cB, 4),
+    },
+    score: round(best.score), penalties: best.penalties, assignments: assignmentRows(best), unassigned,
+    skipped: best.skipped.map((s) => ({ ...s, energy: round(s.energy) })), alternatives, crossover,
+    predicted: predictedTransitions(best, settings, predictedLimit), warnings, notes,
+  };
+}
+
+function nullableRound(v: number | null, digits = 1): number | null {
+  return v === null ? null : round(v, digits);
+}
+
+function describeSingle(settings: FitSettings, multiplicity: number): string {
+  const names = ['', 'singlet', 'doublet', 'triplet', 'quartet', 'quintet', 'sextet'];
+  return `d${settings.d} ${settings.geometry} with a ${names[multiplicity] ?? `${multiplicity}-fold`} ground level`;
+}

@@ -1,0 +1,151 @@
+/**
+ * The shapes of a band fit: what fitBands takes and the plain-JSON result it
+ * returns (it goes over HTTP and into a database). Energies in cm-1; level
+ * energies from the ground level; terms as the engine writes them ("4T1g").
+ */
+import type { Ion } from '../chemistry/ions.js';
+import type { Geometry, SpinState } from '../ligand-field/types.js';
+import type { BandFlag, BandInput } from './bands.js';
+import type { Lfse } from './lfse.js';
+
+export interface FitInput {
+  /** "Cr3+", "Cr(III)", or a parsed Ion. Gives d and, where tabulated, B0 and C0. */
+  ion?: string | Ion;
+  /** d-electron count 1–9, instead of (or agreeing with) the ion. */
+  d?: number;
+  /** Default "octahedral". */
+  geometry?: Geometry;
+  /** Band maxima in cm-1 (numbers or objects), or band-list text ("17400,24600"). */
+  bands: readonly (number | BandInput)[] | string;
+  /** Fixed C/B. Default: the free ion's C0/B0 where known, else 4.5. */
+  cOverB?: number;
+  /** Fixed Racah C in cm-1 (instead of a fixed ratio). */
+  c?: number;
+  /** Fit C as a third parameter (needs ≥ 3 d–d bands that depend on C). */
+  freeC?: boolean;
+}
+
+/** Tuning of the fit; every field has a documented default (see fit-bands.ts). */
+export interface FitOptions {
+  /** Transitions above this are left out of `predicted`. Default 50 000 cm-1. */
+  predictedLimit?: number;
+  /** At most this many alternatives are returned. Default 4. */
+  maxAlternatives?: number;
+}
+
+export type CMode = 'ratio' | 'fixed' | 'free';
+
+export type FitStatus = 'converged' | 'exact' | 'not-converged';
+
+export interface AssignedBand {
+  /** Observed maximum, cm-1 (for a Jahn–Teller pair: the mean of its components). */
+  observed: number;
+  calculated: number;
+  /** calculated − observed. */
+  residual: number;
+  term: string;
+  parent: string;
+  label: string;
+  multiplicity: number;
+  spinAllowed: boolean;
+  /** Index of the band (or bands, for an averaged pair) in the input list. */
+  bands: number[];
+  flags: BandFlag[];
+  /** Other transitions within the band (degenerate or nearly so), e.g. ["4Eg(G)"]. */
+  coincident: string[];
+}
+
+export interface Penalty {
+  rule: 'skipped-transition' | 'unexplained-band' | 'beta' | 'c-over-b' | 'jahn-teller-pair';
+  /** Added to the score, cm-1. */
+  amount: number;
+  detail: string;
+}
+
+export interface SkippedTransition {
+  energy: number;
+  term: string;
+  label: string;
+  reason: string;
+}
+
+export interface Alternative {
+  assignments: Array<Pick<AssignedBand, 'observed' | 'calculated' | 'residual' | 'term' | 'label'>>;
+  rmsResidual: number;
+  score: number;
+  penalties: Penalty[];
+  dq: number;
+  tenDq: number;
+  b: number | null;
+  c: number | null;
+  beta: number | null;
+  groundTerm: string;
+  spinState: SpinState;
+  /** Why the chosen assignment was preferred to this one. */
+  reason: string;
+}
+
+export interface PredictedTransition {
+  energy: number;
+  term: string;
+  label: string;
+  parent: string;
+  multiplicity: number;
+  spinAllowed: boolean;
+  /** Two or more electrons change strong-field orbital set: expected weak. */
+  twoElectron: boolean;
+}
+
+export interface CrossoverInfo {
+  /** Dq/B at which the ground-state spin changes, at the fitted C/B. */
+  dqOverB: number;
+  fittedDqOverB: number;
+  /** fitted − crossover. */
+  difference: number;
+  /** 100·difference/crossover. */
+  percent: number;
+  near: boolean;
+}
+
+export interface FitResult {
+  d: number;
+  ion: string | null;
+  geometry: Geometry;
+  dq: number;
+  tenDq: number;
+  b: number | null;
+  c: number | null;
+  cOverB: number | null;
+  cMode: CMode;
+  beta: number | null;
+  freeIonB: number | null;
+  freeIonC: number | null;
+  freeIonSource: string | null;
+  groundTerm: string;
+  groundLabel: string;
+  spinState: SpinState;
+  unpairedElectrons: number;
+  /** μB. */
+  spinOnlyMoment: number;
+  lfse: Lfse;
+  /** Root-mean-square of calculated − observed (weighted by 1/σ² when bands carry uncertainties), cm-1. */
+  rmsResidual: number;
+  status: FitStatus;
+  message: string;
+  evaluations: number;
+  /** Standard uncertainties, cm-1; null where the quantity is not fitted. */
+  uncertainty: { tenDq: number | null; dq: number | null; b: number | null; c: number | null };
+  /** Correlation coefficients of the fitted parameters. */
+  correlation: { bDq: number | null; cDq: number | null; cB: number | null };
+  score: number;
+  penalties: Penalty[];
+  assignments: AssignedBand[];
+  /** Bands not used: charge-transfer, or left unexplained by the chosen assignment. */
+  unassigned: Array<{ observed: number; band: number; reason: string }>;
+  skipped: SkippedTransition[];
+  alternatives: Alternative[];
+  crossover: CrossoverInfo | null;
+  predicted: PredictedTransition[];
+  warnings: string[];
+  notes: string[];
+}

@@ -1,0 +1,73 @@
+/**
+ * Uncertainties of Dq, B and C from the Jacobian of the refined fit.
+ *
+ * - Bands with uncertainties (weighted fit): cov = s·(JᵀJ)⁻¹ with J the
+ *   Jacobian of (calc − obs)/σ and s = max(1, χ²/(m − p)): the given σ are
+ *   trusted unless the fit misses the bands by more than they allow.
+ * - No uncertainties, m > p: cov = s²·(JᵀJ)⁻¹, s² = Σ(calc − obs)²/(m − p),
+ *   the residual variance.
+ * - No uncertainties, m = p (exactly determined): each band is given the
+ *   default σ = max(100 cm-1, 1% of its position) (observations.ts), and
+ *   cov = (J_σᵀJ_σ)⁻¹: the spread of the exact solution under that noise.
+ * With C/B fixed, σ(C) = (C/B)·σ(B); with C fixed it is null.
+ */
+import { covarianceCorrelation, jacobianCovariance } from './covariance.js';
+import type { Evaluated } from './evaluate.js';
+import type { FitResult } from './types.js';
+
+export interface FitUncertainty {
+  uncertainty: FitResult['uncertainty'];
+  correlation: FitResult['correlation'];
+  /** How the covariance was scaled, for the notes. */
+  basis: string;
+}
+
+const NONE: FitUncertainty = {
+  uncertainty: { tenDq: null, dq: null, b: null, c: null },
+  correlation: { bDq: null, cDq: null, cB: null },
+  basis: 'not available',
+};
+
+export function fitUncertainty(best: Evaluated, weighted: boolean): FitUncertainty {
+  const observations = best.candidate.variant.observations;
+  if (!best.bDetermined) {
+    // 10Dq = 10·E/slope with slope 10 for the single transition: σ(10Dq) = σ(E).
+    const sigma = observations[0]!.sigma * ((10 * best.params.dq) / observations[0]!.position);
+    return { ...NONE, uncertainty: { tenDq: sigma, dq: sigma / 10, b: null, c: null }, basis: 'the band position uncertainty' };
+  }
+  if (!best.lsq || !best.problem) return NONE;
+  const m = observations.length;
+  const p = best.problem.mode === 'free' ? 3 : 2;
+  const dof = m - p;
+  let jacobian = best.lsq.jacobian;
+  let scale: number;
+  let basis: string;
+  if (weighted) {
+    const chi2 = 2 * best.lsq.cost;
+    scale = dof > 0 ? Math.max(1, chi2 / dof) : 1;
+    basis = scale > 1 ? `the band uncertainties, scaled by χ²/(m − p) = ${scale.toFixed(2)}` : 'the band uncertainties';
+  } else if (dof > 0) {
+    scale = (2 * best.lsq.cost) / dof;
+    basis = `the residual variance (${dof} degree${dof === 1 ? '' : 's'} of freedom)`;
+  } else {
+    jacobian = Float64Array.from(jacobian, (v, index) => v / observations[Math.floor(index / p)]!.sigma);
+    scale = 1;
+    basis = 'the default band uncertainty max(100 cm-1, 1% of the position), the fit being exact';
+  }
+  const cov = jacobianCovariance(jacobian, m, p, { scale });
+  if (!cov) return { ...NONE, basis: 'singular: the bands do not determine every parameter' };
+  const corr = covarianceCorrelation(cov, p);
+  const sd = (j: number) => Math.sqrt(Math.max(cov[j * p + j]!, 0));
+  const ratio = best.params.c / best.params.b;
+  const sigmaC = p === 3 ? sd(2) : best.problem.mode === 'ratio' ? ratio * sd(1) : null;
+  const finite = (v: number) => (Number.isFinite(v) ? v : null);
+  return {
+    uncertainty: { tenDq: 10 * sd(0), dq: sd(0), b: sd(1), c: sigmaC },
+    correlation: {
+      bDq: finite(corr[1]!),
+      cDq: p === 3 ? finite(corr[2]!) : null,
+      cB: p === 3 ? finite(corr[5]!) : null,
+    },
+    basis,
+  };
+}
