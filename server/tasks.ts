@@ -5,7 +5,10 @@
  * class, so the outcome carries it as `{ code, message, path }` and
  * `rebuildError` makes it a FieldgapError again on the main side.
  */
+import { analyzeSpectrum, type AnalyzeOptions } from '../src/analysis.js';
 import { FieldgapError, isFieldgapError, type ErrorCode } from '../src/errors.js';
+import { fitBands, type FitInput } from '../src/fit/index.js';
+import { levelsJson } from '../src/cli/commands/levels.js';
 import { computeDiagram, computeLevels } from '../src/ligand-field/index.js';
 import type { Geometry } from '../src/ligand-field/types.js';
 import { TaskBugError } from './errors.js';
@@ -26,9 +29,17 @@ export interface DiagramTaskInput {
   steps: number;
 }
 
+export interface AnalyzeTaskInput {
+  /** The uploaded file's bytes (a Buffer arrives in a worker as a Uint8Array). */
+  content: Uint8Array | string;
+  options: AnalyzeOptions;
+}
+
 export type Task =
   | { kind: 'levels'; input: LevelsTaskInput }
-  | { kind: 'diagram'; input: DiagramTaskInput };
+  | { kind: 'diagram'; input: DiagramTaskInput }
+  | { kind: 'fit'; input: FitInput }
+  | { kind: 'analyze'; input: AnalyzeTaskInput };
 
 export type TaskKind = Task['kind'];
 
@@ -47,12 +58,17 @@ function runTask(task: Task): unknown {
   switch (task.kind) {
     case 'levels': {
       const { d, geometry, dq, b, c } = task.input;
-      return computeLevels(d, geometry, { dq, b, c });
+      // The document `fieldgap levels --json` prints: one shape for the CLI and the service.
+      return levelsJson(computeLevels(d, geometry, { dq, b, c }));
     }
     case 'diagram': {
       const { d, geometry, cOverB, maxDqOverB, steps } = task.input;
       return computeDiagram(d, geometry, { cOverB, maxDqOverB, steps });
     }
+    case 'fit':
+      return fitBands(task.input);
+    case 'analyze':
+      return analyzeSpectrum(task.input.content, task.input.options);
     default: {
       const kind = (task as { kind?: unknown }).kind;
       throw new FieldgapError('internal', `unknown task kind ${JSON.stringify(kind)}`);

@@ -3,15 +3,25 @@
  * pool, answer the core's JSON as it is (what `levels --json`, `diagram --json`
  * and `fit --json` print). Energies in cm-1.
  */
-import { Router } from 'express';
+import { Router, type Request } from 'express';
+import { FieldgapError } from '../../src/errors.js';
 import type { ComputePool } from '../pool.js';
-import { diagramQuery, levelsQuery } from '../schemas.js';
-import { parseTextFields } from '../validate.js';
+import { toFitInput } from '../fit-input.js';
+import { diagramQuery, fitBody, levelsQuery } from '../schemas.js';
+import { parseJsonBody, parseTextFields } from '../validate.js';
 
 export interface ComputeRouterDeps {
   pool: ComputePool;
   /** Per-task time limit in ms. */
   timeoutMs: number;
+}
+
+/** 415 unless the body is JSON (express.json leaves other bodies unread). */
+function requireJson(req: Request): void {
+  if (!req.is('application/json')) {
+    const given = req.headers['content-type'] ?? '(none)';
+    throw new FieldgapError('unsupported-format', `Content-Type: expected application/json, got ${given}`, 'Content-Type');
+  }
 }
 
 export function createComputeRouter({ pool, timeoutMs }: ComputeRouterDeps): Router {
@@ -26,6 +36,12 @@ export function createComputeRouter({ pool, timeoutMs }: ComputeRouterDeps): Rou
   router.get('/diagram', async (req, res) => {
     const input = parseTextFields(diagramQuery, req.query);
     res.json(await pool.run({ kind: 'diagram', input }, { timeoutMs }));
+  });
+
+  router.post('/fit', async (req, res) => {
+    requireJson(req);
+    const body = parseJsonBody(fitBody, req.body);
+    res.json(await pool.run({ kind: 'fit', input: toFitInput(body) }, { timeoutMs }));
   });
 
   return router;
