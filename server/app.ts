@@ -21,6 +21,7 @@ import { createLogger, requestLogger } from './logging.js';
 import { buildOpenApiDocument } from './openapi.js';
 import { defaultStaticDir, packageVersion } from './paths.js';
 import { createInProcessPool, createWorkerPool, type ComputePool } from './pool.js';
+import { analyzeInPool, createAnalyzeRouter } from './routes/analyze.js';
 import { createComputeRouter } from './routes/compute.js';
 import { createSeriesRouter } from './routes/series.js';
 import { resolveDataDir } from './storage/data-dir.js';
@@ -73,6 +74,7 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
   const {
     pool: poolOption = 'workers',
     requestTimeoutMs = 10_000,
+    maxBodyBytes = 10 * MIB,
     maxJsonBytes = MIB,
     logger = createLogger(),
     staticDir = defaultStaticDir(),
@@ -105,6 +107,8 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
     res.json(openapi);
   });
   api.use(createComputeRouter({ pool, timeoutMs: requestTimeoutMs }));
+  const analyze = analyzeInPool(pool, requestTimeoutMs);
+  api.use(createAnalyzeRouter({ analyze, maxBodyBytes }));
   app.use('/api/v1', api);
   // The results library: /api/v1/analyses (its records) and /api/v1/series, /api/v1/predict.
   app.use('/api/v1', createSeriesRouter({ library }));

@@ -93,6 +93,7 @@ export const fitBody = z
 export type FitBody = z.infer<typeof fitBody>;
 
 export const X_UNITS = ['nm', 'cm-1', 'eV', 'um'] as const;
+export const Y_UNITS = ['absorbance', 'transmittance', 'transmittance-percent', 'epsilon'] as const;
 
 /** Fields of POST /analyze, as query parameters or multipart form fields. */
 export const analyzeFields = z.strictObject({
@@ -102,13 +103,17 @@ export const analyzeFields = z.strictObject({
   conc: positive('Concentration in mol/L (for molar absorption coefficients).').optional(),
   path: positive('Path length in cm (default 1).').optional(),
   xUnit: z.enum(X_UNITS).optional().meta({ description: 'Unit of the x column when the file does not say.' }),
+  yUnit: z.enum(Y_UNITS).optional().meta({ description: 'Unit of the y column when the file does not say.' }),
   column: z
-    .union([z.number().int().min(0), z.string().trim().min(1).max(80)])
+    .union([z.number().int().min(1), z.string().trim().min(1).max(80)])
     .optional()
-    .meta({ description: 'Which y column to use: its number or its header.' }),
+    .meta({ description: 'Which y column to use: its 1-based number or its header.' }),
   cOverB: positive('Fixed C/B ratio for the fit.').max(20).optional(),
   c: positive('Fixed Racah C in cm-1.').max(LIMITS.maxEnergy).optional(),
   freeC: z.boolean().optional().meta({ description: 'Fit C as a free parameter.' }),
+  curves: z.boolean().optional().meta({
+    description: 'Also return the curves on the energy grid (signal, baseline, model, components) for plotting.',
+  }),
   fileName: z.string().trim().min(1).max(200).optional().meta({
     description: 'Name used in error positions (file:line:column) for a raw-body upload.',
   }),

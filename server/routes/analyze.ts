@@ -1,0 +1,56 @@
+/**
+ * POST /analyze: a spectrum (multipart field "spectrum" or a raw body) with
+ * its options as query parameters or form fields; answers the
+ * analyzeSpectrum result, exactly what `fieldgap analyze --json` prints.
+ */
+import { Router } from 'express';
+import type { AnalyzeOptions, AnalyzeResult } from '../../src/analysis.js';
+import type { ComputePool } from '../pool.js';
+import { analyzeFields, type AnalyzeFields } from '../schemas.js';
+import { spectrumUpload, type UploadedSpectrum } from '../upload.js';
+import { parseTextFields } from '../validate.js';
+
+export interface AnalyzeRouterDeps {
+  analyze: AnalyzeFunction;
+  /** Upload size limit in bytes. */
+  maxBodyBytes: number;
+}
+
+/** The pipeline as the routes (and the results library) call it: off the event loop, with a time limit. */
+export type AnalyzeFunction = (content: Buffer, options: AnalyzeOptions) => Promise<AnalyzeResult>;
+
+/** The service's names (conc, path) → the pipeline's options; absent fields stay absent. */
+export function toAnalyzeOptions(fields: AnalyzeFields, fileName: string | undefined): AnalyzeOptions {
+  const options: AnalyzeOptions = {};
+  const name = fields.fileName ?? fileName;
+  if (name !== undefined) options.fileName = name;
+  if (fields.ion !== undefined) options.ion = fields.ion;
+  if (fields.d !== undefined) options.d = fields.d;
+  if (fields.geometry !== undefined) options.geometry = fields.geometry;
+  if (fields.conc !== undefined) options.concentration = fields.conc;
+  if (fields.path !== undefined) options.pathLength = fields.path;
+  if (fields.xUnit !== undefined) options.xUnit = fields.xUnit;
+  if (fields.yUnit !== undefined) options.yUnit = fields.yUnit;
+  if (fields.column !== undefined) options.column = fields.column;
+  if (fields.cOverB !== undefined) options.cOverB = fields.cOverB;
+  if (fields.c !== undefined) options.c = fields.c;
+  if (fields.freeC !== undefined) options.freeC = fields.freeC;
+  if (fields.curves !== undefined) options.curves = fields.curves;
+  return options;
+}
+
+/** analyzeSpectrum in the pool. */
+export function analyzeInPool(pool: ComputePool, timeoutMs: number): AnalyzeFunction {
+  return async (content, options) =>
+    (await pool.run({ kind: 'analyze', input: { content, options } }, { timeoutMs })) as AnalyzeResult;
+}
+
+export function createAnalyzeRouter({ analyze, maxBodyBytes }: AnalyzeRouterDeps): Router {
+  const router = Router();
+  router.post('/analyze', spectrumUpload(maxBodyBytes), async (_req, res) => {
+    const upload = res.locals['spectrum'] as UploadedSpectrum;
+    const fields = parseTextFields(analyzeFields, upload.fields);
+    res.json(await analyze(upload.content, toAnalyzeOptions(fields, upload.fileName)));
+  });
+  return router;
+}
