@@ -2,10 +2,12 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { readFileSync } from 'node:fs';
+import { levelsJson } from '../../src/cli/commands/levels.js';
 import { computeDiagram, computeLevels } from '../../src/ligand-field/index.js';
 import { FieldgapError } from '../../src/errors.js';
 import type { ComputePool } from '../../server/pool.js';
-import { diagramResponse, errorResponse, healthResponse, levelsResponse } from '../../server/responses.js';
+import { fitBands } from '../../src/fit/index.js';
+import { diagramResponse, errorResponse, fitResponse, healthResponse, levelsResponse } from '../../server/responses.js';
 import { fitBody } from '../../server/schemas.js';
 import { makeTestApp, type TestApp } from './helpers.js';
 
@@ -54,7 +56,7 @@ describe('GET /api/v1/openapi.json', () => {
       paths: Record<string, Record<string, { parameters?: { name: string; required: boolean }[]; requestBody?: { content: Record<string, { schema: unknown }> } }>>;
     };
     expect(doc.openapi).toBe('3.1.0');
-    for (const path of ['/api/v1/health', '/api/v1/levels', '/api/v1/diagram', '/api/v1/fit', '/api/v1/analyze']) {
+    for (const path of ['/api/v1/health', '/api/v1/levels', '/api/v1/diagram', '/api/v1/fit', '/api/v1/analyze', '/api/v1/series', '/api/v1/predict']) {
       expect(Object.keys(doc.paths)).toContain(path);
     }
     const levels = doc.paths['/api/v1/levels']!['get']!.parameters!;
@@ -64,6 +66,16 @@ describe('GET /api/v1/openapi.json', () => {
     // The same schema that validates the fit body, not a copy.
     const { $schema: _dialect, ...fitSchema } = z.toJSONSchema(fitBody, { io: 'input' });
     expect(doc.paths['/api/v1/fit']!['post']!.requestBody!.content['application/json']!.schema).toEqual(fitSchema);
+    // Every $ref points at a schema that is there; every operation has an id and a 200.
+    const refs = JSON.stringify(doc).match(/"\$ref":"[^"]+"/g) ?? [];
+    const schemas = (res.body as { components: { schemas: Record<string, unknown> } }).components.schemas;
+    for (const ref of refs) expect(Object.keys(schemas)).toContain(ref.replace(/^.*\/schemas\//, '').replace(/"$/, ''));
+    for (const item of Object.values(doc.paths)) {
+      for (const op of Object.values(item) as { operationId?: string; responses?: Record<string, unknown> }[]) {
+        expect(op.operationId).toBeTruthy();
+        expect(Object.keys(op.responses ?? {})).toContain('200');
+      }
+    }
     const analyze = doc.paths['/api/v1/analyze']!['post']!;
     expect(Object.keys(analyze.requestBody!.content)).toEqual(
       expect.arrayContaining(['multipart/form-data', 'text/csv', 'chemical/x-jcamp-dx']),
@@ -72,14 +84,14 @@ describe('GET /api/v1/openapi.json', () => {
 });
 
 describe('GET /api/v1/levels', () => {
-  it('answers what the engine computes, for the same parameters', async () => {
+  it('answers what `levels --json` prints for the same parameters', async () => {
     const res = await request(t.app).get('/api/v1/levels').query({ d: 3, geometry: 'octahedral', dq: 1740, b: 720, c: 2900 }).expect(200);
-    expect(res.body).toEqual(JSON.parse(JSON.stringify(computeLevels(3, 'octahedral', { dq: 1740, b: 720, c: 2900 }))));
+    expect(res.body).toEqual(JSON.parse(JSON.stringify(levelsJson(computeLevels(3, 'octahedral', { dq: 1740, b: 720, c: 2900 })))));
     levelsResponse.parse(res.body);
   });
   it('takes C as cOverB·B when cOverB is given instead of c, as the CLI does', async () => {
     const res = await request(t.app).get('/api/v1/levels?d=8&geometry=tetrahedral&dq=400&b=800&cOverB=4.5').expect(200);
-    expect(res.body).toEqual(JSON.parse(JSON.stringify(computeLevels(8, 'tetrahedral', { dq: 400, b: 800, c: 3600 }))));
+    expect(res.body).toEqual(JSON.parse(JSON.stringify(levelsJson(computeLevels(8, 'tetrahedral', { dq: 400, b: 800, c: 3600 })))));
     const neither = await request(t.app).get('/api/v1/levels?d=8&dq=400&b=800').expect(400);
     expect(neither.body.error.path).toBe('c');
   });
@@ -103,6 +115,55 @@ describe('GET /api/v1/diagram', () => {
   it('refuses more steps than the documented limit, naming the field', async () => {
     const res = await request(t.app).get('/api/v1/diagram?d=6&steps=1000000').expect(400);
     expect(res.body.error.path).toBe('steps');
+  });
+});
+
+describe('POST /api/v1/fit', () => {
+  const json = (value: unknown) => JSON.parse(JSON.stringify(value)) as unknown;
+
+  it('answers what fitBands computes for the same input', async () => {
+    const body = { ion: 'Cr3+', geometry: 'octahedral', bands: [17400, { position: 24500, uncertainty: 300 }] } as const;
+    const res = await request(t.app).post('/api/v1/fit').send(body).expect(200);
+    expect(res.body).toEqual(
+      json(fitBands({ ion: 'Cr3+', geometry: 'octahedral', bands: [17400, { position: 24500, uncertainty: 300 }] })),
+    );
+    fitResponse.parse(res.body);
+  });
+  it('passes flags and the C options through', async () => {
+    const body = { d: 8, bands: [8500, { position: 13800, flags: ['shoulder'] }, 25300, { position: 40000, flags: ['ct'] }], cOverB: 4.2 };
+    const res = await request(t.app).post('/api/v1/fit').send(body).expect(200);
+    expect(res.body).toEqual(
+      json(fitBands({ d: 8, bands: [8500, { position: 13800, flags: ['shoulder'] }, 25300, { position: 40000, flags: ['ct'] }], cOverB: 4.2 })),
+    );
+  });
+  it('answers 422 when no model explains the bands', async () => {
+    const res = await request(t.app).post('/api/v1/fit').send({ d: 1, bands: [20000, 40000, 60000] }).expect(422);
+    expect(errorResponse.parse(res.body).error.code).toBe('unexplained');
+  });
+  it('answers 400 naming the field, for the schema and for the core', async () => {
+    const schema = await request(t.app).post('/api/v1/fit').send({ d: 3, bands: [17400, { position: 'x' }] }).expect(400);
+    expect(schema.body.error).toMatchObject({ code: 'invalid-argument', path: 'bands[1].position' });
+    const unknown = await request(t.app).post('/api/v1/fit').send({ d: 3, bands: [17400], colour: 'green' }).expect(400);
+    expect(unknown.body.error.path).toBe('colour');
+    const core = await request(t.app).post('/api/v1/fit').send({ ion: 'Xx9+', bands: [17400] }).expect(400);
+    expect(core.body.error.path).toBe('ion');
+  });
+  it('answers 400 for a body that is not JSON, and 415 for another content type', async () => {
+    const broken = await request(t.app).post('/api/v1/fit').set('content-type', 'application/json').send('{"d": 3,').expect(400);
+    expect(broken.body.error).toMatchObject({ code: 'parse-error', path: 'body' });
+    const text = await request(t.app).post('/api/v1/fit').set('content-type', 'text/plain').send('d=3').expect(415);
+    expect(text.body.error).toMatchObject({ code: 'unsupported-format', path: 'Content-Type' });
+  });
+  it('answers 413 for a JSON body over the limit', async () => {
+    const small = makeTestApp({ maxJsonBytes: 2000 });
+    try {
+      const bands = Array.from({ length: 400 }, (_, i) => 10000 + i);
+      const res = await request(small.app).post('/api/v1/fit').send({ d: 3, bands }).expect(413);
+      expect(res.body.error).toMatchObject({ code: 'too-large', path: 'body' });
+      expect(res.body.error.message).toContain('2000 bytes');
+    } finally {
+      await small.dispose();
+    }
   });
 });
 
@@ -179,5 +240,17 @@ describe('the web page', () => {
       await s.dispose();
       rmSync(root, { recursive: true, force: true });
     }
+  });
+});
+
+describe('the results library', () => {
+  it('mounts the series routes of the library in the data folder', async () => {
+    // An empty library has nothing to rank: the library's own 404, not the app's "no such endpoint".
+    const res = await request(t.app).get('/api/v1/series').query({ ion: 'Cr3+' }).expect(404);
+    expect(res.body.error).toMatchObject({ code: 'not-found', path: 'ion' });
+    const bad = await request(t.app).get('/api/v1/series').expect(400);
+    expect(bad.body.error.path).toBe('ion');
+    const predict = await request(t.app).post('/api/v1/predict').send({ formula: '[Cr(H2O)6]3+' }).expect(200);
+    expect(typeof predict.body).toBe('object');
   });
 });

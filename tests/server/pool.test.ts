@@ -3,8 +3,11 @@
  * cross the thread boundary intact, the time limit, the busy answer, and a
  * health check that keeps answering while heavy work runs.
  */
+import { readFileSync } from 'node:fs';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { analyzeSpectrum } from '../../src/analysis.js';
+import { levelsJson } from '../../src/cli/commands/levels.js';
 import { computeLevels } from '../../src/ligand-field/index.js';
 import { FieldgapError } from '../../src/errors.js';
 import { ServiceBusyError, TaskBugError } from '../../server/errors.js';
@@ -37,7 +40,15 @@ describe('worker pool', () => {
   it('computes in a worker exactly what the engine computes here', async () => {
     const input = { d: 4, geometry: 'octahedral' as const, dq: 2100, b: 800, c: 3400 };
     const result = await pool.run({ kind: 'levels', input });
-    expect(result).toEqual(JSON.parse(JSON.stringify(computeLevels(4, 'octahedral', { dq: 2100, b: 800, c: 3400 }))));
+    expect(result).toEqual(JSON.parse(JSON.stringify(levelsJson(computeLevels(4, 'octahedral', { dq: 2100, b: 800, c: 3400 })))));
+  });
+
+  it('analyses an uploaded Buffer in a worker exactly as analyzeSpectrum does here', async () => {
+    // The invented demo spectrum of spectra-demo/, as input only.
+    const content = readFileSync(new URL('../../spectra-demo/cr-aqua.csv', import.meta.url));
+    const options = { ion: 'Cr3+', concentration: 0.05, fileName: 'cr-aqua.csv' };
+    const result = await pool.run({ kind: 'analyze', input: { content, options } });
+    expect(result).toEqual(JSON.parse(JSON.stringify(analyzeSpectrum(content, options))));
   });
 
   it('rebuilds a FieldgapError from the worker with its code, message and path', async () => {
