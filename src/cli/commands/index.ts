@@ -1,4 +1,5 @@
 import type { Command } from '../command.js';
+import { analyzeCommand } from './analyze.js';
 import { levelsCommand } from './levels.js';
 import { diagramCommand } from './diagram.js';
 import { serveCommand } from './serve.js';
@@ -9,6 +10,7 @@ import { predictCommand } from './predict.js';
  * is one file under commands/ and one line here.
  */
 export const commands: Command[] = [
+  analyzeCommand,
   levelsCommand,
   diagramCommand,
   serveCommand,

@@ -1,0 +1,43 @@
+import type { AnalyzeResult } from '../../analysis.js';
+
+/** The readable report of one analysed spectrum: what was measured, the bands, the fit. */
+export function formatAnalysisReport(label: string, result: AnalyzeResult): string {
+  const { spectrum, bands, fit } = result;
+  const eps = spectrum.signalUnit === 'epsilon' || bands.some((b) => b.epsilon !== null);
+  const lines: string[] = [];
+  lines.push(`${label}: ${spectrum.name} (${spectrum.format}, ${spectrum.points} points, ${Math.round(spectrum.range[0])}–${Math.round(spectrum.range[1])} cm-1, ${(1e7 / spectrum.range[1]).toFixed(0)}–${(1e7 / spectrum.range[0]).toFixed(0)} nm)`);
+  for (const m of spectrum.masked) lines.push(`  masked ${Math.round(m.from)}–${Math.round(m.to)} cm-1: ${m.reason}`);
+  lines.push('', 'Bands');
+  const head = ['position / cm-1', 'nm', eps ? 'epsilon / L mol-1 cm-1' : 'height / A', 'FWHM / cm-1', eps ? 'f' : '', 'kind', 'assigned to'];
+  const rows = bands.map((b, i) => {
+    const assigned = fit.assignments.find((a) => a.bands.includes(i));
+    return [
+      `${Math.round(b.position)} ± ${Math.max(1, Math.round(b.positionUncertainty))}`,
+      b.wavelength.toFixed(1),
+      eps && b.epsilon !== null ? b.epsilon.toPrecision(3) : b.height.toPrecision(3),
+      Math.round(b.fwhm).toString(),
+      eps && b.oscillatorStrength !== null ? b.oscillatorStrength.toExponential(2) : '',
+      `${b.kind}${b.shoulder ? ' (shoulder)' : ''}`,
+      assigned ? `${fit.groundLabel} → ${assigned.label}` : b.kind === 'charge-transfer' ? '(not fitted)' : '(unexplained)',
+    ];
+  });
+  lines.push(...table([head, ...rows]));
+  lines.push('', 'Ligand field');
+  const pm = (v: number | null, u: number | null | undefined, unit: string, digits = 0) =>
+    v === null ? 'not determined' : `${v.toFixed(digits)}${u ? ` ± ${u.toFixed(digits)}` : ''} ${unit}`.trimEnd();
+  lines.push(`  10Dq        ${pm(fit.tenDq, fit.uncertainty.tenDq, 'cm-1')}`);
+  lines.push(`  B           ${pm(fit.b, fit.uncertainty.b, 'cm-1')}`);
+  lines.push(`  C           ${pm(fit.c, fit.uncertainty.c, 'cm-1')}${fit.cMode === 'free' ? '' : ` (${fit.cMode === 'ratio' ? `C/B fixed at ${fit.cOverB?.toFixed(2)}` : 'fixed'})`}`);
+  lines.push(`  beta        ${fit.beta === null ? 'not determined' : `${fit.beta.toFixed(3)} (B0 = ${fit.freeIonB} cm-1)`}`);
+  lines.push(`  ground      ${fit.groundLabel}, ${fit.spinState}, ${fit.unpairedElectrons} unpaired, spin-only ${fit.spinOnlyMoment.toFixed(2)} μB`);
+  lines.push(`  rms         ${fit.rmsResidual.toFixed(0)} cm-1 (${fit.status}: ${fit.message})`);
+  const warnings = result.warnings;
+  if (warnings.length > 0) lines.push('', 'Warnings', ...warnings.map((w) => `  - ${w}`));
+  lines.push('', 'Results are model estimates: check the assignment against the spectrum.');
+  return `${lines.join('\n')}\n`;
+}
+
+function table(rows: string[][]): string[] {
+  const widths = rows[0]!.map((_, i) => Math.max(...rows.map((r) => (r[i] ?? '').length)));
+  return rows.map((r) => `  ${r.map((c, i) => c.padEnd(widths[i]!)).join('  ').trimEnd()}`);
+}

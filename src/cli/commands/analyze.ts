@@ -1,0 +1,213 @@
+import { writeFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import Papa from 'papaparse';
+import { analyzeSpectrum, listSpectra, type AnalyzeOptions, type AnalyzeResult } from '../../analysis.js';
+import { FieldgapError, isFieldgapError } from '../../errors.js';
+import { GEOMETRIES } from '../../ligand-field/types.js';
+import { X_UNITS } from '../../spectrum/index.js';
+import type { Command, CliIo } from '../command.js';
+import { expandInputPaths, readInputFile } from '../files.js';
+import { splitJsonOption } from '../json-flag.js';
+import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
+import { createProgress } from '../progress.js';
+import { formatAnalysisReport } from './analyze-report.js';
+
+const USAGE = `Usage: fieldgap analyze FILES-or-FOLDERS... (--ion ION | --d N) [options]
+
+Finds the bands of each UV-vis-NIR spectrum, separates d-d from charge-transfer
+bands, and fits 10Dq, Racah B and C to the d-d bands.
+
+  --ion ION           metal ion: Cr3+, Cr(III), Co2+ ...
+  --d N               d-electron count 1-9 (instead of --ion; then no beta)
+  --geometry G        octahedral (default) or tetrahedral
+  --conc M            concentration, mol/L (bands get epsilon, L mol-1 cm-1)
+  --path CM           path length, cm (default 1)
+  --x-unit U          x unit when the file does not say: nm, cm-1, eV, um
+  --column N|NAME     which y column of a multi-column file (default: the first;
+                      in a batch run, every column)
+  --c-over-b R        fix C/B (default: the free ion's C0/B0, else 4.5)
+  --c C               fix Racah C, cm-1
+  --free-c            fit C as well (needs three d-d bands)
+  --json              print the full result as JSON (one file), or all results
+  --json FILE.json    write all results to FILE.json (batch)
+  --csv FILE          write the one-row-per-spectrum summary to FILE (batch)
+
+A folder contributes every spectrum file inside it (.csv .txt .tsv .dat .asc
+.prn .jdx .dx .jcamp). Files are read, never changed. Exit code: 0 all went
+well; 1 some spectra in a batch failed (their rows say why); 2 bad input.`;
+
+const OPTIONS = {
+  ion: { type: 'string' },
+  d: { type: 'string' },
+  geometry: { type: 'string' },
+  conc: { type: 'string' },
+  path: { type: 'string' },
+  'x-unit': { type: 'string' },
+  column: { type: 'string' },
+  'c-over-b': { type: 'string' },
+  c: { type: 'string' },
+  'free-c': { type: 'boolean' },
+  csv: { type: 'string' },
+  curves: { type: 'boolean' },
+} as const;
+
+/** One spectrum of a batch: a file, or one column of a multi-column file. */
+interface Item {
+  file: string;
+  column: number | string | undefined;
+  label: string;
+}
+
+interface Outcome {
+  item: Item;
+  result?: AnalyzeResult;
+  error?: { code: string; message: string; path: string };
+}
+
+export const analyzeCommand: Command = {
+  name: 'analyze',
+  summary: 'find, deconvolve and assign the bands of spectrum files; fit 10Dq, B, C',
+  usage: USAGE,
+  async run(argv, io) {
+    const json = splitJsonOption(argv);
+    const { values, positionals } = parseCommandArgs(json.argv, OPTIONS, true);
+    if (positionals.length === 0) throw new FieldgapError('invalid-argument', 'give at least one spectrum file or folder', 'FILES');
+    const options = analysisOptions(values);
+    const files = expandInputPaths(positionals, io.cwd);
+    const items = files.flatMap((file) => itemsOf(file, options, io, files.length > 1 || values.column === undefined));
+
+    if (items.length === 1 && values.csv === undefined && json.jsonFile === undefined) {
+      const item = items[0]!;
+      const result = analyzeItem(item, options, io, true);
+      io.stdout(json.jsonFlag ? `${JSON.stringify(result.result, null, 2)}\n` : formatAnalysisReport(item.label, result.result!));
+      return 0;
+    }
+
+    const progress = createProgress(items.length, io.isTty, io.stderr);
+    const outcomes: Outcome[] = [];
+    for (const item of items) {
+      progress.tick(item.label);
+      outcomes.push(analyzeItem(item, options, io, false));
+    }
+    progress.done();
+
+    const rows = outcomes.map(summaryRow);
+    if (values.csv !== undefined) {
+      writeFileSync(resolve(io.cwd, values.csv), `${Papa.unparse(rows)}\n`);
+    }
+    if (json.jsonFile !== undefined) {
+      writeFileSync(resolve(io.cwd, json.jsonFile), `${JSON.stringify({ results: outcomes.map(outcomeJson) }, null, 2)}\n`);
+    }
+    if (json.jsonFlag) io.stdout(`${JSON.stringify({ results: outcomes.map(outcomeJson) }, null, 2)}\n`);
+    else io.stdout(summaryTable(rows));
+    const failed = outcomes.filter((o) => o.error).length;
+    if (!json.jsonFlag) {
+      const wrote = [values.csv, json.jsonFile].filter((f) => f !== undefined).map((f) => ` Wrote ${f}.`).join('');
+      io.stdout(`\n${outcomes.length - failed} of ${outcomes.length} spectra analysed${failed ? `, ${failed} failed` : ''}.${wrote}\n`);
+    }
+    return failed > 0 ? 1 : 0;
+  },
+};
+
+function analysisOptions(values: Record<string, string | boolean | undefined>): AnalyzeOptions {
+  const str = (k: string) => values[k] as string | undefined;
+  const options: AnalyzeOptions = { geometry: choiceOption('geometry', str('geometry'), GEOMETRIES, 'octahedral') };
+  if (str('ion') !== undefined) options.ion = str('ion')!;
+  const d = numberOption('d', str('d'), { min: 0, max: 10, integer: true });
+  if (d !== undefined) options.d = d;
+  if (options.ion === undefined && options.d === undefined) {
+    throw new FieldgapError('invalid-argument', '--ion is required (or --d N): the metal ion, e.g. --ion Cr3+', '--ion');
+  }
+  const conc = numberOption('conc', str('conc'), { min: Number.MIN_VALUE });
+  if (conc !== undefined) options.concentration = conc;
+  const path = numberOption('path', str('path'), { min: Number.MIN_VALUE });
+  if (path !== undefined) options.pathLength = path;
+  if (str('x-unit') !== undefined) options.xUnit = choiceOption('x-unit', str('x-unit')!.replace('µ', 'u'), X_UNITS, 'nm');
+  const column = str('column');
+  if (column !== undefined) options.column = /^\d+$/.test(column.trim()) ? Number(column) : column;
+  const cOverB = numberOption('c-over-b', str('c-over-b'), { min: Number.MIN_VALUE });
+  if (cOverB !== undefined) options.cOverB = cOverB;
+  const c = numberOption('c', str('c'), { min: Number.MIN_VALUE });
+  if (c !== undefined) options.c = c;
+  if (values['free-c']) options.freeC = true;
+  if ([cOverB, c, values['free-c'] || undefined].filter((v) => v !== undefined).length > 1) {
+    throw new FieldgapError('invalid-argument', 'give at most one of --c-over-b, --c and --free-c', '--c-over-b');
+  }
+  if (values['curves']) options.curves = true;
+  return options;
+}
+
+/**
+ * A file is one item; in a batch with no --column, a multi-column file is one
+ * item per column. A file that cannot even be listed stays one item, so its
+ * error shows in its row.
+ */
+function itemsOf(file: string, options: AnalyzeOptions, io: CliIo, expandColumns: boolean): Item[] {
+  if (options.column !== undefined || !expandColumns) return [{ file, column: options.column, label: file }];
+  try {
+    const spectra = listSpectra(readInputFile(file, io.cwd), { fileName: file, ...(options.xUnit && { xUnit: options.xUnit }) });
+    if (spectra.length <= 1) return [{ file, column: undefined, label: file }];
+    return spectra.map((s) => ({ file, column: s.column, label: `${file}#${s.column} (${s.name})` }));
+  } catch {
+    return [{ file, column: undefined, label: file }];
+  }
+}
+
+/** Analyses one item; a single-item run lets its error through (exit 2), a batch keeps it in the row. */
+function analyzeItem(item: Item, options: AnalyzeOptions, io: CliIo, single: boolean): Outcome {
+  try {
+    const content = readInputFile(item.file, io.cwd);
+    const result = analyzeSpectrum(content, { ...options, fileName: item.file, ...(item.column !== undefined && { column: item.column }) });
+    return { item, result };
+  } catch (error) {
+    if (single) {
+      if (isFieldgapError(error) && !error.path.startsWith(item.file)) {
+        throw new FieldgapError(error.code, `${error.path ? `${error.path}: ` : ''}${error.message}`, item.file);
+      }
+      throw error;
+    }
+    const e = isFieldgapError(error) ? error : new FieldgapError('internal', error instanceof Error ? error.message : String(error));
+    return { item, error: { code: e.code, message: e.message, path: e.path } };
+  }
+}
+
+interface SummaryRow {
+  file: string;
+  ion: string;
+  tenDq: string;
+  b: string;
+  beta: string;
+  spinState: string;
+  rms: string;
+  warnings: string;
+}
+
+function summaryRow({ item, result, error }: Outcome): SummaryRow {
+  if (!result) {
+    return { file: item.label, ion: '', tenDq: '', b: '', beta: '', spinState: '', rms: '', warnings: `FAILED: ${error!.path ? `${error!.path}: ` : ''}${error!.message}` };
+  }
+  const f = result.fit;
+  const pm = (v: number | null, u: number | null | undefined, digits = 0) => (v === null ? '' : u ? `${v.toFixed(digits)} ± ${u.toFixed(digits)}` : v.toFixed(digits));
+  return {
+    file: item.label,
+    ion: f.ion ?? `d${f.d}`,
+    tenDq: pm(f.tenDq, f.uncertainty.tenDq),
+    b: pm(f.b, f.uncertainty.b),
+    beta: f.beta === null ? '' : f.beta.toFixed(2),
+    spinState: f.spinState,
+    rms: f.rmsResidual.toFixed(0),
+    warnings: result.warnings.join('; '),
+  };
+}
+
+function outcomeJson({ item, result, error }: Outcome) {
+  return { file: item.file, ...(item.column !== undefined && { column: item.column }), ...(result ?? {}), ...(error && { error }) };
+}
+
+function summaryTable(rows: SummaryRow[]): string {
+  const head: SummaryRow = { file: 'file', ion: 'ion', tenDq: '10Dq / cm-1', b: 'B / cm-1', beta: 'beta', spinState: 'spin state', rms: 'rms / cm-1', warnings: 'warnings' };
+  const keys = Object.keys(head) as (keyof SummaryRow)[];
+  const all = [head, ...rows].map((r) => ({ ...r, warnings: r.warnings.length > 70 ? `${r.warnings.slice(0, 69)}…` : r.warnings }));
+  const widths = keys.map((k) => Math.max(...all.map((r) => r[k].length)));
+  return `${all.map((r) => keys.map((k, i) => r[k].padEnd(widths[i]!)).join('  ').trimEnd()).join('\n')}\n`;
+}
