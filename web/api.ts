@@ -3,7 +3,7 @@
  * the service's { code, message, path } so the page can show where the
  * problem is; a network failure or a non-JSON answer gets code 'network'.
  */
-import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult, LibraryPage, LibraryRecord } from './types.js';
+import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult, LibraryPage, LibraryRecord, SeriesReport } from './types.js';
 import type { FitRequest, SampleDetails } from './state.js';
 
 export class ApiError extends Error {
@@ -66,6 +66,8 @@ export function analyzeQuery(details: SampleDetails): URLSearchParams {
   if (details.column.trim() !== '') query.set('column', details.column.trim());
   if (details.cOverB !== null) query.set('cOverB', String(details.cOverB));
   if (details.freeC) query.set('freeC', 'true');
+  // The page plots the spectrum, so it always asks for the curves.
+  query.set('curves', 'true');
   return query;
 }
 
@@ -156,4 +158,8 @@ export async function deleteAnalysis(id: number): Promise<void> {
     throw new ApiError({ code: 'network', message: `Could not reach the fieldgap service to delete record ${id}.`, path: '' });
   }
   if (!response.ok) await readJson<unknown>(response, `deleting record ${id}`);
+}
+
+export function series(ion: string): Promise<SeriesReport> {
+  return send<SeriesReport>(`${BASE}/series?${new URLSearchParams({ ion }).toString()}`, { method: 'GET' }, `the ${ion} series`);
 }

@@ -19,6 +19,7 @@ import { diagramFigure, spectrumFigures } from './views/plots.js';
 import { renderCompare } from './views/compare.js';
 import { setupTabs } from './views/tabs.js';
 import { renderLibrary, saveControls, type LibraryContext } from './views/library.js';
+import { seriesPanel } from './views/series.js';
 
 interface PageState {
   entries: AnalysisEntry[];
@@ -189,7 +190,7 @@ function render(): void {
   keepingFocus(() => {
     upload?.renderEntries(state.entries, state.currentKey);
     if (state.tab === 'analyse') renderMain(byId('main'));
-    if (state.tab === 'library') renderLibrary(byId('view-library'), libraryContext);
+    if (state.tab === 'library') renderLibrary(byId('view-library'), libraryContext, seriesPanel);
     if (state.tab === 'compare') renderCompare(byId('view-compare'), state.entries, state.unit, (unit) => { state.unit = unit; render(); });
   });
 }

@@ -3,6 +3,7 @@
  * user has corrected them, and the fit currently shown. Plain data; views
  * read it and call the actions in main.ts to change it.
  */
+import { defaultBandSigma } from '../src/fit/observations.js';
 import type { AnalyzeResult, ApiErrorBody, Band, BandFlag, BandKind, FitResult, Geometry, XUnit } from './types.js';
 
 /** What the user says about the sample; sent with the analysis and stored with it. */
@@ -84,11 +85,25 @@ export function defaultDetails(): SampleDetails {
   };
 }
 
+/**
+ * The σ of a found band's position as the analysis gives it to the fit: the
+ * spectral fit's σ combined in quadrature with the fit's default σ for a band
+ * maximum (src/analysis.ts does the same), so a refit without corrections
+ * reproduces the analysis.
+ */
+export function fitUncertaintyOf(band: Band): number | null {
+  if (typeof band.uncertainty === 'number') return band.uncertainty;
+  if (typeof band.positionUncertainty === 'number' && Number.isFinite(band.positionUncertainty)) {
+    return Math.hypot(band.positionUncertainty, defaultBandSigma(band.position));
+  }
+  return null;
+}
+
 /** The editable band list a fresh analysis starts with. */
 export function editableBandsFromResult(bands: readonly Band[]): EditableBand[] {
   return bands.map((band, index) => ({
     position: band.position,
-    uncertainty: typeof band.uncertainty === 'number' ? band.uncertainty : null,
+    uncertainty: fitUncertaintyOf(band),
     epsilon: typeof band.epsilon === 'number' ? band.epsilon : null,
     width: typeof band.fwhm === 'number' && band.fwhm > 0 ? band.fwhm : null,
     kind: band.kind,

@@ -29,6 +29,9 @@ export interface SpectrumSummary {
   xUnit: string;
   yUnit: string;
   masked: MaskedRange[];
+  /** 'epsilon' (L mol-1 cm-1) when a concentration was given, else 'absorbance'. */
+  signalUnit?: 'absorbance' | 'epsilon';
+  noise?: number;
 }
 
 export interface Band {
@@ -44,7 +47,9 @@ export interface Band {
   area?: number;
   oscillatorStrength?: number | null;
   kind: BandKind;
-  /** cm-1: how well the position is known, when the band finder says. */
+  /** One standard deviation of the position from the spectral fit, cm-1. */
+  positionUncertainty?: number;
+  /** cm-1: how well the position is known (older services). */
   uncertainty?: number;
   shoulder?: boolean;
   flags?: BandFlag[];
@@ -98,13 +103,16 @@ export interface FitResult {
 /** A competing assignment the fit found close to the best one. */
 export type Alternative = Partial<FitResult> & { assignments?: Assignment[] };
 
-/** The curves behind the spectrum plot, on one grid in cm-1. */
+/** The curves behind the spectrum plot, on one uniform grid in cm-1 (ascending). */
 export interface Curves {
   grid: number[];
-  signal: number[];
+  /** The data on the grid (absorbance, or ε with a concentration); null where masked. */
+  signal: (number | null)[];
+  /** Baseline, including a modelled UV edge. */
   baseline?: number[];
-  /** Sum of the fitted bands (without the baseline). */
+  /** Baseline plus every fitted band. */
   model?: number[];
+  /** Each band's Gaussian above the baseline (baseline not included), in the order of `bands`. */
   components?: number[][];
 }
 
@@ -177,4 +185,49 @@ export interface LibraryPage {
 export interface LibraryRecord extends LibraryRow {
   options: Record<string, unknown>;
   result: AnalyzeResult;
+}
+
+/** One analysis in its place in a ranking (weakest first). */
+export interface RankedEntry {
+  position: number;
+  index: number;
+  id?: string;
+  sample: string;
+  ligandLabel: string;
+  /** 10Dq (cm-1) in the spectrochemical ranking, 1 − β in the nephelauxetic one. */
+  value: number;
+  uncertainty: number;
+  overlapsNext: boolean;
+}
+
+export interface Ranking {
+  kind: 'spectrochemical' | 'nephelauxetic';
+  quantity: string;
+  criterion: 'one-sigma' | 'two-sigma';
+  entries: RankedEntry[];
+  overlaps: { lower: number; upper: number; difference: number; combinedUncertainty: number }[];
+  /** "Cl < F < H2O ~ ox < NH3". */
+  series: string;
+  skipped: { index: number; sample: string; reason: string }[];
+}
+
+export interface LigandFactor {
+  ligand: string;
+  f: number;
+  fUncertainty?: number;
+  h?: number;
+  hUncertainty?: number;
+  tabulatedF?: number;
+  tabulatedH?: number;
+}
+
+/** GET /api/v1/series?ion=. */
+export interface SeriesReport {
+  ion: string;
+  count: number;
+  spectrochemical: Ranking;
+  nephelauxetic: Ranking;
+  factors: { ion: string; g: number; k?: number; source: string; factors: LigandFactor[]; notes: string[] } | null;
+  skipped: { id: string; sample: string; reason: string }[];
+  notes: string[];
 }

@@ -34,11 +34,16 @@ export class PlotFrame {
       width: Math.max(320, container.clientWidth || 640),
       height,
       scales: {
-        x: { time: false },
+        x: spec.xRange === undefined ? { time: false } : { time: false, auto: false, range: () => spec.xRange! },
         y: { auto: false, range: () => yRange },
       },
       axes: [
-        { label: spec.xLabel, stroke: AXIS_STROKE, font: FONT, labelFont: FONT, grid: { stroke: GRID_STROKE } },
+        {
+          label: spec.xLabel, stroke: AXIS_STROKE, font: FONT, labelFont: FONT, grid: { stroke: GRID_STROKE },
+          ...(spec.xTicks === undefined
+            ? {}
+            : { splits: () => spec.xTicks!.map((t) => t.value), values: () => spec.xTicks!.map((t) => t.label), grid: { show: false } }),
+        },
         { label: spec.yLabel, stroke: AXIS_STROKE, font: FONT, labelFont: FONT, grid: { stroke: GRID_STROKE }, size: 64 },
       ],
       series: [
@@ -79,7 +84,8 @@ export class PlotFrame {
   /** Back to the full x range of the data. */
   resetZoom(): void {
     const x = this.spec.x;
-    if (x.length > 1) this.plot.setScale('x', { min: x[0]!, max: x[x.length - 1]! });
+    if (this.spec.xRange !== undefined) this.plot.setScale('x', { min: this.spec.xRange[0], max: this.spec.xRange[1] });
+    else if (x.length > 1) this.plot.setScale('x', { min: x[0]!, max: x[x.length - 1]! });
   }
 
   /** Current visible x range. */
@@ -182,6 +188,21 @@ function drawMarks(u: uPlot, marks: readonly Mark[]): void {
         ctx.textAlign = 'left';
         ctx.fillText(mark.text, x + 4 * ratio, top + 16 * ratio);
       }
+    } else if (mark.kind === 'errorbar') {
+      const x = u.valToPos(mark.x, 'x', true);
+      const y0 = u.valToPos(mark.low, 'y', true);
+      const y1 = u.valToPos(mark.high, 'y', true);
+      const cap = 5 * ratio;
+      ctx.strokeStyle = mark.color;
+      ctx.lineWidth = 1.5 * ratio;
+      ctx.beginPath();
+      ctx.moveTo(x, y0);
+      ctx.lineTo(x, y1);
+      ctx.moveTo(x - cap, y0);
+      ctx.lineTo(x + cap, y0);
+      ctx.moveTo(x - cap, y1);
+      ctx.lineTo(x + cap, y1);
+      ctx.stroke();
     } else if (mark.kind === 'point') {
       const x = u.valToPos(mark.x, 'x', true);
       const y = u.valToPos(mark.y, 'y', true);

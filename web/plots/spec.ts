@@ -24,7 +24,9 @@ export type Mark =
   /** Text anchored at (x, y) data coordinates, shifted up by `rise` CSS pixels. */
   | { kind: 'text'; x: number; y: number; text: string; color: string; rise?: number; align?: 'left' | 'center' | 'right' }
   /** A shaded x range (masked parts of a spectrum). */
-  | { kind: 'shade'; from: number; to: number; color: string; text?: string };
+  | { kind: 'shade'; from: number; to: number; color: string; text?: string }
+  /** A vertical error bar from low to high at x, with caps. */
+  | { kind: 'errorbar'; x: number; low: number; high: number; color: string };
 
 export interface PlotSpec {
   /** Used as the SVG/PNG title and file name. */
@@ -39,6 +41,10 @@ export interface PlotSpec {
   marks: Mark[];
   /** Fixed y range, else fitted to the data. */
   yRange?: [number, number];
+  /** Fixed x range, else the data's. */
+  xRange?: [number, number];
+  /** Named x positions (a categorical axis), instead of numeric ticks. */
+  xTicks?: { value: number; label: string }[];
 }
 
 /** Range of the finite values of the given arrays; [0, 1] when there are none. */

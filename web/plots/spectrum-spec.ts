@@ -58,7 +58,8 @@ export function bandCaption(band: EditableBand, assignments: readonly Assignment
   return band.kind === 'spin-forbidden' ? `${name} (spin-forbidden)` : name;
 }
 
-function linearAt(grid: readonly number[], values: readonly number[], x: number): number | null {
+/** Linear interpolation in an ascending grid; null outside it or next to a gap. */
+export function linearAt(grid: readonly number[], values: readonly (number | null)[], x: number): number | null {
   if (grid.length === 0) return null;
   let lo = 0;
   let hi = grid.length - 1;
@@ -69,14 +70,23 @@ function linearAt(grid: readonly number[], values: readonly number[], x: number)
     if (grid[mid]! <= x) lo = mid;
     else hi = mid;
   }
+  const a = values[lo];
+  const b = values[hi];
+  if (a === null || a === undefined || b === null || b === undefined) return null;
   const t = (x - grid[lo]!) / (grid[hi]! - grid[lo]!);
-  return values[lo]! * (1 - t) + values[hi]! * t;
+  return a * (1 - t) + b * t;
+}
+
+/** The y-axis name for a signal unit. */
+export function signalLabel(signalUnit: string | undefined): string {
+  return signalUnit === 'epsilon' ? 'ε / L mol⁻¹ cm⁻¹' : 'absorbance';
 }
 
 export interface SpectrumSpecInput {
   title: string;
   curves: Curves;
-  yUnit: string;
+  /** 'absorbance' or 'epsilon'. */
+  signalUnit: string | undefined;
   bands: readonly EditableBand[];
   assignments: readonly Assignment[];
   masked: readonly MaskedRange[];
@@ -87,7 +97,7 @@ export function spectrumSpec(input: SpectrumSpecInput): PlotSpec {
   const { curves, unit, bands, assignments } = input;
   const grid = curves.grid;
   const { x, order } = axisValues(grid, unit);
-  const pick = (values: readonly number[]): number[] => order.map((i) => values[i]!);
+  const pick = <T>(values: readonly T[]): T[] => order.map((i) => values[i]!);
   const baseline = curves.baseline ?? grid.map(() => 0);
   const series: SeriesSpec[] = [{ label: 'measured', color: SIGNAL, width: 1.5 }];
   const ys: (number | null)[][] = [pick(curves.signal)];
@@ -110,7 +120,7 @@ export function spectrumSpec(input: SpectrumSpecInput): PlotSpec {
   });
   if (curves.model !== undefined) {
     series.push({ label: 'sum of bands', color: SUM, width: 1.6 });
-    ys.push(pick(curves.model.map((v, k) => v + baseline[k]!)));
+    ys.push(pick(curves.model));
   }
   const marks: Mark[] = input.masked.map((m) => ({
     kind: 'shade',
@@ -119,7 +129,7 @@ export function spectrumSpec(input: SpectrumSpecInput): PlotSpec {
     color: 'rgba(120, 120, 120, 0.13)',
     text: m.reason,
   }));
-  const top = curves.model === undefined ? curves.signal : curves.model.map((v, k) => v + baseline[k]!);
+  const top = curves.model ?? curves.signal;
   const span = Math.abs((x[x.length - 1] ?? 1) - (x[0] ?? 0)) || 1;
   const placed: { x: number; row: number }[] = [];
   const labelled = [...bands].sort((a, b) => toAxis(a.position, unit) - toAxis(b.position, unit));
@@ -138,7 +148,7 @@ export function spectrumSpec(input: SpectrumSpecInput): PlotSpec {
   return {
     title: input.title,
     xLabel: axisLabel(unit),
-    yLabel: input.yUnit === '' ? 'absorbance' : input.yUnit,
+    yLabel: signalLabel(input.signalUnit),
     x,
     ys,
     series,
@@ -147,16 +157,16 @@ export function spectrumSpec(input: SpectrumSpecInput): PlotSpec {
   };
 }
 
-/** measured − (baseline + sum of bands) on the same grid. */
-export function residualSpec(title: string, curves: Curves, unit: AxisUnit, yUnit: string): PlotSpec | null {
-  if (curves.model === undefined) return null;
-  const baseline = curves.baseline ?? curves.grid.map(() => 0);
-  const residual = curves.signal.map((v, k) => v - baseline[k]! - curves.model![k]!);
+/** measured − model (baseline plus bands) on the same grid; gaps where the data are masked. */
+export function residualSpec(title: string, curves: Curves, unit: AxisUnit, signalUnit: string | undefined): PlotSpec | null {
+  const model = curves.model;
+  if (model === undefined) return null;
+  const residual = curves.signal.map((v, k) => (v === null ? null : v - model[k]!));
   const { x, order } = axisValues(curves.grid, unit);
   return {
     title,
     xLabel: axisLabel(unit),
-    yLabel: `residual${yUnit === '' ? '' : ` / ${yUnit}`}`,
+    yLabel: `residual, ${signalLabel(signalUnit)}`,
     x,
     ys: [order.map((i) => residual[i]!), x.map(() => 0)],
     series: [
@@ -182,7 +192,7 @@ export function overlaySpec(items: readonly OverlayItem[], unit: AxisUnit): Plot
   const gridCm = [...all].sort((a, b) => a - b);
   const { x, order } = axisValues(gridCm, unit);
   const ys = items.map((item) => {
-    const max = Math.max(...item.curves.signal.map(Math.abs)) || 1;
+    const max = Math.max(...item.curves.signal.map((v) => (v === null ? 0 : Math.abs(v)))) || 1;
     const first = item.curves.grid[0] ?? 0;
     const last = item.curves.grid[item.curves.grid.length - 1] ?? 0;
     return order.map((i) => {

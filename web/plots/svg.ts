@@ -39,9 +39,10 @@ export function svgFromSpec(spec: PlotSpec, options: SvgOptions): string {
   out.push(`<text x="${MARGIN.left}" y="20" font-size="14" font-weight="600">${escapeXml(spec.title)}</text>`);
   out.push(`<defs><clipPath id="plot-area"><rect x="${MARGIN.left}" y="${MARGIN.top}" width="${plotW}" height="${plotH}"/></clipPath></defs>`);
 
-  for (const t of niceTicks(x0, x1, 8)) {
-    out.push(`<line x1="${f(sx(t))}" x2="${f(sx(t))}" y1="${MARGIN.top}" y2="${MARGIN.top + plotH}" stroke="#000" stroke-opacity="0.09"/>`);
-    out.push(`<text x="${f(sx(t))}" y="${MARGIN.top + plotH + 16}" text-anchor="middle">${tickText(t)}</text>`);
+  const xTicks = spec.xTicks ?? niceTicks(x0, x1, 8).map((value) => ({ value, label: tickText(value) }));
+  for (const t of xTicks) {
+    if (spec.xTicks === undefined) out.push(`<line x1="${f(sx(t.value))}" x2="${f(sx(t.value))}" y1="${MARGIN.top}" y2="${MARGIN.top + plotH}" stroke="#000" stroke-opacity="0.09"/>`);
+    out.push(`<text x="${f(sx(t.value))}" y="${MARGIN.top + plotH + 16}" text-anchor="middle">${escapeXml(t.label)}</text>`);
   }
   for (const t of niceTicks(y0, y1, 6)) {
     out.push(`<line x1="${MARGIN.left}" x2="${MARGIN.left + plotW}" y1="${f(sy(t))}" y2="${f(sy(t))}" stroke="#000" stroke-opacity="0.09"/>`);
@@ -100,6 +101,11 @@ function markSvg(mark: Mark, sx: (x: number) => number, sy: (y: number) => numbe
       const x = f(sx(mark.x));
       const caption = mark.text === undefined ? '' : `<text x="${f(sx(mark.x) + 4)}" y="${top + 14}" fill="${mark.color}">${escapeXml(mark.text)}</text>`;
       return `<line x1="${x}" x2="${x}" y1="${top}" y2="${top + plotH}" stroke="${mark.color}" stroke-width="1.5" stroke-dasharray="${(mark.dash ?? [6, 4]).join(' ')}"/>${caption}`;
+    }
+    case 'errorbar': {
+      const x = sx(mark.x);
+      const [a, b] = [sy(mark.low), sy(mark.high)];
+      return `<path d="M${f(x)} ${f(a)}V${f(b)}M${f(x - 5)} ${f(a)}h10M${f(x - 5)} ${f(b)}h10" stroke="${mark.color}" stroke-width="1.5" fill="none"/>`;
     }
     case 'point': {
       const caption = mark.text === undefined ? '' : `<text x="${f(sx(mark.x) + 7)}" y="${f(sy(mark.y) - 3)}">${escapeXml(mark.text)}</text>`;

@@ -84,7 +84,7 @@ export function spectrumFigures(entry: AnalysisEntry, unit: AxisUnit, pickArmed:
   const spec = spectrumSpec({
     title: entry.details.sample || entry.fileName,
     curves,
-    yUnit: result.spectrum.yUnit,
+    signalUnit: result.spectrum.signalUnit,
     bands: entry.bands,
     assignments: fit?.assignments ?? [],
     masked: result.spectrum.masked,
@@ -94,7 +94,7 @@ export function spectrumFigures(entry: AnalysisEntry, unit: AxisUnit, pickArmed:
     if (pickArmed) handlers.onPick(unit === 'nm' ? 1e7 / x : x);
   });
   const out = [spectrum.element];
-  const residual = residualSpec(`Residuals of ${entry.fileName}`, curves, unit, result.spectrum.yUnit);
+  const residual = residualSpec(`Residuals of ${entry.fileName}`, curves, unit, result.spectrum.signalUnit);
   if (residual !== null) {
     const residuals = figure('residuals', 'Residuals: measured − (baseline + bands)', toolbar('residuals', stem));
     mount('residuals', residuals.host, residual);

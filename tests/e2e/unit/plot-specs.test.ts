@@ -12,7 +12,7 @@ const curves: Curves = {
   grid: [10_000, 12_500, 15_000, 17_500, 20_000],
   signal: [0.1, 0.4, 0.2, 0.5, 0.15],
   baseline: [0.05, 0.05, 0.05, 0.05, 0.05],
-  model: [0.04, 0.34, 0.16, 0.46, 0.1],
+  model: [0.09, 0.39, 0.21, 0.51, 0.15],
   components: [
     [0.04, 0.34, 0.1, 0.01, 0],
     [0, 0, 0.06, 0.45, 0.1],
@@ -29,23 +29,23 @@ describe('spectrum plot data', () => {
     const { x, order } = axisValues(curves.grid, 'nm');
     expect(x[0]).toBeCloseTo(500, 9); // common practice: 10^7 / 20000 cm-1
     for (let i = 1; i < x.length; i++) expect(x[i]!).toBeGreaterThan(x[i - 1]!);
-    const spec = spectrumSpec({ title: 't', curves, yUnit: 'absorbance', bands: [], assignments, masked: [], unit: 'nm' });
+    const spec = spectrumSpec({ title: 't', curves, signalUnit: 'absorbance', bands: [], assignments, masked: [], unit: 'nm' });
     order.forEach((source, k) => expect(spec.ys[0]![k]).toBe(curves.signal[source]));
     expect(spec.xLabel).toMatch(/nm/);
   });
 
-  it('draws each fitted band and the sum on top of the baseline', () => {
-    const spec = spectrumSpec({ title: 't', curves, yUnit: '', bands: [], assignments, masked: [], unit: 'cm-1' });
+  it('draws each fitted band on top of the baseline, and the model as the sum', () => {
+    const spec = spectrumSpec({ title: 't', curves, signalUnit: undefined, bands: [], assignments, masked: [], unit: 'cm-1' });
     const labels = spec.series.map((s) => s.label);
     expect(labels).toEqual(['measured', 'baseline', 'band 1', 'band 2', 'sum of bands']);
     const sum = spec.ys[4]!;
-    sum.forEach((v, k) => expect(v).toBeCloseTo(curves.model![k]! + curves.baseline![k]!, 12));
+    sum.forEach((v, k) => expect(v).toBe(curves.model![k]));
     expect(spec.ys[2]![1]).toBeCloseTo(0.34 + 0.05, 12);
   });
 
   it('labels bands with their assignment and greys out removed or charge-transfer bands', () => {
     const bands = [band(12_500, { sourceIndex: 0 }), band(17_500, { sourceIndex: 1, kind: 'charge-transfer' })];
-    const spec = spectrumSpec({ title: 't', curves, yUnit: '', bands, assignments, masked: [{ from: 19_000, to: 20_000, reason: 'detector change' }], unit: 'cm-1' });
+    const spec = spectrumSpec({ title: 't', curves, signalUnit: undefined, bands, assignments, masked: [{ from: 19_000, to: 20_000, reason: 'detector change' }], unit: 'cm-1' });
     const texts = spec.marks.flatMap((m) => (m.kind === 'text' ? [m.text] : []));
     expect(texts).toEqual(['3T2g(F)', 'charge transfer']);
     expect(spec.series[3]!.dash).toBeDefined();
@@ -60,10 +60,13 @@ describe('spectrum plot data', () => {
     expect(bandCaption(band(17_500, { kind: 'spin-forbidden' }), assignments)).toBe('3T1g(F) (spin-forbidden)');
   });
 
-  it('residuals are measured minus baseline plus bands', () => {
+  it('residuals are measured minus the model, with gaps where the data are masked', () => {
     const spec = residualSpec('r', curves, 'cm-1', 'absorbance');
     expect(spec).not.toBeNull();
-    spec!.ys[0]!.forEach((v, k) => expect(v).toBeCloseTo(curves.signal[k]! - curves.baseline![k]! - curves.model![k]!, 12));
+    spec!.ys[0]!.forEach((v, k) => expect(v).toBeCloseTo(curves.signal[k]! - curves.model![k]!, 12));
+    const masked = residualSpec('r', { ...curves, signal: [null, ...curves.signal.slice(1)] }, 'cm-1', 'epsilon');
+    expect(masked!.ys[0]![0]).toBeNull();
+    expect(masked!.yLabel).toMatch(/ε/);
     expect(residualSpec('r', { grid: [1, 2], signal: [1, 2] }, 'cm-1', '')).toBeNull();
   });
 

@@ -66,7 +66,7 @@ describe('page state', () => {
 
   it('names the analyze query fields as the service reads them', () => {
     const q = analyzeQuery({ ...defaultDetails(), ion: 'Cr3+', concentration: 0.01, pathLength: 0.5, xUnit: 'nm', column: '2', freeC: true });
-    expect(Object.fromEntries(q)).toEqual({ ion: 'Cr3+', geometry: 'octahedral', conc: '0.01', path: '0.5', xUnit: 'nm', column: '2', freeC: 'true' });
+    expect(Object.fromEntries(q)).toEqual({ ion: 'Cr3+', geometry: 'octahedral', conc: '0.01', path: '0.5', xUnit: 'nm', column: '2', freeC: 'true', curves: 'true' });
   });
 });
 
@@ -88,5 +88,15 @@ describe('result downloads', () => {
     const parsed = JSON.parse(resultJson(entry())) as { fit: FitResult; sample: { sample: string } };
     expect(parsed.fit.tenDq).toBe(8500);
     expect(parsed.sample.sample).toBe('invented');
+  });
+});
+
+describe('band uncertainty sent to the fit', () => {
+  it('combines the spectral σ with the fit default σ as the analysis does', async () => {
+    const { fitUncertaintyOf } = await import('../../../web/state.js');
+    const { defaultBandSigma } = await import('../../../src/fit/observations.js');
+    expect(fitUncertaintyOf({ position: 17_400, kind: 'd-d', positionUncertainty: 30 })).toBeCloseTo(Math.hypot(30, defaultBandSigma(17_400)), 9);
+    expect(fitUncertaintyOf({ position: 17_400, kind: 'd-d', positionUncertainty: 30, uncertainty: 55 })).toBe(55);
+    expect(fitUncertaintyOf({ position: 17_400, kind: 'd-d' })).toBeNull();
   });
 });
