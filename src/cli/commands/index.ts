@@ -1,6 +1,7 @@
 import type { Command } from '../command.js';
 import { analyzeCommand } from './analyze.js';
 import { levelsCommand } from './levels.js';
+import { fitCommand } from './fit.js';
 import { diagramCommand } from './diagram.js';
 import { serveCommand } from './serve.js';
 import { predictCommand } from './predict.js';
@@ -12,6 +13,7 @@ import { predictCommand } from './predict.js';
 export const commands: Command[] = [
   analyzeCommand,
   levelsCommand,
+  fitCommand,
   diagramCommand,
   serveCommand,
   predictCommand,
