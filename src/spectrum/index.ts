@@ -16,3 +16,5 @@ export { synthesizeSpectrum, type SynthesizeOptions, type SyntheticBand, type Sy
 export { formatDelimited, type FormatDelimitedOptions } from './format/formatDelimited.js';
 export { formatJcamp, type FormatJcampOptions } from './format/formatJcamp.js';
 export { mulberry32, gaussianDeviates } from './random.js';
+export { processSpectrum, type ProcessSpectrumOptions } from './processSpectrum.js';
+export { bandsClassify, bandKindFromEpsilon, defaultThresholds, type ClassificationThresholds } from './bandClassify.js';

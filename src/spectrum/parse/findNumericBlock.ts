@@ -62,10 +62,23 @@ export function findRunWithSeparator(lines: string[], separator: Separator): Num
   return best;
 }
 
+/**
+ * Separators worth a full scan: those that read at least one of a few
+ * probe lines (at 1/4, 1/2, 3/4 of the file and the last non-blank line,
+ * where data usually are) as numeric. All of them when no probe does.
+ */
+function plausibleSeparators(lines: string[]): readonly Separator[] {
+  const probes = [0.25, 0.5, 0.75].map((f) => lines[Math.floor(f * lines.length)] ?? '');
+  const last = [...lines].reverse().find((l) => !isSkippableLine(l));
+  if (last !== undefined) probes.push(last);
+  const found = SEPARATORS.filter((s) => probes.some((l) => numericFieldCount(splitLineQuick(l, s), s !== ',') >= 2));
+  return found.length > 0 ? found : SEPARATORS;
+}
+
 /** The longest numeric run over all separators, or null when the text has no numeric block. */
 export function findNumericBlock(lines: string[]): NumericRun | null {
   let best: NumericRun | null = null;
-  for (const separator of SEPARATORS) {
+  for (const separator of plausibleSeparators(lines)) {
     const run = findRunWithSeparator(lines, separator);
     if (run !== null && (best === null || run.count > best.count)) best = run;
   }

@@ -1,0 +1,183 @@
+/**
+ * Processing one spectrum: to an energy axis, masking, a uniform grid,
+ * noise, band finding, a joint fit of bands, UV edge and baseline, and
+ * classification. Pure; deterministic for given input.
+ */
+import { invalidArgument } from '../errors.js';
+import { defaultThresholds, type ClassificationThresholds } from './bandClassify.js';
+import { bandsFromFit } from './bandsFromFit.js';
+import { fitBands } from './fitBands.js';
+import { gaussianValue } from './gaussian.js';
+import { spectrumToEnergy } from './spectrumToEnergy.js';
+import type { MaskReason, ProcessedSpectrum, Spectrum } from './types.js';
+import { xNoiseFromSecondDifferences, xNoiseLocal } from './xNoise.js';
+import { xyCorrectDetectorSteps, xyFindDetectorSteps } from './xyDetectorSteps.js';
+import { xyFindBandCandidates } from './xyFindBandCandidates.js';
+import { xyLowerHull } from './xyLowerHull.js';
+import { maskAroundStep, xyMaskedRegions, xyMaskPoints } from './xyMask.js';
+import { xPolynomialValues } from './xyPolynomial.js';
+import { xChooseGridStep, xUniformGrid, xyResampleUniformWithCounts } from './xyResample.js';
+import type { GaussianParameters } from './xyRefineBands.js';
+
+export interface ProcessSpectrumOptions {
+  /** mol/L; with it, heights become ε (Beer–Lambert). @default unknown */
+  concentration?: number;
+  /** cm. @default 1 */
+  pathLength?: number;
+  /** Sets the classification thresholds (spin-allowed ε up to 100 octahedral, 1000 tetrahedral). @default tetrahedral-tolerant (1000) */
+  geometry?: 'octahedral' | 'tetrahedral';
+  /** Absorbance above which points are masked as saturated. @default 3 */
+  saturationLimit?: number;
+  /** Absorbance below −negativeLimit is masked. @default max(5 × noise, 0.01) */
+  negativeLimit?: number;
+  /** Correct detector change-over steps (and mask around them). @default true */
+  correctSteps?: boolean;
+  /** Baseline polynomial order, 0–3. @default 1 */
+  baselineOrder?: number;
+  /** Model a UV absorption edge: 'auto' when the signal rises at the high-energy end. @default 'auto' */
+  uvEdge?: 'auto' | boolean;
+  /** Typical spin-allowed FWHM, cm-1 (band-finding window). @default 2500 */
+  broadFwhm?: number;
+  /** Narrowest FWHM sought, cm-1. @default 600 */
+  narrowFwhm?: number;
+  /** Most bands fitted. @default 8 */
+  maxBands?: number;
+  /** Most grid points (sets the coarsest grid step). @default 400 */
+  maxGridPoints?: number;
+  /** Override classification thresholds. @default defaultThresholds(geometry) */
+  thresholds?: Partial<ClassificationThresholds>;
+}
+
+export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOptions = {}): ProcessedSpectrum {
+  const {
+    concentration, pathLength = 1, geometry, saturationLimit = 3, correctSteps = true, baselineOrder = 1, uvEdge = 'auto',
+    broadFwhm = 2500, narrowFwhm = 600, maxBands = 8, maxGridPoints = 400,
+  } = options;
+  checkOptions(options, baselineOrder, pathLength);
+  const warnings: string[] = [];
+  const energy = spectrumToEnergy(spectrum, concentration, pathLength);
+  const { x } = energy;
+  let signal = energy.signal;
+  const rawNoise = xNoiseFromSecondDifferences(signal.filter(Number.isFinite));
+  const reasons: Array<MaskReason | null> = energy.absorbance === null
+    ? new Array<MaskReason | null>(x.length).fill(null)
+    : xyMaskPoints(energy.absorbance, { saturationLimit, negativeLimit: options.negativeLimit ?? Math.max(5 * rawNoise, 0.01) });
+  if (energy.absorbance === null) warnings.push('ε without a concentration: saturation and negative absorbance were not checked');
+  if (correctSteps) {
+    const finite = reasons.map((r, i) => r === null && Number.isFinite(signal[i] as number));
+    const steps = xyFindDetectorSteps(x, signal.map((v, i) => (finite[i] ? v : 0)), { noise: rawNoise });
+    const real = steps.filter((s) => finite[s.index] && finite[s.index + 1]);
+    if (real.length > 0) {
+      signal = xyCorrectDetectorSteps(signal, real);
+      for (const s of real) {
+        maskAroundStep(reasons, s.index);
+        warnings.push(`corrected a step of ${s.size.toPrecision(3)} at ${s.position.toFixed(0)} cm-1 (${(1e7 / s.position).toFixed(1)} nm), a lamp or detector change-over`);
+      }
+    }
+  }
+  const masked = xyMaskedRegions(x, reasons);
+  const kept = Uint8Array.from(reasons, (r, i) => (r === null && Number.isFinite(signal[i] as number) ? 1 : 0));
+  const step = xChooseGridStep(x, maxGridPoints);
+  const grid = xUniformGrid(x[0] as number, x[x.length - 1] as number, step);
+  const { y: onGrid, counts } = xyResampleUniformWithCounts(x, signal, kept, grid);
+  const fx = grid.filter((_, i) => Number.isFinite(onGrid[i] as number));
+  const fy = onGrid.filter(Number.isFinite);
+  const localNoise = gridNoise(x, signal, kept, grid, onGrid, counts);
+  const noise = median(localNoise);
+  const range: [number, number] = [x[0] as number, x[x.length - 1] as number];
+  const empty = (): ProcessedSpectrum => ({
+    points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid,
+    baseline: new Float64Array(grid.length), model: new Float64Array(grid.length), signalUnit: energy.signalUnit, bands: [],
+    edge: null, noise, fit: { points: fx.length, parameters: 0, rms: 0, iterations: 0 }, warnings,
+  });
+  if (fx.length < 10) {
+    warnings.push(`only ${fx.length} grid points left after masking: no bands fitted`);
+    return empty();
+  }
+  if (fx.length < 0.5 * grid.length) warnings.push(`${Math.round(100 * (1 - fx.length / grid.length))}% of the range is masked`);
+  const hull = xyLowerHull(fx, fy);
+  const lifted = Float64Array.from(fy, (v, i) => v - (hull[i] as number));
+  const edge = chooseEdge(fx, fy, hull, noise, uvEdge);
+  const candidates = xyFindBandCandidates(fx, lifted, { noise: localNoise, broadFwhm, narrowFwhm, narrow: false });
+  if (candidates.length === 0 && edge === null) {
+    warnings.push('no band stands out of the noise');
+    return empty();
+  }
+  const fit = fitBands(fx, fy, { candidates, edge, baselineGuess: hull, baselineOrder, noise: localNoise, broadFwhm, narrowFwhm, maxBands });
+  const polynomial = (xs: Float64Array) => xPolynomialValues(xs, fit.baselineCoefficients, fit.scale);
+  const baseline = polynomial(grid);
+  if (fit.edge !== null) for (let i = 0; i < grid.length; i++) baseline[i] = (baseline[i] as number) + gaussianValue(grid[i] as number, fit.edge.position, fit.edge.height, fit.edge.fwhm);
+  const model = Float64Array.from(baseline);
+  for (const b of fit.bands) for (let i = 0; i < grid.length; i++) model[i] = (model[i] as number) + gaussianValue(grid[i] as number, b.position, b.height, b.fwhm);
+  const epsilonPerSignal = energy.signalUnit === 'epsilon' ? 1 : concentration === undefined ? null : 1 / (concentration * pathLength);
+  const thresholds = { ...defaultThresholds(geometry), ...options.thresholds };
+  const edgeAt = (v: number) => (fit.edge === null ? 0 : gaussianValue(v, fit.edge.position, fit.edge.height, fit.edge.fwhm));
+  const { bands, relative } = bandsFromFit(fit.bands, {
+    epsilonPerSignal, positionSd: fit.positionSd, noise, gridStep: step, thresholds,
+    baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
+  });
+  if (relative && bands.length > 0) warnings.push('no concentration given: bands classified by relative intensity and width only');
+  if (fit.edge !== null) warnings.push(`a UV absorption edge was modelled (a Gaussian tail centred at ${fit.edge.position.toFixed(0)} cm-1, above the measured range)`);
+  return {
+    points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid, baseline, model,
+    signalUnit: energy.signalUnit, bands, edge: fit.edge, noise,
+    fit: { points: fx.length, parameters: fit.parameters, rms: fit.rms, iterations: fit.iterations }, warnings,
+  };
+}
+
+/**
+ * An edge is modelled when the last 10 % of the kept range rises by more
+ * than 5 noise deviations, at more than twice the mean slope of the lower
+ * hull (an upturn, not a sloping baseline). It starts as a Gaussian
+ * 6000 cm-1 above the range, FWHM 12 000 cm-1, matching the rise at the end.
+ */
+function chooseEdge(x: Float64Array, y: Float64Array, hull: Float64Array, noise: number, mode: 'auto' | boolean): GaussianParameters | null {
+  if (mode === false) return null;
+  const n = x.length;
+  const end = x[n - 1] as number;
+  const position = end + 6000;
+  const fwhm = 12000;
+  const k = Math.max(2, Math.floor(0.1 * n));
+  const rise = (y[n - 1] as number) - (y[n - 1 - k] as number);
+  const endSlope = rise / (end - (x[n - 1 - k] as number));
+  const meanSlope = ((hull[n - 1] as number) - (hull[0] as number)) / (end - (x[0] as number));
+  if (mode === 'auto' && !(rise > 5 * noise && endSlope > 2 * Math.max(meanSlope, 0))) return null;
+  const atEnd = Math.max(rise, 5 * noise);
+  return { position, fwhm, height: atEnd / gaussianValue(end, position, 1, fwhm) };
+}
+
+/**
+ * Noise deviation of each kept grid value: the local noise of the data
+ * (xNoiseLocal over the kept points) at the nearest data point, divided by
+ * √(points averaged); interpolated values keep the data's noise.
+ */
+function gridNoise(x: Float64Array, y: Float64Array, kept: Uint8Array, grid: Float64Array, onGrid: Float64Array, counts: Uint16Array): Float64Array {
+  const kx = x.filter((_, i) => kept[i] === 1);
+  const local = xNoiseLocal(y.filter((_, i) => kept[i] === 1));
+  const out: number[] = [];
+  let j = 0;
+  for (let g = 0; g < grid.length; g++) {
+    if (!Number.isFinite(onGrid[g] as number)) continue;
+    const v = grid[g] as number;
+    while (j + 1 < kx.length && Math.abs((kx[j + 1] as number) - v) <= Math.abs((kx[j] as number) - v)) j++;
+    out.push((local[j] as number) / Math.sqrt(Math.max(1, counts[g] as number)));
+  }
+  return Float64Array.from(out);
+}
+
+function median(values: Float64Array): number {
+  if (values.length === 0) return 0;
+  const sorted = Float64Array.from(values).sort();
+  return sorted[sorted.length >> 1] as number;
+}
+
+function checkOptions(o: ProcessSpectrumOptions, baselineOrder: number, pathLength: number): void {
+  if (o.concentration !== undefined && !(o.concentration > 0 && Number.isFinite(o.concentration))) {
+    throw invalidArgument('concentration', `concentration: expected a positive number of mol/L, got ${o.concentration}`);
+  }
+  if (!(pathLength > 0 && Number.isFinite(pathLength))) throw invalidArgument('pathLength', `pathLength: expected a positive number of cm, got ${pathLength}`);
+  if (!Number.isInteger(baselineOrder) || baselineOrder < 0 || baselineOrder > 3) {
+    throw invalidArgument('baselineOrder', `baselineOrder: expected 0, 1, 2 or 3, got ${baselineOrder}`);
+  }
+  if (o.saturationLimit !== undefined && !(o.saturationLimit > 0)) throw invalidArgument('saturationLimit', `saturationLimit: expected a positive absorbance, got ${o.saturationLimit}`);
+}
