@@ -10,7 +10,7 @@ import { createEigenWorkspace, symmetricEigen, symmetricEigenvaluesInPlace, type
 interface Workspace {
   scratch: Float64Array;
   eigen: EigenWorkspace;
-  /** values[twoMsIndex][k] for k = 0, 1, 2 (k = 3 has the spectrum of k = 1). */
+  /** values[spinIndex][k] for k = 0, 1, 2 (k = 3 has the spectrum of k = 1). */
   values: Float64Array[][];
 }
 
@@ -46,8 +46,8 @@ export function blockHamiltonianInto(block: OperatorBlock, coefficients: ArrayLi
 }
 
 /**
- * Ascending eigenvalues of every cubic block k = 0, 1, 2 at the parameters
- * [dq, b, c]. The arrays belong to the workspace: valid until the next call
+ * Ascending eigenvalues of every cubic block (spin S, k = 0, 1, 2) at the
+ * parameters [dq, b, c]: the spin-S levels' components with C4 label k. The arrays belong to the workspace: valid until the next call
  * with the same blocks.
  */
 export function cubicBlockEigenvalues(blocks: CubicBlocks, coefficients: ArrayLike<number>): Float64Array[][] {
@@ -68,24 +68,4 @@ export function blockEigen(block: OperatorBlock, coefficients: ArrayLike<number>
   const h = new Float64Array(block.size * block.size);
   if (block.size > 0) blockHamiltonianInto(block, coefficients, h);
   return symmetricEigen(h, block.size);
-}
-
-/**
- * The values of sorted a that are left after removing, one for one, the
- * values of sorted b (each b matched to an a within tol). In exact arithmetic
- * b ⊂ a; a b without partner is skipped.
- */
-export function sortedMultisetDifference(a: ArrayLike<number>, b: ArrayLike<number>, tol: number): number[] {
-  const out: number[] = [];
-  let j = 0;
-  for (let i = 0; i < a.length; i++) {
-    const value = a[i]!;
-    while (j < b.length && b[j]! < value - tol) j++;
-    if (j < b.length && Math.abs(b[j]! - value) <= tol) {
-      j++;
-      continue;
-    }
-    out.push(value);
-  }
-  return out;
 }

@@ -2,57 +2,75 @@ import { dShellMasks, maskC4Label, maskMl, maskTwoMs } from './determinants.js';
 import { cubicFieldOrbitalMatrix } from './cubic-field.js';
 import { dShellRepulsionIntegrals } from './repulsion.js';
 import { oneBodyBlockMatrix, twoBodyBlockMatrix } from './slater-condon.js';
+import {
+  gramMatrix, nullSpaceBasis, oneBodyTransitionMatrix, ORBITAL_RAISING, projectMatrix, SPIN_RAISING,
+} from './spin-projection.js';
 import type { Geometry } from './types.js';
 
 /**
  * The symmetry blocks of the d^n Hamiltonian and their precomputed operator
  * matrices. H = Dq·H_cf + B·H_B + C·H_C is linear in its parameters, so each
- * block stores one matrix per parameter and an evaluation only forms the sum.
+ * block stores one matrix per parameter and an evaluation only forms the sum
+ * and diagonalises. (A tetragonal Ds, Dt or a spin–orbit term would be one
+ * more operator per block, with spin–orbit also mixing the spin blocks.)
  *
- * Cubic blocks: (2M_S, k) with k = M_L mod 4, the C4(z) label: the cubic
- * field couples m_l with m_l ± 4 only and repulsion conserves M_L. Only
- * M_S ≥ 0 is kept (M_S and −M_S have the same spectrum). Free-ion blocks:
- * (2M_S, M_L) with both ≥ 0, for the terms at Dq = 0.
+ * Cubic blocks: spin S and k = M_L mod 4, the C4(z) label (the cubic field
+ * couples m_l with m_l ± 4 only; repulsion conserves M_L). Each block is the
+ * spin-S subspace (kernel of S+, see spin-projection.ts) of the determinants
+ * with M_S = S and M_L ≡ k (mod 4). Free-ion blocks: one per (S, L) present,
+ * the subspace of M_S = S, M_L = L killed by S+ and L+: one dimension per term.
  */
 export interface OperatorBlock {
-  /** 2·M_S of every determinant of the block. */
-  twoMs: number;
-  /** k = M_L mod 4 (cubic blocks) or M_L (free-ion blocks). */
+  /** 2S. */
+  twoS: number;
+  /** k = M_L mod 4 (cubic) or L (free ion). */
   label: number;
-  /** Determinant masks, ascending. */
+  /** Determinants spanning the block (M_S = S), ascending. */
   masks: number[];
+  /** Dimension of the projected block. */
   size: number;
-  /** Operator matrices (row-major size×size), one per parameter, same order as the parameter vector. */
+  /** masks.length × size orthonormal columns (element [i·size + j]) expressing the block basis in determinants. */
+  basis: Float64Array;
+  /** Projected operator matrices (size × size), in parameter order: cubic [dq, b, c], free ion [b, c]. */
   operators: Float64Array[];
 }
-
-/** Parameter order of cubic operator lists: [dq, b, c]. Free-ion lists: [b, c]. */
-export const CUBIC_PARAMETERS = ['dq', 'b', 'c'] as const;
 
 export interface CubicBlocks {
   n: number;
   geometry: Geometry;
-  /** 2M_S values present (≥ 0), ascending. */
-  twoMsValues: number[];
-  /** blocks[twoMsIndex][k], k = 0..3. */
+  /** 2S values present, ascending. */
+  twoSValues: number[];
+  /** blocks[spinIndex][k], k = 0..3 (k = 3 mirrors k = 1 and is used only for characters). */
   blocks: OperatorBlock[][];
-  /** All masks of each 2M_S (all k), ascending: the space rotations act on. */
-  spinMasks: number[][];
 }
 
-function buildBlock(masks: number[], twoMs: number, label: number, oneBody: Float64Array[], twoBody: Float64Array[]): OperatorBlock {
-  const operators = [
-    ...oneBody.map((h) => oneBodyBlockMatrix(masks, h)),
-    ...twoBody.map((g) => twoBodyBlockMatrix(masks, g)),
-  ];
-  return { twoMs, label, masks, size: masks.length, operators };
-}
-
-function nonNegativeTwoMs(n: number): number[] {
+function spinValues(n: number): number[] {
   const top = Math.min(n, 10 - n);
   const values: number[] = [];
-  for (let twoMs = top % 2; twoMs <= top; twoMs += 2) values.push(twoMs);
+  for (let twoS = top % 2; twoS <= top; twoS += 2) values.push(twoS);
   return values;
+}
+
+/** The highest-weight subspace of a list of determinants: killed by S+ (and L+ when withL). */
+function projectedBlock(
+  all: readonly number[],
+  masks: number[],
+  twoS: number,
+  label: number,
+  raisedMl: number | undefined,
+  build: (masks: number[]) => Float64Array[],
+): OperatorBlock {
+  const n = masks.length;
+  const upper = all.filter((m) => maskTwoMs(m) === twoS + 2 && (raisedMl === undefined ? maskC4Label(m) === label : maskMl(m) === raisedMl - 1));
+  const gram = gramMatrix(oneBodyTransitionMatrix(upper, masks, SPIN_RAISING), upper.length, n);
+  if (raisedMl !== undefined) {
+    const upperL = all.filter((m) => maskTwoMs(m) === twoS && maskMl(m) === raisedMl);
+    const gramL = gramMatrix(oneBodyTransitionMatrix(upperL, masks, ORBITAL_RAISING), upperL.length, n);
+    for (let i = 0; i < gram.length; i++) gram[i] = gram[i]! + gramL[i]!;
+  }
+  const { basis, dimension } = nullSpaceBasis(gram, n);
+  const operators = build(masks).map((op) => projectMatrix(op, basis, n, dimension));
+  return { twoS, label, masks, size: dimension, basis, operators };
 }
 
 const cubicCache = new Map<string, CubicBlocks>();
@@ -65,43 +83,38 @@ export function cubicBlocks(n: number, geometry: Geometry): CubicBlocks {
   const { coefB, coefC } = dShellRepulsionIntegrals();
   const field = cubicFieldOrbitalMatrix(geometry);
   const all = dShellMasks(n);
-  const twoMsValues = nonNegativeTwoMs(n);
-  const spinMasks = twoMsValues.map((twoMs) => all.filter((m) => maskTwoMs(m) === twoMs));
-  const blocks = twoMsValues.map((twoMs, s) =>
+  const twoSValues = spinValues(n);
+  const build = (masks: number[]): Float64Array[] => [
+    oneBodyBlockMatrix(masks, field), twoBodyBlockMatrix(masks, coefB), twoBodyBlockMatrix(masks, coefC),
+  ];
+  const blocks = twoSValues.map((twoS) =>
     [0, 1, 2, 3].map((k) =>
-      buildBlock(spinMasks[s]!.filter((m) => maskC4Label(m) === k), twoMs, k, [field], [coefB, coefC]),
+      projectedBlock(all, all.filter((m) => maskTwoMs(m) === twoS && maskC4Label(m) === k), twoS, k, undefined, build),
     ),
   );
-  const result: CubicBlocks = { n, geometry, twoMsValues, blocks, spinMasks };
+  const result: CubicBlocks = { n, geometry, twoSValues, blocks };
   cubicCache.set(key, result);
   return result;
 }
 
-export interface FreeIonBlocks {
-  n: number;
-  twoMsValues: number[];
-  /** Largest M_L present. */
-  maxMl: number;
-  /** blocks[twoMsIndex][M_L], M_L = 0..maxMl (possibly empty blocks). */
-  blocks: OperatorBlock[][];
-}
+const freeIonCache = new Map<number, OperatorBlock[]>();
 
-const freeIonCache = new Map<number, FreeIonBlocks>();
-
-/** The (2M_S, M_L) repulsion blocks of d^n at Dq = 0, cached. n in 1..9. */
-export function freeIonBlocks(n: number): FreeIonBlocks {
+/** The (S, L) term blocks of d^n at Dq = 0 (only those with terms), cached. n in 1..9. */
+export function freeIonBlocks(n: number): OperatorBlock[] {
   const hit = freeIonCache.get(n);
   if (hit) return hit;
   const { coefB, coefC } = dShellRepulsionIntegrals();
   const all = dShellMasks(n);
-  const twoMsValues = nonNegativeTwoMs(n);
   const maxMl = Math.max(...all.map(maskMl));
-  const blocks = twoMsValues.map((twoMs) =>
-    Array.from({ length: maxMl + 1 }, (_, ml) =>
-      buildBlock(all.filter((m) => maskTwoMs(m) === twoMs && maskMl(m) === ml), twoMs, ml, [], [coefB, coefC]),
-    ),
-  );
-  const result: FreeIonBlocks = { n, twoMsValues, maxMl, blocks };
-  freeIonCache.set(n, result);
-  return result;
+  const build = (masks: number[]): Float64Array[] => [twoBodyBlockMatrix(masks, coefB), twoBodyBlockMatrix(masks, coefC)];
+  const blocks: OperatorBlock[] = [];
+  for (const twoS of spinValues(n))
+    for (let L = 0; L <= maxMl; L++) {
+      const masks = all.filter((m) => maskTwoMs(m) === twoS && maskMl(m) === L);
+      if (masks.length === 0) continue;
+      const block = projectedBlock(all, masks, twoS, L, L + 1, build);
+      if (block.size > 0) blocks.push(block);
+    }
+  freeIonCache.set(n, blocks);
+  return blocks;
 }

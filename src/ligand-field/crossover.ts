@@ -4,18 +4,14 @@ import { spinStateChoice } from './spin-state.js';
 import type { Geometry } from './types.js';
 import { validateD, validateFinite, validateGeometry } from './validate.js';
 
-/**
- * 2S of the ground level: the lowest eigenvalue of d^n lies in every block
- * with |M_S| ≤ S and in no block with M_S = S + 1, so S is the largest M_S
- * whose block reaches the overall minimum.
- */
+/** 2S of the ground level: the spin block with the lowest eigenvalue (the higher spin on an exact tie). */
 export function groundTwoSpin(blocks: CubicBlocks, coefficients: readonly number[], tol: number): number {
   const values = cubicBlockEigenvalues(blocks, coefficients);
   const lowest = values.map((row) => Math.min(...row.map((v) => (v.length ? v[0]! : Infinity))));
   const minimum = Math.min(...lowest);
-  let twoS = blocks.twoMsValues[0]!;
+  let twoS = blocks.twoSValues[0]!;
   lowest.forEach((value, s) => {
-    if (value <= minimum + tol) twoS = blocks.twoMsValues[s]!;
+    if (value <= minimum + tol) twoS = blocks.twoSValues[s]!;
   });
   return twoS;
 }

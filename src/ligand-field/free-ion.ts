@@ -5,11 +5,12 @@ import type { FreeIonTerm } from './types.js';
 /**
  * Free-ion (Russell–Saunders) terms of d^n at Dq = 0.
  *
- * At Dq = 0 both M_S and M_L are conserved, so H splits into (M_S, M_L)
- * blocks. A term (2S+1)L contributes one eigenvalue to every block with
- * |M_S| ≤ S, |M_L| ≤ L; so at each distinct energy the number of terms with
- * (S, L) is N(S, L) − N(S+1, L) − N(S, L+1) + N(S+1, L+1), with N(M_S, M_L)
- * the number of eigenvalues at that energy in block (M_S, M_L).
+ * At Dq = 0 both M_S and M_L are conserved. A term (2S+1)L contributes one
+ * eigenvalue to every block with |M_S| ≤ S, |M_L| ≤ L, so the terms with
+ * (S, L) are the eigenvalues of block (M_S = S, M_L = L) less those of
+ * (S+1, L) and (S, L+1) plus those of (S+1, L+1). blocks.ts gets them at
+ * once: H on the states of (M_S = S, M_L = L) killed by S+ and L+, one
+ * dimension per term (1×1 for most, 3×3 for the three 2D of d5).
  *
  * Energies are cm-1 above the lowest term; F0 (Racah A) is dropped.
  */
@@ -27,59 +28,25 @@ export function termSymbol(multiplicity: number, L: number): string {
   return `${multiplicity}${orbitalLetter(L)}`;
 }
 
-interface Tagged {
-  energy: number;
-  s: number;
-  ml: number;
-}
-
 /** Terms of d^n at B = 1 and C = cOverB, energies from the lowest term. */
 function freeIonTermsAtUnitB(n: number, cOverB: number): FreeIonTerm[] {
   if (n === 0 || n === 10) return [{ term: '1S', multiplicity: 1, L: 0, energy: 0 }];
-  const fib = freeIonBlocks(n);
-  const tagged: Tagged[] = [];
-  fib.blocks.forEach((row, s) =>
-    row.forEach((block, ml) => {
-      if (block.size === 0) return;
-      const h = new Float64Array(block.size * block.size);
-      for (let i = 0; i < h.length; i++) h[i] = block.operators[0]![i]! + cOverB * block.operators[1]![i]!;
-      for (const energy of symmetricEigenvalues(h, block.size)) tagged.push({ energy, s, ml });
-    }),
-  );
-  tagged.sort((x, y) => x.energy - y.energy);
-  const tol = 1e-9 * (20 + 10 * cOverB);
-  const terms: Omit<FreeIonTerm, 'term'>[] = [];
-  const rows = fib.twoMsValues.length;
-  const width = fib.maxMl + 1;
-  for (let start = 0; start < tagged.length; ) {
-    let end = start + 1;
-    while (end < tagged.length && tagged[end]!.energy - tagged[end - 1]!.energy <= tol) end++;
-    const count = new Int32Array((rows + 1) * (width + 1));
-    let mean = 0;
-    for (let i = start; i < end; i++) {
-      count[tagged[i]!.s * (width + 1) + tagged[i]!.ml]!++;
-      mean += tagged[i]!.energy;
+  const terms: Array<Omit<FreeIonTerm, 'term'> & { symbol: string; repeated: boolean }> = [];
+  for (const block of freeIonBlocks(n)) {
+    const h = new Float64Array(block.size * block.size);
+    for (let i = 0; i < h.length; i++) h[i] = block.operators[0]![i]! + cOverB * block.operators[1]![i]!;
+    const multiplicity = block.twoS + 1;
+    for (const energy of symmetricEigenvalues(h, block.size)) {
+      terms.push({ multiplicity, L: block.label, energy, symbol: termSymbol(multiplicity, block.label), repeated: block.size > 1 });
     }
-    mean /= end - start;
-    const at = (s: number, ml: number): number => count[s * (width + 1) + ml]!;
-    for (let s = 0; s < rows; s++)
-      for (let L = 0; L < width; L++) {
-        const terms_ = at(s, L) - at(s + 1, L) - at(s, L + 1) + at(s + 1, L + 1);
-        for (let t = 0; t < terms_; t++) terms.push({ multiplicity: fib.twoMsValues[s]! + 1, L, energy: mean });
-      }
-    start = end;
   }
   terms.sort((x, y) => x.energy - y.energy || y.multiplicity - x.multiplicity || y.L - x.L);
   const ground = terms[0]!.energy;
-  const occurrences = new Map<string, number>();
-  for (const t of terms) occurrences.set(termSymbol(t.multiplicity, t.L), (occurrences.get(termSymbol(t.multiplicity, t.L)) ?? 0) + 1);
   const seen = new Map<string, number>();
   return terms.map((t) => {
-    const symbol = termSymbol(t.multiplicity, t.L);
-    const index = (seen.get(symbol) ?? 0) + 1;
-    seen.set(symbol, index);
-    const term = occurrences.get(symbol)! > 1 ? `${symbol}${index}` : symbol;
-    return { term, multiplicity: t.multiplicity, L: t.L, energy: t.energy - ground };
+    const index = (seen.get(t.symbol) ?? 0) + 1;
+    seen.set(t.symbol, index);
+    return { term: t.repeated ? `${t.symbol}${index}` : t.symbol, multiplicity: t.multiplicity, L: t.L, energy: t.energy - ground };
   });
 }
 

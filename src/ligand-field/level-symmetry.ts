@@ -1,4 +1,4 @@
-import { cubicBlockEigenvalues, sortedMultisetDifference } from './block-spectra.js';
+import { cubicBlockEigenvalues } from './block-spectra.js';
 import type { CubicBlocks } from './blocks.js';
 import { clusterIrrepsByCharacters } from './cluster-characters.js';
 import { CUBIC_IRREPS, irrepFromC4Counts } from './cubic-group.js';
@@ -8,7 +8,8 @@ import type { CubicIrrep } from './types.js';
  * From block eigenvalues to (S, Γ) levels.
  *
  * Spin: the levels of spin S are the eigenvalues of block M_S = S less (as a
- * multiset, per C4 block) those of M_S = S + 1. Symmetry: eigenvalues of one
+ * multiset, per C4 block) those of M_S = S + 1; blocks.ts gets them at once
+ * by diagonalising H on the kernel of S+ in M_S = S. Symmetry: eigenvalues of one
  * spin within tol of each other form a cluster; its counts (n0, n1, n2) in
  * the C4 blocks k = 0, 1, 2 name the irrep (see cubic-group.ts). Clusters
  * with any other count pattern are reduced by the characters of O
@@ -30,9 +31,9 @@ interface Cluster {
 }
 
 /** Clusters of the spin-S eigenvalues, given per C4 block k = 0, 1, 2 (each sorted). */
-function clustersOf(perK: number[][], tol: number): Cluster[] {
+function clustersOf(perK: readonly Float64Array[], tol: number): Cluster[] {
   const items: Array<[number, number]> = [];
-  perK.forEach((values, k) => values.forEach((e) => items.push([e, k])));
+  for (let k = 0; k < 3; k++) for (const e of perK[k]!) items.push([e, k]);
   items.sort((x, y) => x[0] - y[0]);
   const clusters: Cluster[] = [];
   for (let i = 0; i < items.length; ) {
@@ -63,14 +64,10 @@ export function rawLevels(
   expected: (twoS: number, irrep: CubicIrrep) => number,
 ): RawLevel[] {
   const values = cubicBlockEigenvalues(blocks, coefficients);
-  const top = blocks.twoMsValues.length - 1;
   const levels: RawLevel[] = [];
-  for (let s = top; s >= 0; s--) {
-    const twoS = blocks.twoMsValues[s]!;
-    const perK = [0, 1, 2].map((k) =>
-      s === top ? Array.from(values[s]![k]!) : sortedMultisetDifference(values[s]![k]!, values[s + 1]![k]!, tol),
-    );
-    const clusters = clustersOf(perK, tol);
+  for (let s = blocks.twoSValues.length - 1; s >= 0; s--) {
+    const twoS = blocks.twoSValues[s]!;
+    const clusters = clustersOf(values[s]!, tol);
     const resolve = (forceCharacters: boolean): RawLevel[] => {
       const out: RawLevel[] = [];
       for (const cluster of clusters) {
