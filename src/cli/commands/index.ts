@@ -3,6 +3,8 @@ import { analyzeCommand } from './analyze.js';
 import { levelsCommand } from './levels.js';
 import { fitCommand } from './fit.js';
 import { diagramCommand } from './diagram.js';
+import { libraryCommand } from './library.js';
+import { seriesCommand } from './series.js';
 import { serveCommand } from './serve.js';
 import { predictCommand } from './predict.js';
 
@@ -15,6 +17,8 @@ export const commands: Command[] = [
   levelsCommand,
   fitCommand,
   diagramCommand,
+  libraryCommand,
+  seriesCommand,
   serveCommand,
   predictCommand,
 ];

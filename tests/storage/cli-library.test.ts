@@ -1,0 +1,131 @@
+import Papa from 'papaparse';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import type { CliIo } from '../../src/cli/command.js';
+import { libraryCommand, plusMinus } from '../../src/cli/commands/library.js';
+import { runCli } from '../../src/cli/main.js';
+import { openLibrary } from '../../server/storage/library.js';
+import { handBuiltRecord } from './helpers/records.js';
+
+let dir: string;
+beforeEach(() => {
+  dir = mkdtempSync(join(tmpdir(), 'fieldgap-cli-'));
+});
+afterEach(() => rmSync(dir, { recursive: true, force: true }));
+
+/** Runs `fieldgap library ...` in process, with FIELDGAP_DATA pointing at the test folder. */
+async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+  let out = '';
+  let err = '';
+  const io: CliIo = {
+    stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: dir,
+    env: { FIELDGAP_DATA: join(dir, 'lib') },
+  };
+  const code = await runCli(['library', ...args], io);
+  return { code, out, err };
+}
+
+function seed(): void {
+  const library = openLibrary(join(dir, 'lib'));
+  library.add(handBuiltRecord({ sample: 'chromium aqua' }));
+  library.add(handBuiltRecord({ sample: 'nickel ammine', formula: '[Ni(NH3)6]Cl2', ion: 'Ni2+', ligands: ['NH3'], content: new Uint8Array([0, 1, 2, 255]), fileName: 'ni.bin' }));
+  library.close();
+}
+
+describe('fieldgap library', () => {
+  it('is registered and explains itself', async () => {
+    const { code, out } = await cli('--help');
+    expect(code).toBe(0);
+    expect(out).toBe(`${libraryCommand.usage}\n`);
+  });
+
+  it('lists newest first as a table with units, and as JSON', async () => {
+    seed();
+    const { code, out } = await cli('list');
+    expect(code).toBe(0);
+    const lines = out.trim().split('\n');
+    expect(lines[0]).toMatch(/^ID\s+SAMPLE\s+FORMULA\s+ION\s+10Dq\/cm-1\s+B\/cm-1\s+β\s+SPIN\s+RMS\/cm-1\s+SAVED$/);
+    expect(lines[1]).toMatch(/^ 2\s+nickel ammine\s+\[Ni\(NH3\)6\]Cl2\s+Ni2\+\s+17400 ± 150\s+700 ± 20\s+0\.763 ± 0\.022\s+quartet\s+120/);
+    expect(lines[2]).toMatch(/^ 1\s+chromium aqua/);
+    expect(lines[3]).toBe('2 analyses, newest first');
+    const json = JSON.parse((await cli('list', '--json', '--query', 'ammine')).out) as { total: number; analyses: { id: number }[] };
+    expect(json.total).toBe(1);
+    expect(json.analyses[0]!.id).toBe(2);
+    expect((await cli('list', '--ion', 'Co2+')).out).toBe('no analyses match\n');
+  });
+
+  it('says when the library is empty', async () => {
+    expect((await cli('list')).out).toMatch(/^the library is empty/);
+  });
+
+  it('shows one record, and fails with one line for a missing id', async () => {
+    seed();
+    const { code, out } = await cli('show', '2');
+    expect(code).toBe(0);
+    expect(out).toMatch(/^#2  nickel ammine\n  formula +\[Ni\(NH3\)6\]Cl2\n  ion +Ni2\+\n/);
+    expect(out).toContain('10Dq = 17400 ± 150 cm-1');
+    expect(out).toMatch(/original +ni\.bin, 4 bytes, sha256 [0-9a-f]{64}/);
+    const missing = await cli('show', '9');
+    expect(missing.code).toBe(2);
+    expect(missing.err).toBe('fieldgap library: id: no analysis with id 9 in the library\n');
+    expect((await cli('show', 'x')).code).toBe(2);
+  });
+
+  it('writes the original back out byte for byte, never over an existing file', async () => {
+    seed();
+    expect((await cli('original', '2', '--out', 'back.bin')).code).toBe(0);
+    expect([...readFileSync(join(dir, 'back.bin'))]).toEqual([0, 1, 2, 255]);
+    writeFileSync(join(dir, 'taken.bin'), 'mine');
+    const refused = await cli('original', '2', '--out', 'taken.bin');
+    expect(refused.code).toBe(2);
+    expect(refused.err).toContain('taken.bin: the file exists');
+    expect(readFileSync(join(dir, 'taken.bin'), 'utf8')).toBe('mine');
+  });
+
+  it('exports CSV to stdout or a file and JSON with the full records', async () => {
+    seed();
+    const csv = (await cli('export')).out;
+    const rows = Papa.parse<string[]>(csv.trim(), { newline: '\r\n' }).data; // papaparse as the reference reader
+    expect(rows.map((r) => r[1])).toEqual(['sample', 'nickel ammine', 'chromium aqua']);
+    expect((await cli('export', '--csv', 'all.csv')).code).toBe(0);
+    expect(readFileSync(join(dir, 'all.csv'), 'utf8')).toBe(csv);
+    expect((await cli('export', '--csv', 'all.csv')).code).toBe(2);
+    expect((await cli('export', '--json', 'all.json', '--ion', 'Ni2+')).code).toBe(0);
+    const json = JSON.parse(readFileSync(join(dir, 'all.json'), 'utf8')) as { analyses: { sample: string; result: unknown }[] };
+    expect(json.analyses.map((a) => a.sample)).toEqual(['nickel ammine']);
+    expect(json.analyses[0]!.result).toMatchObject({ fit: { tenDq: 17_400 } });
+  });
+
+  it('removes a record', async () => {
+    seed();
+    expect((await cli('remove', '1')).out).toBe('removed #1 "chromium aqua"\n');
+    expect((await cli('remove', '1')).code).toBe(2);
+    expect((await cli('list', '--json')).out).toContain('"total": 1');
+  });
+
+  it('honours --data over FIELDGAP_DATA', async () => {
+    seed();
+    const other = join(dir, 'other');
+    expect((await cli('list', '--data', other)).out).toMatch(/empty/);
+    expect(existsSync(join(other, 'library.sqlite'))).toBe(true);
+  });
+
+  it('rejects an unknown subcommand in one line', async () => {
+    const { code, err } = await cli('frobnicate');
+    expect(code).toBe(2);
+    expect(err.split('\n')).toHaveLength(2);
+    expect(err).toContain('unknown subcommand "frobnicate"');
+  });
+});
+
+describe('plusMinus', () => {
+  it('gives the uncertainty two significant figures and the value the same decimals', () => {
+    expect(plusMinus(17_412.3, 153)).toBe('17412 ± 153');
+    expect(plusMinus(0.76253, 0.0218, 2)).toBe('0.763 ± 0.022');
+    expect(plusMinus(655.54, 4.2)).toBe('655.5 ± 4.2');
+    expect(plusMinus(null, 3)).toBe('-');
+    expect(plusMinus(700, null)).toBe('700');
+  });
+});
