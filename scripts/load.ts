@@ -78,7 +78,7 @@ async function measure(name: string, options: Omit<AutocannonOptions, 'connectio
 
 async function main(): Promise<void> {
   const dataDir = mkdtempSync(join(tmpdir(), 'fieldgap-load-'));
-  const running = await startServer({ port: 0, host: '127.0.0.1', logger: pino({ level: 'silent' }), staticDir: false, dataDir });
+  const running = await startServer({ port: 0, host: '127.0.0.1', logger: pino({ level: 'error' }, pino.destination(2)), staticDir: false, dataDir });
   const watchdog = setTimeout(() => {
     process.stderr.write('load: took too long, stopping\n');
     process.exit(1);

@@ -7,7 +7,7 @@
 import type { NextFunction, Request, Response } from 'express';
 import type { Logger } from 'pino';
 import { FieldgapError, isFieldgapError } from '../src/errors.js';
-import { errorBody, httpStatusFor, INTERNAL_ERROR, ServiceBusyError, TaskBugError } from './errors.js';
+import { errorBody, httpStatusFor, INTERNAL_ERROR, RequestAbortedError, ServiceBusyError, TaskBugError } from './errors.js';
 
 interface HttpishError {
   type?: unknown;
@@ -59,6 +59,8 @@ export function errorHandler(logger: Logger) {
       next(error);
       return;
     }
+    // Nobody to answer: the request logger notes the abort.
+    if (error instanceof RequestAbortedError || res.destroyed) return;
     const known = isFieldgapError(error) ? error : fromHttpError(error);
     let answer: FieldgapError;
     if (known === undefined || known.code === 'internal') {

@@ -34,6 +34,16 @@ export class TaskBugError extends FieldgapError {
   }
 }
 
+/**
+ * The client closed the connection before the answer was ready: its task is
+ * dropped from the queue (or stopped) and nothing is sent back.
+ */
+export class RequestAbortedError extends FieldgapError {
+  constructor() {
+    super('timeout', 'the client closed the connection before the answer was ready', '');
+  }
+}
+
 const STATUS: Record<ErrorCode, number> = {
   'invalid-argument': 400,
   'parse-error': 400,

@@ -1,7 +1,8 @@
 /**
  * Structured request logs: one pino line per finished request with method,
- * url, status and duration in ms. Bodies and headers are not logged (they
- * may hold a user's unpublished data).
+ * url, status and duration in ms (499 when the client left before the
+ * answer). Bodies and headers are not logged (they may hold a user's
+ * unpublished data).
  */
 import type { NextFunction, Request, Response } from 'express';
 import { pino, type Logger } from 'pino';
@@ -16,12 +17,18 @@ const MAX_URL_LENGTH = 500;
 export function requestLogger(logger: Logger) {
   return (req: Request, res: Response, next: NextFunction): void => {
     const started = process.hrtime.bigint();
-    res.on('finish', () => {
+    const line = (status: number) => {
       const ms = Number(process.hrtime.bigint() - started) / 1e6;
       const url = req.originalUrl.length > MAX_URL_LENGTH ? `${req.originalUrl.slice(0, MAX_URL_LENGTH)}...` : req.originalUrl;
-      const line = { method: req.method, url, status: res.statusCode, ms: Math.round(ms * 100) / 100 };
-      if (res.statusCode >= 500) logger.warn(line, 'request');
-      else logger.info(line, 'request');
+      return { method: req.method, url, status, ms: Math.round(ms * 100) / 100 };
+    };
+    res.once('finish', () => {
+      if (res.statusCode >= 500) logger.warn(line(res.statusCode), 'request');
+      else logger.info(line(res.statusCode), 'request');
+    });
+    res.once('close', () => {
+      // 499: the client closed the connection before the answer (a common log convention).
+      if (!res.writableFinished) logger.info({ ...line(499), aborted: true }, 'request');
     });
     next();
   };

@@ -9,12 +9,14 @@ import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
 import { FieldgapError, isFieldgapError } from '../src/errors.js';
-import { ServiceBusyError, TaskBugError } from './errors.js';
+import { RequestAbortedError, ServiceBusyError, TaskBugError } from './errors.js';
 import { dispatchTask, rebuildError, type Outcome, type Task } from './tasks.js';
 
 export interface RunOptions {
   /** Time limit for this task in ms (0 or absent: none). */
   timeoutMs?: number;
+  /** Aborted when nobody waits for the answer any more (the client left): the task is dropped or stopped. */
+  signal?: AbortSignal;
 }
 
 /** Runs tasks somewhere and answers with their JSON result, or throws a FieldgapError. */
@@ -71,14 +73,17 @@ export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
   });
   return {
     mode: 'workers',
-    async run(task, { timeoutMs = 0 } = {}) {
+    async run(task, { timeoutMs = 0, signal: cancel } = {}) {
+      if (cancel?.aborted) throw new RequestAbortedError();
       if (piscina.queueSize >= maxQueue) throw new ServiceBusyError();
-      const signal = timeoutMs > 0 ? AbortSignal.timeout(timeoutMs) : undefined;
+      const timeout = timeoutMs > 0 ? AbortSignal.timeout(timeoutMs) : undefined;
+      const signal = timeout && cancel ? AbortSignal.any([timeout, cancel]) : (timeout ?? cancel);
       let outcome: Outcome;
       try {
         outcome = (await piscina.run(task, signal ? { signal } : {})) as Outcome;
       } catch (error) {
-        if (signal?.aborted) throw timeoutError(timeoutMs);
+        if (cancel?.aborted) throw new RequestAbortedError();
+        if (timeout?.aborted) throw timeoutError(timeoutMs);
         if (error instanceof Error && /queue is at limit|workers are busy/i.test(error.message)) {
           throw new ServiceBusyError();
         }

@@ -5,6 +5,7 @@
  */
 import { Router } from 'express';
 import type { AnalyzeOptions, AnalyzeResult } from '../../src/analysis.js';
+import { clientGoneSignal } from '../abort.js';
 import type { ComputePool } from '../pool.js';
 import { analyzeFields, type AnalyzeFields } from '../schemas.js';
 import { spectrumUpload, type UploadedSpectrum } from '../upload.js';
@@ -16,8 +17,12 @@ export interface AnalyzeRouterDeps {
   maxBodyBytes: number;
 }
 
-/** The pipeline as the routes (and the results library) call it: off the event loop, with a time limit. */
-export type AnalyzeFunction = (content: Buffer, options: AnalyzeOptions) => Promise<AnalyzeResult>;
+/**
+ * The pipeline as the routes (and the results library) call it: off the
+ * event loop, with a time limit; `signal`, when given, drops the work once
+ * nobody waits for it (see clientGoneSignal).
+ */
+export type AnalyzeFunction = (content: Buffer, options: AnalyzeOptions, signal?: AbortSignal) => Promise<AnalyzeResult>;
 
 /** The service's names (conc, path) → the pipeline's options; absent fields stay absent. */
 export function toAnalyzeOptions(fields: AnalyzeFields, fileName: string | undefined): AnalyzeOptions {
@@ -41,8 +46,8 @@ export function toAnalyzeOptions(fields: AnalyzeFields, fileName: string | undef
 
 /** analyzeSpectrum in the pool. */
 export function analyzeInPool(pool: ComputePool, timeoutMs: number): AnalyzeFunction {
-  return async (content, options) =>
-    (await pool.run({ kind: 'analyze', input: { content, options } }, { timeoutMs })) as AnalyzeResult;
+  return async (content, options, signal) =>
+    (await pool.run({ kind: 'analyze', input: { content, options } }, signal ? { timeoutMs, signal } : { timeoutMs })) as AnalyzeResult;
 }
 
 export function createAnalyzeRouter({ analyze, maxBodyBytes }: AnalyzeRouterDeps): Router {
@@ -50,7 +55,7 @@ export function createAnalyzeRouter({ analyze, maxBodyBytes }: AnalyzeRouterDeps
   router.post('/analyze', spectrumUpload(maxBodyBytes), async (_req, res) => {
     const upload = res.locals['spectrum'] as UploadedSpectrum;
     const fields = parseTextFields(analyzeFields, upload.fields);
-    res.json(await analyze(upload.content, toAnalyzeOptions(fields, upload.fileName)));
+    res.json(await analyze(upload.content, toAnalyzeOptions(fields, upload.fileName), clientGoneSignal(res)));
   });
   return router;
 }

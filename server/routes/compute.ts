@@ -5,6 +5,7 @@
  */
 import { Router, type Request } from 'express';
 import { FieldgapError } from '../../src/errors.js';
+import { clientGoneSignal } from '../abort.js';
 import type { ComputePool } from '../pool.js';
 import { toFitInput } from '../fit-input.js';
 import { diagramQuery, fitBody, levelsQuery } from '../schemas.js';
@@ -30,18 +31,18 @@ export function createComputeRouter({ pool, timeoutMs }: ComputeRouterDeps): Rou
   router.get('/levels', async (req, res) => {
     const q = parseTextFields(levelsQuery, req.query);
     const input = { d: q.d, geometry: q.geometry, dq: q.dq, b: q.b, c: q.c ?? q.cOverB! * q.b };
-    res.json(await pool.run({ kind: 'levels', input }, { timeoutMs }));
+    res.json(await pool.run({ kind: 'levels', input }, { timeoutMs, signal: clientGoneSignal(res) }));
   });
 
   router.get('/diagram', async (req, res) => {
     const input = parseTextFields(diagramQuery, req.query);
-    res.json(await pool.run({ kind: 'diagram', input }, { timeoutMs }));
+    res.json(await pool.run({ kind: 'diagram', input }, { timeoutMs, signal: clientGoneSignal(res) }));
   });
 
   router.post('/fit', async (req, res) => {
     requireJson(req);
     const body = parseJsonBody(fitBody, req.body);
-    res.json(await pool.run({ kind: 'fit', input: toFitInput(body) }, { timeoutMs }));
+    res.json(await pool.run({ kind: 'fit', input: toFitInput(body) }, { timeoutMs, signal: clientGoneSignal(res) }));
   });
 
   return router;

@@ -12,6 +12,7 @@ import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { FieldgapError } from '../../src/errors.js';
 import { startServer, type RunningServer } from '../../server/main.js';
+import { captureLogger } from './helpers.js';
 
 const silent = pino({ level: 'silent' });
 let dataDir: string;
@@ -35,6 +36,19 @@ describe('startServer', () => {
     expect(res.status).toBe(200);
     await closed;
     await expect(fetch(`${running.url}api/v1/health`)).rejects.toThrow();
+  });
+
+  it('logs a request whose client left as 499 and drops its work', async () => {
+    const { logger, logs } = captureLogger();
+    const running = await startServer({ port: 0, logger, staticDir: false, dataDir });
+    try {
+      await expect(fetch(`${running.url}api/v1/diagram?d=5&maxDqOverB=20&steps=2000`, { signal: AbortSignal.timeout(100) })).rejects.toThrow();
+      for (let i = 0; i < 100 && !logs.some((l) => l['aborted'] === true); i++) await new Promise((r) => setTimeout(r, 20));
+      expect(logs.find((l) => l['aborted'] === true)).toMatchObject({ method: 'GET', status: 499 });
+      expect(logs.some((l) => l['msg'] === 'internal error')).toBe(false);
+    } finally {
+      await running.close();
+    }
   });
 
   it('says which option to change when the port is taken', async () => {

@@ -10,7 +10,7 @@ import { analyzeSpectrum } from '../../src/analysis.js';
 import { levelsJson } from '../../src/cli/commands/levels.js';
 import { computeLevels } from '../../src/ligand-field/index.js';
 import { FieldgapError } from '../../src/errors.js';
-import { ServiceBusyError, TaskBugError } from '../../server/errors.js';
+import { RequestAbortedError, ServiceBusyError, TaskBugError } from '../../server/errors.js';
 import { createWorkerPool, type ComputePool } from '../../server/pool.js';
 import type { Task } from '../../server/tasks.js';
 import { makeTestApp, type TestApp } from './helpers.js';
@@ -79,6 +79,25 @@ describe('worker pool', () => {
     expect((error as FieldgapError).message).toContain('30 ms');
     const after = await pool.run({ kind: 'levels', input: { d: 2, geometry: 'tetrahedral', dq: 400, b: 700, c: 2800 } });
     expect((after as { d: number }).d).toBe(2);
+  });
+
+  it('drops a queued task once nobody waits for it, and stops a running one', async () => {
+    const one = createWorkerPool({ threads: 1 });
+    try {
+      const running = new AbortController();
+      const first = one.run(HEAVY, { signal: running.signal }).catch((e: unknown) => e);
+      const waiting = new AbortController();
+      const queued = one.run(HEAVY, { signal: waiting.signal }).catch((e: unknown) => e);
+      waiting.abort();
+      expect(await queued).toBeInstanceOf(RequestAbortedError);
+      running.abort();
+      expect(await first).toBeInstanceOf(RequestAbortedError);
+      // The worker is replaced and the pool answers again.
+      const after = await one.run({ kind: 'levels', input: { d: 2, geometry: 'tetrahedral', dq: 400, b: 700, c: 2800 } });
+      expect((after as { d: number }).d).toBe(2);
+    } finally {
+      await one.close();
+    }
   });
 
   it('refuses work when every worker is busy and the queue is full', async () => {
