@@ -119,7 +119,8 @@ function table(header: string[], rows: string[][]): string[] {
 export function fitReport(r: FitResult): string {
   const who = r.ion ? `${r.ion} (d${r.d})` : `d${r.d}`;
   const cMode = r.cMode === 'free' ? 'C fitted' : r.cMode === 'fixed' ? 'C fixed' : r.cOverB !== null ? `C/B fixed at ${fmt(r.cOverB, 2)}` : '';
-  const lines = [`${who} ${r.geometry}: ${r.assignments.length} band${r.assignments.length === 1 ? '' : 's'} fitted${cMode ? `, ${cMode}` : ''}`, ''];
+  const fitted = r.assignments.reduce((n, a) => n + a.bands.length, 0);
+  const lines = [`${who} ${r.geometry}: ${fitted} band${fitted === 1 ? '' : 's'} fitted${cMode ? `, ${cMode}` : ''}`, ''];
   lines.push(`  10Dq = ${fmt(r.tenDq)}${pm(r.uncertainty.tenDq)} cm-1   (Dq = ${fmt(r.dq, 1)} cm-1)`);
   if (r.b === null) {
     lines.push('  B    = not determinable from these bands');
