@@ -14,7 +14,7 @@ import { Matrix, pseudoInverse } from 'ml-matrix';
 export function referenceResample(x: number[], y: number[], kept: boolean[], grid: number[]): number[] {
   const step = grid[1]! - grid[0]!;
   return grid.map((g) => {
-    const inBin = x.map((v, i) => i).filter((i) => x[i]! >= g - step / 2 && x[i]! < g + step / 2);
+    const inBin = x.map((_, i) => i).filter((i) => x[i]! >= g - step / 2 && x[i]! < g + step / 2);
     if (inBin.length > 0) {
       if (inBin.some((i) => !kept[i])) return Number.NaN;
       return inBin.reduce((s, i) => s + y[i]!, 0) / inBin.length;
