@@ -1,6 +1,6 @@
 import { basename, extname } from 'node:path';
 import { findLigand } from '../../chemistry/ligands.js';
-import { invalidArgument } from '../../errors.js';
+import { invalidArgument, isFieldgapError } from '../../errors.js';
 import type { Ranking } from '../../series/index.js';
 import type { Command, CliIo } from '../command.js';
 import { expandInputPaths, readInputFile } from '../files.js';
@@ -15,9 +15,11 @@ import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom, plusMinus, table
  *
  * The analyses come from the library (--library, the default when no FILES
  * are given) or from spectrum FILES analysed now with the same options.
- * Each file's ligand: the --ligand options in the order of the files; for a
- * file without one, the last word of its name (split at - _ . and spaces)
- * that fieldgap knows as a ligand: "cr-NH3.csv" → NH3, "Cr_en_2.csv" → en.
+ * A file with several y columns gives one spectrum per column (unless
+ * --column picks one). Each spectrum's ligand: the --ligand options in
+ * order; for a spectrum without one, the last word of its file name, or of
+ * its column header for a many-column file (split at - _ . : and spaces),
+ * that fieldgap knows as a ligand: "cr-NH3.csv" → NH3, "Cr-en" → en.
  */
 const USAGE = `Usage: fieldgap series --ion ION [--library | FILES...] [options] [--json]
 
@@ -27,9 +29,11 @@ Jørgensen's f and h per ligand.
 
   --ion ION           the metal ion, e.g. Cr3+ (required)
   --library           use the library's analyses of ION (the default without FILES)
-  FILES...            analyse these spectra first (not saved); folders are searched
-  --ligand L          the ligand of each file, once per file in the order given;
+  FILES...            analyse these spectra first (not saved); folders are searched;
+                      a file with several y columns gives one spectrum per column
+  --ligand L          the ligand of each spectrum, once per spectrum in order;
                       without it, taken from the file name ("cr-NH3.csv" → NH3)
+                      or the column header ("Cr-en" → en)
   --criterion C       one-sigma (default: |Δ| < sqrt(σ1² + σ2²)) or two-sigma
   --data DIR          library folder (default $FIELDGAP_DATA, else ./fieldgap-data)
   --json              print the whole report as JSON
@@ -64,37 +68,76 @@ export const seriesCommand: Command = {
       if (values.ligand) throw invalidArgument('--ligand', '--ligand names the ligand of each of FILES; with --library the records carry their own');
       report = await withLibrary(values.data, io, (library) => librarySeries(library, values.ion!, { criterion }));
     } else {
-      const sources = await analyseFiles(positionals, values.ligand ?? [], analysisOptionsFrom(values), io);
+      const { sources, failed } = await analyseFiles(positionals, values.ligand ?? [], analysisOptionsFrom(values), io);
       report = buildSeries(values.ion, sources, { criterion });
+      report.skipped.push(...failed);
     }
     io.stdout(values.json ? `${JSON.stringify(report, null, 2)}\n` : reportText(report));
     return 0;
   },
 };
 
-async function analyseFiles(paths: string[], ligands: string[], options: ReturnType<typeof analysisOptionsFrom>, io: CliIo): Promise<SeriesSource[]> {
-  const files = expandInputPaths(paths, io.cwd);
-  if (ligands.length > files.length) {
-    throw invalidArgument('--ligand', `${ligands.length} --ligand options for ${files.length} files: give at most one per file`);
-  }
-  const [{ analyzeSpectrum }, { summarizeResult }] = await Promise.all([import('../../analysis.js'), import('../../../server/storage/summary.js')]);
-  return files.map((file, i): SeriesSource => {
-    const ligand = ligands[i] ?? ligandFromFileName(file);
-    const result = analyzeSpectrum(readInputFile(file, io.cwd), { ...options, fileName: basename(file) });
-    const source: SeriesSource = { id: file, sample: basename(file, extname(file)), ligands: [ligand], summary: summarizeResult(result) };
-    if (options.ion !== undefined) source.ion = options.ion;
-    return source;
-  });
+interface SpectrumToAnalyse {
+  file: string;
+  content: Uint8Array;
+  fileName: string;
+  sample: string;
+  /** The y column of a many-column file; undefined for a file's only spectrum. */
+  column: number | undefined;
+  /** Where its ligand is read from when --ligand does not say: the file or the column header. */
+  name: string;
 }
 
-/** The last word of the file name that fieldgap knows as a ligand, or an error naming the file. */
+/** Analyses that failed: left out of the series with the reason, unless every one failed. */
+interface AnalysedFiles {
+  sources: SeriesSource[];
+  failed: { id: string; sample: string; reason: string }[];
+}
+
+async function analyseFiles(paths: string[], ligands: string[], options: ReturnType<typeof analysisOptionsFrom>, io: CliIo): Promise<AnalysedFiles> {
+  const files = expandInputPaths(paths, io.cwd);
+  const [{ analyzeSpectrum, listSpectra }, { summarizeResult }] = await Promise.all([import('../../analysis.js'), import('../../../server/storage/summary.js')]);
+  // One spectrum per file, or per y column of a file that has several (unless --column picks one).
+  const spectra = files.flatMap((file): SpectrumToAnalyse[] => {
+    const content = readInputFile(file, io.cwd);
+    const fileName = basename(file);
+    const columns = options.column === undefined ? listSpectra(content, { fileName, ...(options.xUnit !== undefined && { xUnit: options.xUnit }) }) : [];
+    if (columns.length <= 1) return [{ file, content, fileName, sample: basename(file, extname(file)), column: undefined, name: file }];
+    return columns.map((c) => ({ file, content, fileName, sample: `${basename(file, extname(file))}: ${c.name}`, column: c.column, name: c.name }));
+  });
+  if (ligands.length > spectra.length) {
+    throw invalidArgument('--ligand', `${ligands.length} --ligand options for ${spectra.length} spectra: give at most one per spectrum`);
+  }
+  const out: AnalysedFiles = { sources: [], failed: [] };
+  let firstError: unknown;
+  spectra.forEach((sp, i) => {
+    const ligand = ligands[i] ?? ligandFromFileName(sp.name);
+    const id = sp.column === undefined ? sp.file : `${sp.file}:${sp.column}`;
+    let result;
+    try {
+      result = analyzeSpectrum(sp.content, { ...options, fileName: sp.fileName, ...(sp.column !== undefined && { column: sp.column }) });
+    } catch (error) {
+      if (!isFieldgapError(error)) throw error;
+      firstError ??= error;
+      out.failed.push({ id, sample: sp.sample, reason: `analysis failed: ${error.message}` });
+      return;
+    }
+    const source: SeriesSource = { id, sample: sp.sample, ligands: [ligand], summary: summarizeResult(result) };
+    if (options.ion !== undefined) source.ion = options.ion;
+    out.sources.push(source);
+  });
+  if (out.sources.length === 0) throw firstError;
+  return out;
+}
+
+/** The last word of a file name or column header that fieldgap knows as a ligand, or an error naming it. */
 export function ligandFromFileName(file: string): string {
-  const words = basename(file, extname(file)).split(/[-_.\s]+/).filter((w) => w !== '');
+  const words = basename(file, extname(file)).split(/[-_.:\s]+/).filter((w) => w !== '');
   for (const word of words.reverse()) {
     const ligand = findLigand(word);
     if (ligand) return ligand.key;
   }
-  throw invalidArgument(file, 'cannot tell the ligand from the file name: give --ligand for each file (in order) or name the file after its ligand, e.g. cr-NH3.csv');
+  throw invalidArgument(file, 'cannot tell the ligand from the name: give --ligand for each spectrum (in order) or name the file (or column) after its ligand, e.g. cr-NH3.csv');
 }
 
 function reportText(report: SeriesReport): string {
