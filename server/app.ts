@@ -21,6 +21,7 @@ import { createLogger, requestLogger } from './logging.js';
 import { buildOpenApiDocument } from './openapi.js';
 import { defaultStaticDir, packageVersion } from './paths.js';
 import { createInProcessPool, createWorkerPool, type ComputePool } from './pool.js';
+import { createAnalysesRouter } from './routes/analyses.js';
 import { analyzeInPool, createAnalyzeRouter } from './routes/analyze.js';
 import { createComputeRouter } from './routes/compute.js';
 import { createSeriesRouter } from './routes/series.js';
@@ -109,9 +110,10 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
   api.use(createComputeRouter({ pool, timeoutMs: requestTimeoutMs }));
   const analyze = analyzeInPool(pool, requestTimeoutMs);
   api.use(createAnalyzeRouter({ analyze, maxBodyBytes }));
-  app.use('/api/v1', api);
   // The results library: /api/v1/analyses (its records) and /api/v1/series, /api/v1/predict.
-  app.use('/api/v1', createSeriesRouter({ library }));
+  api.use('/analyses', createAnalysesRouter({ library, analyze, maxBodyBytes }));
+  api.use(createSeriesRouter({ library }));
+  app.use('/api/v1', api);
 
   if (staticDir !== false && existsSync(staticDir)) {
     app.use(express.static(staticDir, { dotfiles: 'ignore', index: 'index.html', redirect: false }));

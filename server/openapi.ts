@@ -5,6 +5,7 @@
  * schema to fall out of date. Built once per app.
  */
 import { z } from 'zod';
+import { analysisRecordFields, listQuery, patchBody, refitFields } from './routes/analyses.js';
 import { predictBody, seriesQuery } from './routes/series.js';
 import { analyzeFields, diagramQuery, fitBody, levelsQuery, SPECTRUM_CONTENT_TYPES } from './schemas.js';
 import {
@@ -77,6 +78,10 @@ export function buildOpenApiDocument(version: string): JsonSchema {
     },
   };
   const rawBody = Object.fromEntries(SPECTRUM_CONTENT_TYPES.map((type) => [type, { schema: { type: 'string' } }]));
+  const recordFields = jsonSchema(analysisRecordFields) as { properties?: Record<string, JsonSchema> };
+  const recordForm = { ...formSchema, properties: { ...formSchema.properties, ...recordFields.properties } };
+  const idParameter = { name: 'id', in: 'path', required: true, schema: { type: 'integer', minimum: 1 } };
+  const record = (description: string) => ({ description, content: { 'application/json': { schema: { type: 'object' } } } });
 
   return {
     openapi: '3.1.0',
@@ -132,6 +137,59 @@ export function buildOpenApiDocument(version: string): JsonSchema {
             '200': ok('The analysis, as `fieldgap analyze --json` prints it.', 'AnalyzeResult'),
             ...errorResponses(['400', '413', '415', '422', '500', '503', '504']),
           },
+        },
+      },
+      '/api/v1/analyses': {
+        post: {
+          operationId: 'addAnalysis',
+          summary: 'Analyse a spectrum and save it in the results library',
+          parameters: queryParameters(analysisRecordFields),
+          requestBody: { required: true, content: { 'multipart/form-data': { schema: recordForm }, ...rawBody } },
+          responses: { '201': record('The saved record.'), ...errorResponses(['400', '413', '415', '422', '500', '503', '504']) },
+        },
+        get: {
+          operationId: 'listAnalyses',
+          summary: 'Stored analyses, newest first',
+          parameters: queryParameters(listQuery),
+          responses: { '200': record('{ analyses, total, limit, offset }.'), ...errorResponses(['400', '500']) },
+        },
+      },
+      '/api/v1/analyses/{id}': {
+        get: {
+          operationId: 'getAnalysis',
+          summary: 'One stored analysis with its revisions',
+          parameters: [idParameter],
+          responses: { '200': record('The record.'), ...errorResponses(['400', '404', '500']) },
+        },
+        patch: {
+          operationId: 'updateAnalysis',
+          summary: 'Change the details of a stored analysis',
+          parameters: [idParameter],
+          requestBody: { required: true, content: { 'application/json': { schema: jsonSchema(patchBody) } } },
+          responses: { '200': record('The updated record.'), ...errorResponses(['400', '404', '415', '500']) },
+        },
+        delete: {
+          operationId: 'deleteAnalysis',
+          summary: 'Delete a stored analysis, its original and its history',
+          parameters: [idParameter],
+          responses: { '204': { description: 'Deleted.' }, ...errorResponses(['400', '404', '500']) },
+        },
+      },
+      '/api/v1/analyses/{id}/original': {
+        get: {
+          operationId: 'getOriginal',
+          summary: 'The original file, byte for byte',
+          parameters: [idParameter],
+          responses: { '200': { description: 'The file as uploaded.' }, ...errorResponses(['400', '404', '500']) },
+        },
+      },
+      '/api/v1/analyses/{id}/refit': {
+        post: {
+          operationId: 'refitAnalysis',
+          summary: 'Analyse the stored original again with changed options: a new revision',
+          parameters: [idParameter, ...queryParameters(refitFields)],
+          requestBody: { required: false, content: { 'application/json': { schema: jsonSchema(refitFields) } } },
+          responses: { '200': record('The record with its new revision.'), ...errorResponses(['400', '404', '422', '500', '503', '504']) },
         },
       },
       '/api/v1/series': {
