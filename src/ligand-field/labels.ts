@@ -16,14 +16,19 @@ import type { CubicIrrep, FreeIonTerm, Geometry } from './types.js';
  * level sits next to its parent term's energy.
  */
 export interface ParentTable {
-  /** `${2S+1}:${irrep}` → parent term names, in the order of the levels' rank. */
-  sequences: Map<string, string[]>;
+  /** levelKey(2S+1, Γ) → parent term names, in the order of the levels' rank. */
+  parents: Array<string[] | undefined>;
+  /** levelKey(2S+1, Γ) → display labels ("4T1g(P)") by rank, per geometry. */
+  labels: Record<Geometry, Array<string[] | undefined>>;
   /** Number of (S, Γ) levels d^n has. */
   expected(twoS: number, irrep: CubicIrrep): number;
 }
 
-export function levelKey(multiplicity: number, irrep: CubicIrrep): string {
-  return `${multiplicity}:${irrep}`;
+const IRREP_INDEX: Readonly<Record<CubicIrrep, number>> = { A1: 0, A2: 1, E: 2, T1: 3, T2: 4 };
+
+/** A small integer naming (2S+1, Γ): 5·multiplicity + irrep index. */
+export function levelKey(multiplicity: number, irrep: CubicIrrep): number {
+  return 5 * multiplicity + IRREP_INDEX[irrep];
 }
 
 const tables = new WeakMap<readonly FreeIonTerm[], ParentTable>();
@@ -32,17 +37,20 @@ const tables = new WeakMap<readonly FreeIonTerm[], ParentTable>();
 export function parentTable(terms: readonly FreeIonTerm[]): ParentTable {
   const hit = tables.get(terms);
   if (hit) return hit;
-  const sequences = new Map<string, string[]>();
+  const parents: Array<string[] | undefined> = [];
+  const labels: Record<Geometry, Array<string[] | undefined>> = { octahedral: [], tetrahedral: [] };
   for (const term of terms)
     for (const irrep of cubicComponentsOfL(term.L)) {
       const key = levelKey(term.multiplicity, irrep);
-      const list = sequences.get(key) ?? [];
-      list.push(term.term);
-      sequences.set(key, list);
+      (parents[key] ??= []).push(term.term);
+      for (const geometry of ['octahedral', 'tetrahedral'] as const) {
+        (labels[geometry][key] ??= []).push(levelLabel(termName(term.multiplicity, irrep, geometry), term.term));
+      }
     }
   const table: ParentTable = {
-    sequences,
-    expected: (twoS, irrep) => sequences.get(levelKey(twoS + 1, irrep))?.length ?? 0,
+    parents,
+    labels,
+    expected: (twoS, irrep) => parents[levelKey(twoS + 1, irrep)]?.length ?? 0,
   };
   tables.set(terms, table);
   return table;
@@ -53,12 +61,25 @@ export function irrepName(irrep: CubicIrrep, geometry: Geometry): string {
   return geometry === 'octahedral' ? `${irrep}g` : irrep;
 }
 
-/** "4T1g". */
+const termNames = new Map<string, string>();
+
+/** "4T1g" (interned). */
 export function termName(multiplicity: number, irrep: CubicIrrep, geometry: Geometry): string {
-  return `${multiplicity}${irrepName(irrep, geometry)}`;
+  const key = `${multiplicity}${irrep}${geometry}`;
+  let name = termNames.get(key);
+  if (name === undefined) termNames.set(key, (name = `${multiplicity}${irrepName(irrep, geometry)}`));
+  return name;
 }
 
-/** "4T1g(P)", "2T2g(D2)": the term with its parent's letter (and repetition number). */
+const labelCache = new Map<string, string>();
+
+/** "4T1g(P)", "2T2g(D2)": the term with its parent's letter (and repetition number). Interned. */
 export function levelLabel(term: string, parent: string): string {
-  return `${term}(${parent.replace(/^\d+/, '')})`;
+  const key = `${term}|${parent}`;
+  let label = labelCache.get(key);
+  if (label === undefined) {
+    label = `${term}(${parent.replace(/^\d+/, '')})`;
+    labelCache.set(key, label);
+  }
+  return label;
 }

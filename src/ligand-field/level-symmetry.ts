@@ -21,6 +21,8 @@ export interface RawLevel {
   irrep: CubicIrrep;
   /** cm-1, on the Hamiltonian's own zero (not yet from the ground level). */
   energy: number;
+  /** Filled in by levels.ts: 0-based rank among levels of the same (S, Γ). */
+  rank: number;
 }
 
 interface Cluster {
@@ -73,12 +75,12 @@ export function rawLevels(
       for (const cluster of clusters) {
         const single = irrepFromC4Counts(...cluster.counts);
         if (single && !(forceCharacters && single === 'E')) {
-          out.push({ twoS, irrep: single, energy: cluster.energy });
+          out.push({ twoS, irrep: single, energy: cluster.energy, rank: 0 });
           continue;
         }
         const counts = clusterIrrepsByCharacters(blocks, s, coefficients, cluster.lo, cluster.hi, cluster.counts);
         for (const irrep of CUBIC_IRREPS)
-          for (let i = 0; i < counts[irrep]; i++) out.push({ twoS, irrep, energy: cluster.energy });
+          for (let i = 0; i < counts[irrep]; i++) out.push({ twoS, irrep, energy: cluster.energy, rank: 0 });
       }
       return out;
     };
@@ -93,5 +95,7 @@ export function rawLevels(
 }
 
 function countsMatch(levels: RawLevel[], twoS: number, expected: (twoS: number, irrep: CubicIrrep) => number): boolean {
-  return CUBIC_IRREPS.every((irrep) => levels.filter((l) => l.irrep === irrep).length === expected(twoS, irrep));
+  const found: Record<CubicIrrep, number> = { A1: 0, A2: 0, E: 0, T1: 0, T2: 0 };
+  for (const level of levels) found[level.irrep]++;
+  return CUBIC_IRREPS.every((irrep) => found[irrep] === expected(twoS, irrep));
 }

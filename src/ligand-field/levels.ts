@@ -71,19 +71,22 @@ export function computeLevels(d: number, geometry: Geometry, params: FieldParame
   const ground = ranked[0]!;
   const levels: Level[] = ranked.map((r) => {
     const multiplicity = r.twoS + 1;
-    const parent = table.sequences.get(levelKey(multiplicity, r.irrep))?.[r.rank];
-    if (parent === undefined) throw new FieldgapError('internal', `no free-ion parent for level ${rankedKey(r)}`);
-    const term = termName(multiplicity, r.irrep, geometry);
+    const key = levelKey(multiplicity, r.irrep);
+    const parent = table.parents[key]?.[r.rank];
+    const label = table.labels[geometry][key]?.[r.rank];
+    if (parent === undefined || label === undefined) {
+      throw new FieldgapError('internal', `no free-ion parent for level ${multiplicity}${r.irrep} #${r.rank}`);
+    }
     const energy = r.energy - ground.energy;
     return {
       energy: energy < tol ? 0 : energy,
-      term,
+      term: termName(multiplicity, r.irrep, geometry),
       multiplicity,
       irrep: irrepName(r.irrep, geometry),
       cubicIrrep: r.irrep,
       degeneracy: multiplicity * IRREP_DIMENSION[r.irrep],
       parent,
-      label: levelLabel(term, parent),
+      label,
       rank: r.rank,
     };
   });
@@ -105,18 +108,16 @@ interface RankedLevel extends RawLevel {
   rank: number;
 }
 
-function rankedKey(r: RankedLevel): string {
-  return `${r.twoS}:${r.irrep}:${r.rank}`;
+/** Position of a level among all levels: (2S+1, Γ) key and rank packed in one number. */
+function rankedKey(r: RankedLevel): number {
+  return 64 * levelKey(r.twoS + 1, r.irrep) + r.rank;
 }
 
-/** Sorts by energy and numbers the levels of each (S, Γ) from 0 upwards. */
+/** Sorts by energy and numbers the levels of each (S, Γ) from 0 upwards (in place). */
 function rankLevels(raw: RawLevel[]): RankedLevel[] {
   raw.sort(byEnergy);
-  const ranks = new Map<string, number>();
-  return raw.map((r) => {
-    const key = `${r.twoS}:${r.irrep}`;
-    const rank = ranks.get(key) ?? 0;
-    ranks.set(key, rank + 1);
-    return { ...r, rank };
-  });
+  const ranks = new Int32Array(64);
+  const ranked = raw as RankedLevel[];
+  for (const r of ranked) r.rank = ranks[levelKey(r.twoS + 1, r.irrep)]!++;
+  return ranked;
 }

@@ -15,7 +15,13 @@ function rotationCharacter(L: number, theta: number): number {
  * repetition, in the order A1, A2, E, T1, T2: e.g. L = 3 (F) → [A2, T1, T2].
  * Derived by reducing the SO(3) characters on the classes of O.
  */
-export function cubicComponentsOfL(L: number): CubicIrrep[] {
+export function cubicComponentsOfL(L: number): readonly CubicIrrep[] {
+  const hit = cache[L];
+  if (hit) return hit;
   const counts = reduceCubicCharacters(CLASS_ANGLES.map((theta) => Math.round(rotationCharacter(L, theta) * 1e9) / 1e9));
-  return CUBIC_IRREPS.flatMap((irrep) => Array<CubicIrrep>(counts[irrep]).fill(irrep));
+  const components = Object.freeze(CUBIC_IRREPS.flatMap((irrep) => Array<CubicIrrep>(counts[irrep]).fill(irrep)));
+  cache[L] = components;
+  return components;
 }
+
+const cache: Array<readonly CubicIrrep[] | undefined> = [];
