@@ -119,11 +119,16 @@ export interface LibraryQuery {
   offset?: number;
 }
 
-/** Whether this service has the results library (older or trimmed services may not). */
+/**
+ * Whether this service has the results library, read from its OpenAPI
+ * document (asking the endpoint itself would log a 404 where it is missing).
+ */
 export async function libraryAvailable(): Promise<boolean> {
   try {
-    const response = await fetch(`${BASE}/analyses?limit=1`);
-    return response.ok;
+    const response = await fetch(`${BASE}/openapi.json`);
+    if (!response.ok) return false;
+    const document = (await response.json()) as { paths?: Record<string, unknown> };
+    return document.paths !== undefined && `${BASE}/analyses` in document.paths;
   } catch {
     return false;
   }

@@ -5,7 +5,7 @@
  */
 import Papa from 'papaparse';
 import type { AnalysisEntry } from './state.js';
-import { shownFit } from './state.js';
+import { shownFit, warningsFor } from './state.js';
 import { assignmentForBand, bandCaption } from './plots/spectrum-spec.js';
 
 export function resultJson(entry: AnalysisEntry): string {
@@ -17,7 +17,7 @@ export function resultJson(entry: AnalysisEntry): string {
       spectrum: entry.result?.spectrum ?? null,
       bands: entry.bands,
       fit,
-      warnings: [...(entry.result?.warnings ?? []), ...(fit?.warnings ?? [])],
+      warnings: warningsFor(entry),
       cOverB: entry.cOverB,
       freeC: entry.freeC,
     },

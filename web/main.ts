@@ -9,11 +9,11 @@ import { download, h, keepingFocus } from './dom.js';
 import { dCountText, safeFileStem } from './format.js';
 import { resultCsv, resultJson } from './export-results.js';
 import type { AnalysisEntry, EditableBand, SampleDetails } from './state.js';
-import { editableBandsFromResult, fitRequestFor, nextKey, shownFit } from './state.js';
+import { editableBandsFromResult, fitRequestFor, nextKey, shownFit, warningsFor } from './state.js';
 import type { ApiErrorBody } from './types.js';
 import type { AxisUnit } from './plots/spectrum-spec.js';
 import { createUploadPanel } from './views/upload.js';
-import { alternativesPanel, assignmentTable, parameterCards, warningsBox } from './views/results.js';
+import { alternativesPanel, assignmentTable, notesBox, parameterCards, warningsBox } from './views/results.js';
 import { bandsPanel } from './views/bands.js';
 import { diagramFigure, spectrumFigures } from './views/plots.js';
 import { renderCompare } from './views/compare.js';
@@ -141,7 +141,7 @@ function renderMain(root: HTMLElement): void {
     return;
   }
   const fit = shownFit(entry);
-  const warnings = [...entry.result.warnings, ...(fit?.warnings ?? [])];
+  const warnings = warningsFor(entry);
   const stem = safeFileStem(entry.fileName);
   const subtitle = fit === null ? 'No ligand-field fit for this spectrum.' : `${fit.ion ?? entry.details.ion ?? ''} ${dCountText(fit.d)}, ${fit.geometry}${entry.shownAlternative === null ? '' : ` — showing alternative ${entry.shownAlternative + 1}`}`;
   root.replaceChildren(
@@ -149,6 +149,7 @@ function renderMain(root: HTMLElement): void {
     h('p', { class: 'subtitle', id: 'result-subtitle' }, subtitle, h('span', { class: 'muted' }, ` · ${entry.fileName}, ${entry.result.spectrum.points} points`)),
     warningsBox(warnings) ?? '',
     fit === null ? '' : parameterCards(fit, entry.originalFit),
+    notesBox(fit?.notes ?? []) ?? '',
     h(
       'div',
       { class: 'toolbar downloads' },

@@ -174,14 +174,61 @@ export function hasBandCorrections(entry: AnalysisEntry): boolean {
   });
 }
 
-/** The fit shown: an alternative when the user picked one, else the best. */
+/** Unpaired electrons from a term's multiplicity 2S+1 (n = 2S). */
+export function unpairedFromTerm(term: string): number | null {
+  const match = /^(\d+)/.exec(term);
+  return match === null ? null : Number(match[1]) - 1;
+}
+
+/**
+ * The fit shown: an alternative when the user picked one, else the best.
+ * An alternative carries no uncertainties, so none are shown for it; its
+ * magnetism follows its own ground term (spin-only μ = √(n(n+2)) μB).
+ */
 export function shownFit(entry: AnalysisEntry): FitResult | null {
   const fit = entry.fit;
   if (fit === null) return null;
   const index = entry.shownAlternative;
   const alternative = index === null ? undefined : fit.alternatives?.[index];
   if (alternative === undefined) return fit;
-  return { ...fit, ...alternative, alternatives: fit.alternatives ?? [] } as FitResult;
+  const shown: FitResult = {
+    ...fit,
+    uncertainty: { tenDq: null, b: null, c: null },
+    predicted: [],
+    unassigned: [],
+    warnings: alternative.reason === undefined ? [] : [`alternative assignment: ${alternative.reason}`],
+    notes: [],
+    message: 'an alternative assignment, shown for comparison',
+  };
+  if (alternative.tenDq !== undefined) shown.tenDq = alternative.tenDq;
+  if (alternative.dq !== undefined) shown.dq = alternative.dq;
+  if (alternative.b !== undefined) shown.b = alternative.b;
+  if (alternative.c !== undefined) shown.c = alternative.c;
+  if (alternative.beta !== undefined) shown.beta = alternative.beta;
+  if (alternative.rmsResidual !== undefined) shown.rmsResidual = alternative.rmsResidual;
+  if (alternative.assignments !== undefined) shown.assignments = alternative.assignments;
+  if (alternative.spinState !== undefined) shown.spinState = alternative.spinState;
+  if (alternative.groundTerm !== undefined && alternative.groundTerm !== fit.groundTerm) {
+    shown.groundTerm = alternative.groundTerm;
+    const n = unpairedFromTerm(alternative.groundTerm);
+    if (n !== null) {
+      shown.unpairedElectrons = n;
+      shown.spinOnlyMoment = Math.sqrt(n * (n + 2));
+    }
+  }
+  shown.cOverB = shown.b !== null && shown.c !== null && shown.b > 0 ? shown.c / shown.b : fit.cOverB;
+  return shown;
+}
+
+/**
+ * Warnings to show: the spectrum's, then the shown fit's. The analysis
+ * lists its fit's warnings among its own with a "fit: " prefix
+ * (src/analysis.ts); those are replaced by the warnings of the fit shown,
+ * which may be a refit or an alternative.
+ */
+export function warningsFor(entry: AnalysisEntry): string[] {
+  const spectrum = (entry.result?.warnings ?? []).filter((w) => !w.startsWith('fit: '));
+  return [...spectrum, ...(shownFit(entry)?.warnings ?? []).map((w) => `fit: ${w}`)];
 }
 
 let counter = 0;

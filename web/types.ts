@@ -61,7 +61,8 @@ export interface Assignment {
   /** cm-1. */
   calculated: number;
   term: string;
-  parent: string;
+  /** Absent in the assignments of an alternative. */
+  parent?: string;
   label?: string;
 }
 
@@ -80,28 +81,44 @@ export interface FitResult {
   geometry: Geometry;
   dq: number;
   tenDq: number;
-  b: number;
-  c: number;
-  cOverB: number;
+  /** null when the bands do not determine it. */
+  b: number | null;
+  c: number | null;
+  cOverB: number | null;
   beta: number | null;
   freeIonB: number | null;
   groundTerm: string;
   spinState: string;
   unpairedElectrons: number;
   spinOnlyMoment: number;
-  lfse?: number | null;
+  lfse?: unknown;
   rmsResidual: number | null;
   status: string;
   message?: string;
   uncertainty: { tenDq: number | null; b: number | null; c: number | null };
   assignments: Assignment[];
+  /** Bands the fit did not use, and why. */
+  unassigned?: { observed: number; band: number; reason: string }[];
   alternatives?: Alternative[];
   predicted: PredictedLevel[];
   warnings: string[];
+  notes?: string[];
 }
 
-/** A competing assignment the fit found close to the best one. */
-export type Alternative = Partial<FitResult> & { assignments?: Assignment[] };
+/** A competing assignment the fit found close to the best one (no uncertainties). */
+export interface Alternative {
+  assignments?: Assignment[];
+  rmsResidual?: number;
+  dq?: number;
+  tenDq?: number;
+  b?: number | null;
+  c?: number | null;
+  beta?: number | null;
+  groundTerm?: string;
+  spinState?: string;
+  /** Why the best assignment was preferred to this one. */
+  reason?: string;
+}
 
 /** The curves behind the spectrum plot, on one uniform grid in cm-1 (ascending). */
 export interface Curves {

@@ -29,7 +29,9 @@ const KINDS: { value: BandKind; text: string }[] = [
 
 function bandRow(entry: AnalysisEntry, band: EditableBand, index: number, handlers: BandHandlers): HTMLElement {
   const found = band.sourceIndex === null ? undefined : entry.result?.bands[band.sourceIndex];
-  const assignments = shownFit(entry)?.assignments ?? [];
+  const fit = shownFit(entry);
+  const assignments = fit?.assignments ?? [];
+  const unused = band.included ? fit?.unassigned?.find((u) => Math.abs(u.observed - band.position) <= 1) : undefined;
   const kind = h(
     'select',
     { id: `band-${index}-kind`, 'aria-label': `Kind of band ${index + 1}`, disabled: !band.included },
@@ -52,7 +54,7 @@ function bandRow(entry: AnalysisEntry, band: EditableBand, index: number, handle
     h('td', { class: 'num' }, formatNumber(nmFromWavenumber(band.position), 1)),
     h('td', { class: 'num' }, formatNumber(band.epsilon, 1)),
     h('td', { class: 'num' }, formatNumber(found?.fwhm, 0)),
-    h('td', {}, bandCaption(band, assignments)),
+    h('td', {}, bandCaption(band, assignments), unused === undefined ? null : h('div', { class: 'muted small' }, `not used: ${unused.reason}`)),
     h('td', {}, kind),
     h('td', { class: 'center' }, shoulder),
     h('td', {}, action),

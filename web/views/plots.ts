@@ -105,9 +105,17 @@ export function spectrumFigures(entry: AnalysisEntry, unit: AxisUnit, pickArmed:
   return out;
 }
 
+/** The fitted Dq/B, or null when the fit did not determine B. */
+function fittedDqOverB(fit: FitResult): number | null {
+  return fit.b !== null && fit.b > 0 ? fit.dq / fit.b : null;
+}
+
+/** C/B used by the analysis when the fit reports none (src/analysis.ts: free-ion ratio, else 4.5). */
+const FALLBACK_C_OVER_B = 4.5;
+
 function diagramKey(fit: FitResult): api.DiagramQuery {
-  const dqOverB = fit.b > 0 ? fit.dq / fit.b : 0;
-  return { d: fit.d, geometry: fit.geometry, cOverB: Number(fit.cOverB.toFixed(3)), maxDqOverB: diagramRangeFor(dqOverB), steps: 160 };
+  const cOverB = fit.cOverB ?? (fit.b !== null && fit.c !== null && fit.b > 0 ? fit.c / fit.b : FALLBACK_C_OVER_B);
+  return { d: fit.d, geometry: fit.geometry, cOverB: Number(cOverB.toFixed(3)), maxDqOverB: diagramRangeFor(fittedDqOverB(fit) ?? 0), steps: 160 };
 }
 
 export function diagramFigure(entry: AnalysisEntry): HTMLElement | null {
@@ -130,7 +138,7 @@ export function diagramFigure(entry: AnalysisEntry): HTMLElement | null {
   pending.then(
     (diagram) => {
       if (!host.isConnected) return;
-      const spec = diagramSpec({ diagram, dqOverB: fit.b > 0 ? fit.dq / fit.b : null, b: fit.b, assignments: fit.assignments });
+      const spec = diagramSpec({ diagram, dqOverB: fittedDqOverB(fit), b: fit.b, assignments: fit.assignments });
       mount('diagram', host, spec);
     },
     (error: unknown) => {

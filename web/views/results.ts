@@ -12,6 +12,12 @@ export interface ResultHandlers {
   onShowAlternative(index: number | null): void;
 }
 
+/** The fit's remarks that are not warnings, kept out of the way. */
+export function notesBox(notes: readonly string[]): HTMLElement | null {
+  if (notes.length === 0) return null;
+  return h('details', { class: 'notes', id: 'fit-notes' }, h('summary', {}, `Notes from the fit (${notes.length})`), h('ul', {}, ...notes.map((n) => h('li', {}, n))));
+}
+
 export function warningsBox(messages: readonly string[]): HTMLElement | null {
   if (messages.length === 0) return null;
   return h(
@@ -52,8 +58,14 @@ export function parameterCards(fit: FitResult, original: FitResult | null): HTML
     card('p-spin', 'Spin state', spinStateText(fit.spinState), '', fit.spinState === 'no-choice' ? `${dCountText(fit.d)} has no high-/low-spin choice · ground term ${fit.groundTerm}` : `ground term ${fit.groundTerm}`),
     card('p-unpaired', 'Unpaired electrons', String(fit.unpairedElectrons), ''),
     card('p-moment', 'Spin-only moment', formatNumber(fit.spinOnlyMoment, 2), UNIT.moment),
-    card('p-rms', 'RMS residual', formatNumber(fit.rmsResidual, 0), UNIT.wavenumber, `fit: ${fit.status}${fit.message === undefined ? '' : ` — ${fit.message}`}`),
+    card('p-rms', 'RMS residual', formatNumber(fit.rmsResidual, 0), UNIT.wavenumber, fitStatusNote(fit)),
   );
+}
+
+/** "fit: converged"; the fit's own message only when it did not simply converge. */
+function fitStatusNote(fit: FitResult): string {
+  const plain = fit.status === 'converged' || fit.status === 'exact';
+  return plain || fit.message === undefined ? `fit: ${fit.status}` : `fit: ${fit.status} — ${fit.message}`;
 }
 
 export function assignmentTable(fit: FitResult): HTMLElement {
@@ -85,12 +97,12 @@ export function assignmentTable(fit: FitResult): HTMLElement {
   );
 }
 
-function alternativeSummary(alternative: Alternative): string {
+function alternativeSummary(alternative: Alternative | FitResult): string {
   const parts: string[] = [];
   if (typeof alternative.tenDq === 'number') parts.push(`10Dq ${formatNumber(alternative.tenDq)} ${UNIT.wavenumber}`);
   if (typeof alternative.b === 'number') parts.push(`B ${formatNumber(alternative.b)} ${UNIT.wavenumber}`);
   if (typeof alternative.rmsResidual === 'number') parts.push(`rms ${formatNumber(alternative.rmsResidual)} ${UNIT.wavenumber}`);
-  if (typeof alternative.spinState === 'string') parts.push(spinStateText(alternative.spinState));
+  if (typeof alternative.spinState === 'string' && alternative.spinState !== 'no-choice') parts.push(spinStateText(alternative.spinState));
   const levels = (alternative.assignments ?? []).map((a) => levelLabel(a.term, a.parent, a.label));
   if (levels.length > 0) parts.push(levels.join(', '));
   return parts.join(' · ');

@@ -100,3 +100,26 @@ describe('band uncertainty sent to the fit', () => {
     expect(fitUncertaintyOf({ position: 17_400, kind: 'd-d' })).toBeNull();
   });
 });
+
+describe('warnings shown', () => {
+  it('keep the spectrum warnings and replace the analysis fit warnings by those of the fit shown', async () => {
+    const { warningsFor } = await import('../../../web/state.js');
+    const e = entry();
+    e.result = { spectrum: { points: 1, range: [1, 2], xUnit: 'nm', yUnit: 'absorbance', masked: [] }, bands: [], fit, warnings: ['edge modelled', 'fit: old fit warning'] };
+    e.fit = { ...fit, warnings: ['new fit warning'] };
+    expect(warningsFor(e)).toEqual(['edge modelled', 'fit: new fit warning']);
+    e.shownAlternative = 0;
+    expect(warningsFor(e)).toEqual(['edge modelled']);
+  });
+
+  it('an alternative shows no uncertainties and its own magnetism', () => {
+    const e = entry();
+    e.fit = { ...fit, alternatives: [{ tenDq: 9000, b: 500, c: 2000, groundTerm: '1A1g', spinState: 'low-spin', assignments: [] }] };
+    e.shownAlternative = 0;
+    const shown = shownFit(e)!;
+    expect(shown.uncertainty).toEqual({ tenDq: null, b: null, c: null });
+    expect(shown.unpairedElectrons).toBe(0);
+    expect(shown.spinOnlyMoment).toBe(0);
+    expect(shown.cOverB).toBe(4);
+  });
+});
