@@ -10,7 +10,7 @@ import { createEigenWorkspace, symmetricEigen, symmetricEigenvaluesInPlace, type
 interface Workspace {
   scratch: Float64Array;
   eigen: EigenWorkspace;
-  /** values[spinIndex][k] for k = 0, 1, 2 (k = 3 has the spectrum of k = 1). */
+  /** values[spinIndex][channel] (CHANNELS: k0+, k0−, k1, k2+, k2−). */
   values: Float64Array[][];
 }
 
@@ -23,7 +23,7 @@ function workspaceFor(blocks: CubicBlocks): Workspace {
     ws = {
       scratch: new Float64Array(largest * largest),
       eigen: createEigenWorkspace(largest),
-      values: blocks.blocks.map((row) => row.slice(0, 3).map((b) => new Float64Array(b.size))),
+      values: blocks.blocks.map((row) => row.map((b) => new Float64Array(b.size))),
     };
     workspaces.set(blocks, ws);
   }
@@ -46,19 +46,18 @@ export function blockHamiltonianInto(block: OperatorBlock, coefficients: ArrayLi
 }
 
 /**
- * Ascending eigenvalues of every cubic block (spin S, k = 0, 1, 2) at the
- * parameters [dq, b, c]: the spin-S levels' components with C4 label k. The arrays belong to the workspace: valid until the next call
+ * Ascending eigenvalues of every cubic block (spin S, channel) at the
+ * parameters [dq, b, c]: the spin-S levels' components in that channel. The arrays belong to the workspace: valid until the next call
  * with the same blocks.
  */
 export function cubicBlockEigenvalues(blocks: CubicBlocks, coefficients: ArrayLike<number>): Float64Array[][] {
   const ws = workspaceFor(blocks);
   blocks.blocks.forEach((row, s) => {
-    for (let k = 0; k < 3; k++) {
-      const block = row[k]!;
-      if (block.size === 0) continue;
+    row.forEach((block, channel) => {
+      if (block.size === 0) return;
       blockHamiltonianInto(block, coefficients, ws.scratch);
-      symmetricEigenvaluesInPlace(ws.scratch, block.size, ws.values[s]![k]!, ws.eigen);
-    }
+      symmetricEigenvaluesInPlace(ws.scratch, block.size, ws.values[s]![channel]!, ws.eigen);
+    });
   });
   return ws.values;
 }

@@ -6,6 +6,9 @@ import {
   gramMatrix, nullSpaceBasis, oneBodyTransitionMatrix, ORBITAL_RAISING, projectMatrix, SPIN_RAISING,
 } from './spin-projection.js';
 import type { Geometry } from './types.js';
+import { CHANNELS } from './cubic-group.js';
+import { symmetricEigen } from './eigen-symmetric.js';
+import { determinantRotation, dOrbitalRotation, ROTATIONS } from './rotations.js';
 
 /**
  * The symmetry blocks of the d^n Hamiltonian and their precomputed operator
@@ -17,7 +20,9 @@ import type { Geometry } from './types.js';
  * Cubic blocks: spin S and k = M_L mod 4, the C4(z) label (the cubic field
  * couples m_l with m_l ± 4 only; repulsion conserves M_L). Each block is the
  * spin-S subspace (kernel of S+, see spin-projection.ts) of the determinants
- * with M_S = S and M_L ≡ k (mod 4). Free-ion blocks: one per (S, L) present,
+ * with M_S = S and M_L ≡ k (mod 4); k = 0 and k = 2 are split further by
+ * their parity under C2 about x (see CHANNELS in cubic-group.ts), which
+ * commutes with H and roughly halves the work of diagonalising them. Free-ion blocks: one per (S, L) present,
  * the subspace of M_S = S, M_L = L killed by S+ and L+: one dimension per term.
  */
 export interface OperatorBlock {
@@ -40,8 +45,10 @@ export interface CubicBlocks {
   geometry: Geometry;
   /** 2S values present, ascending. */
   twoSValues: number[];
-  /** blocks[spinIndex][k], k = 0..3 (k = 3 mirrors k = 1 and is used only for characters). */
+  /** blocks[spinIndex][channel], channels k0+, k0−, k1, k2+, k2− (CHANNELS). */
   blocks: OperatorBlock[][];
+  /** The k = 3 block of each spin: the mirror of k = 1, used only for characters. */
+  mirrors: OperatorBlock[];
 }
 
 function spinValues(n: number): number[] {
@@ -73,6 +80,38 @@ function projectedBlock(
   return { twoS, label, masks, size: dimension, basis, operators };
 }
 
+/**
+ * The part of a block with C2(x) parity +1 or −1: diagonalise C2(x) on the
+ * block (a real involution there) and project onto one eigenspace.
+ */
+function parityPart(block: OperatorBlock, parity: number, c2x: Float64Array): OperatorBlock {
+  const n = block.size;
+  const { values, vectors } = symmetricEigen(c2x, n);
+  const keep: number[] = [];
+  for (let j = 0; j < n; j++) if (Math.sign(values[j]!) === parity) keep.push(j);
+  const m = keep.length;
+  const w = new Float64Array(n * m);
+  keep.forEach((j, c) => {
+    for (let i = 0; i < n; i++) w[i * m + c] = vectors[i * n + j]!;
+  });
+  const rows = block.masks.length;
+  const basis = new Float64Array(rows * m);
+  for (let i = 0; i < rows; i++)
+    for (let a = 0; a < n; a++) {
+      const u = block.basis[i * n + a]!;
+      if (u === 0) continue;
+      for (let c = 0; c < m; c++) basis[i * m + c] += u * w[a * m + c]!;
+    }
+  const operators = block.operators.map((op) => projectMatrix(op, w, n, m));
+  return { twoS: block.twoS, label: block.label, masks: block.masks, size: m, basis, operators };
+}
+
+/** C2(x) on the projected block (its real part: C2(x) is a real signed permutation of determinants). */
+function projectedC2x(block: OperatorBlock): Float64Array {
+  const full = determinantRotation(block.masks, dOrbitalRotation(ROTATIONS.c2x)).re;
+  return projectMatrix(full, block.basis, block.masks.length, block.size);
+}
+
 const cubicCache = new Map<string, CubicBlocks>();
 
 /** The cubic blocks of d^n in a geometry, built once and cached. n in 1..9. */
@@ -87,12 +126,16 @@ export function cubicBlocks(n: number, geometry: Geometry): CubicBlocks {
   const build = (masks: number[]): Float64Array[] => [
     oneBodyBlockMatrix(masks, field), twoBodyBlockMatrix(masks, coefB), twoBodyBlockMatrix(masks, coefC),
   ];
-  const blocks = twoSValues.map((twoS) =>
+  const byK = twoSValues.map((twoS) =>
     [0, 1, 2, 3].map((k) =>
       projectedBlock(all, all.filter((m) => maskTwoMs(m) === twoS && maskC4Label(m) === k), twoS, k, undefined, build),
     ),
   );
-  const result: CubicBlocks = { n, geometry, twoSValues, blocks };
+  const blocks = byK.map((row) => {
+    const parity = [row[0]!, row[2]!].map((block) => projectedC2x(block));
+    return CHANNELS.map(({ k, parity: p }) => (k === 1 ? row[1]! : parityPart(row[k]!, p, parity[k / 2]!)));
+  });
+  const result: CubicBlocks = { n, geometry, twoSValues, blocks, mirrors: byK.map((row) => row[3]!) };
   cubicCache.set(key, result);
   return result;
 }

@@ -42,32 +42,53 @@ export function reduceCubicCharacters(chi: readonly number[]): Record<CubicIrrep
 }
 
 /**
- * Counts of a level's components in the C4(z) blocks k = 0, 1, 2 (k = 3
- * mirrors k = 1) for each irrep: restricted to C4, A1 → k0, A2 → k2,
- * E → k0 + k2, T1 → k0 + k1 + k3, T2 → k2 + k1 + k3.
+ * Symmetry channels of the cubic blocks: k = M_L mod 4 (the C4(z) label) and,
+ * for k = 0 and 2, the parity under C2 about x (which maps M_L → −M_L, so
+ * k = 0 and k = 2 map to themselves; k = 1 and 3 swap and k = 3 is the
+ * mirror image of k = 1). Channel order: k0+, k0−, k1, k2+, k2−.
+ *
+ * Restricted to D4 (C4 along z, C2′ along x), each irrep of O has its own
+ * pattern of channel counts: A1 → k0+; A2 → k2+ (B1 of D4); E → k0+ + k2+;
+ * T1 → k0− + k1 (+ k3); T2 → k2− + k1 (+ k3).
  */
-export const C4_PATTERN: Readonly<Record<CubicIrrep, readonly [number, number, number]>> = {
-  A1: [1, 0, 0],
-  A2: [0, 0, 1],
-  E: [1, 0, 1],
-  T1: [1, 1, 0],
-  T2: [0, 1, 1],
+export const CHANNELS = [
+  { k: 0, parity: 1 },
+  { k: 0, parity: -1 },
+  { k: 1, parity: 0 },
+  { k: 2, parity: 1 },
+  { k: 2, parity: -1 },
+] as const;
+
+export type ChannelCounts = [number, number, number, number, number];
+
+export const CHANNEL_PATTERN: Readonly<Record<CubicIrrep, readonly number[]>> = {
+  A1: [1, 0, 0, 0, 0],
+  A2: [0, 0, 0, 1, 0],
+  E: [1, 0, 0, 1, 0],
+  T1: [0, 1, 1, 0, 0],
+  T2: [0, 0, 1, 0, 1],
 };
 
 /**
- * The irrep whose C4 pattern equals (n0, n1, n2), or undefined when the
- * counts are a sum of several irreps. (1, 0, 1) reads as E, though A1 + A2
- * has the same pattern; levels.ts catches that case by counting.
+ * The irrep whose channel pattern equals counts, or undefined when the
+ * counts are a sum of several irreps. [1, 0, 0, 1, 0] reads as E, though
+ * A1 + A2 has the same pattern; levels.ts catches that case by counting.
  */
-export function irrepFromC4Counts(n0: number, n1: number, n2: number): CubicIrrep | undefined {
+export function irrepFromChannelCounts(counts: readonly number[]): CubicIrrep | undefined {
   for (const irrep of CUBIC_IRREPS) {
-    const [a, b, c] = C4_PATTERN[irrep];
-    if (a === n0 && b === n1 && c === n2) return irrep;
+    const pattern = CHANNEL_PATTERN[irrep];
+    if (pattern.every((n, c) => n === counts[c])) return irrep;
   }
   return undefined;
 }
 
-/** χ(E), χ(C2), χ(C4) of a set of states from its C4 block counts (k3 = k1). */
-export function charactersFromC4Counts(n0: number, n1: number, n2: number): { e: number; c2: number; c4: number } {
+/**
+ * χ(E), χ(C2), χ(C4) of a set of states from its channel counts (k3 = k1):
+ * C4(z) is e^(−ikπ/2) on channel k; C2(z) = C4² is (−1)^k.
+ */
+export function charactersFromChannelCounts(counts: readonly number[]): { e: number; c2: number; c4: number } {
+  const [n0p, n0m, n1, n2p, n2m] = counts as ChannelCounts;
+  const n0 = n0p + n0m;
+  const n2 = n2p + n2m;
   return { e: n0 + 2 * n1 + n2, c2: n0 - 2 * n1 + n2, c4: n0 - n2 };
 }

@@ -1,7 +1,7 @@
 import { cubicBlockEigenvalues } from './block-spectra.js';
 import type { CubicBlocks } from './blocks.js';
 import { clusterIrrepsByCharacters } from './cluster-characters.js';
-import { CUBIC_IRREPS, irrepFromC4Counts } from './cubic-group.js';
+import { CUBIC_IRREPS, irrepFromChannelCounts, type ChannelCounts } from './cubic-group.js';
 import type { CubicIrrep } from './types.js';
 
 /**
@@ -10,8 +10,8 @@ import type { CubicIrrep } from './types.js';
  * Spin: the levels of spin S are the eigenvalues of block M_S = S less (as a
  * multiset, per C4 block) those of M_S = S + 1; blocks.ts gets them at once
  * by diagonalising H on the kernel of S+ in M_S = S. Symmetry: eigenvalues of one
- * spin within tol of each other form a cluster; its counts (n0, n1, n2) in
- * the C4 blocks k = 0, 1, 2 name the irrep (see cubic-group.ts). Clusters
+ * spin within tol of each other form a cluster; its counts in the symmetry
+ * channels (k = M_L mod 4 and C2(x) parity) name the irrep (see cubic-group.ts). Clusters
  * with any other count pattern are reduced by the characters of O
  * (cluster-characters.ts), which is exact for any degeneracy.
  */
@@ -29,19 +29,21 @@ interface Cluster {
   energy: number;
   lo: number;
   hi: number;
-  counts: [number, number, number];
+  counts: ChannelCounts;
 }
 
-/** Clusters of the spin-S eigenvalues, given per C4 block k = 0, 1, 2 (each sorted). */
-function clustersOf(perK: readonly Float64Array[], tol: number): Cluster[] {
+/** Clusters of the spin-S eigenvalues, given per channel (each sorted). */
+function clustersOf(perChannel: readonly Float64Array[], tol: number): Cluster[] {
   const items: Array<[number, number]> = [];
-  for (let k = 0; k < 3; k++) for (const e of perK[k]!) items.push([e, k]);
+  perChannel.forEach((values, channel) => {
+    for (const e of values) items.push([e, channel]);
+  });
   items.sort((x, y) => x[0] - y[0]);
   const clusters: Cluster[] = [];
   for (let i = 0; i < items.length; ) {
     let j = i + 1;
     while (j < items.length && items[j]![0] - items[j - 1]![0] <= tol) j++;
-    const counts: [number, number, number] = [0, 0, 0];
+    const counts: ChannelCounts = [0, 0, 0, 0, 0];
     let sum = 0;
     for (let t = i; t < j; t++) {
       counts[items[t]![1]]!++;
@@ -73,7 +75,7 @@ export function rawLevels(
     const resolve = (forceCharacters: boolean): RawLevel[] => {
       const out: RawLevel[] = [];
       for (const cluster of clusters) {
-        const single = irrepFromC4Counts(...cluster.counts);
+        const single = irrepFromChannelCounts(cluster.counts);
         if (single && !(forceCharacters && single === 'E')) {
           out.push({ twoS, irrep: single, energy: cluster.energy, rank: 0 });
           continue;

@@ -79,6 +79,8 @@ export const ROTATIONS = {
   c4: [0, -1, 0, 1, 0, 0, 0, 0, 1],
   /** C2 about z. */
   c2: [-1, 0, 0, 0, -1, 0, 0, 0, 1],
+  /** C2 about x (same class as C2 about z): the parity that splits blocks k = 0 and 2. */
+  c2x: [1, 0, 0, 0, -1, 0, 0, 0, -1],
 } as const;
 
 /** Determinant of a small complex matrix (row-major), by Gaussian elimination with partial pivoting. */

@@ -3,7 +3,7 @@ import { cubicBlockEigenvalues } from '../../src/ligand-field/block-spectra.js';
 import { cubicBlocks } from '../../src/ligand-field/blocks.js';
 import { dShellMasks, maskTwoMs } from '../../src/ligand-field/determinants.js';
 import { clusterIrrepsByCharacters } from '../../src/ligand-field/cluster-characters.js';
-import { C4_PATTERN, CUBIC_IRREPS, irrepFromC4Counts, reduceCubicCharacters } from '../../src/ligand-field/cubic-group.js';
+import { CHANNEL_PATTERN, CUBIC_IRREPS, irrepFromChannelCounts, reduceCubicCharacters } from '../../src/ligand-field/cubic-group.js';
 import { cubicFieldOrbitalMatrix } from '../../src/ligand-field/cubic-field.js';
 import { dShellRepulsionIntegrals } from '../../src/ligand-field/repulsion.js';
 import { determinantRotation, dOrbitalRotation, ROTATIONS } from '../../src/ligand-field/rotations.js';
@@ -21,10 +21,21 @@ describe('the group O', () => {
     expect(() => reduceCubicCharacters([2, 0, 0, 0, 0])).toThrow();
   });
 
-  it('C4 patterns: each single irrep is recognised, sums are not', () => {
-    for (const irrep of CUBIC_IRREPS) expect(irrepFromC4Counts(...C4_PATTERN[irrep])).toBe(irrep);
-    expect(irrepFromC4Counts(2, 0, 1)).toBeUndefined(); // A1 + E
-    expect(irrepFromC4Counts(1, 2, 1)).toBeUndefined(); // T1 + T2
+  it('channel patterns: each single irrep is recognised, sums are not', () => {
+    for (const irrep of CUBIC_IRREPS) expect(irrepFromChannelCounts(CHANNEL_PATTERN[irrep])).toBe(irrep);
+    expect(irrepFromChannelCounts([2, 0, 0, 1, 0])).toBeUndefined(); // A1 + E
+    expect(irrepFromChannelCounts([0, 1, 2, 0, 1])).toBeUndefined(); // T1 + T2
+  });
+
+  it('channel patterns agree with the characters of O restricted to C4(z) and C2(x)', () => {
+    // χ(C4) = n(k0) − n(k2); χ(C2x) = n(k0+) − n(k0−) + n(k2+) − n(k2−) (k = ±1 pairs swap: trace 0); χ(C2x) = χ(C2) class.
+    const table = { A1: [1, 1, 1, 1, 1], A2: [1, 1, 1, -1, -1], E: [2, -1, 2, 0, 0], T1: [3, 0, -1, 1, -1], T2: [3, 0, -1, -1, 1] }; // common practice (character table of O)
+    for (const irrep of CUBIC_IRREPS) {
+      const [a, b, c, d, e] = CHANNEL_PATTERN[irrep] as [number, number, number, number, number];
+      expect(a + b + 2 * c + d + e).toBe(table[irrep][0]);
+      expect(a + b - d - e).toBe(table[irrep][3]);
+      expect(a - b + d - e).toBe(table[irrep][2]);
+    }
   });
 
   it('free-ion L splits in O as in the standard correlation table', () => {
@@ -77,12 +88,12 @@ describe('rotations of determinants', () => {
         const ground = Math.min(...cubicBlockEigenvalues(blocks, coefficients).flat().map((v) => (v.length ? v[0]! : Infinity)));
         const tol = 1e-6 * params.b;
         // Levels of one spin at one energy (e.g. 4A1g + 4Eg in d5) are checked together.
-        const groups = new Map<string, { twoS: number; energy: number; irreps: Record<string, number>; counts: [number, number, number] }>();
+        const groups = new Map<string, { twoS: number; energy: number; irreps: Record<string, number>; counts: number[] }>();
         for (const level of computeLevels(d, geometry, params).levels) {
           const key = `${level.multiplicity}:${level.energy.toFixed(3)}`;
-          const group = groups.get(key) ?? { twoS: level.multiplicity - 1, energy: level.energy, irreps: { A1: 0, A2: 0, E: 0, T1: 0, T2: 0 }, counts: [0, 0, 0] };
+          const group = groups.get(key) ?? { twoS: level.multiplicity - 1, energy: level.energy, irreps: { A1: 0, A2: 0, E: 0, T1: 0, T2: 0 }, counts: [0, 0, 0, 0, 0] };
           group.irreps[level.cubicIrrep]! += 1;
-          C4_PATTERN[level.cubicIrrep].forEach((n, k) => (group.counts[k]! += n));
+          CHANNEL_PATTERN[level.cubicIrrep].forEach((n, k) => (group.counts[k]! += n));
           groups.set(key, group);
         }
         for (const [key, group] of groups) {
