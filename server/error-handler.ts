@@ -14,7 +14,6 @@ interface HttpishError {
   status?: unknown;
   statusCode?: unknown;
   limit?: unknown;
-  expose?: unknown;
   message?: unknown;
 }
 
@@ -42,7 +41,8 @@ export function fromHttpError(error: unknown): FieldgapError | undefined {
       break;
   }
   const status = typeof e.status === 'number' ? e.status : typeof e.statusCode === 'number' ? e.statusCode : 0;
-  if (status >= 400 && status < 500 && e.expose === true) {
+  // Express's own 4xx errors (a path parameter that is not valid percent-encoding, ...) are about the request.
+  if (status >= 400 && status < 500) {
     return new FieldgapError('invalid-argument', `request: ${String(e.message)}`, 'request');
   }
   return undefined;

@@ -174,6 +174,10 @@ describe('unknown routes and bugs', () => {
     expect(errorResponse.parse(res.body).error).toMatchObject({ code: 'not-found', path: '/api/v1/nothing-here' });
     await request(t.app).delete('/api/v1/levels').expect(404);
   });
+  it('answers 400, not 500, for a path that is not valid percent-encoding', async () => {
+    const res = await request(t.app).get('/api/v1/analyses/%E0%A4').expect(400);
+    expect(res.body.error).toMatchObject({ code: 'invalid-argument', path: 'request' });
+  });
   it('answers a bug with 500 and a generic message, and logs the stack', async () => {
     const broken: ComputePool = {
       mode: 'in-process',
