@@ -4,7 +4,6 @@
  * box). Small and dense: n residuals × p parameters with p up to a few
  * dozen, as in a band fit.
  */
-import { Matrix, solve } from 'ml-matrix';
 
 /**
  * Fills `residuals` (length n: data − model) and `jacobian` (n × p, row
@@ -35,6 +34,37 @@ export interface LevenbergMarquardtResult {
   converged: boolean;
 }
 
+/**
+ * Solves m · s = rhs in place for a symmetric positive definite p × p
+ * matrix (row major) by Cholesky; `m` is overwritten with its factor.
+ * Returns false when m is not positive definite.
+ */
+export function choleskySolveInPlace(m: Float64Array, rhs: Float64Array, p: number, out: Float64Array): boolean {
+  for (let j = 0; j < p; j++) {
+    let d = m[j * p + j] as number;
+    for (let k = 0; k < j; k++) d -= (m[j * p + k] as number) ** 2;
+    if (!(d > 0)) return false;
+    const l = Math.sqrt(d);
+    m[j * p + j] = l;
+    for (let i = j + 1; i < p; i++) {
+      let v = m[i * p + j] as number;
+      for (let k = 0; k < j; k++) v -= (m[i * p + k] as number) * (m[j * p + k] as number);
+      m[i * p + j] = v / l;
+    }
+  }
+  for (let i = 0; i < p; i++) {
+    let v = rhs[i] as number;
+    for (let k = 0; k < i; k++) v -= (m[i * p + k] as number) * (out[k] as number);
+    out[i] = v / (m[i * p + i] as number);
+  }
+  for (let i = p - 1; i >= 0; i--) {
+    let v = out[i] as number;
+    for (let k = i + 1; k < p; k++) v -= (m[k * p + i] as number) * (out[k] as number);
+    out[i] = v / (m[i * p + i] as number);
+  }
+  return true;
+}
+
 function sumOfSquares(r: Float64Array): number {
   let s = 0;
   for (let i = 0; i < r.length; i++) s += (r[i] as number) * (r[i] as number);
@@ -45,7 +75,12 @@ export function levenbergMarquardt(evaluate: ResidualsAndJacobian, options: Leve
   const { n, initial, lower, upper, maxIterations = 100, tolerance = 1e-9 } = options;
   let lambda = options.damping ?? 1e-3;
   const p = initial.length;
-  let params = Float64Array.from(initial, (v, j) => Math.min(Math.max(v, lower[j] as number), upper[j] as number));
+  const params = Float64Array.from(initial, (v, j) => Math.min(Math.max(v, lower[j] as number), upper[j] as number));
+  const m = new Float64Array(p * p);
+  const rhs = new Float64Array(p);
+  const step = new Float64Array(p);
+  const trial = new Float64Array(p);
+  const frozen = new Uint8Array(p);
   const r = new Float64Array(n);
   const jac = new Float64Array(n * p);
   const trialR = new Float64Array(n);
@@ -77,32 +112,32 @@ export function levenbergMarquardt(evaluate: ResidualsAndJacobian, options: Leve
     let improved = false;
     for (let attempt = 0; attempt < 12 && !improved; attempt++) {
       // Parameters held at a bound by the gradient are frozen for this step (a simple active set).
-      const frozen = Array.from(params, (v, j) => (v <= (lower[j] as number) && (g[j] as number) < 0) || (v >= (upper[j] as number) && (g[j] as number) > 0));
-      const m = new Matrix(p, p);
-      const rhs = new Float64Array(p);
       for (let j = 0; j < p; j++) {
-        if (frozen[j]) {
-          m.set(j, j, 1);
+        const v = params[j] as number;
+        frozen[j] = (v <= (lower[j] as number) && (g[j] as number) < 0) || (v >= (upper[j] as number) && (g[j] as number) > 0) ? 1 : 0;
+      }
+      m.fill(0);
+      rhs.fill(0);
+      for (let j = 0; j < p; j++) {
+        if (frozen[j] === 1) {
+          m[j * p + j] = 1;
           continue;
         }
-        for (let k = 0; k < p; k++) if (!frozen[k]) m.set(j, k, a[j * p + k] as number);
+        for (let k = 0; k < p; k++) if (frozen[k] === 0) m[j * p + k] = a[j * p + k] as number;
         const d = a[j * p + j] as number;
-        m.set(j, j, d + lambda * (d > 0 ? d : 1e-12));
+        m[j * p + j] = d + lambda * (d > 0 ? d : 1e-12);
         rhs[j] = g[j] as number;
       }
-      let step: Float64Array;
-      try {
-        step = Float64Array.from(solve(m, Matrix.columnVector(Array.from(rhs))).getColumn(0));
-      } catch {
+      if (!choleskySolveInPlace(m, rhs, p, step)) {
         lambda *= 10;
         continue;
       }
-      const trial = Float64Array.from(params, (v, j) => Math.min(Math.max(v + (step[j] as number), lower[j] as number), upper[j] as number));
+      for (let j = 0; j < p; j++) trial[j] = Math.min(Math.max((params[j] as number) + (step[j] as number), lower[j] as number), upper[j] as number);
       evaluate(trial, trialR, trialJ);
       const trialCost = sumOfSquares(trialR);
       if (Number.isFinite(trialCost) && trialCost < cost) {
         const decrease = (cost - trialCost) / Math.max(cost, 1e-300);
-        params = trial;
+        params.set(trial);
         r.set(trialR);
         jac.set(trialJ);
         cost = trialCost;

@@ -181,3 +181,20 @@ describe('band refinement', () => {
     }
   });
 });
+
+describe('Cholesky solve', () => {
+  it('matches ml-matrix solve on seeded random SPD systems (library as reference)', async () => {
+    const { Matrix, solve } = await import('ml-matrix');
+    const { choleskySolveInPlace } = await import('../../src/spectrum/levenbergMarquardt.js');
+    for (let trial = 0; trial < 10; trial++) {
+      const p = 2 + Math.floor(random() * 15);
+      const b = Matrix.rand(p + 3, p, { random });
+      const a = b.transpose().mmul(b);
+      const rhs = Float64Array.from({ length: p }, () => random() - 0.5);
+      const out = new Float64Array(p);
+      expect(choleskySolveInPlace(Float64Array.from(a.to1DArray()), rhs, p, out)).toBe(true);
+      const ref = solve(a, Matrix.columnVector(Array.from(rhs))).getColumn(0); // ml-matrix 6 LU solve as reference
+      for (let j = 0; j < p; j++) expect(out[j]).toBeCloseTo(ref[j]!, 8);
+    }
+  });
+});
