@@ -84,7 +84,7 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
   const ownsPool = typeof poolOption === 'string';
   const pool = poolOption === 'workers' ? createWorkerPool() : poolOption === 'in-process' ? createInProcessPool() : poolOption;
   const version = packageVersion();
-  const openapi = buildOpenApiDocument(version);
+  const openapi = buildOpenApiDocument(version, { maxBodyBytes, maxJsonBytes, requestTimeoutMs });
   const startedAt = Date.now();
   const library = openLibrary(dataDir);
 

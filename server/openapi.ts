@@ -66,8 +66,19 @@ function ok(description: string, schemaName: string): JsonSchema {
 
 const COMPUTE_ERRORS = ['400', '500', '503', '504'];
 
-/** The OpenAPI document for a server of this version. */
-export function buildOpenApiDocument(version: string): JsonSchema {
+/** The limits a server runs with, stated in the document. */
+export interface DocumentedLimits {
+  maxBodyBytes: number;
+  maxJsonBytes: number;
+  requestTimeoutMs: number;
+}
+
+function bytes(n: number): string {
+  return n % (1024 * 1024) === 0 ? `${n / (1024 * 1024)} MiB` : `${n} bytes`;
+}
+
+/** The OpenAPI document for a server of this version and these limits. */
+export function buildOpenApiDocument(version: string, limits: DocumentedLimits): JsonSchema {
   const fields = jsonSchema(analyzeFields) as { properties?: Record<string, JsonSchema> };
   const formSchema = {
     type: 'object',
@@ -89,7 +100,9 @@ export function buildOpenApiDocument(version: string): JsonSchema {
       title: 'fieldgap',
       version,
       description:
-        'Ligand-field parameters (10Dq, Racah B and C, beta, spin state) from UV-vis-NIR spectra of d1-d9 complexes. All energies in cm-1; level energies from the ground level.',
+        'Ligand-field parameters (10Dq, Racah B and C, beta, spin state) from UV-vis-NIR spectra of d1-d9 complexes. All energies in cm-1; level energies from the ground level. ' +
+        `Limits of this server: spectrum uploads up to ${bytes(limits.maxBodyBytes)}, JSON bodies up to ${bytes(limits.maxJsonBytes)} (413 over them); ` +
+        `one computation may take ${limits.requestTimeoutMs} ms (504 over it). Errors are { "error": { code, message, path } }.`,
     },
     paths: {
       '/api/v1/health': {
@@ -130,7 +143,8 @@ export function buildOpenApiDocument(version: string): JsonSchema {
           operationId: 'analyze',
           summary: 'Analyse a spectrum: bands, assignment and fit',
           description:
-            'Send the spectrum as the multipart form field `spectrum`, or as the raw body with one of the listed content types. Options go in the query string or as form fields.',
+            'Send the spectrum as the multipart form field `spectrum`, or as the raw body with one of the listed content types. ' +
+            `Options go in the query string or as form fields. Largest upload: ${bytes(limits.maxBodyBytes)}.`,
           parameters: queryParameters(analyzeFields),
           requestBody: { required: true, content: { 'multipart/form-data': { schema: formSchema }, ...rawBody } },
           responses: {

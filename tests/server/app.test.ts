@@ -56,6 +56,11 @@ describe('GET /api/v1/openapi.json', () => {
       paths: Record<string, Record<string, { parameters?: { name: string; required: boolean }[]; requestBody?: { content: Record<string, { schema: unknown }> } }>>;
     };
     expect(doc.openapi).toBe('3.1.0');
+    // The documented limits are the ones this app enforces (defaults: 10 MiB uploads, 1 MiB JSON, 10 s).
+    const info = (res.body as { info: { description: string } }).info.description;
+    expect(info).toContain('10 MiB');
+    expect(info).toContain('1 MiB');
+    expect(info).toContain('10000 ms');
     const documented = ['/api/v1/health', '/api/v1/levels', '/api/v1/diagram', '/api/v1/fit', '/api/v1/analyze', '/api/v1/analyses', '/api/v1/analyses/{id}', '/api/v1/series', '/api/v1/predict'];
     for (const path of documented) {
       expect(Object.keys(doc.paths)).toContain(path);
