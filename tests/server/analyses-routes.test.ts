@@ -1,4 +1,3 @@
-import express from 'express';
 import { createHash } from 'node:crypto';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -6,15 +5,14 @@ import { join } from 'node:path';
 import request from 'supertest';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { FieldgapError } from '../../src/errors.js';
-import { errorHandler, notFoundHandler } from '../../server/error-handler.js';
-import { createAnalysesRouter } from '../../server/routes/analyses.js';
+import { createApp, type FieldgapApp } from '../../server/app.js';
+import { createInProcessPool, type ComputePool } from '../../server/pool.js';
 import { openLibrary, type Library } from '../../server/storage/library.js';
 import { handBuiltRecord } from '../storage/helpers/records.js';
 import { captureLogger } from './helpers.js';
 
 let dir: string;
-let library: Library;
-let app: express.Express;
+let app: FieldgapApp;
 let calls: { content: Buffer; options: Record<string, unknown> }[];
 
 /**
@@ -28,21 +26,40 @@ async function standInAnalyze(content: Buffer, options: object): Promise<never> 
   return handBuiltRecord({}, 17_000 + calls.length).result as never;
 }
 
-// Until createApp mounts the library's routers: the router alone, with the app's body parser and error handling.
+/** The app's pool, with analyze tasks answered by the stand-in. */
+function standInPool(): ComputePool {
+  const real = createInProcessPool();
+  return {
+    mode: 'in-process',
+    run: async (task, options) =>
+      task.kind === 'analyze' ? standInAnalyze(Buffer.from(task.input.content as Uint8Array), task.input.options) : real.run(task, options),
+    close: async () => {},
+  };
+}
+
+function makeApp(): FieldgapApp {
+  return createApp({ pool: standInPool(), logger: captureLogger().logger, staticDir: false, dataDir: dir, maxBodyBytes: 4096 });
+}
+
 beforeEach(() => {
   dir = mkdtempSync(join(tmpdir(), 'fieldgap-analyses-http-'));
-  library = openLibrary(dir);
   calls = [];
-  app = express();
-  app.use('/api', express.json());
-  app.use('/api/v1/analyses', createAnalysesRouter({ library, analyze: standInAnalyze, maxBodyBytes: 4096 }));
-  app.use(notFoundHandler);
-  app.use(errorHandler(captureLogger().logger));
+  app = makeApp();
 });
-afterEach(() => {
-  library.close();
+afterEach(async () => {
+  await app.close();
   rmSync(dir, { recursive: true, force: true });
 });
+
+/** A second connection to the app's library, to look behind the routes. */
+function withLibrary<T>(fn: (library: Library) => T): T {
+  const library = openLibrary(dir);
+  try {
+    return fn(library);
+  } finally {
+    library.close();
+  }
+}
 
 const CSV = 'nm,absorbance\n400,0.1\n575,0.2\n700,0.05\n';
 
@@ -83,7 +100,7 @@ describe('POST /api/v1/analyses', () => {
     expect(calls).toHaveLength(0);
     expect((await request(app).post('/api/v1/analyses?ion=Zn2%2B').type('text/csv').send(CSV).expect(422)).body.error.code).toBe('unexplained');
     expect((await request(app).post('/api/v1/analyses').type('text/csv').send('x'.repeat(5000)).expect(413)).body.error.code).toBe('too-large');
-    expect(library.list().total).toBe(0);
+    expect(withLibrary((library) => library.list().total)).toBe(0);
   });
 });
 
@@ -149,13 +166,10 @@ describe('reading, changing and deleting records', () => {
 });
 
 describe('persistence across a restart', () => {
-  it('a new router on the same data folder sees the record', async () => {
+  it('a new app on the same data folder sees the record', async () => {
     const { body: saved } = await upload().expect(201);
-    library.close();
-    library = openLibrary(dir);
-    const again = express();
-    again.use('/api/v1/analyses', createAnalysesRouter({ library, analyze: standInAnalyze }));
-    again.use(errorHandler(captureLogger().logger));
-    expect((await request(again).get(`/api/v1/analyses/${saved.id}`).expect(200)).body).toEqual(saved);
+    await app.close();
+    app = makeApp();
+    expect((await request(app).get(`/api/v1/analyses/${saved.id}`).expect(200)).body).toEqual(saved);
   });
 });

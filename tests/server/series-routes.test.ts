@@ -1,30 +1,25 @@
-import express from 'express';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { errorHandler, notFoundHandler } from '../../server/error-handler.js';
-import { createSeriesRouter } from '../../server/routes/series.js';
+import { createApp, type FieldgapApp } from '../../server/app.js';
 import { openLibrary, type Library } from '../../server/storage/library.js';
 import { handBuiltRecord } from '../storage/helpers/records.js';
 import { captureLogger } from './helpers.js';
 
 let dir: string;
 let library: Library;
-let app: express.Express;
+let app: FieldgapApp;
 
-// Until createApp mounts the library's routers: the router alone, with the app's error handling.
+// The app reads the data folder through its own connection; the tests add records through a second one.
 beforeEach(() => {
   dir = mkdtempSync(join(tmpdir(), 'fieldgap-series-http-'));
   library = openLibrary(dir);
-  app = express();
-  app.use(express.json());
-  app.use('/api/v1', createSeriesRouter({ library }));
-  app.use(notFoundHandler);
-  app.use(errorHandler(captureLogger().logger));
+  app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, dataDir: dir });
 });
-afterEach(() => {
+afterEach(async () => {
+  await app.close();
   library.close();
   rmSync(dir, { recursive: true, force: true });
 });
