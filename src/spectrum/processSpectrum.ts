@@ -3,7 +3,7 @@
  * noise, band finding, a joint fit of bands, UV edge and baseline, and
  * classification. Pure; deterministic for given input.
  */
-import { invalidArgument } from '../errors.js';
+import { FieldgapError, invalidArgument } from '../errors.js';
 import { defaultThresholds, type ClassificationThresholds } from './bandClassify.js';
 import { bandsFromFit } from './bandsFromFit.js';
 import { fitBands } from './fitBands.js';
@@ -54,6 +54,13 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
     broadFwhm = 2500, narrowFwhm = 600, maxBands = 8, maxGridPoints = 400,
   } = options;
   checkOptions(options, baselineOrder, pathLength);
+  if (spectrum.metadata['jcampForm'] === 'PEAK TABLE') {
+    throw new FieldgapError(
+      'unsupported-format',
+      'a JCAMP-DX PEAK TABLE lists peak positions, not a spectrum: there are no band shapes or baseline to fit; give the positions to the fit directly',
+      `${spectrum.name}:##PEAK TABLE`,
+    );
+  }
   const warnings: string[] = [];
   const energy = spectrumToEnergy(spectrum, concentration, pathLength);
   const { x } = energy;

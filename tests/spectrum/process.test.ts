@@ -156,6 +156,11 @@ describe('processSpectrum on synthetic spectra (invented cases)', () => {
     expect(() => processSpectrum(spectrum, { baselineOrder: 7 })).toThrow(expect.objectContaining({ path: 'baselineOrder' }));
   });
 
+  it('refuses to process a JCAMP-DX PEAK TABLE as if it were a spectrum', () => {
+    const peaks = { x: Float64Array.of(17400, 24600), y: Float64Array.of(0.3, 0.2), xUnit: 'cm-1' as const, yUnit: 'absorbance' as const, name: 'p.jdx', column: 1, metadata: { jcampForm: 'PEAK TABLE' } };
+    expect(() => processSpectrum(peaks)).toThrow(expect.objectContaining({ code: 'unsupported-format', path: 'p.jdx:##PEAK TABLE' }));
+  });
+
   it('finds nothing in pure noise', () => {
     const result = processSpectrum(syntheticSpectrum({ bands: [], noise: 0.002, baselineOffset: 0.05, seed: 37 }));
     expect(result.bands).toEqual([]);
