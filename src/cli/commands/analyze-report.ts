@@ -30,7 +30,7 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
   lines.push(`  C           ${pm(fit.c, fit.uncertainty.c, 'cm-1')}${fit.cMode === 'free' ? '' : ` (${fit.cMode === 'ratio' ? `C/B fixed at ${fit.cOverB?.toFixed(2)}` : 'fixed'})`}`);
   lines.push(`  beta        ${fit.beta === null ? 'not determined' : `${fit.beta.toFixed(3)} (B0 = ${fit.freeIonB} cm-1)`}`);
   lines.push(`  ground      ${fit.groundLabel}, ${fit.spinState}, ${fit.unpairedElectrons} unpaired, spin-only ${fit.spinOnlyMoment.toFixed(2)} μB`);
-  lines.push(`  rms         ${fit.rmsResidual.toFixed(0)} cm-1 (${fit.status}: ${fit.message})`);
+  lines.push(`  rms         ${fit.rmsResidual.toFixed(0)} cm-1 (${fit.message})`);
   const warnings = result.warnings;
   if (warnings.length > 0) lines.push('', 'Warnings', ...warnings.map((w) => `  - ${w}`));
   lines.push('', 'Results are model estimates: check the assignment against the spectrum.');
