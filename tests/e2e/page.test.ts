@@ -14,6 +14,7 @@ import type { AnalyzeResult, FitResult } from '../../web/types.js';
 import { browserTestsSkipped, launchBrowser, type Browser } from './helpers/browser.js';
 import { startService, type RunningService } from './helpers/server.js';
 import { demoFiles, type DemoFile } from './helpers/demo.js';
+import { cardValue, uploadAndAnalyse } from './helpers/page-actions.js';
 
 const SHOTS = resolve(import.meta.dirname, '..', '..', 'test-results', 'e2e');
 
@@ -30,18 +31,6 @@ async function apiFit(service: RunningService, body: unknown): Promise<FitResult
   const response = await fetch(`${service.baseUrl}/api/v1/fit`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
   expect(response.status).toBe(200);
   return (await response.json()) as FitResult;
-}
-
-async function cardValue(page: Page, id: string): Promise<string> {
-  return ((await page.locator(`#${id} .value`).textContent()) ?? '').trim();
-}
-
-async function uploadAndAnalyse(page: Page, files: DemoFile[]): Promise<void> {
-  await page.setInputFiles('#file-input', files.map((f) => f.path));
-  await page.fill('#ion', files[0]!.ion);
-  await page.selectOption('#geometry', files[0]!.geometry);
-  await page.fill('#conc', String(files[0]!.concentration));
-  await page.click('#analyse');
 }
 
 describe.skipIf(browserTestsSkipped())('the web page in headless Chromium', () => {

@@ -30,7 +30,7 @@ export function rankingSpec(ranking: Ranking): PlotSpec {
     yLabel: beta ? 'β' : '10Dq / cm⁻¹',
     x,
     ys: [values],
-    series: [{ label: beta ? 'β' : '10Dq', color, width: 1, pointsOnly: true }],
+    series: [{ label: beta ? 'β' : '10Dq', color, width: 1, pointsOnly: true, quiet: true }],
     marks,
     yRange: [lo - pad, hi + pad],
     xRange: [0.5, ranking.entries.length + 0.5],

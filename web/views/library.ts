@@ -98,6 +98,8 @@ interface ListState {
   ion: string;
 }
 const listState: ListState = { query: '', ion: '' };
+/** Only the latest render may fill the view: answers of earlier ones are dropped. */
+let generation = 0;
 
 export function renderLibrary(root: HTMLElement, ctx: LibraryContext, extra: (rows: LibraryRow[]) => HTMLElement | null = () => null): void {
   const search = h('input', { id: 'library-query', type: 'search', value: listState.query, placeholder: 'sample, ligand, formula, note' });
@@ -118,17 +120,21 @@ export function renderLibrary(root: HTMLElement, ctx: LibraryContext, extra: (ro
     listState.ion = ion.value.trim();
     renderLibrary(root, ctx, extra);
   });
+  const mine = ++generation;
   root.replaceChildren(h('h2', {}, 'Results library'), h('section', { class: 'panel' }, form, body));
   const query: api.LibraryQuery = { limit: 1000 };
   if (listState.query !== '') query.query = listState.query;
   if (listState.ion !== '') query.ion = listState.ion;
   api.listAnalyses(query).then(
     (page) => {
+      if (mine !== generation) return;
       body.replaceChildren(libraryTable(page.analyses, page.total, root, ctx, extra));
       const more = extra(page.analyses);
       if (more !== null) root.append(more);
     },
-    (error: unknown) => body.replaceChildren(h('p', { class: 'error', role: 'alert' }, `The library could not be read: ${errorText(error)}`)),
+    (error: unknown) => {
+      if (mine === generation) body.replaceChildren(h('p', { class: 'error', role: 'alert' }, `The library could not be read: ${errorText(error)}`));
+    },
   );
 }
 
