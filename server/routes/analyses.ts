@@ -110,7 +110,8 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
   router.get('/:id/original', (req, res) => {
     const original = library.getOriginal(idParam(req));
     res.attachment(original.fileName);
-    res.type(ORIGINAL_TYPES[extname(original.fileName).toLowerCase()] ?? 'application/octet-stream');
+    // Set as is: res.type() would add a charset the file may not be in.
+    res.setHeader('Content-Type', ORIGINAL_TYPES[extname(original.fileName).toLowerCase()] ?? 'application/octet-stream');
     // RFC 9530: the SHA-256 of the bytes, so a client can check what it got.
     res.set('Repr-Digest', `sha-256=:${Buffer.from(original.sha256, 'hex').toString('base64')}:`);
     res.set('ETag', `"${original.sha256}"`);

@@ -84,7 +84,10 @@ export function buildSeries(ionText: string, sources: readonly SeriesSource[], o
     else analyses.push(made);
   }
   if (analyses.length === 0) {
-    const why = sources.length === 0 ? `no analyses of ${ion}` : `none of the ${sources.length} analyses of ${ion} has a fitted 10Dq and a known ligand`;
+    const why =
+      sources.length === 0 ? `no analyses of ${ion}`
+      : sources.length === 1 ? `the one analysis of ${ion} has no fitted 10Dq or no known ligand (${skipped[0]!.reason})`
+      : `none of the ${sources.length} analyses of ${ion} has both a fitted 10Dq and a known ligand`;
     throw new FieldgapError('not-found', `${why}: nothing to rank`, 'ion');
   }
   const notes: string[] = [];

@@ -56,6 +56,13 @@ describe('librarySeries', () => {
   it('says not-found when the library has no analyses of the ion', () => {
     library.add(handBuiltRecord());
     expect(() => librarySeries(library, 'V3+')).toThrow(expect.objectContaining({ code: 'not-found', path: 'ion' }));
+    const alone = openLibrary(join(dir, 'alone'));
+    try {
+      alone.add(handBuiltRecord({ ligands: [], formula: 'unreadable' }));
+      expect(() => librarySeries(alone, 'Cr3+')).toThrow(/^the one analysis of Cr3\+ has no fitted 10Dq or no known ligand \(no ligand given/);
+    } finally {
+      alone.close();
+    }
     expect(() => librarySeries(library, 'Q7')).toThrow(expect.objectContaining({ code: 'invalid-argument', path: 'ion' }));
   });
 });
