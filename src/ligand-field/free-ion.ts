@@ -36,7 +36,8 @@ function freeIonTermsAtUnitB(n: number, cOverB: number): FreeIonTerm[] {
     const h = new Float64Array(block.size * block.size);
     for (let i = 0; i < h.length; i++) h[i] = block.operators[0]![i]! + cOverB * block.operators[1]![i]!;
     const multiplicity = block.twoS + 1;
-    for (const energy of symmetricEigenvalues(h, block.size)) {
+    const energies = block.size === 1 ? h : symmetricEigenvalues(h, block.size);
+    for (const energy of energies) {
       terms.push({ multiplicity, L: block.label, energy, symbol: termSymbol(multiplicity, block.label), repeated: block.size > 1 });
     }
   }

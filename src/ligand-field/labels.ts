@@ -18,8 +18,8 @@ import type { CubicIrrep, FreeIonTerm, Geometry } from './types.js';
 export interface ParentTable {
   /** levelKey(2S+1, Γ) → parent term names, in the order of the levels' rank. */
   parents: Array<string[] | undefined>;
-  /** levelKey(2S+1, Γ) → display labels ("4T1g(P)") by rank, per geometry. */
-  labels: Record<Geometry, Array<string[] | undefined>>;
+  /** levelKey(2S+1, Γ) → display labels ("4T1g(P)") by rank, for a geometry (built on first use). */
+  labels(geometry: Geometry): Array<string[] | undefined>;
   /** Number of (S, Γ) levels d^n has. */
   expected(twoS: number, irrep: CubicIrrep): number;
 }
@@ -38,18 +38,23 @@ export function parentTable(terms: readonly FreeIonTerm[]): ParentTable {
   const hit = tables.get(terms);
   if (hit) return hit;
   const parents: Array<string[] | undefined> = [];
-  const labels: Record<Geometry, Array<string[] | undefined>> = { octahedral: [], tetrahedral: [] };
   for (const term of terms)
-    for (const irrep of cubicComponentsOfL(term.L)) {
-      const key = levelKey(term.multiplicity, irrep);
-      (parents[key] ??= []).push(term.term);
-      for (const geometry of ['octahedral', 'tetrahedral'] as const) {
-        (labels[geometry][key] ??= []).push(levelLabel(termName(term.multiplicity, irrep, geometry), term.term));
-      }
-    }
+    for (const irrep of cubicComponentsOfL(term.L)) (parents[levelKey(term.multiplicity, irrep)] ??= []).push(term.term);
+  const labels: Partial<Record<Geometry, Array<string[] | undefined>>> = {};
   const table: ParentTable = {
     parents,
-    labels,
+    labels(geometry) {
+      let list = labels[geometry];
+      if (!list) {
+        list = [];
+        for (const term of terms)
+          for (const irrep of cubicComponentsOfL(term.L)) {
+            (list[levelKey(term.multiplicity, irrep)] ??= []).push(levelLabel(termName(term.multiplicity, irrep, geometry), term.term));
+          }
+        labels[geometry] = list;
+      }
+      return list;
+    },
     expected: (twoS, irrep) => parents[levelKey(twoS + 1, irrep)]?.length ?? 0,
   };
   tables.set(terms, table);
@@ -58,17 +63,18 @@ export function parentTable(terms: readonly FreeIonTerm[]): ParentTable {
 
 /** "T1g" (octahedral: all d^n states are gerade) or "T1" (tetrahedral: no inversion centre). */
 export function irrepName(irrep: CubicIrrep, geometry: Geometry): string {
-  return geometry === 'octahedral' ? `${irrep}g` : irrep;
+  return geometry === 'octahedral' ? GERADE[irrep] : irrep;
 }
 
-const termNames = new Map<string, string>();
+const GERADE: Readonly<Record<CubicIrrep, string>> = { A1: 'A1g', A2: 'A2g', E: 'Eg', T1: 'T1g', T2: 'T2g' };
 
-/** "4T1g" (interned). */
+const termNames: Record<Geometry, string[]> = { octahedral: [], tetrahedral: [] };
+
+/** "4T1g" (interned by level key). */
 export function termName(multiplicity: number, irrep: CubicIrrep, geometry: Geometry): string {
-  const key = `${multiplicity}${irrep}${geometry}`;
-  let name = termNames.get(key);
-  if (name === undefined) termNames.set(key, (name = `${multiplicity}${irrepName(irrep, geometry)}`));
-  return name;
+  const names = termNames[geometry];
+  const key = levelKey(multiplicity, irrep);
+  return (names[key] ??= `${multiplicity}${irrepName(irrep, geometry)}`);
 }
 
 const labelCache = new Map<string, string>();

@@ -32,26 +32,42 @@ interface Cluster {
   counts: ChannelCounts;
 }
 
-/** Clusters of the spin-S eigenvalues, given per channel (each sorted). */
+/**
+ * Clusters of the spin-S eigenvalues, given per channel (each sorted): a
+ * merge of the sorted lists, a new cluster wherever the gap exceeds tol.
+ */
 function clustersOf(perChannel: readonly Float64Array[], tol: number): Cluster[] {
-  const items: Array<[number, number]> = [];
-  perChannel.forEach((values, channel) => {
-    for (const e of values) items.push([e, channel]);
-  });
-  items.sort((x, y) => x[0] - y[0]);
+  const channels = perChannel.length;
+  const next = new Int32Array(channels);
   const clusters: Cluster[] = [];
-  for (let i = 0; i < items.length; ) {
-    let j = i + 1;
-    while (j < items.length && items[j]![0] - items[j - 1]![0] <= tol) j++;
-    const counts: ChannelCounts = [0, 0, 0, 0, 0];
-    let sum = 0;
-    for (let t = i; t < j; t++) {
-      counts[items[t]![1]]!++;
-      sum += items[t]![0];
+  let current: Cluster | undefined;
+  let members = 0;
+  let previous = -Infinity;
+  for (;;) {
+    let best = -1;
+    let value = Infinity;
+    for (let c = 0; c < channels; c++) {
+      const list = perChannel[c]!;
+      if (next[c]! < list.length && list[next[c]!]! < value) {
+        value = list[next[c]!]!;
+        best = c;
+      }
     }
-    clusters.push({ energy: sum / (j - i), lo: items[i]![0] - tol, hi: items[j - 1]![0] + tol, counts });
-    i = j;
+    if (best < 0) break;
+    next[best]!++;
+    if (!current || value - previous > tol) {
+      if (current) current.energy /= members;
+      current = { energy: 0, lo: value - tol, hi: value + tol, counts: [0, 0, 0, 0, 0] };
+      clusters.push(current);
+      members = 0;
+    }
+    current.energy += value;
+    current.hi = value + tol;
+    current.counts[best]!++;
+    members++;
+    previous = value;
   }
+  if (current) current.energy /= members;
   return clusters;
 }
 

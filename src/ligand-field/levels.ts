@@ -69,11 +69,12 @@ export function computeLevels(d: number, geometry: Geometry, params: FieldParame
     ranked.sort((x, y) => x.energy - y.energy || position.get(rankedKey(x))! - position.get(rankedKey(y))!);
   }
   const ground = ranked[0]!;
+  const labels = table.labels(geometry);
   const levels: Level[] = ranked.map((r) => {
     const multiplicity = r.twoS + 1;
     const key = levelKey(multiplicity, r.irrep);
     const parent = table.parents[key]?.[r.rank];
-    const label = table.labels[geometry][key]?.[r.rank];
+    const label = labels[key]?.[r.rank];
     if (parent === undefined || label === undefined) {
       throw new FieldgapError('internal', `no free-ion parent for level ${multiplicity}${r.irrep} #${r.rank}`);
     }
