@@ -185,7 +185,7 @@ function parseOptions(options: Pick<AnalyzeOptions, 'fileName' | 'xUnit' | 'yUni
 
 function checkOptions(options: AnalyzeOptions): void {
   if (options.ion === undefined && options.d === undefined) {
-    throw invalidArgument('ion', 'give the metal ion (e.g. --ion Cr3+) or the d-electron count (--d 3)');
+    throw invalidArgument('ion', 'the metal ion (ion, e.g. Cr3+) or the d-electron count (d) is needed for the fit');
   }
   for (const key of ['concentration', 'pathLength'] as const) {
     const value = options[key];
