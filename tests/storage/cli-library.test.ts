@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { CliIo } from '../../src/cli/command.js';
-import { libraryCommand, plusMinus } from '../../src/cli/commands/library.js';
+import { analysisOptionsFrom, libraryCommand, plusMinus } from '../../src/cli/commands/library.js';
 import { runCli } from '../../src/cli/main.js';
 import { openLibrary } from '../../server/storage/library.js';
 import { handBuiltRecord } from './helpers/records.js';
@@ -117,6 +117,22 @@ describe('fieldgap library', () => {
     expect(code).toBe(2);
     expect(err.split('\n')).toHaveLength(2);
     expect(err).toContain('unknown subcommand "frobnicate"');
+  });
+});
+
+describe('analysisOptionsFrom', () => {
+  it('sets only the options given, in the pipeline\'s names and units', () => {
+    expect(analysisOptionsFrom({ ion: 'Cr3+', conc: '0.05', path: '0.5', 'x-unit': 'eV', column: '2', 'c-over-b': '4.2' })).toEqual({
+      ion: 'Cr3+', concentration: 0.05, pathLength: 0.5, xUnit: 'eV', column: 2, cOverB: 4.2,
+    });
+    expect(analysisOptionsFrom({ 'x-unit': 'µm', column: 'Cr-en', geometry: 'Tetrahedral' })).toEqual({ xUnit: 'um', column: 'Cr-en', geometry: 'tetrahedral' });
+    expect(analysisOptionsFrom({})).toEqual({});
+  });
+
+  it('names the option that is wrong', () => {
+    expect(() => analysisOptionsFrom({ conc: '-1' })).toThrow(expect.objectContaining({ path: '--conc' }));
+    expect(() => analysisOptionsFrom({ 'x-unit': 'furlong' })).toThrow(expect.objectContaining({ path: '--x-unit' }));
+    expect(() => analysisOptionsFrom({ c: '3000', 'free-c': true })).toThrow(expect.objectContaining({ path: '--c-over-b' }));
   });
 });
 

@@ -3,6 +3,8 @@ import { basename, extname, resolve } from 'node:path';
 import type { AnalyzeOptions } from '../../analysis.js';
 import { parseFormula } from '../../chemistry/formula.js';
 import { FieldgapError, invalidArgument } from '../../errors.js';
+import { GEOMETRIES } from '../../ligand-field/types.js';
+import { parseXUnitOption } from '../../spectrum/index.js';
 import type { CliIo, Command } from '../command.js';
 import { readInputFile } from '../files.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
@@ -55,21 +57,21 @@ export function analysisOptionsFrom(values: AnalysisValues): AnalyzeOptions {
   if (values.ion !== undefined) options.ion = values.ion;
   const d = numberOption('d', values.d, { min: 1, max: 9, integer: true });
   if (d !== undefined) options.d = d;
-  if (values.geometry !== undefined) options.geometry = choiceOption('geometry', values.geometry, ['octahedral', 'tetrahedral'], 'octahedral');
+  if (values.geometry !== undefined) options.geometry = choiceOption('geometry', values.geometry, GEOMETRIES, 'octahedral');
   const conc = numberOption('conc', values.conc, { min: Number.MIN_VALUE });
   if (conc !== undefined) options.concentration = conc;
   const path = numberOption('path', values.path, { min: Number.MIN_VALUE });
   if (path !== undefined) options.pathLength = path;
-  if (values['x-unit'] !== undefined) {
-    const unit = values['x-unit'].trim().toLowerCase().replace('µm', 'um').replace(/^cm\^?-1$/, 'cm-1');
-    options.xUnit = choiceOption('x-unit', unit, ['nm', 'cm-1', 'ev', 'um'], 'nm') === 'ev' ? 'eV' : (unit as 'nm' | 'cm-1' | 'um');
-  }
+  if (values['x-unit'] !== undefined) options.xUnit = parseXUnitOption(values['x-unit'], '--x-unit');
   if (values.column !== undefined) options.column = /^\d+$/.test(values.column.trim()) ? Number(values.column) : values.column;
   const cOverB = numberOption('c-over-b', values['c-over-b'], { min: Number.MIN_VALUE, max: 20 });
   if (cOverB !== undefined) options.cOverB = cOverB;
   const c = numberOption('c', values.c, { min: Number.MIN_VALUE });
   if (c !== undefined) options.c = c;
   if (values['free-c']) options.freeC = true;
+  if ([cOverB, c, values['free-c'] || undefined].filter((v) => v !== undefined).length > 1) {
+    throw invalidArgument('--c-over-b', 'give at most one of --c-over-b, --c and --free-c');
+  }
   return options;
 }
 
