@@ -107,6 +107,59 @@ describe.skipIf(browserTestsSkipped())('the web page in headless Chromium', () =
     await page.waitForSelector('#unit-cm-1[aria-pressed="true"]');
   }, 30_000);
 
+  it('zooms by dragging across the spectrum and comes back with Reset zoom', async () => {
+    const canvas = page.locator('#spectrum-plot canvas').first();
+    const image = (): Promise<string> => canvas.evaluate((c) => (c as HTMLCanvasElement).toDataURL());
+    const before = await image();
+    const over = page.locator('#spectrum-plot .u-over');
+    await over.scrollIntoViewIfNeeded();
+    const box = (await over.boundingBox())!;
+    await page.mouse.move(box.x + box.width * 0.3, box.y + box.height * 0.5);
+    await page.mouse.down();
+    await page.mouse.move(box.x + box.width * 0.6, box.y + box.height * 0.5, { steps: 8 });
+    await page.mouse.up();
+    await page.waitForFunction((b) => (document.querySelector('#spectrum-plot canvas') as HTMLCanvasElement).toDataURL() !== b, before);
+    // A drag is a zoom, never a new band.
+    expect(await page.locator('#band-table tbody tr', { hasText: 'added' }).count()).toBe(0);
+    await page.click('#spectrum-reset');
+    await page.waitForFunction((b) => (document.querySelector('#spectrum-plot canvas') as HTMLCanvasElement).toDataURL() === b, before);
+  }, 30_000);
+
+  it('labels every control and shows where the keyboard focus is', async () => {
+    const unlabelled = await page.evaluate(() =>
+      Array.from(document.querySelectorAll('input, select, textarea, button'))
+        .filter((el) => {
+          const e = el as HTMLInputElement;
+          if (e.type === 'hidden' || e.closest('[hidden]')) return false;
+          const named = e.labels?.length || e.getAttribute('aria-label') || e.getAttribute('aria-labelledby') || (e.tagName === 'BUTTON' && e.textContent?.trim());
+          return !named;
+        })
+        .map((el) => el.outerHTML.slice(0, 80)),
+    );
+    expect(unlabelled).toEqual([]);
+    await page.focus('#refit');
+    await page.keyboard.press('Shift+Tab');
+    await page.keyboard.press('Tab');
+    const outline = await page.evaluate(() => getComputedStyle(document.activeElement!).outlineStyle);
+    expect(outline).not.toBe('none');
+  }, 30_000);
+
+  it('takes files dropped on the drop zone', async () => {
+    const name = files[0]!.name;
+    const text = await readFile(files[0]!.path, 'latin1');
+    await page.evaluate(([fileName, content]) => {
+      const data = new DataTransfer();
+      data.items.add(new File([content!], fileName!, { type: 'text/plain' }));
+      const zone = document.querySelector('#drop-zone')!;
+      zone.dispatchEvent(new DragEvent('dragover', { dataTransfer: data, bubbles: true, cancelable: true }));
+      zone.dispatchEvent(new DragEvent('drop', { dataTransfer: data, bubbles: true, cancelable: true }));
+    }, [name, text]);
+    await expect(page.locator('#queue li').first().textContent()).resolves.toContain(name);
+    await expect(page.locator('#analyse').isDisabled()).resolves.toBe(false);
+    await page.getByRole('button', { name: `Remove ${name} from the list` }).click();
+    await expect(page.locator('#queue li').count()).resolves.toBe(0);
+  }, 30_000);
+
   it('a refit with no correction gives back the analysis\'s own fit', async () => {
     await page.click('#refit');
     await page.waitForSelector('#refit:not([disabled])');

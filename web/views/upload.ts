@@ -29,8 +29,20 @@ export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): 
   const fileInput = h('input', { type: 'file', id: 'file-input', multiple: true, accept: '.csv,.txt,.tsv,.dat,.jdx,.dx,.jcamp,text/plain,text/csv' });
   const queueList = h('ul', { class: 'queue', id: 'queue', 'aria-live': 'polite' });
   const showQueue = (): void => {
-    queueList.replaceChildren(...queued.map((file) => h('li', {}, file.name, h('span', { class: 'muted' }, ` ${(file.size / 1024).toFixed(1)} kB`))));
+    queueList.replaceChildren(
+      ...queued.map((file, index) =>
+        h(
+          'li',
+          {},
+          h('span', { class: 'name' }, file.name),
+          h('span', { class: 'muted' }, ` ${(file.size / 1024).toFixed(1)} kB `),
+          h('button', { type: 'button', class: 'link', 'aria-label': `Remove ${file.name} from the list`, onclick: () => { queued.splice(index, 1); showQueue(); } }, '×'),
+        ),
+      ),
+      queued.length < 2 ? '' : h('li', { class: 'clear' }, h('button', { type: 'button', class: 'link', id: 'queue-clear', onclick: () => { queued.splice(0, queued.length); showQueue(); } }, 'Clear the list')),
+    );
     analyseButton.disabled = queued.length === 0;
+    fileInput.value = '';
   };
   const addFiles = (files: FileList | null): void => {
     if (files === null) return;
