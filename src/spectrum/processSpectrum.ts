@@ -72,7 +72,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   if (energy.absorbance === null) warnings.push('ε without a concentration: saturation and negative absorbance were not checked');
   if (correctSteps) {
     const finite = reasons.map((r, i) => r === null && Number.isFinite(signal[i] as number));
-    const steps = xyFindDetectorSteps(x, signal.map((v, i) => (finite[i] ? v : 0)), { noise: rawNoise });
+    const steps = xyFindDetectorSteps(x, signal.map((v, i) => (finite[i] ? v : 0)));
     const real = steps.filter((s) => finite[s.index] && finite[s.index + 1]);
     if (real.length > 0) {
       signal = xyCorrectDetectorSteps(signal, real);

@@ -3,65 +3,102 @@
  * neighbouring points by far more than the noise while the points on each
  * side run smoothly (typically near 350 nm, or 800–900 nm).
  */
+import { xNoiseLocal } from './xNoise.js';
 
 export interface DetectorStep {
   /** The jump lies between point `index` and `index + 1` (ascending wavenumber order). */
   index: number;
-  /** Size of the jump after removing the local slope, y[index+1] − y[index] − slope. */
+  /** Size of the jump, y after minus y before, with the local slope removed. */
   size: number;
   /** Wavenumber midway across the jump, cm-1. */
   position: number;
 }
 
 export interface FindDetectorStepsOptions {
-  /** Noise standard deviation of y (per point). */
-  noise: number;
-  /** A jump must exceed this many noise deviations of a difference. @default 10 */
+  /** A jump must exceed this many of its own noise deviations. @default 6 */
   threshold?: number;
   /** A jump must also exceed this fraction of y's range (ignores rounding steps). @default 0.003 */
   minRelativeSize?: number;
+  /** Points in the straight line fitted on each side. @default 8 */
+  side?: number;
   /** Most steps reported. @default 3 */
   maxSteps?: number;
 }
 
 /**
- * Finds steps in y over ascending x. A step is a first difference whose
- * excess over the local slope (the median of the 6 neighbouring
- * differences) exceeds `threshold` × √2 × noise and the relative floor, and
- * is at least 4 times the excess of each neighbouring difference (a
- * single-point spike gives two large differences and is not a step).
+ * Finds steps in y over ascending x. At each junction a straight line is
+ * fitted to `side` points on either side and both are extrapolated to the
+ * junction: their difference is the jump, and its noise follows from the
+ * local noise (xNoiseLocal) and the two fits' leverage. A step is a jump
+ * over `threshold` deviations (and the relative floor) that is the largest
+ * within `side` points, happens between the two points themselves (their
+ * difference carries at least half of it) and remains when those two
+ * points are left out of the side fits: a steep but smooth rise, a band
+ * edge or a one-point spike fails one of these.
  */
-export function xyFindDetectorSteps(x: Float64Array, y: Float64Array, options: FindDetectorStepsOptions): DetectorStep[] {
-  const { noise, threshold = 10, minRelativeSize = 0.003, maxSteps = 3 } = options;
+export function xyFindDetectorSteps(x: Float64Array, y: Float64Array, options: FindDetectorStepsOptions = {}): DetectorStep[] {
+  const { threshold = 6, minRelativeSize = 0.003, side = 8, maxSteps = 3 } = options;
   const n = y.length;
-  if (n < 8) return [];
-  const d = new Float64Array(n - 1);
+  if (n < 2 * side + 2) return [];
+  const noise = xNoiseLocal(y);
   let min = Number.POSITIVE_INFINITY;
   let max = Number.NEGATIVE_INFINITY;
-  for (let i = 0; i < n; i++) {
-    const v = y[i] as number;
-    if (i < n - 1) d[i] = (y[i + 1] as number) - v;
+  for (const v of y) {
     if (v < min) min = v;
     if (v > max) max = v;
   }
-  const excess = new Float64Array(n - 1);
-  const neighbours: number[] = [];
-  for (let i = 0; i < n - 1; i++) {
-    neighbours.length = 0;
-    for (let k = i - 3; k <= i + 3; k++) if (k !== i && k >= 0 && k < n - 1) neighbours.push(d[k] as number);
-    neighbours.sort((a, b) => a - b);
-    excess[i] = (d[i] as number) - (neighbours[neighbours.length >> 1] as number);
+  const jump = new Float64Array(n - 1);
+  const score = new Float64Array(n - 1);
+  for (let i = side - 1; i < n - side; i++) {
+    const xm = ((x[i] as number) + (x[i + 1] as number)) / 2;
+    const left = lineAt(x, y, i - side + 1, i + 1, xm);
+    const right = lineAt(x, y, i + 1, i + side + 1, xm);
+    const sigma = Math.max(noise[i] as number, noise[i + 1] as number, 1e-300);
+    jump[i] = right.value - left.value;
+    score[i] = Math.abs(jump[i] as number) / (sigma * Math.sqrt(left.leverage + right.leverage));
   }
-  const floor = Math.max(threshold * Math.SQRT2 * noise, minRelativeSize * (max - min));
+  const floor = minRelativeSize * (max - min);
   const steps: DetectorStep[] = [];
-  for (let i = 1; i < n - 2; i++) {
-    const e = Math.abs(excess[i] as number);
-    if (e > floor && e > 4 * Math.abs(excess[i - 1] as number) && e > 4 * Math.abs(excess[i + 1] as number)) {
-      steps.push({ index: i, size: excess[i] as number, position: ((x[i] as number) + (x[i + 1] as number)) / 2 });
+  for (let i = side - 1; i < n - side; i++) {
+    const j = jump[i] as number;
+    if ((score[i] as number) < threshold || Math.abs(j) < floor) continue;
+    let isPeak = true;
+    for (let k = Math.max(0, i - side); k <= Math.min(n - 2, i + side) && isPeak; k++) if (k !== i && (score[k] as number) > (score[i] as number)) isPeak = false;
+    const difference = (y[i + 1] as number) - (y[i] as number);
+    if (!isPeak || Math.sign(difference) !== Math.sign(j) || Math.abs(difference) < 0.5 * Math.abs(j)) continue;
+    // A spike moves one point only: without the two points at the junction the jump must remain.
+    const xm = ((x[i] as number) + (x[i + 1] as number)) / 2;
+    const outer = i - side >= 0 && i + side + 2 <= n
+      ? lineAt(x, y, i + 2, i + side + 2, xm).value - lineAt(x, y, i - side, i, xm).value
+      : j;
+    if (Math.sign(outer) === Math.sign(j) && Math.abs(outer) >= 0.5 * Math.abs(j)) {
+      steps.push({ index: i, size: j, position: ((x[i] as number) + (x[i + 1] as number)) / 2 });
     }
   }
   steps.sort((a, b) => Math.abs(b.size) - Math.abs(a.size));
   return steps.slice(0, maxSteps).sort((a, b) => a.index - b.index);
+}
+
+/** Least-squares line through points [from, to) evaluated at xm, with its leverage 1/k + (xm − x̄)²/Sxx. */
+function lineAt(x: Float64Array, y: Float64Array, from: number, to: number, xm: number): { value: number; leverage: number } {
+  const k = to - from;
+  let sx = 0;
+  let sy = 0;
+  for (let i = from; i < to; i++) {
+    sx += x[i] as number;
+    sy += y[i] as number;
+  }
+  const mx = sx / k;
+  const my = sy / k;
+  let sxx = 0;
+  let sxy = 0;
+  for (let i = from; i < to; i++) {
+    const dx = (x[i] as number) - mx;
+    sxx += dx * dx;
+    sxy += dx * ((y[i] as number) - my);
+  }
+  const slope = sxx > 0 ? sxy / sxx : 0;
+  return { value: my + slope * (xm - mx), leverage: 1 / k + (sxx > 0 ? (xm - mx) ** 2 / sxx : 0) };
 }
 
 /**

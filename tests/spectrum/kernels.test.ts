@@ -91,7 +91,7 @@ describe('detector steps', () => {
     const x = Float64Array.from({ length: n }, (_, i) => 9000 + 30 * i);
     const clean = Float64Array.from(x, (v) => 0.2 + gaussianValue(v, 17000, 0.3, 3000));
     const y = Float64Array.from(clean, (v, i) => v + (i <= 300 ? 0.02 : 0) + 0.001 * normal());
-    const steps = xyFindDetectorSteps(x, y, { noise: 0.001 });
+    const steps = xyFindDetectorSteps(x, y);
     expect(steps).toHaveLength(1);
     expect(steps[0]!.index).toBe(300);
     expect(steps[0]!.size).toBeCloseTo(-0.02, 2);
@@ -105,7 +105,7 @@ describe('detector steps', () => {
     const x = Float64Array.from({ length: 400 }, (_, i) => 9000 + 50 * i);
     const y = Float64Array.from(x, (v) => gaussianValue(v, 15000, 0.05, 400) + 0.0005 * normal());
     y[200] = (y[200] as number) + 0.05;
-    expect(xyFindDetectorSteps(x, y, { noise: 0.0005 })).toEqual([]);
+    expect(xyFindDetectorSteps(x, y)).toEqual([]);
   });
 });
 
