@@ -3,12 +3,11 @@ import { resolve } from 'node:path';
 import Papa from 'papaparse';
 import { analyzeSpectrum, listSpectra, type AnalyzeOptions, type AnalyzeResult } from '../../analysis.js';
 import { FieldgapError, isFieldgapError } from '../../errors.js';
-import { GEOMETRIES } from '../../ligand-field/types.js';
-import { X_UNITS } from '../../spectrum/index.js';
+import { ANALYSIS_OPTIONS, analysisOptionsFrom } from '../analysis-options.js';
 import type { Command, CliIo } from '../command.js';
 import { expandInputPaths, readInputFile } from '../files.js';
 import { splitJsonOption } from '../json-flag.js';
-import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
+import { parseCommandArgs } from '../options.js';
 import { createProgress } from '../progress.js';
 import { formatAnalysisReport } from './analyze-report.js';
 
@@ -37,16 +36,7 @@ A folder contributes every spectrum file inside it (.csv .txt .tsv .dat .asc
 well; 1 some spectra in a batch failed (their rows say why); 2 bad input.`;
 
 const OPTIONS = {
-  ion: { type: 'string' },
-  d: { type: 'string' },
-  geometry: { type: 'string' },
-  conc: { type: 'string' },
-  path: { type: 'string' },
-  'x-unit': { type: 'string' },
-  column: { type: 'string' },
-  'c-over-b': { type: 'string' },
-  c: { type: 'string' },
-  'free-c': { type: 'boolean' },
+  ...ANALYSIS_OPTIONS,
   csv: { type: 'string' },
   curves: { type: 'boolean' },
 } as const;
@@ -109,31 +99,12 @@ export const analyzeCommand: Command = {
   },
 };
 
-function analysisOptions(values: Record<string, string | boolean | undefined>): AnalyzeOptions {
-  const str = (k: string) => values[k] as string | undefined;
-  const options: AnalyzeOptions = { geometry: choiceOption('geometry', str('geometry'), GEOMETRIES, 'octahedral') };
-  if (str('ion') !== undefined) options.ion = str('ion')!;
-  const d = numberOption('d', str('d'), { min: 0, max: 10, integer: true });
-  if (d !== undefined) options.d = d;
+function analysisOptions(values: Parameters<typeof analysisOptionsFrom>[0] & { curves?: boolean }): AnalyzeOptions {
+  const options = analysisOptionsFrom(values);
   if (options.ion === undefined && options.d === undefined) {
     throw new FieldgapError('invalid-argument', '--ion is required (or --d N): the metal ion, e.g. --ion Cr3+', '--ion');
   }
-  const conc = numberOption('conc', str('conc'), { min: Number.MIN_VALUE });
-  if (conc !== undefined) options.concentration = conc;
-  const path = numberOption('path', str('path'), { min: Number.MIN_VALUE });
-  if (path !== undefined) options.pathLength = path;
-  if (str('x-unit') !== undefined) options.xUnit = choiceOption('x-unit', str('x-unit')!.replace('µ', 'u'), X_UNITS, 'nm');
-  const column = str('column');
-  if (column !== undefined) options.column = /^\d+$/.test(column.trim()) ? Number(column) : column;
-  const cOverB = numberOption('c-over-b', str('c-over-b'), { min: Number.MIN_VALUE });
-  if (cOverB !== undefined) options.cOverB = cOverB;
-  const c = numberOption('c', str('c'), { min: Number.MIN_VALUE });
-  if (c !== undefined) options.c = c;
-  if (values['free-c']) options.freeC = true;
-  if ([cOverB, c, values['free-c'] || undefined].filter((v) => v !== undefined).length > 1) {
-    throw new FieldgapError('invalid-argument', 'give at most one of --c-over-b, --c and --free-c', '--c-over-b');
-  }
-  if (values['curves']) options.curves = true;
+  if (values.curves) options.curves = true;
   return options;
 }
 

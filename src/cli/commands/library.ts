@@ -3,11 +3,10 @@ import { basename, extname, resolve } from 'node:path';
 import type { AnalyzeOptions } from '../../analysis.js';
 import { parseFormula } from '../../chemistry/formula.js';
 import { FieldgapError, invalidArgument } from '../../errors.js';
-import { GEOMETRIES } from '../../ligand-field/types.js';
-import { parseXUnitOption } from '../../spectrum/index.js';
 import type { CliIo, Command } from '../command.js';
+import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analysis-options.js';
 import { readInputFile } from '../files.js';
-import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
+import { numberOption, parseCommandArgs } from '../options.js';
 import type { AnalysisRecord, AnalysisSummary, FitSummary, NewAnalysis } from '../../../server/storage/types.js';
 import type { Library } from '../../../server/storage/library.js';
 
@@ -23,57 +22,6 @@ import type { Library } from '../../../server/storage/library.js';
  *   the formula when --ion/--d, --ligands or --geometry are not given;
  * - exports never overwrite a file unless --force is given.
  */
-
-/** The analysis options, shared with `fieldgap series`. Energies in cm-1. */
-export const ANALYSIS_OPTIONS = {
-  ion: { type: 'string' },
-  d: { type: 'string' },
-  geometry: { type: 'string' },
-  conc: { type: 'string' },
-  path: { type: 'string' },
-  'x-unit': { type: 'string' },
-  column: { type: 'string' },
-  'c-over-b': { type: 'string' },
-  c: { type: 'string' },
-  'free-c': { type: 'boolean' },
-} as const;
-
-export const ANALYSIS_USAGE = `Analysis options:
-  --ion ION         metal ion, e.g. Cr3+ or Co(II)  (or --d N, the d-electron count)
-  --geometry G      octahedral or tetrahedral
-  --conc M          concentration in mol/L (gives molar absorption coefficients)
-  --path CM         path length in cm (default 1)
-  --x-unit U        x unit when the file does not say: nm, cm-1, eV, um
-  --column C        which y column: its number (from 1) or its header
-  --c-over-b R      fixed C/B ratio for the fit
-  --c C             fixed Racah C in cm-1
-  --free-c          fit C as a free parameter`;
-
-type AnalysisValues = { [K in keyof typeof ANALYSIS_OPTIONS]?: (typeof ANALYSIS_OPTIONS)[K]['type'] extends 'boolean' ? boolean : string };
-
-/** The pipeline's options from the command line; only the options given are set. */
-export function analysisOptionsFrom(values: AnalysisValues): AnalyzeOptions {
-  const options: AnalyzeOptions = {};
-  if (values.ion !== undefined) options.ion = values.ion;
-  const d = numberOption('d', values.d, { min: 1, max: 9, integer: true });
-  if (d !== undefined) options.d = d;
-  if (values.geometry !== undefined) options.geometry = choiceOption('geometry', values.geometry, GEOMETRIES, 'octahedral');
-  const conc = numberOption('conc', values.conc, { min: Number.MIN_VALUE });
-  if (conc !== undefined) options.concentration = conc;
-  const path = numberOption('path', values.path, { min: Number.MIN_VALUE });
-  if (path !== undefined) options.pathLength = path;
-  if (values['x-unit'] !== undefined) options.xUnit = parseXUnitOption(values['x-unit'], '--x-unit');
-  if (values.column !== undefined) options.column = /^\d+$/.test(values.column.trim()) ? Number(values.column) : values.column;
-  const cOverB = numberOption('c-over-b', values['c-over-b'], { min: Number.MIN_VALUE, max: 20 });
-  if (cOverB !== undefined) options.cOverB = cOverB;
-  const c = numberOption('c', values.c, { min: Number.MIN_VALUE });
-  if (c !== undefined) options.c = c;
-  if (values['free-c']) options.freeC = true;
-  if ([cOverB, c, values['free-c'] || undefined].filter((v) => v !== undefined).length > 1) {
-    throw invalidArgument('--c-over-b', 'give at most one of --c-over-b, --c and --free-c');
-  }
-  return options;
-}
 
 const DETAIL_OPTIONS = {
   sample: { type: 'string' },

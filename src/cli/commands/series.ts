@@ -6,7 +6,8 @@ import type { Command, CliIo } from '../command.js';
 import { expandInputPaths, readInputFile } from '../files.js';
 import { choiceOption, parseCommandArgs } from '../options.js';
 import type { SeriesReport, SeriesSource } from '../../../server/storage/series.js';
-import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom, plusMinus, table, withLibrary } from './library.js';
+import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analysis-options.js';
+import { plusMinus, table, withLibrary } from './library.js';
 
 /**
  * `fieldgap series`: a ligand series of one metal ion, ranked by 10Dq
