@@ -13,7 +13,7 @@
  *   gives a "Dq only" candidate: 10Dq from the band, B not determinable.
  */
 import type { Branch } from './enumerate.js';
-import { enumerateAssignments, primaryClass, scanBranches } from './enumerate.js';
+import { enumerateAssignments, primaryClass, scanBranches, type AssignmentTable } from './enumerate.js';
 import { averageObservations, type Observation, type SortedObservations } from './observations.js';
 import {
   LIMITS, PENALTY, penaltyTotal, plausibilityPenalties, skippedTransitionPenalties,
@@ -116,20 +116,42 @@ export function classTransitionsAt(scan: LevelScan, branch: Branch, j: number, b
 }
 
 /**
- * All grid candidates and Dq-only candidates of one scan. A grid candidate's
- * `wrms` is a lower bound of its score; `score()` adds the penalties (computed
- * on first use, so the caller can skip candidates that cannot win).
+ * The grid optima of every assignment of one (branch, variant), in typed
+ * arrays: materialising thousands of candidate objects would cost more than
+ * computing them. wrms (grid rms plus the variant's own penalties) is a lower
+ * bound of the score.
  */
-export function gridCandidates(
+export interface CandidateGroup {
+  scan: LevelScan;
+  branch: Branch;
+  variant: Variant;
+  table: AssignmentTable;
+  wrms: Float64Array;
+  point: Int32Array;
+  b: Float64Array;
+  ssr: Float64Array;
+}
+
+export interface CandidateGroupsOptions {
+  /** Include the variants that leave one band unexplained. Default false. */
+  dropped?: boolean;
+  /** Include the variant that explains every band. Default true. */
+  full?: boolean;
+}
+
+/** Grid optima of every assignment on one scan, and its Dq-only candidates. */
+export function candidateGroups(
   scan: LevelScan,
   sorted: SortedObservations,
   p: number,
-): { grid: GridCandidate[]; dqOnly: DqOnlyCandidate[] } {
-  const grid: GridCandidate[] = [];
+  { dropped = false, full = true }: CandidateGroupsOptions = {},
+): { groups: CandidateGroup[]; dqOnly: DqOnlyCandidate[] } {
+  const groups: CandidateGroup[] = [];
   const dqOnly: DqOnlyCandidate[] = [];
   for (const branch of scanBranches(scan)) {
     const cls = primaryClass(branch);
     for (const variant of branchVariants(branch, sorted, p)) {
+      if (variant.dropped.length > 0 ? !dropped : !full) continue;
       const m = variant.observations.length;
       if (m === 0) continue;
       if (m < p) {
@@ -143,22 +165,37 @@ export function gridCandidates(
       const w = Float64Array.from(variant.observations, (obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
       const wSum = w.reduce((s, v) => s + v, 0);
       const variantPenalty = penaltyTotal(variant.penalties);
-      const bandsKey = variant.observations.map((obs) => obs.bands.join('+')).join(',');
+      const group: CandidateGroup = {
+        scan, branch, variant, table, wrms: new Float64Array(table.count).fill(Infinity),
+        point: new Int32Array(table.count), b: new Float64Array(table.count), ssr: new Float64Array(table.count),
+      };
       const work = new Float64Array(m);
       for (let a = 0; a < table.count; a++) {
         const solution = gridOptimum(scan, branch, table, a, o, w, work);
         if (!solution) continue;
-        const levels = table.levels.slice(a * m, (a + 1) * m);
-        grid.push({
-          kind: 'grid', scan, branch, variant, levels, grid: solution,
-          wrms: Math.sqrt(solution.ssr / wSum) + variantPenalty,
-          approxScore: Number.NaN,
-          key: `${scan.ids[branch.ground]!.key}|${Array.from(levels, (k) => scan.ids[k]!.key).join(',')}|${bandsKey}`,
-        });
+        group.wrms[a] = Math.sqrt(solution.ssr / wSum) + variantPenalty;
+        group.point[a] = solution.point;
+        group.b[a] = solution.b;
+        group.ssr[a] = solution.ssr;
       }
+      groups.push(group);
     }
   }
-  return { grid, dqOnly };
+  return { groups, dqOnly };
+}
+
+/** The candidate object of assignment a of a group. */
+export function candidateAt(group: CandidateGroup, a: number): GridCandidate {
+  const { scan, branch, variant, table } = group;
+  const m = table.width;
+  const levels = table.levels.subarray(a * m, (a + 1) * m);
+  const bandsKey = variant.observations.map((obs) => obs.bands.join('+')).join(',');
+  return {
+    kind: 'grid', scan, branch, variant, levels,
+    grid: { assignment: a, point: group.point[a]!, x: scan.x[group.point[a]!]!, b: group.b[a]!, ssr: group.ssr[a]! },
+    wrms: group.wrms[a]!, approxScore: Number.NaN,
+    key: `${scan.ids[branch.ground]!.key}|${Array.from(levels, (k) => scan.ids[k]!.key).join(',')}|${bandsKey}`,
+  };
 }
 
 /** Grid rms plus every penalty at the grid optimum (cached on the candidate). */

@@ -3,7 +3,7 @@
  * the Dq-only solution of a single-transition branch.
  */
 import { crossoverAt, levelsAt as computeLevels } from './engine.js';
-import type { FieldParameters, LevelsResult } from '../ligand-field/types.js';
+import type { FieldParameters, LevelsResult, SpinState } from '../ligand-field/types.js';
 import type { DqOnlyCandidate, GridCandidate } from './candidates.js';
 import { primaryClass } from './enumerate.js';
 import type { LeastSquaresResult } from './least-squares.js';
@@ -19,7 +19,10 @@ export interface Evaluated {
   params: FieldParameters;
   /** False for a Dq-only solution: b and c in params are nominal. */
   bDetermined: boolean;
-  levels: LevelsResult;
+  /** Engine levels at params; null for a solution refined on the scan only (an alternative). */
+  levels: LevelsResult | null;
+  groundTerm: string;
+  spinState: SpinState;
   /** Per observation of candidate.variant.observations. */
   calculated: Float64Array;
   /** ids index per observation. */
@@ -34,6 +37,14 @@ export interface Evaluated {
   /** The refinement crossed the spin crossover; the grid solution is kept. */
   keptGrid: boolean;
   notes: string[];
+}
+
+/** The spin state a branch stands for: the higher multiplicity of a scan with two ground levels is high-spin. */
+export function branchSpinState(candidate: GridCandidate | DqOnlyCandidate): SpinState {
+  const { scan, branch } = candidate;
+  const multiplicities = new Set(Array.from(scan.ground, (g) => scan.ids[g]!.multiplicity));
+  if (multiplicities.size < 2) return 'no-choice';
+  return branch.multiplicity === Math.max(...multiplicities) ? 'high-spin' : 'low-spin';
 }
 
 /** Class transitions above the assumed ground at computed levels, cm-1. */
@@ -59,6 +70,7 @@ export function evaluateGridCandidate(
   settings: FitSettings,
   sorted: SortedObservations,
   maxEvaluations = 60,
+  from?: FieldParameters,
 ): Evaluated {
   const { scan, branch, variant, grid } = candidate;
   const observations = variant.observations;
@@ -69,7 +81,7 @@ export function evaluateGridCandidate(
     observed: Float64Array.from(observations, (o) => o.position),
     sigma: Float64Array.from(observations, (o) => (sorted.weighted ? o.sigma : 1)),
   };
-  const start: FieldParameters = {
+  const start: FieldParameters = from ?? {
     dq: grid.x * grid.b, b: grid.b, c: settings.mode === 'fixed' ? settings.cFixed : scan.cOverB * grid.b,
   };
   const refined = refineSolution(problem, start, maxEvaluations);
@@ -107,7 +119,8 @@ export function evaluateGridCandidate(
   ];
   const wrms = Math.sqrt(ssr / wSum);
   return {
-    candidate, params, bDetermined: true, levels, calculated, levelIndices: candidate.levels, wrms, penalties,
+    candidate, params, bDetermined: true, levels, groundTerm: levels.groundTerm, spinState: levels.spinState,
+    calculated, levelIndices: candidate.levels, wrms, penalties,
     skipped: skip.skipped, coincident: skip.coincident, score: wrms + penaltyTotal(penalties),
     lsq: keptGrid ? null : refined.lsq, problem, keptGrid, notes,
   };
@@ -141,7 +154,8 @@ export function evaluateDqOnly(candidate: DqOnlyCandidate, settings: FitSettings
   const params = { dq, b, c: settings.mode === 'fixed' ? settings.cFixed : scan.cOverB * b };
   const levels = computeLevels(settings.d, settings.geometry, params);
   return {
-    candidate, params, bDetermined: false, levels, calculated: Float64Array.of(observation.position),
+    candidate, params, bDetermined: false, levels, groundTerm: levels.groundTerm, spinState: levels.spinState,
+    calculated: Float64Array.of(observation.position),
     levelIndices: Int32Array.of(level), wrms: 0, penalties: variant.penalties, skipped: [], coincident: [[]],
     score: penaltyTotal(variant.penalties), lsq: null, problem: null, keptGrid: false, notes,
   };

@@ -8,18 +8,29 @@
  *    0.8·B0, else C/4.5), redone once if the fitted C/B lands more than 0.5
  *    away; for a free C the ratios 3.0, 3.5, …, 6.5.
  * 3. Every order-consistent assignment on every spin branch at its grid
- *    optimum (closed-form B per grid point: profile.ts), scored approximately
- *    (candidates.ts); the best 4, and the best of each spin branch, are
- *    refined by Levenberg–Marquardt with the full engine (refine.ts) and
- *    scored again (evaluate.ts, penalties.ts). Only self-consistent solutions
- *    are kept: the assumed ground level is the ground level at the result.
+ *    optimum (closed-form B per grid point: profile.ts), in typed arrays
+ *    (candidates.ts). The grid rms is a lower bound of the score, so
+ *    penalties are computed only for the few that can still win: the best
+ *    REFINED_CANDIDATES, and the best of each spin branch that could be shown
+ *    as an alternative. Variants that leave a band unexplained are tried
+ *    only when the best full assignment scores worse than that penalty.
+ * 3b. Those are refined on the interpolated scan (evaluate-scan.ts; no
+ *    engine call) and the winner is polished by Levenberg–Marquardt with the
+ *    full engine (refine.ts), which also gives the Jacobian for the
+ *    uncertainties. With a fixed C every refinement uses the engine. Only
+ *    self-consistent solutions are kept: the assumed ground level is the
+ *    ground level at the result.
  * 4. The lowest score wins. A winner whose rms exceeds max(1000 cm-1, 5% of
  *    the mean band position) is not a fit: FieldgapError('unexplained').
  */
 import { FieldgapError } from '../errors.js';
 import { normalizeBands } from './bands.js';
-import { approximateScore, gridCandidates, type DqOnlyCandidate, type GridCandidate } from './candidates.js';
+import {
+  approximateScore, candidateAt, candidateGroups, type CandidateGroup, type DqOnlyCandidate, type GridCandidate,
+} from './candidates.js';
+import { PENALTY } from './penalties.js';
 import { evaluateDqOnly, evaluateGridCandidate, type Evaluated } from './evaluate.js';
+import { evaluateOnScan } from './evaluate-scan.js';
 import { sortObservations, type SortedObservations } from './observations.js';
 import { alternativeMargin, buildFitResult } from './result.js';
 import { cachedLevelScan } from './scan.js';
@@ -54,18 +65,26 @@ function describeSystem(settings: FitSettings): string {
  * lower bound of the score), so penalties are computed only for those that
  * can still make the cut.
  */
-function selectForRefinement(candidates: GridCandidate[], settings: FitSettings, sorted: SortedObservations): GridCandidate[] {
-  candidates.sort((a, b) => a.wrms - b.wrms);
+function selectForRefinement(entries: WrmsOrder, settings: FitSettings, sorted: SortedObservations): GridCandidate[] {
   const top: GridCandidate[] = [];
   const branchBest = new Map<number, GridCandidate>();
-  for (const c of candidates) {
+  const seen = new Set<string>();
+  for (const index of entries.order) {
+    const group = entries.groups[entries.group[index]!]!;
+    const a = entries.row[index]!;
+    const wrms = group.wrms[a]!;
     const kth = top.length < REFINED_CANDIDATES ? Infinity : top[top.length - 1]!.approxScore;
-    const own = branchBest.get(c.branch.multiplicity)?.approxScore ?? Infinity;
-    if (c.wrms >= kth && c.wrms >= own) continue;
+    // A branch's own best matters only if it can be shown as an alternative.
+    const own = Math.min(branchBest.get(group.branch.multiplicity)?.approxScore ?? Infinity, alternativeMargin(top[0]?.approxScore ?? Infinity));
+    if (wrms >= kth && wrms >= own) continue;
+    const c = candidateAt(group, a);
+    // The same assignment on another C/B scan (free C): the lower wrms, met first, stands for both.
+    if (seen.has(c.key)) continue;
+    seen.add(c.key);
     const score = approximateScore(c, settings, sorted);
     if (score < kth) {
       top.push(c);
-      top.sort((a, b) => a.approxScore - b.approxScore);
+      top.sort((x, y) => x.approxScore - y.approxScore);
       if (top.length > REFINED_CANDIDATES) top.pop();
     }
     if (score < own) branchBest.set(c.branch.multiplicity, c);
@@ -73,26 +92,75 @@ function selectForRefinement(candidates: GridCandidate[], settings: FitSettings,
   return [...new Set([...top, ...branchBest.values()])];
 }
 
+interface WrmsOrder {
+  groups: CandidateGroup[];
+  group: Int32Array;
+  row: Int32Array;
+  /** Indices into group/row by ascending wrms. */
+  order: Int32Array;
+}
+
+/** The (group, assignment) pairs with wrms ≤ limit, by ascending wrms, in typed arrays (no object per pair). */
+function wrmsOrder(groups: CandidateGroup[], limit: number): WrmsOrder {
+  let count = 0;
+  for (const g of groups) for (let a = 0; a < g.wrms.length; a++) if (g.wrms[a]! <= limit) count++;
+  const group = new Int32Array(count);
+  const row = new Int32Array(count);
+  const key = new Float64Array(count);
+  let at = 0;
+  groups.forEach((g, gi) => {
+    for (let a = 0; a < g.wrms.length; a++) {
+      if (g.wrms[a]! <= limit) {
+        group[at] = gi;
+        row[at] = a;
+        key[at++] = g.wrms[a]!;
+      }
+    }
+  });
+  const order = Int32Array.from({ length: count }, (_, i) => i).sort((x, y) => key[x]! - key[y]!);
+  return { groups, group, row, order };
+}
+
+/** The group entry with the lowest wrms, or undefined. */
+function lowestWrms(groups: CandidateGroup[]): GridCandidate | undefined {
+  let best: { group: CandidateGroup; a: number } | undefined;
+  for (const group of groups) {
+    for (let a = 0; a < group.wrms.length; a++) {
+      if (group.wrms[a]! < (best ? best.group.wrms[best.a]! : Infinity)) best = { group, a };
+    }
+  }
+  return best ? candidateAt(best.group, best.a) : undefined;
+}
+
 function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: number[]): Evaluated[] {
   const p = settings.mode === 'free' ? 3 : 2;
-  const byKey = new Map<string, GridCandidate>();
+  const scans = ratios.map((ratio) => cachedLevelScan(settings.d, settings.geometry, ratio));
+  const groups: CandidateGroup[] = [];
   const dqOnly: DqOnlyCandidate[] = [];
-  for (const ratio of ratios) {
-    const scan = cachedLevelScan(settings.d, settings.geometry, ratio);
-    const found = gridCandidates(scan, sorted, p);
-    for (const c of found.grid) {
-      const old = byKey.get(c.key);
-      if (!old || c.wrms < old.wrms) byKey.set(c.key, c);
-    }
-    if (dqOnly.length === 0) dqOnly.push(...found.dqOnly);
+  scans.forEach((scan, i) => {
+    const found = candidateGroups(scan, sorted, p);
+    groups.push(...found.groups);
+    if (i === 0) dqOnly.push(...found.dqOnly);
+  });
+  // An upper bound of the best score; leaving a band unexplained costs more than it, so such variants cannot win.
+  const first = lowestWrms(groups);
+  let bound = first ? approximateScore(first, settings, sorted) : Infinity;
+  if (bound > PENALTY.unexplainedBand) {
+    for (const scan of scans) groups.push(...candidateGroups(scan, sorted, p, { dropped: true, full: false }).groups);
+    const again = lowestWrms(groups);
+    if (again) bound = Math.min(bound, approximateScore(again, settings, sorted));
   }
+  const limit = alternativeMargin(bound);
+  const entries = wrmsOrder(groups, limit);
   const evaluated: Evaluated[] = [];
   let bestScore = Infinity;
-  const chosen = selectForRefinement([...byKey.values()], settings, sorted).sort((a, b) => a.approxScore - b.approxScore);
+  const chosen = selectForRefinement(entries, settings, sorted).sort((a, b) => a.approxScore - b.approxScore);
   for (const c of chosen) {
     // Refining lowers a score by little more than the grid error, far less than the margin.
     if (c.approxScore > alternativeMargin(bestScore)) continue;
-    const e = evaluateGridCandidate(c, settings, sorted, evaluated.length === 0 ? 60 : 20);
+    // C/B fixed (or free, at each scanned C/B): refine on the scan, no engine call; the winner is polished
+    // with the engine below. A fixed C changes C/B with B, which no one scan holds: engine throughout.
+    const e = settings.mode !== 'fixed' ? evaluateOnScan(c, settings, sorted) : evaluateGridCandidate(c, settings, sorted, evaluated.length === 0 ? 60 : 20);
     evaluated.push(e);
     bestScore = Math.min(bestScore, e.score);
   }
@@ -155,9 +223,9 @@ export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
   }
   let best = evaluated[0];
   if (!best) throw noAssignmentError(settings, sorted);
-  if (best.lsq && !best.lsq.success && best.candidate.kind === 'grid') {
-    // An alternative's refinement is capped at 20 evaluations; the winner gets the full budget.
-    best = evaluateGridCandidate(best.candidate, settings, sorted, 200);
+  if (best.candidate.kind === 'grid' && (best.levels === null || (best.lsq && !best.lsq.success))) {
+    // The winner gets the engine: polished from its scan solution, or refined with the full budget.
+    best = evaluateGridCandidate(best.candidate, settings, sorted, 200, best.levels === null ? best.params : undefined);
   }
   const positions = [...sorted.primary, ...sorted.flagged].map((o) => o.position);
   const threshold = unexplainedThreshold(positions);

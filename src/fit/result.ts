@@ -53,8 +53,9 @@ function predictedTransitions(best: Evaluated, settings: FitSettings, limit: num
   let other: LevelsResult | undefined;
   if (!best.bDetermined) other = computeLevels(settings.d, settings.geometry, { ...best.params, b: best.params.b * 1.2, c: best.params.c * 1.2 });
   const otherEnergy = new Map(other?.levels.map((l) => [levelIdentityKey(l), l.energy]) ?? []);
-  const groundMultiplicity = best.levels.levels[0]!.multiplicity;
-  return best.levels.levels
+  const levels = best.levels!;
+  const groundMultiplicity = levels.levels[0]!.multiplicity;
+  return levels.levels
     .filter((l) => l.energy > 0 && l.energy <= limit)
     .filter((l) => !other || Math.abs((otherEnergy.get(levelIdentityKey(l)) ?? Number.NaN) - l.energy) < 1e-6 * l.energy)
     .map((l) => ({
@@ -100,7 +101,7 @@ function sameSolution(a: Evaluated, b: Evaluated): boolean {
 
 function reasonAgainst(alt: Evaluated, best: Evaluated): string {
   const parts: string[] = [];
-  if (alt.levels.spinState !== best.levels.spinState) parts.push(`${alt.levels.spinState} ground level ${alt.levels.groundTerm}`);
+  if (alt.spinState !== best.spinState) parts.push(`${alt.spinState} ground level ${alt.groundTerm}`);
   if (alt.wrms > best.wrms + 1) parts.push(`rms ${Math.round(alt.wrms)} vs ${Math.round(best.wrms)} cm-1`);
   const bestDetails = new Set(best.penalties.map((p) => p.detail));
   for (const p of alt.penalties) if (!bestDetails.has(p.detail)) parts.push(`${p.detail} (+${Math.round(p.amount)})`);
@@ -118,7 +119,7 @@ function alternativeOf(alt: Evaluated, best: Evaluated, settings: FitSettings): 
     rmsResidual: round(alt.wrms), score: round(alt.score), penalties: alt.penalties,
     dq: round(alt.params.dq, 2), tenDq: round(10 * alt.params.dq), b: b === null ? null : round(b),
     c: b === null ? null : round(alt.params.c), beta: b !== null && settings.b0 ? round(b / settings.b0, 4) : null,
-    groundTerm: alt.levels.groundTerm, spinState: alt.levels.spinState, reason: reasonAgainst(alt, best),
+    groundTerm: alt.groundTerm, spinState: alt.spinState, reason: reasonAgainst(alt, best),
   };
 }
 
@@ -135,7 +136,7 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   const { predictedLimit = 50_000, maxAlternatives = 4 } = options;
   const { variant, scan, branch } = best.candidate;
   const notes = [...best.notes];
-  const levels = best.levels;
+  const levels = best.levels!;
   const unpaired = levels.unpairedElectrons;
   const bFit = best.bDetermined ? best.params.b : null;
   const cFit = best.bDetermined ? best.params.c : null;

@@ -1,0 +1,76 @@
+/**
+ * Scoring a grid candidate on the scan alone (at the scan's C/B: the fixed
+ * ratio, or one of the ratios scanned for a free C): the assignment's
+ * profile is minimised on the interpolated reduced energies (interpolate.ts)
+ * between the grid neighbours of its grid optimum, kept on the branch's side
+ * of the spin crossover, so the solution is self-consistent by
+ * construction. No engine call: this is how the runners-up are refined; the
+ * winner is then polished with the engine (evaluate.ts).
+ */
+import type { GridCandidate } from './candidates.js';
+import { primaryClass } from './enumerate.js';
+import { crossoverAt } from './engine.js';
+import { branchSpinState, type Evaluated } from './evaluate.js';
+import { refineProfileOnScan, scanEnergyAt } from './interpolate.js';
+import type { SortedObservations } from './observations.js';
+import { penaltyTotal, plausibilityPenalties, skippedTransitionPenalties } from './penalties.js';
+import { promotedElectrons } from './scan.js';
+import type { FitSettings } from './settings.js';
+
+/** The Dq/B interval the branch may use around grid point j. */
+function searchInterval(candidate: GridCandidate, settings: FitSettings): [number, number] {
+  const { scan, branch, grid } = candidate;
+  const j = grid.point;
+  let lo = scan.x[Math.max(0, j - 1)]!;
+  let hi = scan.x[Math.min(scan.x.length - 1, j + 1)]!;
+  if (scan.ground.some((g) => g !== branch.ground)) {
+    const crossover = crossoverAt(settings.d, settings.geometry, scan.cOverB);
+    if (crossover !== undefined) {
+      const weakField = scan.ground[0] === branch.ground;
+      if (weakField) hi = Math.min(hi, crossover * (1 - 1e-9));
+      else lo = Math.max(lo, crossover * (1 + 1e-9));
+    }
+  }
+  return lo < hi ? [lo, hi] : [grid.x, grid.x];
+}
+
+export function evaluateOnScan(candidate: GridCandidate, settings: FitSettings, sorted: SortedObservations): Evaluated {
+  const { scan, branch, variant, levels } = candidate;
+  const observations = variant.observations;
+  const o = Float64Array.from(observations, (obs) => obs.position);
+  const w = Float64Array.from(observations, (obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
+  const [lo, hi] = searchInterval(candidate, settings);
+  const refined = lo < hi ? refineProfileOnScan(scan, branch.ground, levels, o, w, lo, hi) : { ...candidate.grid };
+  const { x, b } = Number.isFinite(refined.ssr) && refined.ssr <= candidate.grid.ssr ? refined : candidate.grid;
+  const energy = (k: number) => b * scanEnergyAt(scan, k, branch.ground, x);
+  const calculated = Float64Array.from(levels, energy);
+  const promoted = promotedElectrons(scan, branch.ground);
+  const transitions = primaryClass(branch).levels.map((k) => ({
+    level: k, term: scan.ids[k]!.term, label: scan.ids[k]!.label, energy: energy(k), twoElectron: Math.abs(promoted[k]!) >= 2,
+  }));
+  const assigned = Array.from(levels.subarray(0, variant.nPrimary), (k, i) => {
+    const entry: { level: number; calculated: number; width?: number } = { level: k, calculated: calculated[i]! };
+    if (observations[i]!.width !== undefined) entry.width = observations[i]!.width!;
+    return entry;
+  });
+  const ctOnset = sorted.chargeTransfer.length ? Math.min(...sorted.chargeTransfer.map((band) => band.position)) : undefined;
+  const skip = skippedTransitionPenalties({
+    geometry: settings.geometry, transitions, assigned, classForbidden: variant.classForbidden,
+    ...(ctOnset !== undefined ? { ctOnset } : {}),
+  });
+  const c = scan.cOverB * b;
+  const penalties = [...variant.penalties, ...skip.penalties, ...plausibilityPenalties({ b, c, mode: settings.mode, b0: settings.b0 })];
+  let ssr = 0;
+  let wSum = 0;
+  observations.forEach((obs, i) => {
+    ssr += w[i]! * (calculated[i]! - obs.position) ** 2;
+    wSum += w[i]!;
+  });
+  const wrms = Math.sqrt(ssr / wSum);
+  return {
+    candidate, params: { dq: x * b, b, c }, bDetermined: true, levels: null,
+    groundTerm: scan.ids[branch.ground]!.term, spinState: branchSpinState(candidate),
+    calculated, levelIndices: levels, wrms, penalties, skipped: skip.skipped, coincident: skip.coincident,
+    score: wrms + penaltyTotal(penalties), lsq: null, problem: null, keptGrid: false, notes: [],
+  };
+}
