@@ -58,7 +58,7 @@ export function parameterCards(fit: FitResult, original: FitResult | null): HTML
     card('p-spin', 'Spin state', spinStateText(fit.spinState), '', fit.spinState === 'no-choice' ? `${dCountText(fit.d)} has no high-/low-spin choice · ground term ${fit.groundTerm}` : `ground term ${fit.groundTerm}`),
     card('p-unpaired', 'Unpaired electrons', String(fit.unpairedElectrons), ''),
     card('p-moment', 'Spin-only moment', formatNumber(fit.spinOnlyMoment, 2), UNIT.moment),
-    card('p-rms', 'RMS residual', formatNumber(fit.rmsResidual, 0), UNIT.wavenumber, fitStatusNote(fit)),
+    card('p-rms', 'RMS residual', formatNumber(fit.rmsResidual, fit.rmsResidual !== null && Math.abs(fit.rmsResidual) < 10 ? 1 : 0), UNIT.wavenumber, fitStatusNote(fit)),
   );
 }
 
