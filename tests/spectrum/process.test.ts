@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { type Band, processSpectrum, type ProcessedSpectrum, type SyntheticBand } from '../../src/spectrum/index.js';
+import { type Band, parseSpectrumText, processSpectrum, type ProcessedSpectrum, type SyntheticBand } from '../../src/spectrum/index.js';
+import { fixtureBytes } from './load.js';
 import { syntheticSpectrum, TOLERANCE } from './synthetic.js';
 
 /** The fitted band nearest to `position`. */
@@ -159,6 +160,16 @@ describe('processSpectrum on synthetic spectra (invented cases)', () => {
   it('refuses to process a JCAMP-DX PEAK TABLE as if it were a spectrum', () => {
     const peaks = { x: Float64Array.of(17400, 24600), y: Float64Array.of(0.3, 0.2), xUnit: 'cm-1' as const, yUnit: 'absorbance' as const, name: 'p.jdx', column: 1, metadata: { jcampForm: 'PEAK TABLE' } };
     expect(() => processSpectrum(peaks)).toThrow(expect.objectContaining({ code: 'unsupported-format', path: 'p.jdx:##PEAK TABLE' }));
+  });
+
+  it('reads and processes every form of the fixture to the same band (coarse 20 nm sampling)', () => {
+    // fixtures/spectra: one invented band at 17 000 cm-1, FWHM 3000, height 0.5, offset 0.02
+    for (const name of ['header.csv', 'semicolon-decimal-comma.csv', 'transmittance-percent.csv', 'energy-ev.csv', 'wavelength-um.csv', 'xydata-difdup.jdx']) {
+      const s = parseSpectrumText(fixtureBytes(name), { fileName: name }).spectra[0]!;
+      const result = processSpectrum(s);
+      expect(result.bands).toHaveLength(1);
+      expectRecovered(result, { position: 17000, fwhm: 3000 }, 0.5);
+    }
   });
 
   it('finds nothing in pure noise', () => {
