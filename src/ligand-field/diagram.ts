@@ -1,3 +1,4 @@
+import { levelKey } from './labels.js';
 import { computeLevels } from './levels.js';
 import type { Diagram, DiagramLine, Geometry } from './types.js';
 import { validateD, validateFinite, validateGeometry } from './validate.js';
@@ -36,14 +37,15 @@ export function computeDiagram(d: number, geometry: Geometry, options: DiagramOp
   }
   const dqOverB: number[] = [];
   const groundTerms: string[] = [];
-  const lines = new Map<string, DiagramLine>();
+  // Line identity (multiplicity, irrep, rank) packed in one small integer.
+  const lines = new Map<number, DiagramLine>();
   for (let i = 0; i <= steps; i++) {
     const x = (maxDqOverB * i) / steps;
     const result = computeLevels(d, geometry, { dq: x, b: 1, c: cOverB });
     dqOverB.push(x);
     groundTerms.push(result.groundTerm);
     for (const level of result.levels) {
-      const key = `${level.multiplicity}:${level.irrep}:${level.rank}`;
+      const key = 64 * levelKey(level.multiplicity, level.cubicIrrep) + level.rank;
       let line = lines.get(key);
       if (!line) {
         line = {
