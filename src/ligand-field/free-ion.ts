@@ -1,6 +1,8 @@
-import { freeIonBlocks } from './blocks.js';
-import { symmetricEigenvalues } from './eigen-symmetric.js';
-import type { FreeIonTerm } from './types.js';
+import { freeIonBlocks, type OperatorBlock } from './blocks.js';
+import { createEigenWorkspace, symmetricEigenvaluesInPlace } from './eigen-symmetric.js';
+import { levelKey, levelLabel, termName } from './labels.js';
+import { cubicComponentsOfL } from './term-splitting.js';
+import type { CubicIrrep, FreeIonTerm, Geometry } from './types.js';
 
 /**
  * Free-ion (Russell–Saunders) terms of d^n at Dq = 0.
@@ -10,7 +12,8 @@ import type { FreeIonTerm } from './types.js';
  * (S, L) are the eigenvalues of block (M_S = S, M_L = L) less those of
  * (S+1, L) and (S, L+1) plus those of (S+1, L+1). blocks.ts gets them at
  * once: H on the states of (M_S = S, M_L = L) killed by S+ and L+, one
- * dimension per term (1×1 for most, 3×3 for the three 2D of d5).
+ * dimension per term (1×1 for most, 3×3 for the three 2D of d5). Repeated
+ * terms come from one block, so their ascending eigenvalues number them.
  *
  * Energies are cm-1 above the lowest term; F0 (Racah A) is dropped.
  */
@@ -28,48 +31,114 @@ export function termSymbol(multiplicity: number, L: number): string {
   return `${multiplicity}${orbitalLetter(L)}`;
 }
 
-/** Terms of d^n at B = 1 and C = cOverB, energies from the lowest term. */
-function freeIonTermsAtUnitB(n: number, cOverB: number): FreeIonTerm[] {
-  if (n === 0 || n === 10) return [{ term: '1S', multiplicity: 1, L: 0, energy: 0 }];
-  const terms: Array<Omit<FreeIonTerm, 'term'> & { symbol: string; repeated: boolean }> = [];
-  for (const block of freeIonBlocks(n)) {
-    const h = new Float64Array(block.size * block.size);
-    for (let i = 0; i < h.length; i++) h[i] = block.operators[0]![i]! + cOverB * block.operators[1]![i]!;
-    const multiplicity = block.twoS + 1;
-    const energies = block.size === 1 ? h : symmetricEigenvalues(h, block.size);
-    for (const energy of energies) {
-      terms.push({ multiplicity, L: block.label, energy, symbol: termSymbol(multiplicity, block.label), repeated: block.size > 1 });
-    }
-  }
-  terms.sort((x, y) => x.energy - y.energy || y.multiplicity - x.multiplicity || y.L - x.L);
-  const ground = terms[0]!.energy;
-  const seen = new Map<string, number>();
-  return terms.map((t) => {
-    const index = (seen.get(t.symbol) ?? 0) + 1;
-    seen.set(t.symbol, index);
-    return { term: t.repeated ? `${t.symbol}${index}` : t.symbol, multiplicity: t.multiplicity, L: t.L, energy: t.energy - ground };
-  });
+/** One cubic component of a free-ion term, with its level key and display labels. */
+export interface TermComponent {
+  key: number;
+  irrep: CubicIrrep;
+  label: Readonly<Record<Geometry, string>>;
 }
 
-const cache = new Map<string, FreeIonTerm[]>();
+/** A free-ion term with what the level labelling needs from it. */
+export interface TermRecord {
+  term: FreeIonTerm;
+  components: readonly TermComponent[];
+}
+
+interface TermBlock {
+  block: OperatorBlock;
+  multiplicity: number;
+  L: number;
+  /** Term name of the i-th eigenvalue: "4F", or "2D1", "2D2", … when repeated. */
+  names: string[];
+  /** Cubic components of the i-th term. */
+  components: TermComponent[][];
+}
+
+const termBlockCache = new Map<number, TermBlock[]>();
+
+/** The per-d^n term blocks with their names and component labels, built once. */
+function termBlocks(n: number): TermBlock[] {
+  let hit = termBlockCache.get(n);
+  if (hit) return hit;
+  hit = freeIonBlocks(n).map((block) => {
+    const multiplicity = block.twoS + 1;
+    const L = block.label;
+    const symbol = termSymbol(multiplicity, L);
+    const names = Array.from({ length: block.size }, (_, i) => (block.size > 1 ? `${symbol}${i + 1}` : symbol));
+    const components = names.map((name) =>
+      cubicComponentsOfL(L).map((irrep) => ({
+        key: levelKey(multiplicity, irrep),
+        irrep,
+        label: {
+          octahedral: levelLabel(termName(multiplicity, irrep, 'octahedral'), name),
+          tetrahedral: levelLabel(termName(multiplicity, irrep, 'tetrahedral'), name),
+        },
+      })),
+    );
+    return { block, multiplicity, L, names, components };
+  });
+  termBlockCache.set(n, hit);
+  return hit;
+}
+
+const CLOSED_SHELL: TermRecord[] = [
+  {
+    term: { term: '1S', multiplicity: 1, L: 0, energy: 0 },
+    components: [{ key: levelKey(1, 'A1'), irrep: 'A1', label: { octahedral: '1A1g(S)', tetrahedral: '1A1(S)' } }],
+  },
+];
+
+const scratch = { h: new Float64Array(9), values: new Float64Array(3), eigen: createEigenWorkspace(3) };
+
+/** Terms of d^n at B = 1 and C = cOverB, ascending, energies from the lowest term. */
+function termRecordsAtUnitB(n: number, cOverB: number): TermRecord[] {
+  if (n === 0 || n === 10) return CLOSED_SHELL;
+  const records: TermRecord[] = [];
+  for (const { block, multiplicity, L, names, components } of termBlocks(n)) {
+    const [opB, opC] = block.operators as [Float64Array, Float64Array];
+    if (block.size === 1) {
+      records.push({ term: { term: names[0]!, multiplicity, L, energy: opB[0]! + cOverB * opC[0]! }, components: components[0]! });
+      continue;
+    }
+    const size = block.size;
+    if (scratch.h.length < size * size) {
+      scratch.h = new Float64Array(size * size);
+      scratch.values = new Float64Array(size);
+      scratch.eigen = createEigenWorkspace(size);
+    }
+    for (let i = 0; i < size * size; i++) scratch.h[i] = opB[i]! + cOverB * opC[i]!;
+    symmetricEigenvaluesInPlace(scratch.h, size, scratch.values, scratch.eigen);
+    for (let i = 0; i < size; i++) {
+      records.push({ term: { term: names[i]!, multiplicity, L, energy: scratch.values[i]! }, components: components[i]! });
+    }
+  }
+  records.sort((x, y) => x.term.energy - y.term.energy || y.term.multiplicity - x.term.multiplicity || y.term.L - x.term.L);
+  const ground = records[0]!.term.energy;
+  for (const record of records) record.term.energy -= ground;
+  return records;
+}
+
+const cache = new Map<number, Map<number, TermRecord[]>>();
 const CACHE_LIMIT = 64;
 
 /**
- * Free-ion terms at unit B for C/B = cOverB, cached: energies are homogeneous
- * of degree 1 in (B, C), so names and order depend on C/B only.
+ * Free-ion term records at unit B for C/B = cOverB, cached per d^n: energies
+ * are homogeneous of degree 1 in (B, C), so names and order depend on C/B only.
+ * The returned arrays are shared: do not modify.
  */
-export function freeIonTermsUnitB(n: number, cOverB: number): readonly FreeIonTerm[] {
-  const key = `${n}:${cOverB}`;
-  let hit = cache.get(key);
+export function freeIonRecordsUnitB(n: number, cOverB: number): readonly TermRecord[] {
+  let perN = cache.get(n);
+  if (!perN) cache.set(n, (perN = new Map()));
+  let hit = perN.get(cOverB);
   if (!hit) {
-    hit = freeIonTermsAtUnitB(n, cOverB);
-    if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
-    cache.set(key, hit);
+    hit = termRecordsAtUnitB(n, cOverB);
+    if (perN.size >= CACHE_LIMIT) perN.delete(perN.keys().next().value!);
+    perN.set(cOverB, hit);
   }
   return hit;
 }
 
 /** Free-ion terms of d^n with Racah B and C (cm-1), ascending energy; inputs assumed valid (b > 0). */
 export function freeIonTermsUnchecked(n: number, b: number, c: number): FreeIonTerm[] {
-  return freeIonTermsUnitB(n, c / b).map((t) => ({ ...t, energy: t.energy * b }));
+  return freeIonRecordsUnitB(n, c / b).map(({ term }) => ({ ...term, energy: term.energy * b }));
 }

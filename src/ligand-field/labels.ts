@@ -1,5 +1,5 @@
-import { cubicComponentsOfL } from './term-splitting.js';
-import type { CubicIrrep, FreeIonTerm, Geometry } from './types.js';
+import type { TermRecord } from './free-ion.js';
+import type { CubicIrrep, Geometry } from './types.js';
 
 /**
  * Names of levels and their free-ion parents.
@@ -18,7 +18,7 @@ import type { CubicIrrep, FreeIonTerm, Geometry } from './types.js';
 export interface ParentTable {
   /** levelKey(2S+1, Γ) → parent term names, in the order of the levels' rank. */
   parents: Array<string[] | undefined>;
-  /** levelKey(2S+1, Γ) → display labels ("4T1g(P)") by rank, for a geometry (built on first use). */
+  /** levelKey(2S+1, Γ) → display labels ("4T1g(P)") by rank, for a geometry. */
   labels(geometry: Geometry): Array<string[] | undefined>;
   /** Number of (S, Γ) levels d^n has. */
   expected(twoS: number, irrep: CubicIrrep): number;
@@ -31,33 +31,26 @@ export function levelKey(multiplicity: number, irrep: CubicIrrep): number {
   return 5 * multiplicity + IRREP_INDEX[irrep];
 }
 
-const tables = new WeakMap<readonly FreeIonTerm[], ParentTable>();
+const tables = new WeakMap<readonly TermRecord[], ParentTable>();
 
-/** The parent sequences of free-ion terms listed in ascending energy (cached per array). */
-export function parentTable(terms: readonly FreeIonTerm[]): ParentTable {
-  const hit = tables.get(terms);
+/** The parent sequences of free-ion term records listed in ascending energy (cached per array). */
+export function parentTable(records: readonly TermRecord[]): ParentTable {
+  const hit = tables.get(records);
   if (hit) return hit;
   const parents: Array<string[] | undefined> = [];
-  for (const term of terms)
-    for (const irrep of cubicComponentsOfL(term.L)) (parents[levelKey(term.multiplicity, irrep)] ??= []).push(term.term);
-  const labels: Partial<Record<Geometry, Array<string[] | undefined>>> = {};
+  const labels: Record<Geometry, Array<string[] | undefined>> = { octahedral: [], tetrahedral: [] };
+  for (const { term, components } of records)
+    for (const { key, label } of components) {
+      (parents[key] ??= []).push(term.term);
+      (labels.octahedral[key] ??= []).push(label.octahedral);
+      (labels.tetrahedral[key] ??= []).push(label.tetrahedral);
+    }
   const table: ParentTable = {
     parents,
-    labels(geometry) {
-      let list = labels[geometry];
-      if (!list) {
-        list = [];
-        for (const term of terms)
-          for (const irrep of cubicComponentsOfL(term.L)) {
-            (list[levelKey(term.multiplicity, irrep)] ??= []).push(levelLabel(termName(term.multiplicity, irrep, geometry), term.term));
-          }
-        labels[geometry] = list;
-      }
-      return list;
-    },
+    labels: (geometry) => labels[geometry],
     expected: (twoS, irrep) => parents[levelKey(twoS + 1, irrep)]?.length ?? 0,
   };
-  tables.set(terms, table);
+  tables.set(records, table);
   return table;
 }
 

@@ -1,6 +1,6 @@
 import { FieldgapError } from '../errors.js';
 import { cubicBlocks } from './blocks.js';
-import { freeIonTermsUnitB } from './free-ion.js';
+import { freeIonRecordsUnitB } from './free-ion.js';
 import { CUBIC_IRREPS, IRREP_DIMENSION } from './cubic-group.js';
 import { levelKey, levelLabel, parentTable, termName, irrepName } from './labels.js';
 import { rawLevels, type RawLevel } from './level-symmetry.js';
@@ -55,8 +55,7 @@ export function computeLevels(d: number, geometry: Geometry, params: FieldParame
   validateFieldParameters(params);
   if (d === 0 || d === 10) return closedShell(d, geometry, params);
   const { dq, b, c } = params;
-  const terms = freeIonTermsUnitB(d, c / b);
-  const table = parentTable(terms);
+  const table = parentTable(freeIonRecordsUnitB(d, c / b));
   const blocks = cubicBlocks(d, geometry);
   const tol = energyTolerance(params);
   const ranked = rankLevels(rawLevels(blocks, [dq, b, c], tol, table.expected));
