@@ -95,7 +95,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const empty = (): ProcessedSpectrum => ({
     points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid,
     baseline: new Float64Array(grid.length), model: new Float64Array(grid.length), signalUnit: energy.signalUnit, bands: [],
-    edge: null, noise, fit: { points: fx.length, parameters: 0, rms: 0, iterations: 0 }, warnings,
+    edge: null, noise, fit: { points: fx.length, parameters: 0, rms: 0, iterations: 0, converged: true }, warnings,
   });
   if (fx.length < 10) {
     warnings.push(`only ${fx.length} grid points left after masking: no bands fitted`);
@@ -123,12 +123,13 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
     epsilonPerSignal, positionSd: fit.positionSd, noise, gridStep: step, thresholds,
     baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
   });
+  if (!fit.converged) warnings.push(`the band fit stopped after ${fit.iterations} iterations without converging: treat the band parameters with care`);
   if (relative && bands.length > 0) warnings.push('no concentration given: bands classified by relative intensity and width only');
   if (fit.edge !== null) warnings.push(`a UV absorption edge was modelled (a Gaussian tail centred at ${fit.edge.position.toFixed(0)} cm-1, above the measured range)`);
   return {
     points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid, baseline, model,
     signalUnit: energy.signalUnit, bands, edge: fit.edge, noise,
-    fit: { points: fx.length, parameters: fit.parameters, rms: fit.rms, iterations: fit.iterations }, warnings,
+    fit: { points: fx.length, parameters: fit.parameters, rms: fit.rms, iterations: fit.iterations, converged: fit.converged }, warnings,
   };
 }
 

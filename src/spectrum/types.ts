@@ -103,6 +103,8 @@ export interface FitSummary {
   rms: number;
   /** Iterations of the last Levenberg–Marquardt run. */
   iterations: number;
+  /** False when the last run stopped at its iteration limit (a warning says so too). */
+  converged: boolean;
 }
 
 /** Everything processing a spectrum yields. */

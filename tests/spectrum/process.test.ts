@@ -32,6 +32,7 @@ describe('processSpectrum on synthetic spectra (invented cases)', () => {
       });
       const result = processSpectrum(spectrum, { concentration: 0.02, geometry: 'octahedral' });
       expect(result.bands).toHaveLength(2);
+      expect(result.fit.converged).toBe(true);
       for (const b of bands) {
         const band = expectRecovered(result, b, b.epsilon * 0.02);
         expect(band.kind).toBe('d-d');
