@@ -238,6 +238,23 @@ describe.skipIf(browserTestsSkipped())('the web page in headless Chromium', () =
     await page.waitForFunction((text) => document.querySelector('#p-tendq .value')?.textContent === text, formatWithUncertainty(first.fit!.tenDq, first.fit!.uncertainty.tenDq));
   }, 30_000);
 
+  it('marks a band as charge transfer: the fit leaves it out', async () => {
+    const rows = page.locator('#band-table tbody tr');
+    const position = Number(await rows.nth(0).getAttribute('data-position'));
+    await page.selectOption('#band-0-kind', 'charge-transfer');
+    const requestPromise = page.waitForRequest((r) => r.url().endsWith('/api/v1/fit') && r.method() === 'POST');
+    await page.click('#refit');
+    const body = (await requestPromise).postDataJSON() as { bands: { position: number; flags: string[] }[] };
+    expect(body.bands.find((band) => band.position === position)?.flags).toContain('charge-transfer');
+    await page.waitForSelector('#refit:not([disabled])');
+    const expected = await apiFit(service, body);
+    expect(expected.assignments.some((a) => Math.abs(a.observed - position) < 1)).toBe(false);
+    expect(await cardValue(page, 'p-tendq')).toBe(formatWithUncertainty(expected.tenDq, expected.uncertainty.tenDq));
+    await expect(rows.nth(0).locator('td').nth(4).textContent()).resolves.toContain('charge transfer');
+    await page.click('#undo');
+    await page.waitForFunction(() => (document.querySelector('#band-0-kind') as HTMLSelectElement).value !== 'charge-transfer');
+  }, 30_000);
+
   it('adds a band where the spectrum is clicked', async () => {
     const rows = page.locator('#band-table tbody tr');
     const count = await rows.count();

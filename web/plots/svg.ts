@@ -81,7 +81,7 @@ export function svgFromSpec(spec: PlotSpec, options: SvgOptions): string {
   const legend = spec.series.filter((s) => s.quiet !== true).reverse();
   for (const series of legend) {
     const label = escapeXml(series.label);
-    legendX -= 28 + label.length * 6.5;
+    legendX -= 36 + series.label.length * 7.2;
     out.push(`<line x1="${f(legendX)}" x2="${f(legendX + 18)}" y1="16" y2="16" stroke="${series.color}" stroke-width="2.5"/>`);
     out.push(`<text x="${f(legendX + 22)}" y="20">${label}</text>`);
   }
