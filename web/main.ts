@@ -126,7 +126,7 @@ function renderMain(root: HTMLElement): void {
   const entry = current();
   if (entry === null) {
     root.replaceChildren(
-      h('section', { class: 'panel intro' }, h('h2', {}, 'Start here'), h('p', {}, 'Choose or drop one or more absorption spectra on the left, say which metal ion and geometry they are, and press Analyse. fieldgap finds the bands, assigns them to ligand-field transitions and reports 10Dq, the Racah parameters B and C, β and the spin state.')),
+      h('section', { class: 'panel intro' }, h('h2', {}, 'Start here'), h('p', {}, 'Choose or drop one or more absorption spectra on the left, say which metal ion and geometry they are, and press Analyse. fieldgap finds the bands, assigns them to ligand-field transitions and reports 10Dq, the Racah parameters B and C, β and the spin state.'), h('p', { class: 'muted' }, 'To try it: the project folder spectra-demo/ holds invented Cr³⁺ spectra (not measurements) at 0.05 mol L⁻¹; give the ion as Cr3+.')),
     );
     return;
   }
