@@ -17,6 +17,7 @@ import { browserTestsSkipped, launchBrowser, type Browser } from './helpers/brow
 import { startService, type RunningService } from './helpers/server.js';
 import { demoFiles, type DemoFile } from './helpers/demo.js';
 import { cardValue, uploadAndAnalyse } from './helpers/page-actions.js';
+import { apiAnswer } from './helpers/api.js';
 
 const SHOTS = resolve(import.meta.dirname, '..', '..', 'test-results', 'e2e');
 /** The ligands of the invented demo scenario (spectra-demo/README.md). */
@@ -40,11 +41,7 @@ describe.skipIf(browserTestsSkipped())('the results library on the page', () => 
     service = await startService();
     usable = [];
     for (const [i, file] of files.entries()) {
-      const form = new FormData();
-      form.append('spectrum', new Blob([await readFile(file.path)]), file.name);
-      const query = new URLSearchParams({ ion: file.ion, geometry: file.geometry, conc: String(file.concentration) });
-      const response = await fetch(`${service.baseUrl}/api/v1/analyze?${query}`, { method: 'POST', body: form });
-      if (response.ok) usable.push({ file, ligand: LIGANDS[file.name] ?? `L${i + 1}` });
+      if ((await apiAnswer(service, file)).status === 200) usable.push({ file, ligand: LIGANDS[file.name] ?? `L${i + 1}` });
     }
     browser = await launchBrowser();
     page = await browser.context.newPage();
