@@ -155,7 +155,8 @@ export function plausibilityPenalties({ b, c, mode, b0 }: PlausibilityContext): 
   if (mode === 'free') {
     const ratio = c / b;
     const outside = ratio < LIMITS.cOverBMin ? LIMITS.cOverBMin - ratio : ratio > LIMITS.cOverBMax ? ratio - LIMITS.cOverBMax : 0;
-    if (outside > 0) {
+    // The edges of the scanned C/B range themselves are inside (rounding of c/b).
+    if (outside > 1e-9) {
       penalties.push({
         rule: 'c-over-b',
         amount: PENALTY.cOverB + 2000 * outside,

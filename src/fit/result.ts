@@ -94,9 +94,19 @@ function statusOf(best: Evaluated): { status: FitStatus; message: string; evalua
   return { status: 'converged', message: `converged: ${how}`, evaluations };
 }
 
-function sameSolution(a: Evaluated, b: Evaluated): boolean {
-  if (a.calculated.length !== b.calculated.length || a.candidate.branch.ground !== b.candidate.branch.ground) return false;
-  return a.calculated.every((v, i) => Math.abs(v - b.calculated[i]!) < 1) && Math.abs(a.params.dq - b.params.dq) < 1e-3 * a.params.dq;
+/**
+ * The same solution, or a relabeling of it: on every band the other takes
+ * the same level or one that lies under the winner's band (degenerate, such
+ * as 4A1g/4Eg(G) of d5).
+ */
+function sameSolution(other: Evaluated, best: Evaluated): boolean {
+  if (other.calculated.length !== best.calculated.length || other.candidate.branch.ground !== best.candidate.branch.ground) return false;
+  if (other.candidate.variant.observations.some((o, i) => o.bands.join() !== best.candidate.variant.observations[i]!.bands.join())) return false;
+  const ids = best.candidate.scan.ids;
+  return Array.from(other.levelIndices).every((k, i) => {
+    const label = other.candidate.scan.ids[k]!.label;
+    return label === ids[best.levelIndices[i]!]!.label || (best.coincident[i] ?? []).includes(label);
+  });
 }
 
 function reasonAgainst(alt: Evaluated, best: Evaluated): string {
@@ -170,11 +180,13 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
     ...sorted.chargeTransfer.map((b) => ({ observed: round(b.position), band: b.index, reason: 'charge-transfer band: left out of the fit' })),
     ...variant.dropped.map((o) => ({ observed: round(o.position), band: o.bands[0]!, reason: 'left unexplained by the chosen assignment' })),
   ];
-  const alternatives = others
-    .filter((o) => !sameSolution(o, best))
-    .filter((o) => o.score <= alternativeMargin(best.score))
-    .slice(0, maxAlternatives)
-    .map((o) => alternativeOf(o, best, settings));
+  const kept: Evaluated[] = [];
+  for (const o of others) {
+    if (kept.length >= maxAlternatives || o.score > alternativeMargin(best.score)) continue;
+    if ([best, ...kept].some((k) => sameSolution(o, k))) continue;
+    kept.push(o);
+  }
+  const alternatives = kept.map((o) => alternativeOf(o, best, settings));
   return {
     d: settings.d, ion: settings.ion?.label ?? null, geometry: settings.geometry,
     dq: round(best.params.dq, 2), tenDq: round(10 * best.params.dq), b: bFit === null ? null : round(bFit),
