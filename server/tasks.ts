@@ -8,8 +8,7 @@
 import { analyzeSpectrum, type AnalyzeOptions } from '../src/analysis.js';
 import { FieldgapError, isFieldgapError, type ErrorCode } from '../src/errors.js';
 import { fitBands, type FitInput } from '../src/fit/index.js';
-import { levelsJson } from '../src/cli/commands/levels.js';
-import { computeDiagram, computeLevels } from '../src/ligand-field/index.js';
+import { computeLevels, diagramDocument, levelsDocument } from '../src/ligand-field/index.js';
 import type { Geometry } from '../src/ligand-field/types.js';
 import { TaskBugError } from './errors.js';
 
@@ -59,11 +58,11 @@ function runTask(task: Task): unknown {
     case 'levels': {
       const { d, geometry, dq, b, c } = task.input;
       // The document `fieldgap levels --json` prints: one shape for the CLI and the service.
-      return levelsJson(computeLevels(d, geometry, { dq, b, c }));
+      return levelsDocument(computeLevels(d, geometry, { dq, b, c }));
     }
     case 'diagram': {
       const { d, geometry, cOverB, maxDqOverB, steps } = task.input;
-      return computeDiagram(d, geometry, { cOverB, maxDqOverB, steps });
+      return diagramDocument(d, geometry, { cOverB, maxDqOverB, steps });
     }
     case 'fit':
       return fitBands(task.input);

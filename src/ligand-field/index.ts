@@ -8,5 +8,6 @@ export { computeLevels } from './levels.js';
 export { computeDiagram, DIAGRAM_DEFAULTS, type DiagramOptions } from './diagram.js';
 export { crossoverDqOverB, type CrossoverOptions } from './crossover.js';
 export { freeIonTerms } from './public-free-ion.js';
+export { diagramDocument, levelsDocument } from './documents.js';
 export { spinStateChoice } from './spin-state.js';
 export * from './types.js';

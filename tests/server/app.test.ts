@@ -2,8 +2,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { readFileSync } from 'node:fs';
-import { levelsJson } from '../../src/cli/commands/levels.js';
-import { computeDiagram, computeLevels } from '../../src/ligand-field/index.js';
+import { computeLevels, diagramDocument, levelsDocument } from '../../src/ligand-field/index.js';
 import { FieldgapError } from '../../src/errors.js';
 import type { ComputePool } from '../../server/pool.js';
 import { fitBands } from '../../src/fit/index.js';
@@ -92,12 +91,12 @@ describe('GET /api/v1/openapi.json', () => {
 describe('GET /api/v1/levels', () => {
   it('answers what `levels --json` prints for the same parameters', async () => {
     const res = await request(t.app).get('/api/v1/levels').query({ d: 3, geometry: 'octahedral', dq: 1740, b: 720, c: 2900 }).expect(200);
-    expect(res.body).toEqual(JSON.parse(JSON.stringify(levelsJson(computeLevels(3, 'octahedral', { dq: 1740, b: 720, c: 2900 })))));
+    expect(res.body).toEqual(JSON.parse(JSON.stringify(levelsDocument(computeLevels(3, 'octahedral', { dq: 1740, b: 720, c: 2900 })))));
     levelsResponse.parse(res.body);
   });
   it('takes C as cOverB·B when cOverB is given instead of c, as the CLI does', async () => {
     const res = await request(t.app).get('/api/v1/levels?d=8&geometry=tetrahedral&dq=400&b=800&cOverB=4.5').expect(200);
-    expect(res.body).toEqual(JSON.parse(JSON.stringify(levelsJson(computeLevels(8, 'tetrahedral', { dq: 400, b: 800, c: 3600 })))));
+    expect(res.body).toEqual(JSON.parse(JSON.stringify(levelsDocument(computeLevels(8, 'tetrahedral', { dq: 400, b: 800, c: 3600 })))));
     const neither = await request(t.app).get('/api/v1/levels?d=8&dq=400&b=800').expect(400);
     expect(neither.body.error.path).toBe('c');
   });
@@ -114,7 +113,8 @@ describe('GET /api/v1/levels', () => {
 describe('GET /api/v1/diagram', () => {
   it('answers what the engine computes', async () => {
     const res = await request(t.app).get('/api/v1/diagram').query({ d: 6, cOverB: 4.8, maxDqOverB: 3, steps: 30 }).expect(200);
-    expect(res.body).toEqual(JSON.parse(JSON.stringify(computeDiagram(6, 'octahedral', { cOverB: 4.8, maxDqOverB: 3, steps: 30 }))));
+    expect(res.body).toEqual(JSON.parse(JSON.stringify(diagramDocument(6, 'octahedral', { cOverB: 4.8, maxDqOverB: 3, steps: 30 }))));
+    expect(res.body.crossoverDqOverB).toBeCloseTo(2.0, 1);
     const diagram = diagramResponse.parse(res.body);
     expect(diagram.dqOverB).toHaveLength(31);
   });

@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyzeSpectrum } from '../../src/analysis.js';
-import { levelsJson } from '../../src/cli/commands/levels.js';
+import { levelsDocument } from '../../src/ligand-field/index.js';
 import { computeLevels } from '../../src/ligand-field/index.js';
 import { FieldgapError } from '../../src/errors.js';
 import { RequestAbortedError, ServiceBusyError, TaskBugError } from '../../server/errors.js';
@@ -40,7 +40,7 @@ describe('worker pool', () => {
   it('computes in a worker exactly what the engine computes here', async () => {
     const input = { d: 4, geometry: 'octahedral' as const, dq: 2100, b: 800, c: 3400 };
     const result = await pool.run({ kind: 'levels', input });
-    expect(result).toEqual(JSON.parse(JSON.stringify(levelsJson(computeLevels(4, 'octahedral', { dq: 2100, b: 800, c: 3400 })))));
+    expect(result).toEqual(JSON.parse(JSON.stringify(levelsDocument(computeLevels(4, 'octahedral', { dq: 2100, b: 800, c: 3400 })))));
   });
 
   it('analyses an uploaded Buffer in a worker exactly as analyzeSpectrum does here', async () => {

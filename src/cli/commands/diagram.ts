@@ -1,5 +1,5 @@
 import { invalidArgument } from '../../errors.js';
-import { computeDiagram, crossoverDqOverB, DIAGRAM_DEFAULTS, GEOMETRIES, type Diagram } from '../../ligand-field/index.js';
+import { computeDiagram, crossoverDqOverB, DIAGRAM_DEFAULTS, diagramDocument, GEOMETRIES, type Diagram } from '../../ligand-field/index.js';
 import type { Command } from '../command.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 import { joinNegativeValues } from './levels.js';
@@ -115,14 +115,7 @@ export const diagramCommand: Command = {
     const crossover =
       args.d > 0 && args.d < 10 ? crossoverDqOverB(args.d, args.geometry, args.cOverB, { maxDqOverB: args.maxDqOverB }) : undefined;
     if (args.format === 'json') {
-      const { d, geometry, cOverB, dqOverB, groundTerms, lines } = diagram;
-      const document = {
-        d, geometry, cOverB, maxDqOverB: args.maxDqOverB, steps: args.steps,
-        crossoverDqOverB: crossover ?? null,
-        dqOverB: dqOverB.map(round), groundTerms,
-        lines: lines.map((line) => ({ ...line, energies: line.energies.map(round) })),
-      };
-      io.stdout(`${JSON.stringify(document)}\n`);
+      io.stdout(`${JSON.stringify(diagramDocument(args.d, args.geometry, { cOverB: args.cOverB, maxDqOverB: args.maxDqOverB, steps: args.steps }))}\n`);
     } else {
       io.stdout(args.format === 'csv' ? diagramCsv(diagram) : diagramTable(diagram, crossover));
     }

@@ -1,5 +1,5 @@
 import { invalidArgument } from '../../errors.js';
-import { computeLevels, freeIonTerms, GEOMETRIES, type LevelsResult } from '../../ligand-field/index.js';
+import { computeLevels, GEOMETRIES, levelsDocument, type LevelsResult } from '../../ligand-field/index.js';
 import type { Command } from '../command.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 
@@ -85,21 +85,6 @@ export function parseLevelsArgs(argv: string[]): LevelsArgs {
   return { d, geometry, dq, b, c, json: values.json ?? false };
 }
 
-/** The JSON document of `levels --json`: the contract fields first, then extras. */
-export function levelsJson(result: LevelsResult): object {
-  const { d, geometry, dq, b, c, groundTerm, spinState, unpairedElectrons, levels, notes } = result;
-  return {
-    d, geometry, dq, b, c, groundTerm, spinState, unpairedElectrons,
-    levels: levels.map(({ energy, term, multiplicity, irrep, degeneracy, parent, label, cubicIrrep, rank }) => ({
-      energy, term, multiplicity, irrep, degeneracy, parent, label, cubicIrrep, rank,
-    })),
-    groundLabel: levels[0]?.label,
-    cOverB: c / b,
-    tenDq: 10 * dq,
-    freeIonTerms: freeIonTerms(d, b, c),
-    notes,
-  };
-}
 
 function formatNumber(value: number, digits: number): string {
   return value.toLocaleString('en-US', { minimumFractionDigits: digits, maximumFractionDigits: digits, useGrouping: false });
@@ -140,7 +125,7 @@ export const levelsCommand: Command = {
   async run(argv, io) {
     const args = parseLevelsArgs(argv);
     const result = computeLevels(args.d, args.geometry, { dq: args.dq, b: args.b, c: args.c });
-    io.stdout(args.json ? `${JSON.stringify(levelsJson(result), null, 2)}\n` : levelsTable(result));
+    io.stdout(args.json ? `${JSON.stringify(levelsDocument(result), null, 2)}\n` : levelsTable(result));
     return 0;
   },
 };
