@@ -1,7 +1,23 @@
 /**
- * From candidates to a refined set of bands: refine, drop bands the data
- * do not support, and add a band where the residual still shows one (kept
- * only if it lowers the Bayesian information criterion).
+ * From candidates to a refined set of bands (model selection). Each model is
+ * scored by the Bayesian information criterion with the measured noise,
+ * BIC = RSS/σ² + p ln n (σ the median noise of the grid, p free
+ * parameters, n points); a more complex model is kept only when its BIC is
+ * lower by more than BIC_MARGIN (10, "very strong" evidence), so a
+ * component the data do not need goes. The steps:
+ * 1. refine the candidates; drop bands that are weak, undetermined or
+ *    duplicates (prune);
+ * 2. simplify: bands within one FWHM of the top of the range that show no
+ *    maximum of their own (centre above the top − FWHM/4) or are broader than
+ *    3 × broadFwhm are the UV
+ *    edge, not bands: they are replaced by the edge model (unless the edge
+ *    is switched off); a band within FWHM/4 of the bottom of the range is
+ *    dropped unless the BIC demands it; two bands closer than half the
+ *    larger FWHM are tried as one (moment-merged) band;
+ * 3. the edge (in 'auto' mode) is tried off when present and on when
+ *    absent, kept by the same criterion;
+ * 4. a band is added where the residual still shows one (not at the range
+ *    boundaries), kept only by the criterion; then step 2–3 again.
  */
 import { gaussianValue } from './gaussian.js';
 import { type BandCandidate, xyFindBandCandidates } from './xyFindBandCandidates.js';
@@ -19,15 +35,35 @@ export interface FitBandsOptions {
   narrowFwhm: number;
   /** Most bands kept. */
   maxBands: number;
+  /** Weights 1/σ_i of the fit. @default 1 / noise */
+  weights?: Float64Array;
+  /** 'auto': the edge is tried on and off; true: always (as given); false: never. @default 'auto' */
+  edgeMode?: 'auto' | boolean;
 }
 
-/** BIC of a Gaussian-error fit: n ln(RSS/n) + p ln n. */
-function bic(fit: RefineBandsResult, n: number): number {
-  return n * Math.log(Math.max(fit.rms * fit.rms, 1e-300)) + fit.parameters * Math.log(n);
+/** BIC difference a more complex model must win by. */
+export const BIC_MARGIN = 10;
+
+/** BIC with known noise: χ² + p ln n (the fit is weighted by 1/σ_i). */
+export function bandFitBic(fit: RefineBandsResult, n: number): number {
+  return fit.chiSquare + fit.parameters * Math.log(n);
 }
 
 function refine(x: Float64Array, y: Float64Array, bands: GaussianParameters[], edge: GaussianParameters | null, o: FitBandsOptions): RefineBandsResult {
-  return xyRefineBands(x, y, { bands, edge, baselineGuess: o.baselineGuess, baselineOrder: o.baselineOrder });
+  return xyRefineBands(x, y, { bands, edge, baselineGuess: o.baselineGuess, baselineOrder: o.baselineOrder, weights: o.weights ?? weightsFromNoise(o.noise) });
+}
+
+const weightCache = new WeakMap<Float64Array, Float64Array>();
+
+/** 1/σ_i, floored at a tenth of the median σ so that no point dominates. */
+function weightsFromNoise(noise: Float64Array): Float64Array {
+  let w = weightCache.get(noise);
+  if (w === undefined) {
+    const floor = 0.1 * xMedian(noise);
+    w = Float64Array.from(noise, (s) => 1 / Math.max(s, floor, 1e-300));
+    weightCache.set(noise, w);
+  }
+  return w;
 }
 
 /** Index of the x nearest to v (x ascending). */
@@ -80,23 +116,129 @@ function residual(x: Float64Array, y: Float64Array, fit: RefineBandsResult): Flo
  * (masked points removed). Returns the last accepted fit.
  */
 export function fitBands(x: Float64Array, y: Float64Array, o: FitBandsOptions): RefineBandsResult {
+  const n = x.length;
+  const sigma = xMedian(o.noise);
+  const ctx: Context = { x, y, o, sigma, score: (f) => bandFitBic(f, n), mode: o.edgeMode ?? 'auto' };
   const start = o.candidates.slice(0, o.maxBands).map((c) => ({ position: c.position, height: c.height, fwhm: c.fwhm }));
-  let fit = refine(x, y, start, o.edge, o);
+  let fit = refine(x, y, start, ctx.mode === false ? null : o.edge, o);
   for (let loop = 0; loop < 3; loop++) {
     const kept = prune(fit, x, o.noise, o.narrowFwhm);
     if (kept === null) break;
     fit = refine(x, y, kept, fit.edge, o);
   }
-  for (let added = 0; added < 4 && fit.bands.length < o.maxBands; added++) {
+  fit = simplify(ctx, fit);
+  let added = 0;
+  for (; added < 3 && fit.bands.length < o.maxBands; added++) {
     const r = residual(x, y, fit);
+    const xMin = x[0] as number;
+    const xMax = x[n - 1] as number;
     const extra = xyFindBandCandidates(x, r, { noise: o.noise, broadFwhm: o.broadFwhm, narrowFwhm: o.narrowFwhm, significance: 5 })
       .filter((c) => fit.bands.every((b) => Math.abs(b.position - c.position) > 0.15 * b.fwhm))
+      .filter((c) => !atLowEnd(c, xMin) && !(ctx.mode !== false && edgeLike(c, xMax, o.broadFwhm)))
       .sort((a, b) => b.height * Math.sqrt(b.fwhm) - a.height * Math.sqrt(a.fwhm))[0];
     if (extra === undefined) break;
     const trial = refine(x, y, [...fit.bands, { position: extra.position, height: extra.height, fwhm: extra.fwhm }].sort((a, b) => a.position - b.position), fit.edge, o);
-    const pruned = prune(trial, x, o.noise, o.narrowFwhm);
-    if (pruned !== null || bic(trial, x.length) >= bic(fit, x.length) - 10) break;
+    if (prune(trial, x, o.noise, o.narrowFwhm) !== null || ctx.score(trial) >= ctx.score(fit) - BIC_MARGIN) break;
     fit = trial;
   }
+  return added > 0 ? simplify(ctx, fit) : fit;
+}
+
+interface Context {
+  x: Float64Array;
+  y: Float64Array;
+  o: FitBandsOptions;
+  sigma: number;
+  score: (fit: RefineBandsResult) => number;
+  mode: 'auto' | boolean;
+}
+
+/** A band whose centre is within one FWHM of the top of the range and that shows no maximum there or is too broad for a d–d band. */
+function edgeLike(b: GaussianParameters, xMax: number, broadFwhm: number): boolean {
+  return b.position > xMax - b.fwhm && (b.position > xMax - 0.25 * b.fwhm || b.fwhm > 3 * broadFwhm);
+}
+
+function atLowEnd(b: GaussianParameters, xMin: number): boolean {
+  return b.position < xMin + 0.25 * b.fwhm;
+}
+
+/** One band with the area, mean and variance of two (Gaussian moments). */
+export function gaussiansMerge(p: GaussianParameters, q: GaussianParameters): GaussianParameters {
+  const ap = p.height * p.fwhm;
+  const aq = q.height * q.fwhm;
+  const area = Math.max(ap + aq, 1e-300);
+  const position = (ap * p.position + aq * q.position) / area;
+  const variance = (ap * (p.fwhm ** 2 / (8 * Math.LN2) + (p.position - position) ** 2) + aq * (q.fwhm ** 2 / (8 * Math.LN2) + (q.position - position) ** 2)) / area;
+  const fwhm = Math.sqrt(8 * Math.LN2 * variance);
+  return { position, fwhm, height: area / fwhm };
+}
+
+/** An edge start whose value at the top of the range is `atEnd`. */
+function edgeStart(xMax: number, atEnd: number): GaussianParameters {
+  const position = xMax + 6000;
+  const fwhm = 12000;
+  return { position, fwhm, height: Math.max(atEnd, 0) / gaussianValue(xMax, position, 1, fwhm) };
+}
+
+/** Steps 2 and 3 of the model selection (see the file's docstring). */
+function simplify(ctx: Context, initial: RefineBandsResult): RefineBandsResult {
+  const { x, y, o } = ctx;
+  const xMin = x[0] as number;
+  const xMax = x[x.length - 1] as number;
+  let fit = initial;
+  const tryModel = (bands: GaussianParameters[], edge: GaussianParameters | null, margin: number): boolean => {
+    const trial = refine(x, y, bands, edge, o);
+    if (ctx.score(trial) < ctx.score(fit) + margin) {
+      fit = trial;
+      return true;
+    }
+    return false;
+  };
+  for (let round = 0; round < 8; round++) {
+    const bands = fit.bands;
+    if (ctx.mode !== false) {
+      const edgeBands = bands.filter((b) => edgeLike(b, xMax, o.broadFwhm));
+      if (edgeBands.length > 0) {
+        const atEnd = edgeBands.reduce((s, b) => s + gaussianValue(xMax, b.position, b.height, b.fwhm), 0);
+        // A rule, not a test: a band at the top of the range is the edge.
+        tryModel(bands.filter((b) => !edgeBands.includes(b)), fit.edge ?? edgeStart(xMax, atEnd), Number.POSITIVE_INFINITY);
+        continue;
+      }
+    }
+    const low = bands.filter((b) => atLowEnd(b, xMin));
+    if (low.length > 0 && tryModel(bands.filter((b) => !low.includes(b)), fit.edge, BIC_MARGIN)) continue;
+    let merged = false;
+    const pairs: Array<[number, number]> = [];
+    for (let j = 0; j + 1 < bands.length; j++) {
+      const p = bands[j] as GaussianParameters;
+      const q = bands[j + 1] as GaussianParameters;
+      if (Math.abs(q.position - p.position) < 0.5 * Math.max(p.fwhm, q.fwhm)) pairs.push([j, Math.abs(q.position - p.position) / Math.max(p.fwhm, q.fwhm)]);
+    }
+    pairs.sort((a, b) => a[1] - b[1]);
+    for (const [j] of pairs) {
+      const one = gaussiansMerge(bands[j] as GaussianParameters, bands[j + 1] as GaussianParameters);
+      if (tryModel([...bands.slice(0, j), one, ...bands.slice(j + 2)], fit.edge, BIC_MARGIN)) {
+        merged = true;
+        break;
+      }
+    }
+    if (!merged) break;
+  }
+  if (ctx.mode === 'auto') {
+    if (fit.edge !== null) tryModel(fit.bands, null, BIC_MARGIN);
+    else {
+      const r = residual(x, y, fit);
+      let tail = 0;
+      const k = Math.max(3, Math.floor(0.03 * x.length));
+      for (let i = x.length - k; i < x.length; i++) tail += (r[i] as number) / k;
+      tryModel(fit.bands, edgeStart(xMax, Math.max(tail, 3 * ctx.sigma)), -BIC_MARGIN);
+    }
+  }
   return fit;
+}
+
+function xMedian(values: Float64Array): number {
+  if (values.length === 0) return 0;
+  const sorted = Float64Array.from(values).sort();
+  return sorted[sorted.length >> 1] as number;
 }

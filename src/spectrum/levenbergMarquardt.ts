@@ -152,3 +152,75 @@ export function levenbergMarquardt(evaluate: ResidualsAndJacobian, options: Leve
   }
   return { parameters: params, cost, iterations, converged };
 }
+
+/** A least-squares problem given by its normal equations (see xyBandModelNormal). */
+export interface NormalEquationsProblem {
+  /** Fills a = JᵀJ (p × p, row major) and g = Jᵀr at params; returns the sum of squares. */
+  normal: (params: Float64Array, a: Float64Array, g: Float64Array) => number;
+  /** The sum of squares alone (cheaper: no Jacobian), for trial steps. */
+  cost: (params: Float64Array) => number;
+}
+
+/**
+ * Bounded Levenberg–Marquardt as levenbergMarquardt, on a problem that
+ * forms its own normal equations (so a sparse model can skip the zero
+ * products) and evaluates rejected trial steps by their cost only.
+ * Converged: the relative decrease of the cost fell below `tolerance`, or no
+ * step lowers it.
+ */
+export function levenbergMarquardtNormal(problem: NormalEquationsProblem, options: Omit<LevenbergMarquardtOptions, 'n'>): LevenbergMarquardtResult {
+  const { initial, lower, upper, maxIterations = 100, tolerance = 1e-9 } = options;
+  let lambda = options.damping ?? 1e-3;
+  const p = initial.length;
+  const params = Float64Array.from(initial, (v, j) => Math.min(Math.max(v, lower[j] as number), upper[j] as number));
+  const a = new Float64Array(p * p);
+  const g = new Float64Array(p);
+  const m = new Float64Array(p * p);
+  const rhs = new Float64Array(p);
+  const step = new Float64Array(p);
+  const trial = new Float64Array(p);
+  let cost = problem.normal(params, a, g);
+  let iterations = 0;
+  let converged = false;
+  while (iterations < maxIterations && !converged) {
+    iterations++;
+    let improved = false;
+    for (let attempt = 0; attempt < 12 && !improved; attempt++) {
+      m.fill(0);
+      for (let j = 0; j < p; j++) {
+        const v = params[j] as number;
+        // Parameters held at a bound by the gradient are frozen for this step (a simple active set).
+        const frozen = (v <= (lower[j] as number) && (g[j] as number) < 0) || (v >= (upper[j] as number) && (g[j] as number) > 0);
+        if (frozen) {
+          m[j * p + j] = 1;
+          rhs[j] = 0;
+          continue;
+        }
+        for (let k = 0; k < p; k++) {
+          const u = params[k] as number;
+          const frozenK = (u <= (lower[k] as number) && (g[k] as number) < 0) || (u >= (upper[k] as number) && (g[k] as number) > 0);
+          if (!frozenK) m[j * p + k] = a[j * p + k] as number;
+        }
+        const d = a[j * p + j] as number;
+        m[j * p + j] = d + lambda * (d > 0 ? d : 1e-12);
+        rhs[j] = g[j] as number;
+      }
+      if (!choleskySolveInPlace(m, rhs, p, step)) {
+        lambda *= 10;
+        continue;
+      }
+      for (let j = 0; j < p; j++) trial[j] = Math.min(Math.max((params[j] as number) + (step[j] as number), lower[j] as number), upper[j] as number);
+      const trialCost = problem.cost(trial);
+      if (Number.isFinite(trialCost) && trialCost < cost) {
+        const decrease = (cost - trialCost) / Math.max(cost, 1e-300);
+        params.set(trial);
+        cost = problem.normal(params, a, g);
+        lambda = Math.max(lambda / 3, 1e-12);
+        improved = true;
+        if (decrease < tolerance) converged = true;
+      } else lambda *= 4;
+    }
+    if (!improved) converged = true;
+  }
+  return { parameters: params, cost, iterations, converged };
+}

@@ -86,7 +86,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const kept = Uint8Array.from(reasons, (r, i) => (r === null && Number.isFinite(signal[i] as number) ? 1 : 0));
   const step = xChooseGridStep(x, maxGridPoints);
   const grid = xUniformGrid(x[0] as number, x[x.length - 1] as number, step);
-  const { y: onGrid, counts } = xyResampleUniformWithCounts(x, signal, kept, grid);
+  const { y: onGrid, counts } = xyResampleUniformWithCounts(x, signal, kept, grid, { slopeCorrected: true });
   const fx = grid.filter((_, i) => Number.isFinite(onGrid[i] as number));
   const fy = onGrid.filter(Number.isFinite);
   const localNoise = gridNoise(x, signal, kept, grid, onGrid, counts);

@@ -32,7 +32,8 @@ export interface FindDetectorStepsOptions {
  * local noise (xNoiseLocal) and the two fits' leverage. A step is a jump
  * over `threshold` deviations (and the relative floor) that is the largest
  * within `side` points, happens between the two points themselves (their
- * difference carries at least half of it) and remains when those two
+ * difference, less the local slope times their spacing, carries at least
+ * half of it) and remains when those two
  * points are left out of the side fits: a steep but smooth rise, a band
  * edge or a one-point spike fails one of these.
  */
@@ -64,7 +65,10 @@ export function xyFindDetectorSteps(x: Float64Array, y: Float64Array, options: F
     if ((score[i] as number) < threshold || Math.abs(j) < floor) continue;
     let isPeak = true;
     for (let k = Math.max(0, i - side); k <= Math.min(n - 2, i + side) && isPeak; k++) if (k !== i && (score[k] as number) > (score[i] as number)) isPeak = false;
-    const difference = (y[i + 1] as number) - (y[i] as number);
+    // The jump must happen between the two points: their difference, less what the local slope explains (a steep band flank has large differences and no step).
+    const xm0 = ((x[i] as number) + (x[i + 1] as number)) / 2;
+    const slope = 0.5 * (lineAt(x, y, i - side + 1, i + 1, xm0).slope + lineAt(x, y, i + 1, i + side + 1, xm0).slope);
+    const difference = (y[i + 1] as number) - (y[i] as number) - slope * ((x[i + 1] as number) - (x[i] as number));
     if (!isPeak || Math.sign(difference) !== Math.sign(j) || Math.abs(difference) < 0.5 * Math.abs(j)) continue;
     // A spike moves one point only: without the two points at the junction the jump must remain.
     const xm = ((x[i] as number) + (x[i + 1] as number)) / 2;
@@ -80,7 +84,7 @@ export function xyFindDetectorSteps(x: Float64Array, y: Float64Array, options: F
 }
 
 /** Least-squares line through points [from, to) evaluated at xm, with its leverage 1/k + (xm − x̄)²/Sxx. */
-function lineAt(x: Float64Array, y: Float64Array, from: number, to: number, xm: number): { value: number; leverage: number } {
+function lineAt(x: Float64Array, y: Float64Array, from: number, to: number, xm: number): { value: number; leverage: number; slope: number } {
   const k = to - from;
   let sx = 0;
   let sy = 0;
@@ -98,7 +102,7 @@ function lineAt(x: Float64Array, y: Float64Array, from: number, to: number, xm: 
     sxy += dx * ((y[i] as number) - my);
   }
   const slope = sxx > 0 ? sxy / sxx : 0;
-  return { value: my + slope * (xm - mx), leverage: 1 / k + (sxx > 0 ? (xm - mx) ** 2 / sxx : 0) };
+  return { value: my + slope * (xm - mx), leverage: 1 / k + (sxx > 0 ? (xm - mx) ** 2 / sxx : 0), slope };
 }
 
 /**

@@ -3,15 +3,18 @@
  * absorption edge (the low-energy tail of a Gaussian centred above the
  * range) and a low-order polynomial baseline, all fitted together, so a
  * broad weak band is not flattened into the baseline nor the baseline into
- * a band. Bounded Levenberg–Marquardt with the analytic Jacobian;
- * uncertainties from the covariance of the full model at the solution.
+ * a band. Bounded Levenberg–Marquardt on the normal equations of the
+ * analytic Jacobian (bandModel.ts: sparse, the edge parametrised by its
+ * value at the top of the range); uncertainties from the covariance
+ * s²(JᵀJ)⁻¹ of the full model at the solution, s² = RSS / (n − p).
  *
  * (ml-spectra-fitting's `optimize` fits sums of peaks only, without a
  * baseline, and with a numerical Jacobian; it serves as the reference for
  * band-only fits in tests/reference.)
  */
-import { levenbergMarquardt } from './levenbergMarquardt.js';
-import { modelJacobianRow, xyModelCovariance } from './xyModelCovariance.js';
+import { type BandModelLayout, bandModelParameterCount, xBandModelValues, bandModelWork, xyBandModelCost, xyBandModelNormal } from './bandModel.js';
+import { FOUR_LN2, gaussianValue } from './gaussian.js';
+import { choleskySolveInPlace, levenbergMarquardtNormal } from './levenbergMarquardt.js';
 import { type PolynomialScale, xPolynomialScale, xyPolynomialFit } from './xyPolynomial.js';
 
 export interface GaussianParameters {
@@ -35,6 +38,8 @@ export interface RefineBandsOptions {
   positionFreedom?: number;
   /** Levenberg–Marquardt iterations. @default 100 */
   maxIterations?: number;
+  /** Weight of each point, 1/σ_i (so the fit is maximum likelihood under uneven noise). @default all 1 */
+  weights?: Float64Array;
 }
 
 export interface RefineBandsResult {
@@ -45,8 +50,10 @@ export interface RefineBandsResult {
   scale: PolynomialScale;
   /** Standard deviation of each band's position, cm-1 (NaN when the covariance is singular). */
   positionSd: Float64Array;
-  /** Root-mean-square residual. */
+  /** Root-mean-square residual (unweighted), signal unit. */
   rms: number;
+  /** Weighted sum of squares Σ (w_i r_i)² (χ² when the weights are 1/σ_i). */
+  chiSquare: number;
   /** Free parameters: 3 per band, 3 for an edge, order + 1 for the baseline. */
   parameters: number;
   iterations: number;
@@ -63,61 +70,83 @@ export function xyRefineBands(x: Float64Array, y: Float64Array, options: RefineB
   let yMax = 0;
   for (let i = 0; i < n; i++) yMax = Math.max(yMax, Math.abs(y[i] as number));
   yMax = Math.max(yMax, 1e-12);
-  const components = options.edge === null ? options.bands : [...options.bands, options.edge];
-  const k = components.length;
-  const polyLength = baselineOrder + 1;
-  const p = 3 * k + polyLength;
+  const layout: BandModelLayout = { bands: options.bands.length, edge: options.edge !== null, polynomialLength: baselineOrder + 1, scale, xEnd: xMax };
+  const p = bandModelParameterCount(layout);
   const initial = new Float64Array(p);
   const lower = new Float64Array(p).fill(Number.NEGATIVE_INFINITY);
   const upper = new Float64Array(p).fill(Number.POSITIVE_INFINITY);
-  components.forEach((c, j) => {
+  options.bands.forEach((c, j) => {
+    const freedom = Math.max(c.fwhm, positionFreedom);
     initial.set([c.position, c.height, c.fwhm], 3 * j);
-    if (j < options.bands.length) {
-      const freedom = Math.max(c.fwhm, positionFreedom);
-      lower.set([Math.max(xMin, c.position - freedom), 0, fwhmLimits[0]], 3 * j);
-      upper.set([Math.min(xMax, c.position + freedom), 3 * yMax, fwhmLimits[1]], 3 * j);
-    } else {
-      lower.set([xMax + 1500, 0, 5000], 3 * j);
-      upper.set([xMax + 40000, 1e4 * yMax, 40000], 3 * j);
-    }
+    lower.set([Math.max(xMin, c.position - freedom), 0, fwhmLimits[0]], 3 * j);
+    upper.set([Math.min(xMax, c.position + freedom), 3 * yMax, fwhmLimits[1]], 3 * j);
   });
-  initial.set(xyPolynomialFit(x, options.baselineGuess, baselineOrder, scale), 3 * k);
-  const list: GaussianParameters[] = components.map(() => ({ position: 0, height: 0, fwhm: 1 }));
-  const toComponents = (v: Float64Array): GaussianParameters[] => {
-    for (let j = 0; j < k; j++) {
-      const c = list[j] as GaussianParameters;
-      c.position = v[3 * j] as number;
-      c.height = v[3 * j + 1] as number;
-      c.fwhm = v[3 * j + 2] as number;
-    }
-    return list;
-  };
-  const row = new Float64Array(p);
-  const fit = levenbergMarquardt(
-    (v, residuals, jacobian) => {
-      const cs = toComponents(v);
-      for (let i = 0; i < n; i++) {
-        let model = modelJacobianRow(x[i] as number, cs, polyLength, scale, row);
-        for (let j = 0; j < polyLength; j++) model += (row[3 * k + j] as number) * (v[3 * k + j] as number);
-        residuals[i] = (y[i] as number) - model;
-        jacobian.set(row, i * p);
-      }
+  const e0 = 3 * options.bands.length;
+  if (options.edge !== null) {
+    const d = Math.min(Math.max(options.edge.position - xMax, EDGE_LIMITS.distance[0]), EDGE_LIMITS.distance[1]);
+    const w = Math.min(Math.max(options.edge.fwhm, EDGE_LIMITS.fwhm[0]), EDGE_LIMITS.fwhm[1]);
+    initial.set([gaussianValue(xMax, xMax + d, options.edge.height, w), d, w], e0);
+    lower.set([0, EDGE_LIMITS.distance[0], EDGE_LIMITS.fwhm[0]], e0);
+    upper.set([10 * yMax, EDGE_LIMITS.distance[1], EDGE_LIMITS.fwhm[1]], e0);
+  }
+  const b0 = e0 + (layout.edge ? 3 : 0);
+  initial.set(xyPolynomialFit(x, options.baselineGuess, baselineOrder, scale), b0);
+  const work = bandModelWork(n, p);
+  const weights = options.weights ?? null;
+  const fit = levenbergMarquardtNormal(
+    {
+      normal: (v, a, g) => xyBandModelNormal(x, y, weights, layout, v, a, g, work),
+      cost: (v) => xyBandModelCost(x, y, weights, layout, v, work.residuals),
     },
-    { n, initial, lower, upper, maxIterations },
+    { initial, lower, upper, maxIterations, tolerance: 1e-8 },
   );
-  const solved = toComponents(fit.parameters).map((c) => ({ ...c }));
-  const coefficients = fit.parameters.slice(3 * k);
-  const { residualRms, sd } = xyModelCovariance(x, y, solved, coefficients, scale);
-  const bands = solved.slice(0, options.bands.length);
+  const v = fit.parameters;
+  const bands = options.bands.map((_, j) => ({ position: v[3 * j] as number, height: v[3 * j + 1] as number, fwhm: v[3 * j + 2] as number }));
+  let edge: GaussianParameters | null = null;
+  if (layout.edge) {
+    const d = v[e0 + 1] as number;
+    const w = v[e0 + 2] as number;
+    edge = { position: xMax + d, fwhm: w, height: (v[e0] as number) * Math.exp((FOUR_LN2 * d * d) / (w * w)) };
+  }
+  const a = new Float64Array(p * p);
+  const cost = xyBandModelNormal(x, y, weights, layout, v, a, new Float64Array(p), work);
+  const model = xBandModelValues(x, layout, v, new Float64Array(n));
+  let rss = 0;
+  for (let i = 0; i < n; i++) rss += ((y[i] as number) - (model[i] as number)) ** 2;
+  const sd = xSymmetricInverseDiagonal(a, p, options.bands.map((_, j) => 3 * j));
+  const s2 = n > p ? cost / (n - p) : Number.NaN;
   return {
     bands,
-    edge: options.edge === null ? null : (solved[k - 1] as GaussianParameters),
-    baselineCoefficients: coefficients,
+    edge,
+    baselineCoefficients: v.slice(b0),
     scale,
-    positionSd: Float64Array.from(bands, (_, j) => sd[3 * j] as number),
-    rms: residualRms,
+    positionSd: Float64Array.from(sd, (d) => (d >= 0 && Number.isFinite(d * s2) ? Math.sqrt(d * s2) : Number.NaN)),
+    rms: Math.sqrt(rss / Math.max(n, 1)),
+    chiSquare: cost,
     parameters: p,
     iterations: fit.iterations,
     converged: fit.converged,
   };
+}
+
+/** Bounds of the edge: its centre 1500–40 000 cm-1 above the range, FWHM 5000–40 000 cm-1. */
+const EDGE_LIMITS = { distance: [1500, 40000], fwhm: [5000, 40000] } as const;
+
+/**
+ * Diagonal entries (A⁻¹)_jj of a symmetric positive definite p × p matrix
+ * for the listed j, by Cholesky solves against unit vectors; NaN when A is
+ * not positive definite. `a` is left unchanged.
+ */
+export function xSymmetricInverseDiagonal(a: Float64Array, p: number, indices: number[]): Float64Array {
+  const out = new Float64Array(indices.length).fill(Number.NaN);
+  const rhs = new Float64Array(p);
+  const sol = new Float64Array(p);
+  for (let k = 0; k < indices.length; k++) {
+    const j = indices[k] as number;
+    rhs.fill(0);
+    rhs[j] = 1;
+    if (!choleskySolveInPlace(Float64Array.from(a), rhs, p, sol)) return out;
+    out[k] = sol[j] as number;
+  }
+  return out;
 }
