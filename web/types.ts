@@ -5,10 +5,12 @@
  * missing in an older or newer service is optional.
  */
 
-export type Geometry = 'octahedral' | 'tetrahedral';
-export type BandKind = 'd-d' | 'spin-forbidden' | 'charge-transfer';
-export type BandFlag = 'charge-transfer' | 'spin-forbidden' | 'shoulder';
-export type XUnit = 'nm' | 'cm-1' | 'eV' | 'um';
+// The core's own names for these shapes (type-only imports: nothing of src/ reaches the bundle).
+import type { Diagram, DiagramLine, Geometry } from '../src/ligand-field/types.js';
+import type { BandKind, XUnit } from '../src/spectrum/types.js';
+import type { BandFlag } from '../src/fit/bands.js';
+
+export type { BandFlag, BandKind, Diagram, DiagramLine, Geometry, XUnit };
 
 export interface ApiErrorBody {
   code: string;
@@ -139,26 +141,6 @@ export interface AnalyzeResult {
   fit: FitResult | null;
   warnings: string[];
   curves?: Curves;
-}
-
-export interface DiagramLine {
-  label: string;
-  term: string;
-  parent: string;
-  multiplicity: number;
-  irrep: string;
-  rank: number;
-  /** E/B above the ground level at each step. */
-  energies: number[];
-}
-
-export interface Diagram {
-  d: number;
-  geometry: Geometry;
-  cOverB: number;
-  dqOverB: number[];
-  groundTerms: string[];
-  lines: DiagramLine[];
 }
 
 /** The numbers of a stored analysis the library lists (cm-1; sd = one standard deviation). */
