@@ -36,7 +36,7 @@ describe('band model normal equations (fast path against the dense reference)', 
       const g = new Float64Array(q);
       const cost = xyBandModelNormal(x, y, weights, layout, p, a, g, bandModelWork(x.length, q));
       const values = xBandModelValues(x, layout, p, new Float64Array(x.length));
-      referenceModel(Array.from(x), ref(layout), Array.from(p)).forEach((v, i) => expect(values[i]!).toBeCloseTo(v, 9));
+      referenceModel(Array.from(x), ref(layout), Array.from(p)).forEach((v, i) => expect(values[i]!).toBeCloseTo(v, 8)); // bands cut at ±2.75 FWHM: ≤ 1e-9 × height
       const r = referenceNormal(Array.from(x), Array.from(y), Array.from(weights), ref(layout), Array.from(p));
       expect(cost / r.cost - 1).toBeCloseTo(0, 9);
       expect(xyBandModelCost(x, y, weights, layout, p, new Float64Array(x.length)) / r.cost - 1).toBeCloseTo(0, 9);
