@@ -1,22 +1,27 @@
-import type { CubicBlocks, OperatorBlock } from './blocks.js';
+import type { OperatorBlock } from './blocks.js';
 import { createEigenWorkspace, symmetricEigen, symmetricEigenvaluesInPlace, type EigenWorkspace, type SymmetricEigen } from './eigen-symmetric.js';
 
 /**
  * The hot loop: form H = Σ parameter·operator in each block and diagonalise.
- * Per (d, geometry) a workspace of preallocated arrays is kept, so repeated
- * evaluations do not allocate.
+ * Per set of blocks (one per d, geometry and blocking) a workspace of
+ * preallocated arrays is kept, so repeated evaluations do not allocate.
  */
+
+/** Blocks in rows (one per spin) of columns (symmetry channels or irreps). */
+export interface BlockSet {
+  blocks: OperatorBlock[][];
+}
 
 interface Workspace {
   scratch: Float64Array;
   eigen: EigenWorkspace;
-  /** values[spinIndex][channel] (CHANNELS: k0+, k0−, k1, k2+, k2−). */
+  /** values[row][column], as the blocks. */
   values: Float64Array[][];
 }
 
-const workspaces = new WeakMap<CubicBlocks, Workspace>();
+const workspaces = new WeakMap<BlockSet, Workspace>();
 
-function workspaceFor(blocks: CubicBlocks): Workspace {
+function workspaceFor(blocks: BlockSet): Workspace {
   let ws = workspaces.get(blocks);
   if (!ws) {
     const largest = Math.max(...blocks.blocks.flat().map((b) => b.size), 1);
@@ -46,19 +51,23 @@ export function blockHamiltonianInto(block: OperatorBlock, coefficients: ArrayLi
 }
 
 /**
- * Ascending eigenvalues of every cubic block (spin S, channel) at the
- * parameters [dq, b, c]: the spin-S levels' components in that channel. The arrays belong to the workspace: valid until the next call
- * with the same blocks.
+ * Ascending eigenvalues of every block at the parameters [dq, b, c]: for the
+ * cubic blocks of blocks.ts, the spin-S levels' components in each channel;
+ * for irrep-blocks.ts, the (S, Γ) levels themselves. The arrays belong to
+ * the workspace: valid until the next call with the same blocks.
  */
-export function cubicBlockEigenvalues(blocks: CubicBlocks, coefficients: ArrayLike<number>): Float64Array[][] {
+export function cubicBlockEigenvalues(blocks: BlockSet, coefficients: ArrayLike<number>): Float64Array[][] {
   const ws = workspaceFor(blocks);
-  blocks.blocks.forEach((row, s) => {
-    row.forEach((block, channel) => {
-      if (block.size === 0) return;
+  const rows = blocks.blocks;
+  for (let s = 0; s < rows.length; s++) {
+    const row = rows[s]!;
+    for (let column = 0; column < row.length; column++) {
+      const block = row[column]!;
+      if (block.size === 0) continue;
       blockHamiltonianInto(block, coefficients, ws.scratch);
-      symmetricEigenvaluesInPlace(ws.scratch, block.size, ws.values[s]![channel]!, ws.eigen);
-    });
-  });
+      symmetricEigenvaluesInPlace(ws.scratch, block.size, ws.values[s]![column]!, ws.eigen);
+    }
+  }
   return ws.values;
 }
 

@@ -81,17 +81,18 @@ function projectedBlock(
 }
 
 /**
- * The part of a block with C2(x) parity +1 or −1: diagonalise C2(x) on the
- * block (a real involution there) and project onto one eigenspace.
+ * The part of a block on which a symmetry operator (given on the block, a
+ * real symmetric matrix that commutes with H) has the eigenvalues that keep
+ * accepts: diagonalise the operator and project onto those eigenvectors.
  */
-function parityPart(block: OperatorBlock, parity: number, c2x: Float64Array): OperatorBlock {
+export function blockPart(block: OperatorBlock, operator: Float64Array, keep: (eigenvalue: number) => boolean): OperatorBlock {
   const n = block.size;
-  const { values, vectors } = symmetricEigen(c2x, n);
-  const keep: number[] = [];
-  for (let j = 0; j < n; j++) if (Math.sign(values[j]!) === parity) keep.push(j);
-  const m = keep.length;
+  const { values, vectors } = symmetricEigen(operator, n);
+  const kept: number[] = [];
+  for (let j = 0; j < n; j++) if (keep(values[j]!)) kept.push(j);
+  const m = kept.length;
   const w = new Float64Array(n * m);
-  keep.forEach((j, c) => {
+  kept.forEach((j, c) => {
     for (let i = 0; i < n; i++) w[i * m + c] = vectors[i * n + j]!;
   });
   const rows = block.masks.length;
@@ -104,6 +105,11 @@ function parityPart(block: OperatorBlock, parity: number, c2x: Float64Array): Op
     }
   const operators = block.operators.map((op) => projectMatrix(op, w, n, m));
   return { twoS: block.twoS, label: block.label, masks: block.masks, size: m, basis, operators };
+}
+
+/** The part of a block with C2(x) parity +1 or −1 (C2(x) is a real involution on the block). */
+function parityPart(block: OperatorBlock, parity: number, c2x: Float64Array): OperatorBlock {
+  return blockPart(block, c2x, (value) => Math.sign(value) === parity);
 }
 
 /** C2(x) on the projected block (its real part: C2(x) is a real signed permutation of determinants). */

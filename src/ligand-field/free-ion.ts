@@ -88,19 +88,44 @@ const CLOSED_SHELL: TermRecord[] = [
   },
 ];
 
+/** One free-ion term of d^n in block order (the order of termBlocks, then ascending within a block). */
+export interface TermEntry {
+  /** "4F", or "2D1" when repeated. */
+  name: string;
+  multiplicity: number;
+  L: number;
+  components: readonly TermComponent[];
+}
+
+const entryCache = new Map<number, TermEntry[]>();
+
+/** The terms of d^n (1..9) in block order, built once. */
+export function termEntries(n: number): readonly TermEntry[] {
+  let hit = entryCache.get(n);
+  if (!hit) {
+    hit = termBlocks(n).flatMap(({ multiplicity, L, names, components }) =>
+      names.map((name, i) => ({ name, multiplicity, L, components: components[i]! })),
+    );
+    entryCache.set(n, hit);
+  }
+  return hit;
+}
+
 const scratch = { h: new Float64Array(9), values: new Float64Array(3), eigen: createEigenWorkspace(3) };
 
-/** Terms of d^n at B = 1 and C = cOverB, ascending, energies from the lowest term. */
-function termRecordsAtUnitB(n: number, cOverB: number): TermRecord[] {
-  if (n === 0 || n === 10) return CLOSED_SHELL;
-  const records: TermRecord[] = [];
-  for (const { block, multiplicity, L, names, components } of termBlocks(n)) {
+/**
+ * Energies of the terms of d^n (1..9) at B = 1 and C = cOverB, in block
+ * order (termEntries), on the repulsion's own zero (F0 dropped), into out.
+ */
+export function termEnergiesUnitBInto(n: number, cOverB: number, out: Float64Array): Float64Array {
+  let t = 0;
+  for (const { block } of termBlocks(n)) {
     const [opB, opC] = block.operators as [Float64Array, Float64Array];
-    if (block.size === 1) {
-      records.push({ term: { term: names[0]!, multiplicity, L, energy: opB[0]! + cOverB * opC[0]! }, components: components[0]! });
+    const size = block.size;
+    if (size === 1) {
+      out[t++] = opB[0]! + cOverB * opC[0]!;
       continue;
     }
-    const size = block.size;
     if (scratch.h.length < size * size) {
       scratch.h = new Float64Array(size * size);
       scratch.values = new Float64Array(size);
@@ -108,33 +133,55 @@ function termRecordsAtUnitB(n: number, cOverB: number): TermRecord[] {
     }
     for (let i = 0; i < size * size; i++) scratch.h[i] = opB[i]! + cOverB * opC[i]!;
     symmetricEigenvaluesInPlace(scratch.h, size, scratch.values, scratch.eigen);
-    for (let i = 0; i < size; i++) {
-      records.push({ term: { term: names[i]!, multiplicity, L, energy: scratch.values[i]! }, components: components[i]! });
-    }
+    for (let i = 0; i < size; i++) out[t++] = scratch.values[i]!;
   }
-  records.sort((x, y) => x.term.energy - y.term.energy || y.term.multiplicity - x.term.multiplicity || y.term.L - x.term.L);
-  const ground = records[0]!.term.energy;
-  for (const record of records) record.term.energy -= ground;
-  return records;
+  return out;
+}
+
+/**
+ * Term indices (block order) sorted by ascending energy, ties by higher
+ * multiplicity, then higher L; Array.prototype.sort is stable, so full ties
+ * keep block order. The one ordering rule of the free-ion terms.
+ */
+export function termOrder(entries: readonly TermEntry[], energies: Float64Array): number[] {
+  return entries
+    .map((_, i) => i)
+    .sort((x, y) => energies[x]! - energies[y]! || entries[y]!.multiplicity - entries[x]!.multiplicity || entries[y]!.L - entries[x]!.L);
+}
+
+/** Terms of d^n at B = 1 and C = cOverB, ascending, energies from the lowest term. */
+function termRecordsAtUnitB(n: number, cOverB: number): TermRecord[] {
+  if (n === 0 || n === 10) return CLOSED_SHELL;
+  const entries = termEntries(n);
+  const energies = termEnergiesUnitBInto(n, cOverB, new Float64Array(entries.length));
+  const order = termOrder(entries, energies);
+  const ground = energies[order[0]!]!;
+  return order.map((i) => {
+    const { name, multiplicity, L, components } = entries[i]!;
+    return { term: { term: name, multiplicity, L, energy: energies[i]! - ground }, components };
+  });
 }
 
 const cache = new Map<number, Map<number, TermRecord[]>>();
 const CACHE_LIMIT = 64;
 
 /**
- * Free-ion term records at unit B for C/B = cOverB, cached per d^n: energies
- * are homogeneous of degree 1 in (B, C), so names and order depend on C/B only.
+ * Free-ion term records at unit B for C/B = cOverB, cached per d^n and exact
+ * C/B (least recently used dropped beyond 64): energies are homogeneous of
+ * degree 1 in (B, C), so names and order depend on C/B only.
  * The returned arrays are shared: do not modify.
  */
 export function freeIonRecordsUnitB(n: number, cOverB: number): readonly TermRecord[] {
   let perN = cache.get(n);
   if (!perN) cache.set(n, (perN = new Map()));
   let hit = perN.get(cOverB);
-  if (!hit) {
+  if (hit) {
+    perN.delete(cOverB);
+  } else {
     hit = termRecordsAtUnitB(n, cOverB);
     if (perN.size >= CACHE_LIMIT) perN.delete(perN.keys().next().value!);
-    perN.set(cOverB, hit);
   }
+  perN.set(cOverB, hit);
   return hit;
 }
 

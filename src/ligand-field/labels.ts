@@ -1,4 +1,4 @@
-import type { TermRecord } from './free-ion.js';
+import type { TermComponent } from './free-ion.js';
 import type { CubicIrrep, Geometry } from './types.js';
 
 /**
@@ -31,27 +31,27 @@ export function levelKey(multiplicity: number, irrep: CubicIrrep): number {
   return 5 * multiplicity + IRREP_INDEX[irrep];
 }
 
-const tables = new WeakMap<readonly TermRecord[], ParentTable>();
+/** A free-ion term as the parent table needs it: its name and cubic components. */
+export interface NamedTerm {
+  name: string;
+  components: readonly TermComponent[];
+}
 
-/** The parent sequences of free-ion term records listed in ascending energy (cached per array). */
-export function parentTable(records: readonly TermRecord[]): ParentTable {
-  const hit = tables.get(records);
-  if (hit) return hit;
+/** The parent sequences of free-ion terms listed in ascending energy (see parent-tables.ts for the cache). */
+export function parentTableOf(terms: readonly NamedTerm[]): ParentTable {
   const parents: Array<string[] | undefined> = [];
   const labels: Record<Geometry, Array<string[] | undefined>> = { octahedral: [], tetrahedral: [] };
-  for (const { term, components } of records)
+  for (const { name, components } of terms)
     for (const { key, label } of components) {
-      (parents[key] ??= []).push(term.term);
+      (parents[key] ??= []).push(name);
       (labels.octahedral[key] ??= []).push(label.octahedral);
       (labels.tetrahedral[key] ??= []).push(label.tetrahedral);
     }
-  const table: ParentTable = {
+  return {
     parents,
     labels: (geometry) => labels[geometry],
     expected: (twoS, irrep) => parents[levelKey(twoS + 1, irrep)]?.length ?? 0,
   };
-  tables.set(records, table);
-  return table;
 }
 
 /** "T1g" (octahedral: all d^n states are gerade) or "T1" (tetrahedral: no inversion centre). */

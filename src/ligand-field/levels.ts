@@ -1,9 +1,9 @@
 import { FieldgapError } from '../errors.js';
-import { cubicBlocks } from './blocks.js';
-import { freeIonRecordsUnitB } from './free-ion.js';
-import { CUBIC_IRREPS, IRREP_DIMENSION } from './cubic-group.js';
-import { levelKey, levelLabel, parentTable, termName, irrepName } from './labels.js';
-import { rawLevels, type RawLevel } from './level-symmetry.js';
+import { IRREP_DIMENSION } from './cubic-group.js';
+import { IRREP_COLUMNS, irrepBlocks, type IrrepBlocks } from './irrep-blocks.js';
+import { levelKey, levelLabel, termName, irrepName } from './labels.js';
+import { levelSpectrum, type LevelSpectrum } from './level-spectrum.js';
+import { parentTableFor } from './parent-tables.js';
 import { hundTwoSpin, spinStateChoice } from './spin-state.js';
 import type { FieldParameters, Geometry, Level, LevelsResult, SpinState } from './types.js';
 import { validateD, validateFieldParameters, validateGeometry } from './validate.js';
@@ -33,11 +33,29 @@ function pick({ dq, b, c }: FieldParameters): FieldParameters {
   return { dq, b, c };
 }
 
-const IRREP_ORDER = new Map(CUBIC_IRREPS.map((irrep, i) => [irrep, i]));
+/** 2S, irrep column and rank of a level packed in one number: its identity among all levels. */
+function identity(twoS: number, irrep: number, rank: number): number {
+  return 64 * (5 * (twoS + 1) + irrep) + rank;
+}
 
-/** Ascending energy; ties by higher spin, then irrep order A1, A2, E, T1, T2. */
-function byEnergy(x: RawLevel, y: RawLevel): number {
-  return x.energy - y.energy || y.twoS - x.twoS || IRREP_ORDER.get(x.irrep)! - IRREP_ORDER.get(y.irrep)!;
+const coefficients = new Float64Array(3);
+
+/**
+ * Sorted position → position in the output. Normally the identity; at Dq = 0
+ * a free-ion term's components coincide, and they are listed in the order
+ * they take as soon as the field is on, so the ground level is the one a
+ * Dq → 0 limit gives (5T2g, not 5Eg, for octahedral d6). Ranks stay those
+ * of the Dq = 0 order.
+ */
+function freeIonOrder(blocks: IrrepBlocks, b: number, c: number, tol: number): (spectrum: LevelSpectrum) => number[] {
+  coefficients.set([1e-6 * b, b, c]);
+  const onset = levelSpectrum(blocks, coefficients, tol);
+  const position = new Map<number, number>();
+  for (let p = 0; p < onset.count; p++) position.set(identity(onset.twoS[p]!, onset.irrep[p]!, onset.rank[p]!), p);
+  return ({ count, energy, twoS, irrep, rank }) => {
+    const at = (p: number): number => position.get(identity(twoS[p]!, irrep[p]!, rank[p]!))!;
+    return Array.from({ length: count }, (_, p) => p).sort((x, y) => energy[x]! - energy[y]! || at(x) - at(y));
+  };
 }
 
 /**
@@ -45,8 +63,12 @@ function byEnergy(x: RawLevel, y: RawLevel): number {
  * the ground level, labelled by term, parent free-ion term and rank.
  *
  * params: Dq, B, C in cm-1 (Dq ≥ 0, B > 0, C ≥ 0); the geometry sets the sign
- * of the field. The per-(d, geometry) operator matrices are built once and
- * cached, so repeated calls cost a handful of small diagonalisations.
+ * of the field. Order: ascending energy; exact ties (levels within the
+ * cluster tolerance share one energy) by higher spin, then A1, A2, E, T1,
+ * T2. The per-(d, geometry) operator matrices and work arrays, and the label
+ * tables per C/B (parent-tables.ts), are built once and cached, so a call
+ * costs five small diagonalisations per spin and the result objects; the
+ * caches hold no per-call state, so a result depends on the arguments only.
  * d0 and d10 give the single 1A1(g) level and a note.
  */
 export function computeLevels(d: number, geometry: Geometry, params: FieldParameters): LevelsResult {
@@ -55,69 +77,52 @@ export function computeLevels(d: number, geometry: Geometry, params: FieldParame
   validateFieldParameters(params);
   if (d === 0 || d === 10) return closedShell(d, geometry, params);
   const { dq, b, c } = params;
-  const table = parentTable(freeIonRecordsUnitB(d, c / b));
-  const blocks = cubicBlocks(d, geometry);
+  const table = parentTableFor(d, c / b);
+  const blocks = irrepBlocks(d, geometry);
   const tol = energyTolerance(params);
-  const ranked = rankLevels(rawLevels(blocks, [dq, b, c], tol, table.expected));
-  if (dq === 0) {
-    // At Dq = 0 a free-ion term's components coincide; list them in the order
-    // they take as soon as the field is on, so the ground level is the one a
-    // Dq → 0 limit gives (5T2g, not 5Eg, for octahedral d6).
-    const onset = rankLevels(rawLevels(blocks, [1e-6 * b, b, c], tol, table.expected));
-    const position = new Map(onset.map((r, i) => [rankedKey(r), i]));
-    ranked.sort((x, y) => x.energy - y.energy || position.get(rankedKey(x))! - position.get(rankedKey(y))!);
-  }
-  const ground = ranked[0]!;
+  const reorder = dq === 0 ? freeIonOrder(blocks, b, c, tol) : undefined;
+  coefficients.set([dq, b, c]);
+  const spectrum = levelSpectrum(blocks, coefficients, tol);
+  const order = reorder?.(spectrum);
   const labels = table.labels(geometry);
-  const levels: Level[] = ranked.map((r) => {
-    const multiplicity = r.twoS + 1;
-    const key = levelKey(multiplicity, r.irrep);
-    const parent = table.parents[key]?.[r.rank];
-    const label = labels[key]?.[r.rank];
+  const levels: Level[] = new Array<Level>(spectrum.count);
+  const groundPosition = order ? order[0]! : 0;
+  const groundEnergy = spectrum.energy[groundPosition]!;
+  const groundTwoS = spectrum.twoS[groundPosition]!;
+  for (let out = 0; out < spectrum.count; out++) {
+    const p = order ? order[out]! : out;
+    const multiplicity = spectrum.twoS[p]! + 1;
+    const irrep = IRREP_COLUMNS[spectrum.irrep[p]!]!;
+    const rank = spectrum.rank[p]!;
+    const key = levelKey(multiplicity, irrep);
+    const parent = table.parents[key]?.[rank];
+    const label = labels[key]?.[rank];
     if (parent === undefined || label === undefined) {
-      throw new FieldgapError('internal', `no free-ion parent for level ${multiplicity}${r.irrep} #${r.rank}`);
+      throw new FieldgapError('internal', `no free-ion parent for level ${multiplicity}${irrep} #${rank}`);
     }
-    const energy = r.energy - ground.energy;
-    return {
+    const energy = spectrum.energy[p]! - groundEnergy;
+    levels[out] = {
       energy: energy < tol ? 0 : energy,
-      term: termName(multiplicity, r.irrep, geometry),
+      term: termName(multiplicity, irrep, geometry),
       multiplicity,
-      irrep: irrepName(r.irrep, geometry),
-      cubicIrrep: r.irrep,
-      degeneracy: multiplicity * IRREP_DIMENSION[r.irrep],
+      irrep: irrepName(irrep, geometry),
+      cubicIrrep: irrep,
+      degeneracy: multiplicity * IRREP_DIMENSION[irrep],
       parent,
       label,
-      rank: r.rank,
+      rank,
     };
-  });
+  }
   const groundLevel = levels[0]!;
   let spinState: SpinState = 'no-choice';
-  if (spinStateChoice(d, geometry)) spinState = ground.twoS === hundTwoSpin(d) ? 'high-spin' : 'low-spin';
+  if (spinStateChoice(d, geometry)) spinState = groundTwoS === hundTwoSpin(d) ? 'high-spin' : 'low-spin';
   const notes: string[] = [];
   if (dq === 0) notes.push('Dq = 0: the free ion; each level is one cubic component of a free-ion term');
   else if (levels.length > 1 && levels[1]!.energy === 0) {
     notes.push(`the ground level is degenerate: ${levels.filter((l) => l.energy === 0).map((l) => l.label).join(', ')} coincide`);
   }
   return {
-    d, geometry, ...pick(params), groundTerm: groundLevel.term, spinState, unpairedElectrons: ground.twoS,
+    d, geometry, ...pick(params), groundTerm: groundLevel.term, spinState, unpairedElectrons: groundTwoS,
     levels, notes,
   };
-}
-
-interface RankedLevel extends RawLevel {
-  rank: number;
-}
-
-/** Position of a level among all levels: (2S+1, Γ) key and rank packed in one number. */
-function rankedKey(r: RankedLevel): number {
-  return 64 * levelKey(r.twoS + 1, r.irrep) + r.rank;
-}
-
-/** Sorts by energy and numbers the levels of each (S, Γ) from 0 upwards (in place). */
-function rankLevels(raw: RawLevel[]): RankedLevel[] {
-  raw.sort(byEnergy);
-  const ranks = new Int32Array(64);
-  const ranked = raw as RankedLevel[];
-  for (const r of ranked) r.rank = ranks[levelKey(r.twoS + 1, r.irrep)]!++;
-  return ranked;
 }
