@@ -3,18 +3,19 @@
  * grid optimum, with an approximate score (grid rms + penalties) used to
  * choose which few to refine with the full engine.
  *
- * Per spin branch (see enumerate.ts):
+ * Per reduction of the band list (reductions.ts: bands left unexplained,
+ * close pairs read as one split band) and spin branch (see enumerate.ts):
  * - a branch with a single transition in its class (d1, d9, high-spin d4
  *   and d6) takes two or three unflagged bands within a ratio of 1.6 of each
  *   other as Jahn–Teller components of that one transition, averaged;
- * - with at least p + 2 bands one unflagged band may also be left
- *   unexplained (a penalty);
- * - a single-transition branch left with fewer observations than parameters
- *   gives a "Dq only" candidate: 10Dq from the band, B not determinable.
+ * - one unflagged band and nothing else gives a "Dq only" candidate when the
+ *   branch has a transition at exactly 10Dq (dqOnlyLevel): 10Dq from the
+ *   band, B not determinable.
  */
 import type { Branch } from './enumerate.js';
 import { enumerateAssignments, primaryClass, scanBranches, type AssignmentTable } from './enumerate.js';
 import { averageObservations, type Observation, type SortedObservations } from './observations.js';
+import type { Reduction } from './reductions.js';
 import {
   LIMITS, PENALTY, penaltyTotal, plausibilityPenalties, skippedTransitionPenalties,
   type ClassTransition,
@@ -32,7 +33,12 @@ export interface Variant {
   observations: Observation[];
   nPrimary: number;
   classForbidden: boolean;
+  /** Bands left unexplained. */
   dropped: Observation[];
+  /** Pairs of bands read as one split band (averaged). */
+  merged: Observation[][];
+  /** Unflagged bands were left out or merged: the fit must then be plausible on its own (fit-bands.ts). */
+  touchesUnflagged: boolean;
   /** Components averaged into the one primary observation, if any. */
   jahnTeller: Observation[] | null;
   /** Penalties fixed by the variant itself (unexplained bands, Jahn–Teller pair). */
@@ -70,8 +76,15 @@ function jahnTellerPenalty(components: Observation[]): Penalty {
   return { rule: 'jahn-teller-pair', amount, detail: `${list} cm-1 averaged as Jahn–Teller components of one transition` };
 }
 
-/** The ways a branch can take the bands (see the module docstring). */
-export function branchVariants(branch: Branch, sorted: SortedObservations, p: number): Variant[] {
+/**
+ * How a branch takes the bands of one reduction (reductions.ts): the class
+ * that takes the unflagged bands, and, for a single-transition class, the
+ * unflagged bands averaged as Jahn–Teller components. None when a
+ * single-transition class would get more than three bands or a spread above
+ * JAHN_TELLER_MAX_RATIO.
+ */
+export function branchVariant(branch: Branch, reduction: Reduction): Variant | undefined {
+  const { sorted } = reduction;
   const cls = primaryClass(branch);
   let primary = sorted.primary;
   let flagged = sorted.flagged;
@@ -80,28 +93,45 @@ export function branchVariants(branch: Branch, sorted: SortedObservations, p: nu
     flagged = [];
   }
   let jahnTeller: Observation[] | null = null;
-  const penalties: Penalty[] = [];
+  const penalties: Penalty[] = [...reduction.penalties];
   if (cls.levels.length === 1 && primary.length >= 2) {
     const ratio = primary[primary.length - 1]!.position / primary[0]!.position;
-    if (primary.length > 3 || ratio > JAHN_TELLER_MAX_RATIO) return [];
+    if (primary.length > 3 || ratio > JAHN_TELLER_MAX_RATIO) return undefined;
     jahnTeller = primary;
     penalties.push(jahnTellerPenalty(primary));
     primary = [averageObservations(primary, sorted.weighted)];
   }
-  const make = (prim: Observation[], dropped: Observation[], extra: Penalty[]): Variant => ({
-    observations: [...prim, ...flagged], nPrimary: prim.length, classForbidden: cls.forbidden, dropped, jahnTeller,
-    penalties: [...penalties, ...extra],
-  });
-  const variants = [make(primary, [], [])];
-  if (primary.length + flagged.length - 1 >= p + 1 && primary.length >= 2 && !jahnTeller) {
-    primary.forEach((o, i) => {
-      const rest = primary.filter((_, k) => k !== i);
-      variants.push(make(rest, [o], [{
-        rule: 'unexplained-band', amount: PENALTY.unexplainedBand, detail: `the band at ${Math.round(o.position)} cm-1 is left unexplained`,
-      }]));
-    });
+  return {
+    observations: [...primary, ...flagged], nPrimary: primary.length, classForbidden: cls.forbidden,
+    dropped: reduction.dropped, merged: reduction.merged, touchesUnflagged: reduction.touchesUnflagged, jahnTeller, penalties,
+  };
+}
+
+/**
+ * The class level whose energy above the ground is 10Dq whatever B and C
+ * (ν1 of d3 and d8 octahedral, d2 and d7 tetrahedral; the one transition of
+ * d1, d9, high-spin d4 and d6), or undefined. Read from the scan: the
+ * lowest class level at every point of the branch, with E/B proportional
+ * to Dq/B through the origin.
+ */
+export function dqOnlyLevel(scan: LevelScan, branch: Branch): number | undefined {
+  const cls = primaryClass(branch);
+  if (cls.levels.length === 1) return cls.levels[0];
+  const n = scan.ids.length;
+  let level: number | undefined;
+  let slope = Number.NaN;
+  for (const j of branch.points) {
+    let lowest = -1;
+    for (const k of cls.levels) {
+      if (lowest < 0 || scan.energies[j * n + k]! < scan.energies[j * n + lowest]!) lowest = k;
+    }
+    if (level === undefined) level = lowest;
+    if (lowest !== level) return undefined;
+    const s = (scan.energies[j * n + lowest]! - scan.energies[j * n + branch.ground]!) / scan.x[j]!;
+    if (Number.isNaN(slope)) slope = s;
+    if (Math.abs(s - slope) > 1e-9 * Math.abs(slope)) return undefined;
   }
-  return variants;
+  return level;
 }
 
 /** Transitions of the branch's primary class at grid point j and scale b, in cm-1. */
@@ -132,32 +162,23 @@ export interface CandidateGroup {
   ssr: Float64Array;
 }
 
-export interface CandidateGroupsOptions {
-  /** Include the variants that leave one band unexplained. Default false. */
-  dropped?: boolean;
-  /** Include the variant that explains every band. Default true. */
-  full?: boolean;
-}
-
-/** Grid optima of every assignment on one scan, and its Dq-only candidates. */
+/** Grid optima of every assignment of one reduction of the bands on one scan, and its Dq-only candidates. */
 export function candidateGroups(
   scan: LevelScan,
-  sorted: SortedObservations,
+  reduction: Reduction,
   p: number,
-  { dropped = false, full = true }: CandidateGroupsOptions = {},
 ): { groups: CandidateGroup[]; dqOnly: DqOnlyCandidate[] } {
+  const { sorted } = reduction;
   const groups: CandidateGroup[] = [];
   const dqOnly: DqOnlyCandidate[] = [];
   for (const branch of scanBranches(scan)) {
-    const cls = primaryClass(branch);
-    for (const variant of branchVariants(branch, sorted, p)) {
-      if (variant.dropped.length > 0 ? !dropped : !full) continue;
+    const variant = branchVariant(branch, reduction);
+    if (variant) {
       const m = variant.observations.length;
       if (m === 0) continue;
       if (m < p) {
-        if (cls.levels.length === 1 && variant.nPrimary === 1 && m === 1) {
-          dqOnly.push({ kind: 'dq-only', scan, branch, variant, level: cls.levels[0]! });
-        }
+        const level = variant.nPrimary === 1 && m === 1 ? dqOnlyLevel(scan, branch) : undefined;
+        if (level !== undefined) dqOnly.push({ kind: 'dq-only', scan, branch, variant, level });
         continue;
       }
       const table = enumerateAssignments(scan, branch, variant.nPrimary, m - variant.nPrimary);

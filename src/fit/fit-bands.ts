@@ -12,8 +12,10 @@
  *    (candidates.ts). The grid rms is a lower bound of the score, so
  *    penalties are computed only for the few that can still win: the best
  *    REFINED_CANDIDATES, and the best of each spin branch that could be shown
- *    as an alternative. Variants that leave a band unexplained are tried
- *    only when the best full assignment scores worse than that penalty.
+ *    as an alternative. The band list is tried whole and then reduced
+ *    (reductions.ts: bands left unexplained, close pairs merged) in order of
+ *    the reduction's penalty, stopping when that penalty alone exceeds the
+ *    best score found so far (usually right after the whole list).
  * 3b. Those are refined on the interpolated scan (evaluate-scan.ts; no
  *    engine call) and the winner is polished by Levenberg–Marquardt with the
  *    full engine (refine.ts), which also gives the Jacobian for the
@@ -28,7 +30,8 @@ import { normalizeBands } from './bands.js';
 import {
   approximateScore, candidateAt, candidateGroups, type CandidateGroup, type DqOnlyCandidate, type GridCandidate,
 } from './candidates.js';
-import { PENALTY } from './penalties.js';
+import { penaltyTotal, plausibilityPenalties } from './penalties.js';
+import { bandReductions } from './reductions.js';
 import { evaluateDqOnly, evaluateGridCandidate, type Evaluated } from './evaluate.js';
 import { evaluateOnScan } from './evaluate-scan.js';
 import { sortObservations, type SortedObservations } from './observations.js';
@@ -65,7 +68,7 @@ function describeSystem(settings: FitSettings): string {
  * lower bound of the score), so penalties are computed only for those that
  * can still make the cut.
  */
-function selectForRefinement(entries: WrmsOrder, settings: FitSettings, sorted: SortedObservations): GridCandidate[] {
+function selectForRefinement(entries: WrmsOrder, settings: FitSettings, sorted: SortedObservations, threshold: number): GridCandidate[] {
   const top: GridCandidate[] = [];
   const branchBest = new Map<number, GridCandidate>();
   const seen = new Set<string>();
@@ -78,6 +81,7 @@ function selectForRefinement(entries: WrmsOrder, settings: FitSettings, sorted: 
     const own = Math.min(branchBest.get(group.branch.multiplicity)?.approxScore ?? Infinity, alternativeMargin(top[0]?.approxScore ?? Infinity));
     if (wrms >= kth && wrms >= own) continue;
     const c = candidateAt(group, a);
+    if (!acceptableOnGrid(c, settings, threshold)) continue;
     // The same assignment on another C/B scan (free C): the lower wrms, met first, stands for both.
     if (seen.has(c.key)) continue;
     seen.add(c.key);
@@ -132,29 +136,63 @@ function lowestWrms(groups: CandidateGroup[]): GridCandidate | undefined {
   return best ? candidateAt(best.group, best.a) : undefined;
 }
 
+/**
+ * A solution that leaves unflagged bands out (or merges them) is kept only
+ * when it is a good fit on its own: rms within the threshold and no β or
+ * C/B penalty. Leaving bands out must not buy an exact fit with implausible
+ * parameters.
+ */
+function acceptable(e: Evaluated, threshold: number): boolean {
+  if (!e.candidate.variant.touchesUnflagged) return true;
+  return e.wrms <= threshold && !e.penalties.some((p) => p.rule === 'beta' || p.rule === 'c-over-b');
+}
+
+/** The same test at a grid candidate (grid B and C). */
+function acceptableOnGrid(c: GridCandidate, settings: FitSettings, threshold: number): boolean {
+  if (!c.variant.touchesUnflagged) return true;
+  const cValue = settings.mode === 'fixed' ? settings.cFixed : c.scan.cOverB * c.grid.b;
+  const wrms = c.wrms - penaltyTotal(c.variant.penalties);
+  return wrms <= threshold && plausibilityPenalties({ b: c.grid.b, c: cValue, mode: settings.mode, b0: settings.b0 }).length === 0;
+}
+
+/** The lowest approximate score among the lowest-wrms entry of each group: an upper bound of the best score. */
+function groupsBound(groups: CandidateGroup[], settings: FitSettings, sorted: SortedObservations, threshold: number): number {
+  let bound = Infinity;
+  for (const group of groups) {
+    const c = lowestWrms([group]);
+    if (c && acceptableOnGrid(c, settings, threshold)) bound = Math.min(bound, approximateScore(c, settings, sorted));
+  }
+  return bound;
+}
+
 function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: number[]): Evaluated[] {
   const p = settings.mode === 'free' ? 3 : 2;
+  const threshold = unexplainedThreshold([...sorted.primary, ...sorted.flagged].map((o) => o.position));
   const scans = ratios.map((ratio) => cachedLevelScan(settings.d, settings.geometry, ratio));
   const groups: CandidateGroup[] = [];
   const dqOnly: DqOnlyCandidate[] = [];
-  scans.forEach((scan, i) => {
-    const found = candidateGroups(scan, sorted, p);
-    groups.push(...found.groups);
-    if (i === 0) dqOnly.push(...found.dqOnly);
-  });
-  // An upper bound of the best score; leaving a band unexplained costs more than it, so such variants cannot win.
-  const first = lowestWrms(groups);
-  let bound = first ? approximateScore(first, settings, sorted) : Infinity;
-  if (bound > PENALTY.unexplainedBand) {
-    for (const scan of scans) groups.push(...candidateGroups(scan, sorted, p, { dropped: true, full: false }).groups);
-    const again = lowestWrms(groups);
-    if (again) bound = Math.min(bound, approximateScore(again, settings, sorted));
+  // Reductions by ascending penalty (the full band list first): one whose penalty alone exceeds the best
+  // score found so far cannot win, and neither can any after it.
+  let bound = Infinity;
+  for (const reduction of bandReductions(sorted, p)) {
+    if (reduction.penalty >= bound) break;
+    scans.forEach((scan, i) => {
+      const found = candidateGroups(scan, reduction, p);
+      groups.push(...found.groups);
+      bound = Math.min(bound, groupsBound(found.groups, settings, sorted, threshold));
+      if (i === 0) {
+        for (const c of found.dqOnly) {
+          dqOnly.push(c);
+          bound = Math.min(bound, penaltyTotal(c.variant.penalties));
+        }
+      }
+    });
   }
   const limit = alternativeMargin(bound);
   const entries = wrmsOrder(groups, limit);
   const evaluated: Evaluated[] = [];
   let bestScore = Infinity;
-  const chosen = selectForRefinement(entries, settings, sorted).sort((a, b) => a.approxScore - b.approxScore);
+  const chosen = selectForRefinement(entries, settings, sorted, threshold).sort((a, b) => a.approxScore - b.approxScore);
   for (const c of chosen) {
     // Refining lowers a score by little more than the grid error, far less than the margin.
     if (c.approxScore > alternativeMargin(bestScore)) continue;
@@ -168,7 +206,9 @@ function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: 
     const e = evaluateDqOnly(c, settings);
     if (e) evaluated.push(e);
   }
-  return evaluated.sort((a, b) => a.score - b.score);
+  // Solutions within the rms threshold first (any fit beats a failure), then by score.
+  const within = (e: Evaluated) => (e.wrms <= threshold ? 0 : 1);
+  return evaluated.filter((e) => acceptable(e, threshold)).sort((a, b) => within(a) - within(b) || a.score - b.score);
 }
 
 function noAssignmentError(settings: FitSettings, sorted: SortedObservations): FieldgapError {

@@ -19,6 +19,8 @@ export interface Observation {
   bands: number[];
   flags: ObservedBand['flags'];
   width?: number;
+  /** Molar absorption coefficient at the maximum, L mol-1 cm-1, if given. */
+  epsilon?: number;
 }
 
 export interface SortedObservations {
@@ -40,6 +42,7 @@ function observationOf(band: ObservedBand): Observation {
     flags: band.flags,
   };
   if (band.width !== undefined) obs.width = band.width;
+  if (band.epsilon !== undefined) obs.epsilon = band.epsilon;
   return obs;
 }
 

@@ -27,7 +27,10 @@
  *   Without a free-ion B0 (a bare d-count) the same rules use B0 = 1250 cm-1
  *   for the upper side (no first-row ion is higher) and 150 cm-1 as the floor.
  * - C/B (free C) outside 3.0–6.5: 1000 + 2000 per unit outside.
- * - a band left unexplained: 1000 each.
+ * - a band left unexplained: 1000 each, less for a shoulder, a weak, a
+ *   narrow or a spin-forbidden-flagged band (reductions.ts), never below 150.
+ * - two close bands read as one split band: 250 + 0.25·separation
+ *   (reductions.ts).
  * - Jahn–Teller pair averaged: 300, plus 2000·(ratio − 1.3) above a ratio of 1.3.
  */
 import type { Geometry } from '../ligand-field/types.js';
@@ -41,6 +44,9 @@ export const PENALTY = {
   tetrahedralLowest: 50,
   twoElectron: 150,
   unexplainedBand: 1000,
+  unexplainedMin: 150,
+  splitBand: 250,
+  splitBandPerCm: 0.25,
   betaHigh: 1500,
   betaLow: 300,
   cOverB: 1000,
@@ -58,6 +64,17 @@ export const LIMITS = {
   cOverBMin: 3.0,
   cOverBMax: 6.5,
   jahnTellerRatio: 1.3,
+  unexplainedFlaggedFactor: 0.3,
+  unexplainedShoulderFactor: 0.5,
+  unexplainedWeakFactor: 0.5,
+  unexplainedNarrowFactor: 0.5,
+  /** ε below this fraction of the largest d–d ε is weak. */
+  weakEpsilonFraction: 0.2,
+  /** Width below this fraction of the median d–d width is narrow. */
+  narrowWidthFraction: 0.5,
+  /** Neighbours closer than max(this, splitBandFraction·mean) may be one split band, cm-1. */
+  splitBandSeparation: 1500,
+  splitBandFraction: 0.06,
 } as const;
 
 export interface ClassTransition {

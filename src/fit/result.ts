@@ -12,6 +12,7 @@ import { spinStateChoice } from '../ligand-field/index.js';
 import { crossoverAt, levelsAt as computeLevels } from './engine.js';
 import type { LevelsResult } from '../ligand-field/types.js';
 import type { Evaluated } from './evaluate.js';
+import { primaryClass } from './enumerate.js';
 import { ligandFieldStabilisation, spinOnlyMoment } from './lfse.js';
 import type { SortedObservations } from './observations.js';
 import { promotedElectrons, levelIdentityKey } from './scan.js';
@@ -81,7 +82,11 @@ function crossoverOf(best: Evaluated, settings: FitSettings): CrossoverInfo | nu
 function statusOf(best: Evaluated): { status: FitStatus; message: string; evaluations: number } {
   const m = best.candidate.variant.observations.length;
   if (!best.bDetermined) {
-    return { status: 'exact', message: '10Dq from the one spin-allowed transition; B is not determinable from it', evaluations: 0 };
+    const single = primaryClass(best.candidate.branch).levels.length === 1;
+    const message = single
+      ? '10Dq from the one spin-allowed transition; B is not determinable from it'
+      : '10Dq from the one band, assigned to the transition at exactly 10Dq; B is not determinable from it';
+    return { status: 'exact', message, evaluations: 0 };
   }
   if (!best.lsq) {
     return { status: 'not-converged', message: best.notes[0] ?? 'no refinement', evaluations: 0 };
@@ -163,10 +168,19 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   // Small penalties (expected-weak transitions skipped) are worth a note, large ones a warning.
   for (const p of best.penalties) {
     if (p.rule === 'jahn-teller-pair') continue;
-    (p.amount >= 300 ? warnings : notes).push(`${p.detail} (score +${Math.round(p.amount)})`);
+    // A band left out or merged always warrants a warning: the band list may hold a spurious band.
+    const warn = p.amount >= 300 || p.rule === 'unexplained-band' || p.rule === 'split-band';
+    (warn ? warnings : notes).push(`${p.detail} (score +${Math.round(p.amount)})`);
   }
   if (!best.bDetermined) {
-    warnings.push(`B is not determinable: ${describeSingle(settings, branch.multiplicity)} has one spin-allowed transition, whose energy is 10Dq`);
+    if (primaryClass(branch).levels.length === 1) {
+      warnings.push(`B is not determinable: ${describeSingle(settings, branch.multiplicity)} has one spin-allowed transition, whose energy is 10Dq`);
+    } else {
+      const id = scan.ids[best.levelIndices[0]!]!;
+      warnings.push(
+        `B is not determinable from one band: it is taken as ${scan.ids[branch.ground]!.label} → ${id.label}, which lies at exactly 10Dq for ${describeSingle(settings, branch.multiplicity)}; give a second spin-allowed band for B`,
+      );
+    }
   }
   if (variant.jahnTeller) {
     notes.push(`${variant.jahnTeller.map((o) => Math.round(o.position)).join(' and ')} cm-1 are taken as Jahn–Teller components of one transition and averaged (10Dq from their mean)`);

@@ -56,7 +56,7 @@ export interface AssignedBand {
 }
 
 export interface Penalty {
-  rule: 'skipped-transition' | 'unexplained-band' | 'beta' | 'c-over-b' | 'jahn-teller-pair';
+  rule: 'skipped-transition' | 'unexplained-band' | 'split-band' | 'beta' | 'c-over-b' | 'jahn-teller-pair';
   /** Added to the score, cm-1. */
   amount: number;
   detail: string;

@@ -1,0 +1,186 @@
+/**
+ * Reductions of a band list: which bands an assignment may leave
+ * unexplained, and which close pairs it may read as one split band. A band
+ * finder sometimes reports an extra band (a maximum split in two, a weak
+ * component on a broad maximum, a narrow spike at the edge of the range);
+ * the fit must then explain the real bands and list the extra ones, not fail.
+ *
+ * Every reduction costs a penalty (cm-1, added to the score; see
+ * penalties.ts for the amounts):
+ * - leaving a band unexplained: PENALTY.unexplainedBand (1000), times 0.5
+ *   for a shoulder, 0.5 for a weak band (ε below 20% of the largest ε of the
+ *   d–d bands), 0.5 for a narrow one (width below half the median width of
+ *   the d–d bands), 0.3 for a band flagged spin-forbidden (weak and narrow
+ *   by nature); never below 150. So the weak, shoulder and narrow ones are
+ *   left first.
+ * - two neighbouring unflagged bands closer than max(1500 cm-1, 6% of their
+ *   mean) read as the two maxima of one split band, averaged:
+ *   250 + 0.25·separation.
+ *
+ * Limits: of the unflagged bands, at most half (and at most
+ * MAX_UNEXPLAINED_UNFLAGGED) are left unexplained, and fewer than half of
+ * those that are neither shoulders nor weak nor narrow, so most of what was
+ * clearly measured is explained; a reduction that touches
+ * an unflagged band must leave at least p + 1 observations (p the number of
+ * fitted parameters), so an exact fit of p bands never buys its way out of a
+ * poor fit of all of them. Bands flagged spin-forbidden may always be left
+ * (at most MAX_UNEXPLAINED_FLAGGED), down to a single remaining band. Reductions are returned by ascending
+ * penalty, the identity (nothing left out, penalty 0) first, so a caller can
+ * stop as soon as the penalty alone exceeds the best score found.
+ */
+import { averageObservations, type Observation, type SortedObservations } from './observations.js';
+import { LIMITS, PENALTY } from './penalties.js';
+import type { Penalty } from './types.js';
+
+/** Unflagged bands left unexplained at most (besides the half rule). */
+export const MAX_UNEXPLAINED_UNFLAGGED = 3;
+/** Bands flagged spin-forbidden left unexplained at most. */
+export const MAX_UNEXPLAINED_FLAGGED = 3;
+/** Reductions returned at most (the cheapest). */
+export const MAX_REDUCTIONS = 2000;
+
+export interface Reduction {
+  /** The observations kept (merged pairs as one), sorted by energy. */
+  sorted: SortedObservations;
+  dropped: Observation[];
+  /** Components of each pair read as one split band. */
+  merged: Observation[][];
+  penalties: Penalty[];
+  /** Sum of the penalties. */
+  penalty: number;
+  /** Unflagged bands dropped or merged (0: only flagged bands were left out). */
+  touchesUnflagged: boolean;
+}
+
+interface BandContext {
+  maxEpsilon: number;
+  medianWidth: number;
+}
+
+function median(values: number[]): number {
+  const s = [...values].sort((a, b) => a - b);
+  return s.length === 0 ? Number.NaN : s.length % 2 ? s[(s.length - 1) / 2]! : (s[s.length / 2 - 1]! + s[s.length / 2]!) / 2;
+}
+
+function contextOf(sorted: SortedObservations): BandContext {
+  const all = [...sorted.primary, ...sorted.flagged];
+  const eps = all.map((o) => o.epsilon).filter((e): e is number => e !== undefined);
+  const widths = all.map((o) => o.width).filter((w): w is number => w !== undefined);
+  return { maxEpsilon: eps.length ? Math.max(...eps) : Number.NaN, medianWidth: widths.length >= 2 ? median(widths) : Number.NaN };
+}
+
+/** The penalty for leaving one band unexplained, and why it is what it is. */
+export function unexplainedPenalty(o: Observation, context: BandContext): Penalty {
+  let factor = 1;
+  const why: string[] = [];
+  if (o.flags.includes('spin-forbidden')) {
+    factor *= LIMITS.unexplainedFlaggedFactor;
+    why.push('flagged spin-forbidden');
+  }
+  if (o.flags.includes('shoulder')) {
+    factor *= LIMITS.unexplainedShoulderFactor;
+    why.push('a shoulder');
+  }
+  if (o.epsilon !== undefined && o.epsilon < LIMITS.weakEpsilonFraction * context.maxEpsilon) {
+    factor *= LIMITS.unexplainedWeakFactor;
+    why.push('weak');
+  }
+  if (o.width !== undefined && o.width < LIMITS.narrowWidthFraction * context.medianWidth) {
+    factor *= LIMITS.unexplainedNarrowFactor;
+    why.push('narrow');
+  }
+  const amount = Math.max(PENALTY.unexplainedMin, PENALTY.unexplainedBand * factor);
+  const detail = `the band at ${Math.round(o.position)} cm-1${why.length ? ` (${why.join(', ')})` : ''} is left unexplained`;
+  return { rule: 'unexplained-band', amount, detail };
+}
+
+/** Whether two neighbouring unflagged bands may be read as one split band. */
+export function splitPairAllowed(a: Observation, b: Observation): boolean {
+  const separation = Math.abs(b.position - a.position);
+  return separation <= Math.max(LIMITS.splitBandSeparation, LIMITS.splitBandFraction * 0.5 * (a.position + b.position));
+}
+
+function splitPenalty(a: Observation, b: Observation): Penalty {
+  const separation = Math.abs(b.position - a.position);
+  return {
+    rule: 'split-band',
+    amount: PENALTY.splitBand + PENALTY.splitBandPerCm * separation,
+    detail: `${Math.round(a.position)} and ${Math.round(b.position)} cm-1 are read as one split band (mean taken)`,
+  };
+}
+
+/** Every allowed reduction of the band list for a fit of p parameters, by ascending penalty (see the module docstring). */
+export function bandReductions(sorted: SortedObservations, p: number): Reduction[] {
+  const context = contextOf(sorted);
+  const { primary, flagged } = sorted;
+  const maxDrops = Math.min(MAX_UNEXPLAINED_UNFLAGGED, Math.floor(primary.length / 2));
+  const maxStrongDrops = Math.min(maxDrops, Math.floor((primary.length - 1) / 2));
+  const total = primary.length + flagged.length;
+  const out: Reduction[] = [];
+  // Walk the unflagged bands in order: keep, leave, or merge with the next; then the flagged ones: keep or leave.
+  const keptP: Observation[] = [];
+  const dropped: Observation[] = [];
+  const merged: Observation[][] = [];
+  const penalties: Penalty[] = [];
+  let unflaggedDrops = 0;
+  let strongDrops = 0;
+  const finish = (keptF: Observation[], flaggedDropped: Observation[], flaggedPenalties: Penalty[]) => {
+    const touches = unflaggedDrops > 0 || merged.length > 0;
+    const remaining = keptP.length + keptF.length;
+    if (remaining < (touches ? p : 1)) return;
+    const all = [...penalties, ...flaggedPenalties];
+    out.push({
+      sorted: { ...sorted, primary: [...keptP], flagged: [...keptF] },
+      dropped: [...dropped, ...flaggedDropped].sort((a, b) => a.position - b.position),
+      merged: merged.map((m) => [...m]),
+      penalties: all,
+      penalty: all.reduce((s, q) => s + q.amount, 0),
+      touchesUnflagged: touches,
+    });
+  };
+  const walkFlagged = (i: number, keptF: Observation[], left: Observation[], pens: Penalty[]) => {
+    if (i === flagged.length) {
+      finish(keptF, left, pens);
+      return;
+    }
+    const o = flagged[i]!;
+    walkFlagged(i + 1, [...keptF, o], left, pens);
+    if (left.length < MAX_UNEXPLAINED_FLAGGED) walkFlagged(i + 1, keptF, [...left, o], [...pens, unexplainedPenalty(o, context)]);
+  };
+  const walkPrimary = (i: number) => {
+    if (i >= primary.length) {
+      walkFlagged(0, [], [], []);
+      return;
+    }
+    const o = primary[i]!;
+    keptP.push(o);
+    walkPrimary(i + 1);
+    keptP.pop();
+    const penalty = unexplainedPenalty(o, context);
+    const strong = penalty.amount >= PENALTY.unexplainedBand;
+    if (unflaggedDrops < maxDrops && total > 1 && (!strong || strongDrops < maxStrongDrops)) {
+      unflaggedDrops++;
+      if (strong) strongDrops++;
+      dropped.push(o);
+      penalties.push(penalty);
+      walkPrimary(i + 1);
+      penalties.pop();
+      dropped.pop();
+      if (strong) strongDrops--;
+      unflaggedDrops--;
+    }
+    const next = primary[i + 1];
+    if (next && splitPairAllowed(o, next)) {
+      keptP.push(averageObservations([o, next], sorted.weighted));
+      merged.push([o, next]);
+      penalties.push(splitPenalty(o, next));
+      walkPrimary(i + 2);
+      penalties.pop();
+      merged.pop();
+      keptP.pop();
+    }
+  };
+  walkPrimary(0);
+  out.sort((a, b) => a.penalty - b.penalty);
+  return out.slice(0, MAX_REDUCTIONS);
+}
