@@ -1,10 +1,16 @@
-import { cubicBlockEigenvalues } from './block-spectra.js';
-import type { CubicBlocks } from './blocks.js';
-import { clusterIrrepsByCharacters } from './cluster-characters.js';
-import { CUBIC_IRREPS, irrepFromChannelCounts, type ChannelCounts } from './cubic-group.js';
-import type { CubicIrrep } from './types.js';
+import { cubicBlockEigenvalues } from '../../src/ligand-field/block-spectra.js';
+import type { CubicBlocks } from '../../src/ligand-field/blocks.js';
+import { clusterIrrepsByCharacters } from '../../src/ligand-field/cluster-characters.js';
+import { CUBIC_IRREPS, irrepFromChannelCounts, type ChannelCounts } from '../../src/ligand-field/cubic-group.js';
+import type { CubicIrrep } from '../../src/ligand-field/types.js';
 
 /**
+ * The engine's former labelling path, kept as a slower reference for
+ * src/ligand-field/level-spectrum.ts (one block per (S, Γ)): eigenvalues of
+ * the symmetry-channel blocks, clustered, named by channel counts and, for
+ * any other pattern, by the characters of O over the cluster's eigenvectors.
+ * It shares the channel blocks with the engine but none of the irrep split.
+ *
  * From block eigenvalues to (S, Γ) levels.
  *
  * Spin: the levels of spin S are the eigenvalues of block M_S = S less (as a
@@ -110,6 +116,20 @@ export function rawLevels(
     levels.push(...found);
   }
   return levels;
+}
+
+const IRREP_ORDER = new Map(CUBIC_IRREPS.map((irrep, i) => [irrep, i]));
+
+/** rawLevels sorted as computeLevels lists its levels: ascending energy; ties by higher spin, then irrep order. */
+export function sortedChannelLevels(
+  blocks: CubicBlocks,
+  coefficients: readonly number[],
+  tol: number,
+  expected: (twoS: number, irrep: CubicIrrep) => number,
+): RawLevel[] {
+  return rawLevels(blocks, coefficients, tol, expected).sort(
+    (x, y) => x.energy - y.energy || y.twoS - x.twoS || IRREP_ORDER.get(x.irrep)! - IRREP_ORDER.get(y.irrep)!,
+  );
 }
 
 function countsMatch(levels: RawLevel[], twoS: number, expected: (twoS: number, irrep: CubicIrrep) => number): boolean {
