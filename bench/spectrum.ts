@@ -4,7 +4,11 @@
  * aim ~20 ms (the whole analysis including the fit must stay under 50 ms).
  * Input: an invented Cr(III)-like spectrum, 300–1100 nm every 0.4 nm.
  */
-import { formatDelimited, formatJcamp, parseSpectrumText, processSpectrum, synthesizeSpectrum } from '../src/spectrum/index.js';
+import { readdirSync, readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { formatDelimited, formatJcamp, parseSpectrumText, processSpectrum, synthesizeSpectrum, type Spectrum } from '../src/spectrum/index.js';
+
+const DEMO = fileURLToPath(new URL('../spectra-demo/', import.meta.url));
 
 function median(values: number[]): number {
   const sorted = [...values].sort((a, b) => a - b);
@@ -53,4 +57,37 @@ export async function run(): Promise<void> {
   console.log(`  parse JCAMP DIFDUP median ${f(median(jdx))}`);
   console.log(`  process            median ${f(median(processing))}`);
   console.log(`  parse + process    median ${f(median(total))} wall, ${f(median(cpu))} CPU (target < 50 ms, aim ~20 ms)`);
+  hardCases();
+}
+
+/**
+ * processSpectrum alone on harder inputs, target median ≤ 20 ms: a
+ * 2,001-point strong-field Cr(III)-like spectrum (narrow spin-forbidden
+ * band, 4T1g beside the UV edge, saturated maxima) and every invented demo
+ * spectrum in spectra-demo/ (701 points each).
+ */
+function hardCases(): void {
+  const s = synthesizeSpectrum({
+    bands: [{ position: 12530, fwhm: 450, epsilon: 0.9 }, { position: 21900, fwhm: 2900, epsilon: 71 }, { position: 28900, fwhm: 3300, epsilon: 60 }],
+    concentration: 0.05, noise: 0.002, baselineOffset: 0.02, baselineSlope: 0.01,
+    edge: { position: 43000, fwhm: 9000, height: 2.5 }, seed: 14, fromNm: 300, toNm: 1100, stepNm: 0.4,
+  });
+  const inputs: Array<[string, Spectrum]> = [['strong-field 2001 points', { x: s.wavelength, y: s.absorbance, xUnit: 'nm', yUnit: 'absorbance', name: 'hard', column: 1, metadata: {} }]];
+  for (const file of readdirSync(DEMO).filter((n) => /\.(csv|txt|jdx)$/.test(n)).sort()) {
+    for (const spectrum of parseSpectrumText(new Uint8Array(readFileSync(DEMO + file)), { fileName: file }).spectra) inputs.push([`${file} ${spectrum.name}`.slice(0, 40), spectrum]);
+  }
+  const f = (v: number) => `${v.toFixed(1)} ms`;
+  for (const [name, spectrum] of inputs) {
+    const wall: number[] = [];
+    const cpu: number[] = [];
+    let bands = 0;
+    for (let k = 0; k < 25; k++) {
+      const [result, t, c] = time(() => processSpectrum(spectrum, { concentration: 0.05, geometry: 'octahedral' }));
+      bands = result.bands.length;
+      if (k < 5) continue;
+      wall.push(t);
+      cpu.push(c);
+    }
+    console.log(`  process ${name.padEnd(40)} ${bands} bands  median ${f(median(wall))} wall, ${f(median(cpu))} CPU`);
+  }
 }

@@ -49,8 +49,13 @@ export function bandFitBic(fit: RefineBandsResult, n: number): number {
   return fit.chiSquare + fit.parameters * Math.log(n);
 }
 
-function refine(x: Float64Array, y: Float64Array, bands: GaussianParameters[], edge: GaussianParameters | null, o: FitBandsOptions): RefineBandsResult {
-  return xyRefineBands(x, y, { bands, edge, baselineGuess: o.baselineGuess, baselineOrder: o.baselineOrder, weights: o.weights ?? weightsFromNoise(o.noise) });
+/** Iterations of a trial fit: a model that needs more is usually degenerate (two components on one band) and is simplified next. */
+const TRIAL_ITERATIONS = 40;
+
+function refine(
+  x: Float64Array, y: Float64Array, bands: GaussianParameters[], edge: GaussianParameters | null, o: FitBandsOptions, maxIterations = TRIAL_ITERATIONS,
+): RefineBandsResult {
+  return xyRefineBands(x, y, { bands, edge, baselineGuess: o.baselineGuess, baselineOrder: o.baselineOrder, weights: o.weights ?? weightsFromNoise(o.noise), maxIterations });
 }
 
 const weightCache = new WeakMap<Float64Array, Float64Array>();
@@ -80,21 +85,31 @@ export function xNearestIndex(x: Float64Array, v: number): number {
 
 /**
  * Bands too weak (height under 3 local noise deviations, 5 for narrow
- * bands, which noise mimics more easily), too uncertain (position
- * deviation over half the FWHM), or duplicates of a stronger neighbour.
- * Returns the kept bands, or null when all are kept.
+ * bands, which noise mimics more easily), duplicates of a stronger
+ * neighbour, or too uncertain (position deviation over half the FWHM).
+ * Uncertain bands go one at a time, the weakest (by area) first: two
+ * components sharing one band are both uncertain, and one of them is
+ * needed. Returns the kept bands, or null when all are kept.
  */
 function prune(fit: RefineBandsResult, x: Float64Array, noise: Float64Array, narrowFwhm: number): GaussianParameters[] | null {
   const keep: GaussianParameters[] = [];
+  const uncertain: GaussianParameters[] = [];
   let changed = false;
   const order = fit.bands.map((b, k) => ({ b, sd: fit.positionSd[k] as number })).sort((p, q) => q.b.height - p.b.height);
   for (const { b, sd } of order) {
     const sigma = noise[xNearestIndex(x, b.position)] as number;
     const weak = b.height < (b.fwhm < 2 * narrowFwhm ? 5 : 3) * sigma;
-    const undetermined = Number.isFinite(sd) && sd > 0.5 * b.fwhm;
     const duplicate = keep.some((k) => Math.abs(k.position - b.position) < 0.2 * Math.max(k.fwhm, b.fwhm) && Math.abs(Math.log(k.fwhm / b.fwhm)) < 0.7);
-    if (weak || undetermined || duplicate) changed = true;
-    else keep.push(b);
+    if (weak || duplicate) changed = true;
+    else {
+      keep.push(b);
+      if (Number.isFinite(sd) && sd > 0.5 * b.fwhm) uncertain.push(b);
+    }
+  }
+  if (!changed && uncertain.length > 0) {
+    const weakest = uncertain.reduce((w, b) => (b.height * b.fwhm < w.height * w.fwhm ? b : w));
+    keep.splice(keep.indexOf(weakest), 1);
+    changed = true;
   }
   return changed ? keep.sort((p, q) => p.position - q.position) : null;
 }
@@ -119,8 +134,14 @@ export function fitBands(x: Float64Array, y: Float64Array, o: FitBandsOptions): 
   const n = x.length;
   const sigma = xMedian(o.noise);
   const ctx: Context = { x, y, o, sigma, score: (f) => bandFitBic(f, n), mode: o.edgeMode ?? 'auto' };
-  const start = o.candidates.slice(0, o.maxBands).map((c) => ({ position: c.position, height: c.height, fwhm: c.fwhm }));
-  let fit = refine(x, y, start, ctx.mode === false ? null : o.edge, o);
+  const xMax = x[n - 1] as number;
+  // Candidates at the top of the range are the edge's rise, not bands (the edge is tried on later).
+  const start = o.candidates
+    .filter((c) => ctx.mode === false || !edgeLike(c, xMax, o.broadFwhm))
+    .slice(0, o.maxBands)
+    .map((c) => ({ position: c.position, height: c.height, fwhm: c.fwhm }));
+  const edge0 = ctx.mode === false ? null : o.edge;
+  let fit = refine(x, y, start, edge0, o);
   for (let loop = 0; loop < 3; loop++) {
     const kept = prune(fit, x, o.noise, o.narrowFwhm);
     if (kept === null) break;
@@ -131,7 +152,6 @@ export function fitBands(x: Float64Array, y: Float64Array, o: FitBandsOptions): 
   for (; added < 3 && fit.bands.length < o.maxBands; added++) {
     const r = residual(x, y, fit);
     const xMin = x[0] as number;
-    const xMax = x[n - 1] as number;
     const extra = xyFindBandCandidates(x, r, { noise: o.noise, broadFwhm: o.broadFwhm, narrowFwhm: o.narrowFwhm, significance: 5 })
       .filter((c) => fit.bands.every((b) => Math.abs(b.position - c.position) > 0.15 * b.fwhm))
       .filter((c) => !atLowEnd(c, xMin) && !(ctx.mode !== false && edgeLike(c, xMax, o.broadFwhm)))
@@ -141,7 +161,9 @@ export function fitBands(x: Float64Array, y: Float64Array, o: FitBandsOptions): 
     if (prune(trial, x, o.noise, o.narrowFwhm) !== null || ctx.score(trial) >= ctx.score(fit) - BIC_MARGIN) break;
     fit = trial;
   }
-  return added > 0 ? simplify(ctx, fit) : fit;
+  if (added > 0) fit = simplify(ctx, fit);
+  // The chosen model is refined to convergence (its trial may have stopped early).
+  return fit.converged ? fit : refine(x, y, fit.bands, fit.edge, o, 200);
 }
 
 interface Context {

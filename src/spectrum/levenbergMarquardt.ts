@@ -165,11 +165,14 @@ export interface NormalEquationsProblem {
  * Bounded Levenberg–Marquardt as levenbergMarquardt, on a problem that
  * forms its own normal equations (so a sparse model can skip the zero
  * products) and evaluates rejected trial steps by their cost only.
- * Converged: the relative decrease of the cost fell below `tolerance`, or no
- * step lowers it.
+ * Converged: the decrease of the cost in one step fell below
+ * max(tolerance × cost, absoluteTolerance) (@default 0; with a χ² cost,
+ * 0.01 is far below what changes any conclusion), or no step lowers it.
  */
-export function levenbergMarquardtNormal(problem: NormalEquationsProblem, options: Omit<LevenbergMarquardtOptions, 'n'>): LevenbergMarquardtResult {
-  const { initial, lower, upper, maxIterations = 100, tolerance = 1e-9 } = options;
+export function levenbergMarquardtNormal(
+  problem: NormalEquationsProblem, options: Omit<LevenbergMarquardtOptions, 'n'> & { absoluteTolerance?: number },
+): LevenbergMarquardtResult {
+  const { initial, lower, upper, maxIterations = 100, tolerance = 1e-9, absoluteTolerance = 0 } = options;
   let lambda = options.damping ?? 1e-3;
   const p = initial.length;
   const params = Float64Array.from(initial, (v, j) => Math.min(Math.max(v, lower[j] as number), upper[j] as number));
@@ -212,12 +215,12 @@ export function levenbergMarquardtNormal(problem: NormalEquationsProblem, option
       for (let j = 0; j < p; j++) trial[j] = Math.min(Math.max((params[j] as number) + (step[j] as number), lower[j] as number), upper[j] as number);
       const trialCost = problem.cost(trial);
       if (Number.isFinite(trialCost) && trialCost < cost) {
-        const decrease = (cost - trialCost) / Math.max(cost, 1e-300);
+        const decrease = cost - trialCost;
         params.set(trial);
         cost = problem.normal(params, a, g);
         lambda = Math.max(lambda / 3, 1e-12);
         improved = true;
-        if (decrease < tolerance) converged = true;
+        if (decrease < Math.max(tolerance * cost, absoluteTolerance)) converged = true;
       } else lambda *= 4;
     }
     if (!improved) converged = true;

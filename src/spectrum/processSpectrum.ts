@@ -2,6 +2,29 @@
  * Processing one spectrum: to an energy axis, masking, a uniform grid,
  * noise, band finding, a joint fit of bands, UV edge and baseline, and
  * classification. Pure; deterministic for given input.
+ *
+ * The grid: at most maxGridPoints (400) points; a grid value is the mean of
+ * the data within ±step/2, moved along the local slope from the points'
+ * mean wavenumber to the grid value (else interpolated).
+ *
+ * The fit is weighted by the local noise (1/σ_i) and the model is chosen by
+ * the Bayesian information criterion with that noise, χ² + p ln n; a model
+ * with more components is kept only when it wins by more than 10 (fitBands.ts):
+ * - a candidate band is dropped when weaker than 3 σ (5 σ for narrow bands),
+ *   when its position is undetermined (σ_position > FWHM/2), or when it
+ *   duplicates a stronger one;
+ * - two bands closer than half the larger FWHM are tried as one band (area,
+ *   mean and variance kept) and stay two only if the data demand it; so a
+ *   band is not split in two, nor a narrow band put on a broad maximum;
+ * - a band within one FWHM of the top of the range whose centre lies above
+ *   top − FWHM/4 (no maximum of its own) or that is broader than
+ *   3 × broadFwhm is the UV edge: it is replaced by the edge model (rule,
+ *   no test), unless uvEdge is false; a band within FWHM/4 of the bottom is
+ *   dropped unless the criterion keeps it;
+ * - uvEdge 'auto': the edge (a Gaussian tail centred 1500–40 000 cm-1 above
+ *   the range) starts on when the end of the range rises, and is then tried
+ *   off (when on) or on (when off), kept by the same criterion;
+ * - a band is added where the residual still shows one, by the criterion.
  */
 import { FieldgapError, invalidArgument } from '../errors.js';
 import { defaultThresholds, type ClassificationThresholds } from './bandClassify.js';
@@ -34,7 +57,7 @@ export interface ProcessSpectrumOptions {
   correctSteps?: boolean;
   /** Baseline polynomial order, 0–3. @default 1 */
   baselineOrder?: number;
-  /** Model a UV absorption edge: 'auto' when the signal rises at the high-energy end. @default 'auto' */
+  /** Model a UV absorption edge: 'auto' tries it on and off and keeps what the data need; true always; false never. @default 'auto' */
   uvEdge?: 'auto' | boolean;
   /** Typical spin-allowed FWHM, cm-1 (band-finding window). @default 2500 */
   broadFwhm?: number;
@@ -110,7 +133,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
     warnings.push('no band stands out of the noise');
     return empty();
   }
-  const fit = fitBands(fx, fy, { candidates, edge, baselineGuess: hull, baselineOrder, noise: localNoise, broadFwhm, narrowFwhm, maxBands });
+  const fit = fitBands(fx, fy, { candidates, edge, baselineGuess: hull, baselineOrder, noise: localNoise, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
   const polynomial = (xs: Float64Array) => xPolynomialValues(xs, fit.baselineCoefficients, fit.scale);
   const baseline = polynomial(grid);
   if (fit.edge !== null) for (let i = 0; i < grid.length; i++) baseline[i] = (baseline[i] as number) + gaussianValue(grid[i] as number, fit.edge.position, fit.edge.height, fit.edge.fwhm);

@@ -98,7 +98,8 @@ export function xyRefineBands(x: Float64Array, y: Float64Array, options: RefineB
       normal: (v, a, g) => xyBandModelNormal(x, y, weights, layout, v, a, g, work),
       cost: (v) => xyBandModelCost(x, y, weights, layout, v, work.residuals),
     },
-    { initial, lower, upper, maxIterations, tolerance: 1e-8 },
+    // With weights 1/σ the cost is χ²: a step gaining less than 0.01 of it changes nothing the model selection or the uncertainties see.
+    { initial, lower, upper, maxIterations, tolerance: 1e-8, absoluteTolerance: weights === null ? 0 : 0.01 },
   );
   const v = fit.parameters;
   const bands = options.bands.map((_, j) => ({ position: v[3 * j] as number, height: v[3 * j + 1] as number, fwhm: v[3 * j + 2] as number }));
