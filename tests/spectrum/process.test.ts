@@ -173,6 +173,17 @@ describe('processSpectrum on synthetic spectra (invented cases)', () => {
     }
   });
 
+  it('models the UV edge only when allowed: uvEdge false gives none, true always one', () => {
+    const bands = [{ position: 17400, fwhm: 3000, height: 0.3 }, { position: 24600, fwhm: 3500, height: 0.35 }];
+    const withEdge = syntheticSpectrum({ bands, noise: 0.002, edge: { position: 43000, fwhm: 9000, height: 2.5 }, seed: 41 });
+    expect(processSpectrum(withEdge).edge).not.toBeNull();
+    expect(processSpectrum(withEdge, { uvEdge: false }).edge).toBeNull();
+    const plain = syntheticSpectrum({ bands, noise: 0.002, seed: 43 });
+    expect(processSpectrum(plain).edge).toBeNull();
+    expect(processSpectrum(plain, { uvEdge: true }).edge).not.toBeNull();
+    expect(processSpectrum(plain, { uvEdge: true }).bands).toHaveLength(2);
+  });
+
   it('finds nothing in pure noise', () => {
     const result = processSpectrum(syntheticSpectrum({ bands: [], noise: 0.002, baselineOffset: 0.05, seed: 37 }));
     expect(result.bands).toEqual([]);
