@@ -107,7 +107,7 @@ const series = (['en', 'urea', 'thiocyanato'] as const).map((key) => spectrumOf(
 write('cr-series.csv', formatDelimited({
   x: series[0]!.wavelength,
   ys: series.map((s) => s.absorbance),
-  header: ['Wavelength (nm)', 'Cr-en', 'Cr-urea', 'Cr-NCS'],
+  header: ['Wavelength (nm)', 'Cr-en absorbance', 'Cr-urea absorbance', 'Cr-NCS absorbance'],
   preamble: [`# ${NOTE}`, '# Three Cr(III) glaze extracts, 0.05 mol/L, 1 cm'],
   digits: 5,
 }));
