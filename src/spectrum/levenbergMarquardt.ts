@@ -5,15 +5,7 @@
  * dozen, as in a band fit.
  */
 
-/**
- * Fills `residuals` (length n: data − model) and `jacobian` (n × p, row
- * major: ∂model_i/∂p_j) for parameters `p`.
- */
-export type ResidualsAndJacobian = (p: Float64Array, residuals: Float64Array, jacobian: Float64Array) => void;
-
 export interface LevenbergMarquardtOptions {
-  /** Number of residuals. */
-  n: number;
   initial: Float64Array;
   lower: Float64Array;
   upper: Float64Array;
@@ -65,94 +57,6 @@ export function choleskySolveInPlace(m: Float64Array, rhs: Float64Array, p: numb
   return true;
 }
 
-function sumOfSquares(r: Float64Array): number {
-  let s = 0;
-  for (let i = 0; i < r.length; i++) s += (r[i] as number) * (r[i] as number);
-  return s;
-}
-
-export function levenbergMarquardt(evaluate: ResidualsAndJacobian, options: LevenbergMarquardtOptions): LevenbergMarquardtResult {
-  const { n, initial, lower, upper, maxIterations = 100, tolerance = 1e-9 } = options;
-  let lambda = options.damping ?? 1e-3;
-  const p = initial.length;
-  const params = Float64Array.from(initial, (v, j) => Math.min(Math.max(v, lower[j] as number), upper[j] as number));
-  const m = new Float64Array(p * p);
-  const rhs = new Float64Array(p);
-  const step = new Float64Array(p);
-  const trial = new Float64Array(p);
-  const frozen = new Uint8Array(p);
-  const r = new Float64Array(n);
-  const jac = new Float64Array(n * p);
-  const trialR = new Float64Array(n);
-  const trialJ = new Float64Array(n * p);
-  evaluate(params, r, jac);
-  let cost = sumOfSquares(r);
-  const a = new Float64Array(p * p);
-  const g = new Float64Array(p);
-  let iterations = 0;
-  let converged = false;
-  const normal = (): void => {
-    a.fill(0);
-    g.fill(0);
-    for (let i = 0; i < n; i++) {
-      const ri = r[i] as number;
-      const off = i * p;
-      for (let j = 0; j < p; j++) {
-        const jj = jac[off + j] as number;
-        if (jj === 0) continue;
-        g[j] = (g[j] as number) + jj * ri;
-        for (let k = j; k < p; k++) a[j * p + k] = (a[j * p + k] as number) + jj * (jac[off + k] as number);
-      }
-    }
-    for (let j = 0; j < p; j++) for (let k = 0; k < j; k++) a[j * p + k] = a[k * p + j] as number;
-  };
-  normal();
-  while (iterations < maxIterations) {
-    iterations++;
-    let improved = false;
-    for (let attempt = 0; attempt < 12 && !improved; attempt++) {
-      // Parameters held at a bound by the gradient are frozen for this step (a simple active set).
-      for (let j = 0; j < p; j++) {
-        const v = params[j] as number;
-        frozen[j] = (v <= (lower[j] as number) && (g[j] as number) < 0) || (v >= (upper[j] as number) && (g[j] as number) > 0) ? 1 : 0;
-      }
-      m.fill(0);
-      rhs.fill(0);
-      for (let j = 0; j < p; j++) {
-        if (frozen[j] === 1) {
-          m[j * p + j] = 1;
-          continue;
-        }
-        for (let k = 0; k < p; k++) if (frozen[k] === 0) m[j * p + k] = a[j * p + k] as number;
-        const d = a[j * p + j] as number;
-        m[j * p + j] = d + lambda * (d > 0 ? d : 1e-12);
-        rhs[j] = g[j] as number;
-      }
-      if (!choleskySolveInPlace(m, rhs, p, step)) {
-        lambda *= 10;
-        continue;
-      }
-      for (let j = 0; j < p; j++) trial[j] = Math.min(Math.max((params[j] as number) + (step[j] as number), lower[j] as number), upper[j] as number);
-      evaluate(trial, trialR, trialJ);
-      const trialCost = sumOfSquares(trialR);
-      if (Number.isFinite(trialCost) && trialCost < cost) {
-        const decrease = (cost - trialCost) / Math.max(cost, 1e-300);
-        params.set(trial);
-        r.set(trialR);
-        jac.set(trialJ);
-        cost = trialCost;
-        lambda = Math.max(lambda / 3, 1e-12);
-        improved = true;
-        normal();
-        if (decrease < tolerance) converged = true;
-      } else lambda *= 4;
-    }
-    if (!improved) converged = true;
-    if (converged) break;
-  }
-  return { parameters: params, cost, iterations, converged };
-}
-
 /** A least-squares problem given by its normal equations (see xyBandModelNormal). */
 export interface NormalEquationsProblem {
   /** Fills a = JᵀJ (p × p, row major) and g = Jᵀr at params; returns the sum of squares. */
@@ -162,7 +66,7 @@ export interface NormalEquationsProblem {
 }
 
 /**
- * Bounded Levenberg–Marquardt as levenbergMarquardt, on a problem that
+ * Bounded Levenberg–Marquardt on a problem that
  * forms its own normal equations (so a sparse model can skip the zero
  * products) and evaluates rejected trial steps by their cost only.
  * Converged: the decrease of the cost in one step fell below
@@ -170,7 +74,7 @@ export interface NormalEquationsProblem {
  * 0.01 is far below what changes any conclusion), or no step lowers it.
  */
 export function levenbergMarquardtNormal(
-  problem: NormalEquationsProblem, options: Omit<LevenbergMarquardtOptions, 'n'> & { absoluteTolerance?: number },
+  problem: NormalEquationsProblem, options: LevenbergMarquardtOptions & { absoluteTolerance?: number },
 ): LevenbergMarquardtResult {
   const { initial, lower, upper, maxIterations = 100, tolerance = 1e-9, absoluteTolerance = 0 } = options;
   let lambda = options.damping ?? 1e-3;

@@ -7,12 +7,11 @@ import { xNoiseFromSecondDifferences, xNoiseLocal } from '../../src/spectrum/xNo
 import { xyCorrectDetectorSteps, xyFindDetectorSteps } from '../../src/spectrum/xyDetectorSteps.js';
 import { xyLowerHull } from '../../src/spectrum/xyLowerHull.js';
 import { xyMaskedRegions, xyMaskPoints } from '../../src/spectrum/xyMask.js';
-import { modelJacobianRow } from '../../src/spectrum/xyModelCovariance.js';
 import { xPolynomialScale, xPolynomialValues, xyPolynomialFit } from '../../src/spectrum/xyPolynomial.js';
 import { xyRefineBands } from '../../src/spectrum/xyRefineBands.js';
 import { xChooseGridStep, xUniformGrid, xyResampleUniform } from '../../src/spectrum/xyResample.js';
 import {
-  referenceJacobian, referenceLowerHull, referenceResample, referenceSgSecondDerivativeNoise,
+  referenceLowerHull, referenceResample, referenceSgSecondDerivativeNoise,
 } from '../reference/spectrum-kernels.js';
 
 const random = mulberry32(20240501);
@@ -130,28 +129,6 @@ describe('polynomial baseline', () => {
     const y = xPolynomialValues(x, c, scale);
     const fitted = xyPolynomialFit(x, y, 2, scale);
     for (let k = 0; k < 3; k++) expect(fitted[k]).toBeCloseTo(c[k]!, 12);
-  });
-});
-
-describe('band model Jacobian', () => {
-  it('matches central differences at seeded random parameters', () => {
-    for (let trial = 0; trial < 10; trial++) {
-      const xs = Array.from({ length: 40 }, (_, i) => 9000 + 600 * i);
-      const scale = { centre: 20000, halfWidth: 12000 };
-      const p = [15000 + 5000 * random(), 0.1 + random(), 1500 + 3000 * random(), 22000 + 6000 * random(), 0.1 + random(), 1000 + 3000 * random(), 0.05, 0.02];
-      const toComponents = (q: number[]) => [0, 1].map((k) => ({ position: q[3 * k]!, height: q[3 * k + 1]!, fwhm: q[3 * k + 2]! }));
-      const model = (q: number[]) => xs.map((xi) => {
-        const row = new Float64Array(8);
-        const g = modelJacobianRow(xi, toComponents(q), 2, scale, row);
-        return g + q[6]! + q[7]! * ((xi - scale.centre) / scale.halfWidth);
-      });
-      const numeric = referenceJacobian(model, p);
-      xs.forEach((xi, i) => {
-        const row = new Float64Array(8);
-        modelJacobianRow(xi, toComponents(p), 2, scale, row);
-        for (let j = 0; j < 8; j++) expect(row[j]!).toBeCloseTo(numeric[i]![j]!, 6);
-      });
-    }
   });
 });
 
