@@ -81,7 +81,9 @@ export function computeLevels(d: number, geometry: Geometry, params: FieldParame
   const blocks = irrepBlocks(d, geometry);
   const tol = energyTolerance(params);
   const reorder = dq === 0 ? freeIonOrder(blocks, b, c, tol) : undefined;
-  coefficients.set([dq, b, c]);
+  coefficients[0] = dq;
+  coefficients[1] = b;
+  coefficients[2] = c;
   const spectrum = levelSpectrum(blocks, coefficients, tol);
   const order = reorder?.(spectrum);
   const labels = table.labels(geometry);
