@@ -1,16 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { FieldgapError } from '../../src/errors.js';
 import { parseFormula } from '../../src/chemistry/formula.js';
+import { errorOf } from '../helpers/errors.js';
 
-function errorOf(fn: () => unknown): FieldgapError {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof FieldgapError) return error;
-    throw error;
-  }
-  throw new Error('expected a FieldgapError');
-}
 
 // Oxidation states and d-counts of these well-known complexes: common practice
 // (formal charges: complex charge minus ligand charges; d = group − oxidation state).

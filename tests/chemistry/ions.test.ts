@@ -1,17 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { FieldgapError } from '../../src/errors.js';
 import { ionLabel, parseIon } from '../../src/chemistry/ions.js';
 import { TRANSITION_ELEMENTS, ELEMENT_SYMBOLS } from '../../src/chemistry/elements.js';
+import { errorOf } from '../helpers/errors.js';
 
-function errorOf(fn: () => unknown): FieldgapError {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof FieldgapError) return error;
-    throw error;
-  }
-  throw new Error('expected a FieldgapError');
-}
 
 describe('parseIon: accepted spellings', () => {
   const cases: [string, string, number, number][] = [

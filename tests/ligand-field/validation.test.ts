@@ -1,17 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { computeLevels, crossoverDqOverB, freeIonTerms } from '../../src/ligand-field/index.js';
 import type { FieldParameters, Geometry } from '../../src/ligand-field/types.js';
-import { FieldgapError } from '../../src/errors.js';
+import { errorOf as caught } from '../helpers/errors.js';
 
-function caught(run: () => unknown): FieldgapError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof FieldgapError) return error;
-    throw error;
-  }
-  throw new Error('expected a FieldgapError');
-}
 
 const ok: FieldParameters = { dq: 1000, b: 800, c: 3200 };
 

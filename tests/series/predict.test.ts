@@ -1,16 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { FieldgapError } from '../../src/errors.js';
 import { predictComplex, type Prediction } from '../../src/series/predict.js';
+import { errorOf } from '../helpers/errors.js';
 
-function errorOf(fn: () => unknown): FieldgapError {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof FieldgapError) return error;
-    throw error;
-  }
-  throw new Error('expected a FieldgapError');
-}
 
 /** Every object with a `value` in the prediction must say it is an estimate and how it was made. */
 function expectAllMarked(p: Prediction): void {

@@ -6,16 +6,8 @@ import { coerceFields, coerceText } from '../../server/coerce.js';
 import { formatIssuePath, httpStatusFor, ServiceBusyError, toFieldgapError, INTERNAL_ERROR } from '../../server/errors.js';
 import { analyzeFields, diagramQuery, fitBody, levelsQuery } from '../../server/schemas.js';
 import { parseJsonBody, parseTextFields } from '../../server/validate.js';
+import { errorOf as failure } from '../helpers/errors.js';
 
-function failure(run: () => unknown): FieldgapError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof FieldgapError) return error;
-    throw error;
-  }
-  throw new Error('expected a FieldgapError');
-}
 
 describe('coerceText', () => {
   const number = { number: true, boolean: false };

@@ -1,19 +1,10 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { FieldgapError } from '../../src/errors.js';
 import { parseSpectrumText } from '../../src/spectrum/index.js';
 import { FIXTURES, fixtureBytes } from './load.js';
+import { errorOf } from '../helpers/errors.js';
 
-function errorOf(run: () => unknown): FieldgapError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof FieldgapError) return error;
-    throw error;
-  }
-  throw new Error('expected a FieldgapError');
-}
 
 const parseFixture = (name: string, options: Parameters<typeof parseSpectrumText>[1] = {}) =>
   parseSpectrumText(fixtureBytes(name), { fileName: name, ...options });

@@ -4,9 +4,9 @@ import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { FieldgapError } from '../../src/errors.js';
 import { LIBRARY_FILE, openLibrary, sha256Hex, type Library } from '../../server/storage/library.js';
 import { handBuiltRecord } from './helpers/records.js';
+import { errorOf } from '../helpers/errors.js';
 
 let dir: string;
 let library: Library;
@@ -20,15 +20,6 @@ afterEach(() => {
   rmSync(dir, { recursive: true, force: true });
 });
 
-function errorOf(fn: () => unknown): FieldgapError {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof FieldgapError) return error;
-    throw error;
-  }
-  throw new Error('expected a FieldgapError');
-}
 
 describe('add and get', () => {
   it('returns the saved record with an id, the details, options, result and version', () => {
