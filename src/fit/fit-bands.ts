@@ -6,7 +6,10 @@
  * 2. Scans of reduced energies e(Dq/B) at the C/B in use (scan.ts): the fixed
  *    ratio; for a fixed C the ratio C/B_guess rounded to 0.1 (B_guess =
  *    0.8·B0, else C/4.5), redone once if the fitted C/B lands more than 0.5
- *    away; for a free C the ratios 3.0, 3.5, …, 6.5.
+ *    away; for a free C the ratios 3.0, 4.0, 5.0, 6.0, the candidates chosen
+ *    for refinement being refined on these and on their neighbours among
+ *    3.0, 3.5, …, 6.5 (move-candidate.ts), and the winner's polish starting
+ *    from the C/B of a parabola through three of them (free-c-start.ts).
  * 3. Every order-consistent assignment on every spin branch at its grid
  *    optimum (closed-form B per grid point: profile.ts), in typed arrays
  *    (candidates.ts). The grid rms is a lower bound of the score, so
@@ -32,6 +35,8 @@ import {
 } from './candidates.js';
 import { penaltyTotal, plausibilityPenalties } from './penalties.js';
 import { bandReductions } from './reductions.js';
+import { freeCStart } from './free-c-start.js';
+import { candidateOnScan } from './move-candidate.js';
 import { evaluateDqOnly, evaluateGridCandidate, type Evaluated } from './evaluate.js';
 import { evaluateOnScan } from './evaluate-scan.js';
 import { sortObservations, type SortedObservations } from './observations.js';
@@ -44,6 +49,8 @@ import type { FitInput, FitOptions, FitResult } from './types.js';
 export const REFINED_CANDIDATES = 4;
 /** Ratios scanned when C is free. */
 export const FREE_C_RATIOS = [3.0, 3.5, 4.0, 4.5, 5.0, 5.5, 6.0, 6.5];
+/** The ratios whose every assignment is enumerated when C is free; the chosen candidates are then refined on their FREE_C_RATIOS neighbours. */
+export const FREE_C_COARSE_RATIOS = [3.0, 4.0, 5.0, 6.0];
 
 /** rms above which the best assignment is reported as a failure, cm-1. */
 export function unexplainedThreshold(positions: readonly number[]): number {
@@ -52,7 +59,7 @@ export function unexplainedThreshold(positions: readonly number[]): number {
 }
 
 function scanRatios(settings: FitSettings): number[] {
-  if (settings.mode === 'free') return FREE_C_RATIOS;
+  if (settings.mode === 'free') return FREE_C_COARSE_RATIOS;
   if (settings.mode === 'ratio') return [settings.cOverB];
   const bGuess = settings.b0 !== null ? 0.8 * settings.b0 : settings.cFixed / 4.5;
   return [Math.min(8, Math.max(2, Math.round((10 * settings.cFixed) / bGuess) / 10))];
@@ -165,6 +172,18 @@ function groupsBound(groups: CandidateGroup[], settings: FitSettings, sorted: So
   return bound;
 }
 
+/** Free C: the candidate refined on its coarse scan and on the FREE_C_RATIOS next to it; the best of these. */
+function evaluateOnNeighbours(c: GridCandidate, settings: FitSettings, sorted: SortedObservations): Evaluated {
+  let best = evaluateOnScan(c, settings, sorted);
+  for (const ratio of FREE_C_RATIOS) {
+    if (Math.abs(Math.abs(ratio - c.scan.cOverB) - 0.5) > 1e-9) continue;
+    const moved = candidateOnScan(c, cachedLevelScan(settings.d, settings.geometry, ratio), sorted);
+    const e = moved && evaluateOnScan(moved, settings, sorted);
+    if (e && e.score < best.score) best = e;
+  }
+  return best;
+}
+
 function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: number[]): Evaluated[] {
   const p = settings.mode === 'free' ? 3 : 2;
   const threshold = unexplainedThreshold([...sorted.primary, ...sorted.flagged].map((o) => o.position));
@@ -198,7 +217,8 @@ function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: 
     if (c.approxScore > alternativeMargin(bestScore)) continue;
     // C/B fixed (or free, at each scanned C/B): refine on the scan, no engine call; the winner is polished
     // with the engine below. A fixed C changes C/B with B, which no one scan holds: engine throughout.
-    const e = settings.mode !== 'fixed' ? evaluateOnScan(c, settings, sorted) : evaluateGridCandidate(c, settings, sorted, evaluated.length === 0 ? 60 : 20);
+    const e = settings.mode === 'free' ? evaluateOnNeighbours(c, settings, sorted)
+      : settings.mode === 'ratio' ? evaluateOnScan(c, settings, sorted) : evaluateGridCandidate(c, settings, sorted, evaluated.length === 0 ? 60 : 20);
     evaluated.push(e);
     bestScore = Math.min(bestScore, e.score);
   }
@@ -265,7 +285,9 @@ export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
   if (!best) throw noAssignmentError(settings, sorted);
   if (best.candidate.kind === 'grid' && (best.levels === null || (best.lsq && !best.lsq.success))) {
     // The winner gets the engine: polished from its scan solution, or refined with the full budget.
-    best = evaluateGridCandidate(best.candidate, settings, sorted, 200, best.levels === null ? best.params : undefined);
+    let from = best.levels === null ? best.params : undefined;
+    if (from && settings.mode === 'free') from = freeCStart(best.candidate, from, FREE_C_RATIOS, sorted) ?? from;
+    best = evaluateGridCandidate(best.candidate, settings, sorted, 200, from);
   }
   const positions = [...sorted.primary, ...sorted.flagged].map((o) => o.position);
   const threshold = unexplainedThreshold(positions);

@@ -59,15 +59,38 @@ export function gridOptimum(
 ): GridSolution | undefined {
   const n = scan.ids.length;
   const width = table.width;
-  let best: GridSolution | undefined;
+  const energies = scan.energies;
+  const levels = table.levels;
+  const row = a * width;
+  // One pass per point: with num = Σ w o e and den = Σ w e², the best B is num/den and
+  // Σ w (o − B e)² = Σ w o² − num²/den (bestScale, expanded; clamped at 0 against rounding).
+  let soo = 0;
+  for (let i = 0; i < width; i++) {
+    work[i] = w[i]! * o[i]!;
+    soo += work[i]! * o[i]!;
+  }
+  let bestSsr = Infinity;
+  let bestPoint = -1;
+  let bestB = 0;
   for (let p = table.pointStart[a]!; p < table.pointStart[a + 1]!; p++) {
     const j = table.points[p]!;
     const base = j * n;
-    const zero = scan.energies[base + branch.ground]!;
-    for (let i = 0; i < width; i++) work[i] = scan.energies[base + table.levels[a * width + i]!]! - zero;
-    const fit = bestScale(o, work, w);
-    if (!(fit.b > 0)) continue;
-    if (!best || fit.ssr < best.ssr) best = { assignment: a, point: j, x: scan.x[j]!, b: fit.b, ssr: fit.ssr };
+    const zero = energies[base + branch.ground]!;
+    let num = 0;
+    let den = 0;
+    for (let i = 0; i < width; i++) {
+      const e = energies[base + levels[row + i]!]! - zero;
+      num += work[i]! * e;
+      den += w[i]! * e * e;
+    }
+    if (!(den > 0) || !(num > 0)) continue;
+    const ssr = Math.max(0, soo - (num * num) / den);
+    if (ssr < bestSsr) {
+      bestSsr = ssr;
+      bestPoint = j;
+      bestB = num / den;
+    }
   }
-  return best;
+  if (bestPoint < 0) return undefined;
+  return { assignment: a, point: bestPoint, x: scan.x[bestPoint]!, b: bestB, ssr: bestSsr };
 }
