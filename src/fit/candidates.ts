@@ -25,6 +25,8 @@ import { promotedElectrons, type LevelScan } from './scan.js';
 import type { FitSettings } from './settings.js';
 import type { Penalty } from './types.js';
 
+/** Grid stride of the first pass for reduced band lists (profile.ts gridOptimum). */
+export const REDUCED_GRID_STRIDE = 3;
 /** Largest ratio of Jahn–Teller components averaged as one band. */
 export const JAHN_TELLER_MAX_RATIO = 1.6;
 
@@ -169,6 +171,8 @@ export function candidateGroups(
   p: number,
 ): { groups: CandidateGroup[]; dqOnly: DqOnlyCandidate[] } {
   const { sorted } = reduction;
+  // Reduced band lists are many and only need to find a winner: a coarse pass over the grid first.
+  const stride = reduction.penalty > 0 ? REDUCED_GRID_STRIDE : 1;
   const groups: CandidateGroup[] = [];
   const dqOnly: DqOnlyCandidate[] = [];
   for (const branch of scanBranches(scan)) {
@@ -192,7 +196,7 @@ export function candidateGroups(
       };
       const work = new Float64Array(m);
       for (let a = 0; a < table.count; a++) {
-        const solution = gridOptimum(scan, branch, table, a, o, w, work);
+        const solution = gridOptimum(scan, branch, table, a, o, w, work, stride);
         if (!solution) continue;
         group.wrms[a] = Math.sqrt(solution.ssr / wSum) + variantPenalty;
         group.point[a] = solution.point;
