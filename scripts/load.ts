@@ -10,7 +10,7 @@
  * fit ≥ 500 req/s, analyze ≥ 100 req/s, p99 < 100 ms.
  *
  * The spectrum and the band list are invented for load only (two Gaussian
- * bands on a sloping baseline); they check nothing.
+ * bands on a sloping baseline, with noise); they check nothing.
  */
 import { mkdtempSync, rmSync } from 'node:fs';
 import { createRequire } from 'node:module';
@@ -18,6 +18,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pino } from 'pino';
 import { startServer } from '../server/main.js';
+import { formatDelimited, synthesizeSpectrum } from '../src/spectrum/index.js';
 
 interface AutocannonResult {
   requests: { average: number; total: number };
@@ -43,18 +44,17 @@ const autocannon = createRequire(import.meta.url)('autocannon') as Autocannon;
 const SECONDS = Number(process.env['LOAD_SECONDS'] ?? 10);
 const CONNECTIONS = 16;
 
-/** An invented 2,000-point absorbance spectrum, 300-1100 nm: two d-d-like Gaussians (in cm-1) and a baseline. */
+/**
+ * An invented 2,000-point absorbance spectrum, 300-1100 nm: two d-d-like
+ * Gaussians in energy on a sloping baseline with seeded noise 0.002 (a
+ * measured spectrum always has noise; noise-free data are no typical load).
+ */
 function inventedCsv(points = 2000): string {
-  const lines = ['wavelength_nm,absorbance'];
-  for (let i = 0; i < points; i++) {
-    const nm = 300 + (800 * i) / (points - 1);
-    const k = 1e7 / nm;
-    const band = (center: number, height: number, fwhm: number) =>
-      height * Math.exp((-4 * Math.LN2 * (k - center) ** 2) / fwhm ** 2);
-    const y = 0.02 + 0.00001 * (1100 - nm) + band(17_400, 0.35, 2600) + band(24_500, 0.3, 3000);
-    lines.push(`${nm.toFixed(3)},${y.toFixed(6)}`);
-  }
-  return `${lines.join('\n')}\n`;
+  const s = synthesizeSpectrum({
+    bands: [{ position: 17_400, fwhm: 2600, height: 0.35 }, { position: 24_500, fwhm: 3000, height: 0.3 }],
+    fromNm: 300, toNm: 1100, stepNm: 800 / (points - 1), baselineOffset: 0.02, baselineSlope: 0.01, noise: 0.002, seed: 5,
+  });
+  return formatDelimited({ x: s.wavelength, ys: [s.absorbance], header: ['wavelength_nm', 'absorbance'] });
 }
 
 async function measure(name: string, options: Omit<AutocannonOptions, 'connections' | 'duration' | 'timeout'>) {
