@@ -1,16 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { normalizeBands, parseBandList } from '../../src/fit/bands.js';
-import { FieldgapError } from '../../src/errors.js';
+import { errorOf } from '../helpers/errors.js';
 
-function errorOf(run: () => unknown): FieldgapError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof FieldgapError) return error;
-    throw error;
-  }
-  throw new Error('expected a FieldgapError');
-}
 
 describe('parseBandList', () => {
   it('reads plain cm-1 lists with commas, semicolons and spaces', () => {

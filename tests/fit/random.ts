@@ -1,14 +1,7 @@
-/** mulberry32: a small seeded generator so random tests repeat exactly. Returns numbers in [0, 1). */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { mulberry32 } from '../../src/spectrum/random.js';
+
+/** The project's seeded generator (mulberry32), so random tests repeat exactly. Returns numbers in [0, 1). */
+export const seededRandom = mulberry32;
 
 /** Uniform in [lo, hi). */
 export function uniform(random: () => number, lo: number, hi: number): number {
