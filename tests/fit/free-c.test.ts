@@ -55,6 +55,37 @@ describe('grid optima', () => {
     }
   });
 
+  it('the strided grid optimum is never better than the full one and is a local minimum of the full grid', () => {
+    const random = seededRandom(44);
+    const scan = cachedLevelScan(3, 'octahedral', 4.5);
+    const branch = scanBranches(scan)[0]!;
+    const table = enumerateAssignments(scan, branch, 2, 1);
+    let same = 0;
+    let total = 0;
+    for (let trial = 0; trial < 10; trial++) {
+      const o = Float64Array.of(uniform(random, 12000, 20000), uniform(random, 22000, 30000), uniform(random, 13000, 16000));
+      const w = new Float64Array(3).fill(1);
+      for (let a = 0; a < table.count; a++) {
+        const full = gridOptimum(scan, branch, table, a, o, w);
+        const coarse = gridOptimum(scan, branch, table, a, o, w, undefined, 3);
+        if (!full || !coarse) continue;
+        total++;
+        expect(coarse.ssr).toBeGreaterThanOrEqual(full.ssr - 1e-6 * Math.max(1, full.ssr));
+        if (coarse.point === full.point) same++;
+        // Its neighbours on the full grid (where the assignment holds) are no better.
+        const points = Array.from(table.points.subarray(table.pointStart[a]!, table.pointStart[a + 1]!));
+        const at = points.indexOf(coarse.point);
+        for (const q of [points[at - 1], points[at + 1]]) {
+          if (q === undefined) continue;
+          const one = slowOptimum(scan, branch.ground, table.levels.subarray(a * 3, a * 3 + 3), [q], o, w);
+          expect(one.ssr).toBeGreaterThanOrEqual(coarse.ssr - 1e-6 * Math.max(1, coarse.ssr));
+        }
+      }
+    }
+    // Profiles have one minimum nearly always: the coarse pass finds the full optimum in most cases.
+    expect(same / total).toBeGreaterThan(0.9);
+  });
+
   it('candidateOnScan finds the same grid optimum as the slow reference on the other scan', () => {
     const random = seededRandom(42);
     for (let trial = 0; trial < 5; trial++) {
