@@ -244,7 +244,7 @@ function noAssignmentError(settings: FitSettings, sorted: SortedObservations): F
   }
   return new FieldgapError(
     'unexplained',
-    `no assignment explains these ${n} bands for ${describeSystem(settings)}: more bands than its transitions can take (flag spin-forbidden bands :sf and charge-transfer bands :ct)`,
+    `no assignment explains these ${n} bands for ${describeSystem(settings)}: more bands than its transitions can take, even with up to half of them left unexplained (flag spin-forbidden bands :sf and charge-transfer bands :ct)`,
     'bands',
   );
 }

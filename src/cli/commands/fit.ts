@@ -15,7 +15,10 @@ Fits 10Dq, Racah B (and C) to observed d-d band maxima. The bands are assigned
 automatically to transitions from the ground level, trying both spin states
 where the ion has a choice; the report shows the assignment, the runners-up
 and why they lost, uncertainties, spin state, moment, LFSE and the predicted
-transitions below 50000 cm-1.
+transitions below 50000 cm-1. A band no transition takes (a spurious or split
+maximum) is left unexplained, or two close maxima are averaged as one band,
+with a warning; one band of d3/d8 octahedral or d2/d7 tetrahedral gives 10Dq
+alone.
 
 Options:
   --ion ION        the metal ion: Cr3+, Cr(III), Co2+, ... (gives d, and B0, C0 for beta)
