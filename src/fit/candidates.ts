@@ -10,7 +10,8 @@
  *   other as Jahn–Teller components of that one transition, averaged;
  * - one unflagged band and nothing else gives a "Dq only" candidate when the
  *   branch has a transition at exactly 10Dq (dqOnlyLevel): 10Dq from the
- *   band, B not determinable.
+ *   band, B not determinable; not from a reduction that left out or merged
+ *   unflagged bands (only flagged ones may be left for it).
  */
 import type { Branch } from './enumerate.js';
 import { enumerateAssignments, primaryClass, scanBranches, type AssignmentTable } from './enumerate.js';
@@ -181,7 +182,8 @@ export function candidateGroups(
       const m = variant.observations.length;
       if (m === 0) continue;
       if (m < p) {
-        const level = variant.nPrimary === 1 && m === 1 ? dqOnlyLevel(scan, branch) : undefined;
+        // One band fits exactly: leaving unflagged bands out to get there would explain nothing.
+        const level = variant.nPrimary === 1 && m === 1 && !reduction.touchesUnflagged ? dqOnlyLevel(scan, branch) : undefined;
         if (level !== undefined) dqOnly.push({ kind: 'dq-only', scan, branch, variant, level });
         continue;
       }

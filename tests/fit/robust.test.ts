@@ -68,6 +68,8 @@ describe('extra and split bands', () => {
   it('still fails when most bands are beyond the model', () => {
     // Six unflagged bands for three quartet transitions: leaving half of what was measured is not a fit.
     expect(() => fitBands({ ion: 'Cr3+', bands: [9000, 14000, 17400, 24600, 30000, 35000] })).toThrow(/no assignment explains/);
+    // d1 has one transition: leaving 20 000 out to average 40 000 and 60 000 as one band would explain nothing.
+    expect(() => fitBands({ d: 1, bands: [20000, 40000, 60000] })).toThrow(/no assignment explains/);
   });
 });
 
