@@ -46,6 +46,8 @@ interface Item {
   file: string;
   column: number | string | undefined;
   label: string;
+  /** The file's bytes when listing its columns already read them (read once, shared by its columns). */
+  content?: Uint8Array;
 }
 
 interface Outcome {
@@ -64,20 +66,25 @@ export const analyzeCommand: Command = {
     if (positionals.length === 0) throw new FieldgapError('invalid-argument', 'give at least one spectrum file or folder', 'FILES');
     const options = analysisOptions(values);
     const files = expandInputPaths(positionals, io.cwd);
-    const items = files.flatMap((file) => itemsOf(file, options, io, files.length > 1 || values.column === undefined));
+    const expand = files.length > 1 || values.column === undefined;
 
-    if (items.length === 1 && values.csv === undefined && json.jsonFile === undefined) {
-      const item = items[0]!;
-      const result = analyzeItem(item, options, io, true);
-      io.stdout(json.jsonFlag ? `${JSON.stringify(result.result, null, 2)}\n` : formatAnalysisReport(item.label, result.result!));
-      return 0;
+    const onlyFile = files.length === 1 ? itemsOf(files[0]!, options, io, expand) : undefined;
+    if (onlyFile !== undefined && values.csv === undefined && json.jsonFile === undefined) {
+      const items = onlyFile;
+      if (items.length === 1) {
+        const item = items[0]!;
+        const result = analyzeItem(item, options, io, true);
+        io.stdout(json.jsonFlag ? `${JSON.stringify(result.result, null, 2)}\n` : formatAnalysisReport(item.label, result.result!));
+        return 0;
+      }
     }
 
-    const progress = createProgress(items.length, io.isTty, io.stderr);
+    // File by file, so each file is read once and no more than one file's bytes are held at a time.
+    const progress = createProgress(files.length, io.isTty, io.stderr);
     const outcomes: Outcome[] = [];
-    for (const item of items) {
-      progress.tick(item.label);
-      outcomes.push(analyzeItem(item, options, io, false));
+    for (const file of files) {
+      progress.tick(file);
+      for (const item of onlyFile ?? itemsOf(file, options, io, expand)) outcomes.push(analyzeItem(item, options, io, false));
     }
     progress.done();
 
@@ -116,9 +123,10 @@ function analysisOptions(values: Parameters<typeof analysisOptionsFrom>[0] & { c
 function itemsOf(file: string, options: AnalyzeOptions, io: CliIo, expandColumns: boolean): Item[] {
   if (options.column !== undefined || !expandColumns) return [{ file, column: options.column, label: file }];
   try {
-    const spectra = listSpectra(readInputFile(file, io.cwd), { fileName: file, ...(options.xUnit && { xUnit: options.xUnit }) });
-    if (spectra.length <= 1) return [{ file, column: undefined, label: file }];
-    return spectra.map((s) => ({ file, column: s.column, label: `${file}#${s.column} (${s.name})` }));
+    const content = readInputFile(file, io.cwd);
+    const spectra = listSpectra(content, { fileName: file, ...(options.xUnit && { xUnit: options.xUnit }) });
+    if (spectra.length <= 1) return [{ file, column: undefined, label: file, content }];
+    return spectra.map((s) => ({ file, column: s.column, label: `${file}#${s.column} (${s.name})`, content }));
   } catch {
     return [{ file, column: undefined, label: file }];
   }
@@ -127,7 +135,7 @@ function itemsOf(file: string, options: AnalyzeOptions, io: CliIo, expandColumns
 /** Analyses one item; a single-item run lets its error through (exit 2), a batch keeps it in the row. */
 function analyzeItem(item: Item, options: AnalyzeOptions, io: CliIo, single: boolean): Outcome {
   try {
-    const content = readInputFile(item.file, io.cwd);
+    const content = item.content ?? readInputFile(item.file, io.cwd);
     const result = analyzeSpectrum(content, { ...options, fileName: item.file, ...(item.column !== undefined && { column: item.column }) });
     return { item, result };
   } catch (error) {
