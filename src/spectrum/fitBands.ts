@@ -52,10 +52,22 @@ export function bandFitBic(fit: RefineBandsResult, n: number): number {
 /** Iterations of a trial fit: a model that needs more is usually degenerate (two components on one band) and is simplified next. */
 const TRIAL_ITERATIONS = 40;
 
+/**
+ * χ² gain per step below which a trial fit stops. Trials are only compared
+ * with each other at a margin of BIC_MARGIN; a degenerate component (an
+ * edge traded against the baseline) crawls along its valley at a few tenths
+ * per step for dozens of steps, changing no decision. The chosen model is
+ * then refined to the strict default.
+ */
+const TRIAL_CHI_SQUARE_TOLERANCE = 0.1;
+
 function refine(
-  x: Float64Array, y: Float64Array, bands: GaussianParameters[], edge: GaussianParameters | null, o: FitBandsOptions, maxIterations = TRIAL_ITERATIONS,
+  x: Float64Array, y: Float64Array, bands: GaussianParameters[], edge: GaussianParameters | null, o: FitBandsOptions,
+  { maxIterations = TRIAL_ITERATIONS, chiSquareTolerance = TRIAL_CHI_SQUARE_TOLERANCE } = {},
 ): RefineBandsResult {
-  return xyRefineBands(x, y, { bands, edge, baselineGuess: o.baselineGuess, baselineOrder: o.baselineOrder, weights: o.weights ?? weightsFromNoise(o.noise), maxIterations });
+  return xyRefineBands(x, y, {
+    bands, edge, baselineGuess: o.baselineGuess, baselineOrder: o.baselineOrder, weights: o.weights ?? weightsFromNoise(o.noise), maxIterations, chiSquareTolerance,
+  });
 }
 
 const weightCache = new WeakMap<Float64Array, Float64Array>();
@@ -162,8 +174,8 @@ export function fitBands(x: Float64Array, y: Float64Array, o: FitBandsOptions): 
     fit = trial;
   }
   if (added > 0) fit = simplify(ctx, fit);
-  // The chosen model is refined to convergence (its trial may have stopped early).
-  return fit.converged ? fit : refine(x, y, fit.bands, fit.edge, o, 200);
+  // The chosen model is refined to convergence (its trial stopped at the coarser tolerance, or early).
+  return refine(x, y, fit.bands, fit.edge, o, { maxIterations: 200, chiSquareTolerance: 0.01 });
 }
 
 interface Context {

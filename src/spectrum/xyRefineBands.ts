@@ -40,6 +40,13 @@ export interface RefineBandsOptions {
   maxIterations?: number;
   /** Weight of each point, 1/σ_i (so the fit is maximum likelihood under uneven noise). @default all 1 */
   weights?: Float64Array;
+  /**
+   * With weights: converged when one step lowers χ² by less than this.
+   * @default 0.01 (far below anything the model selection or the
+   * uncertainties see); a trial fit that only has to be compared with
+   * another may stop coarser.
+   */
+  chiSquareTolerance?: number;
 }
 
 export interface RefineBandsResult {
@@ -62,7 +69,7 @@ export interface RefineBandsResult {
 
 /** Fits over (x, y): x ascending (masked points removed), y the signal. */
 export function xyRefineBands(x: Float64Array, y: Float64Array, options: RefineBandsOptions): RefineBandsResult {
-  const { baselineOrder = 1, fwhmLimits = [250, 10000], positionFreedom = 1500, maxIterations = 100 } = options;
+  const { baselineOrder = 1, fwhmLimits = [250, 10000], positionFreedom = 1500, maxIterations = 100, chiSquareTolerance = 0.01 } = options;
   const n = x.length;
   const xMin = x[0] as number;
   const xMax = x[n - 1] as number;
@@ -98,8 +105,7 @@ export function xyRefineBands(x: Float64Array, y: Float64Array, options: RefineB
       normal: (v, a, g) => xyBandModelNormal(x, y, weights, layout, v, a, g, work),
       cost: (v) => xyBandModelCost(x, y, weights, layout, v, work.residuals),
     },
-    // With weights 1/σ the cost is χ²: a step gaining less than 0.01 of it changes nothing the model selection or the uncertainties see.
-    { initial, lower, upper, maxIterations, tolerance: 1e-8, absoluteTolerance: weights === null ? 0 : 0.01 },
+    { initial, lower, upper, maxIterations, tolerance: 1e-8, absoluteTolerance: weights === null ? 0 : chiSquareTolerance },
   );
   const v = fit.parameters;
   const bands = options.bands.map((_, j) => ({ position: v[3 * j] as number, height: v[3 * j + 1] as number, fwhm: v[3 * j + 2] as number }));
