@@ -9,7 +9,7 @@
  * whitespace.
  */
 import { isMissingCell, isNumberCell } from './cells.js';
-import { type Separator, splitLineQuick } from './splitLines.js';
+import { linesToQuickCells, type Separator, splitLineQuick } from './splitLines.js';
 
 const SEPARATORS: readonly Separator[] = ['\t', ';', ',', 'whitespace'];
 
@@ -22,6 +22,8 @@ export interface NumericRun {
   last: number;
   /** Number of numeric lines in the run. */
   count: number;
+  /** Every line of the text split with this separator (splitLineQuick), reused by linesToCells. */
+  cells: string[][];
 }
 
 /** Lines skipped anywhere: blank, or starting with '#' or '//'. */
@@ -43,17 +45,18 @@ export function numericFieldCount(cells: string[], allowComma: boolean): number 
 /** The longest numeric run with one separator, or null when there is none. */
 export function findRunWithSeparator(lines: string[], separator: Separator): NumericRun | null {
   const allowComma = separator !== ',';
+  const cells = linesToQuickCells(lines, separator);
   let best: NumericRun | null = null;
   let current: NumericRun | null = null;
   for (let i = 0; i < lines.length; i++) {
     const line = lines[i] as string;
     if (isSkippableLine(line)) continue;
-    const fields = numericFieldCount(splitLineQuick(line, separator), allowComma);
+    const fields = numericFieldCount(cells[i] as string[], allowComma);
     if (fields >= 2 && current !== null && current.fields === fields) {
       current.last = i;
       current.count++;
     } else if (fields >= 2) {
-      current = { separator, fields, first: i, last: i, count: 1 };
+      current = { separator, fields, first: i, last: i, count: 1, cells };
     } else {
       current = null;
     }

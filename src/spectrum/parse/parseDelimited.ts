@@ -41,7 +41,7 @@ export function parseDelimited(text: string, options: DelimitedOptions): Delimit
       fileName,
     );
   }
-  const cells = linesToCells(lines, run.separator);
+  const cells = linesToCells(lines, run.separator, run.cells);
   const block = readDataBlock(cells, lines, run, fileName);
   const preamble = readPreamble(cells, lines, block.first, block.fields);
   const warnings: string[] = [];

@@ -9,9 +9,10 @@ export function textToLines(text: string): string[] {
 }
 
 /**
- * A quick split of one line without quote handling, used only to choose the
- * separator; trailing empty fields (a separator at the end of the line) are
- * dropped and cells are trimmed.
+ * A quick split of one line without quote handling, used to choose the
+ * separator and, for text with no quote character, as the final split;
+ * trailing empty fields (a separator at the end of the line) are dropped and
+ * cells are trimmed.
  */
 export function splitLineQuick(line: string, separator: Separator): string[] {
   const cells = separator === 'whitespace' ? line.trim().split(/\s+/) : line.split(separator).map((c) => c.trim());
@@ -19,14 +20,23 @@ export function splitLineQuick(line: string, separator: Separator): string[] {
   return cells;
 }
 
+/** splitLineQuick of every line. */
+export function linesToQuickCells(lines: string[], separator: Separator): string[][] {
+  return lines.map((l) => splitLineQuick(l, separator));
+}
+
 /**
  * Splits every line into trimmed cells with papaparse (quotes handled, so a
  * header "Wavelength, nm" in quotes stays one cell). Whitespace-separated
  * text is split on runs of blanks, which papaparse has no separator for.
  * The result has one entry per line, trailing empty cells dropped.
+ *
+ * Without a quote character anywhere, papaparse splits exactly at each
+ * separator, so the quick split (`quick`, when the caller already made it)
+ * is the answer and papaparse is skipped.
  */
-export function linesToCells(lines: string[], separator: Separator): string[][] {
-  if (separator === 'whitespace') return lines.map((l) => splitLineQuick(l, 'whitespace'));
+export function linesToCells(lines: string[], separator: Separator, quick?: string[][]): string[][] {
+  if (separator === 'whitespace' || !lines.some((l) => l.includes('"'))) return quick ?? linesToQuickCells(lines, separator);
   const parsed = Papa.parse<string[]>(lines.join('\n'), { delimiter: separator, newline: '\n', skipEmptyLines: false });
   // A quoted newline would shift rows against lines: parse line by line then.
   const rows =
