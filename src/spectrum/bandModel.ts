@@ -64,7 +64,8 @@ export function xBandModelValues(x: Float64Array, layout: BandModelLayout, p: Fl
   if (layout.edge) {
     const a = p[e0] as number;
     const d = p[e0 + 1] as number;
-    const k = FOUR_LN2 / ((p[e0 + 2] as number) ** 2);
+    const wd = p[e0 + 2] as number;
+    const k = FOUR_LN2 / (wd * wd);
     for (let i = 0; i < n; i++) {
       const u = (x[i] as number) - layout.xEnd;
       out[i] = (out[i] as number) + a * Math.exp(-k * (u * u - 2 * u * d));
@@ -127,12 +128,46 @@ export function xyBandModelNormal(
   const n = x.length;
   const q = bandModelParameterCount(layout);
   const { jacobian: jac, residuals: r, from, to } = work;
-  xBandModelValues(x, layout, p, r);
-  let cost = 0;
+  // Model values are summed in xBandModelValues' order (baseline, edge, bands)
+  // from the same exponentials the Jacobian needs, so the cost is bit for bit
+  // xyBandModelCost's while each exponential is computed once.
+  const e0 = 3 * layout.bands;
+  const b0 = e0 + (layout.edge ? 3 : 0);
+  const { scale, polynomialLength } = layout;
+  for (let m = 0; m < polynomialLength; m++) {
+    from[b0 + m] = 0;
+    to[b0 + m] = n;
+  }
   for (let i = 0; i < n; i++) {
-    const v = ((y[i] as number) - (r[i] as number)) * (weights === null ? 1 : (weights[i] as number));
+    const t = ((x[i] as number) - scale.centre) / scale.halfWidth;
+    let v = 0;
+    for (let k = polynomialLength - 1; k >= 0; k--) v = v * t + (p[b0 + k] as number);
     r[i] = v;
-    cost += v * v;
+    let power = 1;
+    for (let m = 0; m < polynomialLength; m++) {
+      jac[(b0 + m) * n + i] = power;
+      power *= t;
+    }
+  }
+  if (layout.edge) {
+    const amp = p[e0] as number;
+    const d = p[e0 + 1] as number;
+    const wd = p[e0 + 2] as number;
+    const k = FOUR_LN2 / (wd * wd);
+    for (let m = 0; m < 3; m++) {
+      from[e0 + m] = 0;
+      to[e0 + m] = n;
+    }
+    const oe = e0 * n;
+    for (let i = 0; i < n; i++) {
+      const u = (x[i] as number) - layout.xEnd;
+      const s = u * u - 2 * u * d;
+      const e = Math.exp(-k * s);
+      r[i] = (r[i] as number) + amp * e;
+      jac[oe + i] = e;
+      jac[oe + n + i] = amp * e * 2 * k * u;
+      jac[oe + 2 * n + i] = (amp * e * 2 * k * s) / wd;
+    }
   }
   for (let j = 0; j < layout.bands; j++) {
     const c = p[3 * j] as number;
@@ -149,45 +184,18 @@ export function xyBandModelNormal(
     for (let i = lo; i < hi; i++) {
       const dx = (x[i] as number) - c;
       const e = Math.exp(-k * dx * dx);
+      r[i] = (r[i] as number) + h * e;
       const he2k = 2 * h * e * k;
       jac[oc + i] = he2k * dx;
       jac[oc + n + i] = e;
       jac[oc + 2 * n + i] = (he2k * dx * dx) / w;
     }
   }
-  const e0 = 3 * layout.bands;
-  if (layout.edge) {
-    const amp = p[e0] as number;
-    const d = p[e0 + 1] as number;
-    const wd = p[e0 + 2] as number;
-    const k = FOUR_LN2 / (wd * wd);
-    for (let m = 0; m < 3; m++) {
-      from[e0 + m] = 0;
-      to[e0 + m] = n;
-    }
-    const oe = e0 * n;
-    for (let i = 0; i < n; i++) {
-      const u = (x[i] as number) - layout.xEnd;
-      const s = u * u - 2 * u * d;
-      const e = Math.exp(-k * s);
-      jac[oe + i] = e;
-      jac[oe + n + i] = amp * e * 2 * k * u;
-      jac[oe + 2 * n + i] = (amp * e * 2 * k * s) / wd;
-    }
-  }
-  const b0 = e0 + (layout.edge ? 3 : 0);
-  const { scale } = layout;
-  for (let m = 0; m < layout.polynomialLength; m++) {
-    from[b0 + m] = 0;
-    to[b0 + m] = n;
-  }
+  let cost = 0;
   for (let i = 0; i < n; i++) {
-    const t = ((x[i] as number) - scale.centre) / scale.halfWidth;
-    let power = 1;
-    for (let m = 0; m < layout.polynomialLength; m++) {
-      jac[(b0 + m) * n + i] = power;
-      power *= t;
-    }
+    const v = ((y[i] as number) - (r[i] as number)) * (weights === null ? 1 : (weights[i] as number));
+    r[i] = v;
+    cost += v * v;
   }
   if (weights !== null) {
     for (let u = 0; u < q; u++) {
