@@ -13,8 +13,10 @@ export interface DataBlock {
   last: number;
   fields: number;
   decimalMark: DecimalMark;
-  /** rows[r][f]: the number in field f of data row r, NaN when missing. */
-  rows: Float64Array[];
+  /** columns[f][r]: the number in field f of data row r, NaN when missing. */
+  columns: Float64Array[];
+  /** Number of data rows. */
+  rowCount: number;
   /** 1-based file line of each row. */
   lineNumbers: number[];
   /** Comment lines (#, //) inside the block, skipped. */
@@ -68,28 +70,27 @@ export function readDataBlock(cells: string[][], lines: string[], run: NumericRu
     last = i;
   }
   const decimalMark = blockDecimalMark(cells, first, last, allowComma);
-  const rows: Float64Array[] = [];
   const lineNumbers: number[] = [];
   let skippedComments = 0;
   for (let i = first; i <= last; i++) {
     const line = lines[i] as string;
-    if (isSkippableLine(line)) {
-      if (line.trim() !== '') skippedComments++;
-      continue;
-    }
-    const row = new Float64Array(fields).fill(Number.NaN);
+    if (!isSkippableLine(line)) lineNumbers.push(i + 1);
+    else if (line.trim() !== '') skippedComments++;
+  }
+  const rowCount = lineNumbers.length;
+  const columns = Array.from({ length: fields }, () => new Float64Array(rowCount).fill(Number.NaN));
+  for (let r = 0; r < rowCount; r++) {
+    const i = (lineNumbers[r] as number) - 1;
     const rowCells = cells[i] as string[];
     for (let f = 0; f < rowCells.length; f++) {
       const cell = rowCells[f] as string;
-      if (isMissingCell(cell)) continue;
+      // Numbers first: nearly every cell is one, and a cell that is none must be a missing value.
       const value = cellToNumber(cell, decimalMark);
-      if (Number.isNaN(value)) throw badCell(cell, i, f, decimalMark, fileName);
-      row[f] = value;
+      if (!Number.isNaN(value)) (columns[f] as Float64Array)[r] = value;
+      else if (!isMissingCell(cell)) throw badCell(cell, i, f, decimalMark, fileName);
     }
-    rows.push(row);
-    lineNumbers.push(i + 1);
   }
-  return { first, last, fields, decimalMark, rows, lineNumbers, skippedComments };
+  return { first, last, fields, decimalMark, columns, rowCount, lineNumbers, skippedComments };
 }
 
 /** ',' when the block's cells use a decimal comma (possible only when ',' is not the separator). */

@@ -97,9 +97,11 @@ function columnToXY(block: DataBlock, column: number): { x: Float64Array; y: Flo
   const xs: number[] = [];
   const ys: number[] = [];
   let skipped = 0;
-  for (const row of block.rows) {
-    const x = row[0] as number;
-    const y = row[column] as number;
+  const xs0 = block.columns[0] as Float64Array;
+  const ys0 = block.columns[column] as Float64Array;
+  for (let r = 0; r < block.rowCount; r++) {
+    const x = xs0[r] as number;
+    const y = ys0[r] as number;
     if (Number.isNaN(x) || Number.isNaN(y)) skipped++;
     else {
       xs.push(x);
@@ -113,9 +115,10 @@ function columnToXY(block: DataBlock, column: number): { x: Float64Array; y: Flo
 function checkMonotonic(x: Float64Array, block: DataBlock, column: number, fileName: string): void {
   const direction = Math.sign((x[1] as number) - (x[0] as number));
   let k = 0;
-  for (let r = 0; r < block.rows.length; r++) {
-    const row = block.rows[r] as Float64Array;
-    if (Number.isNaN(row[0] as number) || Number.isNaN(row[column] as number)) continue;
+  const xs0 = block.columns[0] as Float64Array;
+  const ys0 = block.columns[column] as Float64Array;
+  for (let r = 0; r < block.rowCount; r++) {
+    if (Number.isNaN(xs0[r] as number) || Number.isNaN(ys0[r] as number)) continue;
     if (k > 0 && (direction === 0 || Math.sign((x[k] as number) - (x[k - 1] as number)) !== direction)) {
       throw new FieldgapError(
         'parse-error',
@@ -145,8 +148,7 @@ function resolveXUnit(
   }
   let min = Number.POSITIVE_INFINITY;
   let max = Number.NEGATIVE_INFINITY;
-  for (const row of block.rows) {
-    const x = row[0] as number;
+  for (const x of block.columns[0] as Float64Array) {
     if (x < min) min = x;
     if (x > max) max = x;
   }
@@ -180,7 +182,7 @@ function resolveYUnit(
     }
   }
   let max = 0;
-  for (const row of block.rows) if ((row[column] as number) > max) max = row[column] as number;
+  for (const v of block.columns[column] as Float64Array) if (v > max) max = v;
   const hint = max > 10 ? ` (values reach ${max}: if this is %T or ε, give the y unit)` : '';
   warnings.push(`${fileName}: y unit of column ${column} not stated; absorbance assumed${hint}`);
   return 'absorbance';
@@ -189,6 +191,6 @@ function resolveYUnit(
 /** A column headed "T" whose values exceed 1.5 is in percent. */
 function refineTransmittance(unit: YUnit, block: DataBlock, column: number): YUnit {
   if (unit !== 'transmittance') return unit;
-  for (const row of block.rows) if ((row[column] as number) > 1.5) return 'transmittance-percent';
+  for (const v of block.columns[column] as Float64Array) if (v > 1.5) return 'transmittance-percent';
   return unit;
 }
