@@ -21,7 +21,7 @@
  */
 import { gaussianValue } from './gaussian.js';
 import { type BandCandidate, xyFindBandCandidates } from './xyFindBandCandidates.js';
-import { xPolynomialValues } from './xyPolynomial.js';
+import { xPolynomialScale, xPolynomialValues, xyPolynomialFit } from './xyPolynomial.js';
 import { type GaussianParameters, type RefineBandsResult, xyRefineBands } from './xyRefineBands.js';
 
 export interface FitBandsOptions {
@@ -39,6 +39,8 @@ export interface FitBandsOptions {
   weights?: Float64Array;
   /** 'auto': the edge is tried on and off; true: always (as given); false: never. @default 'auto' */
   edgeMode?: 'auto' | boolean;
+  /** Polynomial of baselineGuess (see RefineBandsOptions); fitBands fits it once for all its trial models. */
+  baselineStart?: Float64Array;
 }
 
 /** BIC difference a more complex model must win by. */
@@ -66,7 +68,8 @@ function refine(
   { maxIterations = TRIAL_ITERATIONS, chiSquareTolerance = TRIAL_CHI_SQUARE_TOLERANCE } = {},
 ): RefineBandsResult {
   return xyRefineBands(x, y, {
-    bands, edge, baselineGuess: o.baselineGuess, baselineOrder: o.baselineOrder, weights: o.weights ?? weightsFromNoise(o.noise), maxIterations, chiSquareTolerance,
+    bands, edge, baselineGuess: o.baselineGuess, baselineOrder: o.baselineOrder, ...(o.baselineStart ? { baselineStart: o.baselineStart } : {}),
+    weights: o.weights ?? weightsFromNoise(o.noise), maxIterations, chiSquareTolerance,
   });
 }
 
@@ -142,8 +145,9 @@ function residual(x: Float64Array, y: Float64Array, fit: RefineBandsResult): Flo
  * Fits over (x, y): uniform, ascending x without gaps in the fitted part
  * (masked points removed). Returns the last accepted fit.
  */
-export function fitBands(x: Float64Array, y: Float64Array, o: FitBandsOptions): RefineBandsResult {
+export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOptions): RefineBandsResult {
   const n = x.length;
+  const o: FitBandsOptions = { ...options, baselineStart: options.baselineStart ?? xyPolynomialFit(x, options.baselineGuess, options.baselineOrder, xPolynomialScale(x)) };
   const sigma = xMedian(o.noise);
   const ctx: Context = { x, y, o, sigma, score: (f) => bandFitBic(f, n), mode: o.edgeMode ?? 'auto' };
   const xMax = x[n - 1] as number;

@@ -32,6 +32,12 @@ export interface RefineBandsOptions {
   baselineGuess: Float64Array;
   /** Polynomial order of the baseline. @default 1 */
   baselineOrder?: number;
+  /**
+   * The baseline's starting coefficients when the caller already has them
+   * (xyPolynomialFit of baselineGuess with this order, in xPolynomialScale(x)),
+   * so many refinements of one spectrum fit the guess once.
+   */
+  baselineStart?: Float64Array;
   /** Narrowest and broadest FWHM a band may take, cm-1. @default [250, 10000] */
   fwhmLimits?: [number, number];
   /** How far a band may move from its start, cm-1: max(its starting FWHM, this). @default 1500 */
@@ -97,7 +103,7 @@ export function xyRefineBands(x: Float64Array, y: Float64Array, options: RefineB
     upper.set([10 * yMax, EDGE_LIMITS.distance[1], EDGE_LIMITS.fwhm[1]], e0);
   }
   const b0 = e0 + (layout.edge ? 3 : 0);
-  initial.set(xyPolynomialFit(x, options.baselineGuess, baselineOrder, scale), b0);
+  initial.set(options.baselineStart ?? xyPolynomialFit(x, options.baselineGuess, baselineOrder, scale), b0);
   const work = bandModelWork(n, p);
   const weights = options.weights ?? null;
   const fit = levenbergMarquardtNormal(
