@@ -1,23 +1,37 @@
 /**
- * `npm run load`: throughput and p99 latency of POST /api/v1/fit and
- * POST /api/v1/analyze (a 2,000-point CSV), measured with autocannon against
- * a server this script starts itself on 127.0.0.1 (a free port), with the
- * real worker pool; GET /health and GET /levels first, as baselines of the
- * service's own cost. Bounded: LOAD_SECONDS (default 10) per endpoint after a
- * 2 s warm-up, then the server stops and the script exits.
+ * `npm run load`: throughput and latency of POST /api/v1/fit and POST
+ * /api/v1/analyze (a 2,000-point CSV) against the service as a user runs it
+ * (`bin/fieldgap serve` on 127.0.0.1, a free port, its own process, so the
+ * load generator does not share the server's event loop), with GET /health
+ * and GET /levels first as baselines of the service's own cost. Bounded:
+ * LOAD_SECONDS (default 10) per measurement after a 2 s warm-up, then the
+ * server is stopped and the script exits.
  *
- * Targets (benchmark, not a test) on a 2-core machine at 16 connections:
- * fit ≥ 500 req/s, analyze ≥ 100 req/s, p99 < 100 ms.
+ * Two measurements per endpoint, at most 16 connections:
+ * - flat out (autocannon, 16 connections each sending its next request as
+ *   soon as the answer came): the most the service does, req/s;
+ * - paced at the target rate (requests sent at even intervals over up to 16
+ *   connections, latency counted from each request's scheduled time, so a
+ *   slow answer cannot hide the requests queued behind it): p50 and p99.
+ *   autocannon's own rate option sends each second's requests in one burst
+ *   at the start of the second, which measures burst queueing, not latency
+ *   at a rate.
+ * Flat out, every request waits behind the other 15 (mean latency =
+ * 16 / throughput by Little's law), so p99 there mostly shows throughput.
+ *
+ * Targets (benchmark, not a test) on a 2-core machine: fit ≥ 500 req/s,
+ * analyze ≥ 100 req/s, p99 < 100 ms at 16 connections at those rates.
  *
  * The spectrum and the band list are invented for load only (two Gaussian
  * bands on a sloping baseline, with noise); they check nothing.
  */
+import { spawn } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
+import { Agent, request } from 'node:http';
 import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { pino } from 'pino';
-import { startServer } from '../server/main.js';
+import { fileURLToPath } from 'node:url';
 import { formatDelimited, synthesizeSpectrum } from '../src/spectrum/index.js';
 
 interface AutocannonResult {
@@ -57,52 +71,162 @@ function inventedCsv(points = 2000): string {
   return formatDelimited({ x: s.wavelength, ys: [s.absorbance], header: ['wavelength_nm', 'absorbance'] });
 }
 
-async function measure(name: string, options: Omit<AutocannonOptions, 'connections' | 'duration' | 'timeout'>) {
-  // One request first, so a broken endpoint says why instead of producing a fast stream of errors.
-  const probe = await fetch(options.url, {
-    method: options.method,
-    ...(options.headers ? { headers: options.headers } : {}),
-    ...(options.body !== undefined ? { body: options.body } : {}),
-  });
-  if (!probe.ok) {
-    process.stderr.write(`load: ${name} answered ${probe.status}: ${(await probe.text()).slice(0, 300)}\n`);
-    return;
-  }
+interface Endpoint {
+  name: string;
+  url: string;
+  method: 'POST' | 'GET';
+  headers?: Record<string, string>;
+  body?: string;
+}
+
+function line(name: string, text: string): void {
+  process.stdout.write(`${name.padEnd(26)} ${text}\n`);
+}
+
+/** One request first, so a broken endpoint says why instead of producing a fast stream of errors. */
+async function probe(e: Endpoint): Promise<boolean> {
+  const answer = await fetch(e.url, { method: e.method, ...(e.headers ? { headers: e.headers } : {}), ...(e.body !== undefined ? { body: e.body } : {}) });
+  if (answer.ok) return true;
+  process.stderr.write(`load: ${e.name} answered ${answer.status}: ${(await answer.text()).slice(0, 300)}\n`);
+  return false;
+}
+
+/** Flat out with autocannon (after a 2 s warm-up); returns requests per second. */
+async function flatOut(e: Endpoint): Promise<number> {
+  const options = { url: e.url, method: e.method, ...(e.headers ? { headers: e.headers } : {}), ...(e.body !== undefined ? { body: e.body } : {}) };
   await autocannon({ ...options, connections: CONNECTIONS, duration: 2, timeout: 10 });
   const result = await autocannon({ ...options, connections: CONNECTIONS, duration: SECONDS, timeout: 10 });
   const failed = result.non2xx + result.errors + result.timeouts;
-  process.stdout.write(
-    `${name.padEnd(26)} ${result.requests.average.toFixed(0).padStart(6)} req/s   p50 ${String(result.latency.p50).padStart(4)} ms   p99 ${String(result.latency.p99).padStart(4)} ms   ${result.requests.total} requests${failed > 0 ? `, ${failed} failed` : ''}\n`,
-  );
+  line(e.name, `flat out  ${result.requests.average.toFixed(0).padStart(6)} req/s   p50 ${String(result.latency.p50).padStart(4)} ms   p99 ${String(result.latency.p99).padStart(4)} ms   ${result.requests.total} requests${failed > 0 ? `, ${failed} failed` : ''}`);
+  return result.requests.average;
+}
+
+function quantile(sorted: number[], q: number): number {
+  return sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))] ?? Number.NaN;
+}
+
+/**
+ * `rate` requests per second at even intervals for SECONDS, over at most 16
+ * keep-alive connections; each latency runs from the request's scheduled
+ * send time to the end of its answer. Returns p99 in ms.
+ */
+async function paced(e: Endpoint, rate: number): Promise<number> {
+  const target = new URL(e.url);
+  const agent = new Agent({ keepAlive: true, maxSockets: CONNECTIONS });
+  const body = e.body === undefined ? undefined : Buffer.from(e.body);
+  const send = () =>
+    new Promise<number>((resolveSend, rejectSend) => {
+      const headers = { ...(e.headers ?? {}), ...(body ? { 'content-length': String(body.length) } : {}) };
+      const req = request({ host: target.hostname, port: target.port, path: target.pathname + target.search, method: e.method, agent, headers }, (res) => {
+        res.resume();
+        res.on('end', () => resolveSend(res.statusCode ?? 0));
+      });
+      req.setTimeout(10_000, () => req.destroy(new Error('timed out after 10 s')));
+      req.on('error', rejectSend);
+      req.end(body);
+    });
+  const latencies: number[] = [];
+  const pending: Array<Promise<void>> = [];
+  let failed = 0;
+  const start = performance.now();
+  const total = Math.round(rate * SECONDS);
+  for (let k = 0; k < total; k++) {
+    const due = start + (k * 1000) / rate;
+    const wait = due - performance.now();
+    if (wait > 0) await new Promise((r) => setTimeout(r, wait));
+    pending.push(
+      send().then(
+        (status) => {
+          if (status < 200 || status >= 300) failed++;
+          latencies.push(performance.now() - due);
+          if (process.env['LOAD_DEBUG'] && performance.now() - due > 100) process.stderr.write(`slow: sent at ${((due - start) / 1000).toFixed(3)} s, ${(performance.now() - due).toFixed(0)} ms\n`);
+        },
+        () => {
+          failed++;
+        },
+      ),
+    );
+  }
+  await Promise.all(pending);
+  const seconds = (performance.now() - start) / 1000;
+  agent.destroy();
+  latencies.sort((p, q) => p - q);
+  const p99 = quantile(latencies, 0.99);
+  line(e.name, `at ${String(rate).padStart(4)}/s ${(latencies.length / seconds).toFixed(0).padStart(6)} req/s   p50 ${quantile(latencies, 0.5).toFixed(0).padStart(4)} ms   p99 ${p99.toFixed(0).padStart(4)} ms   ${latencies.length} requests${failed > 0 ? `, ${failed} failed` : ''}`);
+  return failed > 0 ? Number.POSITIVE_INFINITY : p99;
+}
+
+interface ServerProcess {
+  url: string;
+  stop(): Promise<void>;
+}
+
+/** `bin/fieldgap serve` on 127.0.0.1 and a free port, logging warnings only; resolves once it listens. */
+function startServerProcess(dataDir: string): Promise<ServerProcess> {
+  const bin = fileURLToPath(new URL('../bin/fieldgap', import.meta.url));
+  const child = spawn(process.execPath, [bin, 'serve', '--port', '0', '--host', '127.0.0.1', '--data', dataDir], {
+    env: { ...process.env, FIELDGAP_LOG_LEVEL: 'warn' },
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  const exited = new Promise<void>((resolveExit) => child.once('exit', () => resolveExit()));
+  return new Promise((resolveStart, rejectStart) => {
+    let out = '';
+    child.stdout.setEncoding('utf8');
+    child.stdout.on('data', (chunk: string) => {
+      out += chunk;
+      const url = /serving on (http:\/\/\S+\/)/.exec(out)?.[1];
+      if (url !== undefined) {
+        resolveStart({
+          url,
+          stop: async () => {
+            child.kill('SIGTERM');
+            await exited;
+          },
+        });
+      }
+    });
+    child.once('exit', (code) => rejectStart(new Error(`the server stopped before it listened (exit code ${code}): ${out.trim()}`)));
+  });
 }
 
 async function main(): Promise<void> {
   const dataDir = mkdtempSync(join(tmpdir(), 'fieldgap-load-'));
-  const running = await startServer({ port: 0, host: '127.0.0.1', logger: pino({ level: 'error' }, pino.destination(2)), staticDir: false, dataDir });
   const watchdog = setTimeout(() => {
     process.stderr.write('load: took too long, stopping\n');
     process.exit(1);
-  }, ((SECONDS + 2) * 4 + 30) * 1000);
+  }, ((SECONDS + 2) * 8 + 60) * 1000);
   watchdog.unref();
+  let server: ServerProcess | undefined;
   try {
-    process.stdout.write(`load: ${running.url}, ${CONNECTIONS} connections, ${SECONDS} s per endpoint, pool: ${running.app.pool.mode}\n`);
-    // Baselines: the service's own cost (HTTP, validation, the pool) without a heavy computation.
-    await measure('GET /api/v1/health', { url: `${running.url}api/v1/health`, method: 'GET' });
-    await measure('GET /api/v1/levels (pool)', { url: `${running.url}api/v1/levels?d=3&dq=1740&b=725&c=2900`, method: 'GET' });
-    await measure('POST /api/v1/fit', {
-      url: `${running.url}api/v1/fit`,
-      method: 'POST',
-      headers: { 'content-type': 'application/json' },
+    server = await startServerProcess(dataDir);
+    const api = `${server.url}api/v1`;
+    process.stdout.write(`load: ${server.url} (bin/fieldgap serve, its own process), at most ${CONNECTIONS} connections, ${SECONDS} s per measurement\n`);
+    const health: Endpoint = { name: 'GET /api/v1/health', url: `${api}/health`, method: 'GET' };
+    const levels: Endpoint = { name: 'GET /api/v1/levels (pool)', url: `${api}/levels?d=3&dq=1740&b=725&c=2900`, method: 'GET' };
+    const fit: Endpoint = {
+      name: 'POST /api/v1/fit', url: `${api}/fit`, method: 'POST', headers: { 'content-type': 'application/json' },
       body: JSON.stringify({ ion: 'Cr3+', geometry: 'octahedral', bands: [17_400, 24_500] }),
-    });
-    await measure('POST /api/v1/analyze (2k)', {
-      url: `${running.url}api/v1/analyze?ion=Cr3%2B&geometry=octahedral&conc=0.01`,
-      method: 'POST',
-      headers: { 'content-type': 'text/csv' },
-      body: inventedCsv(),
-    });
+    };
+    const analyze: Endpoint = {
+      name: 'POST /api/v1/analyze (2k)', url: `${api}/analyze?ion=Cr3%2B&geometry=octahedral&conc=0.01`, method: 'POST',
+      headers: { 'content-type': 'text/csv' }, body: inventedCsv(),
+    };
+    for (const e of [health, levels, fit, analyze]) if (!(await probe(e))) process.exitCode = 1;
+    if (process.exitCode === 1) return;
+    // Baselines: the service's own cost (HTTP, validation, the pool) without a heavy computation.
+    await flatOut(health);
+    await flatOut(levels);
+    const verdicts: string[] = [];
+    for (const [e, rate] of [[fit, 500], [analyze, 100]] as const) {
+      const most = await flatOut(e);
+      // Let the server finish what the flat-out run left queued, so it is not counted against the paced run.
+      await new Promise((r) => setTimeout(r, 2000));
+      const p99 = await paced(e, rate);
+      verdicts.push(`${e.name.trim()}: ${most >= rate ? 'met' : 'NOT met'} (${most.toFixed(0)} ≥ ${rate} req/s), p99 ${p99 < 100 ? 'met' : 'NOT met'} (${p99.toFixed(0)} < 100 ms at ${rate} req/s)`);
+    }
+    process.stdout.write(`targets: ${verdicts.join('; ')}\n`);
   } finally {
-    await running.close();
+    await server?.stop();
     rmSync(dataDir, { recursive: true, force: true });
   }
 }
