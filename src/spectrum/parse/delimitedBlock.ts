@@ -15,9 +15,7 @@ export interface DataBlock {
   decimalMark: DecimalMark;
   /** columns[f][r]: the number in field f of data row r, NaN when missing. */
   columns: Float64Array[];
-  /** Number of data rows. */
-  rowCount: number;
-  /** 1-based file line of each row. */
+  /** 1-based file line of each row (its length is the number of rows). */
   lineNumbers: number[];
   /** Comment lines (#, //) inside the block, skipped. */
   skippedComments: number;
@@ -90,7 +88,7 @@ export function readDataBlock(cells: string[][], lines: string[], run: NumericRu
       else if (!isMissingCell(cell)) throw badCell(cell, i, f, decimalMark, fileName);
     }
   }
-  return { first, last, fields, decimalMark, columns, rowCount, lineNumbers, skippedComments };
+  return { first, last, fields, decimalMark, columns, lineNumbers, skippedComments };
 }
 
 /** ',' when the block's cells use a decimal comma (possible only when ',' is not the separator). */

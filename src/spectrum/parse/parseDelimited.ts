@@ -99,7 +99,7 @@ function columnToXY(block: DataBlock, column: number): { x: Float64Array; y: Flo
   let skipped = 0;
   const xs0 = block.columns[0] as Float64Array;
   const ys0 = block.columns[column] as Float64Array;
-  for (let r = 0; r < block.rowCount; r++) {
+  for (let r = 0; r < xs0.length; r++) {
     const x = xs0[r] as number;
     const y = ys0[r] as number;
     if (Number.isNaN(x) || Number.isNaN(y)) skipped++;
@@ -117,7 +117,7 @@ function checkMonotonic(x: Float64Array, block: DataBlock, column: number, fileN
   let k = 0;
   const xs0 = block.columns[0] as Float64Array;
   const ys0 = block.columns[column] as Float64Array;
-  for (let r = 0; r < block.rowCount; r++) {
+  for (let r = 0; r < xs0.length; r++) {
     if (Number.isNaN(xs0[r] as number) || Number.isNaN(ys0[r] as number)) continue;
     if (k > 0 && (direction === 0 || Math.sign((x[k] as number) - (x[k - 1] as number)) !== direction)) {
       throw new FieldgapError(
