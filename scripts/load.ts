@@ -225,6 +225,9 @@ async function main(): Promise<void> {
       verdicts.push(`${e.name.trim()}: ${most >= rate ? 'met' : 'NOT met'} (${most.toFixed(0)} ≥ ${rate} req/s), p99 ${p99 < 100 ? 'met' : 'NOT met'} (${p99.toFixed(0)} < 100 ms at ${rate} req/s)`);
     }
     process.stdout.write(`targets: ${verdicts.join('; ')}\n`);
+    // Each stopped worker costs a cold restart that shows as a burst of slow answers.
+    const { pool } = (await (await fetch(health.url)).json()) as { pool: { workersStopped: number } };
+    process.stdout.write(`workers stopped and replaced during the run: ${pool.workersStopped}\n`);
   } finally {
     await server?.stop();
     rmSync(dataDir, { recursive: true, force: true });

@@ -3,7 +3,7 @@
  * listening (server/main.ts listens; tests run supertest against the app).
  *
  * Routes, all JSON, energies in cm-1:
- *   GET  /api/v1/health       { status: "ok", version, uptime }
+ *   GET  /api/v1/health       { status: "ok", version, uptime, pool }
  *   GET  /api/v1/openapi.json the OpenAPI 3.1 document
  *   GET  /api/v1/levels       levels of d^n for Dq, B, C
  *   GET  /api/v1/diagram      a Tanabe–Sugano diagram
@@ -102,7 +102,7 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
 
   const api = express.Router();
   api.get('/health', (_req, res) => {
-    res.json({ status: 'ok', version, uptime: (Date.now() - startedAt) / 1000 });
+    res.json({ status: 'ok', version, uptime: (Date.now() - startedAt) / 1000, pool: { mode: pool.mode, workersStopped: pool.workersStopped() } });
   });
   api.get('/openapi.json', (_req, res) => {
     res.json(openapi);

@@ -10,7 +10,7 @@ import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
 import { FieldgapError, isFieldgapError } from '../src/errors.js';
 import { RequestAbortedError, ServiceBusyError, TaskBugError } from './errors.js';
-import { dispatchTask, rebuildError, type Outcome, type Task } from './tasks.js';
+import { dispatchTask, rebuildError, type Outcome, type Task, type WorkerRequest } from './tasks.js';
 
 export interface RunOptions {
   /** Time limit for this task in ms (0 or absent: none). */
@@ -26,6 +26,12 @@ export interface ComputePool {
   close(): Promise<void>;
   /** "workers" or "in-process", for the health answer and the logs. */
   readonly mode: 'workers' | 'in-process';
+  /**
+   * Workers stopped so far because their task ran over its time limit, its
+   * client left more than the grace time ago, or the thread died; each one is
+   * replaced by a cold worker. For the health answer.
+   */
+  workersStopped(): number;
 }
 
 export interface WorkerPoolOptions {
@@ -33,6 +39,13 @@ export interface WorkerPoolOptions {
   threads?: number;
   /** Tasks that may wait for a free worker before new ones are refused (503); default 512. */
   maxQueue?: number;
+  /**
+   * How long a task whose client left may still run before its worker is
+   * stopped, ms; default 1000. Stopping a worker costs a cold restart (module
+   * load, JIT) that slows every request for about a second, far more than
+   * letting a typical analysis (~10 ms) finish unheard.
+   */
+  abandonGraceMs?: number;
 }
 
 function settle(outcome: Outcome): unknown {
@@ -61,7 +74,7 @@ export function resolveWorkerFile(): { filename: string; execArgv: string[] } {
 
 /** A pool of worker threads running server/worker. */
 export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
-  const { threads = availableParallelism(), maxQueue = 512 } = options;
+  const { threads = availableParallelism(), maxQueue = 512, abandonGraceMs = 1000 } = options;
   const { filename, execArgv } = resolveWorkerFile();
   const piscina = new Piscina({
     filename,
@@ -71,19 +84,47 @@ export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
     maxQueue,
     idleTimeout: 60_000,
   });
+  let stopped = 0;
+  let closing = false;
+  piscina.on('workerDestroy', () => {
+    if (!closing) stopped++;
+  });
   return {
     mode: 'workers',
+    workersStopped: () => stopped,
     async run(task, { timeoutMs = 0, signal: cancel } = {}) {
       if (cancel?.aborted) throw new RequestAbortedError();
       if (piscina.queueSize >= maxQueue) throw new ServiceBusyError();
-      const timeout = timeoutMs > 0 ? AbortSignal.timeout(timeoutMs) : undefined;
-      const signal = timeout && cancel ? AbortSignal.any([timeout, cancel]) : (timeout ?? cancel);
+      const abandoned = new Int32Array(new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT));
+      // Aborting piscina's signal drops a queued task, or stops the worker that runs it.
+      const stop = new AbortController();
+      const timer = timeoutMs > 0 ? setTimeout(() => stop.abort(), timeoutMs) : undefined;
+      let grace: NodeJS.Timeout | undefined;
+      let onCancel: (() => void) | undefined;
+      const request: WorkerRequest = { task, abandoned };
+      const work = piscina.run(request, { signal: stop.signal }) as Promise<Outcome>;
+      const left = new Promise<never>((_resolve, reject) => {
+        onCancel = () => {
+          Atomics.store(abandoned, 0, 1);
+          grace = setTimeout(() => stop.abort(), abandonGraceMs);
+          reject(new RequestAbortedError());
+        };
+        cancel?.addEventListener('abort', onCancel, { once: true });
+      });
+      // The task may end after its client left; nobody reads that outcome.
+      left.catch(() => {});
+      const settled = work.finally(() => {
+        clearTimeout(timer);
+        clearTimeout(grace);
+        if (onCancel) cancel?.removeEventListener('abort', onCancel);
+      });
+      settled.catch(() => {});
       let outcome: Outcome;
       try {
-        outcome = (await piscina.run(task, signal ? { signal } : {})) as Outcome;
+        outcome = await Promise.race([settled, left]);
       } catch (error) {
         if (cancel?.aborted) throw new RequestAbortedError();
-        if (timeout?.aborted) throw timeoutError(timeoutMs);
+        if (stop.signal.aborted) throw timeoutError(timeoutMs);
         if (error instanceof Error && /queue is at limit|workers are busy/i.test(error.message)) {
           throw new ServiceBusyError();
         }
@@ -95,6 +136,7 @@ export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
       return settle(outcome);
     },
     async close() {
+      closing = true;
       await piscina.close();
     },
   };
@@ -104,6 +146,7 @@ export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
 export function createInProcessPool(): ComputePool {
   return {
     mode: 'in-process',
+    workersStopped: () => 0,
     async run(task) {
       return settle(dispatchTask(task));
     },

@@ -33,6 +33,12 @@ export const healthResponse = z.strictObject({
   status: z.literal('ok'),
   version: z.string(),
   uptime: num.meta({ description: 'Seconds since the server started.' }),
+  pool: z.strictObject({
+    mode: z.enum(['workers', 'in-process']).meta({ description: 'Where computations run.' }),
+    workersStopped: z.int().nonnegative().meta({
+      description: 'Worker threads stopped (time limit, a client gone for over a second, a crash) and replaced by cold ones since the start.',
+    }),
+  }),
 });
 
 const level = z.looseObject({

@@ -42,6 +42,17 @@ export type Task =
 
 export type TaskKind = Task['kind'];
 
+/**
+ * What piscina hands a worker: the task, and a flag shared with this thread
+ * (Int32Array over a SharedArrayBuffer; element 0 is 1 once nobody waits for
+ * the answer), so a task whose client left while it was queued is dropped by
+ * the worker at no cost instead of by stopping the thread.
+ */
+export interface WorkerRequest {
+  task: Task;
+  abandoned: Int32Array;
+}
+
 export interface SerializedError {
   code: ErrorCode;
   message: string;

@@ -3,8 +3,12 @@
  * task with the pure core and returns plain JSON. Nothing here touches files
  * or the network.
  */
-import { dispatchTask, type Outcome, type Task } from './tasks.js';
+import { dispatchTask, type Outcome, type WorkerRequest } from './tasks.js';
 
-export default function runInWorker(task: Task): Outcome {
+/** Answer of a task whose client left before it started; the pool has already answered for it. */
+const ABANDONED: Outcome = { ok: false, error: { code: 'timeout', message: 'dropped: nobody waits for the answer', path: '' } };
+
+export default function runInWorker({ task, abandoned }: WorkerRequest): Outcome {
+  if (Atomics.load(abandoned, 0) === 1) return ABANDONED;
   return dispatchTask(task);
 }

@@ -30,10 +30,9 @@ async function standInAnalyze(content: Buffer, options: object): Promise<never> 
 function standInPool(): ComputePool {
   const real = createInProcessPool();
   return {
-    mode: 'in-process',
+    ...real,
     run: async (task, options) =>
       task.kind === 'analyze' ? standInAnalyze(Buffer.from(task.input.content as Uint8Array), task.input.options) : real.run(task, options),
-    close: async () => {},
   };
 }
 

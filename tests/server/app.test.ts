@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { readFileSync } from 'node:fs';
 import { computeLevels, diagramDocument, levelsDocument } from '../../src/ligand-field/index.js';
 import { FieldgapError } from '../../src/errors.js';
-import type { ComputePool } from '../../server/pool.js';
+import { createInProcessPool, type ComputePool } from '../../server/pool.js';
 import { fitBands } from '../../src/fit/index.js';
 import { diagramResponse, errorResponse, fitResponse, healthResponse, levelsResponse } from '../../server/responses.js';
 import { fitBody } from '../../server/schemas.js';
@@ -26,6 +26,7 @@ describe('GET /api/v1/health', () => {
     const body = healthResponse.parse(res.body);
     expect(body.version).toBe(packageJson.version);
     expect(body.uptime).toBeGreaterThanOrEqual(0);
+    expect(body.pool).toEqual({ mode: t.app.pool.mode, workersStopped: 0 });
   });
   it('sends the security headers: a self-only CSP, nosniff, no x-powered-by', async () => {
     const res = await request(t.app).get('/api/v1/health');
@@ -185,11 +186,10 @@ describe('unknown routes and bugs', () => {
   });
   it('answers a bug with 500 and a generic message, and logs the stack', async () => {
     const broken: ComputePool = {
-      mode: 'in-process',
+      ...createInProcessPool(),
       run: async () => {
         throw new TypeError("Cannot read properties of undefined (reading 'secretInternalField')");
       },
-      close: async () => {},
     };
     const b = makeTestApp({ pool: broken });
     try {
@@ -207,11 +207,10 @@ describe('unknown routes and bugs', () => {
   });
   it('passes a FieldgapError from the core through with its code and path', async () => {
     const picky: ComputePool = {
-      mode: 'in-process',
+      ...createInProcessPool(),
       run: async () => {
         throw new FieldgapError('not-found', 'no analysis with id 42', 'id');
       },
-      close: async () => {},
     };
     const p = makeTestApp({ pool: picky });
     try {

@@ -12,11 +12,13 @@ import { computeLevels } from '../../src/ligand-field/index.js';
 import { FieldgapError } from '../../src/errors.js';
 import { RequestAbortedError, ServiceBusyError, TaskBugError } from '../../server/errors.js';
 import { createWorkerPool, type ComputePool } from '../../server/pool.js';
-import type { Task } from '../../server/tasks.js';
+import { dispatchTask, type Task } from '../../server/tasks.js';
+import runInWorker from '../../server/worker.js';
 import { makeTestApp, type TestApp } from './helpers.js';
 
 /** A diagram that keeps a worker busy for a while: d5 (252 determinants) at the largest step count. */
 const HEAVY: Task = { kind: 'diagram', input: { d: 5, geometry: 'octahedral', cOverB: 4.5, maxDqOverB: 20, steps: 2000 } };
+const LEVELS: Task = { kind: 'levels', input: { d: 2, geometry: 'tetrahedral', dq: 400, b: 700, c: 2800 } };
 const HEAVY_QUERY = '/api/v1/diagram?d=5&cOverB=4.5&maxDqOverB=20&steps=2000';
 
 async function rejection(promise: Promise<unknown>): Promise<unknown> {
@@ -81,23 +83,62 @@ describe('worker pool', () => {
     expect((after as { d: number }).d).toBe(2);
   });
 
-  it('drops a queued task once nobody waits for it, and stops a running one', async () => {
+  it('answers at once for a task whose client left, and drops it unrun if it was still queued', async () => {
     const one = createWorkerPool({ threads: 1 });
     try {
-      const running = new AbortController();
-      const first = one.run(HEAVY, { signal: running.signal }).catch((e: unknown) => e);
+      const first = one.run(HEAVY);
       const waiting = new AbortController();
-      const queued = one.run(HEAVY, { signal: waiting.signal }).catch((e: unknown) => e);
+      const queued = one.run(LEVELS, { signal: waiting.signal }).catch((e: unknown) => e);
       waiting.abort();
       expect(await queued).toBeInstanceOf(RequestAbortedError);
-      running.abort();
-      expect(await first).toBeInstanceOf(RequestAbortedError);
-      // The worker is replaced and the pool answers again.
-      const after = await one.run({ kind: 'levels', input: { d: 2, geometry: 'tetrahedral', dq: 400, b: 700, c: 2800 } });
-      expect((after as { d: number }).d).toBe(2);
+      await first;
+      // The dropped task cost no worker: the same thread answers the next one.
+      expect((await one.run(LEVELS) as { d: number }).d).toBe(2);
+      expect(one.workersStopped()).toBe(0);
     } finally {
       await one.close();
     }
+  });
+
+  it('lets a running task whose client left finish within the grace time, keeping its worker', async () => {
+    const one = createWorkerPool({ threads: 1, abandonGraceMs: 60_000 });
+    try {
+      const running = new AbortController();
+      const first = one.run(HEAVY, { signal: running.signal }).catch((e: unknown) => e);
+      await new Promise((r) => setTimeout(r, 20));
+      running.abort();
+      expect(await first).toBeInstanceOf(RequestAbortedError);
+      // Queued behind the abandoned diagram, which runs to its end on the same worker.
+      expect((await one.run(LEVELS) as { d: number }).d).toBe(2);
+      expect(one.workersStopped()).toBe(0);
+    } finally {
+      await one.close();
+    }
+  });
+
+  it('stops a task that runs on past the grace time after its client left, and replaces the worker', async () => {
+    const one = createWorkerPool({ threads: 1, abandonGraceMs: 10 });
+    try {
+      await one.run(LEVELS); // the worker is up
+      const running = new AbortController();
+      const first = one.run(HEAVY, { signal: running.signal }).catch((e: unknown) => e);
+      await new Promise((r) => setTimeout(r, 20));
+      running.abort();
+      expect(await first).toBeInstanceOf(RequestAbortedError);
+      const after = await one.run(LEVELS);
+      expect((after as { d: number }).d).toBe(2);
+      expect(one.workersStopped()).toBe(1);
+    } finally {
+      await one.close();
+    }
+  });
+
+  it('has the worker drop, unrun, a task whose flag says nobody waits, and run it otherwise', () => {
+    const abandoned = new Int32Array(new SharedArrayBuffer(4));
+    expect(runInWorker({ task: LEVELS, abandoned })).toEqual(dispatchTask(LEVELS));
+    Atomics.store(abandoned, 0, 1);
+    const dropped = runInWorker({ task: { kind: 'nonsense' } as unknown as Task, abandoned });
+    expect(dropped).toMatchObject({ ok: false, error: { message: expect.stringMatching(/nobody waits/) } });
   });
 
   it('refuses work when every worker is busy and the queue is full', async () => {
