@@ -139,7 +139,7 @@ async function paced(e: Endpoint, rate: number): Promise<number> {
         (status) => {
           if (status < 200 || status >= 300) failed++;
           latencies.push(performance.now() - due);
-          if (process.env['LOAD_DEBUG'] && performance.now() - due > 100) process.stderr.write(`slow: sent at ${((due - start) / 1000).toFixed(3)} s, ${(performance.now() - due).toFixed(0)} ms\n`);
+          if (process.env['LOAD_DEBUG'] && performance.now() - due > Number(process.env['LOAD_DEBUG'])) process.stderr.write(`slow: sent at ${((due - start) / 1000).toFixed(3)} s, ${(performance.now() - due).toFixed(0)} ms\n`);
         },
         () => {
           failed++;
