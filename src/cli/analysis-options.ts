@@ -1,4 +1,5 @@
 import type { AnalyzeOptions } from '../analysis.js';
+import { parseIon } from '../chemistry/ions.js';
 import { invalidArgument } from '../errors.js';
 import { GEOMETRIES } from '../ligand-field/types.js';
 import { parseXUnitOption } from '../spectrum/index.js';
@@ -34,7 +35,11 @@ type AnalysisValues = { [K in keyof typeof ANALYSIS_OPTIONS]?: (typeof ANALYSIS_
 /** The pipeline's options from the command line; only the options given are set. */
 export function analysisOptionsFrom(values: AnalysisValues): AnalyzeOptions {
   const options: AnalyzeOptions = {};
-  if (values.ion !== undefined) options.ion = values.ion;
+  if (values.ion !== undefined) {
+    // Read once here, so a misspelt ion is one usage error, not a failure in every row of a batch.
+    parseIon(values.ion, { path: '--ion' });
+    options.ion = values.ion;
+  }
   const d = numberOption('d', values.d, { min: 1, max: 9, integer: true });
   if (d !== undefined) options.d = d;
   if (values.geometry !== undefined) options.geometry = choiceOption('geometry', values.geometry, GEOMETRIES, 'octahedral');

@@ -54,6 +54,14 @@ describe('fieldgap analyze', () => {
     expect(broken['warnings']).toMatch(/^FAILED: /);
     const good = rows.filter((r) => r['tenDq'] !== '');
     expect(good).toHaveLength(2);
+    // One number per cell, uncertainties in their own columns: a.csv was made with Dq 1700, b.csv with 2100 (round trip).
+    const tenDqs = good.map((r) => Number(r['tenDq'])).sort((p, q) => p - q);
+    expect(tenDqs[0]).toBeCloseTo(17_000, -2);
+    expect(tenDqs[1]).toBeCloseTo(21_000, -2);
+    for (const r of good) {
+      for (const key of ['tenDqSd', 'b', 'bSd', 'beta', 'rms']) expect(Number.isFinite(Number(r[key])) && r[key] !== '').toBe(true);
+    }
+    expect(Number(good[0]!['b'])).toBeCloseTo(680, -1);
     const results = JSON.parse(readFileSync(join(dir, 'results.json'), 'utf8')).results;
     expect(results).toHaveLength(3);
     expect(results.find((r: { file: string }) => r.file.endsWith('broken.csv')).error.code).toBe('parse-error');
@@ -75,6 +83,11 @@ describe('fieldgap analyze', () => {
     const bad = await cli(['analyze', join(dir, 'a.csv'), '--ion', 'Cr3+', '--conc', 'lots']);
     expect(bad.code).toBe(2);
     expect(bad.stderr).toContain('--conc');
+    // A misspelt ion is one usage error before any file is read, not a failure in every row of a batch.
+    const badIon = await cli(['analyze', dir, '--ion', 'Qq3+']);
+    expect(badIon.code).toBe(2);
+    expect(badIon.stdout).toBe('');
+    expect(badIon.stderr.trim()).toMatch(/^fieldgap analyze: --ion: unknown element "Qq"/);
     const nofile = await cli(['analyze', join(dir, 'nothere.csv'), '--ion', 'Cr3+']);
     expect(nofile.code).toBe(2);
     expect(nofile.stderr).toContain('nothere.csv');

@@ -29,7 +29,9 @@ bands, and fits 10Dq, Racah B and C to the d-d bands.
   --free-c            fit C as well (needs three d-d bands)
   --json              print the full result as JSON (one file), or all results
   --json FILE.json    write all results to FILE.json (batch)
-  --csv FILE          write the one-row-per-spectrum summary to FILE (batch)
+  --csv FILE          write the one-row-per-spectrum summary to FILE (batch):
+                      one number per cell, energies in cm-1, each
+                      uncertainty (1 sigma) in its own column
 
 A folder contributes every spectrum file inside it (.csv .txt .tsv .dat .asc
 .prn .jdx .dx .jcamp). Files are read, never changed. Exit code: 0 all went
@@ -90,7 +92,7 @@ export const analyzeCommand: Command = {
 
     const rows = outcomes.map(summaryRow);
     if (values.csv !== undefined) {
-      writeFileSync(resolve(io.cwd, values.csv), `${Papa.unparse(rows)}\n`);
+      writeFileSync(resolve(io.cwd, values.csv), `${Papa.unparse(outcomes.map(csvRow))}\n`);
     }
     if (json.jsonFile !== undefined) {
       writeFileSync(resolve(io.cwd, json.jsonFile), `${JSON.stringify({ results: outcomes.map(outcomeJson) }, null, 2)}\n`);
@@ -161,10 +163,14 @@ interface SummaryRow {
   warnings: string;
 }
 
-function summaryRow({ item, result, error }: Outcome): SummaryRow {
-  if (!result) {
-    return { file: item.label, ion: '', tenDq: '', b: '', beta: '', spinState: '', rms: '', warnings: `FAILED: ${error!.path ? `${error!.path}: ` : ''}${error!.message}` };
-  }
+/** The row's last cell: the warnings, or why the spectrum failed. */
+function warningsCell({ result, error }: Outcome): string {
+  return result ? result.warnings.join('; ') : `FAILED: ${error!.path ? `${error!.path}: ` : ''}${error!.message}`;
+}
+
+function summaryRow(outcome: Outcome): SummaryRow {
+  const { item, result } = outcome;
+  if (!result) return { file: item.label, ion: '', tenDq: '', b: '', beta: '', spinState: '', rms: '', warnings: warningsCell(outcome) };
   const f = result.fit;
   const pm = (v: number | null, u: number | null | undefined, digits = 0) => (v === null ? '' : u ? `${v.toFixed(digits)} ± ${u.toFixed(digits)}` : v.toFixed(digits));
   return {
@@ -175,7 +181,30 @@ function summaryRow({ item, result, error }: Outcome): SummaryRow {
     beta: f.beta === null ? '' : f.beta.toFixed(2),
     spinState: f.spinState,
     rms: f.rmsResidual.toFixed(0),
-    warnings: result.warnings.join('; '),
+    warnings: warningsCell(outcome),
+  };
+}
+
+/**
+ * The summary as a spreadsheet reads it: one number per cell (energies in
+ * cm-1, each uncertainty in a column of its own), empty cells where a value
+ * is undetermined or the spectrum failed.
+ */
+function csvRow(outcome: Outcome) {
+  const { item, result } = outcome;
+  const f = result?.fit;
+  const value = (v: number | null | undefined, digits = 1) => (v === null || v === undefined ? '' : Number(v.toFixed(digits)));
+  return {
+    file: item.label,
+    ion: f ? (f.ion ?? `d${f.d}`) : '',
+    tenDq: value(f?.tenDq),
+    tenDqSd: value(f?.uncertainty.tenDq),
+    b: value(f?.b),
+    bSd: value(f?.uncertainty.b),
+    beta: value(f?.beta, 3),
+    spinState: f?.spinState ?? '',
+    rms: value(f?.rmsResidual),
+    warnings: warningsCell(outcome),
   };
 }
 
