@@ -4,6 +4,8 @@
  * health check that keeps answering while heavy work runs.
  */
 import { readFileSync } from 'node:fs';
+import { request as httpRequest } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyzeSpectrum } from '../../src/analysis.js';
@@ -185,6 +187,32 @@ describe('the service with workers', () => {
     expect(ms).toBeLessThan(1000);
     expect(doneWhenHealthAnswered).toBe(0);
     expect(statuses).toEqual([200, 200]);
+  });
+
+  it('lets the work of a client that hung up run to its end on the same worker, and logs 499', async () => {
+    const patient = createWorkerPool({ threads: 1, abandonGraceMs: 60_000 });
+    const a = makeTestApp({ pool: patient });
+    const server = a.app.listen(0, '127.0.0.1');
+    try {
+      await new Promise((r) => server.once('listening', r));
+      const { port } = server.address() as AddressInfo;
+      await request(a.app).get('/api/v1/levels?d=3&dq=1700&b=700&c=2800').expect(200); // the worker is up
+      const hangUp = httpRequest({ host: '127.0.0.1', port, path: HEAVY_QUERY });
+      hangUp.on('error', () => {});
+      hangUp.end();
+      await new Promise((r) => setTimeout(r, 50));
+      hangUp.destroy();
+      for (let i = 0; i < 100 && !a.logs.some((l) => l['status'] === 499); i++) await new Promise((r) => setTimeout(r, 20));
+      expect(a.logs.find((l) => l['status'] === 499)).toMatchObject({ url: HEAVY_QUERY, aborted: true });
+      // Queued behind the abandoned diagram on the one worker, which was not stopped.
+      await request(a.app).get('/api/v1/levels?d=3&dq=1700&b=700&c=2800').expect(200);
+      const health = await request(a.app).get('/api/v1/health').expect(200);
+      expect(health.body.pool).toEqual({ mode: 'workers', workersStopped: 0 });
+    } finally {
+      server.close();
+      await a.dispose();
+      await patient.close();
+    }
   });
 
   it('answers 504 with a clear message when a computation runs over the limit', async () => {
