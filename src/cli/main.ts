@@ -64,7 +64,8 @@ export async function main(): Promise<void> {
   const io: CliIo = {
     stdout: (text) => process.stdout.write(text),
     stderr: (text) => process.stderr.write(text),
-    isTty: Boolean(process.stdout.isTTY),
+    // The progress bar goes to stderr: drawn only when both streams are a terminal, so neither a pipe nor a log file gets it.
+    isTty: Boolean(process.stdout.isTTY && process.stderr.isTTY),
     cwd: process.cwd(),
     env: process.env,
   };
