@@ -103,6 +103,8 @@ export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
       let onCancel: (() => void) | undefined;
       const request: WorkerRequest = { task, abandoned };
       const work = piscina.run(request, { signal: stop.signal }) as Promise<Outcome>;
+      // The client left: answer at once; a queued task is dropped by the worker
+      // when it reaches it, a running one is stopped only if it outlasts the grace time.
       const left = new Promise<never>((_resolve, reject) => {
         onCancel = () => {
           Atomics.store(abandoned, 0, 1);
@@ -111,13 +113,12 @@ export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
         };
         cancel?.addEventListener('abort', onCancel, { once: true });
       });
-      // The task may end after its client left; nobody reads that outcome.
-      left.catch(() => {});
       const settled = work.finally(() => {
         clearTimeout(timer);
         clearTimeout(grace);
         if (onCancel) cancel?.removeEventListener('abort', onCancel);
       });
+      // Once the client has left, nobody reads the task's outcome.
       settled.catch(() => {});
       let outcome: Outcome;
       try {
