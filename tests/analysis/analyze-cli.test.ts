@@ -92,4 +92,28 @@ describe('fieldgap analyze', () => {
     expect(nofile.code).toBe(2);
     expect(nofile.stderr).toContain('nothere.csv');
   });
+
+  it('never writes a summary over a spectrum it reads, and sets its own earlier summary aside', async () => {
+    const here = mkdtempSync(join(tmpdir(), 'fieldgap-outputs-'));
+    writeFileSync(join(here, 'a.csv'), syntheticCsv(CR, { seed: 3 }));
+    const before = sha(join(here, 'a.csv'));
+    const over = await cli(['analyze', here, '--ion', 'Cr3+', '--csv', join(here, 'a.csv')]);
+    expect(over.code).toBe(2);
+    expect(over.stderr.trim()).toMatch(/^fieldgap analyze: --csv: .*a\.csv is one of the spectra to analyse/);
+    expect(sha(join(here, 'a.csv'))).toBe(before);
+    // A summary written into the folder analysed is no spectrum on the next run: left out and replaced.
+    for (const run of [1, 2]) {
+      const { code, stdout } = await cli(['analyze', here, '--ion', 'Cr3+', '--csv', join(here, 'summary.csv')]);
+      expect(code, `run ${run}`).toBe(0);
+      expect(stdout).toMatch(/1 of 1 spectra analysed/);
+    }
+    // One file for two outputs, and a folder that does not exist, are refused before any work.
+    const twice = await cli(['analyze', here, '--ion', 'Cr3+', '--csv', 'out.json', '--json', 'out.json'], here);
+    expect(twice.code).toBe(2);
+    expect(twice.stderr).toMatch(/--json: out\.json is also the file of --csv/);
+    const nowhere = await cli(['analyze', here, '--ion', 'Cr3+', '--csv', join(here, 'missing', 'summary.csv')]);
+    expect(nowhere.code).toBe(2);
+    expect(nowhere.stderr).toMatch(/--csv: the folder of .* does not exist/);
+    expect(sha(join(here, 'a.csv'))).toBe(before);
+  });
 });

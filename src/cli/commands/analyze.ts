@@ -1,5 +1,3 @@
-import { writeFileSync } from 'node:fs';
-import { resolve } from 'node:path';
 import Papa from 'papaparse';
 import { analyzeSpectrum, listSpectra, type AnalyzeOptions, type AnalyzeResult } from '../../analysis.js';
 import { FieldgapError, isFieldgapError } from '../../errors.js';
@@ -8,6 +6,7 @@ import type { Command, CliIo } from '../command.js';
 import { expandInputPaths, readInputFile } from '../files.js';
 import { splitJsonOption } from '../json-flag.js';
 import { parseCommandArgs } from '../options.js';
+import { inputsApartFromOutputs, writeOutputFile, type OutputFile } from '../output-guard.js';
 import { createProgress } from '../progress.js';
 import { formatAnalysisReport } from './analyze-report.js';
 
@@ -43,6 +42,9 @@ const OPTIONS = {
   curves: { type: 'boolean' },
 } as const;
 
+/** The --csv summary's columns, in order (its header line also marks the file as ours). */
+const CSV_COLUMNS = ['file', 'ion', 'tenDq', 'tenDqSd', 'b', 'bSd', 'beta', 'spinState', 'rms', 'warnings'] as const;
+
 /** One spectrum of a batch: a file, or one column of a multi-column file. */
 interface Item {
   file: string;
@@ -67,7 +69,11 @@ export const analyzeCommand: Command = {
     const { values, positionals } = parseCommandArgs(json.argv, OPTIONS, true);
     if (positionals.length === 0) throw new FieldgapError('invalid-argument', 'give at least one spectrum file or folder', 'FILES');
     const options = analysisOptions(values);
-    const files = expandInputPaths(positionals, io.cwd);
+    const outputs: OutputFile[] = [
+      ...(values.csv !== undefined ? [{ option: '--csv', path: values.csv, firstLine: CSV_COLUMNS.join(',') }] : []),
+      ...(json.jsonFile !== undefined ? [{ option: '--json', path: json.jsonFile }] : []),
+    ];
+    const files = inputsApartFromOutputs(expandInputPaths(positionals, io.cwd), outputs, io.cwd);
     const expand = files.length > 1 || values.column === undefined;
 
     const onlyFile = files.length === 1 ? itemsOf(files[0]!, options, io, expand) : undefined;
@@ -92,10 +98,10 @@ export const analyzeCommand: Command = {
 
     const rows = outcomes.map(summaryRow);
     if (values.csv !== undefined) {
-      writeFileSync(resolve(io.cwd, values.csv), `${Papa.unparse(outcomes.map(csvRow))}\n`);
+      writeOutputFile({ option: '--csv', path: values.csv }, `${Papa.unparse(outcomes.map(csvRow), { columns: [...CSV_COLUMNS] })}\n`, io.cwd);
     }
     if (json.jsonFile !== undefined) {
-      writeFileSync(resolve(io.cwd, json.jsonFile), `${JSON.stringify({ results: outcomes.map(outcomeJson) }, null, 2)}\n`);
+      writeOutputFile({ option: '--json', path: json.jsonFile }, `${JSON.stringify({ results: outcomes.map(outcomeJson) }, null, 2)}\n`, io.cwd);
     }
     if (json.jsonFlag) io.stdout(`${JSON.stringify({ results: outcomes.map(outcomeJson) }, null, 2)}\n`);
     else io.stdout(summaryTable(rows));
@@ -190,7 +196,7 @@ function summaryRow(outcome: Outcome): SummaryRow {
  * cm-1, each uncertainty in a column of its own), empty cells where a value
  * is undetermined or the spectrum failed.
  */
-function csvRow(outcome: Outcome) {
+function csvRow(outcome: Outcome): Record<(typeof CSV_COLUMNS)[number], string | number> {
   const { item, result } = outcome;
   const f = result?.fit;
   const value = (v: number | null | undefined, digits = 1) => (v === null || v === undefined ? '' : Number(v.toFixed(digits)));
