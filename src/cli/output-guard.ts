@@ -47,12 +47,15 @@ export function inputsApartFromOutputs(inputs: string[], outputs: OutputFile[], 
   const taken = new Map<string, string>();
   for (const output of outputs) {
     checkWritable(output, cwd);
-    const real = realPathOf(resolve(cwd, output.path)) ?? resolve(cwd, output.path);
+    const existing = realPathOf(resolve(cwd, output.path));
+    const real = existing ?? resolve(cwd, output.path);
     const other = taken.get(real);
     if (other !== undefined) {
       throw new FieldgapError('invalid-argument', `${output.path} is also the file of ${other}: give each output its own file`, output.option);
     }
     taken.set(real, output.option);
+    // Every input exists, so only an existing output can be one of them.
+    if (existing === undefined) continue;
     const clash = kept.filter((input) => realPathOf(resolve(cwd, input)) === real);
     if (clash.length === 0) continue;
     if (output.firstLine !== undefined && startsWithLine(real, output.firstLine)) {

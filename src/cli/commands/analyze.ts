@@ -69,15 +69,14 @@ export const analyzeCommand: Command = {
     const { values, positionals } = parseCommandArgs(json.argv, OPTIONS, true);
     if (positionals.length === 0) throw new FieldgapError('invalid-argument', 'give at least one spectrum file or folder', 'FILES');
     const options = analysisOptions(values);
-    const outputs: OutputFile[] = [
-      ...(values.csv !== undefined ? [{ option: '--csv', path: values.csv, firstLine: CSV_COLUMNS.join(',') }] : []),
-      ...(json.jsonFile !== undefined ? [{ option: '--json', path: json.jsonFile }] : []),
-    ];
+    const csvOutput: OutputFile | undefined = values.csv === undefined ? undefined : { option: '--csv', path: values.csv, firstLine: CSV_COLUMNS.join(',') };
+    const jsonOutput: OutputFile | undefined = json.jsonFile === undefined ? undefined : { option: '--json', path: json.jsonFile };
+    const outputs = [csvOutput, jsonOutput].filter((o) => o !== undefined);
     const files = inputsApartFromOutputs(expandInputPaths(positionals, io.cwd), outputs, io.cwd);
     const expand = files.length > 1 || values.column === undefined;
 
     const onlyFile = files.length === 1 ? itemsOf(files[0]!, options, io, expand) : undefined;
-    if (onlyFile !== undefined && values.csv === undefined && json.jsonFile === undefined) {
+    if (onlyFile !== undefined && outputs.length === 0) {
       const items = onlyFile;
       if (items.length === 1) {
         const item = items[0]!;
@@ -97,17 +96,16 @@ export const analyzeCommand: Command = {
     progress.done();
 
     const rows = outcomes.map(summaryRow);
-    if (values.csv !== undefined) {
-      writeOutputFile({ option: '--csv', path: values.csv }, `${Papa.unparse(outcomes.map(csvRow), { columns: [...CSV_COLUMNS] })}\n`, io.cwd);
+    if (csvOutput !== undefined) {
+      writeOutputFile(csvOutput, `${Papa.unparse(outcomes.map(csvRow), { columns: [...CSV_COLUMNS] })}\n`, io.cwd);
     }
-    if (json.jsonFile !== undefined) {
-      writeOutputFile({ option: '--json', path: json.jsonFile }, `${JSON.stringify({ results: outcomes.map(outcomeJson) }, null, 2)}\n`, io.cwd);
-    }
-    if (json.jsonFlag) io.stdout(`${JSON.stringify({ results: outcomes.map(outcomeJson) }, null, 2)}\n`);
+    const resultsJson = jsonOutput !== undefined || json.jsonFlag ? `${JSON.stringify({ results: outcomes.map(outcomeJson) }, null, 2)}\n` : '';
+    if (jsonOutput !== undefined) writeOutputFile(jsonOutput, resultsJson, io.cwd);
+    if (json.jsonFlag) io.stdout(resultsJson);
     else io.stdout(summaryTable(rows));
     const failed = outcomes.filter((o) => o.error).length;
     if (!json.jsonFlag) {
-      const wrote = [values.csv, json.jsonFile].filter((f) => f !== undefined).map((f) => ` Wrote ${f}.`).join('');
+      const wrote = outputs.map((o) => ` Wrote ${o.path}.`).join('');
       io.stdout(`\n${outcomes.length - failed} of ${outcomes.length} spectra analysed${failed ? `, ${failed} failed` : ''}.${wrote}\n`);
     }
     return failed > 0 ? 1 : 0;
