@@ -1,0 +1,138 @@
+/**
+ * Runs corpus cases through the public pipeline (analyzeSpectrum, what
+ * `fieldgap analyze` calls; fitBands, what `fieldgap fit` calls) and grades
+ * each result against the case's truth: 10Dq within 3 %, B within 8 %, the
+ * spin state right (tolerances of issue 13).
+ */
+import { analyzeSpectrum, type AnalyzeOptions, type AnalyzeResult } from '../../src/analysis.js';
+import { FieldgapError } from '../../src/errors.js';
+import { fitBands, type FitResult } from '../../src/fit/index.js';
+import { B_TOLERANCE, TEN_DQ_TOLERANCE, caseSpectrum, type CorpusCase } from './cases.js';
+import type { PublishedSet } from './published-sets.js';
+
+export interface Graded {
+  id: string;
+  kind: 'spectrum' | 'band set';
+  /** "Ni2+ octahedral high-spin" etc. */
+  what: string;
+  window: string;
+  truth: { tenDq: number; b: number | null; spinState: string };
+  result: { tenDq: number | null; b: number | null; spinState: string | null; probability: number | null };
+  /** Signed relative errors (result − truth)/truth; null when not graded or not reported. */
+  error: { tenDq: number | null; b: number | null };
+  pass: { tenDq: boolean | null; b: boolean | null; spin: boolean; all: boolean };
+  /** Error text when the pipeline refused or failed. */
+  failure: string | null;
+  /** Steps the pipeline corrected (cm-1) and whether the case had a real one. */
+  steps: { found: number[]; real: boolean } | null;
+  notes: string[];
+}
+
+/** The probability the fit gives its chosen assignment, when it reports one (issue 13 adds it). */
+export function assignmentProbability(fit: FitResult): number | null {
+  const record = fit as unknown as Record<string, unknown>;
+  for (const key of ['probability', 'assignmentProbability']) {
+    const value = record[key];
+    if (typeof value === 'number' && Number.isFinite(value)) return value;
+  }
+  const assignment = record['assignment'];
+  if (assignment && typeof assignment === 'object') {
+    const value = (assignment as Record<string, unknown>)['probability'];
+    if (typeof value === 'number' && Number.isFinite(value)) return value;
+  }
+  return null;
+}
+
+/** Steps the analysis corrected, cm-1: a `steps` list if the result has one, else the masked detector-step regions. */
+export function correctedSteps(result: AnalyzeResult): number[] {
+  const spectrum = result.spectrum as unknown as Record<string, unknown>;
+  const steps = spectrum['steps'];
+  if (Array.isArray(steps)) {
+    return steps.map((s) => Number((s as Record<string, unknown>)['position'] ?? Number.NaN)).filter(Number.isFinite);
+  }
+  return result.spectrum.masked.filter((m) => m.reason === 'detector-step').map((m) => Math.round((m.from + m.to) / 2));
+}
+
+const relative = (value: number | null, truth: number): number | null => (value === null ? null : (value - truth) / truth);
+
+function failureText(error: unknown): string {
+  if (error instanceof FieldgapError) return `${error.code}: ${error.message}`;
+  return `internal error: ${error instanceof Error ? error.message : String(error)}`;
+}
+
+/** The options a user would give `fieldgap analyze` for this case. */
+export function caseOptions(c: CorpusCase): AnalyzeOptions {
+  return {
+    fileName: `${c.id.replace('/', '-')}.csv`,
+    ion: c.family.ion,
+    geometry: c.family.geometry,
+    ...(c.concentrationGiven && { concentration: c.concentration }),
+    ...(c.pathLength !== 1 && { pathLength: c.pathLength }),
+  };
+}
+
+export function runCase(c: CorpusCase): Graded {
+  const { truth, expect } = c;
+  const base = {
+    id: c.id, kind: 'spectrum' as const,
+    what: `${c.family.complex}: ${c.family.ion} d${c.family.d} ${c.family.geometry}${truth.spinState === 'no-choice' ? '' : ` ${truth.spinState}`}`,
+    window: `${c.window.fromNm}–${c.window.toNm} nm, ${c.distortions.digits === 2 ? '0.01' : '0.001'}${c.distortions.noise === 0 ? ', noise-free' : ''}${c.distortions.step ? `, step at ${c.distortions.step.atNm} nm` : ''}${c.concentrationGiven ? '' : ', no conc.'}`,
+    truth: { tenDq: truth.tenDq, b: expect.b ? truth.b : null, spinState: truth.spinState },
+    notes: [...expect.notes],
+  };
+  let result: AnalyzeResult;
+  try {
+    result = analyzeSpectrum(caseSpectrum(c).csv, caseOptions(c));
+  } catch (error) {
+    return {
+      ...base, result: { tenDq: null, b: null, spinState: null, probability: null }, error: { tenDq: null, b: null },
+      pass: { tenDq: expect.tenDq ? false : null, b: expect.b ? false : null, spin: false, all: false },
+      failure: failureText(error), steps: null,
+    };
+  }
+  const fit = result.fit;
+  const tenDqError = relative(fit.tenDq, truth.tenDq);
+  const bError = relative(fit.b, truth.b);
+  const tenDqPass = !expect.tenDq ? null
+    : expect.tenDqAbsolute !== undefined ? Math.abs(fit.tenDq - truth.tenDq) <= expect.tenDqAbsolute
+      : tenDqError !== null && Math.abs(tenDqError) <= TEN_DQ_TOLERANCE;
+  const bPass = !expect.b ? null : bError !== null && Math.abs(bError) <= B_TOLERANCE;
+  const spin = fit.spinState === truth.spinState;
+  const found = correctedSteps(result);
+  return {
+    ...base,
+    result: { tenDq: fit.tenDq, b: fit.b, spinState: fit.spinState, probability: assignmentProbability(fit) },
+    error: { tenDq: tenDqError, b: expect.b ? bError : null },
+    pass: { tenDq: tenDqPass, b: bPass, spin, all: tenDqPass !== false && bPass !== false && spin },
+    failure: null,
+    steps: { found, real: c.distortions.step !== undefined },
+  };
+}
+
+export function runPublishedSet(set: PublishedSet): Graded {
+  const base = {
+    id: set.id, kind: 'band set' as const, what: `${set.complex}: ${set.ion} ${set.geometry}`, window: `bands ${set.bands}${set.freeC ? ', C free' : ''}`,
+    truth: { tenDq: set.tenDq, b: set.b, spinState: set.spinState }, notes: [set.source],
+  };
+  let fit: FitResult;
+  try {
+    fit = fitBands({ ion: set.ion, geometry: set.geometry, bands: set.bands, ...(set.freeC && { freeC: true }) });
+  } catch (error) {
+    return {
+      ...base, result: { tenDq: null, b: null, spinState: null, probability: null }, error: { tenDq: null, b: null },
+      pass: { tenDq: false, b: set.b === null ? null : false, spin: false, all: false }, failure: failureText(error), steps: null,
+    };
+  }
+  const tenDqError = relative(fit.tenDq, set.tenDq);
+  const bError = set.b === null ? null : relative(fit.b, set.b);
+  const tenDqPass = tenDqError !== null && Math.abs(tenDqError) <= TEN_DQ_TOLERANCE;
+  const bPass = set.b === null ? null : bError !== null && Math.abs(bError) <= B_TOLERANCE;
+  const spin = fit.spinState === set.spinState;
+  return {
+    ...base,
+    result: { tenDq: fit.tenDq, b: fit.b, spinState: fit.spinState, probability: assignmentProbability(fit) },
+    error: { tenDq: tenDqError, b: bError },
+    pass: { tenDq: tenDqPass, b: bPass, spin, all: tenDqPass && bPass !== false && spin },
+    failure: null, steps: null,
+  };
+}
