@@ -71,6 +71,24 @@ export function caseOptions(c: CorpusCase): AnalyzeOptions {
   };
 }
 
+/**
+ * Whether the fit says that `parameter` is not fixed by the data: a list of
+ * undetermined or prior-fixed parameters if the result has one, else its
+ * status, message, warnings and notes naming it as "not determinable" or
+ * fixed at a prior.
+ */
+export function saysUndetermined(fit: FitResult, parameter: 'tenDq' | 'b'): boolean {
+  const record = fit as unknown as Record<string, unknown>;
+  const names = parameter === 'tenDq' ? ['tenDq', '10Dq', 'dq', 'Dq'] : ['b', 'B'];
+  for (const key of ['undetermined', 'fixedAtPrior', 'fixed']) {
+    const list = record[key];
+    if (Array.isArray(list) && list.some((v) => names.includes(String(v)))) return true;
+  }
+  const text = [fit.message, ...fit.warnings, ...fit.notes].join(' ');
+  const name = parameter === 'tenDq' ? '10Dq' : 'B';
+  return new RegExp(`\\b${name}\\b[^.;]*(not determin|undetermin|cannot be determined|fixed at (its|the) prior)`).test(text);
+}
+
 export function runCase(c: CorpusCase): Graded {
   const { truth, expect } = c;
   const base = {
@@ -93,10 +111,14 @@ export function runCase(c: CorpusCase): Graded {
   const fit = result.fit;
   const tenDqError = relative(fit.tenDq, truth.tenDq);
   const bError = relative(fit.b, truth.b);
-  const tenDqPass = !expect.tenDq ? null
-    : expect.tenDqAbsolute !== undefined ? Math.abs(fit.tenDq - truth.tenDq) <= expect.tenDqAbsolute
-      : tenDqError !== null && Math.abs(tenDqError) <= TEN_DQ_TOLERANCE;
-  const bPass = !expect.b ? null : bError !== null && Math.abs(bError) <= B_TOLERANCE;
+  const tenDqWithin = expect.tenDqAbsolute !== undefined ? Math.abs(fit.tenDq - truth.tenDq) <= expect.tenDqAbsolute
+    : tenDqError !== null && Math.abs(tenDqError) <= TEN_DQ_TOLERANCE;
+  const bWithin = bError !== null && Math.abs(bError) <= B_TOLERANCE;
+  // A parameter the window cannot fix is not graded, but a wrong value stated without saying so fails (issue 13, item 5).
+  const tenDqPass = expect.tenDq ? tenDqWithin : tenDqWithin || saysUndetermined(fit, 'tenDq') ? null : false;
+  const bPass = expect.b ? bWithin : fit.b === null || bWithin || saysUndetermined(fit, 'b') ? null : false;
+  if (tenDqPass === false && !expect.tenDq) base.notes.push('10Dq stated without saying the data cannot fix it');
+  if (bPass === false && !expect.b) base.notes.push('B stated without saying the data cannot fix it');
   const spin = fit.spinState === truth.spinState;
   const found = correctedSteps(result);
   return {
