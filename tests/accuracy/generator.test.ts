@@ -8,7 +8,6 @@ import { describe, expect, it } from 'vitest';
 import { computeLevels } from '../../src/ligand-field/index.js';
 import { logNormalBand, logNormalHalfPoints } from './band-shape.js';
 import { B_TOLERANCE, TEN_DQ_TOLERANCE, buildCase, caseSpectrum, corpusCases, type CorpusCase } from './cases.js';
-import { FAMILIES } from './families.js';
 import { WINDOWS, generateSpectrum, windowRange } from './generate-spectrum.js';
 import { runCase } from './run-corpus.js';
 
