@@ -23,6 +23,11 @@ export interface Graded {
   pass: { tenDq: boolean | null; b: boolean | null; spin: boolean; all: boolean };
   /** Error text when the pipeline refused or failed. */
   failure: string | null;
+  /**
+   * The fit alone on the true band maxima inside the window (no spectrum stage): "pass", "FAIL" or null (nothing
+   * to fit). Tells a spectrum-stage failure from an assignment failure; C is fitted when three or more bands allow it.
+   */
+  bandsOnly: 'pass' | 'FAIL' | null;
   /** Steps the pipeline corrected (cm-1) and whether the case had a real one. */
   steps: { found: number[]; real: boolean } | null;
   notes: string[];
@@ -72,13 +77,20 @@ export function caseOptions(c: CorpusCase): AnalyzeOptions {
 }
 
 /**
- * Whether the fit says that `parameter` is not fixed by the data: a list of
- * undetermined or prior-fixed parameters if the result has one, else its
- * status, message, warnings and notes naming it as "not determinable" or
- * fixed at a prior.
+ * Whether the fit says that `parameter` is not fixed by the data: an
+ * uncertainty at least the tolerance that covers the truth within 2σ, a list
+ * of undetermined or prior-fixed parameters if the result has one, or its
+ * message, warnings and notes naming it as "not determinable" or fixed at a
+ * prior.
  */
-export function saysUndetermined(fit: FitResult, parameter: 'tenDq' | 'b'): boolean {
+export function saysUndetermined(fit: FitResult, parameter: 'tenDq' | 'b', truth?: number, tolerance?: number): boolean {
   const record = fit as unknown as Record<string, unknown>;
+  // An uncertainty as large as the tolerance that covers the truth (2σ) is an honest answer too.
+  const value = parameter === 'tenDq' ? fit.tenDq : fit.b;
+  const sigma = fit.uncertainty[parameter];
+  if (truth !== undefined && tolerance !== undefined && value !== null && sigma !== null && Number.isFinite(sigma)) {
+    if (sigma >= tolerance * Math.abs(value) && Math.abs(value - truth) <= 2 * sigma) return true;
+  }
   const names = parameter === 'tenDq' ? ['tenDq', '10Dq', 'dq', 'Dq'] : ['b', 'B'];
   for (const key of ['undetermined', 'fixedAtPrior', 'fixed']) {
     const list = record[key];
@@ -89,6 +101,23 @@ export function saysUndetermined(fit: FitResult, parameter: 'tenDq' | 'b'): bool
   return new RegExp(`\\b${name}\\b[^.;]*(not determin|undetermin|cannot be determined|fixed at (its|the) prior)`).test(text);
 }
 
+/** fitBands on the case's true maxima (the ideal spectrum stage), graded like the full pipeline. */
+export function bandsOnlyFit(c: CorpusCase): 'pass' | 'FAIL' | null {
+  const { truth, expect } = c;
+  if (expect.maxima.length === 0 || (!expect.tenDq && !expect.b)) return null;
+  try {
+    const fit = fitBands({
+      ion: c.family.ion, geometry: c.family.geometry, bands: expect.maxima, ...(expect.maxima.length >= 3 && expect.b && { freeC: true }),
+    });
+    const tenDqOk = !expect.tenDq || (expect.tenDqAbsolute !== undefined ? Math.abs(fit.tenDq - truth.tenDq) <= expect.tenDqAbsolute
+      : Math.abs(fit.tenDq - truth.tenDq) / truth.tenDq <= TEN_DQ_TOLERANCE);
+    const bOk = !expect.b || (fit.b !== null && Math.abs(fit.b - truth.b) / truth.b <= B_TOLERANCE);
+    return tenDqOk && bOk && fit.spinState === truth.spinState ? 'pass' : 'FAIL';
+  } catch {
+    return 'FAIL';
+  }
+}
+
 export function runCase(c: CorpusCase): Graded {
   const { truth, expect } = c;
   const base = {
@@ -97,6 +126,7 @@ export function runCase(c: CorpusCase): Graded {
     window: `${c.window.fromNm}–${c.window.toNm} nm, ${c.distortions.digits === 2 ? '0.01' : '0.001'}${c.distortions.noise === 0 ? ', noise-free' : ''}${c.distortions.step ? `, step at ${c.distortions.step.atNm} nm` : ''}${c.concentrationGiven ? '' : ', no conc.'}`,
     truth: { tenDq: truth.tenDq, b: expect.b ? truth.b : null, spinState: truth.spinState },
     notes: [...expect.notes],
+    bandsOnly: bandsOnlyFit(c),
   };
   let result: AnalyzeResult;
   try {
@@ -115,8 +145,8 @@ export function runCase(c: CorpusCase): Graded {
     : tenDqError !== null && Math.abs(tenDqError) <= TEN_DQ_TOLERANCE;
   const bWithin = bError !== null && Math.abs(bError) <= B_TOLERANCE;
   // A parameter the window cannot fix is not graded, but a wrong value stated without saying so fails (issue 13, item 5).
-  const tenDqPass = expect.tenDq ? tenDqWithin : tenDqWithin || saysUndetermined(fit, 'tenDq') ? null : false;
-  const bPass = expect.b ? bWithin : fit.b === null || bWithin || saysUndetermined(fit, 'b') ? null : false;
+  const tenDqPass = expect.tenDq ? tenDqWithin : tenDqWithin || saysUndetermined(fit, 'tenDq', truth.tenDq, TEN_DQ_TOLERANCE) ? null : false;
+  const bPass = expect.b ? bWithin : fit.b === null || bWithin || saysUndetermined(fit, 'b', truth.b, B_TOLERANCE) ? null : false;
   if (tenDqPass === false && !expect.tenDq) base.notes.push('10Dq stated without saying the data cannot fix it');
   if (bPass === false && !expect.b) base.notes.push('B stated without saying the data cannot fix it');
   const spin = fit.spinState === truth.spinState;
@@ -134,7 +164,7 @@ export function runCase(c: CorpusCase): Graded {
 export function runPublishedSet(set: PublishedSet): Graded {
   const base = {
     id: set.id, kind: 'band set' as const, what: `${set.complex}: ${set.ion} ${set.geometry}`, window: `bands ${set.bands}${set.freeC ? ', C free' : ''}`,
-    truth: { tenDq: set.tenDq, b: set.b, spinState: set.spinState }, notes: [set.source],
+    truth: { tenDq: set.tenDq, b: set.b, spinState: set.spinState }, notes: [set.source], bandsOnly: null,
   };
   let fit: FitResult;
   try {

@@ -75,8 +75,13 @@ export interface BandRecipe {
   forbidden?: Readonly<Record<string, { factor: number; fwhm: number }>>;
   /** Jahn–Teller or spin–orbit components. */
   splits?: readonly BandSplit[];
-  /** Levels above this are left out (beyond any window), cm-1. @default 52 000 */
+  /** Levels above this are left out (they lie under the charge-transfer bands), cm-1. @default 40 000 */
   limit?: number;
+  /**
+   * How many of the lowest spin-allowed levels give a band (ν1, ν2, ν3: the higher ones are weak or hidden under
+   * charge transfer in measured spectra, common practice). @default 3
+   */
+  allowedCount?: number;
   seed: number;
 }
 
@@ -108,7 +113,7 @@ export function levelSlopes(d: number, geometry: Geometry, dq: number, b: number
 
 /** The d–d bands of one spectrum (no charge transfer: see generate-spectrum.ts). */
 export function truthBands(recipe: BandRecipe): { bands: TruthBand[]; levels: LevelsResult } {
-  const { d, geometry, dq, b, c, epsilon, weak = {}, forbidden = {}, splits = [], limit = 52_000 } = recipe;
+  const { d, geometry, dq, b, c, epsilon, weak = {}, forbidden = {}, splits = [], limit = 40_000, allowedCount = 3 } = recipe;
   const random = mulberry32(recipe.seed * 7919 + 17);
   const between = (lo: number, hi: number): number => lo + (hi - lo) * random();
   const levels = computeLevels(d, geometry, { dq, b, c });
@@ -117,8 +122,8 @@ export function truthBands(recipe: BandRecipe): { bands: TruthBand[]; levels: Le
   const excited = levels.levels.filter((l) => l.energy > 1 && l.energy < limit);
   const quartetOnly = d === 5 && ground.multiplicity === 6;
   const allowed = quartetOnly
-    ? excited.filter((l) => l.multiplicity === 4 && l.energy < 36_000)
-    : excited.filter((l) => l.multiplicity === ground.multiplicity);
+    ? excited.filter((l) => l.multiplicity === 4 && l.energy < 33_000)
+    : excited.filter((l) => l.multiplicity === ground.multiplicity).slice(0, allowedCount);
   const slope = (l: Level): number => Math.abs(slopes.get(levelKey(l)) ?? 1);
   const bands: TruthBand[] = [];
   for (const l of allowed) {
