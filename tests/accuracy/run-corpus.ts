@@ -48,12 +48,17 @@ export function assignmentProbability(fit: FitResult): number | null {
   return null;
 }
 
-/** Steps the analysis corrected, cm-1: a `steps` list if the result has one, else the masked detector-step regions. */
+/**
+ * Steps the analysis corrected, cm-1: a `stepCorrections` or `steps` list if the result has one (issue 13 adds
+ * it), else the masked detector-step regions.
+ */
 export function correctedSteps(result: AnalyzeResult): number[] {
+  const record = result as unknown as Record<string, unknown>;
   const spectrum = result.spectrum as unknown as Record<string, unknown>;
-  const steps = spectrum['steps'];
-  if (Array.isArray(steps)) {
-    return steps.map((s) => Number((s as Record<string, unknown>)['position'] ?? Number.NaN)).filter(Number.isFinite);
+  for (const list of [spectrum['stepCorrections'], record['stepCorrections'], spectrum['steps']]) {
+    if (Array.isArray(list)) {
+      return list.map((s) => Number((s as Record<string, unknown>)['position'] ?? Number.NaN)).filter(Number.isFinite);
+    }
   }
   return result.spectrum.masked.filter((m) => m.reason === 'detector-step').map((m) => Math.round((m.from + m.to) / 2));
 }
