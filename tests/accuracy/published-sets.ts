@@ -36,5 +36,10 @@ export const PUBLISHED_SETS: readonly PublishedSet[] = [
   { id: 'ni2-aqua', complex: '[Ni(H2O)6]2+', ion: 'Ni2+', geometry: 'octahedral', bands: '8500,13800,25300', tenDq: 8500, b: 930, spinState: 'no-choice', source: LEVER },
   { id: 'ni2-ammine', complex: '[Ni(NH3)6]2+', ion: 'Ni2+', geometry: 'octahedral', bands: '10750,17500,28200', tenDq: 10750, b: 880, spinState: 'no-choice', source: LEVER },
   { id: 'ni2-tet-cl', complex: '[NiCl4]2-', ion: 'Ni2+', geometry: 'tetrahedral', bands: '7550,14250', tenDq: 4100, b: null, spinState: 'no-choice', source: LEVER },
+  { id: 'ti3-aqua', complex: '[Ti(H2O)6]3+', ion: 'Ti3+', geometry: 'octahedral', bands: '20300', tenDq: 20300, b: null, spinState: 'no-choice', source: LEVER },
+  { id: 'v2-aqua', complex: '[V(H2O)6]2+', ion: 'V2+', geometry: 'octahedral', bands: '12350,18500,27900', tenDq: 12350, b: null, spinState: 'no-choice', source: LEVER },
+  { id: 'cr3-en', complex: '[Cr(en)3]3+', ion: 'Cr3+', geometry: 'octahedral', bands: '21850,28500', tenDq: 21850, b: null, spinState: 'no-choice', source: LEVER },
+  { id: 'fe2-aqua', complex: '[Fe(H2O)6]2+', ion: 'Fe2+', geometry: 'octahedral', bands: '10400', tenDq: 10400, b: null, spinState: 'high-spin', source: LEVER },
+  { id: 'ni2-en', complex: '[Ni(en)3]2+', ion: 'Ni2+', geometry: 'octahedral', bands: '11200,18350,29000', tenDq: 11200, b: null, spinState: 'no-choice', source: LEVER },
   { id: 'cu2-aqua', complex: '[Cu(H2O)6]2+', ion: 'Cu2+', geometry: 'octahedral', bands: '12500', tenDq: 12500, b: null, spinState: 'no-choice', source: LEVER },
 ];

@@ -4,6 +4,7 @@
  * each result against the case's truth: 10Dq within 3 %, B within 8 %, the
  * spin state right (tolerances of issue 13).
  */
+import { performance } from 'node:perf_hooks';
 import { analyzeSpectrum, type AnalyzeOptions, type AnalyzeResult } from '../../src/analysis.js';
 import { FieldgapError } from '../../src/errors.js';
 import { fitBands, type FitResult } from '../../src/fit/index.js';
@@ -17,7 +18,9 @@ export interface Graded {
   what: string;
   window: string;
   truth: { tenDq: number; b: number | null; spinState: string };
-  result: { tenDq: number | null; b: number | null; spinState: string | null; probability: number | null };
+  result: { tenDq: number | null; b: number | null; spinState: string | null; probability: number | null; spinProbability: number | null };
+  /** Wall time of the pipeline call, ms (reported, never asserted: it depends on the machine). */
+  ms: number;
   /** Signed relative errors (result − truth)/truth; null when not graded or not reported. */
   error: { tenDq: number | null; b: number | null };
   pass: { tenDq: boolean | null; b: boolean | null; spin: boolean; all: boolean };
@@ -44,6 +47,27 @@ export function assignmentProbability(fit: FitResult): number | null {
   if (assignment && typeof assignment === 'object') {
     const value = (assignment as Record<string, unknown>)['probability'];
     if (typeof value === 'number' && Number.isFinite(value)) return value;
+  }
+  return null;
+}
+
+/**
+ * The probability the fit gives a spin state, when it reports one: a map or list under `spinStateProbabilities`,
+ * `spinStates` or `spinProbabilities` (issue 13 adds them; the names are read leniently).
+ */
+export function spinStateProbability(fit: FitResult, state: string): number | null {
+  const record = fit as unknown as Record<string, unknown>;
+  for (const key of ['spinStateProbabilities', 'spinStates', 'spinProbabilities']) {
+    const value = record[key];
+    if (Array.isArray(value)) {
+      for (const item of value) {
+        const entry = item as Record<string, unknown>;
+        if ((entry['spinState'] ?? entry['state']) === state && typeof entry['probability'] === 'number') return entry['probability'];
+      }
+    } else if (value && typeof value === 'object') {
+      const p = (value as Record<string, unknown>)[state];
+      if (typeof p === 'number') return p;
+    }
   }
   return null;
 }
@@ -134,15 +158,19 @@ export function runCase(c: CorpusCase): Graded {
     bandsOnly: bandsOnlyFit(c),
   };
   let result: AnalyzeResult;
+  const csv = caseSpectrum(c).csv;
+  const started = performance.now();
   try {
-    result = analyzeSpectrum(caseSpectrum(c).csv, caseOptions(c));
+    result = analyzeSpectrum(csv, caseOptions(c));
   } catch (error) {
     return {
-      ...base, result: { tenDq: null, b: null, spinState: null, probability: null }, error: { tenDq: null, b: null },
+      ...base, ms: performance.now() - started,
+      result: { tenDq: null, b: null, spinState: null, probability: null, spinProbability: null }, error: { tenDq: null, b: null },
       pass: { tenDq: expect.tenDq ? false : null, b: expect.b ? false : null, spin: false, all: false },
       failure: failureText(error), steps: null,
     };
   }
+  const ms = performance.now() - started;
   const fit = result.fit;
   const tenDqError = relative(fit.tenDq, truth.tenDq);
   const bError = relative(fit.b, truth.b);
@@ -157,8 +185,8 @@ export function runCase(c: CorpusCase): Graded {
   const spin = fit.spinState === truth.spinState;
   const found = correctedSteps(result);
   return {
-    ...base,
-    result: { tenDq: fit.tenDq, b: fit.b, spinState: fit.spinState, probability: assignmentProbability(fit) },
+    ...base, ms,
+    result: { tenDq: fit.tenDq, b: fit.b, spinState: fit.spinState, probability: assignmentProbability(fit), spinProbability: spinStateProbability(fit, truth.spinState) },
     error: { tenDq: tenDqError, b: expect.b ? bError : null },
     pass: { tenDq: tenDqPass, b: bPass, spin, all: tenDqPass !== false && bPass !== false && spin },
     failure: null,
@@ -172,22 +200,25 @@ export function runPublishedSet(set: PublishedSet): Graded {
     truth: { tenDq: set.tenDq, b: set.b, spinState: set.spinState }, notes: [set.source], bandsOnly: null,
   };
   let fit: FitResult;
+  const started = performance.now();
   try {
     fit = fitBands({ ion: set.ion, geometry: set.geometry, bands: set.bands, ...(set.freeC && { freeC: true }) });
   } catch (error) {
     return {
-      ...base, result: { tenDq: null, b: null, spinState: null, probability: null }, error: { tenDq: null, b: null },
+      ...base, ms: performance.now() - started,
+      result: { tenDq: null, b: null, spinState: null, probability: null, spinProbability: null }, error: { tenDq: null, b: null },
       pass: { tenDq: false, b: set.b === null ? null : false, spin: false, all: false }, failure: failureText(error), steps: null,
     };
   }
+  const ms = performance.now() - started;
   const tenDqError = relative(fit.tenDq, set.tenDq);
   const bError = set.b === null ? null : relative(fit.b, set.b);
   const tenDqPass = tenDqError !== null && Math.abs(tenDqError) <= TEN_DQ_TOLERANCE;
   const bPass = set.b === null ? null : bError !== null && Math.abs(bError) <= B_TOLERANCE;
   const spin = fit.spinState === set.spinState;
   return {
-    ...base,
-    result: { tenDq: fit.tenDq, b: fit.b, spinState: fit.spinState, probability: assignmentProbability(fit) },
+    ...base, ms,
+    result: { tenDq: fit.tenDq, b: fit.b, spinState: fit.spinState, probability: assignmentProbability(fit), spinProbability: spinStateProbability(fit, set.spinState) },
     error: { tenDq: tenDqError, b: bError },
     pass: { tenDq: tenDqPass, b: bPass, spin, all: tenDqPass && bPass !== false && spin },
     failure: null, steps: null,
