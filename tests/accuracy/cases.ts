@@ -70,6 +70,14 @@ const MAX_CONCENTRATION = 1.5;
 
 const roundTo = (v: number, significant: number): number => Number(v.toPrecision(significant));
 
+/**
+ * A real detector change-over step: overwhelming evidence, as issue 13 asks before a correction (15–30 times the
+ * noise, at least 0.01 absorbance; such steps of 0.01–0.1 are what instruments leave, common practice).
+ */
+function stepSize(noise: number, between: (lo: number, hi: number) => number): number {
+  return Math.max(0.01, roundTo(between(15, 30) * noise, 2));
+}
+
 function variantDistortions(variant: VariantName, between: (lo: number, hi: number) => number, index: number): Distortions {
   const base = { offset: between(0, 0.04), slope: between(-0.01, 0.02), scatter: between(0, 0.04) };
   const ct = { edgeAbsorbance: between(0.4, 2.2), fwhm: between(6000, 9000), epsilon: between(1500, 8000) };
@@ -77,21 +85,25 @@ function variantDistortions(variant: VariantName, between: (lo: number, hi: numb
     case 'vis':
       // A visible-only instrument: 0.01 rounding, no noise beyond it.
       return { ...base, digits: 2, noise: 0, chargeTransfer: ct, descending: index % 2 === 1 };
-    case 'uvvis':
+    case 'uvvis': {
       // Double-beam UV-vis: 0.001 steps, some noise, and on every other case a real detector step near 800–870 nm.
+      const noise = between(0.0008, 0.003);
       return {
-        ...base, digits: 3, noise: between(0.0008, 0.003), chargeTransfer: ct,
-        ...(index % 2 === 0 && { step: { atNm: Math.round(between(800, 870)), size: roundTo(between(0.015, 0.04), 2) * (index % 4 === 0 ? 1 : -1) } }),
+        ...base, digits: 3, noise, chargeTransfer: ct,
+        ...(index % 2 === 0 && { step: { atNm: Math.round(between(800, 870)), size: stepSize(noise, between) * (index % 4 === 0 ? 1 : -1) } }),
       };
+    }
     case 'uvvis-smooth':
       // Smooth, noise-free data rounded to 0.01 with no step: nothing may be "corrected".
       return { ...base, digits: 2, noise: 0, chargeTransfer: ct, descending: true };
-    case 'nir':
+    case 'nir': {
       // UV-vis-NIR: smoothed noise, 0.001 steps, a real step at the detector change-over on every other case.
+      const noise = between(0.0008, 0.002);
       return {
-        ...base, digits: 3, noise: between(0.0008, 0.002), smooth: 5, chargeTransfer: ct,
-        ...(index % 2 === 1 && { step: { atNm: Math.round(between(800, 870)), size: roundTo(between(0.015, 0.035), 2) } }),
+        ...base, digits: 3, noise, smooth: 5, chargeTransfer: ct,
+        ...(index % 2 === 1 && { step: { atNm: Math.round(between(800, 870)), size: stepSize(noise, between) } }),
       };
+    }
   }
 }
 

@@ -11,6 +11,26 @@ import { fitBands, type FitResult } from '../../src/fit/index.js';
 import { B_TOLERANCE, TEN_DQ_TOLERANCE, caseSpectrum, type CorpusCase } from './cases.js';
 import type { PublishedSet } from './published-sets.js';
 
+/** Steps the pipeline corrected (cm-1) against the one the case placed, if any. */
+export interface StepCheck {
+  found: number[];
+  /** The placed step's position, cm-1 (between its two wavelengths), or null when the data has none. */
+  real: number | null;
+  /** The placed step was corrected (within 3 nm). */
+  realFound: boolean;
+  /** Corrections away from the placed step (all of them when the data has none). */
+  spurious: number[];
+}
+
+/** Compares corrected steps with the placed one: a match lies within 3 nm of it. */
+export function stepCheck(found: readonly number[], step: { atNm: number } | undefined): StepCheck {
+  if (!step) return { found: [...found], real: null, realFound: false, spurious: [...found] };
+  const real = 1e7 / (step.atNm + 0.5);
+  const tolerance = 3 * (1e7 / (step.atNm * step.atNm));
+  const near = (x: number): boolean => Math.abs(x - real) <= tolerance;
+  return { found: [...found], real, realFound: found.some(near), spurious: found.filter((x) => !near(x)) };
+}
+
 export interface Graded {
   id: string;
   kind: 'spectrum' | 'band set';
@@ -32,7 +52,7 @@ export interface Graded {
    */
   bandsOnly: 'pass' | 'FAIL' | null;
   /** Steps the pipeline corrected (cm-1) and whether the case had a real one. */
-  steps: { found: number[]; real: boolean } | null;
+  steps: StepCheck | null;
   notes: string[];
 }
 
@@ -190,7 +210,7 @@ export function runCase(c: CorpusCase): Graded {
     error: { tenDq: tenDqError, b: expect.b ? bError : null },
     pass: { tenDq: tenDqPass, b: bPass, spin, all: tenDqPass !== false && bPass !== false && spin },
     failure: null,
-    steps: { found, real: c.distortions.step !== undefined },
+    steps: stepCheck(found, c.distortions.step),
   };
 }
 
