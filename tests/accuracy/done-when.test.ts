@@ -133,8 +133,8 @@ describe('the validation corpus', () => {
       return stepCheck(found, c.distortions.step).realFound ? [] : [`${c.id} (${c.distortions.step!.size} at ${c.distortions.step!.atNm} nm)`];
     });
     // The corpus's steps are 15–30 times the noise: a correction method must find nearly all of them. A choice of
-    // this corpus, not an outside figure: at most a fifth may be missed (a step on a steep flank is harder).
-    expect(missed.length).toBeLessThanOrEqual(Math.floor(0.2 * stepped.length));
+    // this corpus, not an outside figure: at most a tenth may be missed (a step on a steep flank is harder).
+    expect(missed.length, missed.join(', ')).toBeLessThanOrEqual(Math.floor(0.1 * stepped.length));
   });
 
   // fails until issue 13 lands: today rounded data grows bands where there are none.
