@@ -38,7 +38,7 @@ if (writeDir !== undefined) {
 // One call before the clock starts: module loading and JIT warm-up are not the pipeline's time.
 if (selected[0]) runCase(selected[0]);
 const started = performance.now();
-const spectra = selected.map(runCase);
+const spectra = selected.map((c) => runCase(c));
 const sets = PUBLISHED_SETS.filter((s) => only === undefined || s.id.includes(only)).map(runPublishedSet);
 const seconds = (performance.now() - started) / 1000;
 

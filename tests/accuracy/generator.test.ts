@@ -13,6 +13,9 @@ import { runCase } from './run-corpus.js';
 
 const cases = corpusCases();
 
+/** Tests that walk the whole corpus: generous, so a busy machine cannot fail them (the corpus takes seconds). */
+const WHOLE_CORPUS_MS = 300_000;
+
 /** Slow reference: the half-maximum crossings of a band found by bisection on the shape itself. */
 function halfPointsByBisection(max: number, fwhm: number, skew: number): [number, number] {
   const crossing = (inside: number, outside: number): number => {
@@ -120,7 +123,7 @@ describe('bands of a case', () => {
         expect(Math.abs(centroid - centre)).toBeLessThan(1e-6);
       }
     }
-  });
+  }, WHOLE_CORPUS_MS);
 
   it('have realistic widths and intensity classes (common practice)', () => {
     for (const c of cases) {
@@ -151,7 +154,7 @@ describe('bands of a case', () => {
         expect(b.position).toBeGreaterThan(windowRange(c.window)[1]);
       }
     }
-  });
+  }, WHOLE_CORPUS_MS);
 });
 
 describe('spectra of the corpus', () => {
@@ -171,7 +174,7 @@ describe('spectra of the corpus', () => {
       expect(lines.slice(1).every((l) => new RegExp(`^\\d+,-?\\d+\\.\\d{${c.distortions.digits}}$`).test(l))).toBe(true);
       expect(Math.max(...s.absorbance)).toBeLessThan(3.5);
     }
-  });
+  }, WHOLE_CORPUS_MS);
 
   it('are deterministic', () => {
     for (const c of cases.slice(0, 10)) expect(caseSpectrum(c).csv).toBe(caseSpectrum(buildCase(c.family, c.variant, cases.indexOf(c))).csv);
@@ -189,7 +192,7 @@ describe('spectra of the corpus', () => {
         expect(Math.abs(stepped.absorbance[i]! - plain.absorbance[i]! - expected)).toBeLessThan(0.0011);
       }
     }
-  });
+  }, WHOLE_CORPUS_MS);
 
   it('are, without noise, the band sum plus baseline rounded (slow reference evaluated point by point)', () => {
     for (const c of cases.filter((x) => x.distortions.noise === 0)) {
@@ -204,7 +207,7 @@ describe('spectra of the corpus', () => {
         expect(Math.abs(s.absorbance[i]! - a)).toBeLessThanOrEqual(quantum / 2 + 1e-9);
       }
     }
-  });
+  }, WHOLE_CORPUS_MS);
 });
 
 describe('a fast subset through the pipeline', () => {
@@ -215,7 +218,7 @@ describe('a fast subset through the pipeline', () => {
     expect(row.failure ?? '').not.toMatch(/^internal error/);
     expect(row.truth.tenDq).toBe(c.truth.tenDq);
     if (row.failure === null) expect(row.result.tenDq).toBeGreaterThan(0);
-  });
+  }, WHOLE_CORPUS_MS);
 
   it('windows are the ones the brief names', () => {
     expect(windowRange(WINDOWS.visible)[0]).toBeCloseTo(1e7 / 780, 6);

@@ -167,7 +167,26 @@ export function bandsOnlyFit(c: CorpusCase): 'pass' | 'FAIL' | null {
   }
 }
 
-export function runCase(c: CorpusCase): Graded {
+/** What the pipeline made of a case: its result or the error it threw, and the wall time. */
+export interface CaseOutcome {
+  result: AnalyzeResult | null;
+  error: unknown;
+  ms: number;
+}
+
+/** Runs the public pipeline on a case's spectrum with the options a user would give. */
+export function analyzeCase(c: CorpusCase): CaseOutcome {
+  const csv = caseSpectrum(c).csv;
+  const started = performance.now();
+  try {
+    const result = analyzeSpectrum(csv, caseOptions(c));
+    return { result, error: null, ms: performance.now() - started };
+  } catch (error) {
+    return { result: null, error, ms: performance.now() - started };
+  }
+}
+
+export function runCase(c: CorpusCase, outcome: CaseOutcome = analyzeCase(c)): Graded {
   const { truth, expect } = c;
   const base = {
     id: c.id, kind: 'spectrum' as const,
@@ -177,20 +196,15 @@ export function runCase(c: CorpusCase): Graded {
     notes: [...expect.notes],
     bandsOnly: bandsOnlyFit(c),
   };
-  let result: AnalyzeResult;
-  const csv = caseSpectrum(c).csv;
-  const started = performance.now();
-  try {
-    result = analyzeSpectrum(csv, caseOptions(c));
-  } catch (error) {
+  const { result, ms } = outcome;
+  if (result === null) {
     return {
-      ...base, ms: performance.now() - started,
+      ...base, ms,
       result: { tenDq: null, b: null, spinState: null, probability: null, spinProbability: null }, error: { tenDq: null, b: null },
       pass: { tenDq: expect.tenDq ? false : null, b: expect.b ? false : null, spin: false, all: false },
-      failure: failureText(error), steps: null,
+      failure: failureText(outcome.error), steps: null,
     };
   }
-  const ms = performance.now() - started;
   const fit = result.fit;
   const tenDqError = relative(fit.tenDq, truth.tenDq);
   const bError = relative(fit.b, truth.b);
