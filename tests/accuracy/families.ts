@@ -9,7 +9,11 @@
  * draws its own Dq, B and C/B inside them from its seed, and the truth the
  * pipeline is graded against is what was drawn. Where a range comes from
  * the literature, `source` names it; values recalled without a source at
- * hand say "from memory". Intensity classes are common practice
+ * hand say "from memory". The aqua and ammine ranges were compared with
+ * Jørgensen's estimates 10Dq = f·g and β = 1 − h·k (C. K. Jørgensen, Modern
+ * Aspects of Ligand Field Theory, 1971, pp 347–348, as tabulated at
+ * chemprof.tripod.com/fghk.htm): generator.test.ts checks that they agree.
+ * Intensity classes are common practice
  * (octahedral spin-allowed ε 1–150, tetrahedral 50–1 500, spin-forbidden
  * ≪ allowed, charge transfer ≥ 1 000).
  */

@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { computeLevels } from '../../src/ligand-field/index.js';
 import { logNormalBand, logNormalHalfPoints } from './band-shape.js';
 import { B_TOLERANCE, TEN_DQ_TOLERANCE, buildCase, caseSpectrum, corpusCases, type CorpusCase } from './cases.js';
+import { FAMILIES } from './families.js';
 import { WINDOWS, generateSpectrum, windowRange } from './generate-spectrum.js';
 import { runCase } from './run-corpus.js';
 
@@ -97,6 +98,30 @@ describe('corpus coverage', () => {
       expect(c.truth.b).toBeGreaterThanOrEqual(f.b[0]);
       expect(c.truth.b).toBeLessThanOrEqual(f.b[1]);
       expect(c.truth.spinState).toBe(f.spin);
+    }
+  });
+
+  it('has 10Dq and B ranges that agree with Jørgensen’s f·g and β = 1 − h·k for the aqua and ammine families', () => {
+    // C. K. Jørgensen, Modern Aspects of Ligand Field Theory (1971) pp 347–348: f, g, h, k; free-ion B0 from
+    // W. L. Jolly, Modern Inorganic Chemistry (1989) p 411; both as tabulated at chemprof.tripod.com/fghk.htm.
+    // The rule is an estimate: a family's range must come within 5 % (10Dq) and 15 % (B, the rougher h·k rule) of it.
+    const estimates: Array<[key: string, f: number[], g: number, h: number[], k: number, b0: number]> = [
+      ['ni2-aqua', [1.0], 8700, [1.0], 0.12, 1030],
+      ['ni2-n-donor', [1.25, 1.28], 8700, [1.4, 1.5], 0.12, 1030], // NH3, en
+      ['co2-aqua', [1.0], 9000, [1.0], 0.09, 971],
+      ['v2-aqua', [1.0], 12000, [1.0], 0.08, 755],
+      ['fe3-o-donor', [1.0], 14000, [1.0], 0.24, 1015],
+      ['cr3-o-donor', [0.91, 0.99, 1.0], 17400, [1.0, 1.5], 0.21, 918], // urea, ox, H2O
+      ['cr3-n-donor', [1.25, 1.28], 17400, [1.4, 1.5], 0.21, 918],
+      ['co3-aqua', [1.0], 18200, [1.0], 0.35, 1065],
+      ['co3-ammine', [1.25, 1.28], 18200, [1.4, 1.5], 0.35, 1065],
+      ['mn2-aqua', [1.0], 8000, [1.0], 0.07, 860],
+    ];
+    const near = (value: number, [lo, hi]: [number, number], fraction: number): boolean => value >= lo * (1 - fraction) && value <= hi * (1 + fraction);
+    for (const [key, fs, g, hs, k, b0] of estimates) {
+      const family = FAMILIES.find((x) => x.key === key)!;
+      for (const f of fs) expect(near(f * g, [10 * family.dq[0], 10 * family.dq[1]], 0.05), `${key} 10Dq ${f * g}`).toBe(true);
+      for (const h of hs) expect(near((1 - h * k) * b0, family.b, 0.15), `${key} B ${(1 - h * k) * b0}`).toBe(true);
     }
   });
 
