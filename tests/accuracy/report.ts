@@ -4,7 +4,7 @@
  * probability (when the fit reports one) and pass/fail, and a summary line.
  */
 import { B_TOLERANCE, TEN_DQ_TOLERANCE } from './cases.js';
-import type { Graded } from './run-corpus.js';
+import type { Graded, RealLikeRow } from './run-corpus.js';
 
 const dash = '—';
 const int = (v: number | null): string => (v === null ? dash : String(Math.round(v)));
@@ -91,7 +91,7 @@ function familyTable(rows: readonly Graded[]): string[] {
   return out;
 }
 
-export function accuracyMarkdown(spectra: readonly Graded[], sets: readonly Graded[], meta: { seconds: number; date: string }): string {
+export function accuracyMarkdown(spectra: readonly Graded[], sets: readonly Graded[], realLike: readonly RealLikeRow[], meta: { seconds: number; date: string }): string {
   const all = summarize([...spectra, ...sets]);
   const steps = stepSummary(spectra);
   const stages = failureStages(spectra);
@@ -123,6 +123,14 @@ export function accuracyMarkdown(spectra: readonly Graded[], sets: readonly Grad
     ...familyTable(spectra),
     '',
     ...table(spectra),
+    '',
+    '## The four visible-only "Done when" spectra',
+    '',
+    'fixtures/spectra/real-like/: 380–780 nm, 1 nm, rounded to 0.01, synthesized from published band positions, ε and widths (sources in its README; not measurements), analysed without a concentration as `fieldgap analyze FILE --ion ION`.',
+    '',
+    '| file | ion | issue 13 asks | result | |',
+    '|---|---|---|---|---|',
+    ...realLike.map((r) => `| ${r.file} | ${r.ion} | ${cell(r.expected)} | ${cell(r.result)} | ${r.pass ? 'pass' : '**FAIL**'} |`),
     '',
     '## Published band sets (`fit`)',
     '',
