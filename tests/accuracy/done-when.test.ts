@@ -93,8 +93,22 @@ describe('published band sets', () => {
     const r = fitBands({ ion: s.ion, geometry: s.geometry, bands: s.bands, ...(s.freeC && { freeC: true }) });
     expect(Math.abs(r.tenDq - s.tenDq) / s.tenDq).toBeLessThanOrEqual(0.03); // source: published-sets.ts
   };
-  it('hexaaqua Mn(II), C free: 10Dq within 3 %', () => within3('mn2-aqua'));
-  it('hexaaqua Mn(II) flagged spin-forbidden, C free: 10Dq within 3 %', () => within3('mn2-aqua-sf'));
+  it('hexaaqua Mn(II), five quartets, C free: 10Dq within 3 %', () => within3('mn2-aqua'));
+  it('hexaaqua Mn(II), five quartets flagged spin-forbidden, C free: 10Dq within 3 %', () => within3('mn2-aqua-sf'));
+  // A reading of the issue ("flagged or not", item 5: the data decide what is fitted): five quartets fix C, so the fit
+  // should free it without being told. If the coordinator decides --free-c stays the user's choice, drop these two.
+  // fails until issue 13 lands: today C stays at the free-ion ratio unless the user frees it: 10Dq ≈ 7 000 (−17 %).
+  it.fails('hexaaqua Mn(II), five quartets, C not freed by the user: 10Dq within 3 %', () => within3('mn2-aqua-c-ratio'));
+  // fails until issue 13 lands: today the 28 000 cm-1 band is left unexplained when the bands are flagged.
+  it.fails('hexaaqua Mn(II), five quartets flagged, C not freed by the user: 10Dq within 3 % and every band explained', () => {
+    within3('mn2-aqua-c-ratio-sf');
+    const s = set('mn2-aqua-c-ratio-sf');
+    expect(fitBands({ ion: s.ion, geometry: s.geometry, bands: s.bands }).unassigned).toEqual([]);
+  });
+  // fails until issue 13 lands: today 10Dq ≈ 7 255 (−15 %), as the issue reports.
+  it.fails('hexaaqua Mn(II), seven quartets, C free: 10Dq within 3 %', () => within3('mn2-aqua-7'));
+  // fails until issue 13 lands: as above, flagged.
+  it.fails('hexaaqua Mn(II), seven quartets flagged spin-forbidden, C free: 10Dq within 3 %', () => within3('mn2-aqua-7-sf'));
   // fails until issue 13 lands: today 10Dq ≈ 8 400 (published ≈ 4 100).
   it.fails('tetrahedral [NiCl4]2-: 10Dq within 3 %', () => within3('ni2-tet-cl'));
 });

@@ -30,6 +30,12 @@ export const PUBLISHED_SETS: readonly PublishedSet[] = [
   { id: 'cr3-ammine', complex: '[Cr(NH3)6]3+', ion: 'Cr3+', geometry: 'octahedral', bands: '21550,28500', tenDq: 21550, b: 657, spinState: 'no-choice', source: LEVER },
   { id: 'mn2-aqua', complex: '[Mn(H2O)6]2+', ion: 'Mn2+', geometry: 'octahedral', bands: '18900,23100,25000,28000,29700', freeC: true, tenDq: 8500, b: 671, spinState: 'high-spin', source: LEVER },
   { id: 'mn2-aqua-sf', complex: '[Mn(H2O)6]2+ (bands flagged spin-forbidden)', ion: 'Mn2+', geometry: 'octahedral', bands: '18900:sf,23100:sf,25000:sf,28000:sf,29700:sf', freeC: true, tenDq: 8500, b: 671, spinState: 'high-spin', source: LEVER },
+  { id: 'mn2-aqua-c-ratio', complex: '[Mn(H2O)6]2+ (C not freed by the user)', ion: 'Mn2+', geometry: 'octahedral', bands: '18900,23100,25000,28000,29700', tenDq: 8500, b: 671, spinState: 'high-spin', source: LEVER },
+  { id: 'mn2-aqua-c-ratio-sf', complex: '[Mn(H2O)6]2+ (flagged, C not freed by the user)', ion: 'Mn2+', geometry: 'octahedral', bands: '18900:sf,23100:sf,25000:sf,28000:sf,29700:sf', tenDq: 8500, b: 671, spinState: 'high-spin', source: LEVER },
+  // The 4A1g/4Eg(G) pair resolved and 4T1g(P) added: the seven quartets below 33 000 cm-1 usually listed for the ion
+  // (from memory; cf. Heidt, Koster and Johnson, J. Am. Chem. Soc. 80 (1958) 6471, perchlorate solution).
+  { id: 'mn2-aqua-7', complex: '[Mn(H2O)6]2+, seven quartets', ion: 'Mn2+', geometry: 'octahedral', bands: '18900,23100,24950,25300,27950,29700,32400', freeC: true, tenDq: 8500, b: 671, spinState: 'high-spin', source: `${LEVER}; Heidt, Koster & Johnson (1958) (from memory)` },
+  { id: 'mn2-aqua-7-sf', complex: '[Mn(H2O)6]2+, seven quartets flagged spin-forbidden', ion: 'Mn2+', geometry: 'octahedral', bands: '18900:sf,23100:sf,24950:sf,25300:sf,27950:sf,29700:sf,32400:sf', freeC: true, tenDq: 8500, b: 671, spinState: 'high-spin', source: `${LEVER}; Heidt, Koster & Johnson (1958) (from memory)` },
   { id: 'co3-ammine', complex: '[Co(NH3)6]3+', ion: 'Co3+', geometry: 'octahedral', bands: '21050,29550', tenDq: 22870, b: 615, spinState: 'low-spin', source: LEVER },
   { id: 'co2-aqua', complex: '[Co(H2O)6]2+', ion: 'Co2+', geometry: 'octahedral', bands: '8100,19400', tenDq: 9200, b: 825, spinState: 'high-spin', source: LEVER },
   { id: 'co2-tet-cl', complex: '[CoCl4]2-', ion: 'Co2+', geometry: 'tetrahedral', bands: '5500,14700', tenDq: 3200, b: 710, spinState: 'no-choice', source: LEVER },
