@@ -116,6 +116,23 @@ describe('published band sets', () => {
 /** Each corpus case is analysed once and shared by the tests below (the corpus takes a while on a busy machine). */
 const CORPUS_TIMEOUT_MS = 900_000;
 
+describe('honest when underdetermined (issue 13, item 5)', () => {
+  // fails until issue 13 lands: today C = 18 793 ± 4.3·10^10 cm-1, status "exact".
+  it.fails('Ni(II) 8 500, 13 800, 25 300 with C free: no astronomical uncertainty called exact', () => {
+    let fit: ReturnType<typeof fitBands>;
+    try {
+      fit = fitBands({ ion: 'Ni2+', bands: [8500, 13800, 25300], freeC: true });
+    } catch (error) {
+      expect(error).toBeInstanceOf(FieldgapError); // refusing with a clear message is an honest answer
+      return;
+    }
+    const c = fit.c ?? 0;
+    const sigma = fit.uncertainty.c;
+    // Either C is reported with an uncertainty smaller than itself, or not reported as determined at all.
+    expect(sigma === null || (Number.isFinite(sigma) && sigma < Math.abs(c))).toBe(true);
+  });
+});
+
 describe('the validation corpus', () => {
   const cases = corpusCases();
   const outcomes = new Map<string, CaseOutcome>();
