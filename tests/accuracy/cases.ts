@@ -14,7 +14,11 @@
  *   within ±1 000 cm-1 (issue 13, "Done when", the Cu(II) case);
  * - B: when two strong spin-allowed bands (three quartets for d5) lie inside
  *   and the ion has B-dependent transitions.
- * Tolerances: 10Dq 3 %, B 8 % (issue 13).
+ * Weak (two-electron, orbitally forbidden) bands do not count, and
+ * transitions closer than MERGE_CM1 count as one band. Tetrahedral d5: 10Dq
+ * is not graded (its quartets hardly move with it). A parameter that is not
+ * graded must still not be stated wrongly without saying so (run-corpus.ts,
+ * saysUndetermined). Tolerances: 10Dq 3 %, B 8 % (issue 13).
  */
 import type { SpinState } from '../../src/ligand-field/types.js';
 import { FAMILIES, type Family, type VariantName } from './families.js';
