@@ -90,6 +90,17 @@ describe('corpus coverage', () => {
     expect(has((c) => c.bands.some((b) => b.kind === 'spin-forbidden' && b.fwhm <= 500))).toBe(true);
   });
 
+  it('puts sharp spin-forbidden lines on broad bands and lets spin-allowed bands overlap in many cases', () => {
+    const sharpOnBroad = cases.filter((c) => c.bands.some((f) => f.kind === 'spin-forbidden' && f.fwhm <= 500
+      && c.bands.some((a) => a.kind === 'spin-allowed' && Math.abs(a.position - f.position) < a.fwhm / 2)));
+    const overlapping = cases.filter((c) => {
+      const allowed = c.bands.filter((b) => b.kind === 'spin-allowed').sort((x, y) => x.position - y.position);
+      return allowed.some((b, i) => i > 0 && b.position - allowed[i - 1]!.position < (b.fwhm + allowed[i - 1]!.fwhm) / 2);
+    });
+    expect(sharpOnBroad.length).toBeGreaterThanOrEqual(10);
+    expect(overlapping.length).toBeGreaterThanOrEqual(10);
+  });
+
   it('draws Dq, B and C/B inside each family range, with the spin state the family declares', () => {
     for (const c of cases) {
       const f = c.family;
