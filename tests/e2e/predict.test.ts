@@ -44,7 +44,7 @@ describe.skipIf(browserTestsSkipped())('the Predict view in headless Chromium', 
     const service = await servicePrediction(s.service.baseUrl, '[Fe(CN)6]4-');
     expect(Number(await s.page.textContent('#predict-b-unpaired'))).toBe(service.unpairedElectrons.value);
     // The diagram: t2g full of paired arrows for low-spin d6, eg empty.
-    const boxes = await s.page.$$eval('#predict-b-orbitals .orbital-set', (sets) => sets.map((set) => [set.querySelector('.set-name')?.textContent, [...set.querySelectorAll('.box')].map((b) => b.textContent?.trim())]));
+    const boxes = await s.page.$$eval('#predict-b-orbitals .orbital-set', (sets) => sets.map((set) => [set.querySelector('.set-name')?.textContent, Array.from(set.querySelectorAll('.box'), (b) => b.textContent?.trim())]));
     expect(boxes).toEqual([['eg', ['', '']], ['t2g', ['↑↓', '↑↓', '↑↓']]]);
     expect(await s.page.getAttribute('#predict-a-orbitals', 'aria-label')).toMatch(/t2g4 eg2/);
     // The energy scale: 10Dq beside the crossover and Π.
