@@ -45,6 +45,11 @@ export const RULES = {
     statement: 'four-coordinate d8 with strong-field ligands ([Ni(CN)4]2-) is square planar and diamagnetic',
     source: COMMON,
   },
+  squarePlanarCopper: {
+    id: 'square-planar-d9',
+    statement: 'four-coordinate Cu(II) and Ag(II) (d9) with N- or O-donors are square planar (Jahn–Teller)',
+    source: COMMON,
+  },
   tetrahedralHalide: {
     id: 'tetrahedral-halide-M2',
     statement: 'four-coordinate halide complexes of first-row M(II) ([CoCl4]2-, [NiCl4]2-) are tetrahedral',
@@ -70,6 +75,11 @@ export const RULES = {
     statement: 'd6 with π-acceptor ligands only (diimines, nitro, phosphanes, CN-, CO) is low-spin: t2g6 gains the largest LFSE, 2.4 Δo',
     source: COMMON,
   },
+  d4HighSpin: {
+    id: 'd4-first-row-high-spin',
+    statement: 'first-row d4 ions (Cr(II), Mn(III)) are high-spin except with cyanide and CO',
+    source: COMMON,
+  },
   weakHalide: {
     id: 'halide-weak-field',
     statement: 'iodide, bromide, chloride (and fluoride) are weak-field ligands: first-row M(II) and M(III) halide complexes are high-spin',
@@ -86,7 +96,9 @@ export const RULES = {
 export function fourCoordinateRule(metal: Pick<Ion, 'd' | 'row' | 'charge'>, ligands: LigandSet): { geometry: PredictGeometry; rule: Rule } | undefined {
   if (metal.d === 8 && metal.row > 1) return { geometry: 'square-planar', rule: RULES.squarePlanarHeavy };
   if (metal.d === 8 && ligands.keys.every((k) => SQUARE_PLANAR_LIGANDS.has(k))) return { geometry: 'square-planar', rule: RULES.squarePlanarStrong };
-  if (metal.row === 1 && metal.charge === 2 && ligands.keys.every((k) => HALIDES.has(k))) return { geometry: 'tetrahedral', rule: RULES.tetrahedralHalide };
+  const halides = ligands.keys.every((k) => HALIDES.has(k));
+  if (metal.row === 1 && metal.charge === 2 && halides) return { geometry: 'tetrahedral', rule: RULES.tetrahedralHalide };
+  if (metal.d === 9 && metal.charge === 2 && !halides) return { geometry: 'square-planar', rule: RULES.squarePlanarCopper };
   return undefined;
 }
 
@@ -100,6 +112,7 @@ export function spinRule(metal: Pick<Ion, 'd' | 'row' | 'charge' | 'label'>, geo
   const all = (set: ReadonlySet<string>) => ligands.keys.length > 0 && ligands.keys.every((k) => set.has(k));
   if (all(STRONG_FIELD)) return { spin: 'low-spin', rule: RULES.strongField };
   if (metal.d === 6 && all(PI_ACCEPTORS)) return { spin: 'low-spin', rule: RULES.piAcceptorD6 };
+  if (metal.d === 4 && metal.charge >= 2) return { spin: 'high-spin', rule: RULES.d4HighSpin };
   if (metal.charge >= 2 && metal.charge <= 3 && all(HALIDES)) return { spin: 'high-spin', rule: RULES.weakHalide };
   if (metal.charge >= 2 && metal.charge <= 3 && metal.label !== 'Co3+' && all(new Set(['H2O']))) return { spin: 'high-spin', rule: RULES.aquaHighSpin };
   return undefined;

@@ -309,7 +309,7 @@ function decideSpin(
   warnings: string[],
 ): SpinDecision {
   if (geometry === 'square-planar') {
-    const state: SpinState = metal.d === 8 ? 'low-spin' : metal.d >= 4 && metal.d <= 7 ? 'low-spin' : 'no-choice';
+    const state: SpinState = metal.d >= 4 && metal.d <= 8 ? 'low-spin' : 'no-choice';
     const summary = metal.d === 8
       ? 'square-planar d8: the x²−y² orbital stays empty, so the complex is diamagnetic (common practice)'
       : 'square planar: orbitals filled in order of energy (strong-field filling, an assumption; the square-planar field is not modelled)';
@@ -362,6 +362,7 @@ function groundTermFor(
   if (geometry === 'square-planar') {
     if (metal.d === 8) return { term: '1A1g', method: 'square-planar d8 (D4h): closed-shell lower four orbitals (common practice)' };
     if (metal.d === 0 || metal.d === 10) return { term: '1A1g', method: 'closed configuration' };
+    if (metal.d === 9) return { term: '2B1g', method: 'square-planar d9 (D4h): one hole in x²−y² (common practice)' };
     return { term: 'not modelled', method: 'the square-planar field is not modelled by the engine' };
   }
   const dq = tenDq / 10;

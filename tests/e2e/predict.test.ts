@@ -64,7 +64,7 @@ describe.skipIf(browserTestsSkipped())('the Predict view in headless Chromium', 
     await s.page.waitForFunction(() => document.querySelector('#predict-b-dcount')?.textContent === 'd8 (Ni2+)');
     expect(await s.page.textContent('#predict-b-geometry-value')).toBe('square-planar');
     await s.page.selectOption('#predict-b-geometry', '');
-    await s.page.fill('#predict-b-formula', '[Mn(ox)3]3-');
+    await s.page.fill('#predict-b-formula', '[Fe(edta)]-');
     await s.page.click('#predict-b-go');
     await s.page.waitForSelector('#predict-b-borderline');
     expect(await s.page.textContent('#predict-b-spin')).toMatch(/^borderline: /);

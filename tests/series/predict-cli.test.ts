@@ -61,7 +61,7 @@ describe('fieldgap predict', () => {
   });
 
   it('the table fits an 80-column terminal for every textbook complex', async () => {
-    for (const formula of ['[Co(NH3)6]3+', 'K3[CoF6]', '[Fe(phen)3]2+', '[Ni(CN)4]2-', '[Cu(en)2(H2O)2]2+', '[Mn(ox)3]3-', '[Co(en)2Cl2]+', 'Cr(CO)6']) {
+    for (const formula of ['[Co(NH3)6]3+', 'K3[CoF6]', '[Fe(phen)3]2+', '[Ni(CN)4]2-', '[Cu(en)2(H2O)2]2+', '[Fe(edta)]-', '[Co(en)2Cl2]+', 'Cr(CO)6']) {
       const { code, out } = await run(formula);
       expect(code, formula).toBe(0);
       for (const line of out.split('\n')) expect([...line].length, `${formula}: ${line}`).toBeLessThanOrEqual(80);

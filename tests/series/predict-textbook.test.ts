@@ -37,6 +37,16 @@ const TEXTBOOK: Row[] = [
   ['[V(H2O)6]3+', 2, 'no-choice', 2, 'octahedral'], // common practice: d2
   ['[Zn(H2O)6]2+', 10, 'no-choice', 0, 'octahedral'], // common practice: d10
   ['[Cu(CN)4]3-', 10, 'no-choice', 0, 'tetrahedral'], // common practice: d10 Cu(I)
+  // Beyond the list:
+  ['[Cu(NH3)4]2+', 9, 'no-choice', 1, 'square-planar'], // common practice
+  ['[Mn(acac)3]', 4, 'high-spin', 4, 'octahedral'], // common practice: the Jahn–Teller example
+  ['[Co(H2O)6]3+', 6, 'low-spin', 0, 'octahedral'], // common practice: the aqua exception
+  ['[Co(bpy)3]2+', 7, 'high-spin', 3, 'octahedral'], // common practice
+  ['[Fe(bpy)3]2+', 6, 'low-spin', 0, 'octahedral'], // common practice
+  ['[FeCl4]-', 5, 'high-spin', 5, 'tetrahedral'], // common practice
+  ['[IrCl6]2-', 5, 'low-spin', 1, 'octahedral'], // common practice
+  ['[Ni(dtc)2]', 8, 'low-spin', 0, 'square-planar'], // common practice: Ni(S2CNEt2)2 diamagnetic
+  ['[Ni(PPh3)2Cl2]', 8, 'no-choice', 2, 'tetrahedral'], // common practice: the paramagnetic tetrahedral isomer
 ];
 
 describe('textbook complexes: d-count, spin state, unpaired electrons', () => {
