@@ -7,10 +7,10 @@ import type { PredictGeometry } from './rules.js';
  *
  * Energies (Dq, barycentre 0): octahedral t2g −4, eg +6; tetrahedral e −6,
  * t2 +4 (Dq of the tetrahedral field); square planar (xz, yz) −5.14, z² −4.28,
- * xy +2.28, x²−y² +12.28, the point-charge values of Krishnamurthy & Schaap,
- * "Computing Ligand Field Potentials and Relative Energies of d Orbitals",
- * J. Chem. Educ. 46 (1969) 799 (values from memory); the square-planar order
- * is the usual textbook one, real complexes differ in the lower three.
+ * xy +2.28, x²−y² +12.28 (in Dq of the octahedron with the same ligands), the
+ * crystal-field values of Day & Selbin, Theoretical Inorganic Chemistry
+ * (1962), p. 292 (looked up, as tabulated at chemprof.tripod.com/dorbit.htm);
+ * real square-planar complexes differ in the order of the lower three.
  *
  * High-spin fills every orbital singly before pairing (Hund's rule over all
  * five); low-spin fills the sets in order of energy, Hund's rule within a set.

