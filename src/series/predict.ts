@@ -54,7 +54,7 @@ export interface UsedFactor {
 export interface PredictedLigand extends LigandCount {
   /** Jørgensen f used for it. */
   f: number;
-  /** Jørgensen h used for it (published or estimated; undefined never happens since 2026, kept for the type). */
+  /** Jørgensen h used for it: published or estimated, always set now; the type keeps undefined for existing readers. */
   h: number | undefined;
   /** f with its uncertainty and source. */
   fFactor: UsedFactor;
@@ -107,7 +107,7 @@ export interface Prediction {
   /** The one-electron picture: orbital sets, arrows, configuration. */
   occupation: Occupation;
   /** Ligand-field stabilisation energy without pairing energy: negative is stabilising. */
-  lfse: { dq: number; deltaUnits: number; value: number; unit: 'cm-1'; method: string };
+  lfse: { dq: number; deltaUnits: number; value: number; unit: 'cm-1'; method: string; /** One standard deviation, cm-1, from that of 10Dq. */ uncertainty: number };
   /** g and k of the metal as used. */
   metalFactors: { g: UsedFactor; k: UsedFactor };
   estimate: true;
@@ -210,6 +210,7 @@ export function predictComplex(formula: string, options: PredictOptions = {}): P
       dq: occupation.lfseDq,
       deltaUnits: occupation.lfseDq / 10,
       value: occupation.lfseDq * dq,
+      uncertainty: Math.abs(occupation.lfseDq * dq) * tenDqSigmaRel,
       unit: 'cm-1',
       method: `Σ n·E over the occupied orbital sets, E in Dq (${geometry === 'square-planar' ? 'point-charge square-planar energies' : geometry === 'tetrahedral' ? 'e −6Dq, t2 +4Dq' : 't2g −4Dq, eg +6Dq'}); pairing energy not included`,
     },

@@ -112,16 +112,18 @@ export function predictionReport(p: Prediction): string {
   add(`Ligands: ${p.ligands.map((l) => `${l.count} × ${l.key} (${l.name})`).join(', ')}; coordination number ${p.coordinationNumber}`);
   add(`Geometry: ${p.geometry.value} (${p.geometry.method})`);
   out.push('', 'Estimates (from tabulated factors, not measurements; ± one standard deviation):');
+  // d0, d1, d9, d10 have no electron-repulsion terms in their ligand-field levels.
+  const none = p.d <= 1 || p.d >= 9 ? `not needed for d${p.d}` : 'not estimated';
   const rows: [string, string][] = [
     ['10Dq', `${cm(p.tenDq.value)} cm-1 (${cm(1e7 / p.tenDq.value)} nm), ± ${cm(round(p.tenDq.uncertainty ?? 0, 10))}`],
-    ['beta', p.beta ? pm(p.beta.value, p.beta.uncertainty, 2) : 'not estimated'],
-    ['Racah B', p.b ? `${cm(p.b.value)} ± ${cm(p.b.uncertainty ?? 0)} cm-1` : 'not estimated'],
-    ['Racah C', p.c ? `${cm(p.c.value)} cm-1 (C/B kept at the free-ion ratio)` : 'not estimated'],
+    ['beta', p.beta ? pm(p.beta.value, p.beta.uncertainty, 2) : none],
+    ['Racah B', p.b ? `${cm(p.b.value)} ± ${cm(p.b.uncertainty ?? 0)} cm-1` : none],
+    ['Racah C', p.c ? `${cm(p.c.value)} cm-1 (C/B kept at the free-ion ratio)` : none],
     ['spin state', spinText(p)],
     ['unpaired electrons', String(p.unpairedElectrons.value)],
     ['ground term', p.groundTerm.value],
     ['spin-only moment', `${p.spinOnlyMoment.value.toFixed(2)} μB${p.orbitalContribution.expected ? ' (orbital contribution expected)' : ''}`],
-    ['LFSE', `${p.lfse.deltaUnits.toFixed(2)} Δ = ${cm(p.lfse.value)} cm-1 (without pairing energy)`],
+    ['LFSE', `${p.lfse.deltaUnits.toFixed(2)} Δ = ${cm(p.lfse.value)} ± ${cm(round(p.lfse.uncertainty, 10))} cm-1 (without pairing energy)`],
   ];
   const width = Math.max(...rows.map((r) => r[0].length));
   for (const [label, value] of rows) add(value, `  ${label.padEnd(width)}  `, ' '.repeat(width + 4));
