@@ -131,12 +131,12 @@ function resultBlock(p: Prediction, id: string, scaleMax: number): HTMLElement {
     ['d-count', `d${p.d} (${p.ion})`, 'dcount'],
     ['Geometry', p.geometry.value, 'geometry-value'],
     ['10Dq', `${pmText(p.tenDq.value, p.tenDq.uncertainty)} cm⁻¹`, 'tendq'],
-    ['β', p.beta ? pmText(p.beta.value, p.beta.uncertainty, 2) : 'not estimated', 'beta'],
+    ['β', p.beta ? pmText(p.beta.value, p.beta.uncertainty, 2) : p.d <= 1 || p.d >= 9 ? `not needed for d${p.d}` : 'not estimated', 'beta'],
     ['Spin state', spinHeadline(p), 'spin'],
     ['Unpaired electrons', String(p.unpairedElectrons.value), 'unpaired'],
     ['Spin-only moment', `${p.spinOnlyMoment.value.toFixed(2)} μB${p.orbitalContribution.expected ? ' (orbital contribution expected)' : ''}`, 'moment'],
     ['Ground term', p.groundTerm.value, 'term'],
-    ['LFSE', `${p.lfse.deltaUnits.toFixed(2)} Δ = ${cm(p.lfse.value)} cm⁻¹`, 'lfse'],
+    ['LFSE', `${p.lfse.deltaUnits.toFixed(2)} Δ = ${pmText(p.lfse.value, p.lfse.uncertainty)} cm⁻¹ (pairing energy not included)`, 'lfse'],
   ];
   return h(
     'div',
