@@ -81,4 +81,17 @@ describe('fieldgap predict', () => {
     expect(fe).toMatch(/spin state\s+high-spin \(by rule/);
     expect(fe).toMatch(/orbital contribution expected/);
   });
+
+  it('--vs: two complexes side by side in 80 columns, and as JSON', async () => {
+    const { code, out } = await run('[Fe(H2O)6]2+', '--vs', '[Fe(CN)6]4-');
+    expect(code).toBe(0);
+    for (const line of out.split('\n')) expect([...line].length, line).toBeLessThanOrEqual(80);
+    expect(out).toMatch(/unpaired electrons\s+4\s+0\n/); // common practice: high-spin vs low-spin Fe(II)
+    expect(out).toMatch(/spin state\s+high-spin\s+low-spin\n/); // common practice
+    expect(out).toMatch(/t2g\s+\[↑↓\]\[↑ \]\[↑ \]\s+t2g\s+\[↑↓\]\[↑↓\]\[↑↓\]/);
+    expect(out).toMatch(/Rule B: cyanide and CO are strong-field ligands/);
+    const doc = JSON.parse((await run('[NiCl4]2-', '--vs', '[Ni(CN)4]2-', '--json')).out);
+    expect(doc.complexes.map((c: { geometry: { value: string } }) => c.geometry.value)).toEqual(['tetrahedral', 'square-planar']); // common practice
+    expect((await run('[NiCl4]2-', '--vs', ' ')).err).toMatch(/^fieldgap predict: --vs: give the formula of the second complex/);
+  });
 });

@@ -54,6 +54,13 @@ function factorText(name: string, f: UsedFactor, digits: number, unit = ''): str
   return `${name} = ${pm(f.value, f.uncertainty, digits)}${unit} (${f.kind})`;
 }
 
+const SUPERSCRIPT: Record<string, string> = { 0: '⁰', 1: '¹', 2: '²', 3: '³', 4: '⁴', 5: '⁵', 6: '⁶' };
+
+/** "t2g^6 eg^0" → "t2g⁶ eg⁰": the count as a superscript, so "t2⁴" is not read as "t24". */
+export function configurationText(configuration: string): string {
+  return configuration.replace(/\^(\d)/g, (_m, digit: string) => SUPERSCRIPT[digit] ?? digit);
+}
+
 /** A probability for reading: "0.87", "> 0.99", "< 0.01". */
 export function probabilityText(p: number): string {
   if (p > 0.995) return '> 0.99';
@@ -127,7 +134,7 @@ export function predictionReport(p: Prediction): string {
   ];
   const width = Math.max(...rows.map((r) => r[0].length));
   for (const [label, value] of rows) add(value, `  ${label.padEnd(width)}  `, ' '.repeat(width + 4));
-  out.push('', `Why (${p.occupation.configuration.replace(/\^/g, '')}):`);
+  out.push('', `Why (${configurationText(p.occupation.configuration)}):`);
   out.push(...orbitalLines(p));
   const scale = energyScaleLines(p);
   if (scale.length) out.push('', ...scale);
@@ -144,4 +151,59 @@ export function predictionReport(p: Prediction): string {
   out.push('', 'Sources:');
   for (const s of p.sources) add(s, '  - ', '    ');
   return `${out.join('\n')}\n`;
+}
+
+/** One cell of the comparison, cut to `width` with an ellipsis when longer. */
+function cell(text: string, width: number): string {
+  const chars = [...text];
+  return chars.length <= width ? text.padEnd(width) : `${chars.slice(0, width - 1).join('')}…`;
+}
+
+/** Two predictions side by side (`predict A --vs B`), 80 columns: label 18, two columns of 29. */
+export function comparisonReport(a: Prediction, b: Prediction): string {
+  const label = 18;
+  const column = 29;
+  const rulesOf = (p: Prediction) => [...new Set([p.geometryRule, p.spinDecision.rule].filter((r) => r !== null))];
+  const decided = (p: Prediction): string => (p.spinDecision.decidedBy === 'rule' ? `rule ${p === a ? 'A' : 'B'} (below)` : p.spinDecision.decidedBy === 'numbers' ? `numbers${p.spinDecision.borderline ? ' (borderline)' : ''}` : 'no spin choice');
+  const spin = (p: Prediction): string => {
+    const n = p.spinDecision.numbers;
+    if (p.spinState.value === 'no-choice') return 'no choice';
+    const prob = n ? `, P = ${probabilityText(p.spinState.value === 'low-spin' ? n.probabilities.lowSpin : n.probabilities.highSpin)}` : '';
+    return p.spinDecision.decidedBy === 'rule' ? p.spinState.value : `${p.spinState.value}${prob}`;
+  };
+  const rows: [string, (p: Prediction) => string][] = [
+    ['complex', (p) => p.complexIon],
+    ['metal, d-count', (p) => `${p.ion}, d${p.d}`],
+    ['geometry', (p) => p.geometry.value],
+    ['10Dq / cm-1', (p) => `${cm(p.tenDq.value)} ± ${cm(round(p.tenDq.uncertainty ?? 0, 10))}`],
+    ['crossover / cm-1', (p) => (p.spinDecision.numbers ? cm(p.spinDecision.numbers.crossoverTenDq) : '—')],
+    ['Π / cm-1', (p) => (p.spinDecision.numbers?.pairingEnergy ? cm(p.spinDecision.numbers.pairingEnergy.value) : '—')],
+    ['beta', (p) => (p.beta ? pm(p.beta.value, p.beta.uncertainty, 2) : '—')],
+    ['spin state', spin],
+    ['decided by', decided],
+    ['configuration', (p) => configurationText(p.occupation.configuration)],
+    ['unpaired electrons', (p) => String(p.unpairedElectrons.value)],
+    ['spin-only moment', (p) => `${p.spinOnlyMoment.value.toFixed(2)} μB${p.orbitalContribution.expected ? ' + orbital' : ''}`],
+    ['ground term', (p) => p.groundTerm.value],
+    ['LFSE', (p) => `${p.lfse.deltaUnits.toFixed(2)} Δ = ${cm(p.lfse.value)} cm-1`],
+  ];
+  const lines = ['Side by side (estimates from tabulated factors, not measurements):', ''];
+  for (const [name, get] of rows) lines.push(`${name.padEnd(label)}  ${cell(get(a), column)}  ${cell(get(b), column)}`.trimEnd());
+  // The orbital boxes, highest set first, one line per set.
+  const boxes = (p: Prediction): string[] => [...p.occupation.sets].reverse().map((set) => `${set.name.padEnd(6)} ${set.boxes.map((x) => `[${boxArrows(x)}]`).join('')}`);
+  const left = boxes(a);
+  const right = boxes(b);
+  for (let i = 0; i < Math.max(left.length, right.length); i++) {
+    lines.push(`${(i === 0 ? 'orbitals' : '').padEnd(label)}  ${cell(left[i] ?? '', column)}  ${cell(right[i] ?? '', column)}`.trimEnd());
+  }
+  for (const [letter, p] of [['A', a], ['B', b]] as const) {
+    for (const rule of rulesOf(p)) lines.push(...wrapText(`${rule.statement} (${rule.source})`, `Rule ${letter}: `, '    '));
+  }
+  const notes = [...a.warnings.map((w) => `${a.complexIon}: ${w}`), ...b.warnings.map((w) => `${b.complexIon}: ${w}`)];
+  if (notes.length > 0) {
+    lines.push('', 'Warnings:');
+    for (const w of notes) lines.push(...wrapText(w, '  - ', '    '));
+  }
+  lines.push('', 'Run predict on each complex alone for the orbital diagrams and the sources.');
+  return `${lines.join('\n')}\n`;
 }

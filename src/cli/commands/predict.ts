@@ -6,7 +6,7 @@ import { ownFactorsFromFit } from '../../series/predict-library.js';
 import type { Command, CliIo } from '../command.js';
 import { numberOption, parseCommandArgs } from '../options.js';
 import { withLibrary } from './library.js';
-import { predictionReport } from './predict-report.js';
+import { comparisonReport, predictionReport } from './predict-report.js';
 
 export { predictionReport } from './predict-report.js';
 
@@ -18,8 +18,8 @@ export const PREDICT_GEOMETRIES: readonly PredictGeometry[] = ['octahedral', 'te
  * complex estimated from its formula alone (Jørgensen's factorisations and the
  * free-ion Racah parameters, then the ligand-field engine). No file access.
  */
-const USAGE = `Usage: fieldgap predict FORMULA [--geometry G] [--library] [--g G] [--k K]
-                        [--f LIGAND=F]... [--h LIGAND=H]... [--json]
+const USAGE = `Usage: fieldgap predict FORMULA [--vs FORMULA2] [--geometry G] [--library]
+                        [--g G] [--k K] [--f LIGAND=F]... [--h LIGAND=H]... [--json]
 
 Estimates 10Dq, beta, Racah B and C, the spin state (with its probability, or
 the rule of the trade that decides it), unpaired electrons, the orbital
@@ -31,6 +31,8 @@ FORMULA is a complex or a salt, quoted for the shell:
   "[Co(NH3)6]3+"  "[Ni(NH3)6]Cl2"  "K3[Fe(C2O4)3]"  "[Co(en)2Cl2]+"  "CoCl4 2-"
 
 Options:
+  --vs FORMULA2    a second complex side by side (same metal, another ligand);
+                   --json then prints { "complexes": [first, second] }
   --geometry G     octahedral, tetrahedral or square-planar (default: from the
                    coordination number and the rules of the trade, stated)
   --library        use the ligand factors fitted from your library's analyses
@@ -46,7 +48,7 @@ Example: fieldgap predict "[Cr(NH3)6]3+"
 `;
 
 /** Reads and checks the options; every failure names its option. */
-export function parsePredictArgs(argv: string[]): { formula: string; options: PredictOptions; json: boolean; library: boolean; data: string | undefined } {
+export function parsePredictArgs(argv: string[]): { formula: string; vs: string | undefined; options: PredictOptions; json: boolean; library: boolean; data: string | undefined } {
   const { values, positionals } = parseCommandArgs(
     argv,
     {
@@ -58,6 +60,7 @@ export function parsePredictArgs(argv: string[]): { formula: string; options: Pr
       json: { type: 'boolean' },
       library: { type: 'boolean' },
       data: { type: 'string' },
+      vs: { type: 'string' },
     },
     true,
   );
@@ -88,7 +91,8 @@ export function parsePredictArgs(argv: string[]): { formula: string; options: Pr
   if (Object.keys(factors).length > 0) options.factors = factors;
   // Words are joined so that an unquoted `CoCl4 2-` reads as the one formula it is.
   if (values.data !== undefined && !values.library) throw invalidArgument('--data', '--data names the library folder: give it with --library');
-  return { formula: positionals.join(' '), options, json: values.json ?? false, library: values.library ?? false, data: values.data };
+  if (values.vs !== undefined && values.vs.trim() === '') throw invalidArgument('--vs', '--vs: give the formula of the second complex, e.g. --vs "[Fe(CN)6]4-"');
+  return { formula: positionals.join(' '), vs: values.vs, options, json: values.json ?? false, library: values.library ?? false, data: values.data };
 }
 
 /** The JSON document of `predict --json`: the contract fields first (do not rename), then the rest. */
@@ -99,8 +103,13 @@ export function predictionJson(p: Prediction): object {
 }
 
 /** JSON text with float noise trimmed (12 significant digits: 591.8000000000001 → 591.8). */
+function jsonText(doc: object): string {
+  return `${JSON.stringify(doc, (_key, value: unknown) => (typeof value === 'number' && Number.isFinite(value) ? Number(value.toPrecision(12)) : value), 2)}\n`;
+}
+
+/** `predict --json` text of one prediction. */
 export function predictionJsonText(p: Prediction): string {
-  return `${JSON.stringify(predictionJson(p), (_key, value: unknown) => (typeof value === 'number' && Number.isFinite(value) ? Number(value.toPrecision(12)) : value), 2)}\n`;
+  return jsonText(predictionJson(p));
 }
 
 export const predictCommand: Command = {
@@ -108,7 +117,18 @@ export const predictCommand: Command = {
   summary: "estimate 10Dq, B, beta and the spin state of a complex from its formula (Jørgensen's factors)",
   usage: USAGE,
   async run(argv, io) {
-    const { formula, options, json, library, data } = parsePredictArgs(argv);
+    const { formula, vs, options, json, library, data } = parsePredictArgs(argv);
+    if (vs !== undefined) {
+      const second: PredictOptions = { ...options };
+      if (library) {
+        await addLibraryFactors(formula, options, data, io);
+        await addLibraryFactors(vs, second, data, io);
+      }
+      const a = predictComplex(formula, options);
+      const b = predictComplex(vs, second);
+      io.stdout(json ? jsonText({ complexes: [predictionJson(a), predictionJson(b)] }) : comparisonReport(a, b));
+      return 0;
+    }
     if (library) await addLibraryFactors(formula, options, data, io);
     const prediction = predictComplex(formula, options);
     io.stdout(json ? predictionJsonText(prediction) : predictionReport(prediction));
