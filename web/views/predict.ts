@@ -60,10 +60,11 @@ const cm = (x: number): string => Math.round(x).toLocaleString('en-US').replace(
 const pmText = (value: number, sigma: number | undefined, digits = 0): string =>
   sigma === undefined ? value.toFixed(digits) : `${digits === 0 ? cm(value) : value.toFixed(digits)} ± ${digits === 0 ? cm(sigma) : sigma.toFixed(digits)}`;
 
+/** "P = 0.87", "P > 0.99", "P < 0.01". */
 function probabilityText(p: number): string {
-  if (p > 0.995) return '> 0.99';
-  if (p < 0.005) return '< 0.01';
-  return p.toFixed(2);
+  if (p > 0.995) return 'P > 0.99';
+  if (p < 0.005) return 'P < 0.01';
+  return `P = ${p.toFixed(2)}`;
 }
 
 /** "high-spin (rule)", "low-spin, P = 0.97", "borderline: low-spin, P = 0.62". */
@@ -73,7 +74,7 @@ export function spinHeadline(p: Prediction): string {
   if (d.decidedBy === 'rule') return `${d.state} (by a rule of the trade)`;
   const n = d.numbers;
   const probability = n ? probabilityText(d.state === 'low-spin' ? n.probabilities.lowSpin : n.probabilities.highSpin) : '';
-  return `${d.borderline ? 'borderline: ' : ''}${d.state}${n ? `, P = ${probability}` : ''}`;
+  return `${d.borderline ? 'borderline: ' : ''}${d.state}${n ? `, ${probability}` : ''}`;
 }
 
 /** The orbital diagram: highest set on top, one box per orbital, arrows for electrons. */

@@ -61,11 +61,11 @@ export function configurationText(configuration: string): string {
   return configuration.replace(/\^(\d)/g, (_m, digit: string) => SUPERSCRIPT[digit] ?? digit);
 }
 
-/** A probability for reading: "0.87", "> 0.99", "< 0.01". */
+/** A probability for reading: "P = 0.87", "P > 0.99", "P < 0.01". */
 export function probabilityText(p: number): string {
-  if (p > 0.995) return '> 0.99';
-  if (p < 0.005) return '< 0.01';
-  return p.toFixed(2);
+  if (p > 0.995) return 'P > 0.99';
+  if (p < 0.005) return 'P < 0.01';
+  return `P = ${p.toFixed(2)}`;
 }
 
 /** A horizontal bar of `value` on a scale whose full length is `max`. */
@@ -104,7 +104,7 @@ export function orbitalLines(p: Prediction): string[] {
 function spinText(p: Prediction): string {
   const d = p.spinDecision;
   if (p.spinState.value === 'no-choice') return 'no high/low-spin choice';
-  const probability = d.numbers ? `, P = ${probabilityText(p.spinState.value === 'low-spin' ? d.numbers.probabilities.lowSpin : d.numbers.probabilities.highSpin)}` : '';
+  const probability = d.numbers ? `, ${probabilityText(p.spinState.value === 'low-spin' ? d.numbers.probabilities.lowSpin : d.numbers.probabilities.highSpin)}` : '';
   if (d.decidedBy === 'rule') return `${p.spinState.value} (by rule${probability ? `; numbers alone${probability}` : ''})`;
   return `${p.spinState.value}${d.borderline ? ', BORDERLINE' : ''} (by the numbers${probability})`;
 }
@@ -168,7 +168,7 @@ export function comparisonReport(a: Prediction, b: Prediction): string {
   const spin = (p: Prediction): string => {
     const n = p.spinDecision.numbers;
     if (p.spinState.value === 'no-choice') return 'no choice';
-    const prob = n ? `, P = ${probabilityText(p.spinState.value === 'low-spin' ? n.probabilities.lowSpin : n.probabilities.highSpin)}` : '';
+    const prob = n ? `, ${probabilityText(p.spinState.value === 'low-spin' ? n.probabilities.lowSpin : n.probabilities.highSpin)}` : '';
     return p.spinDecision.decidedBy === 'rule' ? p.spinState.value : `${p.spinState.value}${prob}`;
   };
   const rows: [string, (p: Prediction) => string][] = [
