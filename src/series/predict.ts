@@ -344,9 +344,10 @@ function decideSpin(
   const state: SpinState = lowSpin ? 'low-spin' : 'high-spin';
   const p = lowSpin ? numbers.probabilities.lowSpin : numbers.probabilities.highSpin;
   const side = lowSpin ? 'above' : 'below';
+  const pText = p > 0.995 ? 'P > 0.99' : `P = ${p.toFixed(2)}`;
   const summary = numbers.borderline
-    ? `borderline: 10Dq ≈ ${Math.round(tenDq)} cm-1 lies within the uncertainty of the crossover (${Math.round(numbers.crossoverTenDq)} cm-1); ${state} more likely (P = ${p.toFixed(2)})`
-    : `${state}: 10Dq ≈ ${Math.round(tenDq)} cm-1 lies ${side} the crossover ${Math.round(numbers.crossoverTenDq)} cm-1 (P = ${p.toFixed(2)})`;
+    ? `borderline: 10Dq ≈ ${Math.round(tenDq)} cm-1 lies within the uncertainty of the crossover (${Math.round(numbers.crossoverTenDq)} cm-1); ${state} more likely (${pText})`
+    : `${state}: 10Dq ≈ ${Math.round(tenDq)} cm-1 lies ${side} the crossover ${Math.round(numbers.crossoverTenDq)} cm-1 (${pText})`;
   if (numbers.borderline) warnings.push(`borderline spin state: P(high-spin) = ${numbers.probabilities.highSpin.toFixed(2)}, P(low-spin) = ${numbers.probabilities.lowSpin.toFixed(2)}; spin crossover or a mixture is possible`);
   return { state, decidedBy: 'numbers', rule: null, borderline: numbers.borderline, numbers, summary };
 }
