@@ -9,5 +9,6 @@ export { ligandF, ligandH, metalG, metalK, ligandsWithF, SPECTROCHEMICAL_ESTIMAT
 export { RULES, fourCoordinateRule, spinRule, STRONG_FIELD, PI_ACCEPTORS, SQUARE_PLANAR_LIGANDS, HALIDES, type PredictGeometry, type Rule, type LigandSet } from './rules.js';
 export { meanPairingEnergy, pairingEnergyExpression, PAIRING_ENERGY_SOURCE } from './pairing-energy.js';
 export { spinNumbers, BORDERLINE_PROBABILITY, type SpinNumbers, type SpinNumbersInput } from './spin-decision.js';
+export { decideSpin, orbitalContribution, type SpinDecision } from './decide-spin.js';
 export { orbitalOccupation, boxArrows, type Occupation, type OrbitalSet } from './occupation.js';
 export { normalCdf, erfc } from './normal.js';

@@ -23,8 +23,8 @@ describe('public exports', () => {
   it('src/predict/index.ts', () => {
     expect(Object.keys(predict).sort()).toEqual([
       'BORDERLINE_PROBABILITY', 'HALIDES', 'NEPHELAUXETIC_ESTIMATE', 'PAIRING_ENERGY_SOURCE', 'PI_ACCEPTORS', 'RULES',
-      'SPECTROCHEMICAL_ESTIMATE', 'SQUARE_PLANAR_LIGANDS', 'STRONG_FIELD', 'boxArrows', 'erfc', 'fourCoordinateRule',
-      'ligandF', 'ligandH', 'ligandsWithF', 'meanPairingEnergy', 'metalG', 'metalK', 'normalCdf', 'orbitalOccupation',
+      'SPECTROCHEMICAL_ESTIMATE', 'SQUARE_PLANAR_LIGANDS', 'STRONG_FIELD', 'boxArrows', 'decideSpin', 'erfc', 'fourCoordinateRule',
+      'ligandF', 'ligandH', 'ligandsWithF', 'meanPairingEnergy', 'metalG', 'metalK', 'normalCdf', 'orbitalContribution', 'orbitalOccupation',
       'pairingEnergyExpression', 'spinNumbers', 'spinRule',
     ]);
   });
