@@ -68,6 +68,7 @@ describe.skipIf(browserTestsSkipped())('the Predict view in headless Chromium', 
     await s.page.click('#predict-b-go');
     await s.page.waitForSelector('#predict-b-borderline');
     expect(await s.page.textContent('#predict-b-spin')).toMatch(/^borderline: /);
+    await s.page.screenshot({ path: `${SHOTS}/predict-square-planar-borderline.png`, fullPage: true });
   }, 60_000);
 
   it('a bad formula gives an error that names the place', async () => {

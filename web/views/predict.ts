@@ -77,6 +77,11 @@ export function spinHeadline(p: Prediction): string {
   return `${d.borderline ? 'borderline: ' : ''}${d.state}${n ? `, ${probability}` : ''}`;
 }
 
+/** "x2-y2" → "x²−y²", "z2" → "z²", "t2g" unchanged: orbital names as printed. */
+export function orbitalSetName(name: string): string {
+  return name === 'x2-y2' ? 'x²−y²' : name === 'z2' ? 'z²' : name;
+}
+
 /** The orbital diagram: highest set on top, one box per orbital, arrows for electrons. */
 function orbitalDiagram(p: Prediction, id: string): HTMLElement {
   const sets = [...p.occupation.sets].reverse();
@@ -88,7 +93,7 @@ function orbitalDiagram(p: Prediction, id: string): HTMLElement {
       h(
         'div',
         { class: 'orbital-set' },
-        h('span', { class: 'set-name' }, s.name),
+        h('span', { class: 'set-name' }, orbitalSetName(s.name)),
         h('span', { class: 'boxes' }, ...s.boxes.map(([up, down]) => h('span', { class: 'box' }, up ? '↑' : '\u2002', down ? '↓' : '\u2002'))),
         h('span', { class: 'set-energy muted' }, `${s.energyDq > 0 ? '+' : s.energyDq < 0 ? '−' : ''}${Math.abs(s.energyDq)} Dq`),
       ),

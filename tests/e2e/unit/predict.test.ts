@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { predictComplex } from '../../../src/series/predict.js';
-import { predictBody, spinHeadline } from '../../../web/views/predict.js';
+import { orbitalSetName, predictBody, spinHeadline } from '../../../web/views/predict.js';
 
 describe('Predict view helpers', () => {
   it('sends only what the user chose', () => {
@@ -13,5 +13,9 @@ describe('Predict view helpers', () => {
     expect(spinHeadline(predictComplex('[Ni(NH3)6]2+'))).toBe('no high/low-spin choice');
     expect(spinHeadline(predictComplex('[Co(NH3)6]3+'))).toBe('low-spin, P > 0.99');
     expect(spinHeadline(predictComplex('[Fe(edta)]-'))).toMatch(/^borderline: high-spin, P = 0\.\d\d$/);
+  });
+
+  it('prints orbital names with superscripts', () => {
+    expect(['x2-y2', 'xy', 'z2', 'xz,yz', 't2g'].map(orbitalSetName)).toEqual(['x²−y²', 'xy', 'z²', 'xz,yz', 't2g']);
   });
 });
