@@ -4,14 +4,19 @@
  *        the library's analyses of that ion ranked by 10Dq and by 1 − β
  *        (weakest first, neighbours within their uncertainties flagged) and
  *        Jørgensen's f and h fitted per ligand (src/library/series.ts)
- *   POST /predict { "formula", "geometry"? }
- *        10Dq, β, B, C and spin state estimated from the formula alone
- *        (src/series predictComplex); every number is marked as an estimate
+ *   POST /predict { "formula", "geometry"?, "library"? }
+ *        10Dq, β, B, C, the spin state (rule or probability), occupation,
+ *        LFSE and moment estimated from the formula alone (src/series
+ *        predictComplex); every number is marked as an estimate. With
+ *        "library": true the ligand factors fitted from the library's
+ *        analyses of the same metal ion win over the tables.
  * Energies in cm-1. Errors are FieldgapErrors for the app's error handler.
  */
 import { Router } from 'express';
 import { z } from 'zod';
-import { predictComplex } from '../../src/series/index.js';
+import { isFieldgapError } from '../../src/errors.js';
+import { parseFormula } from '../../src/chemistry/formula.js';
+import { ownFactorsFromFit, predictComplex, type PredictOptions } from '../../src/series/index.js';
 import type { Library } from '../../src/library/library.js';
 import { librarySeries } from '../../src/library/series.js';
 import { parseJsonBody, parseTextFields } from '../validate.js';
@@ -29,8 +34,25 @@ export const seriesQuery = z.strictObject({
 
 export const predictBody = z.strictObject({
   formula: z.string().trim().min(1).max(200).meta({ description: 'Complex formula, e.g. "[Co(NH3)6]Cl3".', examples: ['[Co(NH3)6]Cl3'] }),
-  geometry: z.enum(['octahedral', 'tetrahedral']).optional().meta({ description: 'Overrides the guess from the coordination number.' }),
+  geometry: z.enum(['octahedral', 'tetrahedral', 'square-planar']).optional().meta({ description: 'Overrides the geometry from the coordination number and the rules of the trade.' }),
+  library: z.boolean().optional().meta({ description: "Use the ligand factors fitted from the library's analyses of the same metal ion (default false)." }),
 });
+
+/** predictComplex's options for a request: the geometry, and with `library` the library's fitted factors. */
+function predictOptions(library: Library, formula: string, geometry: PredictOptions['geometry'] | undefined, useLibrary: boolean): { options: PredictOptions; note: string | undefined } {
+  const options: PredictOptions = geometry === undefined ? {} : { geometry };
+  if (!useLibrary) return { options, note: undefined };
+  const ion = parseFormula(formula).metal.label;
+  let fit = null;
+  try {
+    fit = librarySeries(library, ion).factors;
+  } catch (error) {
+    if (!isFieldgapError(error) || error.code !== 'not-found') throw error;
+  }
+  if (!fit || fit.factors.length === 0) return { options, note: `the library has no fitted ligand factors for ${ion}: Jørgensen's tables used` };
+  options.factors = ownFactorsFromFit(fit);
+  return { options, note: `ligand factors fitted from the library's analyses of ${ion} used where it has them (${fit.factors.map((f) => f.ligand).join(', ')})` };
+}
 
 export function createSeriesRouter({ library }: SeriesRouterDeps): Router {
   const router = Router();
@@ -42,8 +64,11 @@ export function createSeriesRouter({ library }: SeriesRouterDeps): Router {
 
   // One ligand-field calculation at one Dq: milliseconds, so it runs here rather than in the pool.
   router.post('/predict', (req, res) => {
-    const { formula, geometry } = parseJsonBody(predictBody, req.body);
-    res.json(predictComplex(formula, geometry === undefined ? {} : { geometry }));
+    const { formula, geometry, library: useLibrary } = parseJsonBody(predictBody, req.body);
+    const { options, note } = predictOptions(library, formula, geometry, useLibrary ?? false);
+    const prediction = predictComplex(formula, options);
+    if (note) prediction.warnings.push(note);
+    res.json(prediction);
   });
 
   return router;

@@ -62,6 +62,12 @@ const ROWS: Row[] = [
   ['dmf', 'C3H7NO', ['Me2NCHO'], ['N,N-dimethylformamide'], 0, 'O'],
   ['MeCN', 'CH3CN', ['NCMe', 'NCCH3', 'acn'], ['acetonitrile'], 0, 'N'],
   ['PPh3', 'PPh3', ['P(C6H5)3'], ['triphenylphosphane', 'triphenylphosphine'], 0, 'P'],
+  ['PMe3', 'PMe3', ['P(CH3)3'], ['trimethylphosphane', 'trimethylphosphine'], 0, 'P'],
+  ['PEt3', 'PEt3', ['P(C2H5)3'], ['triethylphosphane', 'triethylphosphine'], 0, 'P'],
+  ['PR3', 'PR3', ['phosphine', 'phosphane'], ['trialkylphosphane (generic)'], 0, 'P'],
+  ['H', 'H', [], ['hydrido', 'hydride'], -1, 'H', true],
+  ['tu', 'SC(NH2)2', ['thiourea'], ['thiourea'], 0, 'S'],
+  ['dtc', 'S2CNEt2', ['Et2dtc', 'S2CN(C2H5)2'], ['diethyldithiocarbamato', 'N,N-diethyldithiocarbamato'], -1, 'S S'],
 ];
 
 /** Every ligand fieldgap knows, in table order. */

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import * as chemistry from '../../src/chemistry/index.js';
 import * as series from '../../src/series/index.js';
+import * as predict from '../../src/predict/index.js';
 
 // The public API of src/chemistry and src/series: a change here is a change of contract.
 describe('public exports', () => {
@@ -16,7 +17,15 @@ describe('public exports', () => {
   it('src/series/index.ts', () => {
     expect(Object.keys(series).sort()).toEqual([
       'averageEnvironmentFactor', 'averageEnvironmentTenDq', 'canonicalLigand', 'combine', 'fitLigandFactors',
-      'predictComplex', 'rankByNephelauxetic', 'rankByTenDq', 'validateSeriesAnalyses', 'valuesOverlap',
+      'ownFactorsFromFit', 'predictComplex', 'rankByNephelauxetic', 'rankByTenDq', 'validateSeriesAnalyses', 'valuesOverlap',
+    ]);
+  });
+  it('src/predict/index.ts', () => {
+    expect(Object.keys(predict).sort()).toEqual([
+      'BORDERLINE_PROBABILITY', 'HALIDES', 'NEPHELAUXETIC_ESTIMATE', 'PAIRING_ENERGY_SOURCE', 'PI_ACCEPTORS', 'RULES',
+      'SPECTROCHEMICAL_ESTIMATE', 'SQUARE_PLANAR_LIGANDS', 'STRONG_FIELD', 'boxArrows', 'decideSpin', 'erfc', 'fourCoordinateRule',
+      'ligandF', 'ligandH', 'ligandsWithF', 'meanPairingEnergy', 'metalG', 'metalK', 'normalCdf', 'orbitalContribution', 'orbitalOccupation',
+      'pairingEnergyExpression', 'spinNumbers', 'spinRule',
     ]);
   });
 });

@@ -37,7 +37,7 @@ describe('fitLigandFactors', () => {
     expect(l1.fFrom).toEqual([0, 1]);
     const v1 = 1 / 0.01 ** 2;
     const v2 = 1 / 0.02 ** 2;
-    expect(l1.h).toBeCloseTo((v1 * 0.2 + v2 * 0.22) / (v1 + v2) / 0.2, 12);
+    expect(l1.h).toBeCloseTo((v1 * 0.2 + v2 * 0.22) / (v1 + v2) / 0.21, 12); // k(Cr3+) = 0.21: Jørgensen, Modern Aspects of Ligand Field Theory (1971)
     expect(l1.tabulatedF).toBeUndefined();
   });
 

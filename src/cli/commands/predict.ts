@@ -1,27 +1,43 @@
-import { invalidArgument } from '../../errors.js';
-import { GEOMETRIES, type Geometry } from '../../ligand-field/index.js';
+import { invalidArgument, isFieldgapError } from '../../errors.js';
 import { findLigand } from '../../chemistry/ligands.js';
-import { parseIon, romanOxidationState } from '../../chemistry/ions.js';
-import { predictComplex, type Estimate, type Prediction, type PredictOptions } from '../../series/predict.js';
-import type { Command } from '../command.js';
+import { parseFormula } from '../../chemistry/formula.js';
+import { predictComplex, type Prediction, type PredictGeometry, type PredictOptions } from '../../series/predict.js';
+import { ownFactorsFromFit } from '../../series/predict-library.js';
+import type { Command, CliIo } from '../command.js';
 import { numberOption, parseCommandArgs } from '../options.js';
+import { withLibrary } from './library.js';
+import { comparisonReport, predictionReport } from './predict-report.js';
+
+export { predictionReport } from './predict-report.js';
+
+/** Geometries `--geometry` accepts. */
+export const PREDICT_GEOMETRIES: readonly PredictGeometry[] = ['octahedral', 'tetrahedral', 'square-planar'];
 
 /**
  * `fieldgap predict FORMULA`: ligand-field parameters and spin state of a
  * complex estimated from its formula alone (Jørgensen's factorisations and the
  * free-ion Racah parameters, then the ligand-field engine). No file access.
  */
-const USAGE = `Usage: fieldgap predict FORMULA [--geometry G] [--g G] [--k K] [--f LIGAND=F]... [--h LIGAND=H]... [--json]
+const USAGE = `Usage: fieldgap predict FORMULA [--vs FORMULA2] [--geometry G] [--library]
+                        [--g G] [--k K] [--f LIGAND=F]... [--h LIGAND=H]... [--json]
 
-Estimates 10Dq, beta, Racah B and C, the spin state, unpaired electrons and the
-spin-only moment of a complex from its formula alone. Every number is an
-estimate from tabulated factors (10Dq = f·g, 1 - beta = h·k), not a measurement.
+Estimates 10Dq, beta, Racah B and C, the spin state (with its probability, or
+the rule of the trade that decides it), unpaired electrons, the orbital
+occupation, the LFSE and the spin-only moment of a complex from its formula
+alone. Every number is an estimate from tabulated factors (10Dq = f·g,
+1 - beta = h·k), not a measurement.
 
 FORMULA is a complex or a salt, quoted for the shell:
   "[Co(NH3)6]3+"  "[Ni(NH3)6]Cl2"  "K3[Fe(C2O4)3]"  "[Co(en)2Cl2]+"  "CoCl4 2-"
 
 Options:
-  --geometry G     octahedral or tetrahedral (default: guessed, 6 → octahedral, 4 → tetrahedral)
+  --vs FORMULA2    a second complex side by side (same metal, another ligand);
+                   --json then prints { "complexes": [first, second] }
+  --geometry G     octahedral, tetrahedral or square-planar (default: from the
+                   coordination number and the rules of the trade, stated)
+  --library        use the ligand factors fitted from your library's analyses
+                   of the same metal ion (they win over the tables)
+  --data DIR       library folder (default $FIELDGAP_DATA, else ./fieldgap-data)
   --g G            the metal's g in cm-1 (default: Jørgensen's table)
   --k K            the metal's k (default: Jørgensen's table)
   --f LIGAND=F     your own f for a ligand, e.g. --f NH3=1.24 (repeatable)
@@ -32,7 +48,7 @@ Example: fieldgap predict "[Cr(NH3)6]3+"
 `;
 
 /** Reads and checks the options; every failure names its option. */
-export function parsePredictArgs(argv: string[]): { formula: string; options: PredictOptions; json: boolean } {
+export function parsePredictArgs(argv: string[]): { formula: string; vs: string | undefined; options: PredictOptions; json: boolean; library: boolean; data: string | undefined } {
   const { values, positionals } = parseCommandArgs(
     argv,
     {
@@ -42,14 +58,17 @@ export function parsePredictArgs(argv: string[]): { formula: string; options: Pr
       f: { type: 'string', multiple: true },
       h: { type: 'string', multiple: true },
       json: { type: 'boolean' },
+      library: { type: 'boolean' },
+      data: { type: 'string' },
+      vs: { type: 'string' },
     },
     true,
   );
   if (positionals.length === 0) throw invalidArgument('formula', 'give the formula of a complex, e.g. fieldgap predict "[Co(NH3)6]3+"');
   const options: PredictOptions = {};
   if (values.geometry !== undefined) {
-    const geometry = values.geometry.trim().toLowerCase() as Geometry;
-    if (!GEOMETRIES.includes(geometry)) throw invalidArgument('--geometry', `--geometry: expected one of ${GEOMETRIES.join(', ')}, got "${values.geometry}"`);
+    const geometry = values.geometry.trim().toLowerCase().replace(/[\s_]+/g, '-') as PredictGeometry;
+    if (!PREDICT_GEOMETRIES.includes(geometry)) throw invalidArgument('--geometry', `--geometry: expected one of ${PREDICT_GEOMETRIES.join(', ')}, got "${values.geometry}"`);
     options.geometry = geometry;
   }
   const g = numberOption('g', values.g, { min: 0 });
@@ -71,7 +90,9 @@ export function parsePredictArgs(argv: string[]): { formula: string; options: Pr
   }
   if (Object.keys(factors).length > 0) options.factors = factors;
   // Words are joined so that an unquoted `CoCl4 2-` reads as the one formula it is.
-  return { formula: positionals.join(' '), options, json: values.json ?? false };
+  if (values.data !== undefined && !values.library) throw invalidArgument('--data', '--data names the library folder: give it with --library');
+  if (values.vs !== undefined && values.vs.trim() === '') throw invalidArgument('--vs', '--vs: give the formula of the second complex, e.g. --vs "[Fe(CN)6]4-"');
+  return { formula: positionals.join(' '), vs: values.vs, options, json: values.json ?? false, library: values.library ?? false, data: values.data };
 }
 
 /** The JSON document of `predict --json`: the contract fields first (do not rename), then the rest. */
@@ -82,48 +103,13 @@ export function predictionJson(p: Prediction): object {
 }
 
 /** JSON text with float noise trimmed (12 significant digits: 591.8000000000001 → 591.8). */
+function jsonText(doc: object): string {
+  return `${JSON.stringify(doc, (_key, value: unknown) => (typeof value === 'number' && Number.isFinite(value) ? Number(value.toPrecision(12)) : value), 2)}\n`;
+}
+
+/** `predict --json` text of one prediction. */
 export function predictionJsonText(p: Prediction): string {
-  return `${JSON.stringify(predictionJson(p), (_key, value: unknown) => (typeof value === 'number' && Number.isFinite(value) ? Number(value.toPrecision(12)) : value), 2)}\n`;
-}
-
-function fixed(value: number, digits: number): string {
-  return value.toFixed(digits);
-}
-
-/** The readable report of `predict`, with units. */
-export function predictionReport(p: Prediction): string {
-  const metal = parseIon(p.ion);
-  const metalName = `${metal.name ?? metal.symbol}(${romanOxidationState(p.oxidationState)})`;
-  const ligands = p.ligands
-    .map((l) => `${l.count} × ${l.key} (${l.name}, f = ${l.f}${l.h === undefined ? ', no h' : `, h = ${l.h}`})`)
-    .join(', ');
-  const rows: [string, string, string][] = [
-    ['10Dq', `${fixed(p.tenDq.value, 0)} cm-1 (${fixed(1e7 / p.tenDq.value, 0)} nm)`, p.tenDq.method],
-    ['beta', p.beta ? fixed(p.beta.value, 3) : 'not estimated', p.beta?.method ?? ''],
-    ['Racah B', p.b ? `${fixed(p.b.value, 0)} cm-1` : 'not estimated', p.b?.method ?? ''],
-    ['Racah C', p.c ? `${fixed(p.c.value, 0)} cm-1` : 'not estimated', p.c?.method ?? ''],
-    ['spin state', spinWords(p.spinState), p.spinState.method],
-    ['unpaired electrons', String(p.unpairedElectrons.value), ''],
-    ['ground term', p.groundTerm.value, ''],
-    ['spin-only moment', `${fixed(p.spinOnlyMoment.value, 2)} μB`, p.spinOnlyMoment.method],
-  ];
-  const width = Math.max(...rows.map((r) => r[0].length));
-  const valueWidth = Math.max(...rows.map((r) => r[1].length));
-  const lines = [
-    `${p.complexIon}: ${metalName}, ${p.ion}, d${p.d}`,
-    `Ligands: ${ligands}; coordination number ${p.coordinationNumber}`,
-    `Geometry: ${p.geometry.value} (${p.geometry.method})`,
-    '',
-    'Estimates (from tabulated factors, not measurements):',
-    ...rows.map(([label, value, method]) => `  ${label.padEnd(width)}  ${value.padEnd(valueWidth)}${method ? `  ${method}` : ''}`.trimEnd()),
-  ];
-  if (p.warnings.length > 0) lines.push('', 'Warnings:', ...p.warnings.map((w) => `  - ${w}`));
-  lines.push('', 'Sources:', ...p.sources.map((s) => `  - ${s}`));
-  return `${lines.join('\n')}\n`;
-}
-
-function spinWords(spin: Estimate<string>): string {
-  return spin.value === 'no-choice' ? 'no high/low-spin choice' : spin.value;
+  return jsonText(predictionJson(p));
 }
 
 export const predictCommand: Command = {
@@ -131,9 +117,46 @@ export const predictCommand: Command = {
   summary: "estimate 10Dq, B, beta and the spin state of a complex from its formula (Jørgensen's factors)",
   usage: USAGE,
   async run(argv, io) {
-    const { formula, options, json } = parsePredictArgs(argv);
+    const { formula, vs, options, json, library, data } = parsePredictArgs(argv);
+    if (vs !== undefined) {
+      const second: PredictOptions = { ...options };
+      if (library) {
+        await addLibraryFactors(formula, options, data, io);
+        await addLibraryFactors(vs, second, data, io);
+      }
+      const a = predictComplex(formula, options);
+      const b = predictComplex(vs, second);
+      io.stdout(json ? jsonText({ complexes: [predictionJson(a), predictionJson(b)] }) : comparisonReport(a, b));
+      return 0;
+    }
+    if (library) await addLibraryFactors(formula, options, data, io);
     const prediction = predictComplex(formula, options);
     io.stdout(json ? predictionJsonText(prediction) : predictionReport(prediction));
     return 0;
   },
 };
+
+/**
+ * Puts the factors fitted from the library's analyses of the formula's metal
+ * ion under the user's own --f/--h (which still win). A library with no
+ * usable analyses of that ion leaves the tables in charge, with a note on stderr.
+ */
+async function addLibraryFactors(formula: string, options: PredictOptions, data: string | undefined, io: CliIo): Promise<void> {
+  const ion = parseFormula(formula).metal.label;
+  const { librarySeries } = await import('../../library/series.js');
+  const fit = await withLibrary(data, io, (library) => {
+    try {
+      return librarySeries(library, ion).factors;
+    } catch (error) {
+      if (isFieldgapError(error) && error.code === 'not-found') return null;
+      throw error;
+    }
+  });
+  if (!fit || fit.factors.length === 0) {
+    io.stderr(`fieldgap predict: note: the library has no fitted ligand factors for ${ion}; Jørgensen's tables used\n`);
+    return;
+  }
+  const own = ownFactorsFromFit(fit);
+  for (const [key, given] of Object.entries(options.factors ?? {})) own[key] = { ...own[key], ...given, source: 'given by the user' };
+  options.factors = own;
+}
