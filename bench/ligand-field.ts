@@ -11,6 +11,7 @@
 import { loadavg } from 'node:os';
 import { computeDiagram, computeLevels, type FieldParameters, type Geometry } from '../src/ligand-field/index.js';
 import { symmetricEigenvaluesInPlace, createEigenWorkspace } from '../src/ligand-field/eigen-symmetric.js';
+import { computeFieldLevels, spinOrbitEnergies } from '../src/ligand-field/field-levels.js';
 import { denseHamiltonian } from '../tests/reference/dense-hamiltonian.js';
 import { seededRandom } from '../tests/reference/seeded-random.js';
 
@@ -160,5 +161,49 @@ export async function run(): Promise<void> {
       'same C/B: Dq new on every call, B and C fixed, as along a diagram (median).\n' +
       'dense: one C(10,n) matrix summed from precomputed operators and diagonalised (eigenvalues only, no labels; median);\n' +
       'dense diagram = 401 dense evaluations (estimated from the per-call median).\n',
+  );
+  await runBeyondCubic();
+}
+
+const TARGET_SPIN_ORBIT_MS = 2;
+const TARGET_TETRAGONAL_RATIO = 2;
+
+/**
+ * Beyond the cubic field (issue 15): per d^n, the labelled tetragonal levels
+ * (computeFieldLevels with Ds, Dt, no spin–orbit) beside computeLevels at the
+ * same Dq, B, C; and d5 with spin–orbit over all 252 states, as the
+ * eigenvalue-only evaluation a fit makes (spinOrbitEnergies) and as the
+ * labelled result with parents and weights (computeFieldLevels).
+ * Targets: d5 spin–orbit evaluation < 2 ms median; tetragonal ≤ 2× cubic.
+ */
+export async function runBeyondCubic(): Promise<void> {
+  const params = fitLikeParameters(3, 'octahedral');
+  const rows: string[][] = [['d^n', 'cubic computeLevels', 'tetragonal computeFieldLevels', 'ratio', 'spin–orbit energies', 'spin–orbit labelled']];
+  let worstRatio = 0;
+  let d5So: Timing | undefined;
+  for (let d = 1; d <= 9; d++) {
+    const cubic = timePerCall((i) => computeLevels(d, 'octahedral', params[i % params.length]!), { warmup: 100, batches: 15, perBatch: 50 });
+    const tetragonal = timePerCall((i) => {
+      const p = params[i % params.length]!;
+      computeFieldLevels(d, 'octahedral', { ...p, ds: 0.1 * p.dq, dt: 0.05 * p.dq });
+    }, { warmup: 100, batches: 15, perBatch: 50 });
+    const so = timePerCall((i) => {
+      const p = params[i % params.length]!;
+      spinOrbitEnergies(d, 'octahedral', { ...p, ds: 0.1 * p.dq, dt: 0.05 * p.dq, zeta: 0.3 * p.b });
+    }, { warmup: 5, batches: 11, perBatch: 5 });
+    const labelled = timePerCall((i) => {
+      const p = params[i % params.length]!;
+      computeFieldLevels(d, 'octahedral', { ...p, ds: 0.1 * p.dq, dt: 0.05 * p.dq, zeta: 0.3 * p.b });
+    }, { warmup: 2, batches: 7, perBatch: 2 });
+    if (d === 5) d5So = so;
+    const ratio = tetragonal.median / cubic.median;
+    worstRatio = Math.max(worstRatio, ratio);
+    rows.push([`d${d}`, fmt3(cubic), fmt3(tetragonal), `${ratio.toFixed(2)}×`, fmt3(so), fmt3(labelled)]);
+  }
+  process.stdout.write('\n');
+  printTable(rows);
+  process.stdout.write(
+    `Targets: d5 spin–orbit evaluation (252 states) < ${fmt(TARGET_SPIN_ORBIT_MS)} (${fmt(d5So!.median)} median: ${d5So!.median < TARGET_SPIN_ORBIT_MS ? 'met' : 'NOT met'}); ` +
+      `tetragonal ≤ ${TARGET_TETRAGONAL_RATIO}× cubic (worst ${worstRatio.toFixed(2)}×: ${worstRatio <= TARGET_TETRAGONAL_RATIO ? 'met' : 'NOT met'}).\n`,
   );
 }
