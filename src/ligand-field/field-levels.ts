@@ -103,6 +103,40 @@ const O_TO_D4: Readonly<Record<CubicIrrep, readonly D4Irrep[]>> = {
   A1: ['A1'], A2: ['B1'], E: ['A1', 'B1'], T1: ['A2', 'E'], T2: ['B2', 'E'],
 };
 
+/** One spin-free tetragonal level before labelling: energy on the Hamiltonian's zero, 2S, channel (CHANNEL_D4_IRREPS) and rank in its block. */
+export interface RawTetragonalLevel {
+  energy: number;
+  twoS: number;
+  channel: number;
+  rank: number;
+}
+
+const tetragonalScratch = { size: 0, h: new Float64Array(0), values: new Float64Array(0), eigen: createEigenWorkspace(1) };
+
+/**
+ * Every spin-free (S, D4 irrep) level of d^n (1..9) in the octahedral
+ * geometry at Dq, B, C, Ds, Dt (ζ ignored), ascending (ties: higher spin,
+ * then channel). Identity of a level along any path: (twoS, channel, rank).
+ */
+export function tetragonalRawLevels(d: number, p: Required<TetragonalParameters>): RawTetragonalLevel[] {
+  const blocks = tetragonalBlocks(d);
+  const coefficients = [p.dq, p.b, p.c, p.ds, p.dt];
+  const raw: RawTetragonalLevel[] = [];
+  const ws = tetragonalScratch;
+  blocks.blocks.forEach((row, s) => {
+    row.forEach((block, channel) => {
+      const n = block.size;
+      if (n === 0) return;
+      if (ws.size < n) Object.assign(ws, { size: n, h: new Float64Array(n * n), values: new Float64Array(n), eigen: createEigenWorkspace(n) });
+      blockHamiltonianInto(block, coefficients, ws.h);
+      symmetricEigenvaluesInPlace(ws.h, n, ws.values, ws.eigen);
+      for (let rank = 0; rank < n; rank++) raw.push({ energy: ws.values[rank]!, twoS: blocks.twoSValues[s]!, channel, rank });
+    });
+  });
+  raw.sort((x, y) => x.energy - y.energy || y.twoS - x.twoS || x.channel - y.channel);
+  return raw;
+}
+
 /**
  * The spin-free levels at the parameters (ζ ignored): cubic or tetragonal.
  * Energies from the ground level.
@@ -124,20 +158,7 @@ export function spinFreeFieldLevels(d: number, geometry: Geometry, p: Required<T
       if (!list) parents.set(key, (list = []));
       list.push(level.label);
     }
-  const blocks = tetragonalBlocks(d);
-  const coefficients = [p.dq, p.b, p.c, p.ds, p.dt];
-  const raw: Array<{ energy: number; twoS: number; channel: number; rank: number }> = [];
-  blocks.blocks.forEach((row, s) => {
-    row.forEach((block, channel) => {
-      if (block.size === 0) return;
-      const h = new Float64Array(block.size * block.size);
-      blockHamiltonianInto(block, coefficients, h);
-      const values = new Float64Array(block.size);
-      symmetricEigenvaluesInPlace(h, block.size, values);
-      values.forEach((energy, rank) => raw.push({ energy, twoS: blocks.twoSValues[s]!, channel, rank }));
-    });
-  });
-  raw.sort((x, y) => x.energy - y.energy || y.twoS - x.twoS || x.channel - y.channel);
+  const raw = tetragonalRawLevels(d, p);
   const tol = tolerance(p);
   const ground = raw[0]!.energy;
   return raw.map(({ energy, twoS, channel, rank }) => {
@@ -195,20 +216,24 @@ const eigenScratch: { size: number; h: Float64Array; values: Float64Array; eigen
   size: 0, h: new Float64Array(0), values: new Float64Array(0), eigen: createEigenWorkspace(1),
 };
 
+/** One level of a D4' block with spin–orbit: energy on the Hamiltonian's zero, block irrep, states per level, rank in its block. */
+export interface RawDoubleGroupLevel {
+  energy: number;
+  irrep: DoubleGroupIrrep;
+  degeneracy: number;
+  rank: number;
+}
+
 /**
- * Ascending energies (cm-1, on the Hamiltonian's own zero) of every level
- * with spin–orbit, each once per degenerate set of a D4' block (Kramers
- * pairs and E rows counted once), with its block's degeneracy in
- * degeneracies. The fast path for fits and diagrams: eigenvalues only.
+ * Every level of the D4' blocks with spin–orbit (each Kramers pair or E
+ * once, with its degeneracy), ascending. The fast path for fits and
+ * diagrams: eigenvalues only. Identity along a path: (irrep, rank).
  */
-export function spinOrbitEnergies(d: number, geometry: Geometry, p: Required<TetragonalParameters>): { energies: Float64Array; degeneracies: Int32Array } {
+export function doubleGroupRawLevels(d: number, geometry: Geometry, p: Required<TetragonalParameters>): RawDoubleGroupLevel[] {
   const { blocks } = doubleGroupBlocks(d, geometry);
-  const total = blocks.reduce((sum, b) => sum + b.block.size, 0);
-  const energies = new Float64Array(total);
-  const degeneracies = new Int32Array(total);
   const coefficients = [p.dq, p.ds, p.dt, p.b, p.c, p.zeta];
-  let at = 0;
-  for (const { block, degeneracy } of blocks) {
+  const out: RawDoubleGroupLevel[] = [];
+  for (const { block, degeneracy, irrep } of blocks) {
     const n = block.size;
     if (eigenScratch.size < n) {
       eigenScratch.size = n;
@@ -218,12 +243,16 @@ export function spinOrbitEnergies(d: number, geometry: Geometry, p: Required<Tet
     }
     blockHamiltonianInto(block, coefficients, eigenScratch.h);
     symmetricEigenvaluesInPlace(eigenScratch.h, n, eigenScratch.values, eigenScratch.eigen);
-    energies.set(eigenScratch.values.subarray(0, n), at);
-    degeneracies.fill(degeneracy, at, at + n);
-    at += n;
+    for (let rank = 0; rank < n; rank++) out.push({ energy: eigenScratch.values[rank]!, irrep, degeneracy, rank });
   }
-  const order = Array.from({ length: total }, (_, i) => i).sort((i, j) => energies[i]! - energies[j]!);
-  return { energies: Float64Array.from(order, (i) => energies[i]!), degeneracies: Int32Array.from(order, (i) => degeneracies[i]!) };
+  out.sort((x, y) => x.energy - y.energy);
+  return out;
+}
+
+/** Ascending energies (cm-1, Hamiltonian's zero) and degeneracies of the levels with spin–orbit (see doubleGroupRawLevels). */
+export function spinOrbitEnergies(d: number, geometry: Geometry, p: Required<TetragonalParameters>): { energies: Float64Array; degeneracies: Int32Array } {
+  const raw = doubleGroupRawLevels(d, geometry, p);
+  return { energies: Float64Array.from(raw, (r) => r.energy), degeneracies: Int32Array.from(raw, (r) => r.degeneracy) };
 }
 
 function spinOrbitLevels(d: number, geometry: Geometry, p: Required<TetragonalParameters>): FieldLevel[] {
