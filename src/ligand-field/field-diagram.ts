@@ -1,7 +1,7 @@
 import { invalidArgument } from '../errors.js';
 import {
   computeFieldLevels, doubleGroupRawLevels, tetragonalRawLevels, validateTetragonalParameters, type FieldLevel,
-  type TetragonalParameters,
+  type ResolvedParameters,
 } from './field-levels.js';
 import { CHANNEL_D4_IRREPS } from './tetragonal-blocks.js';
 import type { Geometry } from './types.js';
@@ -73,7 +73,7 @@ export interface FieldDiagram {
 
 const MAX_STEPS = 2000;
 
-function pointParameters(options: FieldDiagramOptions, t: number): Required<TetragonalParameters> {
+function pointParameters(options: FieldDiagramOptions, t: number): ResolvedParameters {
   const { axis, b, cOverB, dq, ds, dt, zeta, maxDqOverB } = options;
   const c = cOverB * b;
   if (axis === 'dq') return { dq: t * maxDqOverB * b, b, c, ds, dt, zeta };
@@ -82,7 +82,7 @@ function pointParameters(options: FieldDiagramOptions, t: number): Required<Tetr
 }
 
 /** Identity → energy (cm-1 above the ground level) at one point, and the ground identity. */
-function identifiedEnergies(d: number, geometry: Geometry, p: Required<TetragonalParameters>, doubleGroup: boolean): Map<string, [number, number]> {
+function identifiedEnergies(d: number, geometry: Geometry, p: ResolvedParameters, doubleGroup: boolean): Map<string, [number, number]> {
   const out = new Map<string, [number, number]>();
   if (doubleGroup) {
     const raw = doubleGroupRawLevels(d, geometry, p);
@@ -126,7 +126,7 @@ export function computeFieldDiagram(d: number, geometry: Geometry, options: Fiel
     d, geometry, axis, b, cOverB, dq: [], ds: [], dt: [], zeta: [], x: [], groundTerms: [], lines: [],
   };
   const lines = new Map<string, { energies: number[]; degeneracy: number }>();
-  let last: Required<TetragonalParameters> | undefined;
+  let last: ResolvedParameters | undefined;
   for (let i = 0; i <= steps; i++) {
     const t = i / steps;
     const p = pointParameters(options, t);

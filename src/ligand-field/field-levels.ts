@@ -33,11 +33,18 @@ import { validateD, validateFieldParameters, validateFinite, validateGeometry } 
  */
 export interface TetragonalParameters extends FieldParameters {
   /** Tetragonal Ds, cm-1 (any sign). Default 0. */
-  ds?: number;
+  ds?: number | undefined;
   /** Tetragonal Dt, cm-1 (any sign). Default 0. */
-  dt?: number;
+  dt?: number | undefined;
   /** One-electron spin–orbit constant ζ, cm-1, ≥ 0. Default 0 (off). */
-  zeta?: number;
+  zeta?: number | undefined;
+}
+
+/** All six parameters present. */
+export interface ResolvedParameters extends FieldParameters {
+  ds: number;
+  dt: number;
+  zeta: number;
 }
 
 export type SiteGroup = 'Oh' | 'Td' | 'D4h' | "O'" | "Td'" | "D4'";
@@ -79,12 +86,12 @@ export interface FieldLevelsResult {
 }
 
 /** Cluster tolerance, cm-1: far below any physical splitting, far above round-off. */
-function tolerance(p: Required<TetragonalParameters>): number {
+function tolerance(p: ResolvedParameters): number {
   return 1e-9 * (10 * Math.abs(p.dq) + 20 * p.b + 10 * p.c + 10 * Math.abs(p.ds) + 10 * Math.abs(p.dt) + 5 * p.zeta);
 }
 
 /** Checks the parameters; every failure names its field. */
-export function validateTetragonalParameters(geometry: Geometry, params: TetragonalParameters): Required<TetragonalParameters> {
+export function validateTetragonalParameters(geometry: Geometry, params: TetragonalParameters): ResolvedParameters {
   validateFieldParameters(params);
   const { ds = 0, dt = 0, zeta = 0 } = params;
   validateFinite(ds, 'ds');
@@ -118,7 +125,7 @@ const tetragonalScratch = { size: 0, h: new Float64Array(0), values: new Float64
  * geometry at Dq, B, C, Ds, Dt (ζ ignored), ascending (ties: higher spin,
  * then channel). Identity of a level along any path: (twoS, channel, rank).
  */
-export function tetragonalRawLevels(d: number, p: Required<TetragonalParameters>): RawTetragonalLevel[] {
+export function tetragonalRawLevels(d: number, p: ResolvedParameters): RawTetragonalLevel[] {
   const blocks = tetragonalBlocks(d);
   const coefficients = [p.dq, p.b, p.c, p.ds, p.dt];
   const raw: RawTetragonalLevel[] = [];
@@ -141,7 +148,7 @@ export function tetragonalRawLevels(d: number, p: Required<TetragonalParameters>
  * The spin-free levels at the parameters (ζ ignored): cubic or tetragonal.
  * Energies from the ground level.
  */
-export function spinFreeFieldLevels(d: number, geometry: Geometry, p: Required<TetragonalParameters>): FieldLevel[] {
+export function spinFreeFieldLevels(d: number, geometry: Geometry, p: ResolvedParameters): FieldLevel[] {
   if (p.ds === 0 && p.dt === 0) {
     return computeLevels(d, geometry, p).levels.map((level) => ({
       energy: level.energy, degeneracy: level.degeneracy, irrep: level.irrep, parent: level.parent, parentWeight: 1,
@@ -229,7 +236,7 @@ export interface RawDoubleGroupLevel {
  * once, with its degeneracy), ascending. The fast path for fits and
  * diagrams: eigenvalues only. Identity along a path: (irrep, rank).
  */
-export function doubleGroupRawLevels(d: number, geometry: Geometry, p: Required<TetragonalParameters>): RawDoubleGroupLevel[] {
+export function doubleGroupRawLevels(d: number, geometry: Geometry, p: ResolvedParameters): RawDoubleGroupLevel[] {
   const { blocks } = doubleGroupBlocks(d, geometry);
   const coefficients = [p.dq, p.ds, p.dt, p.b, p.c, p.zeta];
   const out: RawDoubleGroupLevel[] = [];
@@ -250,12 +257,12 @@ export function doubleGroupRawLevels(d: number, geometry: Geometry, p: Required<
 }
 
 /** Ascending energies (cm-1, Hamiltonian's zero) and degeneracies of the levels with spin–orbit (see doubleGroupRawLevels). */
-export function spinOrbitEnergies(d: number, geometry: Geometry, p: Required<TetragonalParameters>): { energies: Float64Array; degeneracies: Int32Array } {
+export function spinOrbitEnergies(d: number, geometry: Geometry, p: ResolvedParameters): { energies: Float64Array; degeneracies: Int32Array } {
   const raw = doubleGroupRawLevels(d, geometry, p);
   return { energies: Float64Array.from(raw, (r) => r.energy), degeneracies: Int32Array.from(raw, (r) => r.degeneracy) };
 }
 
-function spinOrbitLevels(d: number, geometry: Geometry, p: Required<TetragonalParameters>): FieldLevel[] {
+function spinOrbitLevels(d: number, geometry: Geometry, p: ResolvedParameters): FieldLevel[] {
   const tol = tolerance(p);
   const spinFree = spinFreeFieldLevels(d, geometry, p);
   const { blocks } = doubleGroupBlocks(d, geometry);
