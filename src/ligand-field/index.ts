@@ -17,3 +17,4 @@ export {
 export { computeFieldDiagram, FIELD_DIAGRAM_AXES, type FieldDiagram, type FieldDiagramAxis, type FieldDiagramOptions } from './field-diagram.js';
 export { fieldDiagramDocument, fieldLevelsDocument } from './field-documents.js';
 export { tetragonalOrbitalEnergies } from './tetragonal-field.js';
+export { freeIonZeta, FREE_ION_ZETA, type FreeIonZeta } from './free-ion-zeta.js';
