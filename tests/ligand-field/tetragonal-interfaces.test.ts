@@ -73,6 +73,30 @@ describe('fieldgap diagram beyond the cubic field', () => {
   });
 });
 
+describe('fieldgap fit --symmetry tetragonal --zeta --free-zeta', () => {
+  it('reports ds, dt, zeta with uncertainties beside dq and b', async () => {
+    const { code, out } = await run(['fit', '--ion', 'Cu2+', '--symmetry', 'tetragonal', '--bands', '7500,12000,15000', '--json']);
+    expect(code).toBe(0);
+    const json = JSON.parse(out);
+    expect(json).toMatchObject({ symmetry: 'tetragonal', status: 'exact', zeta: 0, zetaMode: 'fixed' });
+    for (const key of ['dq', 'ds', 'dt', 'zeta']) expect(json.uncertainty).toHaveProperty(key);
+    expect(json.uncertainty.ds).toBeGreaterThan(0);
+  });
+  it('--zeta free-ion takes the tabulated value; a bad --zeta names the option', async () => {
+    const ok = await run(['fit', '--ion', 'Cu2+', '--symmetry', 'tetragonal', '--zeta', 'free-ion', '--bands', '7500,12000,15000', '--json']);
+    expect(ok.code).toBe(0);
+    expect(JSON.parse(ok.out)).toMatchObject({ zeta: 829, zetaMode: 'free-ion', freeIonZeta: 829 });
+    const bad = await run(['fit', '--ion', 'Cu2+', '--zeta', 'lots', '--bands', '7500,12000,15000']);
+    expect(bad.code).toBe(2);
+    expect(bad.err).toMatch(/--zeta/);
+  });
+  it('without the new options fit is the cubic fit it was', async () => {
+    const { code, out } = await run(['fit', '--ion', 'Cr3+', '--bands', '17400,24600', '--json']);
+    expect(code).toBe(0);
+    expect(JSON.parse(out)).not.toHaveProperty('symmetry');
+  });
+});
+
 describe('GET /api/v1/levels and /diagram with ds, dt, zeta', () => {
   let t: TestApp;
   beforeAll(() => {
