@@ -159,3 +159,21 @@ describe('input checks', () => {
     expect(fail(() => computeFieldLevels(3, 'tetrahedral', { dq: 1, b: 1, c: 1, dt: 5 })).path).toBe('ds');
   });
 });
+
+describe('double-group labels decompose every d^n cleanly', () => {
+  const DIMENSION: Record<string, number> = { 'Γ1': 1, 'Γ2': 1, 'Γ3': 2, 'Γ4': 3, 'Γ5': 3, 'Γ6': 2, 'Γ7': 2, 'Γ8': 4 };
+  for (let d = 1; d <= 9; d++) {
+    it(`d${d}: in O' every level is one Γ whose dimension is its degeneracy; in D4' likewise`, () => {
+      // Dimensions of the irreps of O' and D4' (Bethe; common practice).
+      const cubic = computeFieldLevels(d, 'octahedral', { dq: 1500, b: 800, c: 3400, zeta: 350 }).levels;
+      for (const level of cubic) {
+        expect(DIMENSION[level.term]).toBe(level.degeneracy);
+        expect(level.parent).not.toMatch(/\?/);
+      }
+      const tetragonal = computeFieldLevels(d, 'octahedral', { dq: 1500, b: 800, c: 3400, zeta: 350, ds: 250, dt: 90 }).levels;
+      const d4Dimension: Record<string, number> = { 'Γ1': 1, 'Γ2': 1, 'Γ3': 1, 'Γ4': 1, 'Γ5': 2, 'Γ6': 2, 'Γ7': 2 };
+      for (const level of tetragonal) expect(d4Dimension[level.term]).toBe(level.degeneracy);
+      expect(tetragonal.reduce((s, l) => s + l.degeneracy, 0)).toBe(binomial(10, d));
+    });
+  }
+});
