@@ -96,8 +96,12 @@ export interface TetragonalFitResult {
 
 /** Spin-allowed transitions considered for the assignment. */
 const MAX_CANDIDATES = 8;
-/** At most this many assignments are fitted (the lowest-energy ones first). */
+/** With spin–orbit a term splits into several levels: more candidates (a T1 term of a quartet gives four). */
+const MAX_CANDIDATES_SPIN_ORBIT = 13;
+/** At most this many assignments are fitted per start (the lowest-energy ones first). */
 const MAX_ASSIGNMENTS = 200;
+/** With spin–orbit every evaluation diagonalises all C(10, n) states: fewer assignments per start. */
+const MAX_ASSIGNMENTS_SPIN_ORBIT = 30;
 
 const PARAMETER_NAMES = ['Dq', 'Ds', 'Dt', 'B', 'ζ'] as const;
 
@@ -209,8 +213,10 @@ export function fitTetragonal(input: TetragonalFitInput): TetragonalFitResult {
   const setting: ModelSetting = { d, geometry, spinOrbit: zeta > 0 };
   // Free parameters, in the order dq, ds, dt, b, zeta.
   const freeParams = [0, ...(symmetry === 'tetragonal' ? [1, 2] : []), ...(bMatters && input.b === undefined ? [3] : []), ...(zetaMode === 'free' ? [4] : [])];
+  // Plausible ranges (common practice for d-block complexes): outside them the model only fits by accident.
+  const bOf = (v: number): number => Math.min(2000, Math.max(150, v));
   const toParameters = (x: Float64Array): ResolvedParameters => ({
-    dq: Math.max(0, x[0]!), ds: x[1]!, dt: x[2]!, b: Math.max(1, x[3]!), c: cOverB * Math.max(1, x[3]!), zeta: Math.max(0, x[4]!),
+    dq: Math.max(0, x[0]!), ds: x[1]!, dt: x[2]!, b: bOf(x[3]!), c: cOverB * bOf(x[3]!), zeta: Math.min(3000, Math.max(0, x[4]!)),
   });
   const full = (freeX: Float64Array, base: Float64Array): Float64Array => {
     const x = Float64Array.from(base);
@@ -220,18 +226,21 @@ export function fitTetragonal(input: TetragonalFitInput): TetragonalFitResult {
   const sigmas = fitted.map((band) => band.uncertainty ?? defaultBandSigma(band.position));
   // Starting Dq: the highest band is of order 10Dq–20Dq; scan Dq so that the lowest spin-allowed transition meets the lowest band.
   const base = new Float64Array([0, 0, 0, bStart, zeta]);
-  const startDq = scanStartDq(setting, base, toParameters, fitted[0]!.position);
+  // With spin–orbit in a cubic field the lowest band may belong to the second or third term: try each.
+  const startDqs = scanStartDqs(setting, base, toParameters, fitted[0]!.position, setting.spinOrbit && symmetry === 'cubic' ? 3 : 1);
+  const startDq = startDqs[0]!;
   base[0] = startDq;
   // Starting points: undistorted, elongated, compressed, and (d7–d9) strongly elongated towards square planar;
   // each gives its own ground level and candidate transitions (a square-planar d8 is a singlet, an octahedral one a triplet).
-  const starts: Array<[number, number]> =
+  const starts: Array<[number, number, number]> =
     symmetry === 'tetragonal'
-      ? [[0.02 * startDq, 0.01 * startDq], [0.15 * startDq, 0.06 * startDq], [-0.15 * startDq, -0.06 * startDq], ...(d >= 7 ? [[0.8 * startDq, 0.3 * startDq] as [number, number]] : [])]
-      : [[0, 0]];
+      ? [[0.02, 0.01], [0.15, 0.06], [-0.15, -0.06], ...(d >= 7 ? [[0.8, 0.3] as [number, number]] : [])].map(([s, t]) => [startDq, s! * startDq, t! * startDq])
+      : startDqs.map((dq) => [dq, 0, 0]);
   const steps = new Float64Array([2, 2, 2, 2, 1]);
   const trials: Trial[] = [];
-  for (const [ds0, dt0] of starts) {
+  for (const [dq0, ds0, dt0] of starts) {
     const x0 = Float64Array.from(base);
+    x0[0] = dq0;
     x0[1] = ds0;
     x0[2] = dt0;
     const start = toParameters(x0);
@@ -240,9 +249,9 @@ export function fitTetragonal(input: TetragonalFitInput): TetragonalFitResult {
     const groundKey = [...startEnergies].find(([, e]) => e === 0)![0];
     const groundMultiplicity = byKey.get(groundKey)!.multiplicity;
     // Candidates: spin-allowed transitions from the ground level, lowest first.
-    const seen = new Set<FieldLevel>();
+    const seen = new Set<FieldLevel>([byKey.get(groundKey)!]);
     const candidates = [...startEnergies]
-      .filter(([key, energy]) => key !== groundKey && energy >= 0 && byKey.get(key)!.multiplicity === groundMultiplicity)
+      .filter(([key, energy]) => key !== groundKey && byKey.get(key)!.multiplicity === groundMultiplicity && (symmetry === 'tetragonal' || energy > 0))
       .sort((x, y) => x[1] - y[1])
       .filter(([key]) => {
         // In a cubic field with spin–orbit a Γ8 is two keys (its D4' halves): keep one.
@@ -252,10 +261,10 @@ export function fitTetragonal(input: TetragonalFitInput): TetragonalFitResult {
         seen.add(level);
         return true;
       })
-      .slice(0, MAX_CANDIDATES)
+      .slice(0, setting.spinOrbit ? MAX_CANDIDATES_SPIN_ORBIT : MAX_CANDIDATES)
       .map(([key]) => key);
     if (candidates.length < fitted.length) continue;
-    for (const pick of combinations(candidates.length, fitted.length, MAX_ASSIGNMENTS)) {
+    for (const pick of combinations(candidates.length, fitted.length, setting.spinOrbit ? MAX_ASSIGNMENTS_SPIN_ORBIT : MAX_ASSIGNMENTS)) {
       const chosen = pick.map((i) => candidates[i]!);
       // Bands ascending meet the chosen levels ascending at the current parameters (sorted energies are continuous).
       const sortedChosen = (energies: Map<string, number>): string[] => [...chosen].sort((x, y) => energies.get(x)! - energies.get(y)!);
@@ -330,7 +339,13 @@ export function fitTetragonal(input: TetragonalFitInput): TetragonalFitResult {
     );
   }
   if (!bMatters) notes.push(`d${d}: one electron or hole, so Racah B and C play no part; they are not reported`);
-  notes.push('tetragonal convention: a1g(z²) = 6Dq − 2Ds − 6Dt, b1g(x²−y²) = 6Dq + 2Ds − Dt, b2g(xy) = −4Dq + 2Ds − Dt, eg(xz, yz) = −4Dq − Ds + 4Dt');
+  if (zeta > 0) {
+    warnings.push(
+      'spin–orbit fit: each band is matched to one double-group level, and a multiplet\'s components are easily misassigned; ' +
+        'this fit is not validated against published multiplets (fieldgap 0.1): check the assignment, or fit with ζ = 0 first',
+    );
+  }
+  if (symmetry === 'tetragonal') notes.push('tetragonal convention: a1g(z²) = 6Dq − 2Ds − 6Dt, b1g(x²−y²) = 6Dq + 2Ds − Dt, b2g(xy) = −4Dq + 2Ds − Dt, eg(xz, yz) = −4Dq − Ds + 4Dt');
   if (tabulatedZeta && p.zeta > 0) notes.push(`ζ = ${p.zeta.toFixed(0)} cm-1 is ${(100 * p.zeta / tabulatedZeta.zeta).toFixed(0)} % of the free ${ion!.label} ion's ${tabulatedZeta.zeta} cm-1 (${tabulatedZeta.source})`);
   const ground = labelled.levels[0]!;
   return {
@@ -353,10 +368,12 @@ export function fitTetragonal(input: TetragonalFitInput): TetragonalFitResult {
   };
 }
 
-/** Dq (cm-1) at which the lowest spin-allowed transition of the cubic model meets the lowest band: a starting point. */
-function scanStartDq(setting: ModelSetting, base: Float64Array, toParameters: (x: Float64Array) => ResolvedParameters, lowest: number): number {
-  let bestDq = lowest / 10;
-  let bestMiss = Infinity;
+/**
+ * Starting Dq values (cm-1): where the lowest band meets the first, second, …
+ * spin-allowed transition of the spin-free cubic model (count of them).
+ */
+function scanStartDqs(setting: ModelSetting, base: Float64Array, toParameters: (x: Float64Array) => ResolvedParameters, lowest: number, count: number): number[] {
+  const best = Array.from({ length: count }, () => ({ dq: lowest / 10, miss: Infinity }));
   // Spin-free and cubic: cheap, and close enough for a start.
   const spinFree: ModelSetting = { ...setting, spinOrbit: false };
   for (let dq = 100; dq <= 4000; dq += 50) {
@@ -364,14 +381,14 @@ function scanStartDq(setting: ModelSetting, base: Float64Array, toParameters: (x
     x[0] = dq;
     x[4] = 0;
     const p = toParameters(x);
-    const { byKey } = labelKeys(spinFree, p);
-    const energies = modelEnergies(spinFree, p);
-    const groundKey = [...energies].find(([, e]) => e === 0)![0];
-    const multiplicity = byKey.get(groundKey)!.multiplicity;
-    let first = Infinity;
-    for (const [key, e] of energies) if (e > 0 && e < first && byKey.get(key)!.multiplicity === multiplicity) first = e;
-    const miss = Math.abs(first - lowest);
-    if (miss < bestMiss) [bestMiss, bestDq] = [miss, dq];
+    const { byKey, levels } = labelKeys(spinFree, p);
+    const multiplicity = levels[0]!.multiplicity;
+    const allowed = levels.filter((l) => l.energy > 0 && l.multiplicity === multiplicity).map((l) => l.energy);
+    void byKey;
+    for (let k = 0; k < count && k < allowed.length; k++) {
+      const miss = Math.abs(allowed[k]! - lowest);
+      if (miss < best[k]!.miss) best[k] = { dq, miss };
+    }
   }
-  return bestDq;
+  return best.filter((b) => b.miss < Infinity).map((b) => b.dq);
 }
