@@ -20,6 +20,7 @@ import { renderCompare } from './views/compare.js';
 import { setupTabs } from './views/tabs.js';
 import { renderLibrary, saveControls, type LibraryContext } from './views/library.js';
 import { seriesPanel } from './views/series.js';
+import { renderLevels } from './views/levels.js';
 
 interface PageState {
   entries: AnalysisEntry[];
@@ -27,7 +28,7 @@ interface PageState {
   unit: AxisUnit;
   pickArmed: boolean;
   refitting: boolean;
-  tab: 'analyse' | 'compare' | 'library';
+  tab: 'analyse' | 'compare' | 'library' | 'levels';
   /** The service has the results library (GET /api/v1/analyses answers). */
   libraryAvailable: boolean;
 }
@@ -193,6 +194,7 @@ function render(): void {
     if (state.tab === 'analyse') renderMain(byId('main'));
     if (state.tab === 'library') renderLibrary(byId('view-library'), libraryContext, seriesPanel);
     if (state.tab === 'compare') renderCompare(byId('view-compare'), state.entries, state.unit, (unit) => { state.unit = unit; render(); });
+    if (state.tab === 'levels') renderLevels(byId('view-levels'));
   });
 }
 

@@ -1,10 +1,10 @@
 /**
- * The view tabs (Analyse, Compare, Library) as an ARIA tab list: click or
+ * The view tabs (Analyse, Compare, Library, Levels) as an ARIA tab list: click or
  * arrow keys move between them; hidden tabs are skipped.
  */
-export type TabName = 'analyse' | 'compare' | 'library';
+export type TabName = 'analyse' | 'compare' | 'library' | 'levels';
 
-const NAMES: TabName[] = ['analyse', 'compare', 'library'];
+const NAMES: TabName[] = ['analyse', 'compare', 'library', 'levels'];
 
 export interface Tabs {
   select(tab: TabName): void;
