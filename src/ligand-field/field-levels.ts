@@ -98,7 +98,7 @@ export function validateTetragonalParameters(geometry: Geometry, params: Tetrago
   validateFinite(dt, 'dt');
   validateFinite(zeta, 'zeta', { min: 0 });
   if (geometry === 'tetrahedral' && (ds !== 0 || dt !== 0)) {
-    throw invalidArgument('ds', 'Ds and Dt describe a tetragonally distorted octahedron: use the octahedral geometry (a distorted tetrahedron, D2d, is not supported)');
+    throw invalidArgument(ds !== 0 ? 'ds' : 'dt', 'Ds and Dt describe a tetragonally distorted octahedron: use the octahedral geometry (a distorted tetrahedron, D2d, is not supported)');
   }
   return { dq: params.dq, b: params.b, c: params.c, ds, dt, zeta };
 }

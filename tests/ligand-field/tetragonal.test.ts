@@ -156,7 +156,8 @@ describe('input checks', () => {
     };
     expect(fail(() => validateTetragonalParameters('octahedral', { dq: 1, b: 1, c: 1, zeta: -1 })).path).toBe('zeta');
     expect(fail(() => validateTetragonalParameters('octahedral', { dq: 1, b: 1, c: 1, ds: Number.NaN })).path).toBe('ds');
-    expect(fail(() => computeFieldLevels(3, 'tetrahedral', { dq: 1, b: 1, c: 1, dt: 5 })).path).toBe('ds');
+    expect(fail(() => computeFieldLevels(3, 'tetrahedral', { dq: 1, b: 1, c: 1, dt: 5 })).path).toBe('dt');
+    expect(fail(() => computeFieldLevels(3, 'tetrahedral', { dq: 1, b: 1, c: 1, ds: 5 })).path).toBe('ds');
   });
 });
 
