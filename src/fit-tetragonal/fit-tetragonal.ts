@@ -102,8 +102,30 @@ const MAX_CANDIDATES_SPIN_ORBIT = 13;
 const MAX_ASSIGNMENTS = 200;
 /** With spin–orbit every evaluation diagonalises all C(10, n) states: fewer assignments per start. */
 const MAX_ASSIGNMENTS_SPIN_ORBIT = 30;
+/** With spin–orbit: the best few spin-free groupings of the bands are carried into the second stage. */
+const SPIN_FREE_GROUPINGS = 3;
 
 const PARAMETER_NAMES = ['Dq', 'Ds', 'Dt', 'B', 'ζ'] as const;
+
+/** Non-decreasing index lists of length k over 0..n−1 (several bands on one level), at most limit. */
+function multisets(n: number, k: number, limit: number): number[][] {
+  const out: number[][] = [];
+  const pick: number[] = [];
+  const walk = (from: number): void => {
+    if (out.length >= limit) return;
+    if (pick.length === k) {
+      out.push([...pick]);
+      return;
+    }
+    for (let i = from; i < n; i++) {
+      pick.push(i);
+      walk(i);
+      pick.pop();
+    }
+  };
+  walk(0);
+  return out;
+}
 
 function combinations(n: number, k: number, limit: number): number[][] {
   const out: number[][] = [];
@@ -238,6 +260,92 @@ export function fitTetragonal(input: TetragonalFitInput): TetragonalFitResult {
       : startDqs.map((dq) => [dq, 0, 0]);
   const steps = new Float64Array([2, 2, 2, 2, 1]);
   const trials: Trial[] = [];
+  /** Spin–orbit plans already fitted (the same assignment reached from another start is fitted once). */
+  const fittedPlans = new Set<string>();
+  /**
+   * With spin–orbit, two stages. 1: without ζ, each band goes to a spin-free
+   * spin-allowed level, several neighbouring bands possibly to the same one (the
+   * components of one multiplet); the best such grouping is fitted. 2: the
+   * bands of each group go, in ascending order, to double-group levels whose
+   * dominant parent is that spin-free level; every such choice is a plan.
+   */
+  const spinOrbitPlans = (x0: Float64Array): Array<{ chosen: string[]; skipped: number; x0: Float64Array }> => {
+    const spinFree: ModelSetting = { ...setting, spinOrbit: false };
+    const sfStartX = Float64Array.from(x0);
+    sfStartX[4] = 0;
+    const sfStart = toParameters(sfStartX);
+    const { byKey: sfBy } = labelKeys(spinFree, sfStart);
+    const sfEnergies = modelEnergies(spinFree, sfStart);
+    const sfGround = [...sfEnergies].find(([, e]) => e === 0)![0];
+    const multiplicity = sfBy.get(sfGround)!.multiplicity;
+    const seenLevels = new Set<FieldLevel>([sfBy.get(sfGround)!]);
+    const sfCandidates = [...sfEnergies]
+      .filter(([key, e]) => key !== sfGround && e > 0 && sfBy.get(key)!.multiplicity === multiplicity)
+      .sort((x, y) => x[1] - y[1])
+      .filter(([key]) => {
+        const level = sfBy.get(key)!;
+        if (seenLevels.has(level)) return false;
+        seenLevels.add(level);
+        return true;
+      })
+      .slice(0, 6)
+      .map(([key]) => key);
+    const sfFree = freeParams.filter((j) => j !== 4);
+    const sfFull = (freeX: Float64Array): Float64Array => {
+      const x = Float64Array.from(sfStartX);
+      sfFree.forEach((j, i) => (x[j] = freeX[i]!));
+      return x;
+    };
+    const groupings: Array<{ chi2: number; x: Float64Array; pick: number[] }> = [];
+    for (const pick of multisets(sfCandidates.length, fitted.length, 150)) {
+      const residuals = (freeX: Float64Array): Float64Array => {
+        const energies = modelEnergies(spinFree, toParameters(sfFull(freeX)));
+        return Float64Array.from(fitted, (band, i) => (energies.get(sfCandidates[pick[i]!]!)! - band.position) / sigmas[i]!);
+      };
+      const solve = levenbergMarquardt(residuals, Float64Array.from(sfFree, (j) => sfStartX[j]!), Float64Array.from(sfFree, (j) => steps[j]!), 30);
+      groupings.push({ chi2: solve.chi2, x: sfFull(solve.x), pick });
+    }
+    // A multiplet's spread makes the spin-free fit of a grouping approximate: keep the few best groupings.
+    groupings.sort((x, y) => x.chi2 - y.chi2);
+    return groupings.slice(0, SPIN_FREE_GROUPINGS).flatMap((grouping) => plansFor(grouping, x0[4]!, sfCandidates, sfBy));
+  };
+  const plansFor = (
+    best: { x: Float64Array; pick: number[] },
+    zetaStart: number,
+    sfCandidates: string[],
+    sfBy: Map<string, FieldLevel>,
+  ): Array<{ chosen: string[]; skipped: number; x0: Float64Array }> => {
+    const start = Float64Array.from(best.x);
+    start[4] = zetaStart;
+    const p = toParameters(start);
+    const { byKey } = labelKeys(setting, p);
+    const energies = modelEnergies(setting, p);
+    const ground = [...energies].find(([, e]) => e === 0)![0];
+    // Bands per spin-free level (in band order), and the double-group levels of each.
+    const groups = new Map<number, number[]>();
+    best.pick.forEach((c, i) => groups.set(c, [...(groups.get(c) ?? []), i]));
+    const options: string[][][] = [];
+    for (const [c, bandsOf] of groups) {
+      const parent = sfBy.get(sfCandidates[c]!)!.label;
+      const seen = new Set<FieldLevel>([byKey.get(ground)!]);
+      const keys = [...energies]
+        .filter(([key]) => byKey.get(key)!.parent === parent)
+        .sort((x, y) => x[1] - y[1])
+        .filter(([key]) => {
+          const level = byKey.get(key)!;
+          if (symmetry === 'cubic' && seen.has(level)) return false;
+          seen.add(level);
+          return true;
+        })
+        .map(([key]) => key);
+      if (keys.length < bandsOf.length) return [];
+      options.push(combinations(keys.length, bandsOf.length, 50).map((pick) => pick.map((i) => keys[i]!)));
+    }
+    // The product of the groups' choices, bands in ascending order.
+    let product: string[][] = [[]];
+    for (const choices of options) product = product.flatMap((prefix) => choices.map((choice) => [...prefix, ...choice])).slice(0, MAX_ASSIGNMENTS_SPIN_ORBIT);
+    return product.map((chosen) => ({ chosen, skipped: 0, x0: start }));
+  };
   for (const [dq0, ds0, dt0] of starts) {
     const x0 = Float64Array.from(base);
     x0[0] = dq0;
@@ -263,22 +371,35 @@ export function fitTetragonal(input: TetragonalFitInput): TetragonalFitResult {
       })
       .slice(0, setting.spinOrbit ? MAX_CANDIDATES_SPIN_ORBIT : MAX_CANDIDATES)
       .map(([key]) => key);
-    if (candidates.length < fitted.length) continue;
-    for (const pick of combinations(candidates.length, fitted.length, setting.spinOrbit ? MAX_ASSIGNMENTS_SPIN_ORBIT : MAX_ASSIGNMENTS)) {
-      const chosen = pick.map((i) => candidates[i]!);
+    const plans: Array<{ chosen: string[]; skipped: number; x0: Float64Array }> = [];
+    if (setting.spinOrbit) {
+      plans.push(...spinOrbitPlans(x0));
+    } else {
+      if (candidates.length < fitted.length) continue;
+      for (const pick of combinations(candidates.length, fitted.length, MAX_ASSIGNMENTS)) {
+        plans.push({ chosen: pick.map((i) => candidates[i]!), skipped: pick[pick.length - 1]! + 1 - pick.length, x0 });
+      }
+    }
+    for (const { chosen, skipped, x0: planStart } of plans) {
+      if (setting.spinOrbit) {
+        const id = chosen.join();
+        if (fittedPlans.has(id)) continue;
+        fittedPlans.add(id);
+      }
       // Bands ascending meet the chosen levels ascending at the current parameters (sorted energies are continuous).
       const sortedChosen = (energies: Map<string, number>): string[] => [...chosen].sort((x, y) => energies.get(x)! - energies.get(y)!);
       const residuals = (freeX: Float64Array): Float64Array => {
-        const energies = modelEnergies(setting, toParameters(full(freeX, x0)));
+        const energies = modelEnergies(setting, toParameters(full(freeX, planStart)));
         const order = sortedChosen(energies);
         return Float64Array.from(fitted, (band, i) => (energies.get(order[i]!)! - band.position) / sigmas[i]!);
       };
-      const solve = levenbergMarquardt(residuals, Float64Array.from(freeParams, (j) => x0[j]!), Float64Array.from(freeParams, (j) => steps[j]!));
-      const at = toParameters(full(solve.x, x0));
+      // With spin–orbit each evaluation is all C(10, n) states, and the start is already close (stage 1): fewer iterations.
+      const solve = levenbergMarquardt(residuals, Float64Array.from(freeParams, (j) => planStart[j]!), Float64Array.from(freeParams, (j) => steps[j]!), setting.spinOrbit ? 30 : 100);
+      const at = toParameters(full(solve.x, planStart));
       const energies = modelEnergies(setting, at);
       const groundNow = [...energies].find(([, e]) => e === 0)![0];
       const keepsGround = labelKeys(setting, at).byKey.get(groundNow)!.multiplicity === groundMultiplicity;
-      trials.push({ solve, chosen: sortedChosen(energies), skipped: pick[pick.length - 1]! + 1 - pick.length, base: x0, keepsGround });
+      trials.push({ solve, chosen: sortedChosen(energies), skipped, base: planStart, keepsGround });
     }
   }
   if (trials.length === 0) {
@@ -341,8 +462,8 @@ export function fitTetragonal(input: TetragonalFitInput): TetragonalFitResult {
   if (!bMatters) notes.push(`d${d}: one electron or hole, so Racah B and C play no part; they are not reported`);
   if (zeta > 0) {
     warnings.push(
-      'spin–orbit fit: each band is matched to one double-group level, and a multiplet\'s components are easily misassigned; ' +
-        'this fit is not validated against published multiplets (fieldgap 0.1): check the assignment, or fit with ζ = 0 first',
+      'spin–orbit fit: the bands are grouped by spin-free parent first, then matched to its double-group levels; ' +
+        'checked on multiplets the engine itself generated, not yet on published spectra: check the assignment',
     );
   }
   if (symmetry === 'tetragonal') notes.push('tetragonal convention: a1g(z²) = 6Dq − 2Ds − 6Dt, b1g(x²−y²) = 6Dq + 2Ds − Dt, b2g(xy) = −4Dq + 2Ds − Dt, eg(xz, yz) = −4Dq − Ds + 4Dt');

@@ -26,7 +26,7 @@ describe.skipIf(browserTestsSkipped())('the Levels tab', () => {
     }
     await s.page.click('#levels-form button[type=submit]');
     await s.page.waitForSelector('#levels-table', { timeout: 30_000 });
-    const rows = await s.page.$$eval('#levels-table tbody tr', (trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((td) => td.textContent ?? '')));
+    const rows = await s.page.$$eval('#levels-table tbody tr', (trs) => trs.map((tr) => Array.from(tr.querySelectorAll('td'), (td) => td.textContent ?? '')));
     const expected = computeFieldLevels(9, 'octahedral', { dq: 1200, b: 1000, c: 4000, ds: 1500, dt: 300, zeta: 830 }).levels;
     expect(rows.map((r) => r[0])).toEqual(expected.map((l) => l.term));
     expect(rows.map((r) => r[1])).toEqual(expected.map((l) => l.energy.toFixed(0)));

@@ -56,3 +56,18 @@ describe('tetragonal fit', () => {
     }
   });
 });
+
+describe('spin–orbit fit in a cubic field', () => {
+  it('tetrahedral Co(II): a 4T1(P) multiplet and one 4T1(F) band give back Dq, B and ζ (round trip through the engine)', () => {
+    // Not an outside check: the bands come from the project's own engine (no published multiplet was at hand).
+    const truth = { dq: 400, b: 750, c: 3400, zeta: 430 };
+    const levels = computeFieldLevels(7, 'tetrahedral', truth).levels;
+    const p = levels.filter((l) => l.parent === '4T1(P)').map((l) => Math.round(l.energy * 100) / 100);
+    const f = levels.filter((l) => l.parent === '4T1(F)').map((l) => Math.round(l.energy * 100) / 100);
+    const result = fitTetragonal({ ion: 'Co2+', geometry: 'tetrahedral', symmetry: 'cubic', bands: [f[1]!, p[0]!, p[2]!, p[3]!], zeta: 500, freeZeta: true, cOverB: 3400 / 750 });
+    expect(result.dq).toBeCloseTo(truth.dq, 0);
+    expect(result.b).toBeCloseTo(truth.b, 0);
+    expect(Math.abs(result.zeta - truth.zeta)).toBeLessThan(5);
+    expect(result.assignments.map((a) => a.parent)).toEqual(['4T1(F)', '4T1(P)', '4T1(P)', '4T1(P)']);
+  }, 180_000); // a bound, not a speed check: the fit diagonalises all 120 states of d7 many times
+});
