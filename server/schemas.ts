@@ -32,6 +32,21 @@ export const LIMITS = {
   maxEnergy: 200_000,
 } as const;
 
+/**
+ * Tetragonal Ds, Dt and spin–orbit ζ (cm-1), for levels and diagrams. Any of
+ * them present switches to the result beyond the cubic field (see
+ * src/ligand-field/field-levels.ts); absent, the cubic answer is unchanged.
+ */
+const fieldBeyondCubic = {
+  ds: z.number().min(-LIMITS.maxEnergy).max(LIMITS.maxEnergy).optional().meta({
+    description: 'Tetragonal Ds in cm-1 (octahedral only): a1g(z²) = 6Dq − 2Ds − 6Dt, b1g(x²−y²) = 6Dq + 2Ds − Dt, b2g(xy) = −4Dq + 2Ds − Dt, eg(xz, yz) = −4Dq − Ds + 4Dt.',
+  }),
+  dt: z.number().min(-LIMITS.maxEnergy).max(LIMITS.maxEnergy).optional().meta({ description: 'Tetragonal Dt in cm-1 (octahedral only).' }),
+  zeta: z.number().min(0).max(LIMITS.maxEnergy).optional().meta({
+    description: 'One-electron spin–orbit constant ζ in cm-1; levels are then labelled by the double group.',
+  }),
+};
+
 export const levelsQuery = z
   .strictObject({
     d: dCount,
@@ -40,6 +55,7 @@ export const levelsQuery = z
     b: positive('Racah B in cm-1.').max(LIMITS.maxEnergy),
     c: z.number().min(0).max(LIMITS.maxEnergy).optional().meta({ description: 'Racah C in cm-1 (give c or cOverB).' }),
     cOverB: z.number().min(0).max(20).optional().meta({ description: 'C given as the ratio C/B instead of c.' }),
+    ...fieldBeyondCubic,
   })
   .refine((q) => q.c !== undefined || q.cOverB !== undefined, {
     message: 'give Racah C as "c" (cm-1) or as the ratio "cOverB"',
@@ -59,6 +75,12 @@ export const diagramQuery = z.strictObject({
   steps: z.number().int().min(1).max(LIMITS.maxSteps).default(DIAGRAM_DEFAULTS.steps).meta({
     description: 'Number of Dq/B intervals from 0 to maxDqOverB.',
   }),
+  axis: z.enum(['dq', 'distortion', 'zeta']).optional().meta({
+    description: 'Beyond the cubic field: E/B against Dq/B (dq), against Ds/B as (Ds, Dt) grow from 0 (distortion), or against ζ/B (zeta).',
+  }),
+  b: positive('Racah B in cm-1, the energy unit of a diagram beyond the cubic field (default 1000).').max(LIMITS.maxEnergy).optional(),
+  dq: z.number().min(0).max(LIMITS.maxEnergy).optional().meta({ description: 'Fixed Dq in cm-1 on the distortion and zeta axes.' }),
+  ...fieldBeyondCubic,
 });
 export type DiagramQuery = z.infer<typeof diagramQuery>;
 

@@ -8,7 +8,10 @@
 import { analyzeSpectrum, type AnalyzeOptions } from '../src/analysis.js';
 import { FieldgapError, isFieldgapError, type ErrorCode } from '../src/errors.js';
 import { fitBands, type FitInput } from '../src/fit/index.js';
-import { computeLevels, diagramDocument, levelsDocument } from '../src/ligand-field/index.js';
+import {
+  computeFieldDiagram, computeFieldLevels, computeLevels, diagramDocument, fieldDiagramDocument, fieldLevelsDocument, levelsDocument,
+  type FieldDiagramAxis,
+} from '../src/ligand-field/index.js';
 import type { Geometry } from '../src/ligand-field/types.js';
 import { TaskBugError } from './errors.js';
 
@@ -18,6 +21,10 @@ export interface LevelsTaskInput {
   dq: number;
   b: number;
   c: number;
+  /** Beyond the cubic field, cm-1: any of them present gives the field levels document. */
+  ds?: number | undefined;
+  dt?: number | undefined;
+  zeta?: number | undefined;
 }
 
 export interface DiagramTaskInput {
@@ -26,6 +33,13 @@ export interface DiagramTaskInput {
   cOverB: number;
   maxDqOverB: number;
   steps: number;
+  /** Beyond the cubic field: any of these present gives the field diagram document. */
+  axis?: FieldDiagramAxis | undefined;
+  b?: number | undefined;
+  dq?: number | undefined;
+  ds?: number | undefined;
+  dt?: number | undefined;
+  zeta?: number | undefined;
 }
 
 export interface AnalyzeTaskInput {
@@ -67,12 +81,20 @@ export type Outcome =
 function runTask(task: Task): unknown {
   switch (task.kind) {
     case 'levels': {
-      const { d, geometry, dq, b, c } = task.input;
+      const { d, geometry, dq, b, c, ds, dt, zeta } = task.input;
+      if (ds !== undefined || dt !== undefined || zeta !== undefined) {
+        return fieldLevelsDocument(computeFieldLevels(d, geometry, { dq, b, c, ds, dt, zeta }));
+      }
       // The document `fieldgap levels --json` prints: one shape for the CLI and the service.
       return levelsDocument(computeLevels(d, geometry, { dq, b, c }));
     }
     case 'diagram': {
-      const { d, geometry, cOverB, maxDqOverB, steps } = task.input;
+      const { d, geometry, cOverB, maxDqOverB, steps, axis, b, dq, ds, dt, zeta } = task.input;
+      if ([axis, b, dq, ds, dt, zeta].some((v) => v !== undefined)) {
+        return fieldDiagramDocument(computeFieldDiagram(d, geometry, {
+          axis: axis ?? 'dq', b: b ?? 1000, cOverB, dq: dq ?? 0, ds: ds ?? 0, dt: dt ?? 0, zeta: zeta ?? 0, maxDqOverB, steps,
+        }));
+      }
       return diagramDocument(d, geometry, { cOverB, maxDqOverB, steps });
     }
     case 'fit':

@@ -104,6 +104,42 @@ export function diagram(query: DiagramQuery): Promise<Diagram> {
   return send<Diagram>(`${BASE}/diagram?${params.toString()}`, { method: 'GET' }, 'the energy-level diagram');
 }
 
+/** GET /levels beyond the cubic field: Dq, B, C with tetragonal Ds, Dt and spin–orbit ζ (cm-1). */
+export interface FieldLevelsQuery {
+  d: number;
+  geometry: string;
+  dq: number;
+  b: number;
+  c: number;
+  ds: number;
+  dt: number;
+  zeta: number;
+}
+
+/** One level as GET /levels gives it with ds, dt or zeta. */
+export interface FieldLevelRow {
+  energy: number;
+  degeneracy: number;
+  irrep: string;
+  parent: string;
+  parentWeight: number;
+  term: string;
+  multiplicity: number;
+  label: string;
+}
+
+export interface FieldLevelsAnswer {
+  group: string;
+  groundTerm: string;
+  levels: FieldLevelRow[];
+  notes: string[];
+}
+
+export function fieldLevels(query: FieldLevelsQuery): Promise<FieldLevelsAnswer> {
+  const params = new URLSearchParams(Object.entries(query).map(([k, v]) => [k, String(v)]));
+  return send<FieldLevelsAnswer>(`${BASE}/levels?${params.toString()}`, { method: 'GET' }, 'the energy levels');
+}
+
 /** Details the library stores with an analysis. */
 export interface LibraryDetails {
   sample: string;

@@ -21,6 +21,7 @@ import { setupTabs } from './views/tabs.js';
 import { renderLibrary, saveControls, type LibraryContext } from './views/library.js';
 import { seriesPanel } from './views/series.js';
 import { renderPredict } from './views/predict.js';
+import { renderLevels } from './views/levels.js';
 
 interface PageState {
   entries: AnalysisEntry[];
@@ -28,7 +29,7 @@ interface PageState {
   unit: AxisUnit;
   pickArmed: boolean;
   refitting: boolean;
-  tab: 'analyse' | 'compare' | 'library' | 'predict';
+  tab: 'analyse' | 'compare' | 'library' | 'predict' | 'levels';
   /** The service has the results library (GET /api/v1/analyses answers). */
   libraryAvailable: boolean;
 }
@@ -195,6 +196,7 @@ function render(): void {
     if (state.tab === 'library') renderLibrary(byId('view-library'), libraryContext, seriesPanel);
     if (state.tab === 'predict') renderPredict(byId('view-predict'), state.libraryAvailable);
     if (state.tab === 'compare') renderCompare(byId('view-compare'), state.entries, state.unit, (unit) => { state.unit = unit; render(); });
+    if (state.tab === 'levels') renderLevels(byId('view-levels'));
   });
 }
 

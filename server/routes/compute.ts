@@ -30,7 +30,7 @@ export function createComputeRouter({ pool, timeoutMs }: ComputeRouterDeps): Rou
 
   router.get('/levels', async (req, res) => {
     const q = parseTextFields(levelsQuery, req.query);
-    const input = { d: q.d, geometry: q.geometry, dq: q.dq, b: q.b, c: q.c ?? q.cOverB! * q.b };
+    const input = { d: q.d, geometry: q.geometry, dq: q.dq, b: q.b, c: q.c ?? q.cOverB! * q.b, ds: q.ds, dt: q.dt, zeta: q.zeta };
     res.json(await pool.run({ kind: 'levels', input }, { timeoutMs, signal: clientGoneSignal(res) }));
   });
 

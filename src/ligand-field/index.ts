@@ -11,3 +11,10 @@ export { freeIonTerms } from './public-free-ion.js';
 export { diagramDocument, levelsDocument } from './documents.js';
 export { spinStateChoice } from './spin-state.js';
 export * from './types.js';
+export {
+  computeFieldLevels, spinOrbitEnergies, type FieldLevel, type FieldLevelsResult, type TetragonalParameters, type SiteGroup,
+} from './field-levels.js';
+export { computeFieldDiagram, FIELD_DIAGRAM_AXES, type FieldDiagram, type FieldDiagramAxis, type FieldDiagramOptions } from './field-diagram.js';
+export { fieldDiagramDocument, fieldLevelsDocument } from './field-documents.js';
+export { tetragonalOrbitalEnergies } from './tetragonal-field.js';
+export { freeIonZeta, FREE_ION_ZETA, type FreeIonZeta } from './free-ion-zeta.js';

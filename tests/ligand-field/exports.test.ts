@@ -3,6 +3,8 @@ import * as api from '../../src/ligand-field/index.js';
 
 it('the public API of src/ligand-field (a change here is a change of contract)', () => {
   expect(Object.keys(api).sort()).toEqual([
-    'DIAGRAM_DEFAULTS', 'GEOMETRIES', 'computeDiagram', 'computeLevels', 'crossoverDqOverB', 'diagramDocument', 'freeIonTerms', 'levelsDocument', 'spinStateChoice',
+    'DIAGRAM_DEFAULTS', 'FIELD_DIAGRAM_AXES', 'FREE_ION_ZETA', 'GEOMETRIES', 'computeDiagram', 'computeFieldDiagram', 'computeFieldLevels', 'computeLevels',
+    'crossoverDqOverB', 'diagramDocument', 'fieldDiagramDocument', 'fieldLevelsDocument', 'freeIonTerms', 'freeIonZeta', 'levelsDocument',
+    'spinOrbitEnergies', 'spinStateChoice', 'tetragonalOrbitalEnergies',
   ]);
 });

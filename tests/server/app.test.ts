@@ -66,7 +66,7 @@ describe('GET /api/v1/openapi.json', () => {
       expect(Object.keys(doc.paths)).toContain(path);
     }
     const levels = doc.paths['/api/v1/levels']!['get']!.parameters!;
-    expect(levels.map((p) => p.name).sort()).toEqual(['b', 'c', 'cOverB', 'd', 'dq', 'geometry']);
+    expect(levels.map((p) => p.name).sort()).toEqual(['b', 'c', 'cOverB', 'd', 'dq', 'ds', 'dt', 'geometry', 'zeta']);
     expect(levels.find((p) => p.name === 'dq')!.required).toBe(true);
     expect(levels.find((p) => p.name === 'c')!.required).toBe(false);
     // The same schema that validates the fit body, not a copy.

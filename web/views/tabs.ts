@@ -1,10 +1,11 @@
 /**
- * The view tabs (Analyse, Compare, Library, Predict) as an ARIA tab list: click or
+/**
+ * The view tabs (Analyse, Compare, Library, Predict, Levels) as an ARIA tab list: click or
  * arrow keys move between them; hidden tabs are skipped.
  */
-export type TabName = 'analyse' | 'compare' | 'library' | 'predict';
+export type TabName = 'analyse' | 'compare' | 'library' | 'predict' | 'levels';
 
-const NAMES: TabName[] = ['analyse', 'compare', 'library', 'predict'];
+const NAMES: TabName[] = ['analyse', 'compare', 'library', 'predict', 'levels'];
 
 export interface Tabs {
   select(tab: TabName): void;

@@ -1,8 +1,11 @@
 import { invalidArgument } from '../../errors.js';
-import { computeDiagram, crossoverDqOverB, DIAGRAM_DEFAULTS, diagramDocument, GEOMETRIES, type Diagram } from '../../ligand-field/index.js';
+import {
+  computeDiagram, computeFieldDiagram, crossoverDqOverB, DIAGRAM_DEFAULTS, diagramDocument, FIELD_DIAGRAM_AXES, fieldDiagramDocument,
+  GEOMETRIES, type Diagram, type FieldDiagram, type FieldDiagramAxis,
+} from '../../ligand-field/index.js';
 import type { Command } from '../command.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
-import { joinNegativeValues } from './levels.js';
+import { joinNegativeValues, parseFieldOptions } from './levels.js';
 
 /**
  * `fieldgap diagram`: a Tanabe–Sugano-type diagram (E/B against Dq/B) as a
@@ -22,7 +25,18 @@ Options:
   --json              the whole diagram as JSON (one energy array per line)
   --csv               one row per point: dq_over_b, ground_term, then E/B of each line
 
-Without --json or --csv: a table of E/B at nine evenly spaced Dq/B values.
+Beyond the cubic field (any of --axis, --ds, --dt, --zeta given):
+  --axis A            dq (E/B against Dq/B at fixed Ds, Dt, ζ; default),
+                      distortion (against Ds/B: (Ds, Dt) grow together from 0 to --ds, --dt
+                      at fixed --dq), or zeta (against ζ/B from 0 to --zeta at fixed --dq, --ds, --dt)
+  --b B               Racah B in cm-1, the energy unit (default 1000)
+  --dq DQ             fixed Dq in cm-1 on the distortion and zeta axes
+  --ds DS, --dt DT    tetragonal Ds, Dt in cm-1 (octahedral only; default 0)
+  --zeta Z            spin–orbit constant ζ in cm-1, ≥ 0 (default 0)
+  Lines follow a level's identity; with ζ > 0 they are the double-group
+  levels (a cubic Γ8 is two coinciding lines), labelled at the last point.
+
+Without --json or --csv: a table of E/B at nine evenly spaced points.
 `;
 
 interface DiagramArgs {
@@ -32,6 +46,8 @@ interface DiagramArgs {
   maxDqOverB: number;
   steps: number;
   format: 'table' | 'json' | 'csv';
+  /** Set when the diagram goes beyond the cubic field. */
+  field?: { axis: FieldDiagramAxis; b: number; dq: number; ds: number; dt: number; zeta: number };
 }
 
 export function parseDiagramArgs(argv: string[]): DiagramArgs {
@@ -43,6 +59,12 @@ export function parseDiagramArgs(argv: string[]): DiagramArgs {
     steps: { type: 'string' },
     json: { type: 'boolean' },
     csv: { type: 'boolean' },
+    axis: { type: 'string' },
+    b: { type: 'string' },
+    dq: { type: 'string' },
+    ds: { type: 'string' },
+    dt: { type: 'string' },
+    zeta: { type: 'string' },
   });
   const d = numberOption('d', values.d, { required: true, min: 0, max: 10, integer: true })!;
   const geometry = choiceOption('geometry', values.geometry, GEOMETRIES, 'octahedral');
@@ -53,7 +75,22 @@ export function parseDiagramArgs(argv: string[]): DiagramArgs {
   const steps = numberOption('steps', values.steps, { min: 1, max: 20000, integer: true }) ?? DIAGRAM_DEFAULTS.steps;
   if (values.json && values.csv) throw invalidArgument('--csv', 'give either --json or --csv, not both');
   const format = values.json ? 'json' : values.csv ? 'csv' : 'table';
-  return { d, geometry, cOverB, maxDqOverB, steps, format };
+  const { ds, dt, zeta, beyondCubic } = parseFieldOptions(values, geometry);
+  if (!beyondCubic && values.axis === undefined) {
+    for (const name of ['b', 'dq'] as const) {
+      if (values[name] !== undefined) throw invalidArgument(`--${name}`, `--${name} belongs to diagrams with --axis, --ds, --dt or --zeta`);
+    }
+    return { d, geometry, cOverB, maxDqOverB, steps, format };
+  }
+  const axis = choiceOption('axis', values.axis, FIELD_DIAGRAM_AXES, 'dq');
+  const b = numberOption('b', values.b) ?? 1000;
+  if (b <= 0) throw invalidArgument('--b', '--b: Racah B must be greater than 0 cm-1');
+  const dq = numberOption('dq', values.dq, { required: axis !== 'dq' }) ?? 0;
+  if (dq < 0) throw invalidArgument('--dq', '--dq must be ≥ 0 cm-1');
+  if (axis === 'distortion' && ds === 0 && dt === 0) throw invalidArgument('--ds', '--axis distortion needs --ds or --dt (the end of the axis)');
+  if (axis === 'zeta' && zeta === 0) throw invalidArgument('--zeta', '--axis zeta needs --zeta > 0 (the end of the axis)');
+  if (steps > 2000) throw invalidArgument('--steps', '--steps: at most 2000 beyond the cubic field');
+  return { d, geometry, cOverB, maxDqOverB, steps, format, field: { axis, b, dq, ds, dt, zeta } };
 }
 
 /** Column names for CSV: the line labels, with " #2", " #3" on repeats of a label. */
@@ -103,12 +140,62 @@ export function diagramTable(diagram: Diagram, crossover: number | undefined): s
   return `${lines.join('\n')}\n`;
 }
 
+const AXIS_NAMES: Readonly<Record<FieldDiagramAxis, string>> = { dq: 'Dq/B', distortion: 'Ds/B', zeta: 'ζ/B' };
+
+/** Column names for CSV of a field diagram: labels, with " #2" on repeats. */
+function fieldLineNames(diagram: FieldDiagram): string[] {
+  const seen = new Map<string, number>();
+  return diagram.lines.map((line) => {
+    const index = (seen.get(line.label) ?? 0) + 1;
+    seen.set(line.label, index);
+    return index > 1 ? `${line.label} #${index}` : line.label;
+  });
+}
+
+export function fieldDiagramCsv(diagram: FieldDiagram): string {
+  const names = fieldLineNames(diagram).map((name) => `"${name.replace(/"/g, '""')}"`);
+  const rows = [[`${diagram.axis}_over_b`, 'ground_term', ...names].join(',')];
+  diagram.x.forEach((x, i) => {
+    rows.push([round(x), diagram.groundTerms[i]!, ...diagram.lines.map((line) => round(line.energies[i]!))].join(','));
+  });
+  return `${rows.join('\n')}\n`;
+}
+
+export function fieldDiagramTable(diagram: FieldDiagram): string {
+  const points = diagram.x.length;
+  const columns = [...new Set(Array.from({ length: 9 }, (_, j) => Math.round((j * (points - 1)) / 8)))];
+  const names = fieldLineNames(diagram);
+  const header = [`level \\ ${AXIS_NAMES[diagram.axis]}`, ...columns.map((i) => diagram.x[i]!.toFixed(3))];
+  const rows = diagram.lines.map((line, l) => [names[l]!, ...columns.map((i) => line.energies[i]!.toFixed(2))]);
+  const widths = header.map((h, col) => Math.max(h.length, ...rows.map((r) => r[col]!.length)));
+  const render = (cells: string[]): string =>
+    cells.map((cell, col) => (col === 0 ? cell.padEnd(widths[col]!) : cell.padStart(widths[col]!))).join('  ');
+  const last = points - 1;
+  const lines = [
+    `d${diagram.d} ${diagram.geometry}, B = ${diagram.b} cm-1, C/B = ${diagram.cOverB}: E/B against ${AXIS_NAMES[diagram.axis]}; ` +
+      `at the last point Dq = ${diagram.dq[last]}, Ds = ${diagram.ds[last]}, Dt = ${diagram.dt[last]}, ζ = ${diagram.zeta[last]} cm-1; ${points} points`,
+    '',
+    render(header),
+    ...rows.map(render),
+    '',
+    'Use --csv or --json for every point.',
+  ];
+  return `${lines.join('\n')}\n`;
+}
+
 export const diagramCommand: Command = {
   name: 'diagram',
   summary: 'Tanabe–Sugano-type diagram: E/B of every level against Dq/B (table, --json or --csv)',
   usage: USAGE,
   async run(argv, io) {
     const args = parseDiagramArgs(argv);
+    if (args.field) {
+      const field = computeFieldDiagram(args.d, args.geometry, {
+        ...args.field, cOverB: args.cOverB, maxDqOverB: args.maxDqOverB, steps: args.steps,
+      });
+      io.stdout(args.format === 'json' ? `${JSON.stringify(fieldDiagramDocument(field))}\n` : args.format === 'csv' ? fieldDiagramCsv(field) : fieldDiagramTable(field));
+      return 0;
+    }
     const diagram = computeDiagram(args.d, args.geometry, {
       cOverB: args.cOverB, maxDqOverB: args.maxDqOverB, steps: args.steps,
     });

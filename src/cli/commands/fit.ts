@@ -1,6 +1,7 @@
 import { FieldgapError, invalidArgument, isFieldgapError } from '../../errors.js';
 import { fitBands, parseBandList, type FitInput, type FitResult } from '../../fit/index.js';
 import { GEOMETRIES } from '../../ligand-field/index.js';
+import { fitTetragonal, tetragonalFitReport, type TetragonalFitInput } from '../../fit-tetragonal/index.js';
 import type { Command } from '../command.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 
@@ -33,6 +34,12 @@ Options:
   --c-over-b R     fix C/B at R (default: the free ion's C0/B0, else 4.5)
   --c C            fix Racah C at C cm-1 instead
   --free-c         fit C too (needs at least 3 d-d bands that depend on C)
+  --symmetry S     cubic (default) or tetragonal: fit Dq, Ds, Dt (and B) with the
+                   D4h convention a1g(z²) = 6Dq − 2Ds − 6Dt, b1g(x²−y²) = 6Dq + 2Ds − Dt,
+                   b2g(xy) = −4Dq + 2Ds − Dt, eg(xz, yz) = −4Dq − Ds + 4Dt
+  --zeta Z         spin–orbit constant ζ fixed at Z cm-1, or free-ion (the ion's
+                   tabulated value); default 0 (off)
+  --free-zeta      fit ζ as well
   --json           print the result as JSON
 
 Example: fieldgap fit --ion Cr3+ --bands 17400,24600
@@ -48,6 +55,7 @@ const OPTION_OF_FIELD: ReadonlyArray<[RegExp, string]> = [
   [/^cOverB/, '--c-over-b'],
   [/^c$/, '--c'],
   [/^freeC/, '--free-c'],
+  [/^zeta/, '--zeta'],
 ];
 
 function toOptionError(error: FieldgapError): FieldgapError {
@@ -58,7 +66,7 @@ function toOptionError(error: FieldgapError): FieldgapError {
 }
 
 /** Reads and checks the options; every failure names its option. */
-export function parseFitArgs(argv: string[]): { input: FitInput; json: boolean } {
+export function parseFitArgs(argv: string[]): { input: FitInput; json: boolean; tetragonal?: TetragonalFitInput } {
   const { values } = parseCommandArgs(argv, {
     ion: { type: 'string' },
     d: { type: 'string' },
@@ -68,6 +76,9 @@ export function parseFitArgs(argv: string[]): { input: FitInput; json: boolean }
     c: { type: 'string' },
     'free-c': { type: 'boolean' },
     json: { type: 'boolean' },
+    symmetry: { type: 'string' },
+    zeta: { type: 'string' },
+    'free-zeta': { type: 'boolean' },
   });
   if (values.ion === undefined && values.d === undefined) {
     throw invalidArgument('--ion', '--ion (e.g. Cr3+) or --d (the d-electron count) is required');
@@ -93,7 +104,18 @@ export function parseFitArgs(argv: string[]): { input: FitInput; json: boolean }
     input.c = c;
   }
   if (values['free-c']) input.freeC = true;
-  return { input, json: values.json ?? false };
+  const symmetry = choiceOption('symmetry', values.symmetry, ['cubic', 'tetragonal'] as const, 'cubic');
+  if (symmetry === 'cubic' && values.zeta === undefined && !values['free-zeta']) return { input, json: values.json ?? false };
+  // Beyond the cubic field: the fit of src/fit-tetragonal/.
+  if (values['free-c']) throw invalidArgument('--free-c', '--free-c is not available with --symmetry tetragonal or --zeta (C/B stays fixed)');
+  if (values.c !== undefined) throw invalidArgument('--c', '--c is not available with --symmetry tetragonal or --zeta: give --c-over-b');
+  const tetragonal: TetragonalFitInput = { bands: input.bands, geometry: input.geometry ?? 'octahedral', symmetry };
+  if (input.ion !== undefined) tetragonal.ion = String(input.ion);
+  if (input.d !== undefined) tetragonal.d = input.d;
+  if (input.cOverB !== undefined) tetragonal.cOverB = input.cOverB;
+  if (values.zeta !== undefined) tetragonal.zeta = values.zeta === 'free-ion' ? 'free-ion' : numberOption('zeta', values.zeta, { min: 0 })!;
+  if (values['free-zeta']) tetragonal.freeZeta = true;
+  return { input, json: values.json ?? false, tetragonal };
 }
 
 /** The JSON document of `fit --json`: the contract fields first, then the extras. */
@@ -167,7 +189,17 @@ export const fitCommand: Command = {
   summary: 'fit 10Dq, Racah B and C to observed band maxima (automatic assignment, spin state)',
   usage: USAGE,
   async run(argv, io) {
-    const { input, json } = parseFitArgs(argv);
+    const { input, json, tetragonal } = parseFitArgs(argv);
+    if (tetragonal) {
+      let fitted;
+      try {
+        fitted = fitTetragonal(tetragonal);
+      } catch (error) {
+        throw isFieldgapError(error) ? toOptionError(error) : error;
+      }
+      io.stdout(json ? `${JSON.stringify(fitted, null, 2)}\n` : tetragonalFitReport(fitted));
+      return 0;
+    }
     let result: FitResult;
     try {
       result = fitBands(input);
