@@ -94,21 +94,21 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
     }) as AnalysisDetails;
     const options = toAnalyzeOptions(analysis, upload.fileName);
     const result = await analyze(upload.content, options);
-    const saved = library.add({ ...details, fileName, content: upload.content, options, result });
+    const saved = await library.add({ ...details, fileName, content: upload.content, options, result });
     res.status(201).location(`${req.baseUrl}/${saved.id}`).json(saved);
   });
 
-  router.get('/', (req, res) => {
+  router.get('/', async (req, res) => {
     const { query, ion, limit, offset } = parseTextFields(listQuery, req.query);
-    res.json(library.list({ ...(query !== undefined && { query }), ...(ion !== undefined && { ion }), ...(limit !== undefined && { limit }), ...(offset !== undefined && { offset }) }));
+    res.json(await library.list({ ...(query !== undefined && { query }), ...(ion !== undefined && { ion }), ...(limit !== undefined && { limit }), ...(offset !== undefined && { offset }) }));
   });
 
-  router.get('/:id', (req, res) => {
-    res.json(library.get(idParam(req)));
+  router.get('/:id', async (req, res) => {
+    res.json(await library.get(idParam(req)));
   });
 
-  router.get('/:id/original', (req, res) => {
-    const original = library.getOriginal(idParam(req));
+  router.get('/:id/original', async (req, res) => {
+    const original = await library.getOriginal(idParam(req));
     res.attachment(original.fileName);
     // Set as is: res.type() would add a charset the file may not be in.
     res.setHeader('Content-Type', ORIGINAL_TYPES[extname(original.fileName).toLowerCase()] ?? 'application/octet-stream');
@@ -118,7 +118,7 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
     res.send(original.bytes);
   });
 
-  router.patch('/:id', (req, res) => {
+  router.patch('/:id', async (req, res) => {
     const id = idParam(req);
     const body = parseJsonBody(patchBody, req.body ?? {});
     const patch: AnalysisPatch = {};
@@ -126,11 +126,11 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
       if (value === undefined) continue;
       (patch as Record<string, unknown>)[key] = key === 'ligands' && value !== null ? ligandList(value as string | string[]) : value;
     }
-    res.json(library.update(id, patch));
+    res.json(await library.update(id, patch));
   });
 
-  router.delete('/:id', (req, res) => {
-    library.remove(idParam(req));
+  router.delete('/:id', async (req, res) => {
+    await library.remove(idParam(req));
     res.status(204).end();
   });
 

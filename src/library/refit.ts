@@ -25,8 +25,8 @@ export async function refitAnalysis(
   if (typeof changes !== 'object' || changes === null || Array.isArray(changes)) {
     throw invalidArgument('options', 'options: expected an object of analysis options to change');
   }
-  const record = library.get(id);
-  const original = library.getOriginal(id);
+  const record = await library.get(id);
+  const original = await library.getOriginal(id);
   const options: Record<string, unknown> = { ...(record.options as Record<string, unknown>) };
   for (const [key, value] of Object.entries(changes)) {
     if (value === null) delete options[key];

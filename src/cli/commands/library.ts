@@ -12,7 +12,8 @@ import type { Library } from '../../library/library.js';
 
 /**
  * `fieldgap library`: the results library from the command line. Storage is
- * src/library (SQLite); it is loaded only when this command runs.
+ * src/library (SQLite, or PostgreSQL with --database); it is loaded only
+ * when this command runs.
  *
  * Choices made here:
  * - refit keeps history: every refit is a new revision of the record, the
@@ -33,9 +34,9 @@ const DETAIL_OPTIONS = {
   note: { type: 'string' },
 } as const;
 
-const DATA = { data: { type: 'string' } } as const;
+const DATA = { data: { type: 'string' }, database: { type: 'string' } } as const;
 
-const USAGE = `Usage: fieldgap library SUBCOMMAND [options] [--data DIR]
+const USAGE = `Usage: fieldgap library SUBCOMMAND [options] [--data DIR | --database URL]
 
 The results library: analyses saved with their original file (kept byte for
 byte, with its SHA-256), options, results and the fieldgap version.
@@ -65,6 +66,8 @@ Details (library add):
 ${ANALYSIS_USAGE}
 
   --data DIR        library folder (default $FIELDGAP_DATA, else ./fieldgap-data)
+  --database URL    a PostgreSQL library, postgres://user@host:5432/db
+                    (default $FIELDGAP_DATABASE_URL, when --data is not given)
 
 Energies are in cm-1.`;
 
@@ -96,7 +99,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
     options.fileName = basename(file);
     const { analyzeSpectrum } = await import('../../analysis.js');
     const result = analyzeSpectrum(content, options);
-    const saved = await withLibrary(values.data, io, (library) => library.add({ ...details, fileName: basename(file), content, options, result }));
+    const saved = await withLibrary(values, io, (library) => library.add({ ...details, fileName: basename(file), content, options, result }));
     if (values.json) io.stdout(`${JSON.stringify(saved, null, 2)}\n`);
     else io.stdout(`saved #${saved.id} "${saved.sample}"${saved.ion ? ` (${saved.ion})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`);
     return 0;
@@ -106,7 +109,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
     const { values } = parseCommandArgs(argv, { query: { type: 'string' }, ion: { type: 'string' }, limit: { type: 'string' }, offset: { type: 'string' }, json: { type: 'boolean' }, ...DATA });
     const limit = numberOption('limit', values.limit, { min: 1, max: 1000, integer: true }) ?? 50;
     const offset = numberOption('offset', values.offset, { min: 0, integer: true }) ?? 0;
-    const page = await withLibrary(values.data, io, (library) =>
+    const page = await withLibrary(values, io, (library) =>
       library.list({ limit, offset, ...(values.query !== undefined && { query: values.query }), ...(values.ion !== undefined && { ion: values.ion }) }));
     if (values.json) {
       io.stdout(`${JSON.stringify(page, null, 2)}\n`);
@@ -126,7 +129,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
   show: async (argv, io) => {
     const { values, positionals } = parseCommandArgs(argv, { json: { type: 'boolean' }, ...DATA }, true);
     const id = idFrom(positionals);
-    const record = await withLibrary(values.data, io, (library) => library.get(id));
+    const record = await withLibrary(values, io, (library) => library.get(id));
     io.stdout(values.json ? `${JSON.stringify(record, null, 2)}\n` : recordText(record));
     return 0;
   },
@@ -135,7 +138,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
     const { values, positionals } = parseCommandArgs(argv, { out: { type: 'string' }, force: { type: 'boolean' }, ...DATA }, true);
     const id = idFrom(positionals);
     if (values.out === undefined) throw invalidArgument('--out', '--out FILE is required: where to write the original file');
-    const original = await withLibrary(values.data, io, (library) => library.getOriginal(id));
+    const original = await withLibrary(values, io, (library) => library.getOriginal(id));
     writeNew(values.out, original.bytes, values.force === true, io);
     io.stdout(`wrote ${values.out} (${original.size} bytes, sha256 ${original.sha256}, stored as ${original.fileName})\n`);
     return 0;
@@ -146,10 +149,12 @@ const SUBCOMMANDS: Record<string, Handler> = {
     if (values.csv !== undefined && values.json !== undefined) throw invalidArgument('--json', 'give --csv FILE or --json FILE, not both');
     const filter = { ...(values.query !== undefined && { query: values.query }), ...(values.ion !== undefined && { ion: values.ion }) };
     const { libraryCsv } = await import('../../library/export.js');
-    const text = await withLibrary(values.data, io, (library) => {
-      const summaries = library.listAll(filter);
+    const text = await withLibrary(values, io, async (library) => {
+      const summaries = await library.listAll(filter);
       if (values.json === undefined) return libraryCsv(summaries);
-      return `${JSON.stringify({ analyses: summaries.map((s) => library.get(s.id)) }, null, 2)}\n`;
+      const analyses: AnalysisRecord[] = [];
+      for (const s of summaries) analyses.push(await library.get(s.id));
+      return `${JSON.stringify({ analyses }, null, 2)}\n`;
     });
     const target = values.csv ?? values.json;
     if (target === undefined || target === '-') {
@@ -166,7 +171,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
     const id = idFrom(positionals);
     const changes = analysisOptionsFrom(values);
     const [{ analyzeSpectrum }, { refitAnalysis }] = await Promise.all([import('../../analysis.js'), import('../../library/refit.js')]);
-    const record = await withLibraryAsync(values.data, io, (library) =>
+    const record = await withLibrary(values, io, (library) =>
       refitAnalysis(library, id, { ...changes }, async (content, options) => analyzeSpectrum(content, options as AnalyzeOptions)));
     if (values.json) {
       io.stdout(`${JSON.stringify(record, null, 2)}\n`);
@@ -180,9 +185,9 @@ const SUBCOMMANDS: Record<string, Handler> = {
   remove: async (argv, io) => {
     const { values, positionals } = parseCommandArgs(argv, { ...DATA }, true);
     const id = idFrom(positionals);
-    const sample = await withLibrary(values.data, io, (library) => {
-      const { sample: name } = library.get(id);
-      library.remove(id);
+    const sample = await withLibrary(values, io, async (library) => {
+      const { sample: name } = await library.get(id);
+      await library.remove(id);
       return name;
     });
     io.stdout(`removed #${id} "${sample}"\n`);
@@ -190,25 +195,30 @@ const SUBCOMMANDS: Record<string, Handler> = {
   },
 };
 
-async function openFor(flag: string | undefined, io: CliIo): Promise<Library> {
-  const [{ resolveDataDir }, { openLibrary }] = await Promise.all([
-    import('../../library/data-dir.js'),
+/** The options that name a library: --data DIR or --database URL. */
+export interface LibraryFlags {
+  data?: string | undefined;
+  database?: string | undefined;
+}
+
+async function openFor(flags: LibraryFlags, io: CliIo): Promise<Library> {
+  const [{ resolveLibraryLocation }, { openLibraryAt }] = await Promise.all([
+    import('../../library/location.js'),
     import('../../library/library.js'),
   ]);
-  return openLibrary(resolveDataDir({ flag, env: io.env, cwd: io.cwd }));
+  return openLibraryAt(resolveLibraryLocation({ dataFlag: flags.data, databaseFlag: flags.database, env: io.env, cwd: io.cwd }));
 }
 
-/** Opens the library named by --data / FIELDGAP_DATA, runs `fn`, always closes. */
-export async function withLibrary<T>(flag: string | undefined, io: CliIo, fn: (library: Library) => T): Promise<T> {
-  return withLibraryAsync(flag, io, async (library) => fn(library));
-}
-
-async function withLibraryAsync<T>(flag: string | undefined, io: CliIo, fn: (library: Library) => Promise<T>): Promise<T> {
-  const library = await openFor(flag, io);
+/**
+ * Opens the library named by --database / --data (else FIELDGAP_DATABASE_URL,
+ * FIELDGAP_DATA, ./fieldgap-data), runs `fn`, always closes. A string is --data.
+ */
+export async function withLibrary<T>(flags: LibraryFlags | string | undefined, io: CliIo, fn: (library: Library) => T | Promise<T>): Promise<T> {
+  const library = await openFor(typeof flags === 'object' ? flags : { data: flags }, io);
   try {
     return await fn(library);
   } finally {
-    library.close();
+    await library.close();
   }
 }
 
