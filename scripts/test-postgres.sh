@@ -36,7 +36,13 @@ case "$cmd" in
   start)
     mkdir -p "$dir"
     chmod 700 "$dir"
-    [[ $(id -u) -eq 0 ]] && chown postgres: "$dir"
+    if [[ $(id -u) -eq 0 ]]; then
+      chown postgres: "$dir"
+      if ! runuser -u postgres -- test -x "$dir"; then
+        echo "test-postgres: the postgres user cannot reach $dir (a parent folder is private); choose a folder under /tmp" >&2
+        exit 1
+      fi
+    fi
     as_owner "$bindir/initdb" -D "$dir/data" -U fieldgap --auth=trust -E UTF8 --locale=C.UTF-8 >"$dir/initdb.log" 2>&1 \
       || { cat "$dir/initdb.log" >&2; exit 1; }
     port=$(node -e "const s=require('net').createServer().listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})")

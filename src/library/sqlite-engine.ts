@@ -89,10 +89,17 @@ function openReadOnly(file: string): Database.Database {
   try {
     // Works when the -wal and -shm files are there (a library in use, or left by a crash).
     const db = new Database(file, { readonly: true, fileMustExist: true });
-    db.prepare('SELECT count(*) FROM sqlite_master').get();
+    try {
+      db.prepare('SELECT count(*) FROM sqlite_master').get();
+    } catch (error) {
+      db.close();
+      throw error;
+    }
     return db;
   } catch (error) {
-    if ((error as { code?: string }).code !== 'SQLITE_CANTOPEN') throw error;
+    // No -shm to share and none can be made here (SQLITE_CANTOPEN, SQLITE_READONLY_DIRECTORY, ...): read a copy.
+    const code = String((error as { code?: unknown }).code ?? '');
+    if (!code.startsWith('SQLITE_CANTOPEN') && !code.startsWith('SQLITE_READONLY')) throw error;
   }
   const bytes = readFileSync(file);
   // Bytes 18 and 19 of the header: file format versions, 2 = WAL. An in-memory copy has no WAL.

@@ -9,6 +9,8 @@ import { readInputFile } from '../files.js';
 import { numberOption, parseCommandArgs } from '../options.js';
 import type { AnalysisRecord, AnalysisSummary, FitSummary, NewAnalysis } from '../../library/types.js';
 import type { Library } from '../../library/library.js';
+import type { AssignmentChange } from '../../library/refit.js';
+import { checkCorrections, type AnalysisCorrections } from '../../analysis-corrections.js';
 
 /**
  * `fieldgap library`: the results library from the command line. Storage is
@@ -51,10 +53,20 @@ byte, with its SHA-256), options, results and the fieldgap version.
                              write the stored original file back out
   library export [--csv FILE | --json FILE] [--query Q] [--ion I] [--force]
                              CSV (default, to stdout without FILE) or JSON
-  library refit ID [analysis options] [--json]
+  library refit ID [analysis options] [--reset NAME]... [--corrections C] [--json]
                              rerun on the stored original with changed options;
-                             kept as a new revision, earlier ones stay
+                             kept as a new revision, earlier ones stay; every
+                             change in the assignment is listed. A new C choice
+                             (--c-over-b, --c, --free-c) replaces the old one;
+                             --reset c-over-b|c|free-c|corrections|column|...
+                             takes a stored option back to its default
   library remove ID          delete the record, its original and history
+
+Corrections (library add and refit):
+  --corrections C   JSON, or a file holding it: {"bands":[{"position":17400},
+                    {"position":14450,"flags":["spin-forbidden"]}],"alternative":0}
+                    bands: the band list fitted instead of the found bands;
+                    alternative: the chosen alternative assignment (from 0)
 
 Details (library add):
   --sample S        sample name (default: the file name without extension)
@@ -90,9 +102,10 @@ type Handler = (argv: string[], io: CliIo) => Promise<number>;
 
 const SUBCOMMANDS: Record<string, Handler> = {
   add: async (argv, io) => {
-    const { values, positionals } = parseCommandArgs(argv, { ...ANALYSIS_OPTIONS, ...DETAIL_OPTIONS, ...DATA, json: { type: 'boolean' } }, true);
+    const { values, positionals } = parseCommandArgs(argv, { ...ANALYSIS_OPTIONS, ...DETAIL_OPTIONS, ...DATA, corrections: { type: 'string' }, json: { type: 'boolean' } }, true);
     const file = onePositional(positionals, 'FILE');
     const options = analysisOptionsFrom(values);
+    if (values.corrections !== undefined) options.corrections = correctionsFrom(values.corrections, io);
     const details = detailsFrom(values, file);
     fillFromFormula(values.formula, options, details, io);
     const content = readInputFile(file, io.cwd);
@@ -167,18 +180,29 @@ const SUBCOMMANDS: Record<string, Handler> = {
   },
 
   refit: async (argv, io) => {
-    const { values, positionals } = parseCommandArgs(argv, { ...ANALYSIS_OPTIONS, json: { type: 'boolean' }, ...DATA }, true);
+    const { values, positionals } = parseCommandArgs(
+      argv,
+      { ...ANALYSIS_OPTIONS, corrections: { type: 'string' }, reset: { type: 'string', multiple: true }, json: { type: 'boolean' }, ...DATA },
+      true,
+    );
     const id = idFrom(positionals);
-    const changes = analysisOptionsFrom(values);
+    const changes: Record<string, unknown> = { ...analysisOptionsFrom(values) };
+    if (values.corrections !== undefined) changes['corrections'] = correctionsFrom(values.corrections, io);
+    for (const name of values.reset ?? []) {
+      const key = RESETTABLE[name.trim().replace(/^--/, '')];
+      if (key === undefined) throw invalidArgument('--reset', `--reset: "${name}" is not a stored option (one of ${Object.keys(RESETTABLE).join(', ')})`);
+      if (changes[key] !== undefined) throw invalidArgument('--reset', `--reset ${name}: the same refit also sets it`);
+      changes[key] = null;
+    }
     const [{ analyzeSpectrum }, { refitAnalysis }] = await Promise.all([import('../../analysis.js'), import('../../library/refit.js')]);
     const record = await withLibrary(values, io, (library) =>
-      refitAnalysis(library, id, { ...changes }, async (content, options) => analyzeSpectrum(content, options as AnalyzeOptions)));
+      refitAnalysis(library, id, changes, async (content, options) => analyzeSpectrum(content, options as AnalyzeOptions)));
     if (values.json) {
       io.stdout(`${JSON.stringify(record, null, 2)}\n`);
       return 0;
     }
     const before = record.revisions.at(-2)!;
-    io.stdout(`refitted #${record.id} "${record.sample}": revision ${record.revision}\n  was  ${fitLine(before.summary)}\n  now  ${fitLine(record.summary)}\n${warningLines(record)}`);
+    io.stdout(`refitted #${record.id} "${record.sample}": revision ${record.revision}\n  was  ${fitLine(before.summary)}\n  now  ${fitLine(record.summary)}\n${changeLines(record.changes)}${warningLines(record)}`);
     return 0;
   },
 
@@ -296,6 +320,31 @@ function fitLine(s: FitSummary): string {
   if (s.spinState) parts.push(s.spinState);
   if (s.rmsResidual !== null) parts.push(`rms ${s.rmsResidual.toFixed(0)} cm-1`);
   return parts.join('   ');
+}
+
+/** The stored options `--reset` takes back to their default, by their CLI names. */
+const RESETTABLE: Record<string, string> = {
+  'c-over-b': 'cOverB', c: 'c', 'free-c': 'freeC', corrections: 'corrections', column: 'column', 'x-unit': 'xUnit',
+  conc: 'concentration', path: 'pathLength', geometry: 'geometry',
+};
+
+/** --corrections: JSON text, or the name of a file holding it. */
+function correctionsFrom(value: string, io: CliIo): AnalysisCorrections {
+  const text = value.trim().startsWith('{') ? value : new TextDecoder().decode(readInputFile(value, io.cwd));
+  return checkCorrections(text, '--corrections');
+}
+
+/** Every change in the assignment, one line each; says so when there is none. */
+function changeLines(changes: readonly AssignmentChange[]): string {
+  if (changes.length === 0) return '  assignment unchanged\n';
+  const names = { spinState: 'spin state', groundTerm: 'ground term', cMode: 'C' } as const;
+  return changes
+    .map((c) => {
+      const was = c.before ?? 'not assigned';
+      const now = c.after ?? 'not assigned';
+      return c.what === 'band' ? `  band ${c.observed!.toFixed(0)} cm-1: ${was} → ${now}\n` : `  ${names[c.what]}: ${was} → ${now}\n`;
+    })
+    .join('');
 }
 
 function warningLines(record: AnalysisRecord): string {
