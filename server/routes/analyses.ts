@@ -68,6 +68,7 @@ export const analysisRecordFields = analyzeFields.extend({ ...detailFields, corr
 export const listQuery = z.strictObject({
   query: z.string().max(200).optional().meta({ description: 'Words that must all occur in sample, formula, ion, ligands, solvent or note.' }),
   ion: z.string().max(40).optional().meta({ description: 'Only this metal ion, e.g. "Cr3+".' }),
+  sha256: z.string().max(64).optional().meta({ description: 'Only records whose original file has this SHA-256 (hex).' }),
   limit: z.number().int().min(1).max(1000).optional().meta({ description: 'Page size, default 50.' }),
   offset: z.number().int().min(0).optional().meta({ description: 'Records to skip, default 0.' }),
 });
@@ -113,8 +114,8 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
   });
 
   router.get('/', async (req, res) => {
-    const { query, ion, limit, offset } = parseTextFields(listQuery, req.query);
-    res.json(await library.list({ ...(query !== undefined && { query }), ...(ion !== undefined && { ion }), ...(limit !== undefined && { limit }), ...(offset !== undefined && { offset }) }));
+    const { query, ion, sha256, limit, offset } = parseTextFields(listQuery, req.query);
+    res.json(await library.list({ ...(query !== undefined && { query }), ...(ion !== undefined && { ion }), ...(sha256 !== undefined && { sha256 }), ...(limit !== undefined && { limit }), ...(offset !== undefined && { offset }) }));
   });
 
   router.get('/:id', async (req, res) => {

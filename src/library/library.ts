@@ -35,7 +35,7 @@ export interface Library {
   /** One page of records, newest first, filtered by `query` words and `ion`. */
   list(options?: ListOptions): Promise<ListPage>;
   /** Every record matching the filter (no paging), newest first: for export and series. */
-  listAll(filter?: Pick<ListOptions, 'query' | 'ion'>): Promise<AnalysisSummary[]>;
+  listAll(filter?: Pick<ListOptions, 'query' | 'ion' | 'sha256'>): Promise<AnalysisSummary[]>;
   get(id: number): Promise<AnalysisRecord>;
   /** The original file, byte for byte as it was added. */
   getOriginal(id: number): Promise<OriginalFile>;
@@ -107,7 +107,7 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
     };
   };
 
-  const filterSql = (filter: Pick<ListOptions, 'query' | 'ion'>) => {
+  const filterSql = (filter: Pick<ListOptions, 'query' | 'ion' | 'sha256'>) => {
     const clauses: string[] = [];
     const params: unknown[] = [];
     for (const word of words(filter.query)) {
@@ -117,6 +117,11 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
     if (filter.ion !== undefined && filter.ion.trim() !== '') {
       clauses.push('a.ion = ?');
       params.push(canonicalIon(filter.ion));
+    }
+    if (filter.sha256 !== undefined) {
+      if (!/^[0-9a-f]{64}$/i.test(filter.sha256)) throw invalidArgument('sha256', 'sha256: expected 64 hexadecimal digits');
+      clauses.push('a.original_sha256 = ?');
+      params.push(filter.sha256.toLowerCase());
     }
     return { where: clauses.length ? `WHERE ${clauses.join(' AND ')}` : '', params };
   };
@@ -170,7 +175,7 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
       });
     },
 
-    listAll: async (filter: Pick<ListOptions, 'query' | 'ion'> = {}) => {
+    listAll: async (filter: Pick<ListOptions, 'query' | 'ion' | 'sha256'> = {}) => {
       const { where, params } = filterSql(filter);
       return engine.read(async (tx) => (await tx.all<SummaryRow>(`${SUMMARY_SELECT} ${where} ORDER BY a.id DESC`, params)).map(summaryFromRow));
     },

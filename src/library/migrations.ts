@@ -86,6 +86,10 @@ export const MIGRATIONS: ReadonlyArray<(db: Database) => void> = [
         BEGIN SELECT RAISE(ABORT, 'stored originals are never modified'); END;
     `);
   },
+  // 3: originals found by their SHA-256 (watch resumes without duplicates; a folder of 100 000 files).
+  (db) => {
+    db.exec('CREATE INDEX analyses_by_sha256 ON analyses(original_sha256);');
+  },
 ];
 
 /** The schema version this fieldgap writes. */

@@ -80,6 +80,8 @@ export const POSTGRES_MIGRATIONS: readonly string[] = [
   CREATE TRIGGER original_facts_are_immutable BEFORE UPDATE OF original_name, original_sha256, original_size ON analyses
     FOR EACH ROW EXECUTE FUNCTION fieldgap_originals_are_immutable();
   `,
+  // 3: originals found by their SHA-256.
+  `CREATE INDEX analyses_by_sha256 ON analyses(original_sha256);`,
 ];
 
 if (POSTGRES_MIGRATIONS.length !== SCHEMA_VERSION) {

@@ -275,7 +275,7 @@ function detailsFrom(values: DetailValues, file: string): Omit<NewAnalysis, 'fil
 }
 
 /** What --formula tells when --ion/--d, --ligands or --geometry were not given. */
-function fillFromFormula(formula: string | undefined, options: AnalyzeOptions, details: { ion?: string; ligands?: string[] }, io: CliIo): void {
+export function fillFromFormula(formula: string | undefined, options: AnalyzeOptions, details: { ion?: string; ligands?: string[] }, io: CliIo): void {
   if (formula === undefined) return;
   const needsIon = options.ion === undefined && options.d === undefined;
   let parsed;
@@ -312,7 +312,7 @@ export function plusMinus(value: number | null, sd: number | null, minDecimals =
   return `${value.toFixed(decimals)} ± ${sd.toFixed(decimals)}`;
 }
 
-function fitLine(s: FitSummary): string {
+export function fitLine(s: FitSummary): string {
   if (s.tenDq === null) return `no ligand-field fit${s.status ? ` (${s.status})` : ''}`;
   const parts = [`10Dq = ${plusMinus(s.tenDq, s.tenDqSd)} cm-1`];
   if (s.b !== null) parts.push(`B = ${plusMinus(s.b, s.bSd)} cm-1`);
