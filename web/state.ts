@@ -114,6 +114,31 @@ export function editableBandsFromResult(bands: readonly Band[]): EditableBand[] 
   }));
 }
 
+/**
+ * The editable band list of a stored record saved with corrected bands: a
+ * corrected band at a found band's position is that band (with its stored
+ * kind and shoulder flag), any other is one the user added, and a found band
+ * left out of the corrections is shown as removed. So a reopened record
+ * shows the bands its stored fit was made from.
+ */
+export function editableBandsFromCorrections(found: readonly Band[], corrected: readonly FitRequestBand[]): EditableBand[] {
+  const bands = editableBandsFromResult(found).map((band) => ({ ...band, included: false }));
+  for (const c of corrected) {
+    const flags = c.flags ?? [];
+    const kind: BandKind = flags.includes('charge-transfer') ? 'charge-transfer' : flags.includes('spin-forbidden') ? 'spin-forbidden' : 'd-d';
+    const same = bands.find((band) => band.origin === 'found' && !band.included && Math.abs(band.position - c.position) < 1e-6);
+    if (same) {
+      Object.assign(same, { included: true, kind, shoulder: flags.includes('shoulder'), uncertainty: c.uncertainty ?? same.uncertainty });
+    } else {
+      bands.push({
+        position: c.position, uncertainty: c.uncertainty ?? null, epsilon: c.epsilon ?? null, width: c.width ?? null,
+        kind, shoulder: flags.includes('shoulder'), included: true, origin: 'added', sourceIndex: null,
+      });
+    }
+  }
+  return bands;
+}
+
 /** Flags the fit endpoint reads for one band. */
 export function bandFlags(band: EditableBand): BandFlag[] {
   const flags: BandFlag[] = [];

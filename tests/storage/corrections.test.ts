@@ -11,7 +11,7 @@ import type { CliIo } from '../../src/cli/command.js';
 import { runCli } from '../../src/cli/main.js';
 import type { FitResult } from '../../src/fit/types.js';
 import type { AnalysisRecord } from '../../src/library/types.js';
-import { defaultDetails, editableBandsFromResult, fitRequestFor, shownFit, correctionsFor, type AnalysisEntry } from '../../web/state.js';
+import { correctionsFor, defaultDetails, editableBandsFromCorrections, editableBandsFromResult, fitRequestFor, shownFit, type AnalysisEntry } from '../../web/state.js';
 import { captureLogger } from '../server/helpers.js';
 
 /**
@@ -84,6 +84,11 @@ describe('corrections stored with the record equal what the page shows', () => {
     expect(saved.result.bands).toEqual(analysed.bands);
     // what was stored is what is read back
     expect((await request(app).get(`/api/v1/analyses/${saved.id}`).expect(200)).body.result.fit).toEqual(saved.result.fit);
+    // and the page, reopening the record, shows the bands the stored fit was made from
+    const reopened = pageEntry(saved.result);
+    reopened.bands = editableBandsFromCorrections(saved.result.bands, checkCorrections(corrections).bands as never);
+    expect(reopened.bands.map((b) => b.included)).toEqual(entry.bands.map((b) => b.included));
+    expect(fitRequestFor(reopened).bands).toEqual(fitRequestFor(entry).bands);
   });
 
   it('the chosen alternative assignment: the stored fit is the page\'s shownFit', async () => {

@@ -8,7 +8,7 @@ import * as api from '../api.js';
 import { download, h } from '../dom.js';
 import { UNIT, formatNumber, formatWithUncertainty, spinStateText } from '../format.js';
 import type { AnalysisEntry } from '../state.js';
-import { correctionsFor, defaultDetails, editableBandsFromResult, nextKey } from '../state.js';
+import { correctionsFor, defaultDetails, editableBandsFromCorrections, editableBandsFromResult, nextKey, type FitRequestBand } from '../state.js';
 import type { Geometry, LibraryRecord, LibraryRow, XUnit } from '../types.js';
 
 export interface LibraryContext {
@@ -87,9 +87,15 @@ export function entryFromRecord(record: LibraryRecord): AnalysisEntry {
   };
   return {
     key: nextKey(), fileName: record.original.fileName, file: null, details, status: 'done', result: record.result, error: null,
-    fit: record.result.fit, originalFit: record.result.fit, bands: editableBandsFromResult(record.result.bands),
+    fit: record.result.fit, originalFit: record.result.fit, bands: storedBands(record),
     cOverB: details.cOverB, freeC: details.freeC, shownAlternative: null, libraryId: record.id,
   };
+}
+
+/** The bands the stored fit was made from: the corrected list when the record was saved with one. */
+function storedBands(record: LibraryRecord): AnalysisEntry['bands'] {
+  const corrections = record.options['corrections'] as { bands?: FitRequestBand[] } | undefined;
+  return Array.isArray(corrections?.bands) ? editableBandsFromCorrections(record.result.bands, corrections.bands) : editableBandsFromResult(record.result.bands);
 }
 
 /** CSV of library rows: one per record, cm-1, sd = one standard deviation. */
