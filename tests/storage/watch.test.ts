@@ -5,7 +5,11 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { createServer } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { createApp } from '../../server/app.js';
 import { openLibrary } from '../../src/library/library.js';
+import { captureLogger } from '../server/helpers.js';
 
 /**
  * `fieldgap watch` on an instrument folder: 50 spectra dropped in (some
@@ -121,6 +125,36 @@ describe('fieldgap watch', () => {
       expect(all[0]).toMatchObject({ formula: '[Cr(H2O)6]3+', ligands: ['H2O'], ion: 'Cr3+' });
     } finally {
       await library.close();
+    }
+  });
+
+  it('--into stores in a service, which analyses the files; --once takes the files there now', { timeout: 300_000 }, async () => {
+    const app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, dataDir });
+    const server = createServer(app);
+    await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+    try {
+      for (let i = 0; i < 3; i++) writeFileSync(join(folder, `run-${i}.csv`), spectrumFile(i));
+      writeFileSync(join(folder, 'notes.csv'), 'not a spectrum\n');
+      const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+      const run = async () => {
+        const child = spawn(process.execPath, ['--import', 'tsx', ENTRY, 'watch', folder, '--ion', 'Cr3+', '--into', url, '--once'], { cwd: ROOT });
+        let out = '';
+        child.stdout!.setEncoding('utf8').on('data', (c: string) => (out += c));
+        const code = await new Promise((resolve) => child.once('close', resolve));
+        return { code, lines: out.trim().split('\n') };
+      };
+      const first = await run();
+      expect(first.code).toBe(0);
+      expect(saved(first.lines)).toHaveLength(3);
+      expect(first.lines.filter((l) => l.startsWith('notes.csv: not stored: '))).toHaveLength(1);
+      const second = await run();
+      expect(saved(second.lines)).toHaveLength(0);
+      expect(second.lines).toContain('3 files already in the library');
+      const page = (await (await fetch(`${url}/api/v1/analyses`)).json()) as { total: number };
+      expect(page.total).toBe(3);
+    } finally {
+      await new Promise((resolve) => server.close(resolve));
+      await app.close();
     }
   });
 
