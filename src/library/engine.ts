@@ -12,6 +12,9 @@
 
 export type Dialect = 'sqlite' | 'postgres';
 
+/** The path every storage error names: the library, never a file path or host of the machine it runs on. */
+export const LIBRARY_PATH = 'library';
+
 export interface SqlTx {
   all<R>(sql: string, params?: readonly unknown[]): Promise<R[]>;
   get<R>(sql: string, params?: readonly unknown[]): Promise<R | undefined>;

@@ -1,9 +1,8 @@
 import pg from 'pg';
 import { FieldgapError } from '../errors.js';
-import type { SqlEngine, SqlTx } from './engine.js';
 import { migratePostgres } from './postgres-migrations.js';
 import { translatePostgresError } from './postgres-errors.js';
-import { LIBRARY_PATH } from './sqlite-errors.js';
+import { LIBRARY_PATH, type SqlEngine, type SqlTx } from './engine.js';
 
 export interface PostgresEngineOptions {
   /** Connections this process keeps at most; default 10. */

@@ -1,5 +1,5 @@
 import { FieldgapError } from '../errors.js';
-import { LIBRARY_PATH } from './sqlite-errors.js';
+import { LIBRARY_PATH } from './engine.js';
 
 /** Network failures of the client library (node's errno codes): the server is not reachable. */
 const UNREACHABLE = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EHOSTUNREACH', 'ENETUNREACH', 'ENOTFOUND', 'EAI_AGAIN', 'EPIPE']);

@@ -1,7 +1,7 @@
 import type { PoolClient } from 'pg';
 import { FieldgapError } from '../errors.js';
 import { SCHEMA_VERSION } from './migrations.js';
-import { LIBRARY_PATH } from './sqlite-errors.js';
+import { LIBRARY_PATH } from './engine.js';
 
 /**
  * The library's schema in PostgreSQL: the same numbered steps as the SQLite

@@ -2,9 +2,9 @@ import Database from 'better-sqlite3';
 import { accessSync, constants, existsSync, mkdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { FieldgapError } from '../errors.js';
-import type { SqlEngine, SqlTx } from './engine.js';
+import { LIBRARY_PATH, type SqlEngine, type SqlTx } from './engine.js';
 import { migrate, SCHEMA_VERSION, schemaVersion } from './migrations.js';
-import { LIBRARY_PATH, translateSqliteError } from './sqlite-errors.js';
+import { translateSqliteError } from './sqlite-errors.js';
 
 /** The file the library keeps inside its data folder (with -wal and -shm beside it). */
 export const LIBRARY_FILE = 'library.sqlite';

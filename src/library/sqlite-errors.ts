@@ -1,7 +1,5 @@
 import { FieldgapError } from '../errors.js';
-
-/** The path every storage error names: the library, never a file path of the machine it runs on. */
-export const LIBRARY_PATH = 'library';
+import { LIBRARY_PATH } from './engine.js';
 
 /**
  * Turns SQLite's failures into FieldgapError, so a user sees "the disk
