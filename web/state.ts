@@ -114,6 +114,31 @@ export function editableBandsFromResult(bands: readonly Band[]): EditableBand[] 
   }));
 }
 
+/**
+ * The editable band list of a stored record saved with corrected bands: a
+ * corrected band at a found band's position is that band (with its stored
+ * kind and shoulder flag), any other is one the user added, and a found band
+ * left out of the corrections is shown as removed. So a reopened record
+ * shows the bands its stored fit was made from.
+ */
+export function editableBandsFromCorrections(found: readonly Band[], corrected: readonly FitRequestBand[]): EditableBand[] {
+  const bands = editableBandsFromResult(found).map((band) => ({ ...band, included: false }));
+  for (const c of corrected) {
+    const flags = c.flags ?? [];
+    const kind: BandKind = flags.includes('charge-transfer') ? 'charge-transfer' : flags.includes('spin-forbidden') ? 'spin-forbidden' : 'd-d';
+    const same = bands.find((band) => band.origin === 'found' && !band.included && Math.abs(band.position - c.position) < 1e-6);
+    if (same) {
+      Object.assign(same, { included: true, kind, shoulder: flags.includes('shoulder'), uncertainty: c.uncertainty ?? same.uncertainty });
+    } else {
+      bands.push({
+        position: c.position, uncertainty: c.uncertainty ?? null, epsilon: c.epsilon ?? null, width: c.width ?? null,
+        kind, shoulder: flags.includes('shoulder'), included: true, origin: 'added', sourceIndex: null,
+      });
+    }
+  }
+  return bands;
+}
+
 /** Flags the fit endpoint reads for one band. */
 export function bandFlags(band: EditableBand): BandFlag[] {
   const flags: BandFlag[] = [];
@@ -161,6 +186,19 @@ export function fitRequestFor(entry: AnalysisEntry): FitRequest {
   else if (entry.details.d !== null) request.d = entry.details.d;
   if (entry.cOverB !== null) request.cOverB = entry.cOverB;
   return request;
+}
+
+/**
+ * The corrections to store with a saved analysis (POST /analyses
+ * "corrections"): the corrected band list when the bands differ from those
+ * found, and the alternative shown. The service applies them with the same
+ * fit (src/analysis-corrections.ts), so the record holds the fit shown here.
+ */
+export function correctionsFor(entry: AnalysisEntry): { bands?: FitRequestBand[]; alternative?: number } | null {
+  const out: { bands?: FitRequestBand[]; alternative?: number } = {};
+  if (hasBandCorrections(entry)) out.bands = fitRequestFor(entry).bands;
+  if (entry.shownAlternative !== null) out.alternative = entry.shownAlternative;
+  return out.bands === undefined && out.alternative === undefined ? null : out;
 }
 
 /** True when the bands or the fit differ from what the analysis found. */

@@ -39,13 +39,13 @@ export const predictBody = z.strictObject({
 });
 
 /** predictComplex's options for a request: the geometry, and with `library` the library's fitted factors. */
-function predictOptions(library: Library, formula: string, geometry: PredictOptions['geometry'] | undefined, useLibrary: boolean): { options: PredictOptions; note: string | undefined } {
+async function predictOptions(library: Library, formula: string, geometry: PredictOptions['geometry'] | undefined, useLibrary: boolean): Promise<{ options: PredictOptions; note: string | undefined }> {
   const options: PredictOptions = geometry === undefined ? {} : { geometry };
   if (!useLibrary) return { options, note: undefined };
   const ion = parseFormula(formula).metal.label;
   let fit = null;
   try {
-    fit = librarySeries(library, ion).factors;
+    fit = (await librarySeries(library, ion)).factors;
   } catch (error) {
     if (!isFieldgapError(error) || error.code !== 'not-found') throw error;
   }
@@ -57,15 +57,15 @@ function predictOptions(library: Library, formula: string, geometry: PredictOpti
 export function createSeriesRouter({ library }: SeriesRouterDeps): Router {
   const router = Router();
 
-  router.get('/series', (req, res) => {
+  router.get('/series', async (req, res) => {
     const { ion, criterion } = parseTextFields(seriesQuery, req.query);
-    res.json(librarySeries(library, ion, criterion === undefined ? {} : { criterion }));
+    res.json(await librarySeries(library, ion, criterion === undefined ? {} : { criterion }));
   });
 
   // One ligand-field calculation at one Dq: milliseconds, so it runs here rather than in the pool.
-  router.post('/predict', (req, res) => {
+  router.post('/predict', async (req, res) => {
     const { formula, geometry, library: useLibrary } = parseJsonBody(predictBody, req.body);
-    const { options, note } = predictOptions(library, formula, geometry, useLibrary ?? false);
+    const { options, note } = await predictOptions(library, formula, geometry, useLibrary ?? false);
     const prediction = predictComplex(formula, options);
     if (note) prediction.warnings.push(note);
     res.json(prediction);

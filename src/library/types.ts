@@ -137,6 +137,8 @@ export interface ListOptions {
   query?: string;
   /** Only this ion, in any spelling src/chemistry reads: "Cr3+", "Cr(III)", "cr 3+". */
   ion?: string;
+  /** Only records whose original has this SHA-256 (lower-case hex). */
+  sha256?: string;
   /** Page size, 1 to 1000; default 50. */
   limit?: number;
   /** Rows to skip, default 0. */

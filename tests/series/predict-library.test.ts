@@ -17,12 +17,12 @@ import { captureLogger } from '../server/helpers.js';
  * checked only for being carried through (f = 10Dq / g), not as chemistry.
  */
 let dir: string;
-beforeEach(() => {
+beforeEach(async () => {
   dir = mkdtempSync(join(tmpdir(), 'fieldgap-predict-library-'));
-  const library = openLibrary(join(dir, 'lib'));
-  library.add(handBuiltRecord({ sample: 'cr-en', formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 22_620));
-  library.add(handBuiltRecord({ sample: 'cr-aqua', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_400));
-  library.close();
+  const library = await openLibrary(join(dir, 'lib'));
+  await library.add(handBuiltRecord({ sample: 'cr-en', formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 22_620));
+  await library.add(handBuiltRecord({ sample: 'cr-aqua', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_400));
+  await library.close();
 });
 afterEach(() => rmSync(dir, { recursive: true, force: true }));
 

@@ -8,7 +8,7 @@ import * as api from '../api.js';
 import { download, h } from '../dom.js';
 import { UNIT, formatNumber, formatWithUncertainty, spinStateText } from '../format.js';
 import type { AnalysisEntry } from '../state.js';
-import { defaultDetails, editableBandsFromResult, hasBandCorrections, nextKey } from '../state.js';
+import { correctionsFor, defaultDetails, editableBandsFromCorrections, editableBandsFromResult, nextKey, type FitRequestBand } from '../state.js';
 import type { Geometry, LibraryRecord, LibraryRow, XUnit } from '../types.js';
 
 export interface LibraryContext {
@@ -34,8 +34,11 @@ export function saveControls(entry: AnalysisEntry, ctx: LibraryContext): HTMLEle
     button.disabled = true;
     button.textContent = 'Saving…';
     const details = { ...entry.details, cOverB: entry.cOverB, freeC: entry.freeC };
+    const fields = api.analyzeQuery(details);
+    const corrections = correctionsFor(entry);
+    if (corrections !== null) fields.set('corrections', JSON.stringify(corrections));
     api
-      .saveAnalysis(file, api.analyzeQuery(details), {
+      .saveAnalysis(file, fields, {
         sample: entry.details.sample || entry.fileName.replace(/\.[^.]*$/, ''),
         ligands: entry.details.ligand,
         formula: entry.details.formula,
@@ -43,6 +46,9 @@ export function saveControls(entry: AnalysisEntry, ctx: LibraryContext): HTMLEle
       })
       .then((record) => {
         entry.libraryId = record.id;
+        // Show what was stored (the corrected fit, the chosen assignment applied), not what was on screen before.
+        entry.fit = record.result.fit;
+        entry.shownAlternative = null;
         ctx.notify(`Saved ${entry.fileName} as record ${record.id}.`, 'info');
         ctx.changed();
       })
@@ -53,8 +59,8 @@ export function saveControls(entry: AnalysisEntry, ctx: LibraryContext): HTMLEle
       });
   });
   const out: HTMLElement[] = [button];
-  if (hasBandCorrections(entry)) {
-    out.push(h('span', { class: 'muted small', id: 'save-note' }, 'The library stores the analysis of the file with this C/B; band corrections made here are not stored.'));
+  if (correctionsFor(entry) !== null) {
+    out.push(h('span', { class: 'muted small', id: 'save-note' }, 'The library stores the file, this C/B and the corrections made here (bands, chosen assignment).'));
   }
   return out;
 }
@@ -81,9 +87,15 @@ export function entryFromRecord(record: LibraryRecord): AnalysisEntry {
   };
   return {
     key: nextKey(), fileName: record.original.fileName, file: null, details, status: 'done', result: record.result, error: null,
-    fit: record.result.fit, originalFit: record.result.fit, bands: editableBandsFromResult(record.result.bands),
+    fit: record.result.fit, originalFit: record.result.fit, bands: storedBands(record),
     cOverB: details.cOverB, freeC: details.freeC, shownAlternative: null, libraryId: record.id,
   };
+}
+
+/** The bands the stored fit was made from: the corrected list when the record was saved with one. */
+function storedBands(record: LibraryRecord): AnalysisEntry['bands'] {
+  const corrections = record.options['corrections'] as { bands?: FitRequestBand[] } | undefined;
+  return Array.isArray(corrections?.bands) ? editableBandsFromCorrections(record.result.bands, corrections.bands) : editableBandsFromResult(record.result.bands);
 }
 
 /** CSV of library rows: one per record, cm-1, sd = one standard deviation. */

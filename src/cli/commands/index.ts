@@ -7,6 +7,7 @@ import { libraryCommand } from './library.js';
 import { seriesCommand } from './series.js';
 import { serveCommand } from './serve.js';
 import { predictCommand } from './predict.js';
+import { watchCommand } from './watch.js';
 
 /**
  * Every CLI command, in the order `fieldgap --help` lists them. A new command
@@ -21,4 +22,5 @@ export const commands: Command[] = [
   seriesCommand,
   serveCommand,
   predictCommand,
+  watchCommand,
 ];

@@ -144,9 +144,9 @@ export const predictCommand: Command = {
 async function addLibraryFactors(formula: string, options: PredictOptions, data: string | undefined, io: CliIo): Promise<void> {
   const ion = parseFormula(formula).metal.label;
   const { librarySeries } = await import('../../library/series.js');
-  const fit = await withLibrary(data, io, (library) => {
+  const fit = await withLibrary(data, io, async (library) => {
     try {
-      return librarySeries(library, ion).factors;
+      return (await librarySeries(library, ion)).factors;
     } catch (error) {
       if (isFieldgapError(error) && error.code === 'not-found') return null;
       throw error;
