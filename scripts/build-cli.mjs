@@ -7,42 +7,24 @@
  * start-up time. Code reached only by a dynamic import (the library, the
  * service) stays in a chunk of its own, loaded when that command runs.
  *
- * Kept outside the bundle, loaded from node_modules or dist/ as before:
+ * Kept outside the bundle, loaded from node_modules as before:
  * - better-sqlite3: a native addon that finds its .node file from its own folder;
- * - piscina: starts its threads from a file of its own package;
- * - server/main.js: `fieldgap serve` loads the compiled service (dist/server,
- *   built by tsc), whose worker and page are found from its own folder.
+ * - piscina: starts its threads from a file of its own package.
+ * The service is no part of it: bin/fieldgap hands `serve` the compiled
+ * dist/server/main.js (built by tsc), whose worker and page are found from
+ * its own folder.
  *
  * Usage: node scripts/build-cli.mjs [--outdir DIR]
  */
 import { build } from 'esbuild';
 import { rm } from 'node:fs/promises';
-import { dirname, join, relative, resolve } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 
 /** Packages the bundle leaves to node_modules (see above for why). */
 export const EXTERNAL_PACKAGES = ['better-sqlite3', 'piscina'];
-
-/**
- * Rewrites the CLI's dynamic import of the service (src/cli/commands/serve.ts)
- * to the compiled dist/server/main.js, relative to the bundle's folder.
- * @param {string} outdir
- */
-function serviceExternal(outdir) {
-  const serverMain = join(root, 'dist', 'server', 'main.js');
-  return {
-    name: 'service-external',
-    /** @param {import('esbuild').PluginBuild} b */
-    setup(b) {
-      b.onResolve({ filter: /\/server\/main\.js$/ }, () => {
-        const path = relative(outdir, serverMain).split('\\').join('/');
-        return { path: path.startsWith('.') ? path : `./${path}`, external: true };
-      });
-    },
-  };
-}
 
 /** @param {{ outdir?: string }} [options] */
 export async function buildCli(options = {}) {
@@ -59,7 +41,6 @@ export async function buildCli(options = {}) {
     chunkNames: 'chunk-[hash]',
     sourcemap: 'linked',
     external: EXTERNAL_PACKAGES,
-    plugins: [serviceExternal(outdir)],
     // Bundled CommonJS packages (papaparse, …) call require() for Node's own modules.
     banner: { js: "import { createRequire as __fieldgapRequire } from 'node:module'; const require = __fieldgapRequire(import.meta.url);" },
     legalComments: 'linked',

@@ -25,8 +25,8 @@ import { createAnalysesRouter } from './routes/analyses.js';
 import { analyzeInPool, createAnalyzeRouter } from './routes/analyze.js';
 import { createComputeRouter } from './routes/compute.js';
 import { createSeriesRouter } from './routes/series.js';
-import { resolveDataDir } from './storage/data-dir.js';
-import { openLibrary } from './storage/library.js';
+import { resolveDataDir } from '../src/library/data-dir.js';
+import { openLibrary } from '../src/library/library.js';
 
 export const MIB = 1024 * 1024;
 

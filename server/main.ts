@@ -10,10 +10,10 @@ import { createServer, type Server } from 'node:http';
 import { pathToFileURL } from 'node:url';
 import type { Logger } from 'pino';
 import { FieldgapError, isFieldgapError } from '../src/errors.js';
-import { numberOption, parseCommandArgs } from '../src/cli/options.js';
+import { numberOption, parseCommandArgs } from '../src/arguments.js';
 import { createApp, type AppOptions, type FieldgapApp } from './app.js';
 import { createLogger } from './logging.js';
-import { resolveDataDir } from './storage/data-dir.js';
+import { resolveDataDir } from '../src/library/data-dir.js';
 
 export const DEFAULT_PORT = 5177;
 export const DEFAULT_HOST = '127.0.0.1';

@@ -2,7 +2,7 @@
  * Folders the service reads, resolved from this file so they are right both
  * from source (server/*.ts under tsx or vitest) and compiled (dist/server/*.js).
  */
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -18,18 +18,5 @@ export function defaultStaticDir(): string {
   return candidates.find((dir) => existsSync(dir)) ?? candidates[0]!;
 }
 
-/** The package version, read once from package.json (one or two folders up). */
-export function packageVersion(): string {
-  for (const dir of [resolve(here, '..'), resolve(here, '..', '..')]) {
-    const file = resolve(dir, 'package.json');
-    if (!existsSync(file)) continue;
-    try {
-      // A small synchronous read at start-up; never per request.
-      const json = JSON.parse(readFileSync(file, 'utf8')) as { name?: string; version?: string };
-      if (json.name === 'fieldgap' && typeof json.version === 'string') return json.version;
-    } catch {
-      // fall through to the next candidate
-    }
-  }
-  return '0.0.0';
-}
+/** The package version: one source, in src/. */
+export { packageVersion } from '../src/version.js';

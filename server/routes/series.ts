@@ -3,7 +3,7 @@
  *   GET  /series?ion=Cr3%2B[&criterion=two-sigma]
  *        the library's analyses of that ion ranked by 10Dq and by 1 − β
  *        (weakest first, neighbours within their uncertainties flagged) and
- *        Jørgensen's f and h fitted per ligand (server/storage/series.ts)
+ *        Jørgensen's f and h fitted per ligand (src/library/series.ts)
  *   POST /predict { "formula", "geometry"? }
  *        10Dq, β, B, C and spin state estimated from the formula alone
  *        (src/series predictComplex); every number is marked as an estimate
@@ -12,8 +12,8 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { predictComplex } from '../../src/series/index.js';
-import type { Library } from '../storage/library.js';
-import { librarySeries } from '../storage/series.js';
+import type { Library } from '../../src/library/library.js';
+import { librarySeries } from '../../src/library/series.js';
 import { parseJsonBody, parseTextFields } from '../validate.js';
 
 export interface SeriesRouterDeps {

@@ -10,7 +10,16 @@ export interface CliIo {
   isTty: boolean;
   cwd: string;
   env: Record<string, string | undefined>;
+  /**
+   * Runs the REST service (`fieldgap serve`) until it is stopped. src/cli and
+   * server/ never import each other: the program entry (bin/fieldgap), which
+   * alone knows both, supplies this; without it `serve` says it is unavailable.
+   */
+  runService?: ServiceRunner;
 }
+
+/** The service's own entry, given the serve arguments; returns the exit code. */
+export type ServiceRunner = (argv: string[], io: CliIo) => Promise<number>;
 
 export interface Command {
   name: string;

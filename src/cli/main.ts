@@ -1,5 +1,5 @@
 import { isFieldgapError } from '../errors.js';
-import type { CliIo } from './command.js';
+import type { CliIo, ServiceRunner } from './command.js';
 import { commands } from './commands/index.js';
 
 const VERSION = '0.1.0';
@@ -59,8 +59,8 @@ export async function runCli(argv: string[], io: CliIo): Promise<number> {
   }
 }
 
-/** The process entry point used by bin/fieldgap. */
-export async function main(): Promise<void> {
+/** The process entry point used by bin/fieldgap, which passes the service's runner for `serve`. */
+export async function main(runService?: ServiceRunner): Promise<void> {
   const io: CliIo = {
     stdout: (text) => process.stdout.write(text),
     stderr: (text) => process.stderr.write(text),
@@ -68,6 +68,7 @@ export async function main(): Promise<void> {
     isTty: Boolean(process.stdout.isTTY && process.stderr.isTTY),
     cwd: process.cwd(),
     env: process.env,
+    ...(runService ? { runService } : {}),
   };
   const code = await runCli(process.argv.slice(2), io);
   process.exitCode = code;

@@ -7,7 +7,7 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { FieldgapError } from '../../src/errors.js';
 import { createApp, type FieldgapApp } from '../../server/app.js';
 import { createInProcessPool, type ComputePool } from '../../server/pool.js';
-import { openLibrary, type Library } from '../../server/storage/library.js';
+import { openLibrary, type Library } from '../../src/library/library.js';
 import { handBuiltRecord } from '../storage/helpers/records.js';
 import { captureLogger } from './helpers.js';
 

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import request from 'supertest';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { createApp, type FieldgapApp } from '../../server/app.js';
-import { openLibrary, type Library } from '../../server/storage/library.js';
+import { openLibrary, type Library } from '../../src/library/library.js';
 import { handBuiltRecord } from '../storage/helpers/records.js';
 import { captureLogger } from './helpers.js';
 

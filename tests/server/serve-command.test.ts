@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { CliIo } from '../../src/cli/command.js';
 import { runCli } from '../../src/cli/main.js';
+import { runServe } from '../../server/main.js';
 
 function io(): CliIo & { out: string; err: string } {
   const state = {
@@ -9,6 +10,8 @@ function io(): CliIo & { out: string; err: string } {
     isTty: false,
     cwd: process.cwd(),
     env: {},
+    // What bin/fieldgap hands the CLI: the service's own entry.
+    runService: runServe,
     stdout: (text: string) => {
       state.out += text;
     },

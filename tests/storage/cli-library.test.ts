@@ -7,7 +7,7 @@ import type { CliIo } from '../../src/cli/command.js';
 import { analysisOptionsFrom } from '../../src/cli/analysis-options.js';
 import { libraryCommand, plusMinus } from '../../src/cli/commands/library.js';
 import { runCli } from '../../src/cli/main.js';
-import { openLibrary } from '../../server/storage/library.js';
+import { openLibrary } from '../../src/library/library.js';
 import { handBuiltRecord } from './helpers/records.js';
 
 let dir: string;

@@ -7,8 +7,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyzeSpectrum } from '../../src/analysis.js';
 import type { CliIo } from '../../src/cli/command.js';
 import { runCli } from '../../src/cli/main.js';
-import { openLibrary } from '../../server/storage/library.js';
-import type { AnalysisRecord } from '../../server/storage/types.js';
+import { openLibrary } from '../../src/library/library.js';
+import type { AnalysisRecord } from '../../src/library/types.js';
 
 /**
  * `library add`, `library refit` and `series FILES` with the real pipeline on

@@ -5,7 +5,7 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { CliIo } from '../../src/cli/command.js';
 import { ligandFromFileName } from '../../src/cli/commands/series.js';
 import { runCli } from '../../src/cli/main.js';
-import { openLibrary } from '../../server/storage/library.js';
+import { openLibrary } from '../../src/library/library.js';
 import { handBuiltRecord } from './helpers/records.js';
 
 let dir: string;

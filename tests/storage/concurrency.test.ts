@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { LIBRARY_FILE, openLibrary } from '../../server/storage/library.js';
+import { LIBRARY_FILE, openLibrary } from '../../src/library/library.js';
 
 const WRITER = fileURLToPath(new URL('./helpers/writer.ts', import.meta.url));
 const ROOT = fileURLToPath(new URL('../..', import.meta.url));

@@ -1,6 +1,6 @@
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { resolveDataDir } from '../../server/storage/data-dir.js';
+import { resolveDataDir } from '../../src/library/data-dir.js';
 
 describe('resolveDataDir', () => {
   const cwd = resolve('/home/chemist/lab');

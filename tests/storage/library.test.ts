@@ -4,7 +4,7 @@ import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { LIBRARY_FILE, openLibrary, sha256Hex, type Library } from '../../server/storage/library.js';
+import { LIBRARY_FILE, openLibrary, sha256Hex, type Library } from '../../src/library/library.js';
 import { handBuiltRecord } from './helpers/records.js';
 import { errorOf } from '../helpers/errors.js';
 

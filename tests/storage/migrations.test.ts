@@ -4,8 +4,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { FieldgapError } from '../../src/errors.js';
-import { LIBRARY_FILE, openLibrary } from '../../server/storage/library.js';
-import { migrate, SCHEMA_VERSION, schemaVersion } from '../../server/storage/migrations.js';
+import { LIBRARY_FILE, openLibrary } from '../../src/library/library.js';
+import { migrate, SCHEMA_VERSION, schemaVersion } from '../../src/library/migrations.js';
 
 let dir: string;
 beforeEach(() => {

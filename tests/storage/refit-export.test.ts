@@ -3,9 +3,9 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { CSV_COLUMNS, libraryCsv } from '../../server/storage/export.js';
-import { openLibrary, type Library } from '../../server/storage/library.js';
-import { refitAnalysis, type AnalyzeStored } from '../../server/storage/refit.js';
+import { CSV_COLUMNS, libraryCsv } from '../../src/library/export.js';
+import { openLibrary, type Library } from '../../src/library/library.js';
+import { refitAnalysis, type AnalyzeStored } from '../../src/library/refit.js';
 import { handBuiltRecord } from './helpers/records.js';
 
 let dir: string;

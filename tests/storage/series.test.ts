@@ -2,8 +2,8 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { openLibrary, type Library } from '../../server/storage/library.js';
-import { librarySeries, seriesAnalysisOf } from '../../server/storage/series.js';
+import { openLibrary, type Library } from '../../src/library/library.js';
+import { librarySeries, seriesAnalysisOf } from '../../src/library/series.js';
 import { handBuiltRecord } from './helpers/records.js';
 
 let dir: string;

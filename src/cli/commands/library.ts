@@ -7,12 +7,12 @@ import type { CliIo, Command } from '../command.js';
 import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analysis-options.js';
 import { readInputFile } from '../files.js';
 import { numberOption, parseCommandArgs } from '../options.js';
-import type { AnalysisRecord, AnalysisSummary, FitSummary, NewAnalysis } from '../../../server/storage/types.js';
-import type { Library } from '../../../server/storage/library.js';
+import type { AnalysisRecord, AnalysisSummary, FitSummary, NewAnalysis } from '../../library/types.js';
+import type { Library } from '../../library/library.js';
 
 /**
  * `fieldgap library`: the results library from the command line. Storage is
- * server/storage (SQLite); it is loaded only when this command runs.
+ * src/library (SQLite); it is loaded only when this command runs.
  *
  * Choices made here:
  * - refit keeps history: every refit is a new revision of the record, the
@@ -145,7 +145,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
     const { values } = parseCommandArgs(argv, { csv: { type: 'string' }, json: { type: 'string' }, query: { type: 'string' }, ion: { type: 'string' }, force: { type: 'boolean' }, ...DATA });
     if (values.csv !== undefined && values.json !== undefined) throw invalidArgument('--json', 'give --csv FILE or --json FILE, not both');
     const filter = { ...(values.query !== undefined && { query: values.query }), ...(values.ion !== undefined && { ion: values.ion }) };
-    const { libraryCsv } = await import('../../../server/storage/export.js');
+    const { libraryCsv } = await import('../../library/export.js');
     const text = await withLibrary(values.data, io, (library) => {
       const summaries = library.listAll(filter);
       if (values.json === undefined) return libraryCsv(summaries);
@@ -165,7 +165,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
     const { values, positionals } = parseCommandArgs(argv, { ...ANALYSIS_OPTIONS, json: { type: 'boolean' }, ...DATA }, true);
     const id = idFrom(positionals);
     const changes = analysisOptionsFrom(values);
-    const [{ analyzeSpectrum }, { refitAnalysis }] = await Promise.all([import('../../analysis.js'), import('../../../server/storage/refit.js')]);
+    const [{ analyzeSpectrum }, { refitAnalysis }] = await Promise.all([import('../../analysis.js'), import('../../library/refit.js')]);
     const record = await withLibraryAsync(values.data, io, (library) =>
       refitAnalysis(library, id, { ...changes }, async (content, options) => analyzeSpectrum(content, options as AnalyzeOptions)));
     if (values.json) {
@@ -192,8 +192,8 @@ const SUBCOMMANDS: Record<string, Handler> = {
 
 async function openFor(flag: string | undefined, io: CliIo): Promise<Library> {
   const [{ resolveDataDir }, { openLibrary }] = await Promise.all([
-    import('../../../server/storage/data-dir.js'),
-    import('../../../server/storage/library.js'),
+    import('../../library/data-dir.js'),
+    import('../../library/library.js'),
   ]);
   return openLibrary(resolveDataDir({ flag, env: io.env, cwd: io.cwd }));
 }

@@ -5,7 +5,7 @@ import type { Ranking } from '../../series/index.js';
 import type { Command, CliIo } from '../command.js';
 import { expandInputPaths, readInputFile } from '../files.js';
 import { choiceOption, parseCommandArgs } from '../options.js';
-import type { SeriesReport, SeriesSource } from '../../../server/storage/series.js';
+import type { SeriesReport, SeriesSource } from '../../library/series.js';
 import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analysis-options.js';
 import { plusMinus, table, withLibrary } from './library.js';
 
@@ -63,7 +63,7 @@ export const seriesCommand: Command = {
     if (values.ion === undefined) throw invalidArgument('--ion', '--ion is required: the metal ion of the series, e.g. --ion Cr3+');
     if (values.library && positionals.length > 0) throw invalidArgument('--library', 'give --library or FILES, not both');
     const criterion = choiceOption('criterion', values.criterion, ['one-sigma', 'two-sigma'], 'one-sigma');
-    const { buildSeries, librarySeries } = await import('../../../server/storage/series.js');
+    const { buildSeries, librarySeries } = await import('../../library/series.js');
     let report: SeriesReport;
     if (positionals.length === 0) {
       if (values.ligand) throw invalidArgument('--ligand', '--ligand names the ligand of each of FILES; with --library the records carry their own');
@@ -97,7 +97,7 @@ interface AnalysedFiles {
 
 async function analyseFiles(paths: string[], ligands: string[], options: ReturnType<typeof analysisOptionsFrom>, io: CliIo): Promise<AnalysedFiles> {
   const files = expandInputPaths(paths, io.cwd);
-  const [{ analyzeSpectrum, listSpectra }, { summarizeResult }] = await Promise.all([import('../../analysis.js'), import('../../../server/storage/summary.js')]);
+  const [{ analyzeSpectrum, listSpectra }, { summarizeResult }] = await Promise.all([import('../../analysis.js'), import('../../library/summary.js')]);
   // One spectrum per file, or per y column of a file that has several (unless --column picks one).
   const spectra = files.flatMap((file): SpectrumToAnalyse[] => {
     const content = readInputFile(file, io.cwd);

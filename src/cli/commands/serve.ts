@@ -1,9 +1,12 @@
+import { FieldgapError } from '../../errors.js';
 import type { Command } from '../command.js';
 
 /**
  * `fieldgap serve`: the REST service and the web page. The server code lives
- * in server/ and is loaded only when this command runs, so other commands do
- * not pay for Express and the worker pool.
+ * in server/, which the CLI does not import (layers point one way: src/cli and
+ * server/ both depend on src/ only); the program entry, bin/fieldgap, hands it
+ * over as `io.runService` and loads it only when this command runs, so other
+ * commands do not pay for Express and the worker pool.
  */
 export const serveCommand: Command = {
   name: 'serve',
@@ -22,7 +25,7 @@ OpenAPI description at /api/v1/openapi.json. Request logs go to stdout as
 JSON lines (FIELDGAP_LOG_LEVEL=warn for fewer).
 `,
   async run(argv, io) {
-    const { runServe } = await import('../../../server/main.js');
-    return runServe(argv, io);
+    if (!io.runService) throw new FieldgapError('internal', 'the service is not part of this entry point; run bin/fieldgap serve');
+    return io.runService(argv, io);
   },
 };

@@ -1,4 +1,4 @@
-import type { NewAnalysis } from '../../../server/storage/types.js';
+import type { NewAnalysis } from '../../../src/library/types.js';
 
 /**
  * Hand-built records for the storage tests. The "result" is a stand-in with

@@ -8,7 +8,7 @@
  * parent can start several writers at the same moment.
  */
 import { writeSync } from 'node:fs';
-import { openLibrary } from '../../../server/storage/library.js';
+import { openLibrary } from '../../../src/library/library.js';
 import { handBuiltRecord } from './records.js';
 
 const [dataDir, tag, countText] = process.argv.slice(2);

@@ -1,5 +1,5 @@
-import { parseIon } from '../../src/chemistry/ions.js';
-import { invalidArgument } from '../../src/errors.js';
+import { parseIon } from '../chemistry/ions.js';
+import { invalidArgument } from '../errors.js';
 import type { AnalysisDetails } from './types.js';
 
 /** Longest text field kept (sample, formula, ion, solvent, each ligand). */

@@ -2,7 +2,7 @@ import Database from 'better-sqlite3';
 import { createHash } from 'node:crypto';
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { FieldgapError, invalidArgument } from '../../src/errors.js';
+import { FieldgapError, invalidArgument } from '../errors.js';
 import { migrate } from './migrations.js';
 import { fitParams, likeWord, revisionFromRow, SUMMARY_SELECT, summaryFromRow, type RevisionRow, type SummaryRow } from './rows.js';
 import { translateSqliteError } from './sqlite-errors.js';
@@ -11,7 +11,7 @@ import type {
   AnalysisPatch, AnalysisRecord, AnalysisSummary, ListOptions, ListPage, NewAnalysis, OriginalFile, StoredOptions, StoredResult,
 } from './types.js';
 import { baseFileName, canonicalIon, canonicalIonOrNull, checkDetails } from './validate.js';
-import { packageVersion as toolVersion } from '../paths.js';
+import { packageVersion as toolVersion } from '../version.js';
 
 /** The file the library keeps inside its data folder (with -wal and -shm beside it). */
 export const LIBRARY_FILE = 'library.sqlite';

@@ -1,5 +1,5 @@
 import type { Database } from 'better-sqlite3';
-import { FieldgapError } from '../../src/errors.js';
+import { FieldgapError } from '../errors.js';
 
 /**
  * The library's schema, as ordered migrations. `PRAGMA user_version` holds

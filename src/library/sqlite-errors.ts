@@ -1,4 +1,4 @@
-import { FieldgapError } from '../../src/errors.js';
+import { FieldgapError } from '../errors.js';
 
 /**
  * Turns SQLite's failures into FieldgapError naming the library file, so a

@@ -1,5 +1,5 @@
 import { isAbsolute, resolve } from 'node:path';
-import { invalidArgument } from '../../src/errors.js';
+import { invalidArgument } from '../errors.js';
 
 /** The folder name used when neither --data nor FIELDGAP_DATA names one. */
 export const DEFAULT_DATA_DIR = 'fieldgap-data';

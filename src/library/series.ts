@@ -1,8 +1,8 @@
-import { parseFormula } from '../../src/chemistry/formula.js';
-import { FieldgapError, isFieldgapError } from '../../src/errors.js';
+import { parseFormula } from '../chemistry/formula.js';
+import { FieldgapError, isFieldgapError } from '../errors.js';
 import {
   fitLigandFactors, rankByNephelauxetic, rankByTenDq, type FactorFit, type LigandShare, type RankOptions, type Ranking, type SeriesAnalysis,
-} from '../../src/series/index.js';
+} from '../series/index.js';
 import type { Library } from './library.js';
 import type { AnalysisDetails, FitSummary } from './types.js';
 import { canonicalIon } from './validate.js';

@@ -1,4 +1,4 @@
-import { invalidArgument } from '../../src/errors.js';
+import { invalidArgument } from '../errors.js';
 import type { Library } from './library.js';
 import type { AnalysisPatch, AnalysisRecord, StoredOptions, StoredResult } from './types.js';
 

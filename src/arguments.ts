@@ -1,0 +1,66 @@
+/**
+ * Command-line arguments for every entry point (the CLI's commands and the
+ * service's `node dist/server/main.js`): node:util parseArgs in strict mode,
+ * and option values checked into numbers or choices, each error naming the
+ * option.
+ */
+import { parseArgs, type ParseArgsConfig } from 'node:util';
+import { invalidArgument } from './errors.js';
+
+type Options = NonNullable<ParseArgsConfig['options']>;
+
+/**
+ * parseArgs in strict mode, with its errors turned into FieldgapError naming
+ * the option, so the user sees one line such as "--dq: expected a number".
+ */
+export function parseCommandArgs<O extends Options>(
+  argv: string[],
+  options: O,
+  allowPositionals = false,
+) {
+  try {
+    return parseArgs({ args: argv, options, strict: true, allowPositionals, allowNegative: false });
+  } catch (error) {
+    const message = error instanceof Error ? error.message : String(error);
+    const match = /'(-{1,2}[\w-]+)/.exec(message);
+    throw invalidArgument(match?.[1] ?? 'arguments', message.replace(/\. To specify.*$/s, ''));
+  }
+}
+
+/** A finite number from an option value, or a clear error naming the option. */
+export function numberOption(
+  name: string,
+  raw: string | undefined,
+  { required = false, min = -Infinity, max = Infinity, integer = false } = {},
+): number | undefined {
+  if (raw === undefined) {
+    if (required) throw invalidArgument(`--${name}`, `--${name} is required`);
+    return undefined;
+  }
+  const value = Number(raw.trim());
+  if (raw.trim() === '' || !Number.isFinite(value)) {
+    throw invalidArgument(`--${name}`, `--${name}: expected a number, got "${raw}"`);
+  }
+  if (integer && !Number.isInteger(value)) {
+    throw invalidArgument(`--${name}`, `--${name}: expected a whole number, got "${raw}"`);
+  }
+  if (value < min || value > max) {
+    throw invalidArgument(`--${name}`, `--${name}: ${raw} is outside the allowed range ${min} to ${max}`);
+  }
+  return value;
+}
+
+/** One of a fixed set of words, or a clear error listing them. */
+export function choiceOption<T extends string>(
+  name: string,
+  raw: string | undefined,
+  choices: readonly T[],
+  fallback: T,
+): T {
+  if (raw === undefined) return fallback;
+  const value = raw.trim().toLowerCase() as T;
+  if (!choices.includes(value)) {
+    throw invalidArgument(`--${name}`, `--${name}: expected one of ${choices.join(', ')}, got "${raw}"`);
+  }
+  return value;
+}
