@@ -11,10 +11,15 @@
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
+import { analyzeContent, type AnalyzeContentTask, type ContentOutcome } from './batch-analyze.js';
 import { analyzeBatchFile, type BatchFileTask, type BatchRow } from './batch-rows.js';
+import type { WorkerTask } from './batch-worker.js';
 
 export interface BatchRunner {
+  /** One file of an `analyze` batch to its finished rows. */
   run(task: BatchFileTask): Promise<BatchRow[]>;
+  /** A spectrum's bytes to its analysis (or its error, as data). */
+  analyze(task: AnalyzeContentTask): Promise<ContentOutcome>;
   close(): Promise<void>;
   /** Threads analysing (1: the calling thread). */
   readonly threads: number;
@@ -50,6 +55,9 @@ export function inThreadRunner(): BatchRunner {
     async run(task) {
       return analyzeBatchFile(task);
     },
+    async analyze(task) {
+      return analyzeContent(task);
+    },
     async close() {},
   };
 }
@@ -65,10 +73,11 @@ export async function createBatchRunner(files: number, threads?: number, explici
   // Loaded here, not at start-up: only a large batch needs it.
   const { Piscina } = await import('piscina');
   const { filename, execArgv } = workerFile();
-  const piscina = new Piscina<BatchFileTask, BatchRow[]>({ filename, execArgv, minThreads: count, maxThreads: count, idleTimeout: 1000 });
+  const piscina = new Piscina<WorkerTask, BatchRow[] | ContentOutcome>({ filename, execArgv, minThreads: count, maxThreads: count, idleTimeout: 1000 });
   return {
     threads: count,
-    run: (task) => piscina.run(task),
+    run: async (task) => (await piscina.run({ rows: task })) as BatchRow[],
+    analyze: async (task) => (await piscina.run({ analyze: task })) as ContentOutcome,
     close: () => piscina.close(),
   };
 }
