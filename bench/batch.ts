@@ -24,7 +24,7 @@ const TARGET_S = 60;
 const TARGET_RSS_RATIO = 1.2;
 
 /** One invented spectrum (CSV text), variant `k`. */
-function spectrumCsv(k: number): string {
+export function spectrumCsv(k: number): string {
   const dq = 1500 + 35 * k;
   const b = 620 + 6 * k;
   const { levels } = computeLevels(3, 'octahedral', { dq, b, c: 4.2 * b });
