@@ -43,9 +43,9 @@ well; 1 some spectra in a batch failed (their rows say why); 2 bad input.`;
 
 const OPTIONS = {
   ...ANALYSIS_OPTIONS,
+  threads: { type: 'string' },
   csv: { type: 'string' },
   curves: { type: 'boolean' },
-  threads: { type: 'string' },
 } as const;
 
 export const analyzeCommand: Command = {
