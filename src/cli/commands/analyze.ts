@@ -41,9 +41,12 @@ A folder contributes every spectrum file inside it (.csv .txt .tsv .dat .asc
 .prn .jdx .dx .jcamp). Files are read, never changed. Exit code: 0 all went
 well; 1 some spectra in a batch failed (their rows say why); 2 bad input.`;
 
+/** Options of a run on many files. */
+const BATCH_OPTIONS = { threads: { type: 'string' } } as const;
+
 const OPTIONS = {
+  ...BATCH_OPTIONS,
   ...ANALYSIS_OPTIONS,
-  threads: { type: 'string' },
   csv: { type: 'string' },
   curves: { type: 'boolean' },
 } as const;
