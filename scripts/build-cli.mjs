@@ -9,7 +9,9 @@
  *
  * Kept outside the bundle, loaded from node_modules as before:
  * - better-sqlite3: a native addon that finds its .node file from its own folder;
- * - piscina: starts its threads from a file of its own package.
+ * - piscina: starts its threads from a file of its own package;
+ * - pg: the PostgreSQL client, loaded only for a --database library; it looks
+ *   for its optional native binding (pg-native) at run time.
  * The service is no part of it: bin/fieldgap hands `serve` the compiled
  * dist/server/main.js (built by tsc), whose worker and page are found from
  * its own folder.
@@ -24,7 +26,7 @@ import { fileURLToPath } from 'node:url';
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 
 /** Packages the bundle leaves to node_modules (see above for why). */
-export const EXTERNAL_PACKAGES = ['better-sqlite3', 'piscina'];
+export const EXTERNAL_PACKAGES = ['better-sqlite3', 'piscina', 'pg'];
 
 /** @param {{ outdir?: string }} [options] */
 export async function buildCli(options = {}) {

@@ -3,7 +3,7 @@
  * listening (server/main.ts listens; tests run supertest against the app).
  *
  * Routes, all JSON, energies in cm-1:
- *   GET  /api/v1/health       { status: "ok", version, uptime, pool }
+ *   GET  /api/v1/health       { status: "ok", version, uptime, pool, library: { engine, reachable } }
  *   GET  /api/v1/openapi.json the OpenAPI 3.1 document
  *   GET  /api/v1/levels       levels of d^n for Dq, B, C
  *   GET  /api/v1/diagram      a Tanabe–Sugano diagram
@@ -25,8 +25,10 @@ import { createAnalysesRouter } from './routes/analyses.js';
 import { analyzeInPool, createAnalyzeRouter } from './routes/analyze.js';
 import { createComputeRouter } from './routes/compute.js';
 import { createSeriesRouter } from './routes/series.js';
-import { resolveDataDir } from '../src/library/data-dir.js';
-import { openLibrary } from '../src/library/library.js';
+import { lazyLibrary } from '../src/library/lazy.js';
+import { openLibraryAt, type Library, type LibraryLocation } from '../src/library/library.js';
+import { resolveLibraryLocation } from '../src/library/location.js';
+import { isFieldgapError } from '../src/errors.js';
 
 export const MIB = 1024 * 1024;
 
@@ -49,6 +51,11 @@ export interface AppOptions {
   staticDir?: string | false;
   /** Folder of the results library; default $FIELDGAP_DATA, else ./fieldgap-data. */
   dataDir?: string;
+  /**
+   * A PostgreSQL library (postgres://…) instead of the data folder; default
+   * $FIELDGAP_DATABASE_URL when dataDir is not given. Several instances may share one.
+   */
+  database?: string;
 }
 
 /** The app, plus what it needs to stop: the pool it owns and the library. */
@@ -56,6 +63,8 @@ export type FieldgapApp = Express & {
   /** Stops what the app owns (its worker pool, the library); the HTTP server is the caller's. */
   close(): Promise<void>;
   readonly pool: ComputePool;
+  /** The results library (opened on first use). */
+  readonly library: Library;
 };
 
 const CSP_DIRECTIVES = {
@@ -79,14 +88,17 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
     maxJsonBytes = MIB,
     logger = createLogger(),
     staticDir = defaultStaticDir(),
-    dataDir = resolveDataDir({ env: process.env, cwd: process.cwd() }),
+    dataDir,
+    database,
   } = options;
   const ownsPool = typeof poolOption === 'string';
   const pool = poolOption === 'workers' ? createWorkerPool() : poolOption === 'in-process' ? createInProcessPool() : poolOption;
   const version = packageVersion();
   const openapi = buildOpenApiDocument(version, { maxBodyBytes, maxJsonBytes, requestTimeoutMs });
   const startedAt = Date.now();
-  const library = openLibrary(dataDir);
+  const location: LibraryLocation = resolveLibraryLocation({ dataFlag: dataDir, databaseFlag: database, env: process.env, cwd: process.cwd() });
+  // Opened on first use and again after a failure: the service starts and recovers without its database.
+  const library = lazyLibrary(location.engine, () => openLibraryAt(location));
 
   const app = express();
   app.disable('x-powered-by');
@@ -101,8 +113,15 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
   app.use('/api', express.json({ limit: maxJsonBytes }));
 
   const api = express.Router();
-  api.get('/health', (_req, res) => {
-    res.json({ status: 'ok', version, uptime: (Date.now() - startedAt) / 1000, pool: { mode: pool.mode, workersStopped: pool.workersStopped() } });
+  api.get('/health', async (_req, res) => {
+    const reachable = await library.ping().then(
+      () => ({ reachable: true }),
+      (error: unknown) => ({ reachable: false, message: isFieldgapError(error) ? error.message : 'the library could not be opened' }),
+    );
+    res.json({
+      status: 'ok', version, uptime: (Date.now() - startedAt) / 1000, pool: { mode: pool.mode, workersStopped: pool.workersStopped() },
+      library: { engine: library.engine, readOnly: library.readOnly, ...reachable },
+    });
   });
   api.get('/openapi.json', (_req, res) => {
     res.json(openapi);
@@ -128,8 +147,8 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
     try {
       if (ownsPool) await pool.close();
     } finally {
-      library.close();
+      await library.close();
     }
   };
-  return Object.assign(app, { close, pool });
+  return Object.assign(app, { close, pool, library });
 }

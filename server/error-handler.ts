@@ -70,7 +70,11 @@ export function errorHandler(logger: Logger) {
     } else {
       answer = known;
     }
-    if (answer instanceof ServiceBusyError) res.set('Retry-After', '5');
+    if (answer instanceof ServiceBusyError || answer.code === 'storage-unavailable') res.set('Retry-After', '5');
+    // The operator must hear of a damaged, full or unreachable library; the client gets the message only.
+    if (answer.code.startsWith('storage-') && answer.code !== 'storage-read-only') {
+      logger.error({ method: req.method, url: req.originalUrl, code: answer.code }, answer.message);
+    }
     res.status(httpStatusFor(answer)).json(errorBody(answer));
   };
 }

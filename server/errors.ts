@@ -52,6 +52,10 @@ const STATUS: Record<ErrorCode, number> = {
   'not-found': 404,
   'too-large': 413,
   timeout: 504,
+  'storage-full': 507,
+  'storage-read-only': 507,
+  'storage-unavailable': 503,
+  'storage-broken': 500,
   internal: 500,
 };
 

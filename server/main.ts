@@ -13,7 +13,7 @@ import { FieldgapError, isFieldgapError } from '../src/errors.js';
 import { numberOption, parseCommandArgs } from '../src/arguments.js';
 import { createApp, type AppOptions, type FieldgapApp } from './app.js';
 import { createLogger } from './logging.js';
-import { resolveDataDir } from '../src/library/data-dir.js';
+import { describeLocation, resolveLibraryLocation } from '../src/library/location.js';
 
 export const DEFAULT_PORT = 5177;
 export const DEFAULT_HOST = '127.0.0.1';
@@ -105,12 +105,18 @@ export async function runServe(argv: string[], io: ServeIo): Promise<number> {
     port: { type: 'string' },
     host: { type: 'string' },
     data: { type: 'string' },
+    database: { type: 'string' },
   });
   const port = numberOption('port', values.port, { min: 0, max: 65_535, integer: true }) ?? DEFAULT_PORT;
   const host = values.host?.trim() || DEFAULT_HOST;
-  const dataDir = resolveDataDir({ flag: values.data, env: io.env, cwd: io.cwd });
-  const running = await startServer({ port, host, dataDir });
+  const location = resolveLibraryLocation({ dataFlag: values.data, databaseFlag: values.database, env: io.env, cwd: io.cwd });
+  const running = await startServer(location.engine === 'sqlite' ? { port, host, dataDir: location.dataDir } : { port, host, database: location.url });
   io.stdout(`fieldgap: serving on ${running.url} (API ${running.url}api/v1, press Ctrl-C to stop)\n`);
+  // The library opens on first use; say now if it cannot, but serve anyway: it is retried on each request.
+  await running.app.library.ping().then(
+    () => io.stdout(`fieldgap: library: ${describeLocation(location)}${running.app.library.readOnly ? ' (read-only)' : ''}\n`),
+    (error: unknown) => io.stderr(`fieldgap: library not available yet (${isFieldgapError(error) ? error.message : 'could not be opened'}); retried on each request\n`),
+  );
   if (host !== DEFAULT_HOST && host !== 'localhost' && host !== '::1') {
     io.stderr(`fieldgap: listening on ${host}: other machines may reach this server; it has no authentication\n`);
   }

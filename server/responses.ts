@@ -21,6 +21,10 @@ export const errorResponse = z
         'not-found',
         'too-large',
         'timeout',
+        'storage-full',
+        'storage-read-only',
+        'storage-unavailable',
+        'storage-broken',
         'internal',
       ]),
       message: z.string(),
@@ -38,6 +42,12 @@ export const healthResponse = z.strictObject({
     workersStopped: z.int().nonnegative().meta({
       description: 'Worker threads stopped (time limit, a client gone for over a second, a crash) and replaced by cold ones since the start.',
     }),
+  }),
+  library: z.strictObject({
+    engine: z.enum(['sqlite', 'postgres']).meta({ description: 'Where the results library lives: a SQLite file, or a PostgreSQL database shared by instances.' }),
+    readOnly: z.boolean().meta({ description: 'Writes are refused (a read-only data folder); reads work.' }),
+    reachable: z.boolean().meta({ description: 'The library answered just now. When false, library routes answer 503 until it does.' }),
+    message: z.string().optional().meta({ description: 'Why the library is not reachable.' }),
   }),
 });
 

@@ -4,6 +4,7 @@
  * caller reads the file); the CLI, the service, the page and the library all
  * come through here, so they agree on every number.
  */
+import { checkCorrections, fitWithAlternative, type AnalysisCorrections } from './analysis-corrections.js';
 import { FieldgapError, invalidArgument } from './errors.js';
 import { defaultBandSigma, fitBands, type BandInput, type FitResult } from './fit/index.js';
 import type { Geometry } from './ligand-field/types.js';
@@ -36,6 +37,8 @@ export interface AnalyzeOptions {
   freeC?: boolean;
   /** Return the curves on the energy grid (for plots). @default false */
   curves?: boolean;
+  /** The user's corrections (band list, chosen assignment), see analysis-corrections.ts. @default none */
+  corrections?: AnalysisCorrections;
 }
 
 export interface AnalyzeCurves {
@@ -69,6 +72,8 @@ export interface AnalyzeResult {
   fit: FitResult;
   warnings: string[];
   curves?: AnalyzeCurves;
+  /** The corrections `fit` was made with, when any (checked copy of options.corrections). */
+  corrections?: AnalysisCorrections;
 }
 
 /** The spectra a file holds, for a batch run that analyses every column. */
@@ -98,8 +103,9 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
   });
   warnings.push(...processed.warnings);
   const where = `${options.fileName ?? '<input>'}${format === 'delimited' && spectrum.column > 1 ? `#${spectrum.column}` : ''}`;
+  const corrections = options.corrections === undefined ? undefined : checkCorrections(options.corrections);
   const dd = processed.bands.filter((b) => b.kind !== 'charge-transfer');
-  if (dd.length === 0) {
+  if (dd.length === 0 && corrections?.bands === undefined) {
     const found = processed.bands.length === 0 ? 'no bands were found' : `only charge-transfer bands were found (${positions(processed.bands)} cm-1)`;
     throw new FieldgapError('unexplained', `no d–d bands to fit: ${found} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`, where);
   }
@@ -109,7 +115,7 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
       ...(options.ion !== undefined && { ion: options.ion }),
       ...(options.d !== undefined && { d: options.d }),
       geometry,
-      bands: processed.bands.map(bandToFitInput),
+      bands: corrections?.bands ?? processed.bands.map(bandToFitInput),
       ...(options.cOverB !== undefined && { cOverB: options.cOverB }),
       ...(options.c !== undefined && { c: options.c }),
       ...(options.freeC !== undefined && { freeC: options.freeC }),
@@ -120,6 +126,7 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
     }
     throw error;
   }
+  if (corrections?.alternative !== undefined) fit = fitWithAlternative(fit, corrections.alternative);
   const result: AnalyzeResult = {
     spectrum: {
       points: processed.points,
@@ -136,6 +143,7 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
     bands: processed.bands,
     fit,
     warnings: [...warnings, ...fit.warnings.map((w) => `fit: ${w}`)],
+    ...(corrections !== undefined && { corrections }),
   };
   if (options.curves) {
     const grid = processed.grid;

@@ -23,6 +23,14 @@ export type ErrorCode =
   | 'too-large'
   /** Work that exceeded its time limit. */
   | 'timeout'
+  /** The results library cannot store more: its disk is full (HTTP 507). */
+  | 'storage-full'
+  /** The results library is read-only here (a read-only data folder or database user): reads work, writes do not (HTTP 507). */
+  | 'storage-read-only'
+  /** The results library's database cannot be reached now (HTTP 503); try again later. */
+  | 'storage-unavailable'
+  /** The results library is damaged or not a fieldgap library (HTTP 500). */
+  | 'storage-broken'
   /** A bug: something fieldgap should never do. */
   | 'internal';
 

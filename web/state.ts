@@ -163,6 +163,19 @@ export function fitRequestFor(entry: AnalysisEntry): FitRequest {
   return request;
 }
 
+/**
+ * The corrections to store with a saved analysis (POST /analyses
+ * "corrections"): the corrected band list when the bands differ from those
+ * found, and the alternative shown. The service applies them with the same
+ * fit (src/analysis-corrections.ts), so the record holds the fit shown here.
+ */
+export function correctionsFor(entry: AnalysisEntry): { bands?: FitRequestBand[]; alternative?: number } | null {
+  const out: { bands?: FitRequestBand[]; alternative?: number } = {};
+  if (hasBandCorrections(entry)) out.bands = fitRequestFor(entry).bands;
+  if (entry.shownAlternative !== null) out.alternative = entry.shownAlternative;
+  return out.bands === undefined && out.alternative === undefined ? null : out;
+}
+
 /** True when the bands or the fit differ from what the analysis found. */
 export function hasBandCorrections(entry: AnalysisEntry): boolean {
   if (entry.result === null) return false;

@@ -6,7 +6,8 @@
  *   GET    /:id/original     the original file, byte for byte
  *   PATCH  /:id              change details (JSON body)
  *   DELETE /:id              204
- *   POST   /:id/refit        rerun on the stored original with changed options: a new revision
+ *   POST   /:id/refit        rerun on the stored original with changed options: a new revision,
+ *                             with `changes` listing what moved in the assignment
  * The upload takes what POST /api/v1/analyze takes (multipart field
  * "spectrum" or a raw body; the same analysis fields), plus the details
  * sample, formula, ligands, solvent, temperature (K), measuredOn, note.
@@ -15,6 +16,7 @@
 import { Router, type Request } from 'express';
 import { extname } from 'node:path';
 import { z } from 'zod';
+import { checkCorrections } from '../../src/analysis-corrections.js';
 import { invalidArgument } from '../../src/errors.js';
 import { analyzeFields } from '../schemas.js';
 import type { Library } from '../../src/library/library.js';
@@ -49,8 +51,19 @@ export const detailFields = {
   note: z.string().max(MAX_NOTE).optional().meta({ description: 'Free text.' }),
 };
 
-/** POST /analyses fields: the analysis fields of POST /analyze and the details. */
-export const analysisRecordFields = analyzeFields.extend(detailFields);
+/** The user's corrections: as JSON text in a query or form field, as an object in a JSON body; null removes them (refit). */
+const correctionsField = z
+  .union([z.string().max(100_000), z.looseObject({}), z.null()])
+  .optional()
+  .meta({
+    description:
+      'Corrections stored with the record and applied by the analysis: {"bands":[{"position":17400,"flags":["shoulder"]}, ...], "alternative":0}. ' +
+      'bands: the band list fitted instead of the found bands (removed ones left out, added ones in, reclassified ones with their flag); ' +
+      'alternative: the index of the chosen alternative assignment. C/B, c and freeC are fields of their own.',
+  });
+
+/** POST /analyses fields: the analysis fields of POST /analyze, the details and the corrections. */
+export const analysisRecordFields = analyzeFields.extend({ ...detailFields, corrections: correctionsField });
 
 export const listQuery = z.strictObject({
   query: z.string().max(200).optional().meta({ description: 'Words that must all occur in sample, formula, ion, ligands, solvent or note.' }),
@@ -66,8 +79,8 @@ export const patchBody = z.strictObject(
   },
 );
 
-/** POST /:id/refit: analysis options to change (fileName is always the stored original's). */
-export const refitFields = analyzeFields.omit({ fileName: true });
+/** POST /:id/refit: analysis options to change (fileName is always the stored original's), and the corrections. */
+export const refitFields = analyzeFields.omit({ fileName: true }).extend({ corrections: correctionsField });
 
 const ORIGINAL_TYPES: Record<string, string> = {
   '.csv': 'text/csv',
@@ -83,7 +96,7 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
 
   router.post('/', spectrumUpload(maxBodyBytes), async (req, res) => {
     const upload = res.locals['spectrum'] as UploadedSpectrum;
-    const { sample, formula, ligands, solvent, temperature, measuredOn, note, ...analysis } = parseTextFields(analysisRecordFields, upload.fields);
+    const { sample, formula, ligands, solvent, temperature, measuredOn, note, corrections, ...analysis } = parseTextFields(analysisRecordFields, upload.fields);
     const fileName = analysis.fileName ?? upload.fileName ?? 'spectrum';
     // Checked before the (costly) analysis, so a bad date does not cost a fit.
     const details = checkDetails({
@@ -93,22 +106,23 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
       ...(analysis.ion !== undefined && { ion: analysis.ion }),
     }) as AnalysisDetails;
     const options = toAnalyzeOptions(analysis, upload.fileName);
+    if (corrections != null) options.corrections = checkCorrections(corrections);
     const result = await analyze(upload.content, options);
-    const saved = library.add({ ...details, fileName, content: upload.content, options, result });
+    const saved = await library.add({ ...details, fileName, content: upload.content, options, result });
     res.status(201).location(`${req.baseUrl}/${saved.id}`).json(saved);
   });
 
-  router.get('/', (req, res) => {
+  router.get('/', async (req, res) => {
     const { query, ion, limit, offset } = parseTextFields(listQuery, req.query);
-    res.json(library.list({ ...(query !== undefined && { query }), ...(ion !== undefined && { ion }), ...(limit !== undefined && { limit }), ...(offset !== undefined && { offset }) }));
+    res.json(await library.list({ ...(query !== undefined && { query }), ...(ion !== undefined && { ion }), ...(limit !== undefined && { limit }), ...(offset !== undefined && { offset }) }));
   });
 
-  router.get('/:id', (req, res) => {
-    res.json(library.get(idParam(req)));
+  router.get('/:id', async (req, res) => {
+    res.json(await library.get(idParam(req)));
   });
 
-  router.get('/:id/original', (req, res) => {
-    const original = library.getOriginal(idParam(req));
+  router.get('/:id/original', async (req, res) => {
+    const original = await library.getOriginal(idParam(req));
     res.attachment(original.fileName);
     // Set as is: res.type() would add a charset the file may not be in.
     res.setHeader('Content-Type', ORIGINAL_TYPES[extname(original.fileName).toLowerCase()] ?? 'application/octet-stream');
@@ -118,7 +132,7 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
     res.send(original.bytes);
   });
 
-  router.patch('/:id', (req, res) => {
+  router.patch('/:id', async (req, res) => {
     const id = idParam(req);
     const body = parseJsonBody(patchBody, req.body ?? {});
     const patch: AnalysisPatch = {};
@@ -126,18 +140,20 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
       if (value === undefined) continue;
       (patch as Record<string, unknown>)[key] = key === 'ligands' && value !== null ? ligandList(value as string | string[]) : value;
     }
-    res.json(library.update(id, patch));
+    res.json(await library.update(id, patch));
   });
 
-  router.delete('/:id', (req, res) => {
-    library.remove(idParam(req));
+  router.delete('/:id', async (req, res) => {
+    await library.remove(idParam(req));
     res.status(204).end();
   });
 
   router.post('/:id/refit', async (req, res) => {
     const id = idParam(req);
-    const fields = req.is('application/json') ? parseJsonBody(refitFields, req.body ?? {}) : parseTextFields(refitFields, req.query);
+    const { corrections, ...fields } = req.is('application/json') ? parseJsonBody(refitFields, req.body ?? {}) : parseTextFields(refitFields, req.query);
     const changes = toAnalyzeOptions(fields, undefined) as Record<string, unknown>;
+    // null takes the corrections away: the fit goes back to the found bands and the best assignment.
+    if (corrections !== undefined) changes['corrections'] = corrections === null ? null : checkCorrections(corrections);
     const record = await refitAnalysis(library, id, changes, (content, options: StoredOptions) => analyze(content, options));
     res.json(record);
   });

@@ -35,9 +35,9 @@ export const predictBody = z.strictObject({
 export function createSeriesRouter({ library }: SeriesRouterDeps): Router {
   const router = Router();
 
-  router.get('/series', (req, res) => {
+  router.get('/series', async (req, res) => {
     const { ion, criterion } = parseTextFields(seriesQuery, req.query);
-    res.json(librarySeries(library, ion, criterion === undefined ? {} : { criterion }));
+    res.json(await librarySeries(library, ion, criterion === undefined ? {} : { criterion }));
   });
 
   // One ligand-field calculation at one Dq: milliseconds, so it runs here rather than in the pool.

@@ -3,12 +3,13 @@
  * results on in the order of the list, whatever order they finish in. The
  * window bounds both the work queued on the threads and the results held
  * while an earlier one is still running, so memory does not grow with the
- * length of the list.
+ * length of the list. `take` may be async (a database write): the next
+ * result is taken once it is done.
  */
 export async function runInOrder<T, R>(
   items: readonly T[],
   run: (item: T) => Promise<R>,
-  take: (result: R, item: T, index: number) => void,
+  take: (result: R, item: T, index: number) => void | Promise<void>,
   window: number,
 ): Promise<void> {
   const inFlight: Promise<R>[] = [];
@@ -20,6 +21,6 @@ export async function runInOrder<T, R>(
       started.catch(() => {});
       inFlight.push(started);
     }
-    take(await inFlight.shift()!, items[done]!, done);
+    await take(await inFlight.shift()!, items[done]!, done);
   }
 }

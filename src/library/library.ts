@@ -1,45 +1,65 @@
-import Database from 'better-sqlite3';
 import { createHash } from 'node:crypto';
-import { mkdirSync } from 'node:fs';
-import { join } from 'node:path';
 import { FieldgapError, invalidArgument } from '../errors.js';
-import { migrate } from './migrations.js';
-import { fitParams, likeWord, revisionFromRow, SUMMARY_SELECT, summaryFromRow, type RevisionRow, type SummaryRow } from './rows.js';
-import { translateSqliteError } from './sqlite-errors.js';
+import { packageVersion as toolVersion } from '../version.js';
+import { DIALECT_SQL, type SqlEngine, type SqlTx } from './engine.js';
+import { openPostgresEngine, type PostgresEngineOptions } from './postgres-engine.js';
+import { fitParams, likeWord, revisionFromRow, SUMMARY_SELECT, summaryFromRow, type FitColumns, type RevisionRow, type SummaryRow } from './rows.js';
+import { LIBRARY_FILE, openSqliteEngine, type SqliteEngineOptions } from './sqlite-engine.js';
 import { ionOfResult, summarizeResult } from './summary.js';
 import type {
   AnalysisPatch, AnalysisRecord, AnalysisSummary, ListOptions, ListPage, NewAnalysis, OriginalFile, StoredOptions, StoredResult,
 } from './types.js';
 import { baseFileName, canonicalIon, canonicalIonOrNull, checkDetails } from './validate.js';
-import { packageVersion as toolVersion } from '../version.js';
 
-/** The file the library keeps inside its data folder (with -wal and -shm beside it). */
-export const LIBRARY_FILE = 'library.sqlite';
+export { LIBRARY_FILE };
 
-export interface LibraryOptions {
-  /** How long a write waits for another process's write lock before failing with 'timeout', ms. Default 10000. */
-  busyTimeoutMs?: number;
+export interface LibraryOptions extends SqliteEngineOptions, PostgresEngineOptions {
   /** Largest original file accepted, bytes. Default 32 MiB. */
   maxOriginalBytes?: number;
 }
 
+/**
+ * The results library: analyses with their original files (byte for byte,
+ * with SHA-256) and every revision. One interface, two engines (SQLite, the
+ * embedded default; PostgreSQL, shared by several instances): the rules
+ * below are written once, the engines differ only in SQL dialect and in how
+ * they open and lock. Every method is async (PostgreSQL's client is).
+ */
 export interface Library {
-  /** The absolute path of the SQLite file. */
-  readonly file: string;
+  /** "sqlite" or "postgres". */
+  readonly engine: SqlEngine['dialect'];
+  /** True when writes are refused (a read-only data folder): reads still work. */
+  readonly readOnly: boolean;
   /** Stores a new analysis (details, original bytes, options, result) and returns it with its id. */
-  add(record: NewAnalysis): AnalysisRecord;
+  add(record: NewAnalysis): Promise<AnalysisRecord>;
   /** One page of records, newest first, filtered by `query` words and `ion`. */
-  list(options?: ListOptions): ListPage;
+  list(options?: ListOptions): Promise<ListPage>;
   /** Every record matching the filter (no paging), newest first: for export and series. */
-  listAll(filter?: Pick<ListOptions, 'query' | 'ion'>): AnalysisSummary[];
-  get(id: number): AnalysisRecord;
+  listAll(filter?: Pick<ListOptions, 'query' | 'ion'>): Promise<AnalysisSummary[]>;
+  get(id: number): Promise<AnalysisRecord>;
   /** The original file, byte for byte as it was added. */
-  getOriginal(id: number): OriginalFile;
+  getOriginal(id: number): Promise<OriginalFile>;
   /** Edits details and/or adds a revision (options with result); returns the updated record. */
-  update(id: number, patch: AnalysisPatch): AnalysisRecord;
+  update(id: number, patch: AnalysisPatch): Promise<AnalysisRecord>;
   /** Deletes the record, its original and its history. */
-  remove(id: number): void;
-  close(): void;
+  remove(id: number): Promise<void>;
+  /** Resolves when the database answers; rejects with 'storage-unavailable' when it does not. */
+  ping(): Promise<void>;
+  close(): Promise<void>;
+}
+
+/** Where a library lives: a data folder (SQLite) or a PostgreSQL database. */
+export type LibraryLocation = { engine: 'sqlite'; dataDir: string } | { engine: 'postgres'; url: string };
+
+/** Opens (creating when needed) the SQLite library in `dataDir`. */
+export async function openLibrary(dataDir: string, options: LibraryOptions = {}): Promise<Library> {
+  return libraryOver(openSqliteEngine(dataDir, options), options);
+}
+
+/** Opens the library at `location`, applying any missing schema steps first. */
+export async function openLibraryAt(location: LibraryLocation, options: LibraryOptions = {}): Promise<Library> {
+  if (location.engine === 'sqlite') return openLibrary(location.dataDir, options);
+  return libraryOver(await openPostgresEngine(location.url, options), options);
 }
 
 const DETAIL_COLUMNS = {
@@ -48,165 +68,129 @@ const DETAIL_COLUMNS = {
 } as const;
 const PATCH_KEYS = new Set([...Object.keys(DETAIL_COLUMNS), 'ligands', 'options', 'result', 'toolVersion']);
 const SEARCHED = ['a.sample', 'a.formula', 'a.ion', 'a.ligands', 'a.solvent', 'a.note'];
+const FIT_COLUMNS: readonly (keyof FitColumns)[] = ['ten_dq', 'ten_dq_sd', 'b', 'b_sd', 'c', 'beta', 'beta_sd', 'spin_state', 'rms', 'status'];
 
-/**
- * Opens (creating when needed) the results library in `dataDir`.
- *
- * Durability: WAL journal with synchronous=FULL. In WAL mode a commit is an
- * append to the -wal file; FULL adds an fsync of it before the commit
- * returns, so an acknowledged write survives not only the process being
- * killed (NORMAL would do for that: the appended frames are in the OS cache
- * and are replayed at the next open) but also a power cut or OS crash, which
- * NORMAL may roll back. Writes here are one per analysis, a human's pace, so
- * the fsync per commit costs nothing that matters.
- *
- * Concurrency: every write is one BEGIN IMMEDIATE transaction, so writers in
- * several processes queue on SQLite's lock (waiting up to busyTimeoutMs)
- * instead of failing on a read-to-write upgrade; readers never block.
- */
-export function openLibrary(dataDir: string, options: LibraryOptions = {}): Library {
-  const { busyTimeoutMs = 10_000, maxOriginalBytes = 32 * 1024 * 1024 } = options;
-  try {
-    mkdirSync(dataDir, { recursive: true });
-  } catch (error) {
-    throw new FieldgapError('invalid-argument', `cannot create the data folder (${(error as NodeJS.ErrnoException).code ?? 'error'})`, dataDir);
-  }
-  const file = join(dataDir, LIBRARY_FILE);
-  let db: Database.Database;
-  try {
-    db = new Database(file, { timeout: busyTimeoutMs });
-  } catch (error) {
-    throw translateSqliteError(error, file);
-  }
-  try {
-    db.pragma('journal_mode = WAL');
-    db.pragma('synchronous = FULL');
-    db.pragma('foreign_keys = ON');
-    migrate(db, file);
-  } catch (error) {
-    db.close();
-    throw translateSqliteError(error, file);
-  }
-  return makeLibrary(db, file, maxOriginalBytes);
-}
+/** The library's rules over one engine. */
+export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'maxOriginalBytes'> = {}): Library {
+  const { maxOriginalBytes = 32 * 1024 * 1024 } = options;
+  const sql = DIALECT_SQL[engine.dialect];
 
-function makeLibrary(db: Database.Database, file: string, maxOriginalBytes: number): Library {
-  const guard = <A extends unknown[], R>(fn: (...args: A) => R) => (...args: A): R => {
-    try {
-      return fn(...args);
-    } catch (error) {
-      throw translateSqliteError(error, file);
-    }
-  };
-
-  const insertAnalysis = db.prepare(`INSERT INTO analyses
-    (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note,
-     original_name, original_sha256, original_size)
-    VALUES (@now, @now, @sample, @formula, @ion, @ligands, @solvent, @temperature, @measured_on, @note,
-     @original_name, @original_sha256, @original_size)`);
-  const insertOriginal = db.prepare('INSERT INTO originals (analysis_id, bytes) VALUES (?, ?)');
-  const insertRevision = db.prepare(`INSERT INTO revisions
-    (analysis_id, revision, created_at, tool_version, options,
-     ten_dq, ten_dq_sd, b, b_sd, c, beta, beta_sd, spin_state, rms, status)
-    VALUES (@analysis_id, @revision, @created_at, @tool_version, @options,
-     @ten_dq, @ten_dq_sd, @b, @b_sd, @c, @beta, @beta_sd, @spin_state, @rms, @status)`);
-  const insertResult = db.prepare('INSERT INTO results (revision_id, result) VALUES (?, ?)');
-  const selectOne = db.prepare<[number], SummaryRow>(`${SUMMARY_SELECT} WHERE a.id = ?`);
-  const selectCurrent = db.prepare<[number], { options: string; result: string }>(`SELECT r.options, x.result
-    FROM revisions r JOIN results x ON x.revision_id = r.id WHERE r.analysis_id = ? ORDER BY r.revision DESC LIMIT 1`);
-  const selectRevisions = db.prepare<[number], RevisionRow>(`SELECT revision, created_at, tool_version, options,
-    ten_dq, ten_dq_sd, b, b_sd, c, beta, beta_sd, spin_state, rms, status
-    FROM revisions WHERE analysis_id = ? ORDER BY revision`);
-  const selectOriginal = db.prepare<[number], { original_name: string; original_sha256: string; original_size: number; bytes: Buffer }>(
-    `SELECT a.original_name, a.original_sha256, a.original_size, o.bytes
-     FROM originals o JOIN analyses a ON a.id = o.analysis_id WHERE o.analysis_id = ?`);
-
-  const addRevision = (id: number, revision: number, options: StoredOptions, result: StoredResult, version: string, now: string) => {
+  const addRevision = async (tx: SqlTx, id: number, revision: number, options: StoredOptions, result: StoredResult, version: string, now: string) => {
     const resultText = jsonText('result', result);
-    const { lastInsertRowid } = insertRevision.run({
-      analysis_id: id, revision, created_at: now, tool_version: version,
-      options: jsonText('options', options), ...fitParams(summarizeResult(result)),
-    });
-    insertResult.run(lastInsertRowid, resultText);
+    const fit = fitParams(summarizeResult(result));
+    const row = await tx.get<{ id: number }>(
+      `INSERT INTO revisions (analysis_id, revision, created_at, tool_version, options, ${FIT_COLUMNS.join(', ')})
+       VALUES (?, ?, ?, ?, ?, ${FIT_COLUMNS.map(() => '?').join(', ')}) RETURNING id`,
+      [id, revision, now, version, jsonText('options', options), ...FIT_COLUMNS.map((c) => fit[c])],
+    );
+    await tx.run('INSERT INTO results (revision_id, result) VALUES (?, ?)', [row!.id, resultText]);
   };
 
-  const get = (id: number): AnalysisRecord =>
-    db.transaction(() => {
-      const row = selectOne.get(checkId(id));
-      if (!row) throw notFound(id);
-      const current = selectCurrent.get(id)!;
-      return {
-        ...summaryFromRow(row),
-        options: JSON.parse(current.options) as StoredOptions,
-        result: JSON.parse(current.result) as StoredResult,
-        revisions: selectRevisions.all(id).map(revisionFromRow),
-      };
-    })();
+  const readRecord = async (tx: SqlTx, id: number): Promise<AnalysisRecord> => {
+    const row = await tx.get<SummaryRow>(`${SUMMARY_SELECT} WHERE a.id = ?`, [checkId(id)]);
+    if (!row) throw notFound(id);
+    const current = (await tx.get<{ options: string; result: string }>(
+      `SELECT r.options, x.result FROM revisions r JOIN results x ON x.revision_id = r.id
+       WHERE r.analysis_id = ? ORDER BY r.revision DESC LIMIT 1`,
+      [id],
+    ))!;
+    const revisions = await tx.all<RevisionRow>(
+      `SELECT revision, created_at, tool_version, options, ${FIT_COLUMNS.join(', ')}
+       FROM revisions WHERE analysis_id = ? ORDER BY revision`,
+      [id],
+    );
+    return {
+      ...summaryFromRow(row),
+      options: JSON.parse(current.options) as StoredOptions,
+      result: JSON.parse(current.result) as StoredResult,
+      revisions: revisions.map(revisionFromRow),
+    };
+  };
 
   const filterSql = (filter: Pick<ListOptions, 'query' | 'ion'>) => {
     const clauses: string[] = [];
-    const params: Record<string, string> = {};
-    words(filter.query).forEach((word, i) => {
-      clauses.push(`(${SEARCHED.map((col) => `${col} LIKE @w${i} ESCAPE '\\'`).join(' OR ')})`);
-      params[`w${i}`] = likeWord(word);
-    });
+    const params: unknown[] = [];
+    for (const word of words(filter.query)) {
+      clauses.push(`(${SEARCHED.map((col) => `${col} ${sql.like} ? ESCAPE '\\'`).join(' OR ')})`);
+      params.push(...SEARCHED.map(() => likeWord(word)));
+    }
     if (filter.ion !== undefined && filter.ion.trim() !== '') {
-      clauses.push('a.ion = @ion');
-      params['ion'] = canonicalIon(filter.ion);
+      clauses.push('a.ion = ?');
+      params.push(canonicalIon(filter.ion));
     }
     return { where: clauses.length ? `WHERE ${clauses.join(' AND ')}` : '', params };
   };
 
+  const get = (id: number) => {
+    checkId(id);
+    return engine.read((tx) => readRecord(tx, id));
+  };
+
   return {
-    file,
-    add: guard((record: NewAnalysis) => {
+    engine: engine.dialect,
+    readOnly: engine.readOnly,
+
+    add: async (record: NewAnalysis) => {
       if (typeof record !== 'object' || record === null) throw invalidArgument('record', 'expected an analysis record');
       const details = checkDetails({ ...record, sample: record.sample ?? '' });
       const fileName = baseFileName(record.fileName);
       const content = originalBytes(record.content, maxOriginalBytes);
       const ion = details.ion ?? canonicalIonOrNull(ionOfResult(record.result)) ?? canonicalIonOrNull(ionOfOptions(record.options));
+      jsonText('options', record.options);
+      jsonText('result', record.result);
       const now = new Date().toISOString();
-      const id = db.transaction(() => {
-        const { lastInsertRowid } = insertAnalysis.run({
-          original_name: fileName, original_sha256: sha256Hex(content), original_size: content.length,
-          now, sample: details.sample!, formula: details.formula ?? null, ion,
-          ligands: JSON.stringify(details.ligands ?? []), solvent: details.solvent ?? null,
-          temperature: details.temperature ?? null, measured_on: details.measuredOn ?? null, note: details.note ?? null,
-        });
-        const newId = Number(lastInsertRowid);
-        insertOriginal.run(newId, content);
-        addRevision(newId, 1, record.options, record.result, record.toolVersion ?? toolVersion(), now);
+      const id = await engine.write(async (tx) => {
+        const row = await tx.get<{ id: number }>(
+          `INSERT INTO analyses
+            (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note,
+             original_name, original_sha256, original_size)
+           VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?) RETURNING id`,
+          [
+            now, now, details.sample!, details.formula ?? null, ion, JSON.stringify(details.ligands ?? []), details.solvent ?? null,
+            details.temperature ?? null, details.measuredOn ?? null, details.note ?? null,
+            fileName, sha256Hex(content), content.length,
+          ],
+        );
+        const newId = Number(row!.id);
+        await tx.run('INSERT INTO originals (analysis_id, bytes) VALUES (?, ?)', [newId, content]);
+        await addRevision(tx, newId, 1, record.options, record.result, record.toolVersion ?? toolVersion(), now);
         return newId;
-      }).immediate();
+      });
       return get(id);
-    }),
+    },
 
-    list: guard((options: ListOptions = {}) => {
+    list: async (options: ListOptions = {}) => {
       const limit = pageNumber('limit', options.limit, 50, 1, 1000);
       const offset = pageNumber('offset', options.offset, 0, 0, Number.MAX_SAFE_INTEGER);
       const { where, params } = filterSql(options);
-      return db.transaction(() => {
-        const total = (db.prepare(`SELECT count(*) AS n FROM analyses a ${where}`).get(params) as { n: number }).n;
-        const rows = db.prepare(`${SUMMARY_SELECT} ${where} ORDER BY a.id DESC LIMIT @limit OFFSET @offset`)
-          .all({ ...params, limit, offset }) as SummaryRow[];
+      return engine.read(async (tx) => {
+        const total = (await tx.get<{ n: number }>(`SELECT CAST(count(*) AS INTEGER) AS n FROM analyses a ${where}`, params))!.n;
+        const rows = await tx.all<SummaryRow>(`${SUMMARY_SELECT} ${where} ORDER BY a.id DESC LIMIT ? OFFSET ?`, [...params, limit, offset]);
         return { analyses: rows.map(summaryFromRow), total, limit, offset };
-      })();
-    }),
+      });
+    },
 
-    listAll: guard((filter: Pick<ListOptions, 'query' | 'ion'> = {}) => {
+    listAll: async (filter: Pick<ListOptions, 'query' | 'ion'> = {}) => {
       const { where, params } = filterSql(filter);
-      return (db.prepare(`${SUMMARY_SELECT} ${where} ORDER BY a.id DESC`).all(params) as SummaryRow[]).map(summaryFromRow);
-    }),
+      return engine.read(async (tx) => (await tx.all<SummaryRow>(`${SUMMARY_SELECT} ${where} ORDER BY a.id DESC`, params)).map(summaryFromRow));
+    },
 
-    get: guard(get),
+    get,
 
-    getOriginal: guard((id: number) => {
-      const row = selectOriginal.get(checkId(id));
+    getOriginal: async (id: number) => {
+      checkId(id);
+      const row = await engine.read((tx) =>
+        tx.get<{ original_name: string; original_sha256: string; original_size: number; bytes: Buffer }>(
+          `SELECT a.original_name, a.original_sha256, a.original_size, o.bytes
+           FROM originals o JOIN analyses a ON a.id = o.analysis_id WHERE o.analysis_id = ?`,
+          [id],
+        ),
+      );
       if (!row) throw notFound(id);
       return { fileName: row.original_name, sha256: row.original_sha256, size: row.original_size, bytes: row.bytes };
-    }),
+    },
 
-    update: guard((id: number, patch: AnalysisPatch) => {
+    update: async (id: number, patch: AnalysisPatch) => {
       checkId(id);
       if (typeof patch !== 'object' || patch === null) throw invalidArgument('patch', 'expected an object of fields to change');
       for (const key of Object.keys(patch)) {
@@ -216,39 +200,43 @@ function makeLibrary(db: Database.Database, file: string, maxOriginalBytes: numb
         throw invalidArgument(patch.options === undefined ? 'options' : 'result', 'a refit needs both options and result');
       }
       const sets: string[] = [];
-      const params: Record<string, unknown> = { id };
+      const params: unknown[] = [];
       for (const [key, column] of Object.entries(DETAIL_COLUMNS) as [keyof typeof DETAIL_COLUMNS, string][]) {
         const value = patch[key];
         if (value === undefined) continue;
         const checked = value === null ? undefined : checkDetails({ [key]: value })[key];
         if (checked === undefined && key === 'sample') throw invalidArgument('sample', 'sample: a sample name is required');
-        sets.push(`${column} = @${column}`);
-        params[column] = checked ?? null;
+        sets.push(`${column} = ?`);
+        params.push(checked ?? null);
       }
       if (patch.ligands !== undefined) {
-        sets.push('ligands = @ligands');
-        params['ligands'] = JSON.stringify(patch.ligands === null ? [] : checkDetails({ ligands: patch.ligands }).ligands);
+        sets.push('ligands = ?');
+        params.push(JSON.stringify(patch.ligands === null ? [] : checkDetails({ ligands: patch.ligands }).ligands));
       }
+      if (patch.options !== undefined) jsonText('options', patch.options);
+      if (patch.result !== undefined) jsonText('result', patch.result);
       const now = new Date().toISOString();
-      db.transaction(() => {
-        const current = db.prepare<[number], { n: number | null }>('SELECT max(revision) AS n FROM revisions WHERE analysis_id = ?').get(id);
-        if (current?.n == null) throw notFound(id);
-        db.prepare(`UPDATE analyses SET ${[...sets, 'updated_at = @now'].join(', ')} WHERE id = @id`).run({ ...params, now });
+      await engine.write(async (tx) => {
+        // Locks the record's row (PostgreSQL) so concurrent refits of one record take turns.
+        const exists = await tx.get<{ id: number }>(`SELECT id FROM analyses WHERE id = ?${sql.lockRow}`, [id]);
+        if (!exists) throw notFound(id);
+        const current = await tx.get<{ n: number | null }>('SELECT max(revision) AS n FROM revisions WHERE analysis_id = ?', [id]);
+        await tx.run(`UPDATE analyses SET ${[...sets, 'updated_at = ?'].join(', ')} WHERE id = ?`, [...params, now, id]);
         if (patch.options !== undefined && patch.result !== undefined) {
-          addRevision(id, current.n + 1, patch.options, patch.result, patch.toolVersion ?? toolVersion(), now);
+          await addRevision(tx, id, (current?.n ?? 0) + 1, patch.options, patch.result, patch.toolVersion ?? toolVersion(), now);
         }
-      }).immediate();
+      });
       return get(id);
-    }),
-
-    remove: guard((id: number) => {
-      const { changes } = db.transaction(() => db.prepare('DELETE FROM analyses WHERE id = ?').run(checkId(id))).immediate();
-      if (changes === 0) throw notFound(id);
-    }),
-
-    close: () => {
-      if (db.open) db.close();
     },
+
+    remove: async (id: number) => {
+      checkId(id);
+      const gone = await engine.write((tx) => tx.all<{ id: number }>('DELETE FROM analyses WHERE id = ? RETURNING id', [id]));
+      if (gone.length === 0) throw notFound(id);
+    },
+
+    ping: () => engine.ping(),
+    close: () => engine.close(),
   };
 }
 

@@ -9,6 +9,9 @@ import { FieldgapError } from '../errors.js';
  * apply a step. A migration is never edited once released: a change is a new
  * step at the end.
  *
+ * The PostgreSQL engine applies the same steps, written in its dialect
+ * (postgres-migrations.ts): step N means the same schema in both.
+ *
  * Layout: `analyses` holds what the user says about a sample and the
  * original file's name, size and SHA-256; `originals` the file byte for byte
  * (one per analysis, immutable); `revisions` every analysis of that file,
@@ -100,7 +103,7 @@ export function migrate(db: Database, where: string, target = SCHEMA_VERSION): v
   const found = schemaVersion(db);
   if (found > SCHEMA_VERSION) {
     throw new FieldgapError(
-      'unsupported-format',
+      'storage-broken',
       `this library has schema version ${found}, newer than this fieldgap knows (${SCHEMA_VERSION}); use a newer fieldgap`,
       where,
     );

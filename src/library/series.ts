@@ -111,9 +111,9 @@ export function buildSeries(ionText: string, sources: readonly SeriesSource[], o
 }
 
 /** The series of every analysis of `ion` in the library. */
-export function librarySeries(library: Library, ion: string, options: RankOptions = {}): SeriesReport {
+export async function librarySeries(library: Library, ion: string, options: RankOptions = {}): Promise<SeriesReport> {
   const label = canonicalIon(ion);
-  const sources = library.listAll({ ion: label }).map((r): SeriesSource => {
+  const sources = (await library.listAll({ ion: label })).map((r): SeriesSource => {
     const source: SeriesSource = { id: String(r.id), sample: r.sample, summary: r.summary };
     if (r.formula !== undefined) source.formula = r.formula;
     if (r.ligands !== undefined) source.ligands = r.ligands;

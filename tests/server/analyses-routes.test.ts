@@ -1,17 +1,15 @@
 import { createHash } from 'node:crypto';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import request from 'supertest';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { FieldgapError } from '../../src/errors.js';
 import { createApp, type FieldgapApp } from '../../server/app.js';
 import { createInProcessPool, type ComputePool } from '../../server/pool.js';
-import { openLibrary, type Library } from '../../src/library/library.js';
+import type { Library } from '../../src/library/library.js';
+import { forEachEngine, freshLibrary, type TestLibrary } from '../storage/helpers/engines.js';
 import { handBuiltRecord } from '../storage/helpers/records.js';
 import { captureLogger } from './helpers.js';
 
-let dir: string;
+let where: TestLibrary;
 let app: FieldgapApp;
 let calls: { content: Buffer; options: Record<string, unknown> }[];
 
@@ -37,28 +35,30 @@ function standInPool(): ComputePool {
 }
 
 function makeApp(): FieldgapApp {
-  return createApp({ pool: standInPool(), logger: captureLogger().logger, staticDir: false, dataDir: dir, maxBodyBytes: 4096 });
+  const library = where.location.engine === 'sqlite' ? { dataDir: where.location.dataDir } : { database: where.location.url };
+  return createApp({ pool: standInPool(), logger: captureLogger().logger, staticDir: false, ...library, maxBodyBytes: 4096 });
 }
 
-beforeEach(() => {
-  dir = mkdtempSync(join(tmpdir(), 'fieldgap-analyses-http-'));
+/** A second connection to the app's library, to look behind the routes. */
+async function withLibrary<T>(fn: (library: Library) => Promise<T>): Promise<T> {
+  const library = await where.open();
+  try {
+    return await fn(library);
+  } finally {
+    await library.close();
+  }
+}
+
+forEachEngine('the library routes', (engine) => {
+beforeEach(async () => {
+  where = await freshLibrary(engine);
   calls = [];
   app = makeApp();
 });
 afterEach(async () => {
   await app.close();
-  rmSync(dir, { recursive: true, force: true });
+  await where.dispose();
 });
-
-/** A second connection to the app's library, to look behind the routes. */
-function withLibrary<T>(fn: (library: Library) => T): T {
-  const library = openLibrary(dir);
-  try {
-    return fn(library);
-  } finally {
-    library.close();
-  }
-}
 
 const CSV = 'nm,absorbance\n400,0.1\n575,0.2\n700,0.05\n';
 
@@ -99,7 +99,7 @@ describe('POST /api/v1/analyses', () => {
     expect(calls).toHaveLength(0);
     expect((await request(app).post('/api/v1/analyses?ion=Zn2%2B').type('text/csv').send(CSV).expect(422)).body.error.code).toBe('unexplained');
     expect((await request(app).post('/api/v1/analyses').type('text/csv').send('x'.repeat(5000)).expect(413)).body.error.code).toBe('too-large');
-    expect(withLibrary((library) => library.list().total)).toBe(0);
+    expect(await withLibrary(async (library) => (await library.list()).total)).toBe(0);
   });
 });
 
@@ -171,4 +171,5 @@ describe('persistence across a restart', () => {
     app = makeApp();
     expect((await request(app).get(`/api/v1/analyses/${saved.id}`).expect(200)).body).toEqual(saved);
   });
+});
 });

@@ -1,34 +1,33 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import request from 'supertest';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { createApp, type FieldgapApp } from '../../server/app.js';
-import { openLibrary, type Library } from '../../src/library/library.js';
+import type { Library } from '../../src/library/library.js';
+import { forEachEngine, freshLibrary, type TestLibrary } from '../storage/helpers/engines.js';
 import { handBuiltRecord } from '../storage/helpers/records.js';
 import { captureLogger } from './helpers.js';
 
-let dir: string;
+let where: TestLibrary;
 let library: Library;
 let app: FieldgapApp;
 
-// The app reads the data folder through its own connection; the tests add records through a second one.
-beforeEach(() => {
-  dir = mkdtempSync(join(tmpdir(), 'fieldgap-series-http-'));
-  library = openLibrary(dir);
-  app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, dataDir: dir });
+forEachEngine('GET /api/v1/series', (engine) => {
+// The app reads the library through its own connection; the tests add records through a second one.
+beforeEach(async () => {
+  where = await freshLibrary(engine);
+  library = await where.open();
+  const location = where.location.engine === 'sqlite' ? { dataDir: where.location.dataDir } : { database: where.location.url };
+  app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, ...location });
 });
 afterEach(async () => {
   await app.close();
-  library.close();
-  rmSync(dir, { recursive: true, force: true });
+  await library.close();
+  await where.dispose();
 });
 
-describe('GET /api/v1/series', () => {
   it('ranks the stored analyses of the ion', async () => {
     // hand-built records; the numbers are made up for the test
-    library.add(handBuiltRecord({ sample: 'en', formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 21_900));
-    library.add(handBuiltRecord({ sample: 'aqua', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_400));
+    await library.add(handBuiltRecord({ sample: 'en', formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 21_900));
+    await library.add(handBuiltRecord({ sample: 'aqua', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_400));
     const res = await request(app).get('/api/v1/series').query({ ion: 'Cr3+' }).expect(200);
     expect(res.body).toMatchObject({ ion: 'Cr3+', count: 2, skipped: [] });
     expect(res.body.spectrochemical.series).toBe('H2O < en');
@@ -47,6 +46,15 @@ describe('GET /api/v1/series', () => {
 });
 
 describe('POST /api/v1/predict', () => {
+beforeEach(async () => {
+  where = await freshLibrary('sqlite');
+  app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, dataDir: (where.location as { dataDir: string }).dataDir });
+});
+afterEach(async () => {
+  await app.close();
+  await where.dispose();
+});
+
   it('answers predictComplex for the formula', async () => {
     const res = await request(app).post('/api/v1/predict').send({ formula: '[Cr(H2O)6]Cl3' }).expect(200);
     expect(res.body).toMatchObject({ ion: 'Cr3+', d: 3, estimate: true, geometry: { value: 'octahedral' } });

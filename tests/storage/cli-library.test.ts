@@ -1,38 +1,40 @@
 import Papa from 'papaparse';
-import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { CliIo } from '../../src/cli/command.js';
 import { analysisOptionsFrom } from '../../src/cli/analysis-options.js';
 import { libraryCommand, plusMinus } from '../../src/cli/commands/library.js';
 import { runCli } from '../../src/cli/main.js';
-import { openLibrary } from '../../src/library/library.js';
+import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
 
+forEachEngine('fieldgap library (CLI)', (engine) => {
+let where: TestLibrary;
 let dir: string;
-beforeEach(() => {
-  dir = mkdtempSync(join(tmpdir(), 'fieldgap-cli-'));
+beforeEach(async () => {
+  where = await freshLibrary(engine);
+  dir = where.dir;
 });
-afterEach(() => rmSync(dir, { recursive: true, force: true }));
+afterEach(() => where.dispose());
 
-/** Runs `fieldgap library ...` in process, with FIELDGAP_DATA pointing at the test folder. */
+/** Runs `fieldgap library ...` in process, with FIELDGAP_DATA (or FIELDGAP_DATABASE_URL) naming the test library. */
 async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
   let out = '';
   let err = '';
   const io: CliIo = {
     stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: dir,
-    env: { FIELDGAP_DATA: join(dir, 'lib') },
+    env: { ...where.env },
   };
   const code = await runCli(['library', ...args], io);
   return { code, out, err };
 }
 
-function seed(): void {
-  const library = openLibrary(join(dir, 'lib'));
-  library.add(handBuiltRecord({ sample: 'chromium aqua' }));
-  library.add(handBuiltRecord({ sample: 'nickel ammine', formula: '[Ni(NH3)6]Cl2', ion: 'Ni2+', ligands: ['NH3'], content: new Uint8Array([0, 1, 2, 255]), fileName: 'ni.bin' }));
-  library.close();
+async function seed(): Promise<void> {
+  const library = await where.open();
+  await library.add(handBuiltRecord({ sample: 'chromium aqua' }));
+  await library.add(handBuiltRecord({ sample: 'nickel ammine', formula: '[Ni(NH3)6]Cl2', ion: 'Ni2+', ligands: ['NH3'], content: new Uint8Array([0, 1, 2, 255]), fileName: 'ni.bin' }));
+  await library.close();
 }
 
 describe('fieldgap library', () => {
@@ -43,7 +45,7 @@ describe('fieldgap library', () => {
   });
 
   it('lists newest first as a table with units, and as JSON', async () => {
-    seed();
+    await seed();
     const { code, out } = await cli('list');
     expect(code).toBe(0);
     const lines = out.trim().split('\n');
@@ -62,7 +64,7 @@ describe('fieldgap library', () => {
   });
 
   it('shows one record, and fails with one line for a missing id', async () => {
-    seed();
+    await seed();
     const { code, out } = await cli('show', '2');
     expect(code).toBe(0);
     expect(out).toMatch(/^#2  nickel ammine\n  formula +\[Ni\(NH3\)6\]Cl2\n  ion +Ni2\+\n/);
@@ -75,7 +77,7 @@ describe('fieldgap library', () => {
   });
 
   it('writes the original back out byte for byte, never over an existing file', async () => {
-    seed();
+    await seed();
     expect((await cli('original', '2', '--out', 'back.bin')).code).toBe(0);
     expect([...readFileSync(join(dir, 'back.bin'))]).toEqual([0, 1, 2, 255]);
     writeFileSync(join(dir, 'taken.bin'), 'mine');
@@ -86,7 +88,7 @@ describe('fieldgap library', () => {
   });
 
   it('exports CSV to stdout or a file and JSON with the full records', async () => {
-    seed();
+    await seed();
     const csv = (await cli('export')).out;
     const rows = Papa.parse<string[]>(csv.trim(), { newline: '\r\n' }).data; // papaparse as the reference reader
     expect(rows.map((r) => r[1])).toEqual(['sample', 'nickel ammine', 'chromium aqua']);
@@ -100,14 +102,14 @@ describe('fieldgap library', () => {
   });
 
   it('removes a record', async () => {
-    seed();
+    await seed();
     expect((await cli('remove', '1')).out).toBe('removed #1 "chromium aqua"\n');
     expect((await cli('remove', '1')).code).toBe(2);
     expect((await cli('list', '--json')).out).toContain('"total": 1');
   });
 
   it('honours --data over FIELDGAP_DATA', async () => {
-    seed();
+    await seed();
     const other = join(dir, 'other');
     expect((await cli('list', '--data', other)).out).toMatch(/empty/);
     expect(existsSync(join(other, 'library.sqlite'))).toBe(true);
@@ -119,6 +121,7 @@ describe('fieldgap library', () => {
     expect(err.split('\n')).toHaveLength(2);
     expect(err).toContain('unknown subcommand "frobnicate"');
   });
+});
 });
 
 describe('analysisOptionsFrom', () => {

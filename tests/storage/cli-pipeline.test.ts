@@ -1,14 +1,13 @@
 import { createHash } from 'node:crypto';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyzeSpectrum } from '../../src/analysis.js';
 import type { CliIo } from '../../src/cli/command.js';
 import { runCli } from '../../src/cli/main.js';
-import { openLibrary } from '../../src/library/library.js';
 import type { AnalysisRecord } from '../../src/library/types.js';
+import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
 
 /**
  * `library add`, `library refit` and `series FILES` with the real pipeline on
@@ -20,16 +19,17 @@ const ROOT = fileURLToPath(new URL('../..', import.meta.url));
 const AQUA = join(ROOT, 'spectra-demo', 'cr-aqua.csv');
 const AMMINE = join(ROOT, 'spectra-demo', 'cr-ammine.jdx');
 
-let dir: string;
-beforeAll(() => {
-  dir = mkdtempSync(join(tmpdir(), 'fieldgap-cli-pipeline-'));
+forEachEngine('the CLI with the pipeline', (engine) => {
+let where: TestLibrary;
+beforeAll(async () => {
+  where = await freshLibrary(engine);
 });
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
+afterAll(() => where.dispose());
 
 async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
   let out = '';
   let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: ROOT, env: { FIELDGAP_DATA: join(dir, 'lib') } };
+  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: ROOT, env: { ...where.env } };
   const code = await runCli(args, io);
   return { code, out, err };
 }
@@ -49,11 +49,11 @@ describe('library add and refit with the pipeline', () => {
     expect(saved.options).toEqual(options);
     expect(saved.result).toEqual(asJson(analyzeSpectrum(readFileSync(AQUA), options)));
     expect(saved).toMatchObject({ sample: 'cr-aqua', ion: 'Cr3+', ligands: ['H2O'], original: { fileName: 'cr-aqua.csv', sha256: before } });
-    const library = openLibrary(join(dir, 'lib'));
+    const library = await where.open();
     try {
-      expect(Buffer.compare(library.getOriginal(saved.id).bytes, readFileSync(AQUA))).toBe(0);
+      expect(Buffer.compare((await library.getOriginal(saved.id)).bytes, readFileSync(AQUA))).toBe(0);
     } finally {
-      library.close();
+      await library.close();
     }
     expect(createHash('sha256').update(readFileSync(AQUA)).digest('hex')).toBe(before); // the user's file is untouched
   });
@@ -88,4 +88,5 @@ describe('series FILES', () => {
     const expected = [['H2O', tenDq(AQUA)], ['NH3', tenDq(AMMINE)]].sort((a, b) => (a[1] as number) - (b[1] as number));
     expect(report.spectrochemical.entries.map((e) => [e.ligandLabel, e.value])).toEqual(expected);
   });
+});
 });

@@ -1,18 +1,12 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { CliIo } from '../../src/cli/command.js';
 import { ligandFromFileName } from '../../src/cli/commands/series.js';
 import { runCli } from '../../src/cli/main.js';
-import { openLibrary } from '../../src/library/library.js';
+import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
 
+let where: TestLibrary;
 let dir: string;
-beforeEach(() => {
-  dir = mkdtempSync(join(tmpdir(), 'fieldgap-cli-series-'));
-});
-afterEach(() => rmSync(dir, { recursive: true, force: true }));
 
 async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
   let out = '';
@@ -22,15 +16,21 @@ async function cli(...args: string[]): Promise<{ code: number; out: string; err:
   return { code, out, err };
 }
 
-describe('fieldgap series --library', () => {
+forEachEngine('fieldgap series --library', (engine) => {
+  beforeEach(async () => {
+    where = await freshLibrary(engine);
+    dir = where.dir;
+  });
+  afterEach(() => where.dispose());
+
   it('prints both rankings with units and the fitted factors', async () => {
     // hand-built records; the numbers are made up for the test
-    const library = openLibrary(join(dir, 'lib'));
-    library.add(handBuiltRecord({ sample: 'cr-en', formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 21_900));
-    library.add(handBuiltRecord({ sample: 'cr-aqua', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_400));
-    library.add(handBuiltRecord({ sample: 'cr-aqua-2', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_500));
-    library.close();
-    const { code, out } = await cli('--ion', 'Cr3+', '--data', 'lib');
+    const library = await where.open();
+    await library.add(handBuiltRecord({ sample: 'cr-en', formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 21_900));
+    await library.add(handBuiltRecord({ sample: 'cr-aqua', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_400));
+    await library.add(handBuiltRecord({ sample: 'cr-aqua-2', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_500));
+    await library.close();
+    const { code, out } = await cli('--ion', 'Cr3+', ...where.flags);
     expect(code).toBe(0);
     expect(out).toMatch(/^Cr3\+: 3 analyses\n\nSpectrochemical series \(by 10Dq, weakest field first\)\n/);
     expect(out).toMatch(/ 1 +H2O +cr-aqua +2 +17400 ± 150 +~ next/);
@@ -38,13 +38,13 @@ describe('fieldgap series --library', () => {
     expect(out).toContain('Nephelauxetic series');
     expect(out).toMatch(/Jørgensen factors for Cr3\+ \(f = 10Dq\/g, g = \d+ cm-1/);
     expect(out).toMatch(/ H2O +[\d.]+ ± [\d.]+ .* 2 analyses/);
-    const json = JSON.parse((await cli('--ion', 'Cr(III)', '--data', 'lib', '--json')).out) as { count: number };
+    const json = JSON.parse((await cli('--ion', 'Cr(III)', ...where.flags, '--json')).out) as { count: number };
     expect(json.count).toBe(3);
   });
 
   it('fails in one line without --ion or without analyses', async () => {
     expect((await cli()).err).toBe('fieldgap series: --ion is required: the metal ion of the series, e.g. --ion Cr3+\n');
-    const none = await cli('--ion', 'V3+', '--data', 'empty');
+    const none = await cli('--ion', 'V3+', ...where.flags);
     expect(none.code).toBe(2);
     expect(none.err).toBe('fieldgap series: ion: no analyses of V3+: nothing to rank\n');
   });

@@ -13,9 +13,9 @@ beforeEach(() => {
 });
 afterEach(() => rmSync(dir, { recursive: true, force: true }));
 
-function openError(): FieldgapError {
+async function openError(): Promise<FieldgapError> {
   try {
-    openLibrary(dir).close();
+    await (await openLibrary(dir)).close();
   } catch (error) {
     if (error instanceof FieldgapError) return error;
     throw error;
@@ -41,26 +41,26 @@ function writeVersion1Library(): void {
 }
 
 describe('schema migrations', () => {
-  it('creates the latest schema in an empty folder', () => {
-    openLibrary(dir).close();
+  it('creates the latest schema in an empty folder', async () => {
+    await (await openLibrary(dir)).close();
     const db = new Database(join(dir, LIBRARY_FILE), { readonly: true });
     expect(schemaVersion(db)).toBe(SCHEMA_VERSION);
     db.close();
   });
 
-  it('brings an old library up to date and keeps its records', () => {
+  it('brings an old library up to date and keeps its records', async () => {
     writeVersion1Library();
-    const library = openLibrary(dir);
+    const library = await openLibrary(dir);
     try {
-      const record = library.get(1);
+      const record = await library.get(1);
       expect(record).toMatchObject({ sample: 'old sample', ion: 'V3+', ligands: ['H2O'], toolVersion: '0.0.1' });
       // step 2 backfills the uncertainty columns from the stored result JSON
       expect(record.summary).toMatchObject({ tenDq: 18000, tenDqSd: 90, bSd: 12 });
       expect(record.summary.betaSd).toBeCloseTo(12 / 800, 12);
-      expect(library.getOriginal(1).bytes.toString('latin1')).toBe('abc');
-      expect(library.list({ ion: 'v(III)' }).total).toBe(1);
+      expect((await library.getOriginal(1)).bytes.toString('latin1')).toBe('abc');
+      expect((await library.list({ ion: 'v(III)' })).total).toBe(1);
     } finally {
-      library.close();
+      await library.close();
     }
     const db = new Database(join(dir, LIBRARY_FILE));
     expect(schemaVersion(db)).toBe(SCHEMA_VERSION);
@@ -70,18 +70,20 @@ describe('schema migrations', () => {
     db.close();
   });
 
-  it('refuses a library from a newer fieldgap', () => {
-    openLibrary(dir).close();
+  it('refuses a library from a newer fieldgap', async () => {
+    await (await openLibrary(dir)).close();
     const db = new Database(join(dir, LIBRARY_FILE));
     db.pragma(`user_version = ${SCHEMA_VERSION + 1}`);
     db.close();
-    expect(openError()).toMatchObject({ code: 'unsupported-format', path: join(dir, LIBRARY_FILE) });
+    expect(await openError()).toMatchObject({ code: 'storage-broken', path: 'library' });
   });
 
-  it('refuses a file that is not a database, without changing it', () => {
+  it('refuses a file that is not a database, without changing it', async () => {
     const text = 'nm,absorbance\n400,0.1\n'.repeat(200);
     writeFileSync(join(dir, LIBRARY_FILE), text);
-    expect(openError()).toMatchObject({ code: 'unsupported-format' });
+    const error = await openError();
+    expect(error).toMatchObject({ code: 'storage-broken', path: 'library' });
+    expect(error.message).not.toContain(dir);
     expect(readFileSync(join(dir, LIBRARY_FILE), 'utf8')).toBe(text);
   });
 });

@@ -1,22 +1,21 @@
 import Papa from 'papaparse';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { CSV_COLUMNS, libraryCsv } from '../../src/library/export.js';
-import { openLibrary, type Library } from '../../src/library/library.js';
+import type { Library } from '../../src/library/library.js';
 import { refitAnalysis, type AnalyzeStored } from '../../src/library/refit.js';
+import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
 
-let dir: string;
+forEachEngine('refit and export', (engine) => {
+let where: TestLibrary;
 let library: Library;
-beforeEach(() => {
-  dir = mkdtempSync(join(tmpdir(), 'fieldgap-refit-'));
-  library = openLibrary(dir);
+beforeEach(async () => {
+  where = await freshLibrary(engine);
+  library = await where.open();
 });
-afterEach(() => {
-  library.close();
-  rmSync(dir, { recursive: true, force: true });
+afterEach(async () => {
+  await library.close();
+  await where.dispose();
 });
 
 /** A stand-in for the pipeline that records what it was given, so the merge of options can be checked. */
@@ -33,7 +32,7 @@ function recordingAnalyze(): { analyze: AnalyzeStored; calls: { content: Buffer;
 describe('refitAnalysis', () => {
   it('reruns on the stored original with merged options and keeps the history', async () => {
     const input = handBuiltRecord({ options: { ion: 'Cr3+', geometry: 'octahedral', cOverB: 4, xUnit: 'nm' } });
-    const saved = library.add(input);
+    const saved = await library.add(input);
     const { analyze, calls } = recordingAnalyze();
     const refit = await refitAnalysis(library, saved.id, { cOverB: 4.5, xUnit: null }, analyze);
     expect(Buffer.compare(calls[0]!.content, Buffer.from(input.content))).toBe(0);
@@ -45,7 +44,7 @@ describe('refitAnalysis', () => {
   });
 
   it('replaces d by a new ion and follows the ion in the details', async () => {
-    const saved = library.add(handBuiltRecord({ ion: 'Cr3+', options: { d: 3 } }));
+    const saved = await library.add(handBuiltRecord({ ion: 'Cr3+', options: { d: 3 } }));
     const { analyze, calls } = recordingAnalyze();
     const refit = await refitAnalysis(library, saved.id, { ion: 'V2+' }, analyze);
     expect(calls[0]!.options).toEqual({ ion: 'V2+', fileName: 'sample-a.csv' });
@@ -53,18 +52,18 @@ describe('refitAnalysis', () => {
   });
 
   it('saves nothing when the analysis fails', async () => {
-    const saved = library.add(handBuiltRecord());
+    const saved = await library.add(handBuiltRecord());
     await expect(refitAnalysis(library, saved.id, {}, async () => Promise.reject(new Error('no fit')))).rejects.toThrow('no fit');
-    expect(library.get(saved.id).revision).toBe(1);
+    expect((await await library.get(saved.id)).revision).toBe(1);
     await expect(refitAnalysis(library, 42, {}, recordingAnalyze().analyze)).rejects.toMatchObject({ code: 'not-found' });
   });
 });
 
 describe('libraryCsv', () => {
-  it('writes one row per record that a CSV reader gives back, formulas escaped', () => {
-    library.add(handBuiltRecord({ sample: 'plain, with "quotes"', ligands: ['H2O', 'Cl'] }));
-    library.add(handBuiltRecord({ sample: '=HYPERLINK("x")' }, 17_123.456));
-    const text = libraryCsv(library.listAll());
+  it('writes one row per record that a CSV reader gives back, formulas escaped', async () => {
+    await library.add(handBuiltRecord({ sample: 'plain, with "quotes"', ligands: ['H2O', 'Cl'] }));
+    await library.add(handBuiltRecord({ sample: '=HYPERLINK("x")' }, 17_123.456));
+    const text = libraryCsv(await await library.listAll());
     const parsed = Papa.parse<string[]>(text.trim(), { newline: '\r\n' }); // papaparse as the reference reader
     expect(parsed.errors).toEqual([]);
     const [header, first, second] = parsed.data;
@@ -77,4 +76,5 @@ describe('libraryCsv', () => {
     expect(col(second, 'beta')).toBe(String(Math.round((700 / 918) * 1e4) / 1e4));
     expect(col(second, 'temperature_K')).toBe('295');
   });
+});
 });

@@ -1,26 +1,25 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { openLibrary, type Library } from '../../src/library/library.js';
+import type { Library } from '../../src/library/library.js';
 import { librarySeries, seriesAnalysisOf } from '../../src/library/series.js';
+import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
 
-let dir: string;
+forEachEngine('series from the library', (engine) => {
+let where: TestLibrary;
 let library: Library;
-beforeEach(() => {
-  dir = mkdtempSync(join(tmpdir(), 'fieldgap-series-'));
-  library = openLibrary(dir);
+beforeEach(async () => {
+  where = await freshLibrary(engine);
+  library = await where.open();
 });
-afterEach(() => {
-  library.close();
-  rmSync(dir, { recursive: true, force: true });
+afterEach(async () => {
+  await library.close();
+  await where.dispose();
 });
 
 const noFit = { tenDq: null, tenDqSd: null, b: null, bSd: null, c: null, beta: null, betaSd: null, spinState: null, rmsResidual: null, status: null };
 
 describe('seriesAnalysisOf', () => {
-  it('takes the ligand numbers from the formula, else one ligand as homoleptic', () => {
+  it('takes the ligand numbers from the formula, else one ligand as homoleptic', async () => {
     const summary = { ...noFit, tenDq: 20_000, tenDqSd: 100, beta: 0.7, betaSd: 0.01 };
     expect(seriesAnalysisOf({ id: '1', sample: 's', formula: '[Co(NH3)5Cl]Cl2', summary })).toMatchObject({
       ligands: [{ ligand: 'NH3', count: 5 }, { ligand: 'Cl', count: 1 }], tenDq: 20_000, tenDqUncertainty: 100, beta: 0.7, betaUncertainty: 0.01,
@@ -33,14 +32,14 @@ describe('seriesAnalysisOf', () => {
 });
 
 describe('librarySeries', () => {
-  it('ranks the analyses of one ion by 10Dq and by 1 - beta, skipping what cannot be ranked', () => {
+  it('ranks the analyses of one ion by 10Dq and by 1 - beta, skipping what cannot be ranked', async () => {
     // hand-built records; the numbers are made up for the test
-    library.add(handBuiltRecord({ sample: 'en', formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 21_900));
-    library.add(handBuiltRecord({ sample: 'aqua', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_400));
-    library.add(handBuiltRecord({ sample: 'urea', formula: 'my urea complex', ligands: ['urea'] }, 16_200));
-    library.add(handBuiltRecord({ sample: 'mixed', formula: 'unknown', ligands: ['NH3', 'Cl'] }, 18_000));
-    library.add(handBuiltRecord({ sample: 'nickel', ion: 'Ni2+', formula: '[Ni(H2O)6]2+', ligands: ['H2O'] }, 8_500));
-    const report = librarySeries(library, 'Cr(III)');
+    await library.add(handBuiltRecord({ sample: 'en', formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 21_900));
+    await library.add(handBuiltRecord({ sample: 'aqua', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_400));
+    await library.add(handBuiltRecord({ sample: 'urea', formula: 'my urea complex', ligands: ['urea'] }, 16_200));
+    await library.add(handBuiltRecord({ sample: 'mixed', formula: 'unknown', ligands: ['NH3', 'Cl'] }, 18_000));
+    await library.add(handBuiltRecord({ sample: 'nickel', ion: 'Ni2+', formula: '[Ni(H2O)6]2+', ligands: ['H2O'] }, 8_500));
+    const report = await librarySeries(library, 'Cr(III)');
     expect(report.ion).toBe('Cr3+');
     expect(report.count).toBe(3);
     expect(report.spectrochemical.entries.map((e) => [e.sample, e.value])).toEqual([['urea', 16_200], ['aqua', 17_400], ['en', 21_900]]);
@@ -53,16 +52,19 @@ describe('librarySeries', () => {
     expect(aqua.f).toBeCloseTo(17_400 / report.factors!.g, 12);
   });
 
-  it('says not-found when the library has no analyses of the ion', () => {
-    library.add(handBuiltRecord());
-    expect(() => librarySeries(library, 'V3+')).toThrow(expect.objectContaining({ code: 'not-found', path: 'ion' }));
-    const alone = openLibrary(join(dir, 'alone'));
+  it('says not-found when the library has no analyses of the ion', async () => {
+    await library.add(handBuiltRecord());
+    await expect(librarySeries(library, 'V3+')).rejects.toThrow(expect.objectContaining({ code: 'not-found', path: 'ion' }));
+    const aloneWhere = await freshLibrary(engine);
+    const alone = await aloneWhere.open();
     try {
-      alone.add(handBuiltRecord({ ligands: [], formula: 'unreadable' }));
-      expect(() => librarySeries(alone, 'Cr3+')).toThrow(/^the one analysis of Cr3\+ has no fitted 10Dq or no known ligand \(no ligand given/);
+      await alone.add(handBuiltRecord({ ligands: [], formula: 'unreadable' }));
+      await expect(librarySeries(alone, 'Cr3+')).rejects.toThrow(/^the one analysis of Cr3\+ has no fitted 10Dq or no known ligand \(no ligand given/);
     } finally {
-      alone.close();
+      await alone.close();
+      await aloneWhere.dispose();
     }
-    expect(() => librarySeries(library, 'Q7')).toThrow(expect.objectContaining({ code: 'invalid-argument', path: 'ion' }));
+    await expect(librarySeries(library, 'Q7')).rejects.toThrow(expect.objectContaining({ code: 'invalid-argument', path: 'ion' }));
   });
+});
 });

@@ -8,7 +8,7 @@ import * as api from '../api.js';
 import { download, h } from '../dom.js';
 import { UNIT, formatNumber, formatWithUncertainty, spinStateText } from '../format.js';
 import type { AnalysisEntry } from '../state.js';
-import { defaultDetails, editableBandsFromResult, hasBandCorrections, nextKey } from '../state.js';
+import { correctionsFor, defaultDetails, editableBandsFromResult, nextKey } from '../state.js';
 import type { Geometry, LibraryRecord, LibraryRow, XUnit } from '../types.js';
 
 export interface LibraryContext {
@@ -34,8 +34,11 @@ export function saveControls(entry: AnalysisEntry, ctx: LibraryContext): HTMLEle
     button.disabled = true;
     button.textContent = 'Saving…';
     const details = { ...entry.details, cOverB: entry.cOverB, freeC: entry.freeC };
+    const fields = api.analyzeQuery(details);
+    const corrections = correctionsFor(entry);
+    if (corrections !== null) fields.set('corrections', JSON.stringify(corrections));
     api
-      .saveAnalysis(file, api.analyzeQuery(details), {
+      .saveAnalysis(file, fields, {
         sample: entry.details.sample || entry.fileName.replace(/\.[^.]*$/, ''),
         ligands: entry.details.ligand,
         formula: entry.details.formula,
@@ -43,6 +46,9 @@ export function saveControls(entry: AnalysisEntry, ctx: LibraryContext): HTMLEle
       })
       .then((record) => {
         entry.libraryId = record.id;
+        // Show what was stored (the corrected fit, the chosen assignment applied), not what was on screen before.
+        entry.fit = record.result.fit;
+        entry.shownAlternative = null;
         ctx.notify(`Saved ${entry.fileName} as record ${record.id}.`, 'info');
         ctx.changed();
       })
@@ -53,8 +59,8 @@ export function saveControls(entry: AnalysisEntry, ctx: LibraryContext): HTMLEle
       });
   });
   const out: HTMLElement[] = [button];
-  if (hasBandCorrections(entry)) {
-    out.push(h('span', { class: 'muted small', id: 'save-note' }, 'The library stores the analysis of the file with this C/B; band corrections made here are not stored.'));
+  if (correctionsFor(entry) !== null) {
+    out.push(h('span', { class: 'muted small', id: 'save-note' }, 'The library stores the file, this C/B and the corrections made here (bands, chosen assignment).'));
   }
   return out;
 }

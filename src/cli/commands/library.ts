@@ -9,10 +9,13 @@ import { readInputFile } from '../files.js';
 import { numberOption, parseCommandArgs } from '../options.js';
 import type { AnalysisRecord, AnalysisSummary, FitSummary, NewAnalysis } from '../../library/types.js';
 import type { Library } from '../../library/library.js';
+import type { AssignmentChange } from '../../library/refit.js';
+import { checkCorrections, type AnalysisCorrections } from '../../analysis-corrections.js';
 
 /**
  * `fieldgap library`: the results library from the command line. Storage is
- * src/library (SQLite); it is loaded only when this command runs.
+ * src/library (SQLite, or PostgreSQL with --database); it is loaded only
+ * when this command runs.
  *
  * Choices made here:
  * - refit keeps history: every refit is a new revision of the record, the
@@ -33,9 +36,9 @@ const DETAIL_OPTIONS = {
   note: { type: 'string' },
 } as const;
 
-const DATA = { data: { type: 'string' } } as const;
+const DATA = { data: { type: 'string' }, database: { type: 'string' } } as const;
 
-const USAGE = `Usage: fieldgap library SUBCOMMAND [options] [--data DIR]
+const USAGE = `Usage: fieldgap library SUBCOMMAND [options] [--data DIR | --database URL]
 
 The results library: analyses saved with their original file (kept byte for
 byte, with its SHA-256), options, results and the fieldgap version.
@@ -52,10 +55,20 @@ byte, with its SHA-256), options, results and the fieldgap version.
                              write the stored original file back out
   library export [--csv FILE | --json FILE] [--query Q] [--ion I] [--force]
                              CSV (default, to stdout without FILE) or JSON
-  library refit ID [analysis options] [--json]
+  library refit ID [analysis options] [--reset NAME]... [--corrections C] [--json]
                              rerun on the stored original with changed options;
-                             kept as a new revision, earlier ones stay
+                             kept as a new revision, earlier ones stay; every
+                             change in the assignment is listed. A new C choice
+                             (--c-over-b, --c, --free-c) replaces the old one;
+                             --reset c-over-b|c|free-c|corrections|column|...
+                             takes a stored option back to its default
   library remove ID          delete the record, its original and history
+
+Corrections (library add and refit):
+  --corrections C   JSON, or a file holding it: {"bands":[{"position":17400},
+                    {"position":14450,"flags":["spin-forbidden"]}],"alternative":0}
+                    bands: the band list fitted instead of the found bands;
+                    alternative: the chosen alternative assignment (from 0)
 
 Details (library add):
   --sample S        sample name (default: the file name without extension)
@@ -67,6 +80,8 @@ Details (library add):
 ${ANALYSIS_USAGE}
 
   --data DIR        library folder (default $FIELDGAP_DATA, else ./fieldgap-data)
+  --database URL    a PostgreSQL library, postgres://user@host:5432/db
+                    (default $FIELDGAP_DATABASE_URL, when --data is not given)
 
 Energies are in cm-1.`;
 
@@ -89,17 +104,18 @@ type Handler = (argv: string[], io: CliIo) => Promise<number>;
 
 const SUBCOMMANDS: Record<string, Handler> = {
   add: async (argv, io) => {
-    const { values, positionals } = parseCommandArgs(argv, { ...ANALYSIS_OPTIONS, ...DETAIL_OPTIONS, ...DATA, json: { type: 'boolean' } }, true);
+    const { values, positionals } = parseCommandArgs(argv, { ...ANALYSIS_OPTIONS, ...DETAIL_OPTIONS, ...DATA, corrections: { type: 'string' }, json: { type: 'boolean' } }, true);
     if (positionals.length > 1) return addMany(positionals, values, io);
     const file = onePositional(positionals, 'FILE');
     const options = analysisOptionsFrom(values);
+    if (values.corrections !== undefined) options.corrections = correctionsFrom(values.corrections, io);
     const details = detailsFrom(values, file);
     fillFromFormula(values.formula, options, details, io);
     const content = readInputFile(file, io.cwd);
     options.fileName = basename(file);
     const { analyzeSpectrum } = await import('../../analysis.js');
     const result = analyzeSpectrum(content, options);
-    const saved = await withLibrary(values.data, io, (library) => library.add({ ...details, fileName: basename(file), content, options, result }));
+    const saved = await withLibrary(values, io, (library) => library.add({ ...details, fileName: basename(file), content, options, result }));
     if (values.json) io.stdout(`${JSON.stringify(saved, null, 2)}\n`);
     else io.stdout(savedText(saved));
     return 0;
@@ -109,7 +125,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
     const { values } = parseCommandArgs(argv, { query: { type: 'string' }, ion: { type: 'string' }, limit: { type: 'string' }, offset: { type: 'string' }, json: { type: 'boolean' }, ...DATA });
     const limit = numberOption('limit', values.limit, { min: 1, max: 1000, integer: true }) ?? 50;
     const offset = numberOption('offset', values.offset, { min: 0, integer: true }) ?? 0;
-    const page = await withLibrary(values.data, io, (library) =>
+    const page = await withLibrary(values, io, (library) =>
       library.list({ limit, offset, ...(values.query !== undefined && { query: values.query }), ...(values.ion !== undefined && { ion: values.ion }) }));
     if (values.json) {
       io.stdout(`${JSON.stringify(page, null, 2)}\n`);
@@ -129,7 +145,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
   show: async (argv, io) => {
     const { values, positionals } = parseCommandArgs(argv, { json: { type: 'boolean' }, ...DATA }, true);
     const id = idFrom(positionals);
-    const record = await withLibrary(values.data, io, (library) => library.get(id));
+    const record = await withLibrary(values, io, (library) => library.get(id));
     io.stdout(values.json ? `${JSON.stringify(record, null, 2)}\n` : recordText(record));
     return 0;
   },
@@ -138,7 +154,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
     const { values, positionals } = parseCommandArgs(argv, { out: { type: 'string' }, force: { type: 'boolean' }, ...DATA }, true);
     const id = idFrom(positionals);
     if (values.out === undefined) throw invalidArgument('--out', '--out FILE is required: where to write the original file');
-    const original = await withLibrary(values.data, io, (library) => library.getOriginal(id));
+    const original = await withLibrary(values, io, (library) => library.getOriginal(id));
     writeNew(values.out, original.bytes, values.force === true, io);
     io.stdout(`wrote ${values.out} (${original.size} bytes, sha256 ${original.sha256}, stored as ${original.fileName})\n`);
     return 0;
@@ -149,10 +165,12 @@ const SUBCOMMANDS: Record<string, Handler> = {
     if (values.csv !== undefined && values.json !== undefined) throw invalidArgument('--json', 'give --csv FILE or --json FILE, not both');
     const filter = { ...(values.query !== undefined && { query: values.query }), ...(values.ion !== undefined && { ion: values.ion }) };
     const { libraryCsv } = await import('../../library/export.js');
-    const text = await withLibrary(values.data, io, (library) => {
-      const summaries = library.listAll(filter);
+    const text = await withLibrary(values, io, async (library) => {
+      const summaries = await library.listAll(filter);
       if (values.json === undefined) return libraryCsv(summaries);
-      return `${JSON.stringify({ analyses: summaries.map((s) => library.get(s.id)) }, null, 2)}\n`;
+      const analyses: AnalysisRecord[] = [];
+      for (const s of summaries) analyses.push(await library.get(s.id));
+      return `${JSON.stringify({ analyses }, null, 2)}\n`;
     });
     const target = values.csv ?? values.json;
     if (target === undefined || target === '-') {
@@ -165,27 +183,38 @@ const SUBCOMMANDS: Record<string, Handler> = {
   },
 
   refit: async (argv, io) => {
-    const { values, positionals } = parseCommandArgs(argv, { ...ANALYSIS_OPTIONS, json: { type: 'boolean' }, ...DATA }, true);
+    const { values, positionals } = parseCommandArgs(
+      argv,
+      { ...ANALYSIS_OPTIONS, corrections: { type: 'string' }, reset: { type: 'string', multiple: true }, json: { type: 'boolean' }, ...DATA },
+      true,
+    );
     const id = idFrom(positionals);
-    const changes = analysisOptionsFrom(values);
+    const changes: Record<string, unknown> = { ...analysisOptionsFrom(values) };
+    if (values.corrections !== undefined) changes['corrections'] = correctionsFrom(values.corrections, io);
+    for (const name of values.reset ?? []) {
+      const key = RESETTABLE[name.trim().replace(/^--/, '')];
+      if (key === undefined) throw invalidArgument('--reset', `--reset: "${name}" is not a stored option (one of ${Object.keys(RESETTABLE).join(', ')})`);
+      if (changes[key] !== undefined) throw invalidArgument('--reset', `--reset ${name}: the same refit also sets it`);
+      changes[key] = null;
+    }
     const [{ analyzeSpectrum }, { refitAnalysis }] = await Promise.all([import('../../analysis.js'), import('../../library/refit.js')]);
-    const record = await withLibraryAsync(values.data, io, (library) =>
-      refitAnalysis(library, id, { ...changes }, async (content, options) => analyzeSpectrum(content, options as AnalyzeOptions)));
+    const record = await withLibrary(values, io, (library) =>
+      refitAnalysis(library, id, changes, async (content, options) => analyzeSpectrum(content, options as AnalyzeOptions)));
     if (values.json) {
       io.stdout(`${JSON.stringify(record, null, 2)}\n`);
       return 0;
     }
     const before = record.revisions.at(-2)!;
-    io.stdout(`refitted #${record.id} "${record.sample}": revision ${record.revision}\n  was  ${fitLine(before.summary)}\n  now  ${fitLine(record.summary)}\n${warningLines(record)}`);
+    io.stdout(`refitted #${record.id} "${record.sample}": revision ${record.revision}\n  was  ${fitLine(before.summary)}\n  now  ${fitLine(record.summary)}\n${changeLines(record.changes)}${warningLines(record)}`);
     return 0;
   },
 
   remove: async (argv, io) => {
     const { values, positionals } = parseCommandArgs(argv, { ...DATA }, true);
     const id = idFrom(positionals);
-    const sample = await withLibrary(values.data, io, (library) => {
-      const { sample: name } = library.get(id);
-      library.remove(id);
+    const sample = await withLibrary(values, io, async (library) => {
+      const { sample: name } = await library.get(id);
+      await library.remove(id);
       return name;
     });
     io.stdout(`removed #${id} "${sample}"\n`);
@@ -193,25 +222,30 @@ const SUBCOMMANDS: Record<string, Handler> = {
   },
 };
 
-async function openFor(flag: string | undefined, io: CliIo): Promise<Library> {
-  const [{ resolveDataDir }, { openLibrary }] = await Promise.all([
-    import('../../library/data-dir.js'),
+/** The options that name a library: --data DIR or --database URL. */
+export interface LibraryFlags {
+  data?: string | undefined;
+  database?: string | undefined;
+}
+
+async function openFor(flags: LibraryFlags, io: CliIo): Promise<Library> {
+  const [{ resolveLibraryLocation }, { openLibraryAt }] = await Promise.all([
+    import('../../library/location.js'),
     import('../../library/library.js'),
   ]);
-  return openLibrary(resolveDataDir({ flag, env: io.env, cwd: io.cwd }));
+  return openLibraryAt(resolveLibraryLocation({ dataFlag: flags.data, databaseFlag: flags.database, env: io.env, cwd: io.cwd }));
 }
 
-/** Opens the library named by --data / FIELDGAP_DATA, runs `fn`, always closes. */
-export async function withLibrary<T>(flag: string | undefined, io: CliIo, fn: (library: Library) => T): Promise<T> {
-  return withLibraryAsync(flag, io, async (library) => fn(library));
-}
-
-async function withLibraryAsync<T>(flag: string | undefined, io: CliIo, fn: (library: Library) => Promise<T>): Promise<T> {
-  const library = await openFor(flag, io);
+/**
+ * Opens the library named by --database / --data (else FIELDGAP_DATABASE_URL,
+ * FIELDGAP_DATA, ./fieldgap-data), runs `fn`, always closes. A string is --data.
+ */
+export async function withLibrary<T>(flags: LibraryFlags | string | undefined, io: CliIo, fn: (library: Library) => T | Promise<T>): Promise<T> {
+  const library = await openFor(typeof flags === 'object' ? flags : { data: flags }, io);
   try {
     return await fn(library);
   } finally {
-    library.close();
+    await library.close();
   }
 }
 
@@ -219,7 +253,7 @@ function savedText(saved: AnalysisRecord): string {
   return `saved #${saved.id} "${saved.sample}"${saved.ion ? ` (${saved.ion})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`;
 }
 
-type AddValues = Parameters<typeof analysisOptionsFrom>[0] & DetailValues & { data?: string; json?: boolean };
+type AddValues = Parameters<typeof analysisOptionsFrom>[0] & DetailValues & LibraryFlags & { corrections?: string; json?: boolean };
 
 /**
  * `library add FILE FILE...`: every file in one process, into one open
@@ -231,12 +265,13 @@ type AddValues = Parameters<typeof analysisOptionsFrom>[0] & DetailValues & { da
  */
 async function addMany(files: string[], values: AddValues, io: CliIo): Promise<number> {
   if (values.sample !== undefined) throw invalidArgument('--sample', `--sample names one file's record; ${files.length} files were given (each is named after its file)`);
+  if (values.corrections !== undefined) throw invalidArgument('--corrections', `--corrections belong to one spectrum; ${files.length} files were given`);
   const options = analysisOptionsFrom(values);
   fillFromFormula(values.formula, options, {}, io);
   const [{ createBatchRunner }, { runInOrder }, { resultOf }] = await Promise.all([import('../batch-pool.js'), import('../batch-run.js'), import('../batch-analyze.js')]);
   let failed = 0;
   let saved = 0;
-  await withLibraryAsync(values.data, io, async (library) => {
+  await withLibrary(values, io, async (library) => {
     const runner = await createBatchRunner(files.length);
     try {
       if (values.json) io.stdout('[');
@@ -250,12 +285,12 @@ async function addMany(files: string[], values: AddValues, io: CliIo): Promise<n
           return { error };
         }
       };
-      await runInOrder(files, analyse, (done, file) => {
+      await runInOrder(files, analyse, async (done, file) => {
         try {
           if ('error' in done) throw done.error;
           const details = detailsFrom(values, file);
           fillFromFormula(values.formula, {}, details, { ...io, stderr: () => {} });
-          const record = library.add({ ...details, fileName: basename(file), content: done.content, options: done.fileOptions, result: resultOf(done.outcome) });
+          const record = await library.add({ ...details, fileName: basename(file), content: done.content, options: done.fileOptions, result: resultOf(done.outcome) });
           if (values.json) io.stdout(`${saved > 0 ? ',' : ''}\n  ${JSON.stringify(record, null, 2).replaceAll('\n', '\n  ')}`);
           else io.stdout(savedText(record));
           saved++;
@@ -349,6 +384,31 @@ function fitLine(s: FitSummary): string {
   if (s.spinState) parts.push(s.spinState);
   if (s.rmsResidual !== null) parts.push(`rms ${s.rmsResidual.toFixed(0)} cm-1`);
   return parts.join('   ');
+}
+
+/** The stored options `--reset` takes back to their default, by their CLI names. */
+const RESETTABLE: Record<string, string> = {
+  'c-over-b': 'cOverB', c: 'c', 'free-c': 'freeC', corrections: 'corrections', column: 'column', 'x-unit': 'xUnit',
+  conc: 'concentration', path: 'pathLength', geometry: 'geometry',
+};
+
+/** --corrections: JSON text, or the name of a file holding it. */
+function correctionsFrom(value: string, io: CliIo): AnalysisCorrections {
+  const text = value.trim().startsWith('{') ? value : new TextDecoder().decode(readInputFile(value, io.cwd));
+  return checkCorrections(text, '--corrections');
+}
+
+/** Every change in the assignment, one line each; says so when there is none. */
+function changeLines(changes: readonly AssignmentChange[]): string {
+  if (changes.length === 0) return '  assignment unchanged\n';
+  const names = { spinState: 'spin state', groundTerm: 'ground term', cMode: 'C' } as const;
+  return changes
+    .map((c) => {
+      const was = c.before ?? 'not assigned';
+      const now = c.after ?? 'not assigned';
+      return c.what === 'band' ? `  band ${c.observed!.toFixed(0)} cm-1: ${was} → ${now}\n` : `  ${names[c.what]}: ${was} → ${now}\n`;
+    })
+    .join('');
 }
 
 function warningLines(record: AnalysisRecord): string {

@@ -37,6 +37,7 @@ Jørgensen's f and h per ligand.
                       or the column header ("Cr-en" → en)
   --criterion C       one-sigma (default: |Δ| < sqrt(σ1² + σ2²)) or two-sigma
   --data DIR          library folder (default $FIELDGAP_DATA, else ./fieldgap-data)
+  --database URL      a PostgreSQL library (default $FIELDGAP_DATABASE_URL)
   --json              print the whole report as JSON
 
 ${ANALYSIS_USAGE}
@@ -56,6 +57,7 @@ export const seriesCommand: Command = {
         ligand: { type: 'string', multiple: true },
         criterion: { type: 'string' },
         data: { type: 'string' },
+        database: { type: 'string' },
         json: { type: 'boolean' },
       },
       true,
@@ -67,7 +69,7 @@ export const seriesCommand: Command = {
     let report: SeriesReport;
     if (positionals.length === 0) {
       if (values.ligand) throw invalidArgument('--ligand', '--ligand names the ligand of each of FILES; with --library the records carry their own');
-      report = await withLibrary(values.data, io, (library) => librarySeries(library, values.ion!, { criterion }));
+      report = await withLibrary({ data: values.data, database: values.database }, io, (library) => librarySeries(library, values.ion!, { criterion }));
     } else {
       const { sources, failed } = await analyseFiles(positionals, values.ligand ?? [], analysisOptionsFrom(values), io);
       report = buildSeries(values.ion, sources, { criterion });

@@ -11,7 +11,7 @@ import type { Command } from '../command.js';
 export const serveCommand: Command = {
   name: 'serve',
   summary: 'run the REST service and the web page on this machine (127.0.0.1:5177)',
-  usage: `Usage: fieldgap serve [--port 5177] [--host 127.0.0.1] [--data DIR]
+  usage: `Usage: fieldgap serve [--port 5177] [--host 127.0.0.1] [--data DIR | --database URL]
 
 Runs the REST service (and the web page, when built) until SIGTERM or Ctrl-C.
 
@@ -19,6 +19,9 @@ Options:
   --port N      TCP port (default 5177; 0 picks a free one)
   --host H      interface to listen on (default 127.0.0.1: this machine only)
   --data DIR    folder of the results library (default $FIELDGAP_DATA, else ./fieldgap-data)
+  --database URL
+                a PostgreSQL results library, postgres://user@host:5432/db (default
+                $FIELDGAP_DATABASE_URL); several instances may share one
 
 API under /api/v1 (health, levels, diagram, fit, analyze, analyses); its
 OpenAPI description at /api/v1/openapi.json. Request logs go to stdout as

@@ -1,0 +1,126 @@
+/**
+ * A user's corrections to an analysis, kept with it so the stored record is
+ * what the user saw and can be made again from the original file:
+ *
+ * - `bands`: the band list the ligand-field fit uses instead of the bands the
+ *   finder gave (bands removed are left out, added ones are in, a band
+ *   reclassified carries its new flag: "spin-forbidden", "charge-transfer",
+ *   "shoulder"); positions in cm-1, as POST /api/v1/fit takes them;
+ * - `alternative`: the assignment chosen instead of the best one, as its
+ *   0-based index in the fit's `alternatives`.
+ *
+ * C/B, a fixed C and a free C are analysis options of their own (cOverB, c,
+ * freeC) and are stored with the options. The spectrum itself (baseline,
+ * found bands) is never changed by a correction: `result.bands` stays what
+ * the finder gave, `result.fit` is the corrected fit, and
+ * `result.corrections` repeats the corrections it was made with.
+ */
+import { invalidArgument } from './errors.js';
+import { normalizeBands, type BandInput } from './fit/bands.js';
+import type { FitResult } from './fit/types.js';
+
+export interface AnalysisCorrections {
+  bands?: BandInput[];
+  alternative?: number;
+}
+
+/** Most bands a correction may list (the fit's own limits apply too). */
+export const MAX_CORRECTED_BANDS = 40;
+
+/**
+ * Checks corrections given as JSON (an object, or its text) and returns them
+ * with only the known fields; errors name the field ("corrections.bands[2].position").
+ */
+export function checkCorrections(value: unknown, path = 'corrections'): AnalysisCorrections {
+  let parsed = value;
+  if (typeof value === 'string') {
+    try {
+      parsed = JSON.parse(value) as unknown;
+    } catch {
+      throw invalidArgument(path, `${path}: expected a JSON object such as {"bands":[{"position":17400}]}`);
+    }
+  }
+  if (typeof parsed !== 'object' || parsed === null || Array.isArray(parsed)) {
+    throw invalidArgument(path, `${path}: expected an object with "bands" and/or "alternative"`);
+  }
+  const record = parsed as Record<string, unknown>;
+  for (const key of Object.keys(record)) {
+    if (key !== 'bands' && key !== 'alternative') throw invalidArgument(`${path}.${key}`, `${path}.${key}: not a correction (known: bands, alternative)`);
+  }
+  const out: AnalysisCorrections = {};
+  if (record['bands'] !== undefined) {
+    const bands = record['bands'];
+    if (!Array.isArray(bands) || bands.length === 0) throw invalidArgument(`${path}.bands`, `${path}.bands: expected a list of at least one band`);
+    if (bands.length > MAX_CORRECTED_BANDS) throw invalidArgument(`${path}.bands`, `${path}.bands: at most ${MAX_CORRECTED_BANDS} bands, got ${bands.length}`);
+    // The fit's own checks (positions in range, known flags), with this path.
+    normalizeBands(bands, `${path}.bands`);
+    out.bands = bands.map((b: unknown) => bandInputOf(b as BandInput));
+  }
+  if (record['alternative'] !== undefined) {
+    const index = record['alternative'];
+    if (typeof index !== 'number' || !Number.isInteger(index) || index < 0 || index > 20) {
+      throw invalidArgument(`${path}.alternative`, `${path}.alternative: expected the index of an alternative assignment (0, 1, ...)`);
+    }
+    out.alternative = index;
+  }
+  return out;
+}
+
+/** Only the fields of a band the fit reads, in a fixed order (stored JSON that compares equal when equal). */
+function bandInputOf(band: BandInput | number): BandInput {
+  if (typeof band === 'number') return { position: band };
+  const out: BandInput = { position: band.position };
+  if (band.uncertainty !== undefined) out.uncertainty = band.uncertainty;
+  if (band.epsilon !== undefined) out.epsilon = band.epsilon;
+  if (band.width !== undefined) out.width = band.width;
+  if (band.flags !== undefined && band.flags.length > 0) out.flags = [...band.flags];
+  return out;
+}
+
+/** Unpaired electrons from a term's multiplicity 2S+1 (n = 2S); null for a label without one. */
+export function unpairedFromTerm(term: string): number | null {
+  const match = /^(\d+)/.exec(term);
+  return match === null ? null : Number(match[1]) - 1;
+}
+
+/**
+ * The fit with one of its alternative assignments in place of the best:
+ * that alternative's parameters, assignments and spin state. An alternative
+ * carries no uncertainties, so they are null; its magnetism follows its own
+ * ground term (spin-only μ = √(n(n+2)) μB); C/B is its C over its B.
+ * The page shows an alternative the same way (web/state.ts shownFit).
+ */
+export function fitWithAlternative(fit: FitResult, index: number, path = 'corrections.alternative'): FitResult {
+  const alternative = fit.alternatives[index];
+  if (alternative === undefined) {
+    throw invalidArgument(path, `${path}: the fit has ${fit.alternatives.length} alternative assignment${fit.alternatives.length === 1 ? '' : 's'}, no number ${index + 1}`);
+  }
+  const shown: FitResult = {
+    ...fit,
+    uncertainty: { tenDq: null, dq: null, b: null, c: null },
+    predicted: [],
+    unassigned: [],
+    warnings: [`alternative assignment: ${alternative.reason}`],
+    notes: [],
+    message: 'an alternative assignment, chosen by the user',
+    tenDq: alternative.tenDq,
+    dq: alternative.dq,
+    b: alternative.b,
+    c: alternative.c,
+    beta: alternative.beta,
+    rmsResidual: alternative.rmsResidual,
+    assignments: alternative.assignments as FitResult['assignments'],
+    spinState: alternative.spinState,
+    alternatives: fit.alternatives,
+  };
+  if (alternative.groundTerm !== fit.groundTerm) {
+    shown.groundTerm = alternative.groundTerm;
+    const n = unpairedFromTerm(alternative.groundTerm);
+    if (n !== null) {
+      shown.unpairedElectrons = n;
+      shown.spinOnlyMoment = Math.sqrt(n * (n + 2));
+    }
+  }
+  shown.cOverB = shown.b !== null && shown.c !== null && shown.b > 0 ? shown.c / shown.b : fit.cOverB;
+  return shown;
+}

@@ -1,0 +1,55 @@
+import type { Library } from './library.js';
+
+/**
+ * A Library that opens on first use, and again after a failed open: a
+ * service can start while its database is down, answer 503 meanwhile
+ * ('storage-unavailable' from the engine), and recover by itself when the
+ * database returns, without a restart. Calls made while an open is under way
+ * share it. `engine` is known before opening; `readOnly` is false until the
+ * library has opened.
+ */
+export function lazyLibrary(engine: Library['engine'], open: () => Promise<Library>): Library {
+  let opening: Promise<Library> | undefined;
+  let opened: Library | undefined;
+  let closed = false;
+
+  const library = (): Promise<Library> => {
+    if (opened) return Promise.resolve(opened);
+    opening ??= open().then(
+      (lib) => {
+        if (closed) {
+          void lib.close();
+        } else {
+          opened = lib;
+        }
+        return lib;
+      },
+      (error: unknown) => {
+        opening = undefined;
+        throw error;
+      },
+    );
+    return opening;
+  };
+
+  return {
+    engine,
+    get readOnly() {
+      return opened?.readOnly ?? false;
+    },
+    add: async (record) => (await library()).add(record),
+    list: async (options) => (await library()).list(options),
+    listAll: async (filter) => (await library()).listAll(filter),
+    get: async (id) => (await library()).get(id),
+    getOriginal: async (id) => (await library()).getOriginal(id),
+    update: async (id, patch) => (await library()).update(id, patch),
+    remove: async (id) => (await library()).remove(id),
+    ping: async () => (await library()).ping(),
+    close: async () => {
+      closed = true;
+      const lib = opened ?? (await opening?.catch(() => undefined));
+      opened = undefined;
+      await lib?.close();
+    },
+  };
+}
