@@ -2,6 +2,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { analyzeSpectrum } from '../../src/analysis.js';
 import { createBatchRunner } from '../../src/cli/batch-pool.js';
 import { formatDelimited } from '../../src/spectrum/index.js';
 import { cli, syntheticCsv, type KnownComplex } from '../analysis/helpers.js';
@@ -59,6 +60,12 @@ describe('analyze on worker threads', () => {
       expect(asked.threads).toBe(2);
       const rows = await asked.run({ file: join(dir, 'two.csv'), cwd: dir, options: { ion: 'Cr3+' }, expandColumns: true, json: false });
       expect(rows.map((r) => r.summary.file)).toEqual([`${join(dir, 'two.csv')}#1 (A)`, `${join(dir, 'two.csv')}#2 (B)`]);
+      // Bytes in, analysis out (library add of many files): what analyzeSpectrum gives on this thread.
+      const content = readFileSync(join(dir, 's3.csv'));
+      const options = { ion: 'Cr3+', fileName: 's3.csv' };
+      expect(JSON.stringify(await asked.analyze({ content, options }))).toBe(JSON.stringify({ result: analyzeSpectrum(content, options) }));
+      const failed = await asked.analyze({ content: readFileSync(join(dir, 'broken.csv')), options: { ion: 'Cr3+', fileName: 'broken.csv' } });
+      expect(failed).toMatchObject({ error: { code: 'parse-error', path: 'broken.csv' } });
     } finally {
       await asked.close();
     }
