@@ -117,7 +117,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
     const result = analyzeSpectrum(content, options);
     const saved = await withLibrary(values, io, (library) => library.add({ ...details, fileName: basename(file), content, options, result }));
     if (values.json) io.stdout(`${JSON.stringify(saved, null, 2)}\n`);
-    else io.stdout(savedText(saved));
+    else io.stdout(`saved #${saved.id} "${saved.sample}"${saved.ion ? ` (${saved.ion})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`);
     return 0;
   },
 
@@ -249,6 +249,7 @@ export async function withLibrary<T>(flags: LibraryFlags | string | undefined, i
   }
 }
 
+/** The line `library add` prints for a saved record (as the one-file add does). */
 function savedText(saved: AnalysisRecord): string {
   return `saved #${saved.id} "${saved.sample}"${saved.ion ? ` (${saved.ion})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`;
 }
