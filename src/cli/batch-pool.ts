@@ -37,7 +37,8 @@ export const MIN_FILES_FOR_WORKERS = 8;
  * MB. V8 grows it with the allocation rate, up to about 48 MB a thread, so
  * without a cap a long batch ends at a higher peak memory than a short one
  * (measured: 136 MB for 100 files, 177 MB for 1 000); at 8 MB, 120 and
- * 130 MB, with the same CPU time (bench/batch.ts).
+ * 130 MB, with the same CPU time (bench/batch.ts). The old generation is
+ * kept in check by a collection every few hundred files (worker-gc.ts).
  */
 export const WORKER_YOUNG_GENERATION_MB = 8;
 

@@ -7,9 +7,18 @@
  */
 import { analyzeContent, type AnalyzeContentTask, type ContentOutcome } from './batch-analyze.js';
 import { analyzeBatchFile, type BatchFileTask, type BatchRow } from './batch-rows.js';
+import { collectEvery } from './worker-gc.js';
 
 export type WorkerTask = { rows: BatchFileTask } | { analyze: AnalyzeContentTask };
 
+/** Files between two full collections (see worker-gc.ts). */
+const TASKS_PER_COLLECTION = 200;
+const afterTask = collectEvery(TASKS_PER_COLLECTION);
+
 export default function runBatchTask(task: WorkerTask): BatchRow[] | ContentOutcome {
-  return 'rows' in task ? analyzeBatchFile(task.rows) : analyzeContent(task.analyze);
+  try {
+    return 'rows' in task ? analyzeBatchFile(task.rows) : analyzeContent(task.analyze);
+  } finally {
+    afterTask();
+  }
 }
