@@ -60,6 +60,7 @@ export const analyzeCommand: Command = {
     const { values, positionals } = parseCommandArgs(json.argv, OPTIONS, true);
     if (positionals.length === 0) throw new FieldgapError('invalid-argument', 'give at least one spectrum file or folder', 'FILES');
     const options = analysisOptions(values);
+    const threads = numberOption('threads', values.threads, { min: 1, max: 1024, integer: true });
     const csvOutput: OutputFile | undefined = values.csv === undefined ? undefined : { option: '--csv', path: values.csv, firstLine: CSV_COLUMNS.join(',') };
     const jsonOutput: OutputFile | undefined = json.jsonFile === undefined ? undefined : { option: '--json', path: json.jsonFile };
     const outputs = [csvOutput, jsonOutput].filter((o) => o !== undefined);
@@ -79,7 +80,6 @@ export const analyzeCommand: Command = {
 
     // Rows are written as files finish, in list order; no more than a window of results is held at a time.
     const progress = createProgress(files.length, io.isTty, io.stderr);
-    const threads = numberOption('threads', values.threads, { min: 1, max: 1024, integer: true });
     const runner = onlyFile !== undefined ? inThreadRunner() : await createBatchRunner(files.length, threads, threads !== undefined);
     const wantJson = jsonOutput !== undefined || json.jsonFlag;
     const opened: Array<{ close: () => void }> = [];
