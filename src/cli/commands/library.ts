@@ -43,8 +43,10 @@ const USAGE = `Usage: fieldgap library SUBCOMMAND [options] [--data DIR | --data
 The results library: analyses saved with their original file (kept byte for
 byte, with its SHA-256), options, results and the fieldgap version.
 
-  library add FILE [analysis options] [details] [--json]
-                             analyse FILE and save it
+  library add FILE... [analysis options] [details] [--json]
+                             analyse each FILE and save it (many files: one
+                             record each, named after its file; a file that
+                             fails is reported and the others are saved)
   library list [--query Q] [--ion I] [--limit N] [--offset N] [--json]
                              newest first; Q words must all match sample,
                              formula, ion, ligands, solvent or note
@@ -103,6 +105,7 @@ type Handler = (argv: string[], io: CliIo) => Promise<number>;
 const SUBCOMMANDS: Record<string, Handler> = {
   add: async (argv, io) => {
     const { values, positionals } = parseCommandArgs(argv, { ...ANALYSIS_OPTIONS, ...DETAIL_OPTIONS, ...DATA, corrections: { type: 'string' }, json: { type: 'boolean' } }, true);
+    if (positionals.length > 1) return addMany(positionals, values, io);
     const file = onePositional(positionals, 'FILE');
     const options = analysisOptionsFrom(values);
     if (values.corrections !== undefined) options.corrections = correctionsFrom(values.corrections, io);
@@ -244,6 +247,68 @@ export async function withLibrary<T>(flags: LibraryFlags | string | undefined, i
   } finally {
     await library.close();
   }
+}
+
+/** The line `library add` prints for a saved record (as the one-file add does). */
+function savedText(saved: AnalysisRecord): string {
+  return `saved #${saved.id} "${saved.sample}"${saved.ion ? ` (${saved.ion})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`;
+}
+
+type AddValues = Parameters<typeof analysisOptionsFrom>[0] & DetailValues & LibraryFlags & { corrections?: string; json?: boolean };
+
+/**
+ * `library add FILE FILE...`: every file in one process, into one open
+ * library, each its own record (sample named after its file). The analyses
+ * run on the batch pool (every core); records are saved and printed in the
+ * order of the files. A file that cannot be read or analysed is reported on
+ * stderr and the others go on (exit 1); with --json the saved records are
+ * printed as one JSON array, each as it is saved.
+ */
+async function addMany(files: string[], values: AddValues, io: CliIo): Promise<number> {
+  if (values.sample !== undefined) throw invalidArgument('--sample', `--sample names one file's record; ${files.length} files were given (each is named after its file)`);
+  if (values.corrections !== undefined) throw invalidArgument('--corrections', `--corrections belong to one spectrum; ${files.length} files were given`);
+  const options = analysisOptionsFrom(values);
+  fillFromFormula(values.formula, options, {}, io);
+  const [{ createBatchRunner }, { runInOrder }, { resultOf }] = await Promise.all([import('../batch-pool.js'), import('../batch-run.js'), import('../batch-analyze.js')]);
+  let failed = 0;
+  let saved = 0;
+  await withLibrary(values, io, async (library) => {
+    const runner = await createBatchRunner(files.length);
+    try {
+      if (values.json) io.stdout('[');
+      // Read on this thread (the library keeps the bytes), analysed on the pool; a read error is the file's outcome.
+      const analyse = async (file: string) => {
+        try {
+          const content = readInputFile(file, io.cwd);
+          const fileOptions = { ...options, fileName: basename(file) };
+          return { content, fileOptions, outcome: await runner.analyze({ content, options: fileOptions }) };
+        } catch (error) {
+          return { error };
+        }
+      };
+      await runInOrder(files, analyse, async (done, file) => {
+        try {
+          if ('error' in done) throw done.error;
+          const details = detailsFrom(values, file);
+          fillFromFormula(values.formula, {}, details, { ...io, stderr: () => {} });
+          const record = await library.add({ ...details, fileName: basename(file), content: done.content, options: done.fileOptions, result: resultOf(done.outcome) });
+          if (values.json) io.stdout(`${saved > 0 ? ',' : ''}\n  ${JSON.stringify(record, null, 2).replaceAll('\n', '\n  ')}`);
+          else io.stdout(savedText(record));
+          saved++;
+        } catch (error) {
+          if (!(error instanceof FieldgapError)) throw error;
+          failed++;
+          const where = error.path && error.path !== file && error.path !== basename(file) ? `${error.path}: ` : '';
+          io.stderr(`fieldgap library: ${file}: not saved: ${where}${error.message}\n`);
+        }
+      }, runner.threads * 4);
+      if (values.json) io.stdout(saved > 0 ? '\n]\n' : ']\n');
+    } finally {
+      await runner.close();
+    }
+  });
+  if (!values.json) io.stdout(`${saved} of ${files.length} files saved${failed ? `, ${failed} failed` : ''}.\n`);
+  return failed > 0 ? 1 : 0;
 }
 
 function onePositional(positionals: string[], name: string): string {
