@@ -39,6 +39,10 @@ export interface FitBandsOptions {
   weights?: Float64Array;
   /** 'auto': the edge is tried on and off; true: always (as given); false: never. @default 'auto' */
   edgeMode?: 'auto' | boolean;
+  /** A band whose position deviation exceeds this fraction of its FWHM is undetermined and dropped. @default 0.5 */
+  uncertainFraction?: number;
+  /** How far below the low end a band centre may lie, fraction of its FWHM (RefineBandsOptions). @default 0 */
+  beyondLowEnd?: number;
   /** Polynomial of baselineGuess (see RefineBandsOptions); fitBands fits it once for all its trial models. */
   baselineStart?: Float64Array;
 }
@@ -69,7 +73,7 @@ function refine(
 ): RefineBandsResult {
   return xyRefineBands(x, y, {
     bands, edge, baselineGuess: o.baselineGuess, baselineOrder: o.baselineOrder, ...(o.baselineStart ? { baselineStart: o.baselineStart } : {}),
-    weights: o.weights ?? weightsFromNoise(o.noise), maxIterations, chiSquareTolerance,
+    weights: o.weights ?? weightsFromNoise(o.noise), maxIterations, chiSquareTolerance, beyondLowEnd: o.beyondLowEnd ?? 0,
   });
 }
 
@@ -106,7 +110,7 @@ export function xNearestIndex(x: Float64Array, v: number): number {
  * components sharing one band are both uncertain, and one of them is
  * needed. Returns the kept bands, or null when all are kept.
  */
-function prune(fit: RefineBandsResult, x: Float64Array, noise: Float64Array, narrowFwhm: number): GaussianParameters[] | null {
+function prune(fit: RefineBandsResult, x: Float64Array, noise: Float64Array, narrowFwhm: number, uncertainFraction = 0.5): GaussianParameters[] | null {
   const keep: GaussianParameters[] = [];
   const uncertain: GaussianParameters[] = [];
   let changed = false;
@@ -118,7 +122,7 @@ function prune(fit: RefineBandsResult, x: Float64Array, noise: Float64Array, nar
     if (weak || duplicate) changed = true;
     else {
       keep.push(b);
-      if (Number.isFinite(sd) && sd > 0.5 * b.fwhm) uncertain.push(b);
+      if (Number.isFinite(sd) && sd > uncertainFraction * b.fwhm) uncertain.push(b);
     }
   }
   if (!changed && uncertain.length > 0) {
@@ -159,7 +163,7 @@ export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOpti
   const edge0 = ctx.mode === false ? null : o.edge;
   let fit = refine(x, y, start, edge0, o);
   for (let loop = 0; loop < 3; loop++) {
-    const kept = prune(fit, x, o.noise, o.narrowFwhm);
+    const kept = prune(fit, x, o.noise, o.narrowFwhm, o.uncertainFraction);
     if (kept === null) break;
     fit = refine(x, y, kept, fit.edge, o);
   }
@@ -174,7 +178,7 @@ export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOpti
       .sort((a, b) => b.height * Math.sqrt(b.fwhm) - a.height * Math.sqrt(a.fwhm))[0];
     if (extra === undefined) break;
     const trial = refine(x, y, [...fit.bands, { position: extra.position, height: extra.height, fwhm: extra.fwhm }].sort((a, b) => a.position - b.position), fit.edge, o);
-    if (prune(trial, x, o.noise, o.narrowFwhm) !== null || ctx.score(trial) >= ctx.score(fit) - BIC_MARGIN) break;
+    if (prune(trial, x, o.noise, o.narrowFwhm, o.uncertainFraction) !== null || ctx.score(trial) >= ctx.score(fit) - BIC_MARGIN) break;
     fit = trial;
   }
   if (added > 0) fit = simplify(ctx, fit);

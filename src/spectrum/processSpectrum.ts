@@ -32,10 +32,12 @@ import { bandsFromFit } from './bandsFromFit.js';
 import { fitBands } from './fitBands.js';
 import { gaussianValue } from './gaussian.js';
 import { spectrumToEnergy } from './spectrumToEnergy.js';
-import type { MaskReason, ProcessedSpectrum, Spectrum } from './types.js';
+import type { MaskReason, ProcessedSpectrum, Spectrum, StepCorrection } from './types.js';
 import { xNoiseFromSecondDifferences, xNoiseLocal } from './xNoise.js';
+import { xQuantizationStep } from './xQuantizationStep.js';
 import { xyCorrectDetectorSteps, xyFindDetectorSteps } from './xyDetectorSteps.js';
 import { xyFindBandCandidates } from './xyFindBandCandidates.js';
+import { xyLowEndBandCandidate } from './xyLowEndBandCandidate.js';
 import { xyLowerHull } from './xyLowerHull.js';
 import { maskAroundStep, xyMaskedRegions, xyMaskPoints } from './xyMask.js';
 import { xPolynomialValues } from './xyPolynomial.js';
@@ -67,6 +69,16 @@ export interface ProcessSpectrumOptions {
   maxBands?: number;
   /** Most grid points (sets the coarsest grid step). @default 400 */
   maxGridPoints?: number;
+  /**
+   * Relative shape error of the Gaussian band model: real bands are
+   * asymmetric and carry unresolved components, so on smooth data (rounded,
+   * smoothed or noise-free: see isSmooth) the fit's σ at each point is the
+   * noise combined with this fraction of the band signal there (the data
+   * above the lower hull), and a band whose position is uncertain by more
+   * than a fifth of its FWHM (not half) is dropped; it is what keeps a band's asymmetry from being
+   * read as extra bands. @default 0.03
+   */
+  shapeError?: number;
   /** Override classification thresholds. @default defaultThresholds(geometry) */
   thresholds?: Partial<ClassificationThresholds>;
 }
@@ -74,7 +86,7 @@ export interface ProcessSpectrumOptions {
 export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOptions = {}): ProcessedSpectrum {
   const {
     concentration, pathLength = 1, geometry, saturationLimit = 3, correctSteps = true, baselineOrder = 1, uvEdge = 'auto',
-    broadFwhm = 2500, narrowFwhm = 600, maxBands = 8, maxGridPoints = 400,
+    broadFwhm = 2500, narrowFwhm = 600, maxBands = 8, maxGridPoints = 400, shapeError = 0.03,
   } = options;
   checkOptions(options, baselineOrder, pathLength);
   if (spectrum.metadata['jcampForm'] === 'PEAK TABLE') {
@@ -88,20 +100,24 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const energy = spectrumToEnergy(spectrum, concentration, pathLength);
   const { x } = energy;
   let signal = energy.signal;
+  // Rounded exports: the rounding step sets a floor under the noise (before any step correction moves values off its grid).
+  const quantum = xQuantizationStep(signal);
   const rawNoise = xNoiseFromSecondDifferences(signal.filter(Number.isFinite));
   const reasons: Array<MaskReason | null> = energy.absorbance === null
     ? new Array<MaskReason | null>(x.length).fill(null)
     : xyMaskPoints(energy.absorbance, { saturationLimit, negativeLimit: options.negativeLimit ?? Math.max(5 * rawNoise, 0.01) });
   if (energy.absorbance === null) warnings.push('ε without a concentration: saturation and negative absorbance were not checked');
+  const stepCorrections: StepCorrection[] = [];
   if (correctSteps) {
     const finite = reasons.map((r, i) => r === null && Number.isFinite(signal[i] as number));
-    const steps = xyFindDetectorSteps(x, signal.map((v, i) => (finite[i] ? v : 0)));
+    const steps = xyFindDetectorSteps(x, signal.map((v, i) => (finite[i] ? v : 0)), { noiseFloor: quantum / Math.sqrt(12), minSize: 4 * quantum });
     const real = steps.filter((s) => finite[s.index] && finite[s.index + 1]);
     if (real.length > 0) {
       signal = xyCorrectDetectorSteps(signal, real);
       for (const s of real) {
         maskAroundStep(reasons, s.index);
-        warnings.push(`corrected a step of ${s.size.toPrecision(3)} at ${s.position.toFixed(0)} cm-1 (${(1e7 / s.position).toFixed(1)} nm), a lamp or detector change-over`);
+        stepCorrections.push({ position: s.position, wavelength: 1e7 / s.position, size: s.size, significance: s.significance });
+        warnings.push(`corrected a step of ${s.size.toPrecision(3)} at ${s.position.toFixed(0)} cm-1 (${(1e7 / s.position).toFixed(1)} nm), a lamp or detector change-over (${s.significance.toFixed(0)} noise deviations; switch off with no step correction)`);
       }
     }
   }
@@ -112,13 +128,14 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const { y: onGrid, counts } = xyResampleUniformWithCounts(x, signal, kept, grid, { slopeCorrected: true });
   const fx = grid.filter((_, i) => Number.isFinite(onGrid[i] as number));
   const fy = onGrid.filter(Number.isFinite);
-  const localNoise = gridNoise(x, signal, kept, grid, onGrid, counts);
+  const measuredNoise = gridNoise(x, signal, kept, grid, onGrid, counts);
+  const localNoise = measuredNoise.map((s) => Math.hypot(s, quantum / Math.sqrt(12)));
   const noise = median(localNoise);
   const range: [number, number] = [x[0] as number, x[x.length - 1] as number];
   const empty = (): ProcessedSpectrum => ({
     points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid,
     baseline: new Float64Array(grid.length), model: new Float64Array(grid.length), signalUnit: energy.signalUnit, bands: [],
-    edge: null, noise, fit: { points: fx.length, parameters: 0, rms: 0, iterations: 0, converged: true }, warnings,
+    edge: null, noise, quantization: quantum, stepCorrections, fit: { points: fx.length, parameters: 0, rms: 0, iterations: 0, converged: true }, warnings,
   });
   if (fx.length < 10) {
     warnings.push(`only ${fx.length} grid points left after masking: no bands fitted`);
@@ -128,12 +145,23 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const hull = xyLowerHull(fx, fy);
   const lifted = Float64Array.from(fy, (v, i) => v - (hull[i] as number));
   const edge = chooseEdge(fx, fy, hull, noise, uvEdge);
-  const candidates = xyFindBandCandidates(fx, lifted, { noise: localNoise, broadFwhm, narrowFwhm, narrow: false });
+  // The fit's σ: measurement and rounding noise, plus, on smooth data, the shape error of a Gaussian band model on real bands.
+  const smooth = isSmooth(median(measuredNoise), quantum, fy);
+  const lowest = fy.reduce((m, v) => Math.min(m, v), Number.POSITIVE_INFINITY);
+  const sigma = Float64Array.from(localNoise, (s, i) => Math.hypot(s, smooth ? shapeError * Math.max(lifted[i] as number, 0) : 0));
+  const candidates = xyFindBandCandidates(fx, lifted, { noise: sigma, broadFwhm, narrowFwhm, narrow: false });
+  // A band whose maximum lies at or beyond the red end has no maximum of its own to find: propose it, and start the baseline under it.
+  let baselineGuess = hull;
+  const lowEnd = xyLowEndBandCandidate(fx, fy, { noise: localNoise });
+  if (lowEnd !== null && candidates.every((c) => c.position > (fx[0] as number) + 0.5 * lowEnd.fwhm)) {
+    candidates.unshift({ ...lowEnd, pass: 'broad' });
+    baselineGuess = Float64Array.from(hull, (h, i) => Math.max(Math.min(h, (fy[i] as number) - gaussianValue(fx[i] as number, lowEnd.position, lowEnd.height, lowEnd.fwhm)), lowest));
+  }
   if (candidates.length === 0 && edge === null) {
     warnings.push('no band stands out of the noise');
     return empty();
   }
-  const fit = fitBands(fx, fy, { candidates, edge, baselineGuess: hull, baselineOrder, noise: localNoise, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
+  const fit = fitBands(fx, fy, { candidates, edge, baselineGuess, baselineOrder, noise: sigma, beyondLowEnd: BEYOND_LOW_END, uncertainFraction: smooth ? 0.2 : 0.5, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
   const polynomial = (xs: Float64Array) => xPolynomialValues(xs, fit.baselineCoefficients, fit.scale);
   const baseline = polynomial(grid);
   if (fit.edge !== null) for (let i = 0; i < grid.length; i++) baseline[i] = (baseline[i] as number) + gaussianValue(grid[i] as number, fit.edge.position, fit.edge.height, fit.edge.fwhm);
@@ -143,18 +171,28 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const thresholds = { ...defaultThresholds(geometry), ...options.thresholds };
   const edgeAt = (v: number) => (fit.edge === null ? 0 : gaussianValue(v, fit.edge.position, fit.edge.height, fit.edge.fwhm));
   const { bands, relative } = bandsFromFit(fit.bands, {
-    epsilonPerSignal, positionSd: fit.positionSd, noise, gridStep: step, thresholds,
+    epsilonPerSignal, positionSd: fit.positionSd, noise, gridStep: step, thresholds, range,
     baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
   });
   if (!fit.converged) warnings.push(`the band fit stopped after ${fit.iterations} iterations without converging: treat the band parameters with care`);
   if (relative && bands.length > 0) warnings.push('no concentration given: bands classified by relative intensity and width only');
+  for (const b of bands) {
+    if (b.window === 'inside') continue;
+    const where = b.window.endsWith('red-end') ? `red (low-energy) end, ${Math.round(range[0])} cm-1` : `blue (high-energy) end, ${Math.round(range[1])} cm-1`;
+    warnings.push(b.maximumInWindow
+      ? `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum near the ${where}: its far side is not measured, so its centre is less certain (± ${b.positionUncertainty.toFixed(0)} cm-1)`
+      : `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum outside the measured range, beyond the ${where}: its centre is estimated from its flank (± ${b.positionUncertainty.toFixed(0)} cm-1)`);
+  }
   if (fit.edge !== null) warnings.push(`a UV absorption edge was modelled (a Gaussian tail centred at ${fit.edge.position.toFixed(0)} cm-1, above the measured range)`);
   return {
     points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid, baseline, model,
-    signalUnit: energy.signalUnit, bands, edge: fit.edge, noise,
+    signalUnit: energy.signalUnit, bands, edge: fit.edge, noise, quantization: quantum, stepCorrections,
     fit: { points: fx.length, parameters: fit.parameters, rms: fit.rms, iterations: fit.iterations, converged: fit.converged }, warnings,
   };
 }
+
+/** A band centre may lie up to this fraction of its FWHM below the low-energy end of the range. */
+const BEYOND_LOW_END = 0.6;
 
 /**
  * An edge is modelled when the last 10 % of the kept range rises by more
@@ -175,6 +213,24 @@ function chooseEdge(x: Float64Array, y: Float64Array, hull: Float64Array, noise:
   if (mode === 'auto' && !(rise > 5 * noise && endSlope > 2 * Math.max(meanSlope, 0))) return null;
   const atEnd = Math.max(rise, 5 * noise);
   return { position, fwhm, height: atEnd / gaussianValue(end, position, 1, fwhm) };
+}
+
+/**
+ * Data are smooth when their measured noise is no more than the rounding
+ * noise (1.5 q/√12), or, unrounded, under 2·10⁻⁴ of their range (smoothed
+ * or computed data). On such data the noise says nothing about how well
+ * Gaussians can describe real, asymmetric bands, and the band model's shape
+ * error must be allowed for; on noisy data the noise dominates it.
+ */
+function isSmooth(measured: number, quantum: number, y: Float64Array): boolean {
+  if (quantum > 0) return measured <= 1.5 * quantum / Math.sqrt(12);
+  let min = Number.POSITIVE_INFINITY;
+  let max = Number.NEGATIVE_INFINITY;
+  for (const v of y) {
+    min = Math.min(min, v);
+    max = Math.max(max, v);
+  }
+  return measured < 2e-4 * (max - min);
 }
 
 /**

@@ -12,11 +12,20 @@ export interface DetectorStep {
   size: number;
   /** Wavenumber midway across the jump, cm-1. */
   position: number;
+  /** |size| in noise deviations of the jump. */
+  significance: number;
 }
 
 export interface FindDetectorStepsOptions {
-  /** A jump must exceed this many of its own noise deviations. @default 6 */
+  /**
+   * A jump must exceed this many of its own noise deviations: a correction
+   * changes the user's data, so only overwhelming evidence counts. @default 12
+   */
   threshold?: number;
+  /** Lower bound of the noise deviation of one point (the rounding noise q/√12 of rounded data). @default 0 */
+  noiseFloor?: number;
+  /** A jump must also be at least this large (several rounding steps: one step of the rounding is no evidence). @default 0 */
+  minSize?: number;
   /** A jump must also exceed this fraction of y's range (ignores rounding steps). @default 0.003 */
   minRelativeSize?: number;
   /** Points in the straight line fitted on each side. @default 8 */
@@ -38,7 +47,7 @@ export interface FindDetectorStepsOptions {
  * edge or a one-point spike fails one of these.
  */
 export function xyFindDetectorSteps(x: Float64Array, y: Float64Array, options: FindDetectorStepsOptions = {}): DetectorStep[] {
-  const { threshold = 6, minRelativeSize = 0.003, side = 8, maxSteps = 3 } = options;
+  const { threshold = 12, minRelativeSize = 0.003, side = 8, maxSteps = 3, noiseFloor = 0, minSize = 0 } = options;
   const n = y.length;
   if (n < 2 * side + 2) return [];
   const noise = xNoiseLocal(y);
@@ -54,11 +63,11 @@ export function xyFindDetectorSteps(x: Float64Array, y: Float64Array, options: F
     const xm = ((x[i] as number) + (x[i + 1] as number)) / 2;
     const left = lineAt(x, y, i - side + 1, i + 1, xm);
     const right = lineAt(x, y, i + 1, i + side + 1, xm);
-    const sigma = Math.max(noise[i] as number, noise[i + 1] as number, 1e-300);
+    const sigma = Math.max(noise[i] as number, noise[i + 1] as number, noiseFloor, 1e-300);
     jump[i] = right.value - left.value;
     score[i] = Math.abs(jump[i] as number) / (sigma * Math.sqrt(left.leverage + right.leverage));
   }
-  const floor = minRelativeSize * (max - min);
+  const floor = Math.max(minRelativeSize * (max - min), minSize);
   const steps: DetectorStep[] = [];
   for (let i = side - 1; i < n - side; i++) {
     const j = jump[i] as number;
@@ -76,7 +85,7 @@ export function xyFindDetectorSteps(x: Float64Array, y: Float64Array, options: F
       ? lineAt(x, y, i + 2, i + side + 2, xm).value - lineAt(x, y, i - side, i, xm).value
       : j;
     if (Math.sign(outer) === Math.sign(j) && Math.abs(outer) >= 0.5 * Math.abs(j)) {
-      steps.push({ index: i, size: j, position: ((x[i] as number) + (x[i + 1] as number)) / 2 });
+      steps.push({ index: i, size: j, position: ((x[i] as number) + (x[i + 1] as number)) / 2, significance: score[i] as number });
     }
   }
   steps.sort((a, b) => Math.abs(b.size) - Math.abs(a.size));
