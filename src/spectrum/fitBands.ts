@@ -39,6 +39,14 @@ export interface FitBandsOptions {
   weights?: Float64Array;
   /** 'auto': the edge is tried on and off; true: always (as given); false: never. @default 'auto' */
   edgeMode?: 'auto' | boolean;
+  /**
+   * Smallest height of a broad band added from the residual (step 4), as a
+   * fraction of the tallest band. On smooth data a broad residual of a few
+   * per cent is the band model's shape error (real bands are not
+   * Gaussian), so smooth data set this to 0.1; narrow bands (spin-forbidden
+   * lines) are not held to it. @default 0
+   */
+  minAddedFraction?: number;
   /** A band whose position deviation exceeds this fraction of its FWHM is undetermined and dropped. @default 0.5 */
   uncertainFraction?: number;
   /** How far below the low end a band centre may lie, fraction of its FWHM (RefineBandsOptions). @default 0 */
@@ -175,6 +183,7 @@ export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOpti
     const extra = xyFindBandCandidates(x, r, { noise: o.noise, broadFwhm: o.broadFwhm, narrowFwhm: o.narrowFwhm, significance: 5 })
       .filter((c) => fit.bands.every((b) => Math.abs(b.position - c.position) > 0.15 * b.fwhm))
       .filter((c) => !atLowEnd(c, xMin) && !(ctx.mode !== false && edgeLike(c, xMax, o.broadFwhm)))
+      .filter((c) => c.fwhm < 2 * o.narrowFwhm || c.height >= (o.minAddedFraction ?? 0) * fit.bands.reduce((m, b) => Math.max(m, b.height), 0))
       .sort((a, b) => b.height * Math.sqrt(b.fwhm) - a.height * Math.sqrt(a.fwhm))[0];
     if (extra === undefined) break;
     const trial = refine(x, y, [...fit.bands, { position: extra.position, height: extra.height, fwhm: extra.fwhm }].sort((a, b) => a.position - b.position), fit.edge, o);

@@ -37,7 +37,7 @@ import { xNoiseFromSecondDifferences, xNoiseLocal } from './xNoise.js';
 import { xQuantizationStep } from './xQuantizationStep.js';
 import { xyCorrectDetectorSteps, xyFindDetectorSteps } from './xyDetectorSteps.js';
 import { xyFindBandCandidates } from './xyFindBandCandidates.js';
-import { xyLowEndBandCandidate } from './xyLowEndBandCandidate.js';
+import { xyHighEndBandCandidate, xyLowEndBandCandidate } from './xyEndBandCandidates.js';
 import { xyLowerHull } from './xyLowerHull.js';
 import { maskAroundStep, xyMaskedRegions, xyMaskPoints } from './xyMask.js';
 import { xPolynomialValues } from './xyPolynomial.js';
@@ -157,11 +157,14 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
     candidates.unshift({ ...lowEnd, pass: 'broad' });
     baselineGuess = Float64Array.from(hull, (h, i) => Math.max(Math.min(h, (fy[i] as number) - gaussianValue(fx[i] as number, lowEnd.position, lowEnd.height, lowEnd.fwhm)), lowest));
   }
+  // A maximum close to the blue end is a band, not part of the UV edge.
+  const highEnd = xyHighEndBandCandidate(fx, fy, { noise: localNoise });
+  if (highEnd !== null && candidates.every((c) => Math.abs(c.position - highEnd.position) > 0.5 * highEnd.fwhm)) candidates.push({ ...highEnd, pass: 'broad' });
   if (candidates.length === 0 && edge === null) {
     warnings.push('no band stands out of the noise');
     return empty();
   }
-  const fit = fitBands(fx, fy, { candidates, edge, baselineGuess, baselineOrder, noise: sigma, beyondLowEnd: BEYOND_LOW_END, uncertainFraction: smooth ? 0.2 : 0.5, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
+  const fit = fitBands(fx, fy, { candidates, edge, baselineGuess, baselineOrder, noise: sigma, beyondLowEnd: BEYOND_LOW_END, uncertainFraction: smooth ? 0.2 : 0.5, minAddedFraction: smooth ? 0.1 : 0, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
   const polynomial = (xs: Float64Array) => xPolynomialValues(xs, fit.baselineCoefficients, fit.scale);
   const baseline = polynomial(grid);
   if (fit.edge !== null) for (let i = 0; i < grid.length; i++) baseline[i] = (baseline[i] as number) + gaussianValue(grid[i] as number, fit.edge.position, fit.edge.height, fit.edge.fwhm);

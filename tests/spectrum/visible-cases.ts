@@ -24,8 +24,8 @@ export const NICKEL: VisibleCase = {
     concentration: 0.2, scatterAt400: 0.005, offset: 0.01,
     bands: [
       { position: 8500, epsilon: 2.0, fwhm: 3000 },
-      { position: 13_800, epsilon: 2.0, fwhm: 1900, skew: 1.1 },
-      { position: 15_300, epsilon: 1.8, fwhm: 1500, skew: 1.2 },
+      { position: 13_800, epsilon: 2.0, fwhm: 1600, skew: 1.1 },
+      { position: 15_300, epsilon: 1.8, fwhm: 1300, skew: 1.2 },
       { position: 25_300, epsilon: 5.0, fwhm: 3000, skew: 1.3 },
     ],
     chargeTransfer: { position: 50_000, fwhm: 9000, epsilon: 3000 },

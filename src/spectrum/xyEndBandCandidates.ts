@@ -86,3 +86,34 @@ function endSag(x: Float64Array, y: Float64Array, length: number): number {
   const c = det(withC) / d;
   return -c * 0.25;
 }
+
+/**
+ * A band whose maximum lies inside the range but close to its high-energy
+ * (blue) end, like the 3T1g(P) band of [Ni(H2O)6]2+ at 395 nm in a spectrum
+ * that starts at 380 nm: a smoothing second derivative loses it at the
+ * boundary, and an absorption edge must not take its place. Proposed when
+ * the highest point within `look` of the top lies inside that stretch, the
+ * data fall from it to the top of the range by more than `significance` σ,
+ * and rise to it from the lowest point before it by as much. The start: the
+ * maximum's position and height above that lowest point, FWHM twice the
+ * distance to where the data are half way down on the low-energy side.
+ */
+export function xyHighEndBandCandidate(x: Float64Array, y: Float64Array, options: LowEndCandidateOptions): GaussianParameters | null {
+  const { noise, look = 3000, significance = 10, fwhmLimits = [1000, 10000] } = options;
+  const n = x.length;
+  if (n < 10) return null;
+  const top = x[n - 1] as number;
+  let m = n - 1;
+  for (let i = n - 1; i >= 0 && top - (x[i] as number) <= look; i--) if ((y[i] as number) > (y[m] as number)) m = i;
+  const sigma = noise[m] as number;
+  const peak = y[m] as number;
+  if (m >= n - 2 || !(peak - (y[n - 1] as number) > significance * sigma)) return null;
+  let low = m;
+  for (let i = m; i >= 0 && (x[m] as number) - (x[i] as number) <= 2 * look; i--) if ((y[i] as number) < (y[low] as number)) low = i;
+  const rise = peak - (y[low] as number);
+  if (!(rise > significance * sigma)) return null;
+  let k = m;
+  while (k > low && (y[k] as number) > (y[low] as number) + 0.5 * rise) k--;
+  const fwhm = Math.min(Math.max(2 * ((x[m] as number) - (x[k] as number)), fwhmLimits[0]), fwhmLimits[1]);
+  return { position: x[m] as number, height: rise, fwhm };
+}
