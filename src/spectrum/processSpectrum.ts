@@ -79,6 +79,11 @@ export interface ProcessSpectrumOptions {
    * read as extra bands. @default 0.03
    */
   shapeError?: number;
+  /**
+   * The metal has no d–d transitions (d0 such as MnO4- or CrO4 2-, or d10):
+   * every band is charge transfer (or ligand). @default false
+   */
+  chargeTransferOnly?: boolean;
   /** Override classification thresholds. @default defaultThresholds(geometry) */
   thresholds?: Partial<ClassificationThresholds>;
 }
@@ -173,12 +178,13 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const epsilonPerSignal = energy.signalUnit === 'epsilon' ? 1 : concentration === undefined ? null : 1 / (concentration * pathLength);
   const thresholds = { ...defaultThresholds(geometry), ...options.thresholds };
   const edgeAt = (v: number) => (fit.edge === null ? 0 : gaussianValue(v, fit.edge.position, fit.edge.height, fit.edge.fwhm));
-  const { bands, relative } = bandsFromFit(fit.bands, {
+  const { bands: found, relative } = bandsFromFit(fit.bands, {
     epsilonPerSignal, positionSd: fit.positionSd, noise, gridStep: step, thresholds, range,
     baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
   });
+  const bands = options.chargeTransferOnly === true ? found.map((b) => ({ ...b, kind: 'charge-transfer' as const })) : found;
   if (!fit.converged) warnings.push(`the band fit stopped after ${fit.iterations} iterations without converging: treat the band parameters with care`);
-  if (relative && bands.length > 0) warnings.push('no concentration given: bands classified by relative intensity and width only');
+  if (relative && bands.length > 0 && options.chargeTransferOnly !== true) warnings.push('no concentration given: bands classified by relative intensity and width only');
   for (const b of bands) {
     if (b.window === 'inside') continue;
     const where = b.window.endsWith('red-end') ? `red (low-energy) end, ${Math.round(range[0])} cm-1` : `blue (high-energy) end, ${Math.round(range[1])} cm-1`;
