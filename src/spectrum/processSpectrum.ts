@@ -115,14 +115,18 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const stepCorrections: StepCorrection[] = [];
   if (correctSteps) {
     const finite = reasons.map((r, i) => r === null && Number.isFinite(signal[i] as number));
-    const steps = xyFindDetectorSteps(x, signal.map((v, i) => (finite[i] ? v : 0)), { noiseFloor: quantum / Math.sqrt(12), minSize: 4 * quantum });
+    // On data whose only noise is the rounding, a point's noise is q/√12 (a median of the discrete second differences says twice that).
+    const roundingOnly = quantum > 0 && rawNoise <= 2.5 * quantum / Math.sqrt(12);
+    const steps = xyFindDetectorSteps(x, signal.map((v, i) => (finite[i] ? v : 0)), {
+      noiseFloor: quantum / Math.sqrt(12), minSize: 4 * quantum, ...(roundingOnly && { pointNoise: quantum / Math.sqrt(12) }),
+    });
     const real = steps.filter((s) => finite[s.index] && finite[s.index + 1]);
     if (real.length > 0) {
       signal = xyCorrectDetectorSteps(signal, real);
       for (const s of real) {
         maskAroundStep(reasons, s.index);
         stepCorrections.push({ position: s.position, wavelength: 1e7 / s.position, size: s.size, significance: s.significance });
-        warnings.push(`corrected a step of ${s.size.toPrecision(3)} at ${s.position.toFixed(0)} cm-1 (${(1e7 / s.position).toFixed(1)} nm), a lamp or detector change-over (${s.significance.toFixed(0)} noise deviations; switch off with no step correction)`);
+        warnings.push(`corrected a step of ${s.size.toPrecision(3)} at ${s.position.toFixed(0)} cm-1 (${(1e7 / s.position).toFixed(1)} nm), a lamp or detector change-over (${s.significance.toFixed(0)} noise deviations; step correction can be switched off)`);
       }
     }
   }
@@ -150,18 +154,17 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const hull = xyLowerHull(fx, fy);
   const lifted = Float64Array.from(fy, (v, i) => v - (hull[i] as number));
   const edge = chooseEdge(fx, fy, hull, noise, uvEdge);
+  const lowest = fy.reduce((m, v) => Math.min(m, v), Number.POSITIVE_INFINITY);
+  // A band whose maximum lies at or beyond the red end has no maximum of its own to find: it is proposed, and the baseline starts under it.
+  const lowEnd = xyLowEndBandCandidate(fx, fy, { noise: localNoise });
+  const baselineGuess = lowEnd === null
+    ? hull
+    : Float64Array.from(hull, (h, i) => Math.max(Math.min(h, (fy[i] as number) - gaussianValue(fx[i] as number, lowEnd.position, lowEnd.height, lowEnd.fwhm)), lowest));
   // The fit's σ: measurement and rounding noise, plus, on smooth data, the shape error of a Gaussian band model on real bands.
   const smooth = isSmooth(median(measuredNoise), quantum, fy);
-  const lowest = fy.reduce((m, v) => Math.min(m, v), Number.POSITIVE_INFINITY);
-  const sigma = Float64Array.from(localNoise, (s, i) => Math.hypot(s, smooth ? shapeError * Math.max(lifted[i] as number, 0) : 0));
+  const sigma = Float64Array.from(localNoise, (s, i) => Math.hypot(s, smooth ? shapeError * Math.max((fy[i] as number) - (baselineGuess[i] as number), 0) : 0));
   const candidates = xyFindBandCandidates(fx, lifted, { noise: sigma, broadFwhm, narrowFwhm, narrow: false });
-  // A band whose maximum lies at or beyond the red end has no maximum of its own to find: propose it, and start the baseline under it.
-  let baselineGuess = hull;
-  const lowEnd = xyLowEndBandCandidate(fx, fy, { noise: localNoise });
-  if (lowEnd !== null && candidates.every((c) => c.position > (fx[0] as number) + 0.5 * lowEnd.fwhm)) {
-    candidates.unshift({ ...lowEnd, pass: 'broad' });
-    baselineGuess = Float64Array.from(hull, (h, i) => Math.max(Math.min(h, (fy[i] as number) - gaussianValue(fx[i] as number, lowEnd.position, lowEnd.height, lowEnd.fwhm)), lowest));
-  }
+  if (lowEnd !== null && candidates.every((c) => c.position > (fx[0] as number) + 0.5 * lowEnd.fwhm)) candidates.unshift({ ...lowEnd, pass: 'broad' });
   // A maximum close to the blue end is a band, not part of the UV edge.
   const highEnd = xyHighEndBandCandidate(fx, fy, { noise: localNoise });
   if (highEnd !== null && candidates.every((c) => Math.abs(c.position - highEnd.position) > 0.5 * highEnd.fwhm)) candidates.push({ ...highEnd, pass: 'broad' });
@@ -232,14 +235,13 @@ function chooseEdge(x: Float64Array, y: Float64Array, hull: Float64Array, noise:
  * error must be allowed for; on noisy data the noise dominates it.
  */
 function isSmooth(measured: number, quantum: number, y: Float64Array): boolean {
-  if (quantum > 0) return measured <= 1.5 * quantum / Math.sqrt(12);
   let min = Number.POSITIVE_INFINITY;
   let max = Number.NEGATIVE_INFINITY;
   for (const v of y) {
     min = Math.min(min, v);
     max = Math.max(max, v);
   }
-  return measured < 2e-4 * (max - min);
+  return measured <= Math.max(1.5 * quantum / Math.sqrt(12), 2e-4 * (max - min));
 }
 
 /**

@@ -24,6 +24,8 @@ export interface FindDetectorStepsOptions {
   threshold?: number;
   /** Lower bound of the noise deviation of one point (the rounding noise q/√12 of rounded data). @default 0 */
   noiseFloor?: number;
+  /** The noise deviation of every point when known (rounded smooth data: q/√12); else estimated locally (xNoiseLocal). */
+  pointNoise?: number;
   /** A jump must also be at least this large (several rounding steps: one step of the rounding is no evidence). @default 0 */
   minSize?: number;
   /** A jump must also exceed this fraction of y's range (ignores rounding steps). @default 0.003 */
@@ -47,10 +49,10 @@ export interface FindDetectorStepsOptions {
  * edge or a one-point spike fails one of these.
  */
 export function xyFindDetectorSteps(x: Float64Array, y: Float64Array, options: FindDetectorStepsOptions = {}): DetectorStep[] {
-  const { threshold = 12, minRelativeSize = 0.003, side = 8, maxSteps = 3, noiseFloor = 0, minSize = 0 } = options;
+  const { threshold = 8, minRelativeSize = 0.003, side = 8, maxSteps = 3, noiseFloor = 0, minSize = 0 } = options;
   const n = y.length;
   if (n < 2 * side + 2) return [];
-  const noise = xNoiseLocal(y);
+  const noise = options.pointNoise === undefined ? xNoiseLocal(y) : new Float64Array(n).fill(options.pointNoise);
   let min = Number.POSITIVE_INFINITY;
   let max = Number.NEGATIVE_INFINITY;
   for (const v of y) {
