@@ -83,8 +83,11 @@ function isChargeTransferByEpsilon(band: ClassifiableBand & { epsilon: number },
  * Kinds of all bands of a spectrum: by ε when every band has one, else by
  * height relative to the others and by width (`relative` is then true and
  * the caller should say so): a UV band ten times stronger than every band
- * below the UV edge is charge transfer; a narrow band under a quarter of the
- * strongest band below the edge is spin-forbidden.
+ * below the UV edge is charge transfer; a band under a quarter of the
+ * strongest band below the edge is spin-forbidden when it is narrow or
+ * under a tenth of it (the relative-intensity counterpart of ε below the
+ * spin-allowed range; a weak two-electron band such as 4A2g of
+ * octahedral Co(II) is counted with them, as its ε ≈ 0.5 would be).
  */
 export function bandsClassify(bands: ClassifiableBand[], t: ClassificationThresholds): { kinds: BandKind[]; relative: boolean } {
   if (bands.every((b) => b.epsilon !== null)) {
@@ -95,7 +98,7 @@ export function bandsClassify(bands: ClassifiableBand[], t: ClassificationThresh
   const visibleMax = Math.max(0, ...bands.filter((b) => b.position < t.uvEdge).map((b) => b.height));
   const kinds = bands.map((b): BandKind => {
     if (b.position >= t.uvEdge && b.fwhm >= 0.8 * t.broadFwhm && visibleMax > 0 && b.height >= t.relativeChargeTransfer * visibleMax) return 'charge-transfer';
-    if (b.fwhm < t.narrowFwhm && visibleMax > 0 && b.height < t.relativeSpinForbidden * visibleMax) return 'spin-forbidden';
+    if (visibleMax > 0 && b.height < t.relativeSpinForbidden * visibleMax && (b.fwhm < t.narrowFwhm || b.height < 0.4 * t.relativeSpinForbidden * visibleMax)) return 'spin-forbidden';
     return 'd-d';
   });
   return { kinds, relative: true };

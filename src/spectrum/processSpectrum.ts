@@ -163,7 +163,8 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   // The fit's σ: measurement and rounding noise, plus, on smooth data, the shape error of a Gaussian band model on real bands.
   const smooth = isSmooth(median(measuredNoise), quantum, fy);
   const sigma = Float64Array.from(localNoise, (s, i) => Math.hypot(s, smooth ? shapeError * Math.max((fy[i] as number) - (baselineGuess[i] as number), 0) : 0));
-  const candidates = xyFindBandCandidates(fx, lifted, { noise: sigma, broadFwhm, narrowFwhm, narrow: false });
+  // Candidates are judged by their curvature against the white noise; the shape error is smooth and enters the fit only.
+  const candidates = xyFindBandCandidates(fx, lifted, { noise: localNoise, broadFwhm, narrowFwhm, narrow: false });
   if (lowEnd !== null && candidates.every((c) => c.position > (fx[0] as number) + 0.5 * lowEnd.fwhm)) candidates.unshift({ ...lowEnd, pass: 'broad' });
   // A maximum close to the blue end is a band, not part of the UV edge.
   const highEnd = xyHighEndBandCandidate(fx, fy, { noise: localNoise });

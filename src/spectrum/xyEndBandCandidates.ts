@@ -46,10 +46,10 @@ export function xyLowEndBandCandidate(x: Float64Array, y: Float64Array, options:
     lowest = Math.min(lowest, v);
   }
   if (!(y0 - lowest > significance * sigma)) return null;
-  // A band's top is concave and a sloping baseline straight. A convex end is a band's flank only when it falls
-  // steeply (a baseline straight in nm is convex in cm-1, but falls gently).
+  // A band's top is concave, its flank near the half-height point straight. A convex end is a band's flank only
+  // when it falls steeply (a baseline straight in nm is convex in cm-1, but falls gently).
   const sag = endSag(x, y, 2 * look);
-  if (!(sag > 3 * sigma || (sag < -3 * sigma && y0 - lowest > 0.4 * (y0 - min)))) return null;
+  if (!(sag >= -3 * sigma || y0 - lowest > 0.5 * (y0 - min))) return null;
   const half = min + 0.5 * (y0 - min);
   let k = 1;
   while (k < n - 1 && (y[k] as number) > half) k++;
