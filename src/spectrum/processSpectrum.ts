@@ -108,13 +108,18 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   // Rounded exports: the rounding step sets a floor under the noise (before any step correction moves values off its grid).
   const quantum = xQuantizationStep(signal);
   const rawNoise = xNoiseFromSecondDifferences(signal.filter(Number.isFinite));
-  const reasons: Array<MaskReason | null> = energy.absorbance === null
+  const negativeLimit = options.negativeLimit ?? Math.max(5 * rawNoise, 0.01);
+  const maskOf = (absorbance: Float64Array | null, negative: number): Array<MaskReason | null> => (absorbance === null
     ? new Array<MaskReason | null>(x.length).fill(null)
-    : xyMaskPoints(energy.absorbance, { saturationLimit, negativeLimit: options.negativeLimit ?? Math.max(5 * rawNoise, 0.01) });
+    : xyMaskPoints(absorbance, { saturationLimit, negativeLimit: negative }));
   if (energy.absorbance === null) warnings.push('ε without a concentration: saturation and negative absorbance were not checked');
+  // Steps are sought before negative values are masked: a downward step near a zero baseline makes the data beyond it negative.
+  let absorbance = energy.absorbance;
   const stepCorrections: StepCorrection[] = [];
+  const stepIndices: number[] = [];
   if (correctSteps) {
-    const finite = reasons.map((r, i) => r === null && Number.isFinite(signal[i] as number));
+    const saturated = maskOf(absorbance, Number.POSITIVE_INFINITY);
+    const finite = saturated.map((r, i) => r === null && Number.isFinite(signal[i] as number));
     // On data whose only noise is the rounding, a point's noise is q/√12 (a median of the discrete second differences says twice that).
     const roundingOnly = quantum > 0 && rawNoise <= 2.5 * quantum / Math.sqrt(12);
     const steps = xyFindDetectorSteps(x, signal.map((v, i) => (finite[i] ? v : 0)), {
@@ -122,14 +127,18 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
     });
     const real = steps.filter((s) => finite[s.index] && finite[s.index + 1]);
     if (real.length > 0) {
+      const toAbsorbance = absorbance === null || absorbance === signal ? 1 : concentration! * pathLength;
       signal = xyCorrectDetectorSteps(signal, real);
+      if (absorbance !== null) absorbance = absorbance === energy.signal ? signal : xyCorrectDetectorSteps(absorbance, real.map((s) => ({ ...s, size: s.size * toAbsorbance })));
       for (const s of real) {
-        maskAroundStep(reasons, s.index);
+        stepIndices.push(s.index);
         stepCorrections.push({ position: s.position, wavelength: 1e7 / s.position, size: s.size, significance: s.significance });
         warnings.push(`corrected a step of ${s.size.toPrecision(3)} at ${s.position.toFixed(0)} cm-1 (${(1e7 / s.position).toFixed(1)} nm), a lamp or detector change-over (${s.significance.toFixed(0)} noise deviations; step correction can be switched off)`);
       }
     }
   }
+  const reasons = maskOf(absorbance, negativeLimit);
+  for (const index of stepIndices) maskAroundStep(reasons, index);
   const masked = xyMaskedRegions(x, reasons);
   const kept = Uint8Array.from(reasons, (r, i) => (r === null && Number.isFinite(signal[i] as number) ? 1 : 0));
   const step = xChooseGridStep(x, maxGridPoints);
