@@ -11,6 +11,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyzeSpectrum } from '../../src/analysis.js';
 import { gaussianDeviates, mulberry32, parseSpectrumText, processSpectrum } from '../../src/spectrum/index.js';
 import { xQuantizationStep } from '../../src/spectrum/xQuantizationStep.js';
+import { caseSpectrum, corpusCases } from '../accuracy/cases.js';
+import { caseOptions } from '../accuracy/run-corpus.js';
 import { cli } from '../analysis/helpers.js';
 import { makeTestApp, type TestApp } from '../server/helpers.js';
 import { realisticCsv, type RealisticOptions } from './realistic.js';
@@ -122,5 +124,32 @@ describe('detector steps', () => {
       const bad = await request(t.app).post('/api/v1/analyze?ion=Ni2%2B&stepCorrection=maybe').set('content-type', 'text/csv').send(content).expect(400);
       expect(bad.body.error.path).toBe('stepCorrection');
     });
+  });
+});
+
+describe('what is not a step', () => {
+  it('a sharp band (Mn(II)-like, FWHM 250 cm-1 near 400 nm) on rounded data', () => {
+    const o: RealisticOptions = {
+      concentration: 0.5, decimals: 2,
+      bands: [{ position: 24_950, epsilon: 2, fwhm: 250, skew: 1.1 }, { position: 18_900, epsilon: 0.1, fwhm: 2000 }],
+    };
+    const r = processSpectrum(parseSpectrumText(realisticCsv(o)).spectra[0]!, {});
+    expect(r.stepCorrections).toEqual([]);
+  });
+
+  it('the sharp quartet bands of the corpus\'s hexaaqua Mn(II) (tests/accuracy, 380–780 and 200–1100 nm)', () => {
+    for (const id of ['mn2-aqua/vis', 'mn2-aqua/uvvis']) {
+      const c = corpusCases().find((k) => k.id === id)!;
+      expect(analyzeSpectrum(caseSpectrum(c).csv, caseOptions(c)).spectrum.stepCorrections, id).toEqual([]);
+    }
+  });
+
+  it('smoothed noise (a moving average of 9 points of σ 0.002), rounded to 0.001', () => {
+    const normal = gaussianDeviates(mulberry32(11));
+    const raw = Array.from({ length: 809 }, () => 0.002 * normal());
+    const smoothed = raw.slice(4, -4).map((_, i) => raw.slice(i, i + 9).reduce((s, v) => s + v, 0) / 3); // sum/3: σ stays ≈ 0.002
+    const lines = smoothed.map((v, i) => `${380 + 0.5 * i},${(0.3 + v + 0.4 * Math.exp(-(((1e7 / (380 + 0.5 * i) - 17_000) / 1800) ** 2))).toFixed(3)}`);
+    const r = processSpectrum(parseSpectrumText(`nm,A\n${lines.join('\n')}\n`).spectra[0]!, {});
+    expect(r.stepCorrections).toEqual([]);
   });
 });

@@ -142,3 +142,23 @@ describe('window of each band', () => {
     for (const b of r.bands.filter((b) => b.position > 12_000)) expect(b.window).toBe('inside');
   });
 });
+
+describe('intensity-aware classes on a recorded-looking spectrum', () => {
+  it('tetrahedral Co(II): the intense visible multiplet (ε 360–600, narrow components) is spin-allowed d–d', () => {
+    // Components near 14 700, 15 900 and 16 900 cm-1, ε 400–600 — from memory (Lever 1984, [CoCl4]2-); a weak
+    // spin-forbidden band near 20 000 cm-1 added (invented size). Rounded to 0.01 at 2 mmol/L.
+    const o: RealisticOptions = {
+      concentration: 0.002, scatterAt400: 0.01,
+      bands: [
+        { position: 14_700, epsilon: 550, fwhm: 900 }, { position: 15_900, epsilon: 600, fwhm: 1000 },
+        { position: 16_900, epsilon: 420, fwhm: 900 }, { position: 20_000, epsilon: 30, fwhm: 1500 },
+      ],
+    };
+    const r = process(o, { concentration: o.concentration, geometry: 'tetrahedral' });
+    expect(r.stepCorrections).toEqual([]);
+    const strong = r.bands.filter((b) => b.epsilon! > 200);
+    expect(strong.length).toBeGreaterThanOrEqual(3);
+    expect(strong.every((b) => b.kind === 'd-d')).toBe(true); // common practice: tetrahedral d–d ε 50–1500
+    expect(nearest(r.bands, 20_000).kind).toBe('spin-forbidden'); // well below the spin-allowed bands of the spectrum
+  });
+});
