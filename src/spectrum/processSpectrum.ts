@@ -7,7 +7,26 @@
  * the data within ±step/2, moved along the local slope from the points'
  * mean wavenumber to the grid value (else interpolated).
  *
- * The fit is weighted by the local noise (1/σ_i) and the model is chosen by
+ * The noise model: the local noise of the data (second differences), never
+ * below the rounding noise q/√12 of a rounded export (xQuantizationStep);
+ * on smooth data (no more noise than the rounding, or under 2·10⁻⁴ of the
+ * range: smoothed or computed data) the fit's σ also holds a band-shape
+ * error of 3 % of the band signal, since real bands are not Gaussian, and
+ * broad bands are added from the residual only above a tenth of the
+ * tallest. Detector steps are corrected only on strong evidence (8 σ of
+ * the jump, at least 4 rounding steps, not undone nearby: xyDetectorSteps),
+ * each listed in stepCorrections with its size; correctSteps false leaves
+ * the data as read.
+ *
+ * The window: a band whose maximum lies at or beyond the red (low-energy)
+ * end is proposed from the falling data there and may have its centre up
+ * to 0.6 FWHM outside the range; a maximum close to the blue end is
+ * proposed as a band, so the UV edge (a CT band centred above the range)
+ * cannot take its place. Each band reports its window
+ * (inside / near-… / beyond-…); a centre outside the range carries an
+ * extrapolation error of a tenth of its FWHM in its uncertainty.
+ *
+ * The fit is weighted by σ (1/σ_i) and the model is chosen by
  * the Bayesian information criterion with that noise, χ² + p ln n; a model
  * with more components is kept only when it wins by more than 10 (fitBands.ts):
  * - a candidate band is dropped when weaker than 3 σ (5 σ for narrow bands),
