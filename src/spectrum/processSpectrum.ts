@@ -56,7 +56,7 @@ import { xNoiseFromSecondDifferences, xNoiseLocal } from './xNoise.js';
 import { xQuantizationStep } from './xQuantizationStep.js';
 import { xyCorrectDetectorSteps, xyFindDetectorSteps } from './xyDetectorSteps.js';
 import { xyFindBandCandidates } from './xyFindBandCandidates.js';
-import { xyHighEndBandCandidate, xyLowEndBandCandidate } from './xyEndBandCandidates.js';
+import { xyHighEndBandCandidate, xyLowEndBandCandidate, xyNearLowEndBandCandidate } from './xyEndBandCandidates.js';
 import { xyLowerHull } from './xyLowerHull.js';
 import { maskAroundStep, xyMaskedRegions, xyMaskPoints } from './xyMask.js';
 import { xPolynomialValues } from './xyPolynomial.js';
@@ -194,9 +194,11 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   // Candidates are judged by their curvature against the white noise; the shape error is smooth and enters the fit only.
   const candidates = xyFindBandCandidates(fx, lifted, { noise: localNoise, broadFwhm, narrowFwhm, narrow: false });
   if (lowEnd !== null && candidates.every((c) => c.position > (fx[0] as number) + 0.5 * lowEnd.fwhm)) candidates.unshift({ ...lowEnd, pass: 'broad' });
-  // A maximum close to the blue end is a band, not part of the UV edge.
-  const highEnd = xyHighEndBandCandidate(fx, fy, { noise: localNoise });
-  if (highEnd !== null && candidates.every((c) => Math.abs(c.position - highEnd.position) > 0.5 * highEnd.fwhm)) candidates.push({ ...highEnd, pass: 'broad' });
+  // A maximum close to the blue end is a band, not part of the UV edge; one close to the red end is a band too.
+  for (const end of [xyHighEndBandCandidate(fx, fy, { noise: localNoise }), lowEnd === null ? xyNearLowEndBandCandidate(fx, fy, { noise: localNoise }) : null]) {
+    if (end !== null && candidates.every((c) => Math.abs(c.position - end.position) > 0.5 * end.fwhm)) candidates.push({ ...end, pass: 'broad' });
+  }
+  candidates.sort((a, b) => a.position - b.position);
   if (candidates.length === 0 && edge === null) {
     warnings.push('no band stands out of the noise');
     return empty();

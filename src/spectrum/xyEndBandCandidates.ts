@@ -119,3 +119,18 @@ export function xyHighEndBandCandidate(x: Float64Array, y: Float64Array, options
   const fwhm = Math.min(Math.max(2 * ((x[m] as number) - (x[k] as number)), fwhmLimits[0]), fwhmLimits[1]);
   return { position: x[m] as number, height: rise, fwhm };
 }
+
+/**
+ * The mirror of xyHighEndBandCandidate at the low-energy (red) end: a
+ * maximum inside the range but within `look` of its first point, which a
+ * smoothing second derivative loses at the boundary (the Jahn–Teller band
+ * of Cu(II) peaking just inside 780 nm).
+ */
+export function xyNearLowEndBandCandidate(x: Float64Array, y: Float64Array, options: LowEndCandidateOptions): GaussianParameters | null {
+  const n = x.length;
+  const mx = Float64Array.from({ length: n }, (_, i) => -(x[n - 1 - i] as number));
+  const my = Float64Array.from({ length: n }, (_, i) => y[n - 1 - i] as number);
+  const noise = Float64Array.from({ length: n }, (_, i) => options.noise[n - 1 - i] as number);
+  const found = xyHighEndBandCandidate(mx, my, { ...options, noise });
+  return found === null ? null : { ...found, position: -found.position };
+}
