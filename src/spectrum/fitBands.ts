@@ -8,7 +8,7 @@
  * 1. refine the candidates; drop bands that are weak, undetermined or
  *    duplicates (prune);
  * 2. simplify: bands within one FWHM of the top of the range that show no
- *    maximum of their own (centre above the top − FWHM/4) or are broader than
+ *    maximum of their own (centre above the top − FWHM/10) or are broader than
  *    3 × broadFwhm are the UV
  *    edge, not bands: they are replaced by the edge model (unless the edge
  *    is switched off); a band within FWHM/4 of the bottom of the range is
@@ -204,9 +204,15 @@ interface Context {
   mode: 'auto' | boolean;
 }
 
-/** A band whose centre is within one FWHM of the top of the range and that shows no maximum there or is too broad for a d–d band. */
+/**
+ * A band whose centre lies more than this fraction of its FWHM inside the top of the range has a maximum of its
+ * own there and is a band, not the UV edge (the edge, a CT band above the range, may not take a d–d maximum inside
+ * it: the 3T1g(P) band of Ni(II) at 395 nm in a 380–780 nm spectrum).
+ */
+const EDGE_INSIDE = 0.1;
+/** A band whose centre is within one FWHM of the top of the range and that shows no maximum inside it (centre above top − EDGE_INSIDE·FWHM) or is too broad for a d–d band. */
 function edgeLike(b: GaussianParameters, xMax: number, broadFwhm: number): boolean {
-  return b.position > xMax - b.fwhm && (b.position > xMax - 0.25 * b.fwhm || b.fwhm > 3 * broadFwhm);
+  return b.position > xMax - b.fwhm && (b.position > xMax - EDGE_INSIDE * b.fwhm || b.fwhm > 3 * broadFwhm);
 }
 
 function atLowEnd(b: GaussianParameters, xMin: number): boolean {

@@ -36,7 +36,7 @@
  *   mean and variance kept) and stay two only if the data demand it; so a
  *   band is not split in two, nor a narrow band put on a broad maximum;
  * - a band within one FWHM of the top of the range whose centre lies above
- *   top − FWHM/4 (no maximum of its own) or that is broader than
+ *   top − FWHM/10 (no maximum of its own) or that is broader than
  *   3 × broadFwhm is the UV edge: it is replaced by the edge model (rule,
  *   no test), unless uvEdge is false; a band within FWHM/4 of the bottom is
  *   dropped unless the criterion keeps it;
