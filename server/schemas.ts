@@ -136,6 +136,9 @@ export const analyzeFields = z.strictObject({
   curves: z.boolean().optional().meta({
     description: 'Also return the curves on the energy grid (signal, baseline, model, components) for plotting.',
   }),
+  stepCorrection: z.boolean().optional().meta({
+    description: 'Correct detector change-over steps (default true; only on overwhelming evidence, each listed with its size in spectrum.stepCorrections). false leaves the data as read.',
+  }),
   fileName: z.string().trim().min(1).max(200).optional().meta({
     description: 'Name used in error positions (file:line:column) for a raw-body upload.',
   }),

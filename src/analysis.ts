@@ -10,7 +10,8 @@ import { defaultBandSigma, fitBands, type BandInput, type FitResult } from './fi
 import type { Geometry } from './ligand-field/types.js';
 import { gaussianValue } from './spectrum/gaussian.js';
 import { parseSpectrumText, processSpectrum } from './spectrum/index.js';
-import type { Band, MaskedRegion, ParsedFile, Spectrum, XUnit, YUnit } from './spectrum/types.js';
+import { parseIon } from './chemistry/ions.js';
+import type { Band, MaskedRegion, ParsedFile, Spectrum, StepCorrection, XUnit, YUnit } from './spectrum/types.js';
 
 export interface AnalyzeOptions {
   /** Shown in error paths and warnings. @default "<input>" */
@@ -35,6 +36,12 @@ export interface AnalyzeOptions {
   c?: number;
   /** Fit C as well. @default false */
   freeC?: boolean;
+  /**
+   * Correct detector change-over steps. A step is corrected only on
+   * overwhelming evidence and listed (spectrum.stepCorrections, warnings);
+   * false leaves the data exactly as read. @default true
+   */
+  stepCorrection?: boolean;
   /** Return the curves on the energy grid (for plots). @default false */
   curves?: boolean;
   /** The user's corrections (band list, chosen assignment), see analysis-corrections.ts. @default none */
@@ -67,6 +74,10 @@ export interface AnalyzeResult {
     signalUnit: 'absorbance' | 'epsilon';
     /** Noise standard deviation, signal unit. */
     noise: number;
+    /** Rounding step of the values as read (0.01 for two decimals), signal unit; 0 when not rounded. */
+    quantization: number;
+    /** Detector steps removed from the data, with their size; empty when none (or stepCorrection was false). */
+    stepCorrections: StepCorrection[];
   };
   bands: Band[];
   fit: FitResult;
@@ -96,8 +107,12 @@ export function analyzeSpectrum(content: string | Uint8Array, options: AnalyzeOp
 
 function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: AnalyzeOptions, warnings: string[]): AnalyzeResult {
   const geometry = options.geometry ?? 'octahedral';
+  const d = options.d ?? (options.ion === undefined ? undefined : parseIon(options.ion).d);
   const processed = processSpectrum(spectrum, {
     geometry,
+    // d0 (MnO4-, CrO4 2-) and d10 have no d–d transitions: every band is charge transfer.
+    chargeTransferOnly: d === 0 || d === 10,
+    ...(options.stepCorrection !== undefined && { correctSteps: options.stepCorrection }),
     ...(options.concentration !== undefined && { concentration: options.concentration }),
     ...(options.pathLength !== undefined && { pathLength: options.pathLength }),
   });
@@ -107,6 +122,9 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
   const dd = processed.bands.filter((b) => b.kind !== 'charge-transfer');
   if (dd.length === 0 && corrections?.bands === undefined) {
     const found = processed.bands.length === 0 ? 'no bands were found' : `only charge-transfer bands were found (${positions(processed.bands)} cm-1)`;
+    if (d === 0 || d === 10) {
+      throw new FieldgapError('unexplained', `no ligand-field fit: a d${d} ion has no d–d transitions; ${found.replace('only ', '')} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`, where);
+    }
     throw new FieldgapError('unexplained', `no d–d bands to fit: ${found} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`, where);
   }
   let fit: FitResult;
@@ -139,6 +157,8 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
       format,
       signalUnit: processed.signalUnit,
       noise: processed.noise,
+      quantization: processed.quantization,
+      stepCorrections: processed.stepCorrections,
     },
     bands: processed.bands,
     fit,

@@ -66,6 +66,7 @@ export function analyzeQuery(details: SampleDetails): URLSearchParams {
   if (details.column.trim() !== '') query.set('column', details.column.trim());
   if (details.cOverB !== null) query.set('cOverB', String(details.cOverB));
   if (details.freeC) query.set('freeC', 'true');
+  if (details.stepCorrection === false) query.set('stepCorrection', 'false');
   // The page plots the spectrum, so it always asks for the curves.
   query.set('curves', 'true');
   return query;

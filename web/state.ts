@@ -24,6 +24,8 @@ export interface SampleDetails {
   column: string;
   cOverB: number | null;
   freeC: boolean;
+  /** false: leave detector steps in the data (the service corrects a step only on overwhelming evidence). @default true */
+  stepCorrection?: boolean;
 }
 
 /** A band as the user has corrected it. */

@@ -55,6 +55,9 @@ export interface Band {
   uncertainty?: number;
   shoulder?: boolean;
   flags?: BandFlag[];
+  /** Where the maximum lies relative to the measured range (red = low-energy end). */
+  window?: 'inside' | 'near-red-end' | 'near-blue-end' | 'beyond-red-end' | 'beyond-blue-end';
+  maximumInWindow?: boolean;
 }
 
 export interface Assignment {

@@ -41,6 +41,7 @@ export function toAnalyzeOptions(fields: AnalyzeFields, fileName: string | undef
   if (fields.c !== undefined) options.c = fields.c;
   if (fields.freeC !== undefined) options.freeC = fields.freeC;
   if (fields.curves !== undefined) options.curves = fields.curves;
+  if (fields.stepCorrection !== undefined) options.stepCorrection = fields.stepCorrection;
   return options;
 }
 

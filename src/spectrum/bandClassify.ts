@@ -1,22 +1,29 @@
 /**
  * Classifying bands as spin-allowed d–d, spin-forbidden, or charge-transfer
- * (or ligand) from molar absorptivity and width. Thresholds are common
- * practice (e.g. Lever, Inorganic Electronic Spectroscopy, 1984):
- * octahedral spin-allowed d–d ε ≈ 1–100, tetrahedral ≈ 100–1000;
- * spin-forbidden ε below about 1, or narrow (FWHM < ~1000 cm-1, the
- * intraconfigurational spin-flip bands); charge transfer ε above about
- * 1000, or very broad and strong at the UV edge.
+ * (or ligand) from molar absorptivity, width and geometry, each band judged
+ * against the others of the same spectrum. Ranges are common practice
+ * (e.g. Lever, Inorganic Electronic Spectroscopy, 1984): spin-allowed d–d ε
+ * about 1–150 octahedral and 50–1 500 tetrahedral (no centre of symmetry);
+ * spin-forbidden bands well below the spin-allowed bands of the same
+ * spectrum (ε under a quarter of the strongest d–d band, and narrow or below
+ * the spin-allowed range), or ε under about 1; charge transfer above about
+ * 1 000 (1 500 tetrahedral), or very broad and strong at the UV edge. The
+ * strongest d–d bands of a spectrum are never called spin-forbidden: a
+ * multiplet of narrow but intense components (tetrahedral Co(II)) is
+ * spin-allowed.
  */
 import type { BandKind } from './types.js';
 
 export interface ClassificationThresholds {
-  /** ε at or above which a band is charge transfer, L mol-1 cm-1. @default 1000 */
+  /** ε at or above which a band is charge transfer, L mol-1 cm-1. @default 1000; 1500 tetrahedral */
   chargeTransferEpsilon: number;
-  /** ε below which a band is spin-forbidden. @default 1 */
+  /** ε below which a band is spin-forbidden whatever else. @default 1 */
   spinForbiddenEpsilon: number;
-  /** Bands narrower than this (cm-1) and weaker than `spinAllowedMaxEpsilon` are spin-forbidden. @default 1000 */
+  /** "Narrow", cm-1: the intraconfigurational spin-flip bands are narrower. @default 1000 */
   narrowFwhm: number;
-  /** Upper end of spin-allowed d–d ε: 100 octahedral, 1000 tetrahedral (and when no geometry is given). */
+  /** Lower end of spin-allowed d–d ε: 1 octahedral, 50 tetrahedral, 1 when no geometry is given. */
+  spinAllowedMinEpsilon: number;
+  /** Upper end of spin-allowed d–d ε: 150 octahedral, 1500 tetrahedral, 1000 when no geometry is given. */
   spinAllowedMaxEpsilon: number;
   /** Bands at or above this energy (cm-1) that are very broad (≥ broadFwhm) and strong are charge transfer. @default 25000 */
   uvEdge: number;
@@ -24,20 +31,25 @@ export interface ClassificationThresholds {
   broadFwhm: number;
   /** Without ε: a UV band this many times stronger than every visible band is charge transfer. @default 10 */
   relativeChargeTransfer: number;
-  /** Without ε: a narrow band weaker than this fraction of the strongest broad band is spin-forbidden. @default 0.5 */
+  /**
+   * "Well below": a band weaker than this fraction of the strongest d–d band
+   * of the spectrum (by ε, or by height without ε) may be spin-forbidden;
+   * a stronger one never is. @default 0.25
+   */
   relativeSpinForbidden: number;
 }
 
 export function defaultThresholds(geometry?: 'octahedral' | 'tetrahedral'): ClassificationThresholds {
   return {
-    chargeTransferEpsilon: 1000,
+    chargeTransferEpsilon: geometry === 'tetrahedral' ? 1500 : 1000,
     spinForbiddenEpsilon: 1,
     narrowFwhm: 1000,
-    spinAllowedMaxEpsilon: geometry === 'octahedral' ? 100 : 1000,
+    spinAllowedMinEpsilon: geometry === 'tetrahedral' ? 50 : 1,
+    spinAllowedMaxEpsilon: geometry === 'octahedral' ? 150 : geometry === 'tetrahedral' ? 1500 : 1000,
     uvEdge: 25000,
     broadFwhm: 5000,
     relativeChargeTransfer: 10,
-    relativeSpinForbidden: 0.5,
+    relativeSpinForbidden: 0.25,
   };
 }
 
@@ -48,30 +60,45 @@ export interface ClassifiableBand {
   epsilon: number | null;
 }
 
-/** Kind of a band whose ε is known. */
-export function bandKindFromEpsilon(band: ClassifiableBand & { epsilon: number }, t: ClassificationThresholds): BandKind {
-  const { epsilon, fwhm, position } = band;
-  if (epsilon >= t.chargeTransferEpsilon) return 'charge-transfer';
-  if (position >= t.uvEdge && fwhm >= t.broadFwhm && epsilon >= 0.2 * t.chargeTransferEpsilon) return 'charge-transfer';
+/**
+ * Kind of a band whose ε is known. `strongest` is the largest ε among the
+ * spectrum's bands that are not charge transfer (the band's own ε when it
+ * is judged alone, so a band alone is never spin-forbidden unless ε < 1).
+ */
+export function bandKindFromEpsilon(band: ClassifiableBand & { epsilon: number }, t: ClassificationThresholds, strongest = band.epsilon): BandKind {
+  const { epsilon, fwhm } = band;
+  if (isChargeTransferByEpsilon(band, t)) return 'charge-transfer';
   if (epsilon < t.spinForbiddenEpsilon) return 'spin-forbidden';
-  if (fwhm < t.narrowFwhm && epsilon < t.spinAllowedMaxEpsilon) return 'spin-forbidden';
+  const wellBelow = epsilon < t.relativeSpinForbidden * strongest;
+  if (wellBelow && (fwhm < t.narrowFwhm || epsilon < t.spinAllowedMinEpsilon)) return 'spin-forbidden';
   return 'd-d';
+}
+
+function isChargeTransferByEpsilon(band: ClassifiableBand & { epsilon: number }, t: ClassificationThresholds): boolean {
+  const { epsilon, fwhm, position } = band;
+  return epsilon >= t.chargeTransferEpsilon || (position >= t.uvEdge && fwhm >= t.broadFwhm && epsilon >= 0.2 * t.chargeTransferEpsilon);
 }
 
 /**
  * Kinds of all bands of a spectrum: by ε when every band has one, else by
  * height relative to the others and by width (`relative` is then true and
- * the caller should say so).
+ * the caller should say so): a UV band ten times stronger than every band
+ * below the UV edge is charge transfer; a band under a quarter of the
+ * strongest band below the edge is spin-forbidden when it is narrow or
+ * under a tenth of it (the relative-intensity counterpart of ε below the
+ * spin-allowed range; a weak two-electron band such as 4A2g of
+ * octahedral Co(II) is counted with them, as its ε ≈ 0.5 would be).
  */
 export function bandsClassify(bands: ClassifiableBand[], t: ClassificationThresholds): { kinds: BandKind[]; relative: boolean } {
   if (bands.every((b) => b.epsilon !== null)) {
-    return { kinds: bands.map((b) => bandKindFromEpsilon(b as ClassifiableBand & { epsilon: number }, t)), relative: false };
+    const known = bands as Array<ClassifiableBand & { epsilon: number }>;
+    const strongest = Math.max(0, ...known.filter((b) => !isChargeTransferByEpsilon(b, t)).map((b) => b.epsilon));
+    return { kinds: known.map((b) => bandKindFromEpsilon(b, t, strongest)), relative: false };
   }
   const visibleMax = Math.max(0, ...bands.filter((b) => b.position < t.uvEdge).map((b) => b.height));
-  const broadMax = Math.max(0, ...bands.filter((b) => b.fwhm >= t.narrowFwhm && b.position < t.uvEdge).map((b) => b.height));
   const kinds = bands.map((b): BandKind => {
     if (b.position >= t.uvEdge && b.fwhm >= 0.8 * t.broadFwhm && visibleMax > 0 && b.height >= t.relativeChargeTransfer * visibleMax) return 'charge-transfer';
-    if (b.fwhm < t.narrowFwhm && broadMax > 0 && b.height < t.relativeSpinForbidden * broadMax) return 'spin-forbidden';
+    if (visibleMax > 0 && b.height < t.relativeSpinForbidden * visibleMax && (b.fwhm < t.narrowFwhm || b.height < 0.4 * t.relativeSpinForbidden * visibleMax)) return 'spin-forbidden';
     return 'd-d';
   });
   return { kinds, relative: true };

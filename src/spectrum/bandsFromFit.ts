@@ -5,7 +5,7 @@
 import { bandOscillatorStrength, gaussianArea } from './bandOscillatorStrength.js';
 import { bandsClassify, type ClassificationThresholds } from './bandClassify.js';
 import { gaussianValue } from './gaussian.js';
-import type { Band } from './types.js';
+import type { Band, BandWindow } from './types.js';
 import type { GaussianParameters } from './xyRefineBands.js';
 
 export interface BandsFromFitOptions {
@@ -16,6 +16,8 @@ export interface BandsFromFitOptions {
   noise: number;
   gridStep: number;
   thresholds: ClassificationThresholds;
+  /** Measured range [min, max], cm-1 (for each band's window). */
+  range: [number, number];
   /** Baseline slope (signal per cm-1) near each band, for the shoulder test. */
   baselineAt: (x: number) => number;
 }
@@ -38,8 +40,32 @@ function isShoulder(band: GaussianParameters, all: GaussianParameters[], baselin
   return true;
 }
 
+/**
+ * Where a band's centre lies in the measured range: outside it ('beyond'),
+ * or inside but within half its FWHM of an end ('near').
+ */
+export function bandWindow(band: GaussianParameters, range: [number, number]): BandWindow {
+  const [low, high] = range;
+  if (band.position < low) return 'beyond-red-end';
+  if (band.position > high) return 'beyond-blue-end';
+  if (band.position < low + 0.5 * band.fwhm) return 'near-red-end';
+  if (band.position > high - 0.5 * band.fwhm) return 'near-blue-end';
+  return 'inside';
+}
+
+/**
+ * Model error of a centre the data do not bracket, as a fraction of the
+ * FWHM, added in quadrature to the fit's σ: the fit extrapolates a Gaussian
+ * from one flank, and real flanks are not Gaussian (on the asymmetric test
+ * bands of tests/spectrum/realistic.ts the maximum moves by up to a tenth of
+ * the width).
+ */
+const EXTRAPOLATION: Record<BandWindow, number> = {
+  inside: 0, 'near-red-end': 0.03, 'near-blue-end': 0.03, 'beyond-red-end': 0.1, 'beyond-blue-end': 0.1,
+};
+
 export function bandsFromFit(bands: GaussianParameters[], options: BandsFromFitOptions): { bands: Band[]; relative: boolean } {
-  const { epsilonPerSignal, positionSd, noise, gridStep, thresholds, baselineAt } = options;
+  const { epsilonPerSignal, positionSd, noise, gridStep, thresholds, baselineAt, range } = options;
   const epsilons = bands.map((b) => (epsilonPerSignal === null ? null : b.height * epsilonPerSignal));
   const { kinds, relative } = bandsClassify(
     bands.map((b, k) => ({ position: b.position, fwhm: b.fwhm, height: b.height, epsilon: epsilons[k] ?? null })),
@@ -47,6 +73,7 @@ export function bandsFromFit(bands: GaussianParameters[], options: BandsFromFitO
   );
   const out = bands.map((b, k): Band => {
     const epsilon = epsilons[k] ?? null;
+    const window = bandWindow(b, range);
     const sd = positionSd[k] as number;
     // Fallback when the covariance is singular: FWHM · (σ / height) / √(points within the FWHM).
     const fallback = (b.fwhm * noise) / Math.max(b.height, 1e-300) / Math.sqrt(Math.max(b.fwhm / gridStep, 1));
@@ -59,8 +86,10 @@ export function bandsFromFit(bands: GaussianParameters[], options: BandsFromFitO
       area: gaussianArea(b.height, b.fwhm),
       oscillatorStrength: epsilon === null ? null : bandOscillatorStrength(epsilon, b.fwhm),
       kind: kinds[k] ?? 'd-d',
-      positionUncertainty: Number.isFinite(sd) ? sd : fallback,
+      positionUncertainty: Math.hypot(Number.isFinite(sd) ? sd : fallback, EXTRAPOLATION[window] * b.fwhm),
       shoulder: isShoulder(b, bands, baselineAt),
+      window,
+      maximumInWindow: window === 'inside' || window.startsWith('near'),
     };
   });
   return { bands: out, relative };

@@ -8,7 +8,7 @@
  * 1. refine the candidates; drop bands that are weak, undetermined or
  *    duplicates (prune);
  * 2. simplify: bands within one FWHM of the top of the range that show no
- *    maximum of their own (centre above the top − FWHM/4) or are broader than
+ *    maximum of their own (centre above the top − FWHM/10) or are broader than
  *    3 × broadFwhm are the UV
  *    edge, not bands: they are replaced by the edge model (unless the edge
  *    is switched off); a band within FWHM/4 of the bottom of the range is
@@ -39,6 +39,18 @@ export interface FitBandsOptions {
   weights?: Float64Array;
   /** 'auto': the edge is tried on and off; true: always (as given); false: never. @default 'auto' */
   edgeMode?: 'auto' | boolean;
+  /**
+   * Smallest height of a broad band added from the residual (step 4), as a
+   * fraction of the tallest band. On smooth data a broad residual of a few
+   * per cent is the band model's shape error (real bands are not
+   * Gaussian), so smooth data set this to 0.1; narrow bands (spin-forbidden
+   * lines) are not held to it. @default 0
+   */
+  minAddedFraction?: number;
+  /** A band whose position deviation exceeds this fraction of its FWHM is undetermined and dropped. @default 0.5 */
+  uncertainFraction?: number;
+  /** How far below the low end a band centre may lie, fraction of its FWHM (RefineBandsOptions). @default 0 */
+  beyondLowEnd?: number;
   /** Polynomial of baselineGuess (see RefineBandsOptions); fitBands fits it once for all its trial models. */
   baselineStart?: Float64Array;
 }
@@ -69,7 +81,7 @@ function refine(
 ): RefineBandsResult {
   return xyRefineBands(x, y, {
     bands, edge, baselineGuess: o.baselineGuess, baselineOrder: o.baselineOrder, ...(o.baselineStart ? { baselineStart: o.baselineStart } : {}),
-    weights: o.weights ?? weightsFromNoise(o.noise), maxIterations, chiSquareTolerance,
+    weights: o.weights ?? weightsFromNoise(o.noise), maxIterations, chiSquareTolerance, beyondLowEnd: o.beyondLowEnd ?? 0,
   });
 }
 
@@ -106,7 +118,7 @@ export function xNearestIndex(x: Float64Array, v: number): number {
  * components sharing one band are both uncertain, and one of them is
  * needed. Returns the kept bands, or null when all are kept.
  */
-function prune(fit: RefineBandsResult, x: Float64Array, noise: Float64Array, narrowFwhm: number): GaussianParameters[] | null {
+function prune(fit: RefineBandsResult, x: Float64Array, noise: Float64Array, narrowFwhm: number, uncertainFraction = 0.5): GaussianParameters[] | null {
   const keep: GaussianParameters[] = [];
   const uncertain: GaussianParameters[] = [];
   let changed = false;
@@ -118,7 +130,7 @@ function prune(fit: RefineBandsResult, x: Float64Array, noise: Float64Array, nar
     if (weak || duplicate) changed = true;
     else {
       keep.push(b);
-      if (Number.isFinite(sd) && sd > 0.5 * b.fwhm) uncertain.push(b);
+      if (Number.isFinite(sd) && sd > uncertainFraction * b.fwhm) uncertain.push(b);
     }
   }
   if (!changed && uncertain.length > 0) {
@@ -159,7 +171,7 @@ export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOpti
   const edge0 = ctx.mode === false ? null : o.edge;
   let fit = refine(x, y, start, edge0, o);
   for (let loop = 0; loop < 3; loop++) {
-    const kept = prune(fit, x, o.noise, o.narrowFwhm);
+    const kept = prune(fit, x, o.noise, o.narrowFwhm, o.uncertainFraction);
     if (kept === null) break;
     fit = refine(x, y, kept, fit.edge, o);
   }
@@ -171,10 +183,11 @@ export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOpti
     const extra = xyFindBandCandidates(x, r, { noise: o.noise, broadFwhm: o.broadFwhm, narrowFwhm: o.narrowFwhm, significance: 5 })
       .filter((c) => fit.bands.every((b) => Math.abs(b.position - c.position) > 0.15 * b.fwhm))
       .filter((c) => !atLowEnd(c, xMin) && !(ctx.mode !== false && edgeLike(c, xMax, o.broadFwhm)))
+      .filter((c) => c.fwhm < 2 * o.narrowFwhm || c.height >= (o.minAddedFraction ?? 0) * fit.bands.reduce((m, b) => Math.max(m, b.height), 0))
       .sort((a, b) => b.height * Math.sqrt(b.fwhm) - a.height * Math.sqrt(a.fwhm))[0];
     if (extra === undefined) break;
     const trial = refine(x, y, [...fit.bands, { position: extra.position, height: extra.height, fwhm: extra.fwhm }].sort((a, b) => a.position - b.position), fit.edge, o);
-    if (prune(trial, x, o.noise, o.narrowFwhm) !== null || ctx.score(trial) >= ctx.score(fit) - BIC_MARGIN) break;
+    if (prune(trial, x, o.noise, o.narrowFwhm, o.uncertainFraction) !== null || ctx.score(trial) >= ctx.score(fit) - BIC_MARGIN) break;
     fit = trial;
   }
   if (added > 0) fit = simplify(ctx, fit);
@@ -191,9 +204,15 @@ interface Context {
   mode: 'auto' | boolean;
 }
 
-/** A band whose centre is within one FWHM of the top of the range and that shows no maximum there or is too broad for a d–d band. */
+/**
+ * A band whose centre lies more than this fraction of its FWHM inside the top of the range has a maximum of its
+ * own there and is a band, not the UV edge (the edge, a CT band above the range, may not take a d–d maximum inside
+ * it: the 3T1g(P) band of Ni(II) at 395 nm in a 380–780 nm spectrum).
+ */
+const EDGE_INSIDE = 0.1;
+/** A band whose centre is within one FWHM of the top of the range and that shows no maximum inside it (centre above top − EDGE_INSIDE·FWHM) or is too broad for a d–d band. */
 function edgeLike(b: GaussianParameters, xMax: number, broadFwhm: number): boolean {
-  return b.position > xMax - b.fwhm && (b.position > xMax - 0.25 * b.fwhm || b.fwhm > 3 * broadFwhm);
+  return b.position > xMax - b.fwhm && (b.position > xMax - EDGE_INSIDE * b.fwhm || b.fwhm > 3 * broadFwhm);
 }
 
 function atLowEnd(b: GaussianParameters, xMin: number): boolean {

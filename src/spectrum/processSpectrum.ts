@@ -7,7 +7,26 @@
  * the data within ±step/2, moved along the local slope from the points'
  * mean wavenumber to the grid value (else interpolated).
  *
- * The fit is weighted by the local noise (1/σ_i) and the model is chosen by
+ * The noise model: the local noise of the data (second differences), never
+ * below the rounding noise q/√12 of a rounded export (xQuantizationStep);
+ * on smooth data (no more noise than the rounding, or under 2·10⁻⁴ of the
+ * range: smoothed or computed data) the fit's σ also holds a band-shape
+ * error of 3 % of the band signal, since real bands are not Gaussian, and
+ * broad bands are added from the residual only above a tenth of the
+ * tallest. Detector steps are corrected only on strong evidence (8 σ of
+ * the jump, at least 4 rounding steps, not undone nearby: xyDetectorSteps),
+ * each listed in stepCorrections with its size; correctSteps false leaves
+ * the data as read.
+ *
+ * The window: a band whose maximum lies at or beyond the red (low-energy)
+ * end is proposed from the falling data there and may have its centre up
+ * to 0.6 FWHM outside the range; a maximum close to the blue end is
+ * proposed as a band, so the UV edge (a CT band centred above the range)
+ * cannot take its place. Each band reports its window
+ * (inside / near-… / beyond-…); a centre outside the range carries an
+ * extrapolation error of a tenth of its FWHM in its uncertainty.
+ *
+ * The fit is weighted by σ (1/σ_i) and the model is chosen by
  * the Bayesian information criterion with that noise, χ² + p ln n; a model
  * with more components is kept only when it wins by more than 10 (fitBands.ts):
  * - a candidate band is dropped when weaker than 3 σ (5 σ for narrow bands),
@@ -17,7 +36,7 @@
  *   mean and variance kept) and stay two only if the data demand it; so a
  *   band is not split in two, nor a narrow band put on a broad maximum;
  * - a band within one FWHM of the top of the range whose centre lies above
- *   top − FWHM/4 (no maximum of its own) or that is broader than
+ *   top − FWHM/10 (no maximum of its own) or that is broader than
  *   3 × broadFwhm is the UV edge: it is replaced by the edge model (rule,
  *   no test), unless uvEdge is false; a band within FWHM/4 of the bottom is
  *   dropped unless the criterion keeps it;
@@ -32,10 +51,12 @@ import { bandsFromFit } from './bandsFromFit.js';
 import { fitBands } from './fitBands.js';
 import { gaussianValue } from './gaussian.js';
 import { spectrumToEnergy } from './spectrumToEnergy.js';
-import type { MaskReason, ProcessedSpectrum, Spectrum } from './types.js';
+import type { MaskReason, ProcessedSpectrum, Spectrum, StepCorrection } from './types.js';
 import { xNoiseFromSecondDifferences, xNoiseLocal } from './xNoise.js';
+import { xQuantizationStep } from './xQuantizationStep.js';
 import { xyCorrectDetectorSteps, xyFindDetectorSteps } from './xyDetectorSteps.js';
 import { xyFindBandCandidates } from './xyFindBandCandidates.js';
+import { xyHighEndBandCandidate, xyLowEndBandCandidate, xyNearLowEndBandCandidate } from './xyEndBandCandidates.js';
 import { xyLowerHull } from './xyLowerHull.js';
 import { maskAroundStep, xyMaskedRegions, xyMaskPoints } from './xyMask.js';
 import { xPolynomialValues } from './xyPolynomial.js';
@@ -67,6 +88,21 @@ export interface ProcessSpectrumOptions {
   maxBands?: number;
   /** Most grid points (sets the coarsest grid step). @default 400 */
   maxGridPoints?: number;
+  /**
+   * Relative shape error of the Gaussian band model: real bands are
+   * asymmetric and carry unresolved components, so on smooth data (rounded,
+   * smoothed or noise-free: see isSmooth) the fit's σ at each point is the
+   * noise combined with this fraction of the band signal there (the data
+   * above the lower hull), and a band whose position is uncertain by more
+   * than a fifth of its FWHM (not half) is dropped; it is what keeps a band's asymmetry from being
+   * read as extra bands. @default 0.03
+   */
+  shapeError?: number;
+  /**
+   * The metal has no d–d transitions (d0 such as MnO4- or CrO4 2-, or d10):
+   * every band is charge transfer (or ligand). @default false
+   */
+  chargeTransferOnly?: boolean;
   /** Override classification thresholds. @default defaultThresholds(geometry) */
   thresholds?: Partial<ClassificationThresholds>;
 }
@@ -74,7 +110,7 @@ export interface ProcessSpectrumOptions {
 export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOptions = {}): ProcessedSpectrum {
   const {
     concentration, pathLength = 1, geometry, saturationLimit = 3, correctSteps = true, baselineOrder = 1, uvEdge = 'auto',
-    broadFwhm = 2500, narrowFwhm = 600, maxBands = 8, maxGridPoints = 400,
+    broadFwhm = 2500, narrowFwhm = 600, maxBands = 8, maxGridPoints = 400, shapeError = 0.03,
   } = options;
   checkOptions(options, baselineOrder, pathLength);
   if (spectrum.metadata['jcampForm'] === 'PEAK TABLE') {
@@ -88,23 +124,40 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const energy = spectrumToEnergy(spectrum, concentration, pathLength);
   const { x } = energy;
   let signal = energy.signal;
+  // Rounded exports: the rounding step sets a floor under the noise (before any step correction moves values off its grid).
+  const quantum = xQuantizationStep(signal);
   const rawNoise = xNoiseFromSecondDifferences(signal.filter(Number.isFinite));
-  const reasons: Array<MaskReason | null> = energy.absorbance === null
+  const negativeLimit = options.negativeLimit ?? Math.max(5 * rawNoise, 0.01);
+  const maskOf = (absorbance: Float64Array | null, negative: number): Array<MaskReason | null> => (absorbance === null
     ? new Array<MaskReason | null>(x.length).fill(null)
-    : xyMaskPoints(energy.absorbance, { saturationLimit, negativeLimit: options.negativeLimit ?? Math.max(5 * rawNoise, 0.01) });
+    : xyMaskPoints(absorbance, { saturationLimit, negativeLimit: negative }));
   if (energy.absorbance === null) warnings.push('ε without a concentration: saturation and negative absorbance were not checked');
+  // Steps are sought before negative values are masked: a downward step near a zero baseline makes the data beyond it negative.
+  let absorbance = energy.absorbance;
+  const stepCorrections: StepCorrection[] = [];
+  const stepIndices: number[] = [];
   if (correctSteps) {
-    const finite = reasons.map((r, i) => r === null && Number.isFinite(signal[i] as number));
-    const steps = xyFindDetectorSteps(x, signal.map((v, i) => (finite[i] ? v : 0)));
+    const saturated = maskOf(absorbance, Number.POSITIVE_INFINITY);
+    const finite = saturated.map((r, i) => r === null && Number.isFinite(signal[i] as number));
+    // On data whose only noise is the rounding, a point's noise is q/√12 (a median of the discrete second differences says twice that).
+    const roundingOnly = quantum > 0 && rawNoise <= 2.5 * quantum / Math.sqrt(12);
+    const steps = xyFindDetectorSteps(x, signal.map((v, i) => (finite[i] ? v : 0)), {
+      noiseFloor: quantum / Math.sqrt(12), minSize: 4 * quantum, ...(roundingOnly && { pointNoise: quantum / Math.sqrt(12) }),
+    });
     const real = steps.filter((s) => finite[s.index] && finite[s.index + 1]);
     if (real.length > 0) {
+      const toAbsorbance = absorbance === null || absorbance === signal ? 1 : concentration! * pathLength;
       signal = xyCorrectDetectorSteps(signal, real);
+      if (absorbance !== null) absorbance = absorbance === energy.signal ? signal : xyCorrectDetectorSteps(absorbance, real.map((s) => ({ ...s, size: s.size * toAbsorbance })));
       for (const s of real) {
-        maskAroundStep(reasons, s.index);
-        warnings.push(`corrected a step of ${s.size.toPrecision(3)} at ${s.position.toFixed(0)} cm-1 (${(1e7 / s.position).toFixed(1)} nm), a lamp or detector change-over`);
+        stepIndices.push(s.index);
+        stepCorrections.push({ position: s.position, wavelength: 1e7 / s.position, size: s.size, significance: s.significance });
+        warnings.push(`corrected a step of ${s.size.toPrecision(3)} at ${s.position.toFixed(0)} cm-1 (${(1e7 / s.position).toFixed(1)} nm), a lamp or detector change-over (${s.significance.toFixed(0)} noise deviations; step correction can be switched off)`);
       }
     }
   }
+  const reasons = maskOf(absorbance, negativeLimit);
+  for (const index of stepIndices) maskAroundStep(reasons, index);
   const masked = xyMaskedRegions(x, reasons);
   const kept = Uint8Array.from(reasons, (r, i) => (r === null && Number.isFinite(signal[i] as number) ? 1 : 0));
   const step = xChooseGridStep(x, maxGridPoints);
@@ -112,13 +165,14 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const { y: onGrid, counts } = xyResampleUniformWithCounts(x, signal, kept, grid, { slopeCorrected: true });
   const fx = grid.filter((_, i) => Number.isFinite(onGrid[i] as number));
   const fy = onGrid.filter(Number.isFinite);
-  const localNoise = gridNoise(x, signal, kept, grid, onGrid, counts);
+  const measuredNoise = gridNoise(x, signal, kept, grid, onGrid, counts);
+  const localNoise = measuredNoise.map((s) => Math.hypot(s, quantum / Math.sqrt(12)));
   const noise = median(localNoise);
   const range: [number, number] = [x[0] as number, x[x.length - 1] as number];
   const empty = (): ProcessedSpectrum => ({
     points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid,
     baseline: new Float64Array(grid.length), model: new Float64Array(grid.length), signalUnit: energy.signalUnit, bands: [],
-    edge: null, noise, fit: { points: fx.length, parameters: 0, rms: 0, iterations: 0, converged: true }, warnings,
+    edge: null, noise, quantization: quantum, stepCorrections, fit: { points: fx.length, parameters: 0, rms: 0, iterations: 0, converged: true }, warnings,
   });
   if (fx.length < 10) {
     warnings.push(`only ${fx.length} grid points left after masking: no bands fitted`);
@@ -128,12 +182,28 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const hull = xyLowerHull(fx, fy);
   const lifted = Float64Array.from(fy, (v, i) => v - (hull[i] as number));
   const edge = chooseEdge(fx, fy, hull, noise, uvEdge);
+  const lowest = fy.reduce((m, v) => Math.min(m, v), Number.POSITIVE_INFINITY);
+  // A band whose maximum lies at or beyond the red end has no maximum of its own to find: it is proposed, and the baseline starts under it.
+  const lowEnd = xyLowEndBandCandidate(fx, fy, { noise: localNoise });
+  const baselineGuess = lowEnd === null
+    ? hull
+    : Float64Array.from(hull, (h, i) => Math.max(Math.min(h, (fy[i] as number) - gaussianValue(fx[i] as number, lowEnd.position, lowEnd.height, lowEnd.fwhm)), lowest));
+  // The fit's σ: measurement and rounding noise, plus, on smooth data, the shape error of a Gaussian band model on real bands.
+  const smooth = isSmooth(median(measuredNoise), quantum, fy);
+  const sigma = Float64Array.from(localNoise, (s, i) => Math.hypot(s, smooth ? shapeError * Math.max((fy[i] as number) - (baselineGuess[i] as number), 0) : 0));
+  // Candidates are judged by their curvature against the white noise; the shape error is smooth and enters the fit only.
   const candidates = xyFindBandCandidates(fx, lifted, { noise: localNoise, broadFwhm, narrowFwhm, narrow: false });
+  if (lowEnd !== null && candidates.every((c) => c.position > (fx[0] as number) + 0.5 * lowEnd.fwhm)) candidates.unshift({ ...lowEnd, pass: 'broad' });
+  // A maximum close to the blue end is a band, not part of the UV edge; one close to the red end is a band too.
+  for (const end of [xyHighEndBandCandidate(fx, fy, { noise: localNoise }), lowEnd === null ? xyNearLowEndBandCandidate(fx, fy, { noise: localNoise }) : null]) {
+    if (end !== null && candidates.every((c) => Math.abs(c.position - end.position) > 0.5 * end.fwhm)) candidates.push({ ...end, pass: 'broad' });
+  }
+  candidates.sort((a, b) => a.position - b.position);
   if (candidates.length === 0 && edge === null) {
     warnings.push('no band stands out of the noise');
     return empty();
   }
-  const fit = fitBands(fx, fy, { candidates, edge, baselineGuess: hull, baselineOrder, noise: localNoise, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
+  const fit = fitBands(fx, fy, { candidates, edge, baselineGuess, baselineOrder, noise: sigma, beyondLowEnd: BEYOND_LOW_END, uncertainFraction: smooth ? 0.2 : 0.5, minAddedFraction: smooth ? 0.1 : 0, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
   const polynomial = (xs: Float64Array) => xPolynomialValues(xs, fit.baselineCoefficients, fit.scale);
   const baseline = polynomial(grid);
   if (fit.edge !== null) for (let i = 0; i < grid.length; i++) baseline[i] = (baseline[i] as number) + gaussianValue(grid[i] as number, fit.edge.position, fit.edge.height, fit.edge.fwhm);
@@ -142,19 +212,30 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const epsilonPerSignal = energy.signalUnit === 'epsilon' ? 1 : concentration === undefined ? null : 1 / (concentration * pathLength);
   const thresholds = { ...defaultThresholds(geometry), ...options.thresholds };
   const edgeAt = (v: number) => (fit.edge === null ? 0 : gaussianValue(v, fit.edge.position, fit.edge.height, fit.edge.fwhm));
-  const { bands, relative } = bandsFromFit(fit.bands, {
-    epsilonPerSignal, positionSd: fit.positionSd, noise, gridStep: step, thresholds,
+  const { bands: found, relative } = bandsFromFit(fit.bands, {
+    epsilonPerSignal, positionSd: fit.positionSd, noise, gridStep: step, thresholds, range,
     baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
   });
+  const bands = options.chargeTransferOnly === true ? found.map((b) => ({ ...b, kind: 'charge-transfer' as const })) : found;
   if (!fit.converged) warnings.push(`the band fit stopped after ${fit.iterations} iterations without converging: treat the band parameters with care`);
-  if (relative && bands.length > 0) warnings.push('no concentration given: bands classified by relative intensity and width only');
+  if (relative && bands.length > 0 && options.chargeTransferOnly !== true) warnings.push('no concentration given: bands classified by relative intensity and width only');
+  for (const b of bands) {
+    if (b.window === 'inside') continue;
+    const where = b.window.endsWith('red-end') ? `red (low-energy) end, ${Math.round(range[0])} cm-1` : `blue (high-energy) end, ${Math.round(range[1])} cm-1`;
+    warnings.push(b.maximumInWindow
+      ? `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum near the ${where}: its far side is not measured, so its centre is less certain (± ${b.positionUncertainty.toFixed(0)} cm-1)`
+      : `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum outside the measured range, beyond the ${where}: its centre is estimated from its flank (± ${b.positionUncertainty.toFixed(0)} cm-1)`);
+  }
   if (fit.edge !== null) warnings.push(`a UV absorption edge was modelled (a Gaussian tail centred at ${fit.edge.position.toFixed(0)} cm-1, above the measured range)`);
   return {
     points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid, baseline, model,
-    signalUnit: energy.signalUnit, bands, edge: fit.edge, noise,
+    signalUnit: energy.signalUnit, bands, edge: fit.edge, noise, quantization: quantum, stepCorrections,
     fit: { points: fx.length, parameters: fit.parameters, rms: fit.rms, iterations: fit.iterations, converged: fit.converged }, warnings,
   };
 }
+
+/** A band centre may lie up to this fraction of its FWHM below the low-energy end of the range. */
+const BEYOND_LOW_END = 0.6;
 
 /**
  * An edge is modelled when the last 10 % of the kept range rises by more
@@ -175,6 +256,23 @@ function chooseEdge(x: Float64Array, y: Float64Array, hull: Float64Array, noise:
   if (mode === 'auto' && !(rise > 5 * noise && endSlope > 2 * Math.max(meanSlope, 0))) return null;
   const atEnd = Math.max(rise, 5 * noise);
   return { position, fwhm, height: atEnd / gaussianValue(end, position, 1, fwhm) };
+}
+
+/**
+ * Data are smooth when their measured noise is no more than the rounding
+ * noise (1.5 q/√12), or, unrounded, under 2·10⁻⁴ of their range (smoothed
+ * or computed data). On such data the noise says nothing about how well
+ * Gaussians can describe real, asymmetric bands, and the band model's shape
+ * error must be allowed for; on noisy data the noise dominates it.
+ */
+function isSmooth(measured: number, quantum: number, y: Float64Array): boolean {
+  let min = Number.POSITIVE_INFINITY;
+  let max = Number.NEGATIVE_INFINITY;
+  for (const v of y) {
+    min = Math.min(min, v);
+    max = Math.max(max, v);
+  }
+  return measured <= Math.max(1.5 * quantum / Math.sqrt(12), 2e-4 * (max - min));
 }
 
 /**

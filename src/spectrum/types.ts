@@ -48,6 +48,18 @@ export interface ParsedFile {
   warnings: string[];
 }
 
+/** A detector change-over step removed from the data. */
+export interface StepCorrection {
+  /** Wavenumber of the jump, cm-1. */
+  position: number;
+  /** The same in nm. */
+  wavelength: number;
+  /** Size of the jump (value above it minus below it, in ascending wavenumber), signal unit; the low-energy side was shifted by it. */
+  size: number;
+  /** Size in noise deviations of the jump. */
+  significance: number;
+}
+
 /** Why a region of the spectrum was left out of the band analysis. */
 export type MaskReason = 'saturated' | 'detector-step' | 'negative';
 
@@ -60,6 +72,16 @@ export interface MaskedRegion {
 
 /** Kind of an absorption band. */
 export type BandKind = 'd-d' | 'spin-forbidden' | 'charge-transfer';
+
+/**
+ * Where a band's maximum lies relative to the measured range. "Red" is the
+ * low-energy (long-wavelength) end and "blue" the high-energy end, whatever
+ * part of the spectrum was measured. 'near-…' when the maximum is inside but
+ * less than half the band's FWHM from that end (the band's fall on the far
+ * side is not measured down to half height), 'beyond-…' when the centre had
+ * to be extrapolated from the flank inside the range.
+ */
+export type BandWindow = 'inside' | 'near-red-end' | 'near-blue-end' | 'beyond-red-end' | 'beyond-blue-end';
 
 /** One absorption band, modelled as a Gaussian in energy. */
 export interface Band {
@@ -82,6 +104,10 @@ export interface Band {
   positionUncertainty: number;
   /** True when the band shows no local maximum of its own in the fitted spectrum. */
   shoulder: boolean;
+  /** Where the maximum lies relative to the measured range (see BandWindow). */
+  window: BandWindow;
+  /** True when the centre lies within the measured range (window 'inside' or 'near-…'). */
+  maximumInWindow: boolean;
 }
 
 /** A charge-transfer or ligand absorption edge whose maximum lies above the measured range. */
@@ -131,6 +157,10 @@ export interface ProcessedSpectrum {
   edge: AbsorptionEdge | null;
   /** Noise standard deviation on the grid, signal unit. */
   noise: number;
+  /** Rounding step of the values as read (0.01 for two decimals), signal unit; 0 when not rounded. */
+  quantization: number;
+  /** Detector steps removed from the data (listed in warnings too); empty when none or correction was off. */
+  stepCorrections: StepCorrection[];
   fit: FitSummary;
   warnings: string[];
 }

@@ -12,11 +12,22 @@ export interface DetectorStep {
   size: number;
   /** Wavenumber midway across the jump, cm-1. */
   position: number;
+  /** |size| in noise deviations of the jump. */
+  significance: number;
 }
 
 export interface FindDetectorStepsOptions {
-  /** A jump must exceed this many of its own noise deviations. @default 6 */
+  /**
+   * A jump must exceed this many of its own noise deviations: a correction
+   * changes the user's data, so only overwhelming evidence counts. @default 12
+   */
   threshold?: number;
+  /** Lower bound of the noise deviation of one point (the rounding noise q/√12 of rounded data). @default 0 */
+  noiseFloor?: number;
+  /** The noise deviation of every point when known (rounded smooth data: q/√12); else estimated locally (xNoiseLocal). */
+  pointNoise?: number;
+  /** A jump must also be at least this large (several rounding steps: one step of the rounding is no evidence). @default 0 */
+  minSize?: number;
   /** A jump must also exceed this fraction of y's range (ignores rounding steps). @default 0.003 */
   minRelativeSize?: number;
   /** Points in the straight line fitted on each side. @default 8 */
@@ -34,14 +45,18 @@ export interface FindDetectorStepsOptions {
  * within `side` points, happens between the two points themselves (their
  * difference, less the local slope times their spacing, carries at least
  * half of it) and remains when those two
- * points are left out of the side fits: a steep but smooth rise, a band
- * edge or a one-point spike fails one of these.
+ * points are left out of the side fits, and is not undone by a jump of the
+ * other sign within 3 × side points: a steep but smooth rise, a band edge,
+ * a narrow band or a one-point spike fails one of these. The deviation of
+ * a jump is the larger of what the local noise predicts and the robust
+ * spread of all the jumps of the spectrum (smoothed noise wanders in
+ * stretches that the point-to-point noise does not show).
  */
 export function xyFindDetectorSteps(x: Float64Array, y: Float64Array, options: FindDetectorStepsOptions = {}): DetectorStep[] {
-  const { threshold = 6, minRelativeSize = 0.003, side = 8, maxSteps = 3 } = options;
+  const { threshold = 8, minRelativeSize = 0.003, side = 8, maxSteps = 3, noiseFloor = 0, minSize = 0 } = options;
   const n = y.length;
   if (n < 2 * side + 2) return [];
-  const noise = xNoiseLocal(y);
+  const noise = options.pointNoise === undefined ? xNoiseLocal(y) : new Float64Array(n).fill(options.pointNoise);
   let min = Number.POSITIVE_INFINITY;
   let max = Number.NEGATIVE_INFINITY;
   for (const v of y) {
@@ -50,15 +65,20 @@ export function xyFindDetectorSteps(x: Float64Array, y: Float64Array, options: F
   }
   const jump = new Float64Array(n - 1);
   const score = new Float64Array(n - 1);
+  const theory = new Float64Array(n - 1);
   for (let i = side - 1; i < n - side; i++) {
     const xm = ((x[i] as number) + (x[i + 1] as number)) / 2;
     const left = lineAt(x, y, i - side + 1, i + 1, xm);
     const right = lineAt(x, y, i + 1, i + side + 1, xm);
-    const sigma = Math.max(noise[i] as number, noise[i + 1] as number, 1e-300);
+    const sigma = Math.max(noise[i] as number, noise[i + 1] as number, noiseFloor, 1e-300);
     jump[i] = right.value - left.value;
-    score[i] = Math.abs(jump[i] as number) / (sigma * Math.sqrt(left.leverage + right.leverage));
+    theory[i] = sigma * Math.sqrt(left.leverage + right.leverage);
   }
-  const floor = minRelativeSize * (max - min);
+  // Smoothed (correlated) noise moves whole stretches: its second differences are small, its jumps are not. The jumps'
+  // own robust spread over the spectrum is a floor under their deviation.
+  const spread = xRobustSpread(jump.subarray(side - 1, n - side));
+  for (let i = side - 1; i < n - side; i++) score[i] = Math.abs(jump[i] as number) / Math.max(theory[i] as number, spread);
+  const floor = Math.max(minRelativeSize * (max - min), minSize);
   const steps: DetectorStep[] = [];
   for (let i = side - 1; i < n - side; i++) {
     const j = jump[i] as number;
@@ -75,12 +95,26 @@ export function xyFindDetectorSteps(x: Float64Array, y: Float64Array, options: F
     const outer = i - side >= 0 && i + side + 2 <= n
       ? lineAt(x, y, i + 2, i + side + 2, xm).value - lineAt(x, y, i - side, i, xm).value
       : j;
-    if (Math.sign(outer) === Math.sign(j) && Math.abs(outer) >= 0.5 * Math.abs(j)) {
-      steps.push({ index: i, size: j, position: ((x[i] as number) + (x[i + 1] as number)) / 2 });
+    // A narrow band rises and falls within a few points: a jump of the other sign close by makes it a band, not a step.
+    let returns = false;
+    for (let k = Math.max(side - 1, i - 3 * side); k <= Math.min(n - side - 1, i + 3 * side) && !returns; k++) {
+      if (k !== i && Math.sign(jump[k] as number) === -Math.sign(j) && Math.abs(jump[k] as number) >= 0.5 * Math.abs(j)) returns = true;
+    }
+    if (!returns && Math.sign(outer) === Math.sign(j) && Math.abs(outer) >= 0.5 * Math.abs(j)) {
+      steps.push({ index: i, size: j, position: ((x[i] as number) + (x[i + 1] as number)) / 2, significance: score[i] as number });
     }
   }
   steps.sort((a, b) => Math.abs(b.size) - Math.abs(a.size));
   return steps.slice(0, maxSteps).sort((a, b) => a.index - b.index);
+}
+
+/** 1.4826 × the median absolute deviation from the median (σ of normal data, robust to the few real jumps and band flanks). */
+function xRobustSpread(values: Float64Array): number {
+  if (values.length === 0) return 0;
+  const sorted = Float64Array.from(values).sort();
+  const centre = sorted[sorted.length >> 1] as number;
+  const deviations = Float64Array.from(values, (v) => Math.abs(v - centre)).sort();
+  return 1.4826 * (deviations[deviations.length >> 1] as number);
 }
 
 /** Least-squares line through points [from, to) evaluated at xm, with its leverage 1/k + (xm − x̄)²/Sxx. */

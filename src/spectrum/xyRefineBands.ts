@@ -42,6 +42,12 @@ export interface RefineBandsOptions {
   fwhmLimits?: [number, number];
   /** How far a band may move from its start, cm-1: max(its starting FWHM, this). @default 1500 */
   positionFreedom?: number;
+  /**
+   * How far below the low-energy end of the range a band's centre may lie,
+   * as a fraction of its starting FWHM (a band whose maximum is beyond the
+   * red end of a visible spectrum). @default 0
+   */
+  beyondLowEnd?: number;
   /** Levenberg–Marquardt iterations. @default 100 */
   maxIterations?: number;
   /** Weight of each point, 1/σ_i (so the fit is maximum likelihood under uneven noise). @default all 1 */
@@ -75,7 +81,7 @@ export interface RefineBandsResult {
 
 /** Fits over (x, y): x ascending (masked points removed), y the signal. */
 export function xyRefineBands(x: Float64Array, y: Float64Array, options: RefineBandsOptions): RefineBandsResult {
-  const { baselineOrder = 1, fwhmLimits = [250, 10000], positionFreedom = 1500, maxIterations = 100, chiSquareTolerance = 0.01 } = options;
+  const { baselineOrder = 1, fwhmLimits = [250, 10000], positionFreedom = 1500, maxIterations = 100, chiSquareTolerance = 0.01, beyondLowEnd = 0 } = options;
   const n = x.length;
   const xMin = x[0] as number;
   const xMax = x[n - 1] as number;
@@ -91,7 +97,7 @@ export function xyRefineBands(x: Float64Array, y: Float64Array, options: RefineB
   options.bands.forEach((c, j) => {
     const freedom = Math.max(c.fwhm, positionFreedom);
     initial.set([c.position, c.height, c.fwhm], 3 * j);
-    lower.set([Math.max(xMin, c.position - freedom), 0, fwhmLimits[0]], 3 * j);
+    lower.set([Math.max(Math.min(xMin, c.position) - beyondLowEnd * c.fwhm, c.position - freedom), 0, fwhmLimits[0]], 3 * j);
     upper.set([Math.min(xMax, c.position + freedom), 3 * yMax, fwhmLimits[1]], 3 * j);
   });
   const e0 = 3 * options.bands.length;

@@ -9,17 +9,23 @@ describe('classification thresholds (common practice, Lever 1984)', () => {
   const tet = defaultThresholds('tetrahedral');
   const band = (epsilon: number, fwhm = 3000, position = 17000) => ({ position, fwhm, height: 0, epsilon });
 
-  it('octahedral: ε 1–100 broad is d–d, ε < 1 or narrow and weak is spin-forbidden, ε ≥ 1000 is charge transfer', () => {
-    expect(bandKindFromEpsilon(band(10), oct)).toBe('d-d'); // common practice: octahedral spin-allowed ε ≈ 1–100
+  it('octahedral: ε 1–150 broad is d–d, ε < 1 or narrow and well below the strongest is spin-forbidden, ε ≥ 1000 is charge transfer', () => {
+    expect(bandKindFromEpsilon(band(10), oct)).toBe('d-d'); // common practice: octahedral spin-allowed ε ≈ 1–150
+    expect(bandKindFromEpsilon(band(140), oct)).toBe('d-d'); // common practice: octahedral spin-allowed ε ≈ 1–150
     expect(bandKindFromEpsilon(band(0.3), oct)).toBe('spin-forbidden'); // common practice: spin-forbidden ε < ~1
-    expect(bandKindFromEpsilon(band(3, 600), oct)).toBe('spin-forbidden'); // common practice: narrow spin-flip band
+    expect(bandKindFromEpsilon(band(3, 600), oct, 30)).toBe('spin-forbidden'); // common practice: narrow spin-flip band well below the spin-allowed ones
+    expect(bandKindFromEpsilon(band(3, 600), oct)).toBe('d-d'); // alone it is the strongest band: never spin-forbidden
     expect(bandKindFromEpsilon(band(5000), oct)).toBe('charge-transfer'); // common practice: CT ε > ~1000
     expect(bandKindFromEpsilon(band(400, 7000, 32000), oct)).toBe('charge-transfer'); // broad and strong at the UV edge
   });
 
-  it('tetrahedral: ε ≈ 600 is still d–d', () => {
-    expect(bandKindFromEpsilon(band(600), tet)).toBe('d-d'); // common practice: tetrahedral d–d ε ≈ 100–1000
-    expect(bandKindFromEpsilon(band(600, 800), tet)).toBe('spin-forbidden');
+  it('tetrahedral: ε 50–1500 is d–d, narrow components of an intense multiplet too', () => {
+    expect(bandKindFromEpsilon(band(600), tet)).toBe('d-d'); // common practice: tetrahedral d–d ε ≈ 50–1500
+    expect(bandKindFromEpsilon(band(1200), tet)).toBe('d-d'); // common practice: tetrahedral d–d ε ≈ 50–1500
+    expect(bandKindFromEpsilon(band(2000), tet)).toBe('charge-transfer'); // common practice: above the tetrahedral d–d range
+    // The visible multiplet of tetrahedral Co(II): components 360–600, narrow (issue 13's report).
+    const multiplet = [band(600, 800, 16000), band(520, 900, 17000), band(360, 800, 18500), band(40, 500, 20000)];
+    expect(bandsClassify(multiplet, tet).kinds).toEqual(['d-d', 'd-d', 'd-d', 'spin-forbidden']);
   });
 
   it('without ε classifies by relative height and width, and says so', () => {

@@ -27,6 +27,16 @@ const KINDS: { value: BandKind; text: string }[] = [
   { value: 'charge-transfer', text: 'charge transfer' },
 ];
 
+/** A short note when a band's maximum is not well inside the measured range. */
+function windowNote(window: string | undefined): HTMLElement | null {
+  const text: Record<string, string> = {
+    'near-red-end': 'maximum near the red end', 'near-blue-end': 'maximum near the blue end',
+    'beyond-red-end': 'maximum beyond the red end (estimated)', 'beyond-blue-end': 'maximum beyond the blue end (estimated)',
+  };
+  const note = window === undefined ? undefined : text[window];
+  return note === undefined ? null : h('div', { class: 'muted small' }, note);
+}
+
 function bandRow(entry: AnalysisEntry, band: EditableBand, index: number, handlers: BandHandlers): HTMLElement {
   const found = band.sourceIndex === null ? undefined : entry.result?.bands[band.sourceIndex];
   const fit = shownFit(entry);
@@ -51,7 +61,7 @@ function bandRow(entry: AnalysisEntry, band: EditableBand, index: number, handle
     { class: band.included ? '' : 'removed', 'data-position': band.position },
     h('th', { scope: 'row' }, band.origin === 'added' ? `${index + 1} (added)` : String(index + 1)),
     h('td', { class: 'num' }, formatNumber(band.position)),
-    h('td', { class: 'num' }, formatNumber(nmFromWavenumber(band.position), 1)),
+    h('td', { class: 'num' }, formatNumber(nmFromWavenumber(band.position), 1), windowNote(found?.window)),
     h('td', { class: 'num' }, formatNumber(band.epsilon, 1)),
     h('td', { class: 'num' }, formatNumber(found?.fwhm, 0)),
     h('td', {}, bandCaption(band, assignments), unused === undefined ? null : h('div', { class: 'muted small' }, `not used: ${unused.reason}`)),

@@ -83,6 +83,7 @@ export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): 
   const column = h('input', { id: 'column', name: 'column', placeholder: 'first y column' });
   const cOverB = h('input', { id: 'c-over-b', name: 'cOverB', inputmode: 'decimal', placeholder: 'free-ion value' });
   const freeC = h('input', { id: 'free-c', name: 'freeC', type: 'checkbox' });
+  const stepCorrection = h('input', { id: 'step-correction', name: 'stepCorrection', type: 'checkbox', checked: true });
 
   const analyseButton = h('button', { type: 'submit', id: 'analyse', class: 'button primary', disabled: queued.length === 0 }, 'Analyse');
   const form = h(
@@ -101,10 +102,11 @@ export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): 
     h(
       'details',
       {},
-      h('summary', {}, 'More: file columns, C/B'),
+      h('summary', {}, 'More: file columns, C/B, detector steps'),
       h('div', { class: 'row' }, field('x-unit', 'x unit of the file', xUnit), field('column', 'y column (number or name)', column)),
       field('c-over-b', 'C/B', cOverB),
       h('div', { class: 'check' }, freeC, h('label', { for: 'free-c' }, 'fit C as well (needs enough bands)')),
+      h('div', { class: 'check' }, stepCorrection, h('label', { for: 'step-correction' }, 'correct detector steps (only clear ones; each is listed with its size)')),
     ),
     analyseButton,
   );
@@ -124,6 +126,7 @@ export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): 
       column: column.value.trim(),
       cOverB: numberOrNull(cOverB.value),
       freeC: freeC.checked,
+      stepCorrection: stepCorrection.checked,
     };
     const files = queued.splice(0, queued.length);
     showQueue();

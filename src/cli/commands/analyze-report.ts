@@ -17,7 +17,7 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
       eps && b.epsilon !== null ? b.epsilon.toPrecision(3) : b.height.toPrecision(3),
       Math.round(b.fwhm).toString(),
       eps && b.oscillatorStrength !== null ? b.oscillatorStrength.toExponential(2) : '',
-      `${b.kind}${b.shoulder ? ' (shoulder)' : ''}`,
+      `${b.kind}${b.shoulder ? ' (shoulder)' : ''}${b.window === undefined || b.window === 'inside' ? '' : ` (maximum ${b.window.replace(/-/g, ' ')})`}`,
       assigned ? `${fit.groundLabel} → ${assigned.label}` : b.kind === 'charge-transfer' ? '(not fitted)' : '(unexplained)',
     ];
   });

@@ -29,6 +29,9 @@ bands, and fits 10Dq, Racah B and C to the d-d bands.
   --c-over-b R        fix C/B (default: the free ion's C0/B0, else 4.5)
   --c C               fix Racah C, cm-1
   --free-c            fit C as well (needs three d-d bands)
+  --no-step-correction  leave detector change-over steps in the data (by
+                      default a step is corrected only on overwhelming
+                      evidence, and listed with its size)
   --json              print the full result as JSON (one file), or all results
   --json FILE.json    write all results to FILE.json (batch)
   --threads N         worker threads for a batch (default: one per core;
@@ -49,6 +52,7 @@ const OPTIONS = {
   ...ANALYSIS_OPTIONS,
   csv: { type: 'string' },
   curves: { type: 'boolean' },
+  'no-step-correction': { type: 'boolean' },
 } as const;
 
 export const analyzeCommand: Command = {
@@ -123,11 +127,12 @@ export const analyzeCommand: Command = {
   },
 };
 
-function analysisOptions(values: Parameters<typeof analysisOptionsFrom>[0] & { curves?: boolean }): AnalyzeOptions {
+function analysisOptions(values: Parameters<typeof analysisOptionsFrom>[0] & { curves?: boolean; 'no-step-correction'?: boolean }): AnalyzeOptions {
   const options = analysisOptionsFrom(values);
   if (options.ion === undefined && options.d === undefined) {
     throw new FieldgapError('invalid-argument', '--ion is required (or --d N): the metal ion, e.g. --ion Cr3+', '--ion');
   }
   if (values.curves) options.curves = true;
+  if (values['no-step-correction']) options.stepCorrection = false;
   return options;
 }
