@@ -4,6 +4,7 @@
  * caller reads the file); the CLI, the service, the page and the library all
  * come through here, so they agree on every number.
  */
+import { parseFormula } from './chemistry/formula.js';
 import { FieldgapError, invalidArgument } from './errors.js';
 import { defaultBandSigma, fitBands, type BandInput, type FitResult } from './fit/index.js';
 import type { Geometry } from './ligand-field/types.js';
@@ -34,6 +35,10 @@ export interface AnalyzeOptions {
   c?: number;
   /** Fit C as well. @default false */
   freeC?: boolean;
+  /** The complex's formula ("[Co(H2O)6]2+"): ligand priors of the fit; the metal when no ion is given. @default none */
+  formula?: string;
+  /** Ligands ("H2O", "NH3,Cl") for the fit's 10Dq and β priors. @default none */
+  ligands?: string | string[];
   /** Return the curves on the energy grid (for plots). @default false */
   curves?: boolean;
 }
@@ -90,7 +95,8 @@ export function analyzeSpectrum(content: string | Uint8Array, options: AnalyzeOp
 }
 
 function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: AnalyzeOptions, warnings: string[]): AnalyzeResult {
-  const geometry = options.geometry ?? 'octahedral';
+  // A formula's geometry guess (from its coordination number) stands in when none is given.
+  const geometry = options.geometry ?? formulaGeometry(options.formula) ?? 'octahedral';
   const processed = processSpectrum(spectrum, {
     geometry,
     ...(options.concentration !== undefined && { concentration: options.concentration }),
@@ -113,6 +119,10 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
       ...(options.cOverB !== undefined && { cOverB: options.cOverB }),
       ...(options.c !== undefined && { c: options.c }),
       ...(options.freeC !== undefined && { freeC: options.freeC }),
+      ...(options.formula !== undefined && { formula: options.formula }),
+      ...(options.ligands !== undefined && { ligands: options.ligands }),
+      // The measured range: a strong transition predicted inside it must show a band.
+      window: { min: processed.range[0], max: processed.range[1] },
     });
   } catch (error) {
     if (error instanceof FieldgapError && error.code === 'unexplained') {
@@ -171,6 +181,16 @@ function bandToFitInput(band: Band): BandInput {
   return input;
 }
 
+/** The geometry guessed from a formula, or undefined (the fit reports a bad formula with its path). */
+function formulaGeometry(formula: string | undefined): Geometry | undefined {
+  if (formula === undefined) return undefined;
+  try {
+    return parseFormula(formula).geometry;
+  } catch {
+    return undefined;
+  }
+}
+
 function positions(bands: readonly Band[]): string {
   return bands.map((b) => Math.round(b.position)).join(', ');
 }
@@ -184,7 +204,7 @@ function parseOptions(options: Pick<AnalyzeOptions, 'fileName' | 'xUnit' | 'yUni
 }
 
 function checkOptions(options: AnalyzeOptions): void {
-  if (options.ion === undefined && options.d === undefined) {
+  if (options.ion === undefined && options.d === undefined && options.formula === undefined) {
     throw invalidArgument('ion', 'the metal ion (ion, e.g. Cr3+) or the d-electron count (d) is needed for the fit');
   }
   for (const key of ['concentration', 'pathLength'] as const) {

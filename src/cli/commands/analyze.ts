@@ -26,6 +26,10 @@ bands, and fits 10Dq, Racah B and C to the d-d bands.
   --c-over-b R        fix C/B (default: the free ion's C0/B0, else 4.5)
   --c C               fix Racah C, cm-1
   --free-c            fit C as well (needs three d-d bands)
+  --formula F         the complex, e.g. "[Co(H2O)6]2+": ligand priors for the
+                      assignment (10Dq, beta); the ion and a geometry guess when
+                      --ion and --geometry are not given
+  --ligands L         ligands for the priors, e.g. H2O or "NH3,Cl"
   --json              print the full result as JSON (one file), or all results
   --json FILE.json    write all results to FILE.json (batch)
   --csv FILE          write the one-row-per-spectrum summary to FILE (batch):
@@ -38,6 +42,8 @@ well; 1 some spectra in a batch failed (their rows say why); 2 bad input.`;
 
 const OPTIONS = {
   ...ANALYSIS_OPTIONS,
+  formula: { type: 'string' },
+  ligands: { type: 'string' },
   csv: { type: 'string' },
   curves: { type: 'boolean' },
 } as const;
@@ -112,9 +118,11 @@ export const analyzeCommand: Command = {
   },
 };
 
-function analysisOptions(values: Parameters<typeof analysisOptionsFrom>[0] & { curves?: boolean }): AnalyzeOptions {
+function analysisOptions(values: Parameters<typeof analysisOptionsFrom>[0] & { curves?: boolean; formula?: string; ligands?: string }): AnalyzeOptions {
   const options = analysisOptionsFrom(values);
-  if (options.ion === undefined && options.d === undefined) {
+  if (values.formula !== undefined) options.formula = values.formula;
+  if (values.ligands !== undefined) options.ligands = values.ligands;
+  if (options.ion === undefined && options.d === undefined && options.formula === undefined) {
     throw new FieldgapError('invalid-argument', '--ion is required (or --d N): the metal ion, e.g. --ion Cr3+', '--ion');
   }
   if (values.curves) options.curves = true;
