@@ -11,22 +11,31 @@
  *    3.0, 3.5, …, 6.5 (move-candidate.ts), and the winner's polish starting
  *    from the C/B of a parabola through three of them (free-c-start.ts).
  * 3. Every order-consistent assignment on every spin branch at its grid
- *    optimum (closed-form B per grid point: profile.ts), in typed arrays
- *    (candidates.ts). The grid rms is a lower bound of the score, so
- *    penalties are computed only for the few that can still win: the best
- *    REFINED_CANDIDATES, and the best of each spin branch that could be shown
- *    as an alternative. The band list is tried whole and then reduced
- *    (reductions.ts: bands left unexplained, close pairs merged) in order of
- *    the reduction's penalty, stopping when that penalty alone exceeds the
- *    best score found so far (usually right after the whole list).
+ *    optimum (closed-form B per grid point: profile.ts; where two roots fit
+ *    equally, the one the β and 10Dq priors prefer), in typed arrays
+ *    (candidates.ts). The score is a deviance, −2·ln of the posterior
+ *    (likelihood.ts): the grid χ² (σ² plus model error) is a lower bound of
+ *    it, so the other terms are computed only for the few that can still
+ *    win: the best REFINED_CANDIDATES, and the best of each spin branch that
+ *    could be shown as an alternative, and the best that explains every
+ *    band. The band list is tried whole and then reduced (reductions.ts:
+ *    bands left unexplained, close pairs merged) in order of the reduction's
+ *    term, stopping when that term alone exceeds the best score found so far.
  * 3b. Those are refined on the interpolated scan (evaluate-scan.ts; no
  *    engine call) and the winner is polished by Levenberg–Marquardt with the
- *    full engine (refine.ts), which also gives the Jacobian for the
- *    uncertainties. With a fixed C every refinement uses the engine. Only
- *    self-consistent solutions are kept: the assumed ground level is the
- *    ground level at the result.
- * 4. The lowest score wins. A winner whose rms exceeds max(1000 cm-1, 5% of
+ *    full engine (refine.ts, B bounded to β 0.15–1.25), which also gives the
+ *    Jacobian for the uncertainties. With a fixed C every refinement uses the
+ *    engine. Only self-consistent solutions are kept: the assumed ground
+ *    level is the ground level at the result.
+ * 4. The lowest score wins; probabilities are exp(−score/2) normalised over
+ *    the solutions evaluated. A winner whose rms exceeds max(1000 cm-1, 5% of
  *    the mean band position) is not a fit: FieldgapError('unexplained').
+ * 5. What the bands cannot fix (likelihood.ts priors stand in): a free C with
+ *    σ(C) above 25% of C, or that no band depends on, is fixed at its prior
+ *    C/B with a warning and an `undetermined` entry. Conversely, with the C/B
+ *    only assumed (not given) and at least AUTO_FREE_C_MIN_BANDS bands that
+ *    the assumed C/B fits poorly or only by leaving bands out, C/B is
+ *    estimated with its prior and kept when it wins by more than ln m.
  */
 import { FieldgapError } from '../errors.js';
 import { normalizeBands } from './bands.js';
