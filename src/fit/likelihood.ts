@@ -38,6 +38,10 @@
  *     (< 5000 cm-1) p = 0.3 octahedral, 1 tetrahedral; a tetrahedral ion's
  *     lowest transition below 7000 cm-1 p = 0.7; else p = 0.05.
  *   (Values: common practice.)
+ * - A band explained by a spin-forbidden transition beside spin-allowed ones:
+ *   −2·ln 0.15, the chance that a given one of the many weak spin-forbidden
+ *   transitions shows as a band at all (common practice: a few sharp ones
+ *   do); without it any stray band finds a doublet within its σ.
  * - Intensities, for bands that carry ε (L mol-1 cm-1): ln ε ~ Normal(μ, 1.3)
  *   with ε_μ = 20 for octahedral spin-allowed d–d bands, 300 tetrahedral
  *   (common practice: 1–150 and 50–1 500), a tenth of that for a two-electron
@@ -87,6 +91,7 @@ export const LIKELIHOOD = {
   jahnTellerPair: 0.5,
   jahnTellerRatio: 1.3,
   missAllowed: 0.003,
+  forbiddenSeen: 0.15,
   missTwoElectron: 0.5,
   missForbiddenClass: 0.2,
   missBelowOctahedral: 0.05,

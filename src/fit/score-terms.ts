@@ -13,6 +13,7 @@ import {
 } from './penalties.js';
 import type { FitSettings } from './settings.js';
 import { twoElectronLevels } from './two-electron.js';
+import { deviance, LIKELIHOOD } from './likelihood.js';
 import type { Penalty } from './types.js';
 
 export interface ScoreTermsInput {
@@ -69,7 +70,13 @@ export function scoreTerms(input: ScoreTermsInput): ScoreTerms {
       twoElectron: two[levels[i]!] === 1,
     })),
   });
-  return { ...skip, penalties: [...skip.penalties, ...priors, ...intensity] };
+  // A band taken by a spin-forbidden transition beside spin-allowed ones: only a few of those show at all.
+  const forbidden: Penalty[] = allForbidden ? [] : observations.flatMap((o, i) =>
+    scan.ids[levels[i]!]!.multiplicity === branch.multiplicity ? [] : [{
+      rule: 'forbidden-band' as const, amount: deviance(LIKELIHOOD.forbiddenSeen),
+      detail: `the band at ${Math.round(o.position)} cm-1 is taken as the spin-forbidden ${scan.ids[levels[i]!]!.label}, one of many weak transitions that seldom show`,
+    }]);
+  return { ...skip, penalties: [...skip.penalties, ...priors, ...intensity, ...forbidden] };
 }
 
 /**
