@@ -30,6 +30,9 @@
  *     highest band (when it is not), or under a charge-transfer band: p = 1;
  *   · within 300 cm-1 (or half the band width) of an assigned transition:
  *     p = 1, it lies under that band;
+ *   · inside the measured range above the highest band: the lowest such
+ *     transition p = max(0.1, p below), those above it p = 1 (a rising
+ *     charge-transfer tail hides the near-UV end of many spectra);
  *   · inside the measured range, or between observed bands: a one-electron
  *     spin-allowed transition p = 0.003 (it is strong and must appear); a
  *     two-electron one p = 0.5 (weak); one of a spin-forbidden class (high-
@@ -91,6 +94,7 @@ export const LIKELIHOOD = {
   jahnTellerPair: 0.5,
   jahnTellerRatio: 1.3,
   missAllowed: 0.003,
+  missAboveHighest: 0.1,
   forbiddenSeen: 0.15,
   missTwoElectron: 0.5,
   missForbiddenClass: 0.2,

@@ -90,6 +90,7 @@ export function skippedTransitionPenalties(context: SkipContext): SkipOutcome {
   const highest = Math.max(...calcs);
   const lowest = Math.min(...calcs);
   const lowestOfClass = Math.min(...transitions.map((t) => t.energy));
+  let aboveCharged = false;
   for (const t of [...transitions].sort((a, b) => a.energy - b.energy)) {
     if (taken.has(t.level)) continue;
     const add = (reason: string, p: number) => {
@@ -106,6 +107,13 @@ export function skippedTransitionPenalties(context: SkipContext): SkipOutcome {
       add('lies under the charge-transfer band', 1);
     } else if (!window && t.energy > highest) {
       add('lies above the highest band (outside the range, or under charge transfer)', 1);
+    } else if (window && t.energy > highest) {
+      // Above the highest band the rising charge-transfer tail may hide it: the lowest such transition is charged
+      // (weakly), the ones above it are hidden if it is.
+      const first = !aboveCharged;
+      aboveCharged = true;
+      const miss = missInside(t, context.classForbidden);
+      add(first ? `${miss.why} but no band is assigned to it (above the highest band: perhaps under a charge-transfer tail)` : 'lies above another transition missing above the highest band', first ? Math.max(miss.p, LIKELIHOOD.missAboveHighest) : 1);
     } else if (window || t.energy > lowest) {
       const miss = missInside(t, context.classForbidden);
       add(`${miss.why} but no band is assigned to it${window ? ' within the measured range' : ' between the observed bands'}`, miss.p);
