@@ -193,3 +193,18 @@ describe('ligand priors', () => {
     expect(() => fitBands({ ion: 'Cr3+', formula: '[Co(H2O)6]2+', bands: [17400, 24600] })).toThrow(/Co2\+, but the ion given is Cr3\+/);
   });
 });
+
+describe('a window reaching into the near UV', () => {
+  it('does not let the many unseen doublets of low-spin d7 out-score the right spin state', () => {
+    // Not an outside check: bands of the project's own engine for low-spin d7 at Dq = 2139, B = 670, C/B = 4.5
+    // (2T1g(G), 2T2g(G), 2T1g(P) at 19 278, 19 956, 23 805 cm-1, rounded as a band finder reports them).
+    const bands = '19400, 20000, 23800';
+    const without = fitBands({ ion: 'Co2+', bands });
+    const withWindow = fitBands({ ion: 'Co2+', bands, window: { min: 1e7 / 1100, max: 1e7 / 200 } });
+    expect(without.spinState).toBe('low-spin');
+    expect(withWindow.spinState).toBe('low-spin');
+    expect(withWindow.spinStateProbabilities['low-spin']).toBeGreaterThan(0.5);
+    // Only the lowest strong transition missing above the highest band is charged (a charge-transfer tail may hide it).
+    expect(withWindow.penalties.filter((p) => p.rule === 'skipped-transition').length).toBeLessThanOrEqual(1);
+  });
+});
