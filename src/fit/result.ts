@@ -192,6 +192,16 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   const beta = bFit !== null && settings.b0 !== null ? bFit / settings.b0 : null;
   const { uncertainty, correlation, basis } = fitUncertainty(best, sorted.weighted);
   const status = statusOf(best);
+  // A standard uncertainty as large as the value itself: the bands do not fix it, whatever the fit's status says.
+  const loose: Array<['tenDq' | 'b' | 'c', number | null, number | null]> = [
+    ['tenDq', 10 * best.params.dq, uncertainty.tenDq], ['b', bFit, uncertainty.b], ['c', settings.mode === 'free' ? cFit : null, uncertainty.c],
+  ];
+  for (const [parameter, value, sigma] of loose) {
+    if (value === null || sigma === null || !(sigma >= 0.5 * Math.abs(value))) continue;
+    const name = parameter === 'tenDq' ? '10Dq' : parameter.toUpperCase();
+    undetermined.push({ parameter, reason: `its uncertainty (${sigma.toPrecision(2)} cm-1) is ${sigma >= Math.abs(value) ? 'larger than' : 'more than half'} the value`, action: 'reported, but not fixed by these bands' });
+    warnings.push(`${name} = ${Math.round(value)} cm-1 is not fixed by these bands: its uncertainty is ${sigma.toPrecision(2)} cm-1`);
+  }
   const crossover = crossoverOf(best, settings);
   if (status.status === 'not-converged') warnings.push(status.message);
   if (crossover?.near) {

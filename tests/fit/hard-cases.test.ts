@@ -164,6 +164,16 @@ describe('honest when the bands cannot fix a parameter', () => {
     expect(r.uncertainty.c!).toBeLessThan(0.1 * r.c!);
   });
 
+  it('a parameter whose uncertainty is as large as itself is listed as not fixed, with a warning', () => {
+    // Not an outside check: the Cr(III) aqua maxima (Lever 1984, from memory) given with a σ of 3 000 cm-1 each.
+    const r = fitBands({ ion: 'Cr3+', bands: '17400±3000, 24600±3000' });
+    expect(r.uncertainty.b!).toBeGreaterThan(0.5 * r.b!);
+    expect(r.undetermined.map((u) => u.parameter)).toContain('b');
+    expect(r.warnings.join(' ')).toMatch(/B = \d+ cm-1 is not fixed by these bands/);
+    // The same maxima with the default σ fix B well: nothing listed.
+    expect(fitBands({ ion: 'Cr3+', bands: [17400, 24600] }).undetermined).toEqual([]);
+  });
+
   it('one band: 10Dq only, B not reported and listed as undetermined', () => {
     const r = fitBands({ ion: 'Cu2+', bands: [12500] });
     expect(r.b).toBeNull();
