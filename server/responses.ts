@@ -121,7 +121,15 @@ export const fitResponse = z.looseObject({
   assignments: z.array(
     z.looseObject({ observed: num, calculated: num, residual: num, term: z.string(), parent: z.string(), label: z.string() }),
   ),
-  alternatives: z.array(z.looseObject({ rmsResidual: num, dq: num, reason: z.string() })),
+  alternatives: z.array(z.looseObject({
+    rmsResidual: num, dq: num, reason: z.string(),
+    probability: num.meta({ description: 'Probability of this alternative among the solutions evaluated.' }),
+  })),
+  probability: num.meta({ description: 'Probability of the chosen assignment: exp(−score/2) normalised over the solutions evaluated.' }),
+  spinStateProbabilities: z.record(z.string(), num).meta({ description: 'Probability of each spin state, e.g. {"high-spin": 0.99, "low-spin": 0.01}.' }),
+  undetermined: z.array(z.looseObject({ parameter: z.string(), reason: z.string(), action: z.string() })).meta({
+    description: 'Parameters the bands cannot fix, and what was done (fixed at the prior, or not reported).',
+  }),
   predicted: z.array(z.looseObject({ energy: num, term: z.string(), label: z.string(), spinAllowed: z.boolean() })),
   warnings: z.array(z.string()),
 });

@@ -96,6 +96,17 @@ const bandObject = z.strictObject({
 
 export const band = z.union([positive('Band maximum in cm-1.').max(LIMITS.maxEnergy), bandObject]);
 
+/** The complex's formula, for the fit's ligand priors (and the ion and a geometry guess when not given). */
+const formulaField = z.string().trim().min(1).max(200).meta({
+  description: 'The complex, e.g. "[Co(H2O)6]2+": ligand priors of the assignment (10Dq, β); the ion and a geometry guess when not given.',
+  examples: ['[Co(H2O)6]2+'],
+});
+
+/** Ligands for the fit's priors. */
+const ligandsField = z
+  .union([z.string().trim().min(1).max(200), z.array(z.string().trim().min(1).max(40)).max(12)])
+  .meta({ description: 'Ligands for the 10Dq and β priors: "H2O", "NH3,Cl" or a list.', examples: ['H2O'] });
+
 export const fitBody = z
   .strictObject({
     ion: ion.optional(),
@@ -107,8 +118,15 @@ export const fitBody = z
     cOverB: positive('Fixed C/B ratio for the fit.').max(20).optional(),
     c: positive('Fixed Racah C in cm-1.').max(LIMITS.maxEnergy).optional(),
     freeC: z.boolean().optional().meta({ description: 'Fit C as a free parameter (needs enough bands).' }),
+    formula: formulaField.optional(),
+    ligands: ligandsField.optional(),
+    window: z
+      .strictObject({ min: positive('Lowest wavenumber measured, cm-1.').max(LIMITS.maxEnergy), max: positive('Highest wavenumber measured, cm-1.').max(LIMITS.maxEnergy) })
+      .refine((w) => w.max > w.min, { message: 'window.max must be above window.min', path: ['max'] })
+      .optional()
+      .meta({ description: 'The measured range, cm-1: a strong transition predicted inside it must show a band.' }),
   })
-  .refine((body) => body.ion !== undefined || body.d !== undefined, {
+  .refine((body) => body.ion !== undefined || body.d !== undefined || body.formula !== undefined, {
     message: 'give the metal as "ion" (e.g. "Cr3+") or as "d" (the d-electron count)',
     path: ['ion'],
   });
@@ -133,6 +151,8 @@ export const analyzeFields = z.strictObject({
   cOverB: positive('Fixed C/B ratio for the fit.').max(20).optional(),
   c: positive('Fixed Racah C in cm-1.').max(LIMITS.maxEnergy).optional(),
   freeC: z.boolean().optional().meta({ description: 'Fit C as a free parameter.' }),
+  formula: formulaField.optional(),
+  ligands: ligandsField.optional(),
   curves: z.boolean().optional().meta({
     description: 'Also return the curves on the energy grid (signal, baseline, model, components) for plotting.',
   }),

@@ -5,6 +5,7 @@
  * come through here, so they agree on every number.
  */
 import { checkCorrections, fitWithAlternative, type AnalysisCorrections } from './analysis-corrections.js';
+import { parseFormula } from './chemistry/formula.js';
 import { FieldgapError, invalidArgument } from './errors.js';
 import { defaultBandSigma, fitBands, type BandInput, type FitResult } from './fit/index.js';
 import type { Geometry } from './ligand-field/types.js';
@@ -42,6 +43,10 @@ export interface AnalyzeOptions {
    * false leaves the data exactly as read. @default true
    */
   stepCorrection?: boolean;
+  /** The complex's formula ("[Co(H2O)6]2+"): ligand priors of the fit; the metal when no ion is given. @default none */
+  formula?: string;
+  /** Ligands ("H2O", "NH3,Cl") for the fit's 10Dq and β priors. @default none */
+  ligands?: string | string[];
   /** Return the curves on the energy grid (for plots). @default false */
   curves?: boolean;
   /** The user's corrections (band list, chosen assignment), see analysis-corrections.ts. @default none */
@@ -106,8 +111,9 @@ export function analyzeSpectrum(content: string | Uint8Array, options: AnalyzeOp
 }
 
 function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: AnalyzeOptions, warnings: string[]): AnalyzeResult {
-  const geometry = options.geometry ?? 'octahedral';
-  const d = options.d ?? (options.ion === undefined ? undefined : parseIon(options.ion).d);
+  // A formula's geometry guess (from its coordination number) stands in when none is given.
+  const geometry = options.geometry ?? formulaGeometry(options.formula) ?? 'octahedral';
+  const d = options.d ?? dCountOf(options.ion ?? formulaMetal(options.formula));
   const processed = processSpectrum(spectrum, {
     geometry,
     // d0 (MnO4-, CrO4 2-) and d10 have no d–d transitions: every band is charge transfer.
@@ -137,6 +143,10 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
       ...(options.cOverB !== undefined && { cOverB: options.cOverB }),
       ...(options.c !== undefined && { c: options.c }),
       ...(options.freeC !== undefined && { freeC: options.freeC }),
+      ...(options.formula !== undefined && { formula: options.formula }),
+      ...(options.ligands !== undefined && { ligands: options.ligands }),
+      // The measured range: a strong transition predicted inside it must show a band.
+      window: { min: processed.range[0], max: processed.range[1] },
     });
   } catch (error) {
     if (error instanceof FieldgapError && error.code === 'unexplained') {
@@ -199,6 +209,36 @@ function bandToFitInput(band: Band): BandInput {
   return input;
 }
 
+/** The geometry guessed from a formula, or undefined (the fit reports a bad formula with its path). */
+function formulaGeometry(formula: string | undefined): Geometry | undefined {
+  if (formula === undefined) return undefined;
+  try {
+    return parseFormula(formula).geometry;
+  } catch {
+    return undefined;
+  }
+}
+
+/** The metal ion of a formula ("Co2+"), or undefined when there is none or it does not read. */
+function formulaMetal(formula: string | undefined): string | undefined {
+  if (formula === undefined) return undefined;
+  try {
+    return parseFormula(formula).metal.label;
+  } catch {
+    return undefined;
+  }
+}
+
+/** The d-electron count of an ion label, or undefined (the fit reports a bad ion with its path). */
+function dCountOf(ion: string | undefined): number | undefined {
+  if (ion === undefined) return undefined;
+  try {
+    return parseIon(ion).d;
+  } catch {
+    return undefined;
+  }
+}
+
 function positions(bands: readonly Band[]): string {
   return bands.map((b) => Math.round(b.position)).join(', ');
 }
@@ -212,7 +252,7 @@ function parseOptions(options: Pick<AnalyzeOptions, 'fileName' | 'xUnit' | 'yUni
 }
 
 function checkOptions(options: AnalyzeOptions): void {
-  if (options.ion === undefined && options.d === undefined) {
+  if (options.ion === undefined && options.d === undefined && options.formula === undefined) {
     throw invalidArgument('ion', 'the metal ion (ion, e.g. Cr3+) or the d-electron count (d) is needed for the fit');
   }
   for (const key of ['concentration', 'pathLength'] as const) {

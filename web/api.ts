@@ -4,7 +4,7 @@
  * problem is; a network failure or a non-JSON answer gets code 'network'.
  */
 import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult, LibraryPage, LibraryRecord, SeriesReport } from './types.js';
-import type { FitRequest, SampleDetails } from './state.js';
+import { priorFields, type FitRequest, type SampleDetails } from './state.js';
 
 export class ApiError extends Error {
   readonly body: ApiErrorBody;
@@ -67,6 +67,9 @@ export function analyzeQuery(details: SampleDetails): URLSearchParams {
   if (details.cOverB !== null) query.set('cOverB', String(details.cOverB));
   if (details.freeC) query.set('freeC', 'true');
   if (details.stepCorrection === false) query.set('stepCorrection', 'false');
+  const priors = priorFields(details);
+  if (priors.formula !== undefined) query.set('formula', priors.formula);
+  if (priors.ligands !== undefined) query.set('ligands', priors.ligands);
   // The page plots the spectrum, so it always asks for the curves.
   query.set('curves', 'true');
   return query;

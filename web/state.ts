@@ -3,6 +3,8 @@
  * user has corrected them, and the fit currently shown. Plain data; views
  * read it and call the actions in main.ts to change it.
  */
+import { parseFormula } from '../src/chemistry/formula.js';
+import { findLigand } from '../src/chemistry/ligands.js';
 import { defaultBandSigma } from '../src/fit/observations.js';
 import type { AnalyzeResult, ApiErrorBody, Band, BandFlag, BandKind, FitResult, Geometry, XUnit } from './types.js';
 
@@ -165,6 +167,10 @@ export interface FitRequest {
   bands: FitRequestBand[];
   cOverB?: number;
   freeC: boolean;
+  /** The measured range, cm-1, for the fit's window terms. */
+  window?: { min: number; max: number };
+  formula?: string;
+  ligands?: string;
 }
 
 /** The POST /api/v1/fit body for the entry's current corrections. */
@@ -187,6 +193,11 @@ export function fitRequestFor(entry: AnalysisEntry): FitRequest {
   if (ion !== '') request.ion = ion;
   else if (entry.details.d !== null) request.d = entry.details.d;
   if (entry.cOverB !== null) request.cOverB = entry.cOverB;
+  const range = entry.result?.spectrum.range;
+  if (range) request.window = { min: range[0], max: range[1] };
+  const priors = priorFields(entry.details);
+  if (priors.formula !== undefined) request.formula = priors.formula;
+  if (priors.ligands !== undefined) request.ligands = priors.ligands;
   return request;
 }
 
@@ -201,6 +212,26 @@ export function correctionsFor(entry: AnalysisEntry): { bands?: FitRequestBand[]
   if (hasBandCorrections(entry)) out.bands = fitRequestFor(entry).bands;
   if (entry.shownAlternative !== null) out.alternative = entry.shownAlternative;
   return out.bands === undefined && out.alternative === undefined ? null : out;
+}
+
+/**
+ * The formula and ligands of the details as the fit's priors: only when they
+ * read (a free-text formula the library keeps need not be one the fit can use).
+ */
+export function priorFields(details: SampleDetails): { formula?: string; ligands?: string } {
+  const out: { formula?: string; ligands?: string } = {};
+  const formula = details.formula.trim();
+  if (formula !== '') {
+    try {
+      const parsed = parseFormula(formula);
+      if (details.ion.trim() === '' || parsed.metal.label === details.ion.trim()) out.formula = formula;
+    } catch {
+      // Not a formula the fit reads: no ligand prior from it.
+    }
+  }
+  const ligands = details.ligand.split(',').map((l) => l.trim()).filter((l) => l !== '');
+  if (ligands.length > 0 && ligands.every((l) => findLigand(l) !== undefined)) out.ligands = ligands.join(',');
+  return out;
 }
 
 /** True when the bands or the fit differ from what the analysis found. */

@@ -108,6 +108,12 @@ export interface FitResult {
   predicted: PredictedLevel[];
   warnings: string[];
   notes?: string[];
+  /** Probability of the chosen assignment among those evaluated. */
+  probability?: number;
+  /** Probability of each spin state ("high-spin", "low-spin"; "no-choice" when the ion has none). */
+  spinStateProbabilities?: Record<string, number>;
+  /** Parameters the bands cannot fix, and what the fit did about it. */
+  undetermined?: { parameter: string; reason: string; action: string }[];
 }
 
 /** A competing assignment the fit found close to the best one (no uncertainties). */
@@ -123,6 +129,8 @@ export interface Alternative {
   spinState?: string;
   /** Why the best assignment was preferred to this one. */
   reason?: string;
+  /** Probability of this assignment among those evaluated. */
+  probability?: number;
 }
 
 /** The curves behind the spectrum plot, on one uniform grid in cm-1 (ascending). */

@@ -40,6 +40,8 @@ export function toAnalyzeOptions(fields: AnalyzeFields, fileName: string | undef
   if (fields.cOverB !== undefined) options.cOverB = fields.cOverB;
   if (fields.c !== undefined) options.c = fields.c;
   if (fields.freeC !== undefined) options.freeC = fields.freeC;
+  if (fields.formula !== undefined) options.formula = fields.formula;
+  if (fields.ligands !== undefined) options.ligands = typeof fields.ligands === 'string' ? fields.ligands : [...fields.ligands];
   if (fields.curves !== undefined) options.curves = fields.curves;
   if (fields.stepCorrection !== undefined) options.stepCorrection = fields.stepCorrection;
   return options;

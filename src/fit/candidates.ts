@@ -18,12 +18,12 @@ import type { Branch } from './enumerate.js';
 import { enumerateAssignments, primaryClass, scanBranches, type AssignmentTable } from './enumerate.js';
 import { averageObservations, type Observation, type SortedObservations } from './observations.js';
 import type { Reduction } from './reductions.js';
-import {
-  LIMITS, PENALTY, penaltyTotal, plausibilityPenalties, skippedTransitionPenalties,
-  type ClassTransition,
-} from './penalties.js';
+import { LIMITS, penaltyTotal, type ClassTransition } from './penalties.js';
+import { deviance, effectiveWeight, LIKELIHOOD } from './likelihood.js';
 import { gridOptimum, type GridSolution } from './profile.js';
-import { promotedElectrons, type LevelScan } from './scan.js';
+import type { LevelScan } from './scan.js';
+import { scoreTerms } from './score-terms.js';
+import { twoElectronLevels } from './two-electron.js';
 import type { FitSettings } from './settings.js';
 import type { Penalty } from './types.js';
 
@@ -56,7 +56,7 @@ export interface GridCandidate {
   variant: Variant;
   levels: Int32Array;
   grid: GridSolution;
-  /** Grid rms plus the variant's own penalties: a lower bound of approxScore. */
+  /** Grid χ² (σ² + σm², likelihood.ts) plus the variant's own terms: a lower bound of approxScore. */
   wrms: number;
   /** NaN until approximateScore() computes it. */
   approxScore: number;
@@ -75,7 +75,7 @@ export interface DqOnlyCandidate {
 
 function jahnTellerPenalty(components: Observation[]): Penalty {
   const ratio = components[components.length - 1]!.position / components[0]!.position;
-  const amount = PENALTY.jahnTellerPair + 2000 * Math.max(0, ratio - LIMITS.jahnTellerRatio);
+  const amount = deviance(LIKELIHOOD.jahnTellerPair) + (10 * Math.max(0, ratio - LIMITS.jahnTellerRatio)) ** 2;
   const list = components.map((o) => Math.round(o.position)).join(' and ');
   return { rule: 'jahn-teller-pair', amount, detail: `${list} cm-1 averaged as Jahn–Teller components of one transition` };
 }
@@ -143,11 +143,11 @@ export function dqOnlyLevel(scan: LevelScan, branch: Branch): number | undefined
 /** Transitions of the branch's primary class at grid point j and scale b, in cm-1. */
 export function classTransitionsAt(scan: LevelScan, branch: Branch, j: number, b: number): ClassTransition[] {
   const n = scan.ids.length;
-  const promoted = promotedElectrons(scan, branch.ground);
+  const two = twoElectronLevels(scan, branch.ground);
   return primaryClass(branch).levels.map((k) => ({
     level: k, term: scan.ids[k]!.term, label: scan.ids[k]!.label,
     energy: b * (scan.energies[j * n + k]! - scan.energies[j * n + branch.ground]!),
-    twoElectron: Math.abs(promoted[k]!) >= 2,
+    twoElectron: two[k] === 1,
   }));
 }
 
@@ -173,8 +173,8 @@ export function candidateGroups(
   scan: LevelScan,
   reduction: Reduction,
   p: number,
+  prior?: (b: number, dq: number) => number,
 ): { groups: CandidateGroup[]; dqOnly: DqOnlyCandidate[] } {
-  const { sorted } = reduction;
   // Reduced band lists are many and only need to find a winner: a coarse pass over the grid first.
   const stride = reduction.penalty > 0 ? REDUCED_GRID_STRIDE : 1;
   const groups: CandidateGroup[] = [];
@@ -192,8 +192,8 @@ export function candidateGroups(
       }
       const table = enumerateAssignments(scan, branch, variant.nPrimary, m - variant.nPrimary);
       const o = Float64Array.from(variant.observations, (obs) => obs.position);
-      const w = Float64Array.from(variant.observations, (obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
-      const wSum = w.reduce((s, v) => s + v, 0);
+      // χ² weights: the band's σ and the model error (likelihood.ts).
+      const w = Float64Array.from(variant.observations, (obs) => effectiveWeight(obs.position, obs.sigma));
       const variantPenalty = penaltyTotal(variant.penalties);
       const group: CandidateGroup = {
         scan, branch, variant, table, wrms: new Float64Array(table.count).fill(Infinity),
@@ -201,9 +201,9 @@ export function candidateGroups(
       };
       const work = new Float64Array(m);
       for (let a = 0; a < table.count; a++) {
-        const solution = gridOptimum(scan, branch, table, a, o, w, work, stride);
+        const solution = gridOptimum(scan, branch, table, a, o, w, work, stride, prior);
         if (!solution) continue;
-        group.wrms[a] = Math.sqrt(solution.ssr / wSum) + variantPenalty;
+        group.wrms[a] = solution.ssr + variantPenalty;
         group.point[a] = solution.point;
         group.b[a] = solution.b;
         group.ssr[a] = solution.ssr;
@@ -228,28 +228,19 @@ export function candidateAt(group: CandidateGroup, a: number): GridCandidate {
   };
 }
 
-/** Grid rms plus every penalty at the grid optimum (cached on the candidate). */
+/** Grid χ² plus every term of the score at the grid optimum (cached on the candidate). */
 export function approximateScore(candidate: GridCandidate, settings: FitSettings, sorted: SortedObservations): number {
   if (!Number.isNaN(candidate.approxScore)) return candidate.approxScore;
   const { scan, branch, variant, grid: solution, levels } = candidate;
-  const ctOnset = sorted.chargeTransfer.length ? Math.min(...sorted.chargeTransfer.map((b) => b.position)) : undefined;
   const transitions = classTransitionsAt(scan, branch, solution.point, solution.b);
   const n = scan.ids.length;
   const zero = scan.energies[solution.point * n + branch.ground]!;
-  const assigned = Array.from(levels.subarray(0, variant.nPrimary), (k, i) => {
-    const entry: { level: number; calculated: number; width?: number } = {
-      level: k, calculated: solution.b * (scan.energies[solution.point * n + k]! - zero),
-    };
-    const width = variant.observations[i]!.width;
-    if (width !== undefined) entry.width = width;
-    return entry;
-  });
-  const skip = skippedTransitionPenalties({
-    geometry: settings.geometry, transitions, assigned, classForbidden: variant.classForbidden,
-    ...(ctOnset !== undefined ? { ctOnset } : {}),
-  });
+  const calculated = Float64Array.from(levels, (k) => solution.b * (scan.energies[solution.point * n + k]! - zero));
   const c = settings.mode === 'fixed' ? settings.cFixed : scan.cOverB * solution.b;
-  const plausible = plausibilityPenalties({ b: solution.b, c, mode: settings.mode, b0: settings.b0 });
-  candidate.approxScore = candidate.wrms + penaltyTotal(skip.penalties) + penaltyTotal(plausible);
+  const terms = scoreTerms({
+    candidate, settings, sorted, transitions, calculated, levels: levels.subarray(0, variant.observations.length),
+    dq: solution.x * solution.b, b: solution.b, c, bDetermined: true,
+  });
+  candidate.approxScore = candidate.wrms + penaltyTotal(terms.penalties);
   return candidate.approxScore;
 }

@@ -10,11 +10,12 @@
 import type { GridCandidate } from './candidates.js';
 import { primaryClass } from './enumerate.js';
 import { crossoverAt } from './engine.js';
-import { branchSpinState, type Evaluated } from './evaluate.js';
+import { branchSpinState, chiSquareOf, type Evaluated } from './evaluate.js';
 import { refineProfileOnScan, scanEnergyAt } from './interpolate.js';
 import type { SortedObservations } from './observations.js';
-import { penaltyTotal, plausibilityPenalties, skippedTransitionPenalties } from './penalties.js';
-import { promotedElectrons } from './scan.js';
+import { penaltyTotal } from './penalties.js';
+import { scoreTerms } from './score-terms.js';
+import { twoElectronLevels } from './two-electron.js';
 import type { FitSettings } from './settings.js';
 
 /** The Dq/B interval the branch may use around grid point j. */
@@ -44,22 +45,13 @@ export function evaluateOnScan(candidate: GridCandidate, settings: FitSettings, 
   const { x, b } = Number.isFinite(refined.ssr) && refined.ssr <= candidate.grid.ssr ? refined : candidate.grid;
   const energy = (k: number) => b * scanEnergyAt(scan, k, branch.ground, x);
   const calculated = Float64Array.from(levels, energy);
-  const promoted = promotedElectrons(scan, branch.ground);
+  const two = twoElectronLevels(scan, branch.ground);
   const transitions = primaryClass(branch).levels.map((k) => ({
-    level: k, term: scan.ids[k]!.term, label: scan.ids[k]!.label, energy: energy(k), twoElectron: Math.abs(promoted[k]!) >= 2,
+    level: k, term: scan.ids[k]!.term, label: scan.ids[k]!.label, energy: energy(k), twoElectron: two[k] === 1,
   }));
-  const assigned = Array.from(levels.subarray(0, variant.nPrimary), (k, i) => {
-    const entry: { level: number; calculated: number; width?: number } = { level: k, calculated: calculated[i]! };
-    if (observations[i]!.width !== undefined) entry.width = observations[i]!.width!;
-    return entry;
-  });
-  const ctOnset = sorted.chargeTransfer.length ? Math.min(...sorted.chargeTransfer.map((band) => band.position)) : undefined;
-  const skip = skippedTransitionPenalties({
-    geometry: settings.geometry, transitions, assigned, classForbidden: variant.classForbidden,
-    ...(ctOnset !== undefined ? { ctOnset } : {}),
-  });
   const c = scan.cOverB * b;
-  const penalties = [...variant.penalties, ...skip.penalties, ...plausibilityPenalties({ b, c, mode: settings.mode, b0: settings.b0 })];
+  const skip = scoreTerms({ candidate, settings, sorted, transitions, calculated, levels, dq: x * b, b, c, bDetermined: true });
+  const penalties = [...variant.penalties, ...skip.penalties];
   let ssr = 0;
   let wSum = 0;
   observations.forEach((obs, i) => {
@@ -67,10 +59,11 @@ export function evaluateOnScan(candidate: GridCandidate, settings: FitSettings, 
     wSum += w[i]!;
   });
   const wrms = Math.sqrt(ssr / wSum);
+  const chiSquare = chiSquareOf(observations, calculated);
   return {
     candidate, params: { dq: x * b, b, c }, bDetermined: true, levels: null,
     groundTerm: scan.ids[branch.ground]!.term, spinState: branchSpinState(candidate),
-    calculated, levelIndices: levels, wrms, penalties, skipped: skip.skipped, coincident: skip.coincident,
-    score: wrms + penaltyTotal(penalties), lsq: null, problem: null, keptGrid: false, notes: [],
+    calculated, levelIndices: levels, wrms, chiSquare, penalties, skipped: skip.skipped, coincident: skip.coincident,
+    score: chiSquare + penaltyTotal(penalties), lsq: null, problem: null, keptGrid: false, notes: [],
   };
 }

@@ -7,9 +7,12 @@ import type { FieldParameters, LevelsResult, SpinState } from '../ligand-field/t
 import type { DqOnlyCandidate, GridCandidate } from './candidates.js';
 import { primaryClass } from './enumerate.js';
 import type { LeastSquaresResult } from './least-squares.js';
-import { penaltyTotal, plausibilityPenalties, skippedTransitionPenalties, type ClassTransition } from './penalties.js';
+import { effectiveWeight } from './likelihood.js';
+import { penaltyTotal, type ClassTransition } from './penalties.js';
 import { assignedEnergies, refineSolution, type RefineProblem } from './refine.js';
-import { levelIdentityKey, promotedElectrons } from './scan.js';
+import { levelIdentityKey } from './scan.js';
+import { scoreTerms } from './score-terms.js';
+import { twoElectronLevels } from './two-electron.js';
 import type { FitSettings } from './settings.js';
 import type { SortedObservations } from './observations.js';
 import type { Penalty, SkippedTransition } from './types.js';
@@ -28,9 +31,12 @@ export interface Evaluated {
   /** ids index per observation. */
   levelIndices: Int32Array;
   wrms: number;
+  /** χ² of the positions with σ² + σm² (likelihood.ts). */
+  chiSquare: number;
   penalties: Penalty[];
   skipped: SkippedTransition[];
   coincident: string[][];
+  /** chiSquare + the penalties: a deviance (likelihood.ts). */
   score: number;
   lsq: LeastSquaresResult | null;
   problem: RefineProblem | null;
@@ -53,16 +59,31 @@ function classTransitionsOf(candidate: GridCandidate | DqOnlyCandidate, levels: 
   const groundKey = scan.ids[branch.ground]!.key;
   const byKey = new Map(levels.levels.map((l) => [levelIdentityKey(l), l.energy]));
   const zero = byKey.get(groundKey) ?? 0;
-  const promoted = promotedElectrons(scan, branch.ground);
+  const two = twoElectronLevels(scan, branch.ground);
   return primaryClass(branch).levels.map((k) => ({
     level: k, term: scan.ids[k]!.term, label: scan.ids[k]!.label,
     energy: (byKey.get(scan.ids[k]!.key) ?? Number.NaN) - zero,
-    twoElectron: Math.abs(promoted[k]!) >= 2,
+    twoElectron: two[k] === 1,
   }));
 }
 
-function ctOnsetOf(sorted: SortedObservations): number | undefined {
-  return sorted.chargeTransfer.length ? Math.min(...sorted.chargeTransfer.map((b) => b.position)) : undefined;
+/** χ² of calculated against observed positions with the σ² + σm² weights. */
+export function chiSquareOf(observations: ReadonlyArray<{ position: number; sigma: number }>, calculated: Float64Array): number {
+  let chi2 = 0;
+  observations.forEach((o, i) => {
+    chi2 += effectiveWeight(o.position, o.sigma) * (calculated[i]! - o.position) ** 2;
+  });
+  return chi2;
+}
+
+/**
+ * The B range a refinement may search: where the β prior is within about six
+ * of its σ of the plausible range (β 0.15–1.25, or 60–1500 cm-1 without B0);
+ * beyond it a least-squares optimum is an artefact (two bands fitted by an
+ * absurd B), not a result.
+ */
+export function bRangeOf(settings: FitSettings): [number, number] {
+  return settings.b0 !== null ? [0.15 * settings.b0, 1.25 * settings.b0] : [60, 1500];
 }
 
 export function evaluateGridCandidate(
@@ -80,6 +101,7 @@ export function evaluateGridCandidate(
     levelKeys: Array.from(candidate.levels, (k) => scan.ids[k]!.key),
     observed: Float64Array.from(observations, (o) => o.position),
     sigma: Float64Array.from(observations, (o) => (sorted.weighted ? o.sigma : 1)),
+    bRange: bRangeOf(settings),
   };
   const start: FieldParameters = from ?? {
     dq: grid.x * grid.b, b: grid.b, c: settings.mode === 'fixed' ? settings.cFixed : scan.cOverB * grid.b,
@@ -103,25 +125,17 @@ export function evaluateGridCandidate(
     ssr += w * (calculated[i]! - o.position) ** 2;
     wSum += w;
   });
-  const assigned = Array.from(candidate.levels.subarray(0, variant.nPrimary), (k, i) => {
-    const entry: { level: number; calculated: number; width?: number } = { level: k, calculated: calculated[i]! };
-    if (observations[i]!.width !== undefined) entry.width = observations[i]!.width!;
-    return entry;
+  const skip = scoreTerms({
+    candidate, settings, sorted, transitions: classTransitionsOf(candidate, levels), calculated, levels: candidate.levels,
+    dq: params.dq, b: params.b, c: params.c, bDetermined: true,
   });
-  const ctOnset = ctOnsetOf(sorted);
-  const skip = skippedTransitionPenalties({
-    geometry: settings.geometry, transitions: classTransitionsOf(candidate, levels), assigned,
-    classForbidden: variant.classForbidden, ...(ctOnset !== undefined ? { ctOnset } : {}),
-  });
-  const penalties = [
-    ...variant.penalties, ...skip.penalties,
-    ...plausibilityPenalties({ b: params.b, c: params.c, mode: settings.mode, b0: settings.b0 }),
-  ];
+  const penalties = [...variant.penalties, ...skip.penalties];
   const wrms = Math.sqrt(ssr / wSum);
+  const chiSquare = chiSquareOf(observations, calculated);
   return {
     candidate, params, bDetermined: true, levels, groundTerm: levels.groundTerm, spinState: levels.spinState,
-    calculated, levelIndices: candidate.levels, wrms, penalties,
-    skipped: skip.skipped, coincident: skip.coincident, score: wrms + penaltyTotal(penalties),
+    calculated, levelIndices: candidate.levels, wrms, chiSquare, penalties,
+    skipped: skip.skipped, coincident: skip.coincident, score: chiSquare + penaltyTotal(penalties),
     lsq: keptGrid ? null : refined.lsq, problem, keptGrid, notes,
   };
 }
@@ -133,7 +147,7 @@ export function evaluateGridCandidate(
  * branch with a spin crossover is kept only if it can be self-consistent
  * with a plausible B ≤ B0: Dq/B0 below the crossover.
  */
-export function evaluateDqOnly(candidate: DqOnlyCandidate, settings: FitSettings): Evaluated | undefined {
+export function evaluateDqOnly(candidate: DqOnlyCandidate, settings: FitSettings, sorted: SortedObservations): Evaluated | undefined {
   const { scan, branch, variant, level } = candidate;
   const n = scan.ids.length;
   const j = branch.points[0]!;
@@ -153,10 +167,16 @@ export function evaluateDqOnly(candidate: DqOnlyCandidate, settings: FitSettings
   }
   const params = { dq, b, c: settings.mode === 'fixed' ? settings.cFixed : scan.cOverB * b };
   const levels = computeLevels(settings.d, settings.geometry, params);
+  // Only the 10Dq prior: B is nominal, so neither β nor the other transitions' positions are known.
+  const prior = scoreTerms({
+    candidate, settings, sorted, transitions: [], calculated: Float64Array.of(observation.position), levels: Int32Array.of(level),
+    dq, b, c: params.c, bDetermined: false,
+  }).penalties.filter((p) => p.rule === 'ten-dq' || p.rule === 'intensity');
+  const penalties = [...variant.penalties, ...prior];
   return {
     candidate, params, bDetermined: false, levels, groundTerm: levels.groundTerm, spinState: levels.spinState,
     calculated: Float64Array.of(observation.position),
-    levelIndices: Int32Array.of(level), wrms: 0, penalties: variant.penalties, skipped: [], coincident: [[]],
-    score: penaltyTotal(variant.penalties), lsq: null, problem: null, keptGrid: false, notes,
+    levelIndices: Int32Array.of(level), wrms: 0, chiSquare: 0, penalties, skipped: [], coincident: [[]],
+    score: penaltyTotal(penalties), lsq: null, problem: null, keptGrid: false, notes,
   };
 }

@@ -11,29 +11,41 @@
  *    3.0, 3.5, …, 6.5 (move-candidate.ts), and the winner's polish starting
  *    from the C/B of a parabola through three of them (free-c-start.ts).
  * 3. Every order-consistent assignment on every spin branch at its grid
- *    optimum (closed-form B per grid point: profile.ts), in typed arrays
- *    (candidates.ts). The grid rms is a lower bound of the score, so
- *    penalties are computed only for the few that can still win: the best
- *    REFINED_CANDIDATES, and the best of each spin branch that could be shown
- *    as an alternative. The band list is tried whole and then reduced
- *    (reductions.ts: bands left unexplained, close pairs merged) in order of
- *    the reduction's penalty, stopping when that penalty alone exceeds the
- *    best score found so far (usually right after the whole list).
+ *    optimum (closed-form B per grid point: profile.ts; where two roots fit
+ *    equally, the one the β and 10Dq priors prefer), in typed arrays
+ *    (candidates.ts). The score is a deviance, −2·ln of the posterior
+ *    (likelihood.ts): the grid χ² (σ² plus model error) is a lower bound of
+ *    it, so the other terms are computed only for the few that can still
+ *    win: the best REFINED_CANDIDATES, and the best of each spin branch that
+ *    could be shown as an alternative, and the best that explains every
+ *    band. The band list is tried whole and then reduced (reductions.ts:
+ *    bands left unexplained, close pairs merged) in order of the reduction's
+ *    term, stopping when that term alone exceeds the best score found so far.
  * 3b. Those are refined on the interpolated scan (evaluate-scan.ts; no
  *    engine call) and the winner is polished by Levenberg–Marquardt with the
- *    full engine (refine.ts), which also gives the Jacobian for the
- *    uncertainties. With a fixed C every refinement uses the engine. Only
- *    self-consistent solutions are kept: the assumed ground level is the
- *    ground level at the result.
- * 4. The lowest score wins. A winner whose rms exceeds max(1000 cm-1, 5% of
+ *    full engine (refine.ts, B bounded to β 0.15–1.25), which also gives the
+ *    Jacobian for the uncertainties. With a fixed C every refinement uses the
+ *    engine. Only self-consistent solutions are kept: the assumed ground
+ *    level is the ground level at the result.
+ * 4. The lowest score wins; probabilities are exp(−score/2) normalised over
+ *    the solutions evaluated. A winner whose rms exceeds max(1000 cm-1, 5% of
  *    the mean band position) is not a fit: FieldgapError('unexplained').
+ * 5. What the bands cannot fix (likelihood.ts priors stand in): a free C with
+ *    σ(C) above 25% of C, or that no band depends on, is fixed at its prior
+ *    C/B with a warning and an `undetermined` entry. Conversely, with the C/B
+ *    only assumed (not given) and at least AUTO_FREE_C_MIN_BANDS bands that
+ *    the assumed C/B fits poorly or only by leaving bands out, C/B is
+ *    estimated with its prior and kept when it wins by more than ln m.
  */
 import { FieldgapError } from '../errors.js';
 import { normalizeBands } from './bands.js';
 import {
   approximateScore, candidateAt, candidateGroups, type CandidateGroup, type DqOnlyCandidate, type GridCandidate,
 } from './candidates.js';
-import { penaltyTotal, plausibilityPenalties } from './penalties.js';
+import { effectiveWeight } from './likelihood.js';
+import { LIMITS, penaltyTotal, plausibilityPenalties } from './penalties.js';
+import { gridPrior } from './score-terms.js';
+import { fitUncertainty } from './uncertainty.js';
 import { bandReductions } from './reductions.js';
 import { freeCStart } from './free-c-start.js';
 import { candidateOnScan } from './move-candidate.js';
@@ -43,7 +55,7 @@ import { sortObservations, type SortedObservations } from './observations.js';
 import { alternativeMargin, buildFitResult } from './result.js';
 import { cachedLevelScan } from './scan.js';
 import { resolveFitSettings, type FitSettings } from './settings.js';
-import type { FitInput, FitOptions, FitResult } from './types.js';
+import type { FitInput, FitOptions, FitResult, Penalty } from './types.js';
 
 /** Grid candidates refined with the full engine (besides the best of each spin branch). */
 export const REFINED_CANDIDATES = 4;
@@ -151,15 +163,22 @@ function lowestWrms(groups: CandidateGroup[]): GridCandidate | undefined {
  */
 function acceptable(e: Evaluated, threshold: number): boolean {
   if (!e.candidate.variant.touchesUnflagged) return true;
-  return e.wrms <= threshold && !e.penalties.some((p) => p.rule === 'beta' || p.rule === 'c-over-b');
+  return e.wrms <= threshold && !implausible(e.penalties);
+}
+
+/** A β or C/B term beyond two σ. */
+function implausible(penalties: readonly Penalty[]): boolean {
+  return penalties.some((p) => (p.rule === 'beta' || p.rule === 'c-over-b') && p.amount > LIMITS.implausible);
 }
 
 /** The same test at a grid candidate (grid B and C). */
 function acceptableOnGrid(c: GridCandidate, settings: FitSettings, threshold: number): boolean {
   if (!c.variant.touchesUnflagged) return true;
   const cValue = settings.mode === 'fixed' ? settings.cFixed : c.scan.cOverB * c.grid.b;
-  const wrms = c.wrms - penaltyTotal(c.variant.penalties);
-  return wrms <= threshold && plausibilityPenalties({ b: c.grid.b, c: cValue, mode: settings.mode, b0: settings.b0 }).length === 0;
+  // The grid's χ² as an rms in cm-1 with the same weights.
+  const wSum = c.variant.observations.reduce((s, o) => s + effectiveWeight(o.position, o.sigma), 0);
+  const rms = Math.sqrt(Math.max(0, c.wrms - penaltyTotal(c.variant.penalties)) / wSum);
+  return rms <= threshold && !implausible(plausibilityPenalties({ b: c.grid.b, c: cValue, mode: settings.mode, priors: settings.priors }));
 }
 
 /** The lowest approximate score among the lowest-wrms entry of each group: an upper bound of the best score. */
@@ -184,20 +203,24 @@ function evaluateOnNeighbours(c: GridCandidate, settings: FitSettings, sorted: S
   return best;
 }
 
-function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: number[]): Evaluated[] {
+function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: number[], wholeListOnly = false): Evaluated[] {
   const p = settings.mode === 'free' ? 3 : 2;
   const threshold = unexplainedThreshold([...sorted.primary, ...sorted.flagged].map((o) => o.position));
   const scans = ratios.map((ratio) => cachedLevelScan(settings.d, settings.geometry, ratio));
+  const prior = gridPrior(settings);
   const groups: CandidateGroup[] = [];
   const dqOnly: DqOnlyCandidate[] = [];
+  // Groups that explain every unflagged band: their best is always refined, so a failure can name its rms.
+  const wholeGroups: CandidateGroup[] = [];
   // Reductions by ascending penalty (the full band list first): one whose penalty alone exceeds the best
   // score found so far cannot win, and neither can any after it.
   let bound = Infinity;
   for (const reduction of bandReductions(sorted, p)) {
-    if (reduction.penalty >= bound) break;
+    if (reduction.penalty >= bound || (wholeListOnly && reduction.penalty > 0)) break;
     scans.forEach((scan, i) => {
-      const found = candidateGroups(scan, reduction, p);
+      const found = candidateGroups(scan, reduction, p, prior);
       groups.push(...found.groups);
+      if (!reduction.touchesUnflagged) wholeGroups.push(...found.groups);
       bound = Math.min(bound, groupsBound(found.groups, settings, sorted, threshold));
       if (i === 0) {
         for (const c of found.dqOnly) {
@@ -212,6 +235,8 @@ function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: 
   const evaluated: Evaluated[] = [];
   let bestScore = Infinity;
   const chosen = selectForRefinement(entries, settings, sorted, threshold).sort((a, b) => a.approxScore - b.approxScore);
+  const whole = lowestWrms(wholeGroups);
+  const extra = whole && !chosen.some((c) => !c.variant.touchesUnflagged) ? [whole] : [];
   for (const c of chosen) {
     // Refining lowers a score by little more than the grid error, far less than the margin.
     if (c.approxScore > alternativeMargin(bestScore)) continue;
@@ -222,8 +247,12 @@ function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: 
     evaluated.push(e);
     bestScore = Math.min(bestScore, e.score);
   }
+  for (const c of extra) {
+    approximateScore(c, settings, sorted);
+    evaluated.push(settings.mode === 'fixed' ? evaluateGridCandidate(c, settings, sorted, 20) : evaluateOnScan(c, settings, sorted));
+  }
   for (const c of dqOnly) {
-    const e = evaluateDqOnly(c, settings);
+    const e = evaluateDqOnly(c, settings, sorted);
     if (e) evaluated.push(e);
   }
   // Solutions within the rms threshold first (any fit beats a failure), then by score.
@@ -262,11 +291,50 @@ function cUndetermined(best: Evaluated): boolean {
   return Math.sqrt(colC) <= 1e-6 * Math.sqrt(colB) * best.params.c;
 }
 
+/** σ(C)/C above which the bands are said not to determine C. */
+export const C_UNDETERMINED_FRACTION = 0.25;
+
+/** Why C is not determined by the best free-C solution, or undefined when it is. */
+function cNotDetermined(best: Evaluated | undefined, weighted: boolean): string | undefined {
+  if (!best) return undefined;
+  if (cUndetermined(best) || !best.bDetermined) return 'their energies do not depend on C';
+  if (!best.lsq) return undefined;
+  const { uncertainty } = fitUncertainty(best, weighted);
+  if (uncertainty.c === null || !Number.isFinite(uncertainty.c)) return 'the fit cannot separate C from 10Dq and B';
+  if (uncertainty.c > C_UNDETERMINED_FRACTION * best.params.c) {
+    return `C would be ${Math.round(best.params.c)} ± ${uncertainty.c.toPrecision(2)} cm-1, more than ${100 * C_UNDETERMINED_FRACTION}% uncertain`;
+  }
+  return undefined;
+}
+
+/** Polishes the winner with the engine when it was refined on the scan only (or did not converge). */
+function polished(best: Evaluated, settings: FitSettings, sorted: SortedObservations): Evaluated {
+  if (best.candidate.kind !== 'grid' || !(best.levels === null || (best.lsq && !best.lsq.success))) return best;
+  let from = best.levels === null ? best.params : undefined;
+  if (from && settings.mode === 'free') from = freeCStart(best.candidate, from, FREE_C_RATIOS, sorted) ?? from;
+  return evaluateGridCandidate(best.candidate, settings, sorted, 200, from);
+}
+
+/**
+ * The positions' χ² above its mean plus two standard deviations for m − 2
+ * degrees of freedom (χ² has mean k and variance 2k): the model with this
+ * C/B misses the bands by more than their σ and the model error allow.
+ */
+function poorFit(e: Evaluated): boolean {
+  const dof = e.candidate.variant.observations.length - 2;
+  return dof > 0 && e.chiSquare > dof + 2 * Math.sqrt(2 * dof);
+}
+
+/** Observations that depend on C: bands at least this many, beyond the three parameters, before C/B is estimated unasked. */
+export const AUTO_FREE_C_MIN_BANDS = 4;
+
 export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
   let settings = resolveFitSettings(input);
   const bands = normalizeBands(input.bands, 'bands');
   const sorted = sortObservations(bands);
   const warnings: string[] = [];
+  const notes: string[] = [...settings.notes];
+  const undetermined: FitResult['undetermined'] = [];
   let evaluated = evaluateAll(settings, sorted, scanRatios(settings));
   if (settings.mode === 'fixed' && evaluated[0]?.bDetermined) {
     const ratio = evaluated[0].params.c / evaluated[0].params.b;
@@ -274,23 +342,49 @@ export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
       evaluated = evaluateAll(settings, sorted, [Math.min(8, Math.max(2, Math.round(ratio * 10) / 10))]);
     }
   }
-  if (settings.mode === 'free' && evaluated[0] && (cUndetermined(evaluated[0]) || !evaluated[0].bDetermined)) {
-    warnings.push(
-      `C is not determined by these bands (their energies do not depend on C): C/B fixed at ${settings.cOverB.toFixed(2)} instead (${settings.cOverBSource})`,
-    );
-    settings = { ...settings, mode: 'ratio' };
-    evaluated = evaluateAll(settings, sorted, scanRatios(settings));
+  if (settings.mode === 'free' && evaluated[0]) {
+    const why = cNotDetermined(polished(evaluated[0], settings, sorted), sorted.weighted);
+    if (why) {
+      warnings.push(`C is not determined by these bands (${why}): C/B fixed at its prior ${settings.cOverB.toFixed(2)} instead (${settings.cOverBSource})`);
+      undetermined.push({ parameter: 'c', reason: why, action: `C/B fixed at ${settings.cOverB.toFixed(2)} (${settings.cOverBSource})` });
+      settings = { ...settings, mode: 'ratio' };
+      evaluated = evaluateAll(settings, sorted, scanRatios(settings));
+    }
+  } else if (settings.mode === 'ratio' && !settings.cOverBGiven && evaluated[0] && evaluated[0].bDetermined
+    && sorted.primary.length + sorted.flagged.length >= AUTO_FREE_C_MIN_BANDS
+    && (poorFit(polished(evaluated[0], settings, sorted)) || evaluated[0].candidate.variant.touchesUnflagged
+      || evaluated[0].candidate.variant.dropped.length > 0)) {
+    // Enough bands to estimate C/B (with its prior), and the assumed C/B fits them poorly or only by leaving
+    // bands out: every band explained with C/B estimated is tried, and kept when it explains the bands better
+    // by more than the cost of the extra parameter (ln m in −2·ln units, BIC-like).
+    const free = { ...settings, mode: 'free' as const };
+    const alternative = evaluateAll(free, sorted, FREE_C_COARSE_RATIOS, true);
+    const top = alternative[0] && polished(alternative[0], free, sorted);
+    const m = sorted.primary.length + sorted.flagged.length;
+    const ratioBest = polished(evaluated[0], settings, sorted);
+    if (top && !cNotDetermined(top, sorted.weighted) && top.score + Math.log(m) < ratioBest.score) {
+      notes.push(`C/B estimated from the ${m} bands (prior around ${settings.priors.cOverB.toFixed(2)}): it explains them better than the assumed ${settings.cOverBSource}`);
+      settings = free;
+      evaluated = [top, ...alternative.slice(1)];
+    } else {
+      evaluated = [ratioBest, ...evaluated.slice(1)];
+    }
   }
-  let best = evaluated[0];
-  if (!best) throw noAssignmentError(settings, sorted);
-  if (best.candidate.kind === 'grid' && (best.levels === null || (best.lsq && !best.lsq.success))) {
-    // The winner gets the engine: polished from its scan solution, or refined with the full budget.
-    let from = best.levels === null ? best.params : undefined;
-    if (from && settings.mode === 'free') from = freeCStart(best.candidate, from, FREE_C_RATIOS, sorted) ?? from;
-    best = evaluateGridCandidate(best.candidate, settings, sorted, 200, from);
-  }
+  if (!evaluated[0]) throw noAssignmentError(settings, sorted);
   const positions = [...sorted.primary, ...sorted.flagged].map((o) => o.position);
   const threshold = unexplainedThreshold(positions);
+  // Polishing with the engine may move a solution; one that then leaves bands out implausibly gives way to the next.
+  let best = polished(evaluated[0], settings, sorted);
+  for (let i = 1; i < evaluated.length && !acceptable(best, threshold); i++) {
+    best = polished(evaluated[i]!, settings, sorted);
+    evaluated = [best, ...evaluated.filter((_, k) => k !== i)];
+  }
+  if (!acceptable(best, threshold)) {
+    // Every fit that explains fewer bands is implausible: report the best fit of the whole list, which fails on its rms.
+    const whole = evaluated.filter((e) => !e.candidate.variant.touchesUnflagged).sort((a, b) => a.wrms - b.wrms)[0];
+    if (!whole) throw noAssignmentError(settings, sorted);
+    best = whole;
+  }
   if (best.wrms > threshold) {
     throw new FieldgapError(
       'unexplained',
@@ -298,5 +392,5 @@ export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
       'bands',
     );
   }
-  return buildFitResult({ settings, sorted, best, others: evaluated.slice(1), warnings, options });
+  return buildFitResult({ settings, sorted, best, others: evaluated.slice(1), warnings, notes, undetermined, options });
 }

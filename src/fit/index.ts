@@ -1,7 +1,8 @@
 /**
  * Fitting 10Dq, Racah B and C to observed d–d band maxima: automatic
  * assignment, spin-state logic, uncertainties. See fit-bands.ts for the
- * method and penalties.ts for the rules that choose between assignments.
+ * method and likelihood.ts for the one score that chooses between
+ * assignments (penalties.ts computes its named terms).
  */
 export { fitBands, unexplainedThreshold } from './fit-bands.js';
 export { parseBandList, normalizeBands, BAND_FLAGS, type BandFlag, type BandInput, type ObservedBand } from './bands.js';
@@ -11,4 +12,6 @@ export { ligandFieldStabilisation, spinOnlyMoment, strongFieldConfiguration, typ
 export { DEFAULT_C_OVER_B } from './settings.js';
 export { defaultBandSigma } from './observations.js';
 export { PENALTY, LIMITS } from './penalties.js';
+export { LIKELIHOOD, probabilitiesOf } from './likelihood.js';
+export { leastSquaresNormal, LEAST_SQUARES_MESSAGES } from './least-squares.js';
 export type * from './types.js';

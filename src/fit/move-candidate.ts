@@ -9,10 +9,11 @@
 import type { GridCandidate } from './candidates.js';
 import { scanBranches } from './enumerate.js';
 import type { SortedObservations } from './observations.js';
+import { effectiveWeight } from './likelihood.js';
 import { penaltyTotal } from './penalties.js';
 import type { LevelScan } from './scan.js';
 
-export function candidateOnScan(candidate: GridCandidate, scan: LevelScan, sorted: SortedObservations): GridCandidate | undefined {
+export function candidateOnScan(candidate: GridCandidate, scan: LevelScan, _sorted?: SortedObservations): GridCandidate | undefined {
   const { scan: own, variant } = candidate;
   const groundKey = own.ids[candidate.branch.ground]!.key;
   const branch = scanBranches(scan).find((b) => scan.ids[b.ground]!.key === groundKey);
@@ -22,7 +23,8 @@ export function candidateOnScan(candidate: GridCandidate, scan: LevelScan, sorte
   const n = scan.ids.length;
   const m = levels.length;
   const o = variant.observations.map((obs) => obs.position);
-  const w = variant.observations.map((obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
+  // The χ² weights of candidates.ts (σ² + σm²).
+  const w = variant.observations.map((obs) => effectiveWeight(obs.position, obs.sigma));
   let best = { point: -1, b: 0, ssr: Infinity };
   for (const j of branch.points) {
     const zero = scan.energies[j * n + branch.ground]!;
@@ -40,10 +42,9 @@ export function candidateOnScan(candidate: GridCandidate, scan: LevelScan, sorte
     if (ssr < best.ssr) best = { point: j, b: num / den, ssr };
   }
   if (best.point < 0) return undefined;
-  const wSum = w.reduce((s, v) => s + v, 0);
   return {
     ...candidate, scan, branch, levels,
     grid: { assignment: -1, point: best.point, x: scan.x[best.point]!, b: best.b, ssr: best.ssr },
-    wrms: Math.sqrt(best.ssr / wSum) + penaltyTotal(variant.penalties), approxScore: Number.NaN,
+    wrms: best.ssr + penaltyTotal(variant.penalties), approxScore: Number.NaN,
   };
 }

@@ -64,5 +64,9 @@ export function averageObservations(list: readonly Observation[], weighted: bool
   const position = list.reduce((s, o, i) => s + w[i]! * o.position, 0) / total;
   // σ of a (weighted) mean of independent positions.
   const sigma = Math.sqrt(list.reduce((s, o, i) => s + (w[i]! * o.sigma) ** 2, 0)) / total;
-  return { position, sigma, bands: list.flatMap((o) => o.bands), flags: [...new Set(list.flatMap((o) => o.flags))] };
+  const averaged: Observation = { position, sigma, bands: list.flatMap((o) => o.bands), flags: [...new Set(list.flatMap((o) => o.flags))] };
+  // The band's intensity is that of its strongest component (for the intensity term of the score).
+  const eps = list.map((o) => o.epsilon).filter((e): e is number => e !== undefined);
+  if (eps.length > 0) averaged.epsilon = Math.max(...eps);
+  return averaged;
 }

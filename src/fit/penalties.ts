@@ -1,73 +1,26 @@
 /**
- * The score of an assignment: its (weighted) rms residual in cm-1 plus the
- * penalties below, also in cm-1. The lowest score wins. Two bands and two
- * parameters always fit exactly, so between such fits the penalties alone
- * decide: they encode what a chemist checks by eye.
- *
- * Skipped transitions of the class the bands are assigned to (a transition
- * lower than the highest assigned one that no band takes):
- * - above the highest band: free (outside the measured range or under
- *   charge transfer; listed in `skipped`);
- * - within 300 cm-1 (or half the band width, if larger) of an assigned
- *   transition: free, it lies under that band (`coincident`);
- * - a two-electron jump (two or more electrons change orbital set, e.g.
- *   4T1g → 4A2g in high-spin d7): 150, expected weak;
- * - at or above the onset of a charge-transfer band given in the input: free;
- * - below the lowest band and below 5000 cm-1 (the infrared): free in a
- *   tetrahedral complex, whose lowest band usually lies there; 400 in an
- *   octahedral one (its lowest band is normally the strong, measured ν1);
- *   a tetrahedral ion's lowest transition below 7000 cm-1: 50; else 800;
- * - between assigned bands: 1500 (500 when the class is spin-forbidden, as in
- *   high-spin d5, whose quartet bands are weak).
- * Spin-forbidden transitions skipped by bands flagged :sf cost nothing.
- *
- * Physical plausibility:
- * - β = B/B0 above 1.05: 1500 + 20 000·(β − 1.05); below 0.4 (rare even for
- *   cyanides): 300 + 10 000·(0.4 − β).
- *   Without a free-ion B0 (a bare d-count) the same rules use B0 = 1250 cm-1
- *   for the upper side (no first-row ion is higher) and 150 cm-1 as the floor.
- * - C/B (free C) outside 3.0–6.5: 1000 + 2000 per unit outside.
- * - a band left unexplained: 1000 each, less for a shoulder, a weak, a
- *   narrow or a spin-forbidden-flagged band (reductions.ts), never below 150.
- * - two close bands read as one split band: 250 + 0.25·separation
- *   (reductions.ts).
- * - Jahn–Teller pair averaged: 300, plus 2000·(ratio − 1.3) above a ratio of 1.3.
+ * The named terms of the score (likelihood.ts has the model and its
+ * sources): the transitions an assignment leaves without a band (the
+ * window), the intensities of the assigned bands, and the priors on β, C/B
+ * and 10Dq. Each term is a deviance, −2·ln p ≥ 0, reported as a `Penalty`
+ * with its rule and a sentence saying why.
  */
 import type { Geometry } from '../ligand-field/types.js';
+import { deviance, flatWithTails, LIKELIHOOD } from './likelihood.js';
 import type { CMode, Penalty, SkippedTransition } from './types.js';
 
-export const PENALTY = {
-  gap: 1500,
-  gapForbidden: 500,
-  belowRange: 800,
-  infraredOctahedral: 400,
-  tetrahedralLowest: 50,
-  twoElectron: 150,
-  unexplainedBand: 1000,
-  unexplainedMin: 150,
-  splitBand: 250,
-  splitBandPerCm: 0.25,
-  betaHigh: 1500,
-  betaLow: 300,
-  cOverB: 1000,
-  jahnTellerPair: 300,
-} as const;
+/**
+ * The deviance constants, under the name the cm-1 penalties had (kept for
+ * callers of the library): see LIKELIHOOD.
+ */
+export const PENALTY = LIKELIHOOD;
 
+/** Thresholds that are not probabilities. */
 export const LIMITS = {
-  coincidence: 300,
-  infrared: 5000,
-  tetrahedralLowest: 7000,
-  betaMax: 1.05,
-  betaMin: 0.4,
-  bMaxWithoutIon: 1250,
-  bMinWithoutIon: 150,
-  cOverBMin: 3.0,
-  cOverBMax: 6.5,
-  jahnTellerRatio: 1.3,
-  unexplainedFlaggedFactor: 0.3,
-  unexplainedShoulderFactor: 0.5,
-  unexplainedWeakFactor: 0.5,
-  unexplainedNarrowFactor: 0.5,
+  coincidence: LIKELIHOOD.coincidence,
+  infrared: LIKELIHOOD.infrared,
+  tetrahedralLowest: LIKELIHOOD.tetrahedralLowest,
+  jahnTellerRatio: LIKELIHOOD.jahnTellerRatio,
   /** ε below this fraction of the largest d–d ε is weak. */
   weakEpsilonFraction: 0.2,
   /** Width below this fraction of the median d–d width is narrow. */
@@ -75,6 +28,8 @@ export const LIMITS = {
   /** Neighbours closer than max(this, splitBandFraction·mean) may be one split band, cm-1. */
   splitBandSeparation: 1500,
   splitBandFraction: 0.06,
+  /** A β or C/B term above this (two σ) makes a solution that leaves bands out implausible. */
+  implausible: 4,
 } as const;
 
 export interface ClassTransition {
@@ -93,6 +48,12 @@ export interface AssignedTransition {
   width?: number;
 }
 
+/** The measured range, cm-1. */
+export interface Window {
+  min: number;
+  max: number;
+}
+
 export interface SkipContext {
   geometry: Geometry;
   /** Transitions of the class the bands were assigned to, any order. */
@@ -101,6 +62,8 @@ export interface SkipContext {
   classForbidden: boolean;
   /** Position of the lowest charge-transfer band given, if any. */
   ctOnset?: number;
+  /** The measured range, if known. */
+  window?: Window;
 }
 
 export interface SkipOutcome {
@@ -110,8 +73,15 @@ export interface SkipOutcome {
   coincident: string[][];
 }
 
+/** The chance p that a transition of this kind, inside the measured range, shows no band. */
+function missInside(t: ClassTransition, classForbidden: boolean): { p: number; why: string } {
+  if (classForbidden) return { p: LIKELIHOOD.missForbiddenClass, why: 'is weak (spin-forbidden class)' };
+  if (t.twoElectron) return { p: LIKELIHOOD.missTwoElectron, why: 'is a two-electron jump, expected weak' };
+  return { p: LIKELIHOOD.missAllowed, why: 'is a strong spin-allowed transition' };
+}
+
 export function skippedTransitionPenalties(context: SkipContext): SkipOutcome {
-  const { transitions, assigned, geometry } = context;
+  const { transitions, assigned, geometry, window } = context;
   const penalties: Penalty[] = [];
   const skipped: SkippedTransition[] = [];
   const coincident: string[][] = assigned.map(() => []);
@@ -120,64 +90,165 @@ export function skippedTransitionPenalties(context: SkipContext): SkipOutcome {
   const highest = Math.max(...calcs);
   const lowest = Math.min(...calcs);
   const lowestOfClass = Math.min(...transitions.map((t) => t.energy));
+  let aboveCharged = false;
   for (const t of [...transitions].sort((a, b) => a.energy - b.energy)) {
     if (taken.has(t.level)) continue;
-    const add = (reason: string, amount: number) => {
+    const add = (reason: string, p: number) => {
       skipped.push({ energy: t.energy, term: t.term, label: t.label, reason });
+      const amount = deviance(p);
       if (amount > 0) penalties.push({ rule: 'skipped-transition', amount, detail: `${t.label} at ${Math.round(t.energy)} cm-1 ${reason}` });
     };
     const near = assigned.findIndex((a) => Math.abs(a.calculated - t.energy) <= Math.max(LIMITS.coincidence, (a.width ?? 0) / 2));
-    if (t.energy > highest && near < 0) {
-      add('lies above the highest band (outside the range, or under charge transfer)', 0);
-    } else if (near >= 0) {
+    if (near >= 0) {
       coincident[near]!.push(t.label);
-    } else if (t.twoElectron) {
-      add('is a two-electron jump, expected weak', PENALTY.twoElectron);
+    } else if (window && (t.energy < window.min || t.energy > window.max)) {
+      add(`lies outside the measured range (${Math.round(window.min)}–${Math.round(window.max)} cm-1)`, 1);
     } else if (context.ctOnset !== undefined && t.energy >= context.ctOnset) {
-      add('lies under the charge-transfer band', 0);
-    } else if (t.energy < lowest) {
-      if (t.energy < LIMITS.infrared) {
-        add('lies in the infrared, below the measured range', geometry === 'tetrahedral' ? 0 : PENALTY.infraredOctahedral);
-      } else if (geometry === 'tetrahedral' && t.energy === lowestOfClass && t.energy < LIMITS.tetrahedralLowest) {
-        add("is a tetrahedral ion's lowest band, near the infrared", PENALTY.tetrahedralLowest);
-      } else add('lies below the lowest band but in the usual range', PENALTY.belowRange);
+      add('lies under the charge-transfer band', 1);
+    } else if (!window && t.energy > highest) {
+      add('lies above the highest band (outside the range, or under charge transfer)', 1);
+    } else if (window && t.energy > highest) {
+      // Above the highest band the rising charge-transfer tail may hide it: the lowest such transition is charged
+      // (weakly), the ones above it are hidden if it is.
+      const first = !aboveCharged;
+      aboveCharged = true;
+      const miss = missInside(t, context.classForbidden);
+      add(first ? `${miss.why} but no band is assigned to it (above the highest band: perhaps under a charge-transfer tail)` : 'lies above another transition missing above the highest band', first ? Math.max(miss.p, LIKELIHOOD.missAboveHighest) : 1);
+    } else if (window || t.energy > lowest) {
+      const miss = missInside(t, context.classForbidden);
+      add(`${miss.why} but no band is assigned to it${window ? ' within the measured range' : ' between the observed bands'}`, miss.p);
+    } else if (t.twoElectron) {
+      add('is a two-electron jump, expected weak', LIKELIHOOD.missTwoElectron);
+    } else if (t.energy < LIMITS.infrared) {
+      add('lies in the infrared, below the measured range', geometry === 'tetrahedral' ? 1 : LIKELIHOOD.missInfraredOctahedral);
+    } else if (geometry === 'tetrahedral' && t.energy === lowestOfClass && t.energy < LIMITS.tetrahedralLowest) {
+      add("is a tetrahedral ion's lowest band, near the infrared", LIKELIHOOD.missTetrahedralLowest);
     } else {
-      add('lies between observed bands but no band is assigned to it', context.classForbidden ? PENALTY.gapForbidden : PENALTY.gap);
+      add('lies below the lowest band but in the usual range', context.classForbidden ? LIKELIHOOD.missForbiddenClass : LIKELIHOOD.missBelowOctahedral);
     }
   }
   return { penalties, skipped, coincident };
+}
+
+/** What the priors need, fixed per fit (settings.ts builds it). */
+export interface PriorSettings {
+  /** Free-ion B0, or null. */
+  b0: number | null;
+  /** Centre of the C/B prior. */
+  cOverB: number;
+  /** 10Dq expected from the ligands (Jørgensen f·g, ×4/9 tetrahedral), or null. */
+  tenDqExpected: number | null;
+  /** The range 10Dq shows with common ligands, or null without g. */
+  tenDqRange: [number, number] | null;
+  /** β expected from the ligands (1 − h·k), or null. */
+  betaExpected: number | null;
+  /** How the ligand expectations were made, for the details. */
+  ligandNote: string | null;
 }
 
 export interface PlausibilityContext {
   b: number;
   c: number;
   mode: CMode;
-  /** Free-ion B0, or null for a bare d-count. */
-  b0: number | null;
+  /** Dq, cm-1; the 10Dq prior is skipped without it. */
+  dq?: number;
+  priors: PriorSettings;
 }
 
-export function plausibilityPenalties({ b, c, mode, b0 }: PlausibilityContext): Penalty[] {
+/** The β prior's deviance at B (flat with tails; without B0 on B itself). */
+export function betaPriorDeviance(b: number, priors: PriorSettings): number {
+  const L = LIKELIHOOD;
+  const reference = priors.b0 ?? L.bMaxWithoutIon;
+  const lo = priors.b0 === null ? L.bMinWithoutIon / reference : L.betaMin;
+  // The lower tail's σ is a tenth of the floor (0.035 for β's 0.35; 15 cm-1 for B's 150 cm-1 without B0).
+  let term = flatWithTails(b / reference, lo, L.betaMax, 0.1 * lo, L.betaSigmaHigh);
+  if (priors.betaExpected !== null && priors.b0 !== null) term += ((b / priors.b0 - priors.betaExpected) / L.betaLigandSigma) ** 2;
+  return term;
+}
+
+/** The 10Dq prior's deviance at Dq. */
+export function tenDqPriorDeviance(dq: number, priors: PriorSettings): number {
+  if (!(dq > 0)) return 0;
+  const L = LIKELIHOOD;
+  if (priors.tenDqExpected !== null) return (Math.log((10 * dq) / priors.tenDqExpected) / L.tenDqSigma) ** 2;
+  if (priors.tenDqRange) return flatWithTails(Math.log(10 * dq), Math.log(priors.tenDqRange[0]), Math.log(priors.tenDqRange[1]), L.tenDqSigma, L.tenDqSigma);
+  return 0;
+}
+
+/** The prior terms at (Dq, B, C): β (and β from the ligands), C/B when fitted, 10Dq. Only non-zero terms. */
+export function plausibilityPenalties({ b, c, mode, dq, priors }: PlausibilityContext): Penalty[] {
   const penalties: Penalty[] = [];
-  const reference = b0 ?? LIMITS.bMaxWithoutIon;
+  const L = LIKELIHOOD;
+  const b0 = priors.b0;
+  const reference = b0 ?? L.bMaxWithoutIon;
   const beta = b / reference;
   const name = b0 === null ? `B = ${Math.round(b)} cm-1` : `β = ${beta.toFixed(2)}`;
-  if (beta > LIMITS.betaMax) {
-    const limit = b0 === null ? `above ${LIMITS.bMaxWithoutIon} cm-1 (higher than any free ion's)` : '> 1: B above the free ion\'s';
-    penalties.push({ rule: 'beta', amount: PENALTY.betaHigh + 20_000 * (beta - LIMITS.betaMax), detail: `${name} ${limit}` });
+  const lo = b0 === null ? L.bMinWithoutIon / reference : L.betaMin;
+  const betaTerm = flatWithTails(beta, lo, L.betaMax, 0.1 * lo, L.betaSigmaHigh);
+  if (betaTerm > 0) {
+    const detail = beta > L.betaMax
+      ? `${name} ${b0 === null ? `is above ${L.bMaxWithoutIon} cm-1 (higher than any free ion's)` : "> 1: B above the free ion's"}`
+      : `${name} is implausibly small`;
+    penalties.push({ rule: 'beta', amount: betaTerm, detail });
   }
-  const floor = b0 === null ? LIMITS.bMinWithoutIon / reference : LIMITS.betaMin;
-  if (beta < floor) {
-    penalties.push({ rule: 'beta', amount: PENALTY.betaLow + 10_000 * (floor - beta), detail: `${name} is implausibly small` });
+  if (priors.betaExpected !== null && b0 !== null) {
+    const term = ((beta - priors.betaExpected) / L.betaLigandSigma) ** 2;
+    if (term > 0) penalties.push({ rule: 'ligands', amount: term, detail: `β = ${beta.toFixed(2)} against ${priors.betaExpected.toFixed(2)} expected from the ligands (${priors.ligandNote})` });
   }
   if (mode === 'free') {
     const ratio = c / b;
-    const outside = ratio < LIMITS.cOverBMin ? LIMITS.cOverBMin - ratio : ratio > LIMITS.cOverBMax ? ratio - LIMITS.cOverBMax : 0;
-    // The edges of the scanned C/B range themselves are inside (rounding of c/b).
-    if (outside > 1e-9) {
+    const sigma = ratio < priors.cOverB ? L.cOverBSigmaLow : L.cOverBSigmaHigh;
+    const term = ((ratio - priors.cOverB) / sigma) ** 2;
+    if (term > 0) penalties.push({ rule: 'c-over-b', amount: term, detail: `C/B = ${ratio.toFixed(2)} against ${priors.cOverB.toFixed(2)} expected` });
+  }
+  if (dq !== undefined && dq > 0) {
+    const tenDq = 10 * dq;
+    if (priors.tenDqExpected !== null) {
+      const term = (Math.log(tenDq / priors.tenDqExpected) / L.tenDqSigma) ** 2;
+      if (term > 0) penalties.push({ rule: 'ten-dq', amount: term, detail: `10Dq = ${Math.round(tenDq)} cm-1 against ${Math.round(priors.tenDqExpected)} expected from the ligands (${priors.ligandNote})` });
+    } else if (priors.tenDqRange) {
+      const [lo10, hi10] = priors.tenDqRange;
+      const term = flatWithTails(Math.log(tenDq), Math.log(lo10), Math.log(hi10), L.tenDqSigma, L.tenDqSigma);
+      if (term > 0) penalties.push({ rule: 'ten-dq', amount: term, detail: `10Dq = ${Math.round(tenDq)} cm-1 is outside ${Math.round(lo10)}–${Math.round(hi10)} cm-1, the range this ion shows with common ligands` });
+    }
+  }
+  return penalties;
+}
+
+export interface IntensityContext {
+  geometry: Geometry;
+  /** Per assigned band: its ε (undefined when not given), whether its transition is spin-allowed and two-electron. */
+  bands: Array<{ position: number; epsilon: number | undefined; spinAllowed: boolean; twoElectron: boolean }>;
+  /** Every band of the assignment is spin-forbidden (high-spin d5). */
+  allForbidden: boolean;
+}
+
+/** The intensity terms of the bands that carry ε: ((ln ε − ln ε_μ)/1.3)². */
+export function intensityPenalties({ geometry, bands, allForbidden }: IntensityContext): Penalty[] {
+  const L = LIKELIHOOD;
+  const penalties: Penalty[] = [];
+  const allowedEps = bands.filter((b) => b.spinAllowed && b.epsilon !== undefined && b.epsilon > 0).map((b) => b.epsilon!);
+  const strongest = allowedEps.length ? Math.max(...allowedEps) : undefined;
+  const allowedMu = geometry === 'tetrahedral' ? L.epsilonTetrahedral : L.epsilonOctahedral;
+  for (const band of bands) {
+    if (band.epsilon === undefined || !(band.epsilon > 0)) continue;
+    let mu: number;
+    let kind: string;
+    if (band.spinAllowed) {
+      mu = band.twoElectron ? allowedMu * L.epsilonTwoElectronFactor : allowedMu;
+      kind = band.twoElectron ? 'a two-electron band' : `a spin-allowed ${geometry} band`;
+    } else if (strongest !== undefined && !allForbidden) {
+      mu = strongest * L.forbiddenRelative;
+      kind = 'a spin-forbidden band beside the spin-allowed ones';
+    } else {
+      mu = geometry === 'tetrahedral' ? L.epsilonForbiddenTetrahedral : L.epsilonForbiddenOctahedral;
+      kind = 'a spin-forbidden band';
+    }
+    const term = (Math.log(band.epsilon / mu) / L.logEpsilonSigma) ** 2;
+    if (term > 0.01) {
       penalties.push({
-        rule: 'c-over-b',
-        amount: PENALTY.cOverB + 2000 * outside,
-        detail: `C/B = ${ratio.toFixed(2)} is outside the usual ${LIMITS.cOverBMin}–${LIMITS.cOverBMax}`,
+        rule: 'intensity', amount: term,
+        detail: `ε = ${band.epsilon.toPrecision(3)} at ${Math.round(band.position)} cm-1 for ${kind} (typically about ${mu.toPrecision(2)})`,
       });
     }
   }

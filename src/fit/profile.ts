@@ -49,6 +49,10 @@ export interface GridSolution {
  * point gives a positive B. With stride s > 1 every s-th point is tried and
  * then every point between the coarse neighbours of the best: the optimum of
  * a profile with one minimum per s points, at about 1/s of the cost.
+ * With `prior` (a deviance of B and Dq in the units of the weighted sum of
+ * squares, likelihood.ts) the point minimising ssr + prior is chosen: where
+ * two roots fit the bands equally (two bands, two parameters), the plausible
+ * one; `ssr` is still the sum of squares alone.
  */
 export function gridOptimum(
   scan: LevelScan,
@@ -59,6 +63,7 @@ export function gridOptimum(
   w: Float64Array,
   work: Float64Array = new Float64Array(o.length),
   stride = 1,
+  prior?: (b: number, dq: number) => number,
 ): GridSolution | undefined {
   const n = scan.ids.length;
   const width = table.width;
@@ -73,6 +78,7 @@ export function gridOptimum(
     soo += work[i]! * o[i]!;
   }
   let bestSsr = Infinity;
+  let bestObjective = Infinity;
   let bestPoint = -1;
   let bestAt = -1;
   let bestB = 0;
@@ -97,7 +103,9 @@ export function gridOptimum(
       }
       if (!(den > 0) || !(num > 0)) continue;
       const ssr = Math.max(0, soo - (num * num) / den);
-      if (ssr < bestSsr) {
+      const objective = prior ? ssr + prior(num / den, scan.x[j]! * (num / den)) : ssr;
+      if (objective < bestObjective) {
+        bestObjective = objective;
         bestSsr = ssr;
         bestPoint = j;
         bestAt = p;

@@ -5,17 +5,16 @@
  * component on a broad maximum, a narrow spike at the edge of the range);
  * the fit must then explain the real bands and list the extra ones, not fail.
  *
- * Every reduction costs a penalty (cm-1, added to the score; see
- * penalties.ts for the amounts):
- * - leaving a band unexplained: PENALTY.unexplainedBand (1000), times 0.5
- *   for a shoulder, 0.5 for a weak band (ε below 20% of the largest ε of the
- *   d–d bands), 0.5 for a narrow one (width below half the median width of
- *   the d–d bands), 0.3 for a band flagged spin-forbidden (weak and narrow
- *   by nature); never below 150. So the weak, shoulder and narrow ones are
- *   left first.
+ * Every reduction costs a term of the score (a deviance; likelihood.ts has
+ * the model):
+ * - leaving a band unexplained: −2·ln(π/R) − ln(2π·σeff²), π the prior
+ *   chance of a spurious band (0.02, ×3 for a shoulder, a weak band (ε below
+ *   20% of the largest ε of the d–d bands) or a narrow one (width below half
+ *   the median width of the d–d bands), ×5 for a band flagged
+ *   spin-forbidden). So the weak, shoulder and narrow ones are left first.
  * - two neighbouring unflagged bands closer than max(1500 cm-1, 6% of their
  *   mean) read as the two maxima of one split band, averaged:
- *   250 + 0.25·separation.
+ *   −2·ln 0.1 + (separation/1500 cm-1)².
  *
  * Limits: of the unflagged bands, at most half (and at most
  * MAX_UNEXPLAINED_UNFLAGGED) are left unexplained, and fewer than half of
@@ -29,7 +28,8 @@
  * stop as soon as the penalty alone exceeds the best score found.
  */
 import { averageObservations, type Observation, type SortedObservations } from './observations.js';
-import { LIMITS, PENALTY } from './penalties.js';
+import { deviance, effectiveWeight, LIKELIHOOD, unexplainedDeviance } from './likelihood.js';
+import { LIMITS } from './penalties.js';
 import type { Penalty } from './types.js';
 
 /** Unflagged bands left unexplained at most (besides the half rule). */
@@ -69,27 +69,33 @@ function contextOf(sorted: SortedObservations): BandContext {
   return { maxEpsilon: eps.length ? Math.max(...eps) : Number.NaN, medianWidth: widths.length >= 2 ? median(widths) : Number.NaN };
 }
 
-/** The penalty for leaving one band unexplained, and why it is what it is. */
+/** A band whose unexplained term is at least this is "strong" (neither shoulder, weak, narrow nor flagged). */
+function strongThreshold(o: Observation): number {
+  return unexplainedDeviance(LIKELIHOOD.spuriousPrior, 1 / Math.sqrt(effectiveWeight(o.position, o.sigma)));
+}
+
+/** The term for leaving one band unexplained, and why it is what it is. */
 export function unexplainedPenalty(o: Observation, context: BandContext): Penalty {
   let factor = 1;
   const why: string[] = [];
   if (o.flags.includes('spin-forbidden')) {
-    factor *= LIMITS.unexplainedFlaggedFactor;
+    factor *= LIKELIHOOD.spuriousFlaggedFactor;
     why.push('flagged spin-forbidden');
   }
   if (o.flags.includes('shoulder')) {
-    factor *= LIMITS.unexplainedShoulderFactor;
+    factor *= LIKELIHOOD.spuriousFactor;
     why.push('a shoulder');
   }
   if (o.epsilon !== undefined && o.epsilon < LIMITS.weakEpsilonFraction * context.maxEpsilon) {
-    factor *= LIMITS.unexplainedWeakFactor;
+    factor *= LIKELIHOOD.spuriousFactor;
     why.push('weak');
   }
   if (o.width !== undefined && o.width < LIMITS.narrowWidthFraction * context.medianWidth) {
-    factor *= LIMITS.unexplainedNarrowFactor;
+    factor *= LIKELIHOOD.spuriousFactor;
     why.push('narrow');
   }
-  const amount = Math.max(PENALTY.unexplainedMin, PENALTY.unexplainedBand * factor);
+  const prior = Math.min(LIKELIHOOD.spuriousMax, LIKELIHOOD.spuriousPrior * factor);
+  const amount = unexplainedDeviance(prior, 1 / Math.sqrt(effectiveWeight(o.position, o.sigma)));
   const detail = `the band at ${Math.round(o.position)} cm-1${why.length ? ` (${why.join(', ')})` : ''} is left unexplained`;
   return { rule: 'unexplained-band', amount, detail };
 }
@@ -104,7 +110,7 @@ function splitPenalty(a: Observation, b: Observation): Penalty {
   const separation = Math.abs(b.position - a.position);
   return {
     rule: 'split-band',
-    amount: PENALTY.splitBand + PENALTY.splitBandPerCm * separation,
+    amount: deviance(LIKELIHOOD.splitPair) + (separation / LIKELIHOOD.splitScale) ** 2,
     detail: `${Math.round(a.position)} and ${Math.round(b.position)} cm-1 are read as one split band (mean taken)`,
   };
 }
@@ -157,7 +163,7 @@ export function bandReductions(sorted: SortedObservations, p: number): Reduction
     walkPrimary(i + 1);
     keptP.pop();
     const penalty = unexplainedPenalty(o, context);
-    const strong = penalty.amount >= PENALTY.unexplainedBand;
+    const strong = penalty.amount >= strongThreshold(o) - 1e-9;
     if (unflaggedDrops < maxDrops && total > 1 && (!strong || strongDrops < maxStrongDrops)) {
       unflaggedDrops++;
       if (strong) strongDrops++;

@@ -29,6 +29,8 @@ export interface RefineProblem {
   observed: Float64Array;
   /** Divides each residual (1 for an unweighted fit). */
   sigma: Float64Array;
+  /** Bounds on B, cm-1, where the β prior is negligible beyond (likelihood.ts). Default: B ≥ 1. */
+  bRange?: [number, number];
 }
 
 export interface Refined {
@@ -101,11 +103,13 @@ export function refineSolution(problem: RefineProblem, start: FieldParameters, m
     }
     return calls;
   };
-  const lower = p === 3 ? Float64Array.of(0, 1, 0) : Float64Array.of(0, 1);
+  const [bLow, bHigh] = problem.bRange ?? [1, Infinity];
+  const lower = p === 3 ? Float64Array.of(0, bLow, 0) : Float64Array.of(0, bLow);
+  const upper = p === 3 ? Float64Array.of(Infinity, bHigh, Infinity) : Float64Array.of(Infinity, bHigh);
   // Exact to 1e-6 cm-1 per band is exact: below that only rounding is left to chase.
   let atol = 0;
   for (let i = 0; i < m; i++) atol += 0.5 * (1e-6 / problem.sigma[i]!) ** 2;
-  const lsq = leastSquares(residuals, thetaOf(problem, start), m, { jacobian, lower, maxEvaluations, atol });
+  const lsq = leastSquares(residuals, thetaOf(problem, start), m, { jacobian, lower, upper, maxEvaluations, atol });
   const params = parametersOf(problem, lsq.params);
   const levels = energiesAt(params, calc);
   const selfConsistent = levelIdentityKey(levels.levels[0]!) === problem.groundKey || levels.levels.some(

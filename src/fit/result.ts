@@ -1,8 +1,10 @@
 /**
  * Assembling the plain-JSON FitResult from the chosen solution and the others.
  *
- * Alternatives: the other refined solutions whose score is within
- * max(2000 cm-1, the winner's score) of the winner, at most
+ * Probabilities: exp(−score/2) over the distinct solutions evaluated
+ * (likelihood.ts), for the chosen one, each alternative and each spin state.
+ * Alternatives: the other refined solutions at least 1/1000 as probable as
+ * the winner (score within −2·ln 1e-6 ≈ 27.6), at most
  * options.maxAlternatives (default 4), skipping relabelings of the winner
  * (same calculated energies within 1 cm-1: degenerate levels such as
  * 4A1g/4Eg(G) of d5). Each says why it lost (`reason`).
@@ -10,24 +12,26 @@
  */
 import { spinStateChoice } from '../ligand-field/index.js';
 import { crossoverAt, levelsAt as computeLevels } from './engine.js';
+import { deviance, LIKELIHOOD, probabilitiesOf } from './likelihood.js';
+import { twoElectronLevels } from './two-electron.js';
 import type { LevelsResult } from '../ligand-field/types.js';
 import type { Evaluated } from './evaluate.js';
 import { primaryClass } from './enumerate.js';
 import { ligandFieldStabilisation, spinOnlyMoment } from './lfse.js';
 import type { SortedObservations } from './observations.js';
-import { promotedElectrons, levelIdentityKey } from './scan.js';
+import { levelIdentityKey } from './scan.js';
 import type { FitSettings } from './settings.js';
 import { fitUncertainty } from './uncertainty.js';
 import type {
-  Alternative, AssignedBand, CrossoverInfo, FitOptions, FitResult, FitStatus, PredictedTransition,
+  Alternative, AssignedBand, CrossoverInfo, FitOptions, FitResult, FitStatus, Penalty, PredictedTransition,
 } from './types.js';
 
 /** |fitted − crossover| / crossover below this is "near spin crossover". */
 export const NEAR_CROSSOVER_FRACTION = 0.1;
 
-/** Alternatives are shown when their score is at most this (cm-1) for a winner's score. */
+/** Alternatives are shown when their score is at most this for a winner's score: probability ratio ≥ LIKELIHOOD.alternativeRatio. */
 export function alternativeMargin(bestScore: number): number {
-  return bestScore + Math.max(2000, bestScore);
+  return bestScore + deviance(LIKELIHOOD.alternativeRatio);
 }
 
 const round = (v: number, digits = 1) => Math.round(v * 10 ** digits) / 10 ** digits;
@@ -50,7 +54,7 @@ function assignmentRows(best: Evaluated): AssignedBand[] {
 /** Transitions below the limit at the result; for a Dq-only solution only those that do not depend on B. */
 function predictedTransitions(best: Evaluated, settings: FitSettings, limit: number): PredictedTransition[] {
   const { scan, branch } = best.candidate;
-  const promoted = promotedElectrons(scan, branch.ground);
+  const two = twoElectronLevels(scan, branch.ground);
   let other: LevelsResult | undefined;
   if (!best.bDetermined) other = computeLevels(settings.d, settings.geometry, { ...best.params, b: best.params.b * 1.2, c: best.params.c * 1.2 });
   const otherEnergy = new Map(other?.levels.map((l) => [levelIdentityKey(l), l.energy]) ?? []);
@@ -62,7 +66,7 @@ function predictedTransitions(best: Evaluated, settings: FitSettings, limit: num
     .map((l) => ({
       energy: round(l.energy), term: l.term, label: l.label, parent: l.parent, multiplicity: l.multiplicity,
       spinAllowed: l.multiplicity === groundMultiplicity,
-      twoElectron: Math.abs(promoted[scan.index.get(levelIdentityKey(l)) ?? 0] ?? 0) >= 2 && l.multiplicity === groundMultiplicity,
+      twoElectron: two[scan.index.get(levelIdentityKey(l)) ?? -1] === 1 && l.multiplicity === groundMultiplicity,
     }));
 }
 
@@ -119,19 +123,20 @@ function reasonAgainst(alt: Evaluated, best: Evaluated): string {
   if (alt.spinState !== best.spinState) parts.push(`${alt.spinState} ground level ${alt.groundTerm}`);
   if (alt.wrms > best.wrms + 1) parts.push(`rms ${Math.round(alt.wrms)} vs ${Math.round(best.wrms)} cm-1`);
   const bestDetails = new Set(best.penalties.map((p) => p.detail));
-  for (const p of alt.penalties) if (!bestDetails.has(p.detail)) parts.push(`${p.detail} (+${Math.round(p.amount)})`);
+  for (const p of alt.penalties) if (!bestDetails.has(p.detail)) parts.push(`${p.detail} (+${p.amount.toFixed(1)})`);
   const missing = best.penalties.filter((p) => !alt.penalties.some((q) => q.detail === p.detail));
   if (missing.length) parts.push(`though the chosen one has: ${missing.map((p) => p.detail).join('; ')}`);
-  const verdict = alt.score - best.score < 1 ? 'equally good' : `score ${Math.round(alt.score)} vs ${Math.round(best.score)}`;
+  const ratio = Math.exp(-(alt.score - best.score) / 2);
+  const verdict = alt.score - best.score < 0.1 ? 'equally good' : `score ${alt.score.toFixed(1)} vs ${best.score.toFixed(1)} (${ratio < 0.001 ? '< 1/1000' : `${(100 * ratio).toPrecision(2)}%`} as probable)`;
   return `${verdict}${parts.length ? `: ${parts.join('; ')}` : ''}`;
 }
 
-function alternativeOf(alt: Evaluated, best: Evaluated, settings: FitSettings): Alternative {
+function alternativeOf(alt: Evaluated, best: Evaluated, settings: FitSettings, probability: number): Alternative {
   const rows = assignmentRows(alt);
   const b = alt.bDetermined ? alt.params.b : null;
   return {
     assignments: rows.map(({ observed, calculated, residual, term, label }) => ({ observed, calculated, residual, term, label })),
-    rmsResidual: round(alt.wrms), score: round(alt.score), penalties: alt.penalties,
+    rmsResidual: round(alt.wrms), score: round(alt.score, 2), probability: round(probability, 4), penalties: roundPenalties(alt.penalties),
     dq: round(alt.params.dq, 2), tenDq: round(10 * alt.params.dq), b: b === null ? null : round(b),
     c: b === null ? null : round(alt.params.c), beta: b !== null && settings.b0 ? round(b / settings.b0, 4) : null,
     groundTerm: alt.groundTerm, spinState: alt.spinState, reason: reasonAgainst(alt, best),
@@ -144,13 +149,42 @@ export interface BuildInput {
   best: Evaluated;
   others: Evaluated[];
   warnings: string[];
+  /** Notes from the settings and the choice of C mode. */
+  notes?: string[];
+  undetermined?: FitResult['undetermined'];
   options: FitOptions;
 }
 
-export function buildFitResult({ settings, sorted, best, others, warnings, options }: BuildInput): FitResult {
+function roundPenalties(penalties: readonly Penalty[]): Penalty[] {
+  return penalties.map((p) => ({ ...p, amount: round(p.amount, 2) }));
+}
+
+/** The distinct solutions (relabelings of one another dropped), the winner first. */
+function distinctSolutions(best: Evaluated, others: readonly Evaluated[]): Evaluated[] {
+  const list: Evaluated[] = [best];
+  for (const o of others) if (!list.some((k) => sameSolution(o, k))) list.push(o);
+  return list;
+}
+
+export function buildFitResult({ settings, sorted, best, others, warnings, options, ...rest }: BuildInput): FitResult {
   const { predictedLimit = 50_000, maxAlternatives = 4 } = options;
   const { variant, scan, branch } = best.candidate;
-  const notes = [...best.notes];
+  const notes = [...(rest.notes ?? []), ...best.notes];
+  const undetermined = [...(rest.undetermined ?? [])];
+  const solutions = distinctSolutions(best, others);
+  const probabilities = probabilitiesOf(solutions.map((e) => e.score));
+  const probabilityOf = new Map(solutions.map((e, i) => [e, probabilities[i]!]));
+  const spinStateProbabilities: FitResult['spinStateProbabilities'] = {};
+  if (spinStateChoice(settings.d, settings.geometry)) {
+    spinStateProbabilities['high-spin'] = 0;
+    spinStateProbabilities['low-spin'] = 0;
+  }
+  solutions.forEach((e, i) => {
+    spinStateProbabilities[e.spinState] = (spinStateProbabilities[e.spinState] ?? 0) + probabilities[i]!;
+  });
+  for (const key of Object.keys(spinStateProbabilities) as Array<keyof typeof spinStateProbabilities>) {
+    spinStateProbabilities[key] = round(spinStateProbabilities[key]!, 4);
+  }
   const levels = best.levels!;
   const unpaired = levels.unpairedElectrons;
   const bFit = best.bDetermined ? best.params.b : null;
@@ -158,6 +192,16 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   const beta = bFit !== null && settings.b0 !== null ? bFit / settings.b0 : null;
   const { uncertainty, correlation, basis } = fitUncertainty(best, sorted.weighted);
   const status = statusOf(best);
+  // A standard uncertainty as large as the value itself: the bands do not fix it, whatever the fit's status says.
+  const loose: Array<['tenDq' | 'b' | 'c', number | null, number | null]> = [
+    ['tenDq', 10 * best.params.dq, uncertainty.tenDq], ['b', bFit, uncertainty.b], ['c', settings.mode === 'free' ? cFit : null, uncertainty.c],
+  ];
+  for (const [parameter, value, sigma] of loose) {
+    if (value === null || sigma === null || !(sigma >= 0.5 * Math.abs(value))) continue;
+    const name = parameter === 'tenDq' ? '10Dq' : parameter.toUpperCase();
+    undetermined.push({ parameter, reason: `its uncertainty (${sigma.toPrecision(2)} cm-1) is ${sigma >= Math.abs(value) ? 'larger than' : 'more than half'} the value`, action: 'reported, but not fixed by these bands' });
+    warnings.push(`${name} = ${Math.round(value)} cm-1 is not fixed by these bands: its uncertainty is ${sigma.toPrecision(2)} cm-1`);
+  }
   const crossover = crossoverOf(best, settings);
   if (status.status === 'not-converged') warnings.push(status.message);
   if (crossover?.near) {
@@ -165,14 +209,19 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
       `near spin crossover: Dq/B = ${crossover.fittedDqOverB.toFixed(2)} is ${Math.abs(crossover.percent).toFixed(1)}% ${crossover.percent >= 0 ? 'above' : 'below'} the crossover at ${crossover.dqOverB.toFixed(2)}`,
     );
   }
-  // Small penalties (expected-weak transitions skipped) are worth a note, large ones a warning.
+  // Small terms (expected-weak transitions skipped) are worth a note, large ones (p < 0.1) a warning.
   for (const p of best.penalties) {
     if (p.rule === 'jahn-teller-pair') continue;
     // A band left out or merged always warrants a warning: the band list may hold a spurious band.
-    const warn = p.amount >= 300 || p.rule === 'unexplained-band' || p.rule === 'split-band';
-    (warn ? warnings : notes).push(`${p.detail} (score +${Math.round(p.amount)})`);
+    const warn = p.amount >= deviance(0.1) || p.rule === 'unexplained-band' || p.rule === 'split-band';
+    (warn ? warnings : notes).push(`${p.detail} (score +${p.amount.toFixed(1)})`);
   }
   if (!best.bDetermined) {
+    undetermined.push({
+      parameter: 'b',
+      reason: primaryClass(branch).levels.length === 1 ? 'one spin-allowed transition, whose energy is 10Dq' : 'one band',
+      action: 'B, C and β are not reported (null)',
+    });
     if (primaryClass(branch).levels.length === 1) {
       warnings.push(`B is not determinable: ${describeSingle(settings, branch.multiplicity)} has one spin-allowed transition, whose energy is 10Dq`);
     } else {
@@ -194,13 +243,12 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
     ...sorted.chargeTransfer.map((b) => ({ observed: round(b.position), band: b.index, reason: 'charge-transfer band: left out of the fit' })),
     ...variant.dropped.map((o) => ({ observed: round(o.position), band: o.bands[0]!, reason: 'left unexplained by the chosen assignment' })),
   ];
-  const kept: Evaluated[] = [];
-  for (const o of others) {
-    if (kept.length >= maxAlternatives || o.score > alternativeMargin(best.score)) continue;
-    if ([best, ...kept].some((k) => sameSolution(o, k))) continue;
-    kept.push(o);
+  const kept = solutions.slice(1).filter((o) => o.score <= alternativeMargin(best.score)).slice(0, maxAlternatives);
+  const alternatives = kept.map((o) => alternativeOf(o, best, settings, probabilityOf.get(o) ?? 0));
+  const probability = probabilities[0]!;
+  if (probability < 0.5) {
+    warnings.push(`the chosen assignment is not certain: probability ${(100 * probability).toFixed(0)}% (see the alternatives)`);
   }
-  const alternatives = kept.map((o) => alternativeOf(o, best, settings));
   return {
     d: settings.d, ion: settings.ion?.label ?? null, geometry: settings.geometry,
     dq: round(best.params.dq, 2), tenDq: round(10 * best.params.dq), b: bFit === null ? null : round(bFit),
@@ -220,7 +268,9 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
     correlation: {
       bDq: nullableRound(correlation.bDq, 4), cDq: nullableRound(correlation.cDq, 4), cB: nullableRound(correlation.cB, 4),
     },
-    score: round(best.score), penalties: best.penalties, assignments: assignmentRows(best), unassigned,
+    score: round(best.score, 2), chiSquare: round(best.chiSquare, 2), probability: round(probability, 4), spinStateProbabilities,
+    undetermined, window: settings.window ?? null, ligands: [...new Set(settings.ligands.map((l) => l.key))],
+    penalties: roundPenalties(best.penalties), assignments: assignmentRows(best), unassigned,
     skipped: best.skipped.map((s) => ({ ...s, energy: round(s.energy) })), alternatives, crossover,
     predicted: predictedTransitions(best, settings, predictedLimit), warnings, notes,
   };

@@ -8,8 +8,13 @@
  */
 import { freeIonRacah } from '../chemistry/free-ion.js';
 import { parseIon, type Ion } from '../chemistry/ions.js';
-import { invalidArgument } from '../errors.js';
+import { findLigand } from '../chemistry/ligands.js';
+import { parseFormula, type ParsedComplex } from '../chemistry/formula.js';
+import { jorgensenF, jorgensenG, jorgensenH, jorgensenK, JORGENSEN_SOURCE } from '../chemistry/jorgensen.js';
+import { FieldgapError, invalidArgument, isFieldgapError } from '../errors.js';
 import { GEOMETRIES, type Geometry } from '../ligand-field/types.js';
+import { LIKELIHOOD } from './likelihood.js';
+import type { PriorSettings, Window } from './penalties.js';
 import type { CMode, FitInput } from './types.js';
 
 /** C/B used when neither the input nor the free-ion table gives one. */
@@ -29,6 +34,87 @@ export interface FitSettings {
   cOverBSource: string;
   /** Fixed C in cm-1 (fixed mode), else NaN. */
   cFixed: number;
+  /** The ratio was given by the user (cOverB): it is never estimated from the bands. */
+  cOverBGiven: boolean;
+  /** The measured range, or undefined. */
+  window: Window | undefined;
+  /** Ligand keys given (by formula or list), with their counts. */
+  ligands: Array<{ key: string; count: number }>;
+  priors: PriorSettings;
+  /** What the formula and ligands changed, for the notes. */
+  notes: string[];
+}
+
+function readFormula(value: unknown): ParsedComplex | undefined {
+  if (value === undefined) return undefined;
+  if (typeof value !== 'string') throw invalidArgument('formula', `formula must be text such as "[Co(H2O)6]2+", got ${JSON.stringify(value)}`);
+  try {
+    return parseFormula(value);
+  } catch (error) {
+    if (isFieldgapError(error)) throw new FieldgapError(error.code, error.message, 'formula');
+    throw error;
+  }
+}
+
+function readLigands(value: unknown): Array<{ key: string; count: number }> {
+  if (value === undefined) return [];
+  const list = typeof value === 'string' ? value.split(/[,;]/) : Array.isArray(value) ? value : undefined;
+  if (!list || list.some((v) => typeof v !== 'string')) {
+    throw invalidArgument('ligands', `ligands must be text such as "H2O" or "NH3,Cl", or a list of such, got ${JSON.stringify(value)}`);
+  }
+  const out: Array<{ key: string; count: number }> = [];
+  (list as string[]).forEach((text, i) => {
+    const trimmed = text.trim();
+    if (trimmed === '') return;
+    const ligand = findLigand(trimmed);
+    if (!ligand) throw invalidArgument(`ligands[${i}]`, `ligand ${i + 1} ("${trimmed}") is not one fieldgap knows (e.g. H2O, NH3, Cl, en, CN)`);
+    out.push({ key: ligand.key, count: 1 });
+  });
+  return out;
+}
+
+function readWindow(value: unknown): Window | undefined {
+  if (value === undefined) return undefined;
+  const w = value as Partial<Window> | null;
+  const ok = typeof w === 'object' && w !== null && typeof w.min === 'number' && typeof w.max === 'number'
+    && Number.isFinite(w.min) && Number.isFinite(w.max) && w.min > 0 && w.max > w.min;
+  if (!ok) throw invalidArgument('window', `window must be { min, max } in cm-1 with 0 < min < max, got ${JSON.stringify(value)}`);
+  return { min: w.min!, max: w.max! };
+}
+
+/**
+ * The priors of likelihood.ts for this ion, geometry and ligands: 10Dq from
+ * Jørgensen's f·g when every ligand has f (count-weighted mean f, the rule of
+ * average environment), else the range 0.7·g … 1.75·g; β from 1 − h·k when
+ * every ligand has h and the ion has k.
+ */
+function priorSettings(ion: Ion | null, geometry: Geometry, b0: number | null, cOverB: number, ligands: Array<{ key: string; count: number }>): PriorSettings {
+  const g = ion ? jorgensenG(ion) : undefined;
+  const k = ion ? jorgensenK(ion) : undefined;
+  const t = geometry === 'tetrahedral' ? LIKELIHOOD.tetrahedralFactor : 1;
+  const total = ligands.reduce((s, l) => s + l.count, 0);
+  const mean = (of: (key: string) => number | undefined) => {
+    if (total === 0) return undefined;
+    let sum = 0;
+    for (const l of ligands) {
+      const v = of(l.key);
+      if (v === undefined) return undefined;
+      sum += v * l.count;
+    }
+    return sum / total;
+  };
+  const f = mean(jorgensenF);
+  const h = mean(jorgensenH);
+  const names = [...new Set(ligands.map((l) => l.key))].join(', ');
+  const tenDqExpected = f !== undefined && g !== undefined ? f * g * t : null;
+  const betaExpected = h !== undefined && k !== undefined ? Math.max(0.2, 1 - h * k) : null;
+  return {
+    b0, cOverB,
+    tenDqExpected,
+    tenDqRange: g !== undefined ? [LIKELIHOOD.fLow * g * t, LIKELIHOOD.fHigh * g * t] : null,
+    betaExpected,
+    ligandNote: tenDqExpected !== null || betaExpected !== null ? `${names}; ${JORGENSEN_SOURCE}` : null,
+  };
 }
 
 function resolveIon(value: unknown): Ion {
@@ -50,7 +136,15 @@ function positiveField(value: unknown, path: string, what: string, max: number):
 
 export function resolveFitSettings(input: FitInput): FitSettings {
   if (typeof input !== 'object' || input === null) throw invalidArgument('', 'the fit input must be an object with bands and an ion or d');
-  const ion = input.ion === undefined ? null : resolveIon(input.ion);
+  const formula = readFormula(input.formula);
+  const notes: string[] = [];
+  let ion = input.ion === undefined ? null : resolveIon(input.ion);
+  if (formula) {
+    if (ion && ion.label !== formula.metal.label) {
+      throw invalidArgument('formula', `the formula ${formula.complexIon} has ${formula.metal.label}, but the ion given is ${ion.label}`);
+    }
+    ion ??= formula.metal;
+  }
   let d: number;
   if (input.d !== undefined) {
     if (typeof input.d !== 'number' || !Number.isInteger(input.d) || input.d < 0 || input.d > 10) {
@@ -66,7 +160,11 @@ export function resolveFitSettings(input: FitInput): FitSettings {
   if (d === 0 || d === 10) {
     throw invalidArgument(ion ? 'ion' : 'd', ion?.note ?? `d${d} has no d–d transitions, so there is nothing to fit`);
   }
-  const geometry = input.geometry ?? 'octahedral';
+  let geometry = input.geometry ?? 'octahedral';
+  if (input.geometry === undefined && formula?.geometry) {
+    geometry = formula.geometry;
+    notes.push(`geometry ${geometry} guessed from the coordination number ${formula.coordinationNumber} of ${formula.complexIon}`);
+  }
   if (!GEOMETRIES.includes(geometry)) {
     throw invalidArgument('geometry', `geometry must be one of ${GEOMETRIES.join(', ')}, got ${JSON.stringify(geometry)}`);
   }
@@ -93,8 +191,12 @@ export function resolveFitSettings(input: FitInput): FitSettings {
     cOverBSource = `C/B = C0/B0 = ${ratio.toFixed(2)} of the free ${ion!.label} ion`;
   }
   const mode: CMode = freeC ? 'free' : c !== undefined ? 'fixed' : 'ratio';
+  const ligands = [...(formula?.ligands.map((l) => ({ key: l.key, count: l.count })) ?? []), ...readLigands(input.ligands)];
+  const window = readWindow(input.window);
+  const priorCentre = free ? free.c / free.b : LIKELIHOOD.defaultCOverB;
   return {
     d, ion, geometry, b0, c0, freeIonSource: free?.source ?? null, mode, cOverB: ratio, cOverBSource,
-    cFixed: c ?? Number.NaN,
+    cFixed: c ?? Number.NaN, cOverBGiven: cOverB !== undefined, window, ligands,
+    priors: priorSettings(ion, geometry, b0, priorCentre, ligands), notes,
   };
 }

@@ -23,6 +23,16 @@ export interface FitInput {
   c?: number;
   /** Fit C as a third parameter (needs ≥ 3 d–d bands that depend on C). */
   freeC?: boolean;
+  /**
+   * The measured range, cm-1: a strong transition predicted inside it must
+   * show a band; one outside it may be missing. Default: unknown (the bands'
+   * own span stands in for it).
+   */
+  window?: { min: number; max: number };
+  /** The complex's formula ("[Co(H2O)6]2+"): ligands for the priors; the metal when no ion is given; the geometry guess when none is given. */
+  formula?: string;
+  /** Ligands ("H2O", "NH3,Cl" or a list) for the 10Dq and β priors (Jørgensen's f·g and 1 − h·k). */
+  ligands?: string | readonly string[];
 }
 
 /** Tuning of the fit; every field has a documented default (see fit-bands.ts). */
@@ -56,8 +66,8 @@ export interface AssignedBand {
 }
 
 export interface Penalty {
-  rule: 'skipped-transition' | 'unexplained-band' | 'split-band' | 'beta' | 'c-over-b' | 'jahn-teller-pair';
-  /** Added to the score, cm-1. */
+  rule: 'skipped-transition' | 'unexplained-band' | 'split-band' | 'beta' | 'c-over-b' | 'jahn-teller-pair' | 'ten-dq' | 'ligands' | 'intensity' | 'forbidden-band';
+  /** Added to the score: a deviance, −2·ln p (likelihood.ts). */
   amount: number;
   detail: string;
 }
@@ -72,7 +82,10 @@ export interface SkippedTransition {
 export interface Alternative {
   assignments: Array<Pick<AssignedBand, 'observed' | 'calculated' | 'residual' | 'term' | 'label'>>;
   rmsResidual: number;
+  /** Deviance, −2·ln of the posterior up to a constant (likelihood.ts): lower is better. */
   score: number;
+  /** Probability of this solution among those evaluated, exp(−score/2) normalised. */
+  probability: number;
   penalties: Penalty[];
   dq: number;
   tenDq: number;
@@ -137,7 +150,20 @@ export interface FitResult {
   uncertainty: { tenDq: number | null; dq: number | null; b: number | null; c: number | null };
   /** Correlation coefficients of the fitted parameters. */
   correlation: { bDq: number | null; cDq: number | null; cB: number | null };
+  /** Deviance, −2·ln of the posterior up to a constant (likelihood.ts): lower is better. */
   score: number;
+  /** χ² of the band positions with σ² + σm² (part of score). */
+  chiSquare: number;
+  /** Probability of the chosen assignment among the solutions evaluated. */
+  probability: number;
+  /** Probability of each spin state (summed over its solutions); only states the d-count allows. */
+  spinStateProbabilities: Partial<Record<SpinState, number>>;
+  /** Parameters the bands do not determine, each with what was done (fixed at its prior, or not reported). */
+  undetermined: Array<{ parameter: 'b' | 'c' | 'tenDq'; reason: string; action: string }>;
+  /** The measured range used for the window terms, cm-1, or null. */
+  window: { min: number; max: number } | null;
+  /** Ligands used for the priors (keys), or []. */
+  ligands: string[];
   penalties: Penalty[];
   assignments: AssignedBand[];
   /** Bands not used: charge-transfer, or left unexplained by the chosen assignment. */

@@ -37,7 +37,8 @@ describe('automatic assignment', () => {
     expect(r.alternatives.length).toBeGreaterThan(0);
     for (const alt of r.alternatives) {
       expect(alt.score).toBeGreaterThanOrEqual(r.score);
-      expect(alt.reason).toMatch(/^(score \d+ vs \d+|equally good)/);
+      expect(alt.reason).toMatch(/^(score [\d.]+ vs [\d.]+ \(.* as probable\)|equally good)/);
+      expect(alt.probability).toBeLessThan(r.probability);
     }
     // The (4T1g(F), 4T1g(P)) reading puts 4T2g inside the measured range with no band: penalised, and said so.
     const skipLow = r.alternatives.find((a) => a.assignments[0]!.label === '4T1g(F)')!;

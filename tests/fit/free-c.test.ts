@@ -99,7 +99,9 @@ describe('grid optima', () => {
       const ground = to.index.get(from.ids[c.branch.ground]!.key)!;
       const levels = Array.from(c.levels, (k) => to.index.get(from.ids[k]!.key)!);
       const o = Float64Array.from(bands);
-      const slow = slowOptimum(to, ground, levels, moved.branch.points, o, new Float64Array(3).fill(1));
+      // The χ² weights 1/(σ² + σm²) of src/fit/likelihood.ts, written out: σ = max(100, 1%), σm = max(150, 1.5%).
+      const w = Float64Array.from(bands, (v) => 1 / (Math.max(100, 0.01 * v) ** 2 + Math.max(150, 0.015 * v) ** 2));
+      const slow = slowOptimum(to, ground, levels, moved.branch.points, o, w);
       expect(moved.grid.point).toBe(slow.point);
       expect(moved.grid.b).toBeCloseTo(slow.b, 6);
       expect(Array.from(moved.levels, (k) => to.ids[k]!.key)).toEqual(Array.from(c.levels, (k) => from.ids[k]!.key));

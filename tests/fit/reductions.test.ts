@@ -40,22 +40,29 @@ describe('bandReductions', () => {
     expect(reductionsOf('17400, 4000:sf').some((r) => r.dropped.length === 1 && r.sorted.primary.length === 1)).toBe(true);
   });
 
-  it('prices a band by what it is: plain 1000, shoulder 500, weak shoulder 250, flagged 300, never below 150', () => {
+  it('prices a band by what it is: −2·ln(π/R) − ln(2π·σeff²), π 0.02 ×3 per shoulder, weak, narrow, ×5 flagged, at most 0.5', () => {
     const amount = (text: string, at: number) => {
       const r = reductionsOf(text, 1).find((x) => x.dropped.length === 1 && Math.round(x.dropped[0]!.position) === at && x.merged.length === 0)!;
       return r.penalty;
     };
-    expect(amount('10000, 20000, 30000', 20000)).toBe(1000);
-    expect(amount('10000, 20000:sh, 30000', 20000)).toBe(500);
-    expect(amount('10000:e=10, 20000:sh:e=1, 30000:e=10', 20000)).toBe(250);
-    expect(amount('10000, 20000, 30000, 40000:sf', 40000)).toBe(300);
-    expect(amount('10000:w=3000, 20000:w=3000, 30000:w=3000, 40000:sf:sh:w=200', 40000)).toBe(150);
+    // The model of src/fit/likelihood.ts written out again: σ default max(100, 1%), model error max(150, 1.5%), R = 30 000 cm-1.
+    const expected = (prior: number, position: number) => {
+      const s2 = Math.max(100, 0.01 * position) ** 2 + Math.max(150, 0.015 * position) ** 2;
+      return -2 * Math.log(prior / 30000) - Math.log(2 * Math.PI * s2);
+    };
+    expect(amount('10000, 20000, 30000', 20000)).toBeCloseTo(expected(0.02, 20000), 9);
+    expect(amount('10000, 20000:sh, 30000', 20000)).toBeCloseTo(expected(0.06, 20000), 9);
+    expect(amount('10000:e=10, 20000:sh:e=1, 30000:e=10', 20000)).toBeCloseTo(expected(0.18, 20000), 9);
+    expect(amount('10000, 20000, 30000, 40000:sf', 40000)).toBeCloseTo(expected(0.1, 40000), 9);
+    expect(amount('10000:w=3000, 20000:w=3000, 30000:w=3000, 40000:sf:sh:w=200', 40000)).toBeCloseTo(expected(0.5, 40000), 9);
+    // The less a band looks like a real d–d maximum, the cheaper it is to leave.
+    expect(amount('10000, 20000:sh, 30000', 20000)).toBeLessThan(amount('10000, 20000, 30000', 20000));
   });
 
-  it('merges only close neighbours, at 250 + 0.25 per cm-1 of separation', () => {
+  it('merges only close neighbours, at −2·ln 0.1 + (separation/1500 cm-1)² each', () => {
     const list = reductionsOf('21175, 22304, 27523, 28834');
     const both = list.find((r) => r.merged.length === 2 && r.dropped.length === 0)!;
-    expect(both.penalty).toBeCloseTo(250 + 0.25 * 1129 + 250 + 0.25 * 1311, 6);
+    expect(both.penalty).toBeCloseTo(2 * -2 * Math.log(0.1) + (1129 / 1500) ** 2 + (1311 / 1500) ** 2, 6);
     expect(both.sorted.primary.map((o) => o.position)).toEqual([(21175 + 22304) / 2, (27523 + 28834) / 2]);
     expect(reductionsOf('17400, 24600').some((r) => r.merged.length > 0)).toBe(false);
   });

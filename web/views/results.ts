@@ -59,7 +59,21 @@ export function parameterCards(fit: FitResult, original: FitResult | null): HTML
     card('p-unpaired', 'Unpaired electrons', String(fit.unpairedElectrons), ''),
     card('p-moment', 'Spin-only moment', formatNumber(fit.spinOnlyMoment, 2), UNIT.moment),
     card('p-rms', 'RMS residual', formatNumber(fit.rmsResidual, fit.rmsResidual !== null && Math.abs(fit.rmsResidual) < 10 ? 1 : 0), UNIT.wavenumber, fitStatusNote(fit)),
+    ...(fit.probability === undefined ? [] : [card('p-probability', 'Probability of this assignment', percentText(fit.probability), '', spinStateProbabilityText(fit))]),
   );
+}
+
+/** 0.973 → "97 %"; below 0.1 % → "< 0.1 %". */
+function percentText(p: number): string {
+  return p < 0.001 ? '< 0.1 %' : `${(100 * p).toPrecision(p >= 0.995 ? 3 : 2)} %`;
+}
+
+/** "high spin 99 % · low spin 1 %" where the ion has a choice; the undetermined parameters otherwise. */
+function spinStateProbabilityText(fit: FitResult): string {
+  const entries = Object.entries(fit.spinStateProbabilities ?? {}).filter(([key]) => key !== 'no-choice');
+  const parts = entries.map(([key, p]) => `${spinStateText(key)} ${percentText(p)}`);
+  for (const u of fit.undetermined ?? []) parts.push(`not fixed by the bands: ${u.parameter} (${u.action})`);
+  return parts.join(' · ');
 }
 
 /** "fit: converged"; the fit's own message only when it did not simply converge. */
@@ -103,6 +117,7 @@ function alternativeSummary(alternative: Alternative | FitResult): string {
   if (typeof alternative.b === 'number') parts.push(`B ${formatNumber(alternative.b)} ${UNIT.wavenumber}`);
   if (typeof alternative.rmsResidual === 'number') parts.push(`rms ${formatNumber(alternative.rmsResidual)} ${UNIT.wavenumber}`);
   if (typeof alternative.spinState === 'string' && alternative.spinState !== 'no-choice') parts.push(spinStateText(alternative.spinState));
+  if (typeof alternative.probability === 'number') parts.push(`probability ${percentText(alternative.probability)}`);
   const levels = (alternative.assignments ?? []).map((a) => levelLabel(a.term, a.parent, a.label));
   if (levels.length > 0) parts.push(levels.join(', '));
   return parts.join(' · ');

@@ -31,6 +31,7 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
   lines.push(`  beta        ${fit.beta === null ? 'not determined' : `${fit.beta.toFixed(3)} (B0 = ${fit.freeIonB} cm-1)`}`);
   lines.push(`  ground      ${fit.groundLabel}, ${fit.spinState}, ${fit.unpairedElectrons} unpaired, spin-only ${fit.spinOnlyMoment.toFixed(2)} μB`);
   lines.push(`  rms         ${fit.rmsResidual.toFixed(0)} cm-1 (${fit.message})`);
+  lines.push(`  assignment  probability ${percent(fit.probability)}${spinStates(fit.spinStateProbabilities)}`);
   const warnings = result.warnings;
   if (warnings.length > 0) lines.push('', 'Warnings', ...warnings.map((w) => `  - ${w}`));
   lines.push('', 'Results are model estimates: check the assignment against the spectrum.');
@@ -40,4 +41,15 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
 function table(rows: string[][]): string[] {
   const widths = rows[0]!.map((_, i) => Math.max(...rows.map((r) => (r[i] ?? '').length)));
   return rows.map((r) => `  ${r.map((c, i) => c.padEnd(widths[i]!)).join('  ').trimEnd()}`);
+}
+
+/** 0.9731 → "97%", tiny → "< 0.1%". */
+function percent(p: number): string {
+  return p < 0.001 ? '< 0.1%' : `${(100 * p).toPrecision(p >= 0.995 ? 3 : 2)}%`;
+}
+
+/** "; high-spin 99%, low-spin 1%" where the ion has a choice. */
+function spinStates(p: Partial<Record<string, number>>): string {
+  const entries = Object.entries(p).filter(([key]) => key !== 'no-choice');
+  return entries.length ? `; ${entries.map(([key, v]) => `${key} ${percent(v ?? 0)}`).join(', ')}` : '';
 }

@@ -32,6 +32,10 @@ bands, and fits 10Dq, Racah B and C to the d-d bands.
   --no-step-correction  leave detector change-over steps in the data (by
                       default a step is corrected only on overwhelming
                       evidence, and listed with its size)
+  --formula F         the complex, e.g. "[Co(H2O)6]2+": ligand priors for the
+                      assignment (10Dq, beta); the ion and a geometry guess when
+                      --ion and --geometry are not given
+  --ligands L         ligands for the priors, e.g. H2O or "NH3,Cl"
   --json              print the full result as JSON (one file), or all results
   --json FILE.json    write all results to FILE.json (batch)
   --threads N         worker threads for a batch (default: one per core;
@@ -50,6 +54,8 @@ const BATCH_OPTIONS = { threads: { type: 'string' } } as const;
 const OPTIONS = {
   ...BATCH_OPTIONS,
   ...ANALYSIS_OPTIONS,
+  formula: { type: 'string' },
+  ligands: { type: 'string' },
   csv: { type: 'string' },
   curves: { type: 'boolean' },
   'no-step-correction': { type: 'boolean' },
@@ -127,9 +133,11 @@ export const analyzeCommand: Command = {
   },
 };
 
-function analysisOptions(values: Parameters<typeof analysisOptionsFrom>[0] & { curves?: boolean; 'no-step-correction'?: boolean }): AnalyzeOptions {
+function analysisOptions(values: Parameters<typeof analysisOptionsFrom>[0] & { curves?: boolean; 'no-step-correction'?: boolean; formula?: string; ligands?: string }): AnalyzeOptions {
   const options = analysisOptionsFrom(values);
-  if (options.ion === undefined && options.d === undefined) {
+  if (values.formula !== undefined) options.formula = values.formula;
+  if (values.ligands !== undefined) options.ligands = values.ligands;
+  if (options.ion === undefined && options.d === undefined && options.formula === undefined) {
     throw new FieldgapError('invalid-argument', '--ion is required (or --d N): the metal ion, e.g. --ion Cr3+', '--ion');
   }
   if (values.curves) options.curves = true;

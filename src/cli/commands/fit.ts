@@ -2,6 +2,7 @@ import { FieldgapError, invalidArgument, isFieldgapError } from '../../errors.js
 import { fitBands, parseBandList, type FitInput, type FitResult } from '../../fit/index.js';
 import { GEOMETRIES } from '../../ligand-field/index.js';
 import { fitTetragonal, tetragonalFitReport, type TetragonalFitInput } from '../../fit-tetragonal/index.js';
+import { valueToWavenumber, xUnitFromName } from '../../spectrum/units.js';
 import type { Command } from '../command.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 
@@ -9,17 +10,20 @@ import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
  * `fieldgap fit`: 10Dq, Racah B and C from observed band maxima, with the
  * assignment chosen automatically, as a readable report or as JSON.
  */
-const USAGE = `Usage: fieldgap fit (--ion ION | --d N) --bands LIST [--geometry G]
-                    [--c-over-b R | --c C | --free-c] [--json]
+const USAGE = `Usage: fieldgap fit (--ion ION | --d N | --formula F) --bands LIST [--geometry G]
+                    [--c-over-b R | --c C | --free-c] [--ligands L] [--window RANGE] [--json]
 
 Fits 10Dq, Racah B (and C) to observed d-d band maxima. The bands are assigned
 automatically to transitions from the ground level, trying both spin states
 where the ion has a choice; the report shows the assignment, the runners-up
 and why they lost, uncertainties, spin state, moment, LFSE and the predicted
-transitions below 50000 cm-1. A band no transition takes (a spurious or split
-maximum) is left unexplained, or two close maxima are averaged as one band,
-with a warning; one band of d3/d8 octahedral or d2/d7 tetrahedral gives 10Dq
-alone.
+transitions below 50000 cm-1. Each assignment is scored by its probability
+(band positions, intensities, the measured range, and priors on beta, C/B and
+10Dq); the report gives the probability of the chosen assignment, of each
+runner-up and of each spin state. A band no transition takes (a spurious or
+split maximum) is left unexplained, or two close maxima are averaged as one
+band, with a warning; one band of d3/d8 octahedral or d2/d7 tetrahedral gives
+10Dq alone. A parameter the bands cannot fix is fixed at its prior and said so.
 
 Options:
   --ion ION        the metal ion: Cr3+, Cr(III), Co2+, ... (gives d, and B0, C0 for beta)
@@ -40,6 +44,12 @@ Options:
   --zeta Z         spin–orbit constant ζ fixed at Z cm-1, or free-ion (the ion's
                    tabulated value); default 0 (off)
   --free-zeta      fit ζ as well
+  --formula F      the complex, e.g. "[Co(H2O)6]2+": gives the ion (if --ion is
+                     not given), a geometry guess (if --geometry is not given)
+                     and the ligands for the 10Dq and beta priors
+  --ligands L      ligands for the priors, comma-separated: H2O, "NH3,Cl"
+  --window RANGE   the measured range, e.g. 380-780nm or 12800-26300 (cm-1):
+                     a strong transition predicted inside it must show a band
   --json           print the result as JSON
 
 Example: fieldgap fit --ion Cr3+ --bands 17400,24600
@@ -56,6 +66,9 @@ const OPTION_OF_FIELD: ReadonlyArray<[RegExp, string]> = [
   [/^c$/, '--c'],
   [/^freeC/, '--free-c'],
   [/^zeta/, '--zeta'],
+  [/^formula/, '--formula'],
+  [/^ligands/, '--ligands'],
+  [/^window/, '--window'],
 ];
 
 function toOptionError(error: FieldgapError): FieldgapError {
@@ -75,21 +88,28 @@ export function parseFitArgs(argv: string[]): { input: FitInput; json: boolean; 
     'c-over-b': { type: 'string' },
     c: { type: 'string' },
     'free-c': { type: 'boolean' },
+    formula: { type: 'string' },
+    ligands: { type: 'string' },
+    window: { type: 'string' },
     json: { type: 'boolean' },
     symmetry: { type: 'string' },
     zeta: { type: 'string' },
     'free-zeta': { type: 'boolean' },
   });
-  if (values.ion === undefined && values.d === undefined) {
-    throw invalidArgument('--ion', '--ion (e.g. Cr3+) or --d (the d-electron count) is required');
+  if (values.ion === undefined && values.d === undefined && values.formula === undefined) {
+    throw invalidArgument('--ion', '--ion (e.g. Cr3+), --d (the d-electron count) or --formula is required');
   }
   if (values.bands === undefined) throw invalidArgument('--bands', '--bands is required, e.g. --bands 17400,24600');
   const given = (['c-over-b', 'c', 'free-c'] as const).filter((name) => values[name] !== undefined);
   if (given.length > 1) throw invalidArgument(`--${given[1]}`, `give only one of --c-over-b, --c and --free-c (got --${given.join(' and --')})`);
-  const input: FitInput = {
-    bands: parseBandList(values.bands, { path: '--bands' }),
-    geometry: choiceOption('geometry', values.geometry, GEOMETRIES, 'octahedral'),
-  };
+  const input: FitInput = { bands: parseBandList(values.bands, { path: '--bands' }) };
+  // Without --geometry a formula's guess (or octahedral) is used by the fit.
+  if (values.geometry !== undefined || values.formula === undefined) {
+    input.geometry = choiceOption('geometry', values.geometry, GEOMETRIES, 'octahedral');
+  }
+  if (values.formula !== undefined) input.formula = values.formula;
+  if (values.ligands !== undefined) input.ligands = values.ligands;
+  if (values.window !== undefined) input.window = parseWindow(values.window);
   if (values.ion !== undefined) input.ion = values.ion;
   const d = numberOption('d', values.d, { min: 1, max: 9, integer: true });
   if (d !== undefined) input.d = d;
@@ -118,6 +138,23 @@ export function parseFitArgs(argv: string[]): { input: FitInput; json: boolean; 
   return { input, json: values.json ?? false, tetragonal };
 }
 
+/**
+ * "380-780nm", "380–780 nm", "12800-26300", "12800-26300cm-1", "1.6-3.3eV": a
+ * measured range as { min, max } in cm-1.
+ */
+export function parseWindow(text: string): { min: number; max: number } {
+  const match = /^\s*([0-9.]+(?:e[+-]?\d+)?)\s*(?:-|–|\.\.|to)\s*([0-9.]+(?:e[+-]?\d+)?)\s*([a-zµμ^\-1⁻¹]*)\s*$/i.exec(text);
+  const fail = () => invalidArgument('--window', `--window "${text}" is not a range such as 380-780nm or 12800-26300 (cm-1)`);
+  if (!match) throw fail();
+  const unit = match[3] === '' ? 'cm-1' : xUnitFromName(match[3]!);
+  if (unit === null) throw invalidArgument('--window', `--window "${text}" has an unknown unit "${match[3]}" (use nm, cm-1, um or eV)`);
+  const a = Number(match[1]);
+  const b = Number(match[2]);
+  if (!(a > 0 && b > 0) || a === b) throw fail();
+  const ends = [valueToWavenumber(a, unit), valueToWavenumber(b, unit)].sort((x, y) => x - y) as [number, number];
+  return { min: ends[0], max: ends[1] };
+}
+
 /** The JSON document of `fit --json`: the contract fields first, then the extras. */
 export function fitJson(result: FitResult): object {
   const {
@@ -131,6 +168,8 @@ export function fitJson(result: FitResult): object {
 }
 
 const fmt = (v: number, digits = 0) => v.toFixed(digits);
+/** 0.9731 → "97%"; below 0.1% → "< 0.1%". */
+const percent = (p: number) => (p < 0.001 ? '< 0.1%' : `${(100 * p).toPrecision(p >= 0.995 ? 3 : 2)}%`);
 const pm = (v: number | null, digits = 0) => (v === null ? '' : ` ± ${fmt(v, digits)}`);
 
 function table(header: string[], rows: string[][]): string[] {
@@ -162,7 +201,12 @@ export function fitReport(r: FitResult): string {
     lines.push(`Spin crossover at Dq/B = ${fmt(r.crossover.dqOverB, 2)}; fitted Dq/B = ${fmt(r.crossover.fittedDqOverB, 2)} (${r.crossover.percent >= 0 ? '+' : ''}${fmt(r.crossover.percent, 1)}%)`);
   }
   lines.push(`LFSE = ${r.lfse.dq} Dq = ${fmt(r.lfse.cm1)} cm-1 (${r.lfse.configuration}; ${r.lfse.extraPairs} pair${r.lfse.extraPairs === 1 ? '' : 's'} beyond the free ion, pairing energy not included)`);
-  lines.push(`Fit: ${r.message}; rms residual ${fmt(r.rmsResidual)} cm-1`, '', 'Assignment (cm-1):');
+  lines.push(`Fit: ${r.message}; rms residual ${fmt(r.rmsResidual)} cm-1`);
+  const spinChoice = Object.entries(r.spinStateProbabilities).filter(([key]) => key !== 'no-choice');
+  lines.push(`Probability of this assignment: ${percent(r.probability)}${spinChoice.length ? `; spin state: ${spinChoice.map(([key, p]) => `${key} ${percent(p ?? 0)}`).join(', ')}` : ''} (score ${fmt(r.score, 1)} = −2 ln p + const)`);
+  for (const u of r.undetermined) lines.push(`Not determined by these bands: ${u.parameter === 'tenDq' ? '10Dq' : u.parameter.toUpperCase()} (${u.reason}); ${u.action}`);
+  if (r.window) lines.push(`Measured range: ${fmt(r.window.min)}–${fmt(r.window.max)} cm-1 (${fmt(1e7 / r.window.max)}–${fmt(1e7 / r.window.min)} nm)`);
+  lines.push('', 'Assignment (cm-1):');
   lines.push(...table(['observed', 'calculated', 'residual', 'transition'], r.assignments.map((a) => [
     fmt(a.observed), fmt(a.calculated), fmt(a.residual),
     `${r.groundLabel} → ${a.label}${a.coincident.length ? ` (with ${a.coincident.join(', ')})` : ''}${a.spinAllowed ? '' : ', spin-forbidden'}${a.bands.length > 1 ? ', mean of components' : ''}`,
@@ -172,7 +216,7 @@ export function fitReport(r: FitResult): string {
     lines.push('', 'Runners-up:');
     for (const alt of r.alternatives) {
       const params = `10Dq ${fmt(alt.tenDq)}${alt.b === null ? '' : `, B ${fmt(alt.b)}`}`;
-      lines.push(`  ${alt.assignments.map((a) => a.label).join(', ')}: ${params}, rms ${fmt(alt.rmsResidual)} cm-1`, `    not chosen: ${alt.reason}`);
+      lines.push(`  ${alt.assignments.map((a) => a.label).join(', ')}: ${params}, ${alt.spinState === 'no-choice' ? '' : `${alt.spinState}, `}rms ${fmt(alt.rmsResidual)} cm-1, probability ${percent(alt.probability)}`, `    not chosen: ${alt.reason}`);
     }
   }
   lines.push('', `Predicted transitions below 50000 cm-1 (* spin-allowed):`);

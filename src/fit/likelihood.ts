@@ -1,0 +1,152 @@
+/**
+ * The one score that chooses an assignment: a deviance, −2·ln of the
+ * assignment's posterior probability, up to a constant shared by every
+ * assignment of the same band list. Lower wins; two solutions whose scores
+ * differ by Δ have probabilities in the ratio exp(−Δ/2), and the reported
+ * probability of a solution is exp(−score/2) normalised over the solutions
+ * evaluated (a profile posterior: each at its best parameters, no volume
+ * factor). Every term is ≥ 0 and is listed as a `Penalty` with its rule,
+ * except the position term, which is `Evaluated.chiSquare`.
+ *
+ * Likelihood
+ * - Positions: χ² = Σ (o − c)² / (σ² + σm²), with σ the band's uncertainty
+ *   (given, or max(100 cm-1, 1% of the position)) and σm the model error of a
+ *   cubic ligand field with one C/B: max(150 cm-1, 1.5% of the position)
+ *   (common practice: such fits leave residuals of a few hundred cm-1).
+ * - A band left unexplained: a band list may hold a maximum that is no d–d
+ *   maximum of this model (a split maximum, noise, an impurity) with prior
+ *   probability π, anywhere in a range R = 30 000 cm-1. Against explaining
+ *   it exactly that costs −2·ln(π/R) − ln(2π·σeff²): π = 0.02, times 3 for a
+ *   shoulder, for a weak band (ε below 20% of the largest d–d ε) and for a
+ *   narrow one (width below half the median), times 5 for a band the user
+ *   flagged spin-forbidden (such bands are often components the cubic model
+ *   does not resolve); π at most 0.5 (values: common practice).
+ * - Two neighbouring bands read as one split band: −2·ln 0.1 + (Δ/1500 cm-1)².
+ * - Jahn–Teller components averaged: −2·ln 0.5 + (10·(ratio − 1.3))² above a
+ *   ratio of 1.3 between the highest and the lowest component.
+ * - A predicted transition of the class the bands are assigned to with no
+ *   band on it: −2·ln p, p the chance that it is missed:
+ *   · outside the measured range (when the range is known), above the
+ *     highest band (when it is not), or under a charge-transfer band: p = 1;
+ *   · within 300 cm-1 (or half the band width) of an assigned transition:
+ *     p = 1, it lies under that band;
+ *   · inside the measured range above the highest band: the lowest such
+ *     transition p = max(0.1, p below), those above it p = 1 (a rising
+ *     charge-transfer tail hides the near-UV end of many spectra);
+ *   · inside the measured range, or between observed bands: a one-electron
+ *     spin-allowed transition p = 0.003 (it is strong and must appear); a
+ *     two-electron one p = 0.5 (weak); one of a spin-forbidden class (high-
+ *     spin d5, whose bands are all weak) p = 0.2;
+ *   · below the lowest band when the range is not known: in the infrared
+ *     (< 5000 cm-1) p = 0.3 octahedral, 1 tetrahedral; a tetrahedral ion's
+ *     lowest transition below 7000 cm-1 p = 0.7; else p = 0.05.
+ *   (Values: common practice.)
+ * - A band explained by a spin-forbidden transition beside spin-allowed ones:
+ *   −2·ln 0.15, the chance that a given one of the many weak spin-forbidden
+ *   transitions shows as a band at all (common practice: a few sharp ones
+ *   do); without it any stray band finds a doublet within its σ.
+ * - Intensities, for bands that carry ε (L mol-1 cm-1): ln ε ~ Normal(μ, 1.3)
+ *   with ε_μ = 20 for octahedral spin-allowed d–d bands, 300 tetrahedral
+ *   (common practice: 1–150 and 50–1 500), a tenth of that for a two-electron
+ *   transition; for spin-forbidden bands 3% of the strongest spin-allowed ε
+ *   of the spectrum, or ε_μ = 0.05 octahedral / 1 tetrahedral when every band
+ *   is spin-forbidden (high-spin d5). Term: ((ln ε − ln ε_μ)/1.3)².
+ * Priors (common practice unless a source is named)
+ * - β = B/B0 flat on [0.35, 1.0], half-Gaussian tails of σ 0.04 above and
+ *   0.035 below (without B0: B flat on [150, 1250] cm-1, tails of 50 and
+ *   15 cm-1). First-row complexes below β = 0.35 are unknown (common
+ *   practice: even cyanides keep β near 0.4–0.5).
+ * - C/B, when fitted: Gaussian around C0/B0 (4.5 without a free-ion value),
+ *   σ 1.2, skewed up: complexes have C/B at or above the free ion's, so above
+ *   the centre σ is 2.0.
+ * - 10Dq: ligands given: log-normal around Jørgensen's f·g (×4/9
+ *   tetrahedral), σ 15% (JORGENSEN_SOURCE; the rule holds to about 10%);
+ *   otherwise flat over the range the ion shows with common ligands,
+ *   0.7·g … 1.75·g (f of bromide to cyanide) with σ 15% tails; no prior
+ *   without g.
+ * - β with ligands: Gaussian around 1 − h·k (Jørgensen), σ 0.1.
+ */
+
+/** Model error of a band position, cm-1. */
+export function modelSigma(position: number): number {
+  return Math.max(150, 0.015 * position);
+}
+
+/** 1/(σ² + σm²): the weight of a band in χ². */
+export function effectiveWeight(position: number, sigma: number): number {
+  return 1 / (sigma * sigma + modelSigma(position) ** 2);
+}
+
+/** −2·ln p, ≥ 0 for p ≤ 1. */
+export function deviance(p: number): number {
+  return -2 * Math.log(Math.min(1, p));
+}
+
+export const LIKELIHOOD = {
+  /** Range a spurious band may fall anywhere in, cm-1. */
+  spuriousRange: 30_000,
+  spuriousPrior: 0.02,
+  spuriousFactor: 3,
+  spuriousFlaggedFactor: 5,
+  spuriousMax: 0.5,
+  splitPair: 0.1,
+  splitScale: 1500,
+  jahnTellerPair: 0.5,
+  jahnTellerRatio: 1.3,
+  missAllowed: 0.003,
+  missAboveHighest: 0.1,
+  forbiddenSeen: 0.15,
+  missTwoElectron: 0.5,
+  missForbiddenClass: 0.2,
+  missBelowOctahedral: 0.05,
+  missInfraredOctahedral: 0.3,
+  missTetrahedralLowest: 0.7,
+  coincidence: 300,
+  infrared: 5000,
+  tetrahedralLowest: 7000,
+  logEpsilonSigma: 1.3,
+  epsilonOctahedral: 20,
+  epsilonTetrahedral: 300,
+  epsilonTwoElectronFactor: 0.1,
+  forbiddenRelative: 0.03,
+  epsilonForbiddenOctahedral: 0.05,
+  epsilonForbiddenTetrahedral: 1,
+  betaMin: 0.35,
+  betaMax: 1.0,
+  betaSigmaHigh: 0.04,
+  betaSigmaLow: 0.035,
+  bMaxWithoutIon: 1250,
+  bMinWithoutIon: 150,
+  cOverBSigmaLow: 1.2,
+  cOverBSigmaHigh: 2.0,
+  defaultCOverB: 4.5,
+  tenDqSigma: 0.15,
+  fLow: 0.7,
+  fHigh: 1.75,
+  tetrahedralFactor: 4 / 9,
+  betaLigandSigma: 0.1,
+  /** Alternatives are kept while their probability is at least this fraction of the winner's. */
+  alternativeRatio: 1e-6,
+} as const;
+
+/** Deviance of leaving a band unexplained, given its spurious-band prior π and σeff. */
+export function unexplainedDeviance(prior: number, sigmaEff: number): number {
+  const { spuriousRange } = LIKELIHOOD;
+  return Math.max(0, deviance(prior / spuriousRange) - Math.log(2 * Math.PI * sigmaEff * sigmaEff));
+}
+
+/** Half-Gaussian tails outside [lo, hi]: 0 inside. */
+export function flatWithTails(value: number, lo: number, hi: number, sigmaLow: number, sigmaHigh: number): number {
+  if (value < lo) return ((lo - value) / sigmaLow) ** 2;
+  if (value > hi) return ((value - hi) / sigmaHigh) ** 2;
+  return 0;
+}
+
+/** Probabilities exp(−score/2), normalised. */
+export function probabilitiesOf(scores: readonly number[]): number[] {
+  if (scores.length === 0) return [];
+  const best = Math.min(...scores);
+  const w = scores.map((s) => Math.exp(-(s - best) / 2));
+  const total = w.reduce((a, b) => a + b, 0);
+  return w.map((v) => v / total);
+}

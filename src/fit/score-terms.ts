@@ -1,0 +1,89 @@
+/**
+ * Every term of the score of one solution besides the position χ² and the
+ * band list's own terms (likelihood.ts): the transitions left without a band,
+ * the intensities and the priors. One function for the three places a
+ * solution is scored (grid, scan refinement, engine refinement), so they
+ * cannot drift apart.
+ */
+import type { GridCandidate, DqOnlyCandidate } from './candidates.js';
+import { primaryClass } from './enumerate.js';
+import type { SortedObservations } from './observations.js';
+import {
+  betaPriorDeviance, intensityPenalties, plausibilityPenalties, tenDqPriorDeviance, skippedTransitionPenalties, type ClassTransition, type SkipOutcome,
+} from './penalties.js';
+import type { FitSettings } from './settings.js';
+import { twoElectronLevels } from './two-electron.js';
+import { deviance, LIKELIHOOD } from './likelihood.js';
+import type { Penalty } from './types.js';
+
+export interface ScoreTermsInput {
+  candidate: GridCandidate | DqOnlyCandidate;
+  settings: FitSettings;
+  sorted: SortedObservations;
+  /** Class transitions at the solution, cm-1 above the assumed ground. */
+  transitions: ClassTransition[];
+  /** Calculated energy per observation of the variant (same order). */
+  calculated: Float64Array;
+  /** ids index per observation. */
+  levels: Int32Array;
+  dq: number;
+  b: number;
+  c: number;
+  /** False for a Dq-only solution: no β or C/B prior (B is nominal). */
+  bDetermined: boolean;
+}
+
+export interface ScoreTerms extends SkipOutcome {
+  /** Skipped transitions, priors and intensities (not the variant's own terms). */
+  penalties: Penalty[];
+}
+
+function ctOnsetOf(sorted: SortedObservations): number | undefined {
+  return sorted.chargeTransfer.length ? Math.min(...sorted.chargeTransfer.map((b) => b.position)) : undefined;
+}
+
+export function scoreTerms(input: ScoreTermsInput): ScoreTerms {
+  const { candidate, settings, sorted, transitions, calculated, levels } = input;
+  const { variant, scan, branch } = candidate;
+  const observations = variant.observations;
+  const assigned = Array.from(levels.subarray(0, variant.nPrimary), (k, i) => {
+    const entry: { level: number; calculated: number; width?: number } = { level: k, calculated: calculated[i]! };
+    if (observations[i]!.width !== undefined) entry.width = observations[i]!.width!;
+    return entry;
+  });
+  const ctOnset = ctOnsetOf(sorted);
+  const skip = skippedTransitionPenalties({
+    geometry: settings.geometry, transitions, assigned, classForbidden: variant.classForbidden,
+    ...(ctOnset !== undefined ? { ctOnset } : {}), ...(settings.window ? { window: settings.window } : {}),
+  });
+  const priors = plausibilityPenalties({
+    b: input.b, c: input.c, mode: settings.mode, dq: input.dq,
+    priors: input.bDetermined ? settings.priors : { ...settings.priors, b0: null, betaExpected: null },
+  }).filter((p) => input.bDetermined || p.rule === 'ten-dq');
+  const two = twoElectronLevels(scan, branch.ground);
+  const allForbidden = primaryClass(branch).forbidden;
+  const intensity = intensityPenalties({
+    geometry: settings.geometry, allForbidden,
+    bands: observations.map((o, i) => ({
+      position: o.position, epsilon: o.epsilon,
+      spinAllowed: scan.ids[levels[i]!]!.multiplicity === branch.multiplicity,
+      twoElectron: two[levels[i]!] === 1,
+    })),
+  });
+  // A band taken by a spin-forbidden transition beside spin-allowed ones: only a few of those show at all.
+  const forbidden: Penalty[] = allForbidden ? [] : observations.flatMap((o, i) =>
+    scan.ids[levels[i]!]!.multiplicity === branch.multiplicity ? [] : [{
+      rule: 'forbidden-band' as const, amount: deviance(LIKELIHOOD.forbiddenSeen),
+      detail: `the band at ${Math.round(o.position)} cm-1 is taken as the spin-forbidden ${scan.ids[levels[i]!]!.label}, one of many weak transitions that seldom show`,
+    }]);
+  return { ...skip, penalties: [...skip.penalties, ...priors, ...intensity, ...forbidden] };
+}
+
+/**
+ * The β and 10Dq priors as a function of (B, Dq), for choosing between the
+ * grid points of one assignment (profile.ts gridOptimum).
+ */
+export function gridPrior(settings: FitSettings): (b: number, dq: number) => number {
+  const priors = settings.priors;
+  return (b, dq) => betaPriorDeviance(b, priors) + tenDqPriorDeviance(dq, priors);
+}
