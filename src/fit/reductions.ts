@@ -12,7 +12,7 @@
  *   20% of the largest ε of the d–d bands) or a narrow one (width below half
  *   the median width of the d–d bands), ×5 for a band flagged
  *   spin-forbidden). So the weak, shoulder and narrow ones are left first.
- * - two neighbouring unflagged bands closer than max(1500 cm-1, 6% of their
+ * - two neighbouring unflagged bands closer than max(2000 cm-1, 6% of their
  *   mean) read as the two maxima of one split band, averaged:
  *   −2·ln 0.1 + (separation/1500 cm-1)².
  *

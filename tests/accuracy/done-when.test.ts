@@ -55,20 +55,17 @@ describe('visible-only spectra (380–780 nm, 0.01)', () => {
     return gradeRealLike(file, ion, outcome);
   };
 
-  // fails until issue 13 lands: today 10Dq ≈ 15 700 with β ≈ 1.00 (ν3 near the blue end taken as a UV edge).
-  it.fails('aqueous Ni(II): 10Dq 8 000–9 000 cm-1 and β < 1 from its two visible bands', () => {
+  it('aqueous Ni(II): 10Dq 8 000–9 000 cm-1 and β < 1 from its two visible bands', () => {
     const row = graded('ni-aqua-visible.csv', 'Ni2+');
     expect(row.pass, row.result).toBe(true);
   });
 
-  // fails until issue 13 lands: today low-spin, 2Eg ground.
-  it.fails('aqueous Co(II) is high-spin', () => {
+  it('aqueous Co(II) is high-spin', () => {
     const row = graded('co-aqua-visible.csv', 'Co2+');
     expect(row.pass, row.result).toBe(true);
   });
 
-  // fails until issue 13 lands: today "no assignment explains these 8 bands".
-  it.fails('aqueous Cu(II): the band beyond the red end within ±1 000 cm-1, with a note that its maximum lies outside', () => {
+  it('aqueous Cu(II): the band beyond the red end within ±1 000 cm-1, with a note that its maximum lies outside', () => {
     const row = graded('cu-aqua-visible.csv', 'Cu2+');
     expect(row.pass, row.result).toBe(true);
   });
@@ -97,10 +94,8 @@ describe('published band sets', () => {
   it('hexaaqua Mn(II), five quartets flagged spin-forbidden, C free: 10Dq within 3 %', () => within3('mn2-aqua-sf'));
   // A reading of the issue ("flagged or not", item 5: the data decide what is fitted): five quartets fix C, so the fit
   // should free it without being told. If the coordinator decides --free-c stays the user's choice, drop these two.
-  // fails until issue 13 lands: today C stays at the free-ion ratio unless the user frees it: 10Dq ≈ 7 000 (−17 %).
-  it.fails('hexaaqua Mn(II), five quartets, C not freed by the user: 10Dq within 3 %', () => within3('mn2-aqua-c-ratio'));
-  // fails until issue 13 lands: today the 28 000 cm-1 band is left unexplained when the bands are flagged.
-  it.fails('hexaaqua Mn(II), five quartets flagged, C not freed by the user: 10Dq within 3 % and every band explained', () => {
+  it('hexaaqua Mn(II), five quartets, C not freed by the user: 10Dq within 3 %', () => within3('mn2-aqua-c-ratio'));
+  it('hexaaqua Mn(II), five quartets flagged, C not freed by the user: 10Dq within 3 % and every band explained', () => {
     within3('mn2-aqua-c-ratio-sf');
     const s = set('mn2-aqua-c-ratio-sf');
     expect(fitBands({ ion: s.ion, geometry: s.geometry, bands: s.bands }).unassigned).toEqual([]);
@@ -109,16 +104,14 @@ describe('published band sets', () => {
   it.fails('hexaaqua Mn(II), seven quartets, C free: 10Dq within 3 %', () => within3('mn2-aqua-7'));
   // fails until issue 13 lands: as above, flagged.
   it.fails('hexaaqua Mn(II), seven quartets flagged spin-forbidden, C free: 10Dq within 3 %', () => within3('mn2-aqua-7-sf'));
-  // fails until issue 13 lands: today 10Dq ≈ 8 400 (published ≈ 4 100).
-  it.fails('tetrahedral [NiCl4]2-: 10Dq within 3 %', () => within3('ni2-tet-cl'));
+  it('tetrahedral [NiCl4]2-: 10Dq within 3 %', () => within3('ni2-tet-cl'));
 });
 
 /** Each corpus case is analysed once and shared by the tests below (the corpus takes a while on a busy machine). */
 const CORPUS_TIMEOUT_MS = 900_000;
 
 describe('honest when underdetermined (issue 13, item 5)', () => {
-  // fails until issue 13 lands: today C = 18 793 ± 4.3·10^10 cm-1, status "exact".
-  it.fails('Ni(II) 8 500, 13 800, 25 300 with C free: no astronomical uncertainty called exact', () => {
+  it('Ni(II) 8 500, 13 800, 25 300 with C free: no astronomical uncertainty called exact', () => {
     let fit: ReturnType<typeof fitBands>;
     try {
       fit = fitBands({ ion: 'Ni2+', bands: [8500, 13800, 25300], freeC: true });
@@ -153,8 +146,7 @@ describe('the validation corpus', () => {
     expect(rows.filter((r) => !r.pass.spin).map((r) => r.id)).toEqual([]);
   }, CORPUS_TIMEOUT_MS);
 
-  // fails until issue 13 lands: today steps are "corrected" on smooth, rounded data.
-  it.fails('corrects no step on data without one', () => {
+  it('corrects no step on data without one', () => {
     const smooth = cases.filter((c) => c.distortions.step === undefined);
     const corrected = smooth.flatMap((c) => {
       const { result } = outcomeOf(c);
@@ -163,8 +155,7 @@ describe('the validation corpus', () => {
     expect(corrected).toEqual([]);
   }, CORPUS_TIMEOUT_MS);
 
-  // fails until issue 13 lands: today steps downward (lower absorbance above the change-over) are missed, even at 23σ.
-  it.fails('corrects the real detector steps the corpus places', () => {
+  it('corrects the real detector steps the corpus places', () => {
     const stepped = cases.filter((c) => c.distortions.step !== undefined);
     const missed = stepped.flatMap((c) => {
       const { result } = outcomeOf(c);
