@@ -25,10 +25,16 @@ import { createAnalysesRouter } from './routes/analyses.js';
 import { analyzeInPool, createAnalyzeRouter } from './routes/analyze.js';
 import { createComputeRouter } from './routes/compute.js';
 import { createSeriesRouter } from './routes/series.js';
+import { authenticate, type IdentityResolver } from './security/auth.js';
+import { declaredLengthGuard } from './security/declared-length.js';
+import { hostGuard, LOOPBACK_HOSTS } from './security/hosts.js';
+import { originGuard } from './security/origin.js';
 import { resolveDataDir } from './storage/data-dir.js';
 import { openLibrary } from './storage/library.js';
 
 export const MIB = 1024 * 1024;
+/** Room for a multipart form's boundaries and text fields around an upload of the largest size. */
+const MULTIPART_OVERHEAD_BYTES = 256 * 1024;
 
 export interface AppOptions {
   /**
@@ -49,6 +55,17 @@ export interface AppOptions {
   staticDir?: string | false;
   /** Folder of the results library; default $FIELDGAP_DATA, else ./fieldgap-data. */
   dataDir?: string;
+  /**
+   * Host names (or addresses) requests may carry in their Host header; others
+   * are refused (403) before any route (DNS rebinding). Default: the loopback
+   * names (see security/hosts.ts allowedHostsFor for a server beyond loopback).
+   */
+  allowedHosts?: readonly string[];
+  /**
+   * When given, every request needs an access token this resolver knows
+   * (401 otherwise): for a service bound beyond loopback. Default: none.
+   */
+  identify?: IdentityResolver;
 }
 
 /** The app, plus what it needs to stop: the pool it owns and the library. */
@@ -80,6 +97,8 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
     logger = createLogger(),
     staticDir = defaultStaticDir(),
     dataDir = resolveDataDir({ env: process.env, cwd: process.cwd() }),
+    allowedHosts = LOOPBACK_HOSTS,
+    identify,
   } = options;
   const ownsPool = typeof poolOption === 'string';
   const pool = poolOption === 'workers' ? createWorkerPool() : poolOption === 'in-process' ? createInProcessPool() : poolOption;
@@ -98,6 +117,11 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
     }),
   );
   app.use(requestLogger(logger));
+  // Who may ask at all, before any route runs: this server's names only, the token off loopback, no foreign site's writes.
+  app.use(hostGuard(allowedHosts));
+  app.use(authenticate(identify));
+  app.use(originGuard());
+  app.use(declaredLengthGuard(Math.max(maxBodyBytes + MULTIPART_OVERHEAD_BYTES, maxJsonBytes)));
   app.use('/api', express.json({ limit: maxJsonBytes }));
 
   const api = express.Router();

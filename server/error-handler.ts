@@ -71,6 +71,8 @@ export function errorHandler(logger: Logger) {
       answer = known;
     }
     if (answer instanceof ServiceBusyError) res.set('Retry-After', '5');
+    // A body we will not read: close the connection rather than receive the rest of it.
+    if (answer.code === 'too-large' && !req.complete) res.set('Connection', 'close');
     res.status(httpStatusFor(answer)).json(errorBody(answer));
   };
 }

@@ -52,6 +52,8 @@ const STATUS: Record<ErrorCode, number> = {
   'not-found': 404,
   'too-large': 413,
   timeout: 504,
+  unauthorized: 401,
+  forbidden: 403,
   internal: 500,
 };
 

@@ -23,6 +23,10 @@ export type ErrorCode =
   | 'too-large'
   /** Work that exceeded its time limit. */
   | 'timeout'
+  /** A request without a valid access token (the service off loopback). */
+  | 'unauthorized'
+  /** A request the service refuses whoever sends it (a foreign Host or Origin). */
+  | 'forbidden'
   /** A bug: something fieldgap should never do. */
   | 'internal';
 
