@@ -17,6 +17,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type { Logger } from 'pino';
 import { errorHandler, notFoundHandler } from './error-handler.js';
+import { jsonDepthGuard } from './json-depth.js';
 import { createLogger, requestLogger } from './logging.js';
 import { buildOpenApiDocument } from './openapi.js';
 import { defaultStaticDir, packageVersion } from './paths.js';
@@ -122,7 +123,7 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
   app.use(authenticate(identify));
   app.use(originGuard());
   app.use(declaredLengthGuard(Math.max(maxBodyBytes + MULTIPART_OVERHEAD_BYTES, maxJsonBytes)));
-  app.use('/api', express.json({ limit: maxJsonBytes }));
+  app.use('/api', express.json({ limit: maxJsonBytes }), jsonDepthGuard());
 
   const api = express.Router();
   api.get('/health', (_req, res) => {

@@ -1,6 +1,7 @@
 import { invalidArgument } from '../../errors.js';
 import { computeLevels, GEOMETRIES, levelsDocument, type LevelsResult } from '../../ligand-field/index.js';
 import type { Command } from '../command.js';
+import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 
 /**
@@ -82,6 +83,10 @@ export function parseLevelsArgs(argv: string[]): LevelsArgs {
     throw invalidArgument(name, `${name} must be ≥ 0`);
   }
   if (c === undefined) throw invalidArgument('--c', '--c (Racah C in cm-1) or --c-over-b is required');
+  checkParameterRange('dq', dq, '--dq');
+  checkParameterRange('b', b, '--b');
+  if (values['c-over-b'] !== undefined) checkParameterRange('cOverB', c / b, '--c-over-b');
+  else checkParameterRange('c', c, '--c');
   return { d, geometry, dq, b, c, json: values.json ?? false };
 }
 
