@@ -105,8 +105,9 @@ export const analyzeFields = z.strictObject({
   ion: ion.optional(),
   d: dCount.optional(),
   geometry: geometry.optional(),
-  conc: positive('Concentration in mol/L (for molar absorption coefficients).').optional(),
-  path: positive('Path length in cm (default 1).').optional(),
+  // Physically meaningful ranges: a concentration of 1e-300 mol/L turns every band into "charge transfer".
+  conc: positive('Concentration in mol/L (for molar absorption coefficients), 1e-7 to 20.').min(1e-7).max(20).optional(),
+  path: positive('Path length in cm (default 1), 1e-4 to 100.').min(1e-4).max(100).optional(),
   xUnit: z.enum(X_UNITS).optional().meta({ description: 'Unit of the x column when the file does not say.' }),
   yUnit: z.enum(Y_UNITS).optional().meta({ description: 'Unit of the y column when the file does not say.' }),
   column: z
@@ -114,7 +115,7 @@ export const analyzeFields = z.strictObject({
     .optional()
     .meta({ description: 'Which y column to use: its 1-based number or its header.' }),
   cOverB: positive('Fixed C/B ratio for the fit.').max(20).optional(),
-  c: positive('Fixed Racah C in cm-1.').max(LIMITS.maxEnergy).optional(),
+  c: positive('Fixed Racah C in cm-1.').max(BOUNDS.c.max).optional(),
   freeC: z.boolean().optional().meta({ description: 'Fit C as a free parameter.' }),
   curves: z.boolean().optional().meta({
     description: 'Also return the curves on the energy grid (signal, baseline, model, components) for plotting.',

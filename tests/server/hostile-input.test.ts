@@ -101,6 +101,16 @@ describe('numbers at the ends of the range', () => {
     expect(tiny.status).toBeLessThan(500);
   });
 
+  it('answers 400 for an analysis with a concentration or path length no cuvette has', async () => {
+    for (const [query, path] of [['conc=1e-300', 'conc'], ['conc=1e300', 'conc'], ['path=1e-300', 'path'], ['path=1e300', 'path'], ['c=1e300', 'c']]) {
+      ran.length = 0;
+      const res = await request(t.app).post(`/api/v1/analyze?ion=Cr3%2B&${query}`).type('text/csv').send('nm,A\n400,0.1\n500,0.2\n');
+      expect(res.status, query).toBe(400);
+      expect(res.body.error.path).toBe(path);
+      expect(ran).toEqual([]);
+    }
+  });
+
   it('still computes at the edges of the accepted ranges', async () => {
     for (const url of ['/api/v1/levels?d=5&dq=10000&b=10&c=0', '/api/v1/levels?d=5&dq=0&b=5000&c=50000', '/api/v1/diagram?d=5&maxDqOverB=0.1&steps=10']) {
       await request(t.app).get(url).expect(200);
