@@ -22,6 +22,8 @@ export const errorResponse = z
         'too-large',
         'timeout',
         'internal',
+        'unauthorized',
+        'forbidden',
       ]),
       message: z.string(),
       path: z.string().meta({ description: 'The field, option or file position the error is about; "" when none.' }),

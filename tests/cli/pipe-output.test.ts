@@ -14,7 +14,7 @@ const RUN_CLI = fileURLToPath(new URL('./fixtures/run-cli.ts', import.meta.url))
 
 describe('output to a closed pipe', () => {
   it('ends `diagram --csv` quietly when the reader leaves after the first chunk', async () => {
-    const child = spawn(process.execPath, ['--import', 'tsx', RUN_CLI, 'diagram', '--d', '5', '--csv', '--steps', '20000'], {
+    const child = spawn(process.execPath, ['--import', 'tsx', RUN_CLI, 'diagram', '--d', '2', '--csv', '--steps', '20000'], {
       stdio: ['ignore', 'pipe', 'pipe'],
     });
     let stderr = '';
