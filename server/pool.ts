@@ -53,8 +53,9 @@ export interface WorkerPoolOptions {
   threads?: number;
   /**
    * Tasks that may wait for a general worker before new ones are refused
-   * (503 with Retry-After); default 4 per thread. Kept short: with the time
-   * limit it bounds how long an accepted task can wait.
+   * (503 with Retry-After); default 16 per thread (room for 16 clients
+   * sending at once). With the time limit it bounds how long an accepted task
+   * can wait.
    */
   maxQueue?: number;
   /**
@@ -110,6 +111,8 @@ const waitAsync = (Atomics as unknown as { waitAsync: WaitAsync }).waitAsync;
 
 interface Lane {
   run(task: Task, options: RunOptions): Promise<unknown>;
+  /** Tasks accepted and not yet settled (running or queued). */
+  inFlight(): number;
   stopped(): number;
   close(): Promise<void>;
 }
@@ -126,11 +129,13 @@ function createLane(threads: number, maxQueue: number, abandonGraceMs: number, w
   });
   let stopped = 0;
   let closing = false;
+  let inFlight = 0;
   piscina.on('workerDestroy', () => {
     if (!closing) stopped++;
   });
   return {
     stopped: () => stopped,
+    inFlight: () => inFlight,
     async close() {
       closing = true;
       await piscina.close();
@@ -161,7 +166,8 @@ function createLane(threads: number, maxQueue: number, abandonGraceMs: number, w
       if (started.async) void started.value.then(arm);
       else arm();
       const request: WorkerRequest = { task, abandoned: flags };
-      const work = piscina.run(request, { signal: stop.signal }) as Promise<Outcome>;
+      inFlight++;
+      const work = (piscina.run(request, { signal: stop.signal }) as Promise<Outcome>).finally(() => inFlight--);
       // The client left: answer at once; a queued task is dropped by the worker
       // when it reaches it, a running one is stopped only if it outlasts the grace time.
       const left = new Promise<never>((_resolve, reject) => {
@@ -203,12 +209,13 @@ function createLane(threads: number, maxQueue: number, abandonGraceMs: number, w
 
 /**
  * Worker threads running server/worker: a general lane, and a quick lane
- * for the tasks isQuick accepts. Each lane has its own bounded queue.
+ * for the tasks isQuick accepts when every general worker is taken. Each
+ * lane has its own bounded queue.
  */
 export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
   const {
     threads = availableParallelism(),
-    maxQueue = 4 * threads,
+    maxQueue = 16 * threads,
     quickThreads = 1,
     quickMaxQueue = 64,
     isQuick = isQuickTask,
@@ -222,7 +229,9 @@ export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
     mode: 'workers',
     workersStopped: () => general.stopped() + (quick?.stopped() ?? 0),
     run(task, runOptions = {}) {
-      return (quick !== undefined && isQuick(task) ? quick : general).run(task, runOptions);
+      // A quick task takes a free general worker when there is one (throughput), else its own lane (never behind long work).
+      const lane = quick !== undefined && isQuick(task) && general.inFlight() >= threads ? quick : general;
+      return lane.run(task, runOptions);
     },
     async close() {
       await Promise.all([general.close(), quick?.close()]);

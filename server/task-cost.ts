@@ -1,5 +1,6 @@
 /**
- * Which tasks go to the pool's quick lane: those whose cost is bounded by
+ * Which tasks may use the pool's quick lane (when every general worker is
+ * taken): those whose cost is bounded by
  * their kind and size, whatever the numbers in them (within the edge's
  * limits), at well under a tenth of a second of CPU. A cheap request then
  * never waits behind minutes of analyses or long band lists.

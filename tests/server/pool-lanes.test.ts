@@ -95,6 +95,22 @@ describe('pool lanes', () => {
     for (const s of slow) expect(await s.result).toEqual({ ok: true, value: 'released' });
   });
 
+  it('lets quick tasks use a free general worker, and their own lane only when the general ones are taken', async () => {
+    // Every task counts as quick here: the first takes the idle general worker, the second the quick lane; both start.
+    const p = pool({ threads: 1, quickThreads: 1, isQuick: () => true });
+    const first = startHold(p);
+    const second = startHold(p);
+    try {
+      await Promise.all([first.started, second.started]);
+    } finally {
+      first.release();
+      second.release();
+      await Promise.all([first.result, second.result]);
+      await p.close();
+    }
+    expect(await first.result).toEqual({ ok: true, value: 'released' });
+  });
+
   it('sends levels, small diagrams and short fits to the quick lane, analyses and long work to the general one', () => {
     expect(isQuickTask(LEVELS)).toBe(true);
     expect(isQuickTask({ kind: 'diagram', input: { d: 5, geometry: 'octahedral', cOverB: 4.5, maxDqOverB: 4, steps: 200 } })).toBe(true);
