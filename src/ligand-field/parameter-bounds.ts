@@ -2,11 +2,12 @@
  * The ranges of ligand-field parameters fieldgap accepts at its edges (CLI
  * options, REST fields), in cm-1. They are wide enough for every d^n
  * complex and narrow enough that the engine's numbers stay meaningful:
- * free-ion Racah B of the 3d–5d ions lies between about 500 and 1 300 cm-1
- * and C/B between about 3 and 5 (from memory; see src/chemistry/free-ion.ts
- * for the tabulated values), complexes reduce B by β ≥ ~0.2, and 10Dq of
- * known complexes stays below ~50 000 cm-1 (common practice). Values far
- * outside (B = 1e-150, Dq = 1e300) are typing errors, not chemistry.
+ * the free-ion B0 tabulated in src/chemistry/free-ion.ts run from 718 to
+ * 1 244 cm-1 and C0 from 2 629 to 4 976 cm-1 (3d ions; 4d and 5d ions have
+ * smaller B, from memory), complexes reduce B by β ≥ ~0.2, and 10Dq of known
+ * complexes stays below ~50 000 cm-1 (common practice). The bounds leave a
+ * wide margin around all of these; values far outside (B = 1e-150,
+ * Dq = 1e300) are typing errors, not chemistry.
  */
 import { invalidArgument } from '../errors.js';
 
