@@ -17,6 +17,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type { Logger } from 'pino';
 import { errorHandler, notFoundHandler } from './error-handler.js';
+import { jsonDepthGuard } from './json-depth.js';
 import { createLogger, requestLogger } from './logging.js';
 import { buildOpenApiDocument } from './openapi.js';
 import { defaultStaticDir, packageVersion } from './paths.js';
@@ -29,8 +30,14 @@ import { lazyLibrary } from '../src/library/lazy.js';
 import { openLibraryAt, type Library, type LibraryLocation } from '../src/library/library.js';
 import { resolveLibraryLocation } from '../src/library/location.js';
 import { isFieldgapError } from '../src/errors.js';
+import { authenticate, type IdentityResolver } from './security/auth.js';
+import { declaredLengthGuard } from './security/declared-length.js';
+import { hostGuard, LOOPBACK_HOSTS } from './security/hosts.js';
+import { originGuard } from './security/origin.js';
 
 export const MIB = 1024 * 1024;
+/** Room for a multipart form's boundaries and text fields around an upload of the largest size. */
+const MULTIPART_OVERHEAD_BYTES = 256 * 1024;
 
 export interface AppOptions {
   /**
@@ -56,6 +63,17 @@ export interface AppOptions {
    * $FIELDGAP_DATABASE_URL when dataDir is not given. Several instances may share one.
    */
   database?: string;
+  /**
+   * Host names (or addresses) requests may carry in their Host header; others
+   * are refused (403) before any route (DNS rebinding). Default: the loopback
+   * names (see security/hosts.ts allowedHostsFor for a server beyond loopback).
+   */
+  allowedHosts?: readonly string[];
+  /**
+   * When given, every request needs an access token this resolver knows
+   * (401 otherwise): for a service bound beyond loopback. Default: none.
+   */
+  identify?: IdentityResolver;
 }
 
 /** The app, plus what it needs to stop: the pool it owns and the library. */
@@ -90,6 +108,8 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
     staticDir = defaultStaticDir(),
     dataDir,
     database,
+    allowedHosts = LOOPBACK_HOSTS,
+    identify,
   } = options;
   const ownsPool = typeof poolOption === 'string';
   const pool = poolOption === 'workers' ? createWorkerPool() : poolOption === 'in-process' ? createInProcessPool() : poolOption;
@@ -110,7 +130,12 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
     }),
   );
   app.use(requestLogger(logger));
-  app.use('/api', express.json({ limit: maxJsonBytes }));
+  // Who may ask at all, before any route runs: this server's names only, the token off loopback, no foreign site's writes.
+  app.use(hostGuard(allowedHosts));
+  app.use(authenticate(identify));
+  app.use(originGuard());
+  app.use(declaredLengthGuard(Math.max(maxBodyBytes + MULTIPART_OVERHEAD_BYTES, maxJsonBytes)));
+  app.use('/api', express.json({ limit: maxJsonBytes }), jsonDepthGuard());
 
   const api = express.Router();
   api.get('/health', async (_req, res) => {

@@ -75,6 +75,8 @@ export function errorHandler(logger: Logger) {
     if (answer.code.startsWith('storage-') && answer.code !== 'storage-read-only') {
       logger.error({ method: req.method, url: req.originalUrl, code: answer.code }, answer.message);
     }
+    // A body we will not read: close the connection rather than receive the rest of it.
+    if (answer.code === 'too-large' && !req.complete) res.set('Connection', 'close');
     res.status(httpStatusFor(answer)).json(errorBody(answer));
   };
 }

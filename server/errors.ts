@@ -56,6 +56,8 @@ const STATUS: Record<ErrorCode, number> = {
   'storage-read-only': 507,
   'storage-unavailable': 503,
   'storage-broken': 500,
+  unauthorized: 401,
+  forbidden: 403,
   internal: 500,
 };
 
@@ -100,10 +102,17 @@ function valueAt(input: unknown, path: readonly PropertyKey[]): unknown {
   return value;
 }
 
-function describeValue(value: unknown): string {
+/**
+ * A short description of a request value for an error message, without
+ * walking into it (a value nested thousands of levels deep would overflow
+ * JSON.stringify's stack): scalars as JSON, arrays and objects by size.
+ */
+export function describeValue(value: unknown): string {
   if (value === undefined) return 'nothing';
-  const text = JSON.stringify(value);
-  if (text === undefined) return typeof value;
+  if (Array.isArray(value)) return value.length === 0 ? 'an empty array' : `an array of ${value.length} item${value.length === 1 ? '' : 's'}`;
+  if (value !== null && typeof value === 'object') return 'an object';
+  if (typeof value === 'bigint' || typeof value === 'function' || typeof value === 'symbol') return typeof value;
+  const text = JSON.stringify(value) ?? typeof value;
   return text.length > 40 ? `${text.slice(0, 37)}...` : text;
 }
 

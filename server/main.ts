@@ -7,6 +7,7 @@
  */
 import type { AddressInfo } from 'node:net';
 import { createServer, type Server } from 'node:http';
+import { networkInterfaces } from 'node:os';
 import { pathToFileURL } from 'node:url';
 import type { Logger } from 'pino';
 import { FieldgapError, isFieldgapError } from '../src/errors.js';
@@ -14,6 +15,8 @@ import { numberOption, parseCommandArgs } from '../src/arguments.js';
 import { createApp, type AppOptions, type FieldgapApp } from './app.js';
 import { createLogger } from './logging.js';
 import { describeLocation, resolveLibraryLocation } from '../src/library/location.js';
+import { generateToken, singleTokenResolver } from './security/auth.js';
+import { allowedHostsFor, isLoopbackHost, isWildcardHost } from './security/hosts.js';
 
 export const DEFAULT_PORT = 5177;
 export const DEFAULT_HOST = '127.0.0.1';
@@ -26,11 +29,20 @@ export interface ServeOptions extends Omit<AppOptions, 'logger'> {
   logger?: Logger;
   /** How long in-flight requests may take to finish on shutdown, ms; default 15 000. */
   shutdownGraceMs?: number;
+  /**
+   * Access token every request must carry. Default: none on loopback; a new
+   * random one when host is beyond loopback (RunningServer.token tells it).
+   */
+  token?: string;
+  /** Host names besides this machine's addresses that requests may use (a DNS name of the machine). */
+  allowedHostNames?: readonly string[];
 }
 
 export interface RunningServer {
-  /** "http://127.0.0.1:5177/". */
+  /** "http://127.0.0.1:5177/"; beyond loopback, an address other machines can use. */
   url: string;
+  /** The access token requests must carry, when one is required. */
+  token: string | undefined;
   port: number;
   server: Server;
   app: FieldgapApp;
@@ -45,15 +57,29 @@ function listenError(error: NodeJS.ErrnoException, host: string, port: number): 
   return new FieldgapError('internal', `could not listen on ${host}:${port}: ${error.message}`);
 }
 
+/** An address other machines can reach this one at: the first external IPv4 address, else loopback. */
+function externalAddress(): string {
+  for (const list of Object.values(networkInterfaces())) {
+    for (const entry of list ?? []) if (entry.family === 'IPv4' && !entry.internal) return entry.address;
+  }
+  return '127.0.0.1';
+}
+
 function formatUrl(host: string, port: number): string {
-  const shown = host.includes(':') ? `[${host}]` : host === '0.0.0.0' ? '127.0.0.1' : host;
+  const shown = isWildcardHost(host) ? externalAddress() : host.includes(':') ? `[${host}]` : host;
   return `http://${shown}:${port}/`;
 }
 
 /** Builds the app and listens; resolves once listening. */
 export async function startServer(options: ServeOptions = {}): Promise<RunningServer> {
-  const { port = DEFAULT_PORT, host = DEFAULT_HOST, logger = createLogger(), shutdownGraceMs = 15_000, ...appOptions } = options;
-  const app = createApp({ ...appOptions, logger });
+  const { port = DEFAULT_PORT, host = DEFAULT_HOST, logger = createLogger(), shutdownGraceMs = 15_000, token: givenToken, allowedHostNames = [], ...appOptions } = options;
+  const token = givenToken ?? (isLoopbackHost(host) ? undefined : generateToken());
+  const app = createApp({
+    allowedHosts: allowedHostsFor({ listenHost: host, extra: allowedHostNames }),
+    ...(token === undefined ? {} : { identify: singleTokenResolver(token) }),
+    ...appOptions,
+    logger,
+  });
   const server = createServer(app);
   // Slow or stuck clients do not hold a connection forever.
   server.headersTimeout = 20_000;
@@ -89,7 +115,7 @@ export async function startServer(options: ServeOptions = {}): Promise<RunningSe
     })();
     return closing;
   };
-  return { url: formatUrl(host, actualPort), port: actualPort, server, app, close };
+  return { url: formatUrl(host, actualPort), token, port: actualPort, server, app, close };
 }
 
 export interface ServeIo {
@@ -106,20 +132,36 @@ export async function runServe(argv: string[], io: ServeIo): Promise<number> {
     host: { type: 'string' },
     data: { type: 'string' },
     database: { type: 'string' },
+    token: { type: 'string' },
+    'allowed-host': { type: 'string', multiple: true },
   });
   const port = numberOption('port', values.port, { min: 0, max: 65_535, integer: true }) ?? DEFAULT_PORT;
   const host = values.host?.trim() || DEFAULT_HOST;
   const location = resolveLibraryLocation({ dataFlag: values.data, databaseFlag: values.database, env: io.env, cwd: io.cwd });
-  const running = await startServer(location.engine === 'sqlite' ? { port, host, dataDir: location.dataDir } : { port, host, database: location.url });
-  io.stdout(`fieldgap: serving on ${running.url} (API ${running.url}api/v1, press Ctrl-C to stop)\n`);
+  const givenToken = values.token ?? io.env['FIELDGAP_TOKEN'];
+  const allowedHostNames = [...(values['allowed-host'] ?? []), ...(io.env['FIELDGAP_ALLOWED_HOSTS'] ?? '').split(',')].filter((n) => n.trim() !== '');
+  const running = await startServer({
+    port,
+    host,
+    ...(location.engine === 'sqlite' ? { dataDir: location.dataDir } : { database: location.url }),
+    allowedHostNames,
+    ...(givenToken ? { token: givenToken } : {}),
+  });
+  if (running.token === undefined) {
+    io.stdout(`fieldgap: serving on ${running.url} (API ${running.url}api/v1, press Ctrl-C to stop)\n`);
+  } else {
+    // A token the user chose is not echoed; a generated one must be, or nobody could use the service.
+    const pageUrl = givenToken ? `${running.url} (open ${running.url}?token=YOUR_TOKEN once in the browser)` : `${running.url}?token=${running.token}`;
+    io.stdout(`fieldgap: serving on ${pageUrl} (API ${running.url}api/v1, press Ctrl-C to stop)\n`);
+    io.stderr(
+      `fieldgap: listening on ${host}: every request needs the access token${givenToken ? '' : ` ${running.token}`} ("Authorization: Bearer TOKEN" for scripts)\n`,
+    );
+  }
   // The library opens on first use; say now if it cannot, but serve anyway: it is retried on each request.
   await running.app.library.ping().then(
     () => io.stdout(`fieldgap: library: ${describeLocation(location)}${running.app.library.readOnly ? ' (read-only)' : ''}\n`),
     (error: unknown) => io.stderr(`fieldgap: library not available yet (${isFieldgapError(error) ? error.message : 'could not be opened'}); retried on each request\n`),
   );
-  if (host !== DEFAULT_HOST && host !== 'localhost' && host !== '::1') {
-    io.stderr(`fieldgap: listening on ${host}: other machines may reach this server; it has no authentication\n`);
-  }
 
   await new Promise<void>((resolveStop) => {
     const stop = (signal: NodeJS.Signals) => {

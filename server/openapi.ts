@@ -43,6 +43,8 @@ function queryParameters(schema: z.ZodObject): JsonSchema[] {
 
 const ERRORS: Record<string, string> = {
   '400': 'Bad input: a field of the wrong type or range, or a file that could not be parsed. `path` names the field.',
+  '401': 'The server runs beyond loopback and the request carries no valid access token (Authorization: Bearer).',
+  '403': 'A Host header that is not a name of this server, or a change sent by another web site.',
   '404': 'Unknown route or record.',
   '413': 'Body over the size limit.',
   '415': 'Unsupported Content-Type.',
@@ -102,7 +104,9 @@ export function buildOpenApiDocument(version: string, limits: DocumentedLimits):
       description:
         'Ligand-field parameters (10Dq, Racah B and C, beta, spin state) from UV-vis-NIR spectra of d1-d9 complexes. All energies in cm-1; level energies from the ground level. ' +
         `Limits of this server: spectrum uploads up to ${bytes(limits.maxBodyBytes)}, JSON bodies up to ${bytes(limits.maxJsonBytes)} (413 over them); ` +
-        `one computation may take ${limits.requestTimeoutMs} ms (504 over it). Errors are { "error": { code, message, path } }.`,
+        `one computation may take ${limits.requestTimeoutMs} ms of running time (504 over it; 503 with Retry-After when the queue is full). Errors are { "error": { code, message, path } }. ` +
+        'Every request must name this server in its Host header (403 otherwise); a change sent by a web browser must come from the service\'s own page and carry X-Fieldgap-Request (403 otherwise); ' +
+        'a server bound beyond loopback requires its access token on every request, as Authorization: Bearer TOKEN (401 without).',
     },
     paths: {
       '/api/v1/health': {

@@ -10,13 +10,16 @@ import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
 import { FieldgapError, isFieldgapError } from '../src/errors.js';
 import { RequestAbortedError, ServiceBusyError, TaskBugError } from './errors.js';
-import { dispatchTask, rebuildError, type Outcome, type Task, type WorkerRequest } from './tasks.js';
+import { isQuickTask } from './task-cost.js';
+import { dispatchTask, rebuildError, TASK_FLAG, type Outcome, type Task, type WorkerRequest } from './tasks.js';
 
 export interface RunOptions {
-  /** Time limit for this task in ms (0 or absent: none). */
+  /** Time limit of this task's running time in ms, counted from when a worker starts it (0 or absent: none). */
   timeoutMs?: number;
   /** Aborted when nobody waits for the answer any more (the client left): the task is dropped or stopped. */
   signal?: AbortSignal;
+  /** Called when a worker starts the task (after its wait in the queue). */
+  onStart?: () => void;
 }
 
 /** Runs tasks somewhere and answers with their JSON result, or throws a FieldgapError. */
@@ -34,11 +37,37 @@ export interface ComputePool {
   workersStopped(): number;
 }
 
+/** The timers the pool arms; a test may pass its own to run the clock by hand. */
+export interface PoolClock {
+  setTimeout(callback: () => void, ms: number): unknown;
+  clearTimeout(handle: unknown): void;
+}
+
+const SYSTEM_CLOCK: PoolClock = {
+  setTimeout: (callback, ms) => setTimeout(callback, ms),
+  clearTimeout: (handle) => clearTimeout(handle as NodeJS.Timeout | undefined),
+};
+
 export interface WorkerPoolOptions {
-  /** Worker threads; default: the number of cores (os.availableParallelism()). */
+  /** Worker threads for the general lane; default: the number of cores (os.availableParallelism()). */
   threads?: number;
-  /** Tasks that may wait for a free worker before new ones are refused (503); default 512. */
+  /**
+   * Tasks that may wait for a general worker before new ones are refused
+   * (503 with Retry-After); default 16 per thread (room for 16 clients
+   * sending at once). With the time limit it bounds how long an accepted task
+   * can wait.
+   */
   maxQueue?: number;
+  /**
+   * Worker threads of the quick lane, which runs only tasks isQuick accepts
+   * (levels, small diagrams, short fits), so they never wait behind long
+   * analyses; default 1; 0: one lane for everything.
+   */
+  quickThreads?: number;
+  /** Tasks that may wait for a quick worker; default 64. */
+  quickMaxQueue?: number;
+  /** Which tasks are quick; default isQuickTask (server/task-cost.ts). */
+  isQuick?: (task: Task) => boolean;
   /**
    * How long a task whose client left may still run before its worker is
    * stopped, ms; default 1000. Stopping a worker costs a cold restart (module
@@ -46,6 +75,10 @@ export interface WorkerPoolOptions {
    * letting a typical analysis (~10 ms) finish unheard.
    */
   abandonGraceMs?: number;
+  /** The worker module; default server/worker (see resolveWorkerFile). For tests. */
+  worker?: { filename: string; execArgv: string[] };
+  /** Timers for the time limit and the grace time; default the system's. For tests. */
+  clock?: PoolClock;
 }
 
 function settle(outcome: Outcome): unknown {
@@ -72,13 +105,23 @@ export function resolveWorkerFile(): { filename: string; execArgv: string[] } {
   return { filename: source.href, execArgv: ['--import', 'tsx'] };
 }
 
-/** A pool of worker threads running server/worker. */
-export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
-  const { threads = availableParallelism(), maxQueue = 512, abandonGraceMs = 1000 } = options;
-  const { filename, execArgv } = resolveWorkerFile();
+type WaitAsync = (array: Int32Array, index: number, value: number) => { async: false; value: string } | { async: true; value: Promise<string> };
+// In the ES2024 library; the project compiles against ES2023 (Node 20 has it).
+const waitAsync = (Atomics as unknown as { waitAsync: WaitAsync }).waitAsync;
+
+interface Lane {
+  run(task: Task, options: RunOptions): Promise<unknown>;
+  /** Tasks accepted and not yet settled (running or queued). */
+  inFlight(): number;
+  stopped(): number;
+  close(): Promise<void>;
+}
+
+/** One piscina pool with its own queue bound: runs a task, with the time limit armed when a worker starts it. */
+function createLane(threads: number, maxQueue: number, abandonGraceMs: number, worker: { filename: string; execArgv: string[] }, clock: PoolClock): Lane {
   const piscina = new Piscina({
-    filename,
-    execArgv,
+    filename: worker.filename,
+    execArgv: worker.execArgv,
     minThreads: threads,
     maxThreads: threads,
     maxQueue,
@@ -86,37 +129,62 @@ export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
   });
   let stopped = 0;
   let closing = false;
+  let inFlight = 0;
   piscina.on('workerDestroy', () => {
     if (!closing) stopped++;
   });
   return {
-    mode: 'workers',
-    workersStopped: () => stopped,
-    async run(task, { timeoutMs = 0, signal: cancel } = {}) {
+    stopped: () => stopped,
+    inFlight: () => inFlight,
+    async close() {
+      closing = true;
+      await piscina.close();
+    },
+    async run(task, { timeoutMs = 0, signal: cancel, onStart }) {
       if (cancel?.aborted) throw new RequestAbortedError();
       if (piscina.queueSize >= maxQueue) throw new ServiceBusyError();
-      const abandoned = new Int32Array(new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT));
+      const flags = new Int32Array(new SharedArrayBuffer(2 * Int32Array.BYTES_PER_ELEMENT));
       // Aborting piscina's signal drops a queued task, or stops the worker that runs it.
       const stop = new AbortController();
-      const timer = timeoutMs > 0 ? setTimeout(() => stop.abort(), timeoutMs) : undefined;
-      let grace: NodeJS.Timeout | undefined;
+      let timer: unknown;
+      let grace: unknown;
+      let timedOut = false;
+      let done = false;
       let onCancel: (() => void) | undefined;
-      const request: WorkerRequest = { task, abandoned };
-      const work = piscina.run(request, { signal: stop.signal }) as Promise<Outcome>;
+      // The time limit counts running time: armed when the worker says it started (never for a task dropped unrun).
+      const arm = () => {
+        if (done) return;
+        onStart?.();
+        if (timeoutMs > 0) {
+          timer = clock.setTimeout(() => {
+            timedOut = true;
+            stop.abort();
+          }, timeoutMs);
+        }
+      };
+      const started = waitAsync(flags, TASK_FLAG.STARTED, 0);
+      if (started.async) void started.value.then(arm);
+      else arm();
+      const request: WorkerRequest = { task, abandoned: flags };
+      inFlight++;
+      const work = (piscina.run(request, { signal: stop.signal }) as Promise<Outcome>).finally(() => inFlight--);
       // The client left: answer at once; a queued task is dropped by the worker
       // when it reaches it, a running one is stopped only if it outlasts the grace time.
       const left = new Promise<never>((_resolve, reject) => {
         onCancel = () => {
-          Atomics.store(abandoned, 0, 1);
-          grace = setTimeout(() => stop.abort(), abandonGraceMs);
+          Atomics.store(flags, TASK_FLAG.ABANDONED, 1);
+          grace = clock.setTimeout(() => stop.abort(), abandonGraceMs);
           reject(new RequestAbortedError());
         };
         cancel?.addEventListener('abort', onCancel, { once: true });
       });
       const settled = work.finally(() => {
-        clearTimeout(timer);
-        clearTimeout(grace);
+        done = true;
+        clock.clearTimeout(timer);
+        clock.clearTimeout(grace);
         if (onCancel) cancel?.removeEventListener('abort', onCancel);
+        // Wake the pending wait of a task that never started, so nothing is left waiting.
+        if (Atomics.compareExchange(flags, TASK_FLAG.STARTED, 0, 2) === 0) Atomics.notify(flags, TASK_FLAG.STARTED);
       });
       // Once the client has left, nobody reads the task's outcome.
       settled.catch(() => {});
@@ -125,7 +193,7 @@ export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
         outcome = await Promise.race([settled, left]);
       } catch (error) {
         if (cancel?.aborted) throw new RequestAbortedError();
-        if (stop.signal.aborted) throw timeoutError(timeoutMs);
+        if (timedOut) throw timeoutError(timeoutMs);
         if (error instanceof Error && /queue is at limit|workers are busy/i.test(error.message)) {
           throw new ServiceBusyError();
         }
@@ -136,9 +204,37 @@ export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
       }
       return settle(outcome);
     },
+  };
+}
+
+/**
+ * Worker threads running server/worker: a general lane, and a quick lane
+ * for the tasks isQuick accepts when every general worker is taken. Each
+ * lane has its own bounded queue.
+ */
+export function createWorkerPool(options: WorkerPoolOptions = {}): ComputePool {
+  const {
+    threads = availableParallelism(),
+    maxQueue = 16 * threads,
+    quickThreads = 1,
+    quickMaxQueue = 64,
+    isQuick = isQuickTask,
+    abandonGraceMs = 1000,
+    worker = resolveWorkerFile(),
+    clock = SYSTEM_CLOCK,
+  } = options;
+  const general = createLane(threads, maxQueue, abandonGraceMs, worker, clock);
+  const quick = quickThreads > 0 ? createLane(quickThreads, quickMaxQueue, abandonGraceMs, worker, clock) : undefined;
+  return {
+    mode: 'workers',
+    workersStopped: () => general.stopped() + (quick?.stopped() ?? 0),
+    run(task, runOptions = {}) {
+      // A quick task takes a free general worker when there is one (throughput), else its own lane (never behind long work).
+      const lane = quick !== undefined && isQuick(task) && general.inFlight() >= threads ? quick : general;
+      return lane.run(task, runOptions);
+    },
     async close() {
-      closing = true;
-      await piscina.close();
+      await Promise.all([general.close(), quick?.close()]);
     },
   };
 }
@@ -148,7 +244,8 @@ export function createInProcessPool(): ComputePool {
   return {
     mode: 'in-process',
     workersStopped: () => 0,
-    async run(task) {
+    async run(task, { onStart } = {}) {
+      onStart?.();
       return settle(dispatchTask(task));
     },
     async close() {},

@@ -26,6 +26,8 @@ export const errorResponse = z
         'storage-unavailable',
         'storage-broken',
         'internal',
+        'unauthorized',
+        'forbidden',
       ]),
       message: z.string(),
       path: z.string().meta({ description: 'The field, option or file position the error is about; "" when none.' }),

@@ -9,7 +9,9 @@
  * list make sense) is checked by the core, which answers with its own errors.
  */
 import { z } from 'zod';
+import { MAX_FIT_BANDS } from '../src/fit/band-count.js';
 import { DIAGRAM_DEFAULTS } from '../src/ligand-field/index.js';
+import { PARAMETER_BOUNDS as BOUNDS } from '../src/ligand-field/parameter-bounds.js';
 
 const geometry = z.enum(['octahedral', 'tetrahedral']).meta({
   description: 'Coordination geometry: sets the sign of the cubic field.',
@@ -28,7 +30,7 @@ const positive = (description: string) => z.number().positive().finite().meta({ 
 export const LIMITS = {
   maxSteps: 2000,
   maxDqOverB: 20,
-  maxBands: 40,
+  maxBands: MAX_FIT_BANDS,
   maxEnergy: 200_000,
 } as const;
 
@@ -51,10 +53,11 @@ export const levelsQuery = z
   .strictObject({
     d: dCount,
     geometry: geometry.default('octahedral'),
-    dq: z.number().min(0).max(LIMITS.maxEnergy).meta({ description: 'Dq in cm-1 (10Dq = 10·dq), ≥ 0.' }),
-    b: positive('Racah B in cm-1.').max(LIMITS.maxEnergy),
-    c: z.number().min(0).max(LIMITS.maxEnergy).optional().meta({ description: 'Racah C in cm-1 (give c or cOverB).' }),
-    cOverB: z.number().min(0).max(20).optional().meta({ description: 'C given as the ratio C/B instead of c.' }),
+    // Physically meaningful ranges (src/ligand-field/parameter-bounds.ts): B = 1e-150 or Dq = 1e300 is a typing error.
+    dq: z.number().min(BOUNDS.dq.min).max(BOUNDS.dq.max).meta({ description: 'Dq in cm-1 (10Dq = 10·dq), ≥ 0.' }),
+    b: z.number().min(BOUNDS.b.min).max(BOUNDS.b.max).meta({ description: 'Racah B in cm-1.' }),
+    c: z.number().min(BOUNDS.c.min).max(BOUNDS.c.max).optional().meta({ description: 'Racah C in cm-1 (give c or cOverB).' }),
+    cOverB: z.number().min(BOUNDS.cOverB.min).max(BOUNDS.cOverB.max).optional().meta({ description: 'C given as the ratio C/B instead of c.' }),
     ...fieldBeyondCubic,
   })
   .refine((q) => q.c !== undefined || q.cOverB !== undefined, {
@@ -71,7 +74,7 @@ export const diagramQuery = z.strictObject({
   d: dCount,
   geometry: geometry.default('octahedral'),
   cOverB: positive('C/B ratio of the diagram.').max(20).default(DIAGRAM_DEFAULTS.cOverB),
-  maxDqOverB: positive('Largest Dq/B on the axis.').max(LIMITS.maxDqOverB).default(DIAGRAM_DEFAULTS.maxDqOverB),
+  maxDqOverB: positive('Largest Dq/B on the axis.').min(BOUNDS.maxDqOverB.min).max(LIMITS.maxDqOverB).default(DIAGRAM_DEFAULTS.maxDqOverB),
   steps: z.number().int().min(1).max(LIMITS.maxSteps).default(DIAGRAM_DEFAULTS.steps).meta({
     description: 'Number of Dq/B intervals from 0 to maxDqOverB.',
   }),
@@ -112,11 +115,13 @@ export const fitBody = z
     ion: ion.optional(),
     d: dCount.optional(),
     geometry: geometry.optional(),
-    bands: z.array(band).min(1).max(LIMITS.maxBands).meta({
+    bands: z.array(band).min(1).max(LIMITS.maxBands, {
+      message: `a fit takes at most ${MAX_FIT_BANDS} bands (the d–d bands of one complex, with shoulders and spin-forbidden bands); leave out solvent, impurity and charge-transfer bands`,
+    }).meta({
       description: 'Observed d-d band maxima in cm-1, as numbers or objects.',
     }),
     cOverB: positive('Fixed C/B ratio for the fit.').max(20).optional(),
-    c: positive('Fixed Racah C in cm-1.').max(LIMITS.maxEnergy).optional(),
+    c: positive('Fixed Racah C in cm-1.').max(BOUNDS.c.max).optional(),
     freeC: z.boolean().optional().meta({ description: 'Fit C as a free parameter (needs enough bands).' }),
     formula: formulaField.optional(),
     ligands: ligandsField.optional(),
@@ -140,8 +145,9 @@ export const analyzeFields = z.strictObject({
   ion: ion.optional(),
   d: dCount.optional(),
   geometry: geometry.optional(),
-  conc: positive('Concentration in mol/L (for molar absorption coefficients).').optional(),
-  path: positive('Path length in cm (default 1).').optional(),
+  // Physically meaningful ranges: a concentration of 1e-300 mol/L turns every band into "charge transfer".
+  conc: positive('Concentration in mol/L (for molar absorption coefficients), 1e-7 to 20.').min(1e-7).max(20).optional(),
+  path: positive('Path length in cm (default 1), 1e-4 to 100.').min(1e-4).max(100).optional(),
   xUnit: z.enum(X_UNITS).optional().meta({ description: 'Unit of the x column when the file does not say.' }),
   yUnit: z.enum(Y_UNITS).optional().meta({ description: 'Unit of the y column when the file does not say.' }),
   column: z
@@ -149,7 +155,7 @@ export const analyzeFields = z.strictObject({
     .optional()
     .meta({ description: 'Which y column to use: its 1-based number or its header.' }),
   cOverB: positive('Fixed C/B ratio for the fit.').max(20).optional(),
-  c: positive('Fixed Racah C in cm-1.').max(LIMITS.maxEnergy).optional(),
+  c: positive('Fixed Racah C in cm-1.').max(BOUNDS.c.max).optional(),
   freeC: z.boolean().optional().meta({ description: 'Fit C as a free parameter.' }),
   formula: formulaField.optional(),
   ligands: ligandsField.optional(),

@@ -57,14 +57,27 @@ export type Task =
 export type TaskKind = Task['kind'];
 
 /**
- * What piscina hands a worker: the task, and a flag shared with this thread
- * (Int32Array over a SharedArrayBuffer; element 0 is 1 once nobody waits for
- * the answer), so a task whose client left while it was queued is dropped by
- * the worker at no cost instead of by stopping the thread.
+ * What piscina hands a worker: the task, and flags shared with this thread
+ * (Int32Array over a SharedArrayBuffer). Element ABANDONED is 1 once nobody
+ * waits for the answer, so a task whose client left while it was queued is
+ * dropped by the worker at no cost instead of by stopping the thread.
+ * Element STARTED (when present) is set to 1 and notified by the worker as
+ * it starts the task, so the pool's time limit counts running time only,
+ * not time spent in the queue.
  */
 export interface WorkerRequest {
   task: Task;
   abandoned: Int32Array;
+}
+
+/** Indices into WorkerRequest.abandoned. */
+export const TASK_FLAG = { ABANDONED: 0, STARTED: 1 } as const;
+
+/** The worker's side of the STARTED flag: set it and wake the pool, which arms the time limit then. */
+export function markStarted(flags: Int32Array): void {
+  if (flags.length <= TASK_FLAG.STARTED) return;
+  Atomics.store(flags, TASK_FLAG.STARTED, 1);
+  Atomics.notify(flags, TASK_FLAG.STARTED);
 }
 
 export interface SerializedError {

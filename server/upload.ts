@@ -61,6 +61,8 @@ function hasBody(req: Request): boolean {
 export function spectrumUpload(maxBytes: number): RequestHandler {
   const form = multer({
     storage: multer.memoryStorage(),
+    // Browsers send a file name as UTF-8 bytes without saying so; busboy's default (latin1) turns "Cr–aqua μ.csv" into mojibake.
+    defParamCharset: 'utf8',
     limits: { fileSize: maxBytes, files: 1, fields: 30, fieldSize: 4096, parts: 32 },
   }).single('spectrum');
   const raw = express.raw({ type: () => true, limit: maxBytes });

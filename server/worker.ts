@@ -3,12 +3,13 @@
  * task with the pure core and returns plain JSON. Nothing here touches files
  * or the network.
  */
-import { dispatchTask, type Outcome, type WorkerRequest } from './tasks.js';
+import { dispatchTask, markStarted, TASK_FLAG, type Outcome, type WorkerRequest } from './tasks.js';
 
 /** Answer of a task whose client left before it started; the pool has already answered for it. */
 const ABANDONED: Outcome = { ok: false, error: { code: 'timeout', message: 'dropped: nobody waits for the answer', path: '' } };
 
 export default function runInWorker({ task, abandoned }: WorkerRequest): Outcome {
-  if (Atomics.load(abandoned, 0) === 1) return ABANDONED;
+  if (Atomics.load(abandoned, TASK_FLAG.ABANDONED) === 1) return ABANDONED;
+  markStarted(abandoned);
   return dispatchTask(task);
 }

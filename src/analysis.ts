@@ -83,6 +83,8 @@ export interface AnalyzeResult {
     quantization: number;
     /** Detector steps removed from the data, with their size; empty when none (or stepCorrection was false). */
     stepCorrections: StepCorrection[];
+    /** Every spectrum of a file that holds more than one (its y columns), so a caller can offer the others. */
+    columns?: Array<{ column: number; name: string }>;
   };
   bands: Band[];
   fit: FitResult;
@@ -105,9 +107,11 @@ export function analyzeSpectrum(content: string | Uint8Array, options: AnalyzeOp
   const warnings = [...parsed.warnings];
   if (options.column === undefined && parsed.spectra.length > 1) {
     const others = parsed.spectra.slice(1).map((s) => `${s.column} (${s.name})`).join(', ');
-    warnings.push(`the file holds ${parsed.spectra.length} spectra; analysed column ${spectrum.column} (${spectrum.name}); choose another with --column: ${others}`);
+    warnings.push(`the file holds ${parsed.spectra.length} spectra; analysed column ${spectrum.column} (${spectrum.name}); choose another (--column, or the column field of the page): ${others}`);
   }
-  return analyzeOne(spectrum, parsed.format, options, warnings);
+  const result = analyzeOne(spectrum, parsed.format, options, warnings);
+  if (parsed.spectra.length > 1) result.spectrum.columns = parsed.spectra.map((s) => ({ column: s.column, name: s.name }));
+  return result;
 }
 
 function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: AnalyzeOptions, warnings: string[]): AnalyzeResult {

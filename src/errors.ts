@@ -31,6 +31,10 @@ export type ErrorCode =
   | 'storage-unavailable'
   /** The results library is damaged or not a fieldgap library (HTTP 500). */
   | 'storage-broken'
+  /** A request without a valid access token (the service off loopback). */
+  | 'unauthorized'
+  /** A request the service refuses whoever sends it (a foreign Host or Origin). */
+  | 'forbidden'
   /** A bug: something fieldgap should never do. */
   | 'internal';
 

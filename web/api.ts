@@ -16,6 +16,17 @@ export class ApiError extends Error {
 
 const BASE = '/api/v1';
 
+/**
+ * Sent with every request: the service refuses a write from a web page
+ * without it (server/security/origin.ts WRITE_HEADER), and a foreign page
+ * cannot add it without a CORS preflight the service never approves.
+ */
+const PAGE_HEADERS: Readonly<Record<string, string>> = { 'X-Fieldgap-Request': '1' };
+
+function withPageHeaders(init: RequestInit): RequestInit {
+  return { ...init, headers: { ...PAGE_HEADERS, ...(init.headers as Record<string, string> | undefined) } };
+}
+
 function isErrorBody(value: unknown): value is { error: ApiErrorBody } {
   if (typeof value !== 'object' || value === null || !('error' in value)) return false;
   const error = (value as { error: unknown }).error;
@@ -46,7 +57,7 @@ async function readJson<T>(response: Response, what: string): Promise<T> {
 async function send<T>(url: string, init: RequestInit, what: string): Promise<T> {
   let response: Response;
   try {
-    response = await fetch(url, init);
+    response = await fetch(url, withPageHeaders(init));
   } catch {
     throw new ApiError({ code: 'network', message: `Could not reach the fieldgap service for ${what}.`, path: '' });
   }
@@ -198,7 +209,7 @@ export function getAnalysis(id: number): Promise<LibraryRecord> {
 export async function deleteAnalysis(id: number): Promise<void> {
   let response: Response;
   try {
-    response = await fetch(`${BASE}/analyses/${id}`, { method: 'DELETE' });
+    response = await fetch(`${BASE}/analyses/${id}`, withPageHeaders({ method: 'DELETE' }));
   } catch {
     throw new ApiError({ code: 'network', message: `Could not reach the fieldgap service to delete record ${id}.`, path: '' });
   }

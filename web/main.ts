@@ -15,6 +15,7 @@ import type { AxisUnit } from './plots/spectrum-spec.js';
 import { createUploadPanel } from './views/upload.js';
 import { alternativesPanel, assignmentTable, notesBox, parameterCards, warningsBox } from './views/results.js';
 import { bandsPanel } from './views/bands.js';
+import { columnsPanel } from './views/columns.js';
 import { diagramFigure, spectrumFigures } from './views/plots.js';
 import { renderCompare } from './views/compare.js';
 import { setupTabs } from './views/tabs.js';
@@ -62,9 +63,20 @@ function notify(message: string, kind: 'error' | 'info' = 'error'): void {
 }
 
 async function analyseFiles(files: File[], details: SampleDetails): Promise<void> {
-  const entries = files.map((file) => {
+  await analyseEntries(files.map((file) => ({ file, name: file.name, details })));
+}
+
+/** Analyses other columns of an entry's file (a file with several spectra), each as an entry of its own. */
+async function analyseColumns(source: AnalysisEntry, columns: number[]): Promise<void> {
+  const file = source.file;
+  if (file === null) return;
+  await analyseEntries(columns.map((column) => ({ file, name: `${file.name} #${column}`, details: { ...source.details, column: String(column) } })));
+}
+
+async function analyseEntries(requests: Array<{ file: File; name: string; details: SampleDetails }>): Promise<void> {
+  const entries = requests.map(({ file, name, details }) => {
     const entry: AnalysisEntry = {
-      key: nextKey(), fileName: file.name, file, details: { ...details }, status: 'pending', result: null, error: null, fit: null,
+      key: nextKey(), fileName: name, file, details: { ...details }, status: 'pending', result: null, error: null, fit: null,
       originalFit: null, bands: [], cOverB: details.cOverB, freeC: details.freeC, shownAlternative: null, libraryId: null,
     };
     return { file, entry };
@@ -150,6 +162,7 @@ function renderMain(root: HTMLElement): void {
     title,
     h('p', { class: 'subtitle', id: 'result-subtitle' }, subtitle, h('span', { class: 'muted' }, ` · ${entry.fileName}, ${entry.result.spectrum.points} points`)),
     warningsBox(warnings) ?? '',
+    columnsPanel(entry, { onAnalyse: (columns) => void analyseColumns(entry, columns) }) ?? '',
     fit === null ? '' : parameterCards(fit, entry.originalFit),
     notesBox(fit?.notes ?? []) ?? '',
     h(

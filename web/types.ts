@@ -34,6 +34,10 @@ export interface SpectrumSummary {
   /** 'epsilon' (L mol-1 cm-1) when a concentration was given, else 'absorbance'. */
   signalUnit?: 'absorbance' | 'epsilon';
   noise?: number;
+  /** The y column analysed (1-based). */
+  column?: number;
+  /** Every spectrum of a file that holds more than one (its y columns). */
+  columns?: Array<{ column: number; name: string }>;
 }
 
 export interface Band {

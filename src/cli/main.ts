@@ -1,6 +1,7 @@
 import { isFieldgapError } from '../errors.js';
 import type { CliIo, ServiceRunner } from './command.js';
 import { commands } from './commands/index.js';
+import { pipeWriter } from './pipe-output.js';
 
 const VERSION = '0.1.0';
 
@@ -62,8 +63,9 @@ export async function runCli(argv: string[], io: CliIo): Promise<number> {
 /** The process entry point used by bin/fieldgap, which passes the service's runner for `serve`. */
 export async function main(runService?: ServiceRunner): Promise<void> {
   const io: CliIo = {
-    stdout: (text) => process.stdout.write(text),
-    stderr: (text) => process.stderr.write(text),
+    // A reader that leaves early (`| head`) ends the output quietly.
+    stdout: pipeWriter(process.stdout),
+    stderr: pipeWriter(process.stderr),
     // The progress bar goes to stderr: drawn only when both streams are a terminal, so neither a pipe nor a log file gets it.
     isTty: Boolean(process.stdout.isTTY && process.stderr.isTTY),
     cwd: process.cwd(),

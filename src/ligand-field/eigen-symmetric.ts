@@ -6,10 +6,54 @@
  * Only the lower triangle of the input is read. Eigenvalues come out
  * ascending; eigenvectors are the columns of `vectors` (element [i·n + j] is
  * component i of eigenvector j), orthonormal.
+ *
+ * The matrix is scaled by a power of two (exact) so that its largest entry
+ * lies in [0.5, 1) before the iteration, so entries near the ends of the
+ * double range (1e-150, 1e300) neither underflow nor overflow in the
+ * rotations. A non-finite entry is refused; an iteration that does not
+ * converge (it should not happen for finite input) raises
+ * EigenConvergenceError, a FieldgapError, never a bare Error.
  */
+import { FieldgapError } from '../errors.js';
 
 const EPSILON = 2 ** -52;
 const MAX_SWEEPS = 60;
+
+/** The QL iteration did not converge: a numerical failure (code "internal"), with the matrix order for the log. */
+export class EigenConvergenceError extends FieldgapError {
+  readonly order: number;
+  constructor(order: number) {
+    super('internal', `symmetric eigensolver: the QL iteration did not converge within ${MAX_SWEEPS} sweeps for a matrix of order ${order}`);
+    this.order = order;
+  }
+}
+
+/**
+ * Multiplies the lower triangle of a by the power of two that brings its
+ * largest magnitude into [0.5, 1), and returns that factor (1 for a zero
+ * matrix). Refuses a NaN or infinite entry, naming where it is.
+ */
+function scaleLowerTriangle(a: Float64Array, n: number): number {
+  let largest = 0;
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j <= i; j++) {
+      const v = a[i * n + j]!;
+      if (!Number.isFinite(v)) {
+        throw new FieldgapError('invalid-argument', `symmetric eigensolver: matrix entry (${i}, ${j}) is ${v}; the parameters are out of range`);
+      }
+      const m = Math.abs(v);
+      if (m > largest) largest = m;
+    }
+  }
+  if (largest === 0) return 1;
+  // 2^-floor(log2(largest)+1), computed in two steps so that neither factor overflows.
+  const exponent = Math.floor(Math.log2(largest)) + 1;
+  const half = Math.trunc(exponent / 2);
+  const factor = 2 ** -half * 2 ** -(exponent - half);
+  if (factor === 1) return 1;
+  for (let i = 0; i < n; i++) for (let j = 0; j <= i; j++) a[i * n + j]! *= factor;
+  return factor;
+}
 
 /** Scratch arrays reused between calls of the same size, so hot loops do not allocate. */
 export interface EigenWorkspace {
@@ -110,7 +154,7 @@ function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Float64Ar
         if (Math.abs(e[m]!) <= EPSILON * dd) break;
       }
       if (m === l) break;
-      if (++sweeps > MAX_SWEEPS) throw new Error('symmetric eigensolver: QL did not converge');
+      if (++sweeps > MAX_SWEEPS) throw new EigenConvergenceError(n);
       let g = (d[l + 1]! - d[l]!) / (2 * e[l]!);
       let r = Math.sqrt(g * g + 1);
       g = d[m]! - d[l]! + e[l]! / (g + (g >= 0 ? r : -r));
@@ -165,8 +209,10 @@ export function symmetricEigenvaluesInPlace(
 ): void {
   if (n === 0) return;
   const e = workspace.offDiagonal;
+  const factor = scaleLowerTriangle(a, n);
   tridiagonalise(a, n, values, e, false);
   tridiagonalQl(values, e, n, undefined);
+  if (factor !== 1) for (let i = 0; i < n; i++) values[i]! /= factor;
   values.subarray(0, n).sort();
 }
 
@@ -190,8 +236,10 @@ export function symmetricEigen(a: Float64Array, n: number): SymmetricEigen {
   const d = new Float64Array(n);
   const e = new Float64Array(Math.max(n, 1));
   if (n > 0) {
+    const factor = scaleLowerTriangle(z, n);
     tridiagonalise(z, n, d, e, true);
     tridiagonalQl(d, e, n, z);
+    if (factor !== 1) for (let i = 0; i < n; i++) d[i]! /= factor;
   }
   const order = Array.from({ length: n }, (_, i) => i).sort((i, j) => d[i]! - d[j]!);
   const values = new Float64Array(n);

@@ -11,7 +11,9 @@ import { fileURLToPath } from 'node:url';
 import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { FieldgapError } from '../../src/errors.js';
+import { RequestAbortedError } from '../../server/errors.js';
 import { startServer, type RunningServer } from '../../server/main.js';
+import type { ComputePool } from '../../server/pool.js';
 import { captureLogger } from './helpers.js';
 
 const silent = pino({ level: 'silent' });
@@ -23,29 +25,83 @@ afterAll(() => {
   rmSync(dataDir, { recursive: true, force: true });
 });
 
+/**
+ * A pool whose every task waits for the test: `entered` resolves when a task
+ * reaches it, `release()` answers it, and an abort of its signal (the client
+ * left) rejects it and resolves `dropped`. The tests wait on these events,
+ * never on a clock.
+ */
+function gatePool(): ComputePool & { entered: Promise<void>; dropped: Promise<void>; release(): void } {
+  let enter: () => void = () => {};
+  let drop: () => void = () => {};
+  let answer: () => void = () => {};
+  const entered = new Promise<void>((r) => (enter = r));
+  const dropped = new Promise<void>((r) => (drop = r));
+  const released = new Promise<void>((r) => (answer = r));
+  return {
+    mode: 'workers',
+    workersStopped: () => 0,
+    close: async () => {},
+    entered,
+    dropped,
+    release: () => answer(),
+    run: (task, { signal } = {}) =>
+      new Promise((resolve, reject) => {
+        enter();
+        signal?.addEventListener('abort', () => {
+          drop();
+          reject(new RequestAbortedError());
+        });
+        void released.then(() => resolve({ task: task.kind }));
+      }),
+  };
+}
+
 describe('startServer', () => {
   it('listens on loopback by default and stops gracefully, finishing a request in flight', async () => {
-    const running: RunningServer = await startServer({ port: 0, logger: silent, staticDir: false, dataDir });
+    const pool = gatePool();
+    const running: RunningServer = await startServer({ port: 0, logger: silent, staticDir: false, dataDir, pool });
     expect(running.url).toBe(`http://127.0.0.1:${running.port}/`);
+    expect(running.token).toBeUndefined();
     const health = await fetch(`${running.url}api/v1/health`);
     expect(health.status).toBe(200);
     const inFlight = fetch(`${running.url}api/v1/diagram?d=5&maxDqOverB=20&steps=2000`);
-    await new Promise((r) => setTimeout(r, 50));
+    await pool.entered;
     const closed = running.close();
+    pool.release();
     const res = await inFlight;
     expect(res.status).toBe(200);
+    expect(await res.json()).toEqual({ task: 'diagram' });
     await closed;
     await expect(fetch(`${running.url}api/v1/health`)).rejects.toThrow();
   });
 
   it('logs a request whose client left as 499 and drops its work', async () => {
-    const { logger, logs } = captureLogger();
-    const running = await startServer({ port: 0, logger, staticDir: false, dataDir });
+    const { logger, logs, waitForLog } = captureLogger();
+    const pool = gatePool();
+    const running = await startServer({ port: 0, logger, staticDir: false, dataDir, pool });
     try {
-      await expect(fetch(`${running.url}api/v1/diagram?d=5&maxDqOverB=20&steps=2000`, { signal: AbortSignal.timeout(100) })).rejects.toThrow();
-      for (let i = 0; i < 100 && !logs.some((l) => l['aborted'] === true); i++) await new Promise((r) => setTimeout(r, 20));
-      expect(logs.find((l) => l['aborted'] === true)).toMatchObject({ method: 'GET', status: 499 });
+      const leaving = new AbortController();
+      const request = fetch(`${running.url}api/v1/diagram?d=5&maxDqOverB=20&steps=2000`, { signal: leaving.signal });
+      await pool.entered;
+      leaving.abort();
+      await expect(request).rejects.toThrow();
+      await pool.dropped;
+      expect(await waitForLog((l) => l['aborted'] === true)).toMatchObject({ method: 'GET', status: 499 });
       expect(logs.some((l) => l['msg'] === 'internal error')).toBe(false);
+    } finally {
+      await running.close();
+    }
+  });
+
+  it('beyond loopback, makes a token and refuses requests without it', async () => {
+    const running = await startServer({ port: 0, host: '0.0.0.0', logger: silent, staticDir: false, dataDir, pool: 'in-process' });
+    try {
+      expect(running.token).toMatch(/^[\w-]{40,}$/);
+      expect(running.url).not.toContain('0.0.0.0');
+      const base = `http://127.0.0.1:${running.port}/api/v1/health`;
+      expect((await fetch(base)).status).toBe(401);
+      expect((await fetch(base, { headers: { authorization: `Bearer ${running.token}` } })).status).toBe(200);
     } finally {
       await running.close();
     }
@@ -74,15 +130,13 @@ describe('server/main.ts as a process', () => {
     let stdout = '';
     let stderr = '';
     child.stderr.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
+    // Waits for the URL line, or for the process to end without one (no clock: a slow start is not a failure).
     const url = await new Promise<string>((resolveUrl, rejectUrl) => {
-      const timer = setTimeout(() => rejectUrl(new Error(`no URL printed; stderr: ${stderr}`)), 20_000);
+      child.once('exit', (code) => rejectUrl(new Error(`exited ${code} without printing its URL; stderr: ${stderr}`)));
       child.stdout.on('data', (chunk: Buffer) => {
         stdout += chunk.toString();
         const match = /serving on (http:\/\/127\.0\.0\.1:\d+\/)/.exec(stdout);
-        if (match) {
-          clearTimeout(timer);
-          resolveUrl(match[1]!);
-        }
+        if (match) resolveUrl(match[1]!);
       });
     });
     const res = await fetch(`${url}api/v1/health`);

@@ -4,6 +4,7 @@ import {
   GEOMETRIES, type Diagram, type FieldDiagram, type FieldDiagramAxis,
 } from '../../ligand-field/index.js';
 import type { Command } from '../command.js';
+import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 import { joinNegativeValues, parseFieldOptions } from './levels.js';
 
@@ -72,6 +73,8 @@ export function parseDiagramArgs(argv: string[]): DiagramArgs {
   if (cOverB < 0) throw invalidArgument('--c-over-b', '--c-over-b must be ≥ 0');
   const maxDqOverB = numberOption('max-dq-over-b', values['max-dq-over-b']) ?? DIAGRAM_DEFAULTS.maxDqOverB;
   if (maxDqOverB <= 0) throw invalidArgument('--max-dq-over-b', '--max-dq-over-b must be greater than 0');
+  checkParameterRange('cOverB', cOverB, '--c-over-b');
+  checkParameterRange('maxDqOverB', maxDqOverB, '--max-dq-over-b');
   const steps = numberOption('steps', values.steps, { min: 1, max: 20000, integer: true }) ?? DIAGRAM_DEFAULTS.steps;
   if (values.json && values.csv) throw invalidArgument('--csv', 'give either --json or --csv, not both');
   const format = values.json ? 'json' : values.csv ? 'csv' : 'table';

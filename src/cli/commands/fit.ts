@@ -4,6 +4,8 @@ import { GEOMETRIES } from '../../ligand-field/index.js';
 import { fitTetragonal, tetragonalFitReport, type TetragonalFitInput } from '../../fit-tetragonal/index.js';
 import { valueToWavenumber, xUnitFromName } from '../../spectrum/units.js';
 import type { Command } from '../command.js';
+import { checkFitBandCount } from '../../fit/band-count.js';
+import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 
 /**
@@ -102,7 +104,9 @@ export function parseFitArgs(argv: string[]): { input: FitInput; json: boolean; 
   if (values.bands === undefined) throw invalidArgument('--bands', '--bands is required, e.g. --bands 17400,24600');
   const given = (['c-over-b', 'c', 'free-c'] as const).filter((name) => values[name] !== undefined);
   if (given.length > 1) throw invalidArgument(`--${given[1]}`, `give only one of --c-over-b, --c and --free-c (got --${given.join(' and --')})`);
-  const input: FitInput = { bands: parseBandList(values.bands, { path: '--bands' }) };
+  const bands = parseBandList(values.bands, { path: '--bands' });
+  checkFitBandCount(bands.length, '--bands');
+  const input: FitInput = { bands };
   // Without --geometry a formula's guess (or octahedral) is used by the fit.
   if (values.geometry !== undefined || values.formula === undefined) {
     input.geometry = choiceOption('geometry', values.geometry, GEOMETRIES, 'octahedral');
@@ -121,6 +125,7 @@ export function parseFitArgs(argv: string[]): { input: FitInput; json: boolean; 
   const c = numberOption('c', values.c, { min: 0 });
   if (c !== undefined) {
     if (c <= 0) throw invalidArgument('--c', '--c: Racah C must be greater than 0 cm-1');
+    checkParameterRange('c', c, '--c');
     input.c = c;
   }
   if (values['free-c']) input.freeC = true;

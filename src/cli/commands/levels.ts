@@ -3,6 +3,7 @@ import {
   computeFieldLevels, computeLevels, fieldLevelsDocument, GEOMETRIES, levelsDocument, type FieldLevelsResult, type LevelsResult,
 } from '../../ligand-field/index.js';
 import type { Command } from '../command.js';
+import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 
 /**
@@ -103,6 +104,10 @@ export function parseLevelsArgs(argv: string[]): LevelsArgs {
     throw invalidArgument(name, `${name} must be ≥ 0`);
   }
   if (c === undefined) throw invalidArgument('--c', '--c (Racah C in cm-1) or --c-over-b is required');
+  checkParameterRange('dq', dq, '--dq');
+  checkParameterRange('b', b, '--b');
+  if (values['c-over-b'] !== undefined) checkParameterRange('cOverB', c / b, '--c-over-b');
+  else checkParameterRange('c', c, '--c');
   const { ds, dt, zeta, beyondCubic } = parseFieldOptions(values, geometry);
   return { d, geometry, dq, b, c, ds, dt, zeta, beyondCubic, json: values.json ?? false };
 }

@@ -11,6 +11,7 @@ import type { AnalysisRecord, AnalysisSummary, FitSummary, NewAnalysis } from '.
 import type { Library } from '../../library/library.js';
 import type { AssignmentChange } from '../../library/refit.js';
 import { checkCorrections, type AnalysisCorrections } from '../../analysis-corrections.js';
+import { terminalSafe } from '../terminal-text.js';
 
 /**
  * `fieldgap library`: the results library from the command line. Storage is
@@ -117,7 +118,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
     const result = analyzeSpectrum(content, options);
     const saved = await withLibrary(values, io, (library) => library.add({ ...details, fileName: basename(file), content, options, result }));
     if (values.json) io.stdout(`${JSON.stringify(saved, null, 2)}\n`);
-    else io.stdout(`saved #${saved.id} "${saved.sample}"${saved.ion ? ` (${saved.ion})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`);
+    else io.stdout(`saved #${saved.id} "${terminalSafe(saved.sample)}"${saved.ion ? ` (${terminalSafe(saved.ion)})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`);
     return 0;
   },
 
@@ -205,7 +206,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
       return 0;
     }
     const before = record.revisions.at(-2)!;
-    io.stdout(`refitted #${record.id} "${record.sample}": revision ${record.revision}\n  was  ${fitLine(before.summary)}\n  now  ${fitLine(record.summary)}\n${changeLines(record.changes)}${warningLines(record)}`);
+    io.stdout(`refitted #${record.id} "${terminalSafe(record.sample)}": revision ${record.revision}\n  was  ${fitLine(before.summary)}\n  now  ${fitLine(record.summary)}\n${changeLines(record.changes)}${warningLines(record)}`);
     return 0;
   },
 
@@ -217,7 +218,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
       await library.remove(id);
       return name;
     });
-    io.stdout(`removed #${id} "${sample}"\n`);
+    io.stdout(`removed #${id} "${terminalSafe(sample)}"\n`);
     return 0;
   },
 };
@@ -414,7 +415,7 @@ function changeLines(changes: readonly AssignmentChange[]): string {
 
 function warningLines(record: AnalysisRecord): string {
   const warnings = (record.result as { warnings?: unknown }).warnings;
-  return Array.isArray(warnings) ? warnings.map((w) => `  warning: ${String(w)}\n`).join('') : '';
+  return Array.isArray(warnings) ? warnings.map((w) => `  warning: ${terminalSafe(String(w))}\n`).join('') : '';
 }
 
 /** Columns padded to their widest cell; the first row is the header. */
@@ -430,7 +431,7 @@ function summaryTable(analyses: AnalysisSummary[]): string {
   for (const a of analyses) {
     const s = a.summary;
     rows.push([
-      String(a.id), clip(a.sample, 28), clip(a.formula ?? '', 22), a.ion ?? '',
+      String(a.id), clip(a.sample, 28), clip(a.formula ?? '', 22), terminalSafe(a.ion ?? ''),
       plusMinus(s.tenDq, s.tenDqSd), plusMinus(s.b, s.bSd), plusMinus(s.beta, s.betaSd, 2), s.spinState ?? '',
       s.rmsResidual === null ? '-' : s.rmsResidual.toFixed(0), a.createdAt.slice(0, 10),
     ]);
@@ -438,14 +439,15 @@ function summaryTable(analyses: AnalysisSummary[]): string {
   return table(rows, new Set([0, 4, 5, 6, 8]));
 }
 
-function clip(text: string, width: number): string {
+function clip(stored: string, width: number): string {
+  const text = terminalSafe(stored);
   return [...text].length <= width ? text : `${[...text].slice(0, width - 1).join('')}…`;
 }
 
 function recordText(r: AnalysisRecord): string {
-  const lines = [`#${r.id}  ${r.sample}`];
+  const lines = [`#${r.id}  ${terminalSafe(r.sample)}`];
   const add = (label: string, value: string | undefined) => {
-    if (value !== undefined && value !== '') lines.push(`  ${label.padEnd(12)} ${value}`);
+    if (value !== undefined && value !== '') lines.push(`  ${label.padEnd(12)} ${terminalSafe(value)}`);
   };
   add('formula', r.formula);
   add('ion', r.ion);

@@ -11,7 +11,7 @@ import type { Command } from '../command.js';
 export const serveCommand: Command = {
   name: 'serve',
   summary: 'run the REST service and the web page on this machine (127.0.0.1:5177)',
-  usage: `Usage: fieldgap serve [--port 5177] [--host 127.0.0.1] [--data DIR | --database URL]
+  usage: `Usage: fieldgap serve [--port 5177] [--host 127.0.0.1] [--data DIR | --database URL] [--token T] [--allowed-host NAME]
 
 Runs the REST service (and the web page, when built) until SIGTERM or Ctrl-C.
 
@@ -22,6 +22,12 @@ Options:
   --database URL
                 a PostgreSQL results library, postgres://user@host:5432/db (default
                 $FIELDGAP_DATABASE_URL); several instances may share one
+  --token T     access token every request must carry (default $FIELDGAP_TOKEN; beyond
+                loopback a new one is made and printed): "Authorization: Bearer T" for
+                scripts; the page gets it by opening the printed address once
+  --allowed-host NAME
+                a DNS name of this machine that requests may use (repeatable; also
+                $FIELDGAP_ALLOWED_HOSTS, comma-separated); other Host headers get 403
 
 API under /api/v1 (health, levels, diagram, fit, analyze, analyses); its
 OpenAPI description at /api/v1/openapi.json. Request logs go to stdout as

@@ -10,10 +10,19 @@
  * becomes a FieldgapError naming the record ("sample.jdx:##XYDATA").
  */
 import { convert } from 'jcampconverter';
+import { xMinMaxValues } from 'ml-spectra-processing';
 import { FieldgapError } from '../../errors.js';
 import type { Spectrum, XUnit, YUnit } from '../types.js';
 import { xUnitFromLabel, yUnitFromLabel } from '../unitLabels.js';
 import { inferXUnit } from './inferXUnit.js';
+import { jcampOrdinateBound } from './jcampPointBound.js';
+
+/**
+ * Most points one XYDATA block may decode to: far beyond any UV-vis-NIR
+ * spectrum (a 0.01 nm grid over 190–3300 nm has 311 000), small enough that
+ * decoding it costs tens of MB, not gigabytes.
+ */
+export const MAX_JCAMP_POINTS = 1_000_000;
 
 export interface JcampOptions {
   fileName: string;
@@ -45,9 +54,12 @@ export function parseJcamp(text: string, options: JcampOptions): JcampResult {
     if (/^Data line|Format error|Wrong number|Symbol undefined/.test(message)) logged.push(message);
   };
   const logger = { trace: log, debug: log, info: log, warn: log, error: log, fatal: log, child: () => logger, level: 'trace' };
+  for (const record of records) if (record.label === 'XYDATA') checkDecodedSize(text, records, record, `${fileName}:##${record.name}`);
   let result;
   try {
-    result = convert(text, { keepRecordsRegExp: /.*/, logger: logger as never });
+    // Runs of blanks are one separator in JCAMP-DX; collapsed, because the converter's
+    // line split backtracks over each run (quadratic in its length).
+    result = convert(text.replace(/[ \t]{2,}/g, ' '), { keepRecordsRegExp: /.*/, logger: logger as never });
   } catch (error) {
     throw new FieldgapError('parse-error', `not a readable JCAMP-DX file: ${(error as Error).message}`, fileName);
   }
@@ -79,6 +91,7 @@ export function parseJcamp(text: string, options: JcampOptions): JcampResult {
       const x = Float64Array.from(s.data['x'] ?? [], Number);
       const y = Float64Array.from(s.data['y'] ?? [], Number);
       if (x.length === 0 || x.length !== y.length) throw new FieldgapError('parse-error', 'the record holds no data points', path);
+      if (x.length > MAX_JCAMP_POINTS) throw new FieldgapError('too-large', `the record has ${x.length} points; fieldgap reads at most ${MAX_JCAMP_POINTS}`, path);
       for (let i = 0; i < y.length; i++) {
         if (!Number.isFinite(x[i] as number) || !Number.isFinite(y[i] as number)) {
           throw new FieldgapError('parse-error', `value ${i + 1} of the record is not a number`, path);
@@ -116,19 +129,49 @@ interface RecordInfo {
   label: string;
   /** 0-based line of the "##…=" line. */
   line: number;
+  /** What follows "=" on that line, e.g. "(X++(Y..Y))" or "400". */
+  value: string;
+  /** Offset in the text of the line after the "##…=" line. */
+  next: number;
 }
 
 function listRecords(text: string): RecordInfo[] {
   const out: RecordInfo[] = [];
-  const lines = text.split(/\r\n|\n|\r/);
-  for (let i = 0; i < lines.length; i++) {
-    const m = /^\s*##([^=]*)=/.exec(lines[i] as string);
-    if (m !== null) {
-      const name = (m[1] as string).trim().toUpperCase();
-      out.push({ name, label: name.replace(/[\s_-]/g, ''), line: i });
+  const lineRegExp = /([^\r\n]*)(\r\n|\n|\r|$)/g;
+  let line = 0;
+  for (let m = lineRegExp.exec(text); m !== null && m[0] !== ''; m = lineRegExp.exec(text), line++) {
+    const r = /^\s*##([^=]*)=(.*)$/.exec(m[1] as string);
+    if (r !== null) {
+      const name = (r[1] as string).trim().toUpperCase();
+      out.push({ name, label: name.replace(/[\s_-]/g, ''), line, value: (r[2] as string).trim(), next: lineRegExp.lastIndex });
     }
   }
   return out;
+}
+
+/**
+ * Refuses, before decoding, an XYDATA block in a form other than X++(Y..Y)
+ * (the converter would read it through a slow general path) or one that
+ * would decode to more points than ##NPOINTS allows (with a margin for the
+ * bound's overcount, see jcampValueBound) or than MAX_JCAMP_POINTS.
+ */
+function checkDecodedSize(text: string, records: RecordInfo[], record: RecordInfo, path: string): void {
+  if (!record.value.includes('++')) {
+    throw new FieldgapError(
+      'unsupported-format',
+      `##${record.name}=${record.value.slice(0, 40)} is not read by fieldgap; ##XYDATA must be in the X++(Y..Y) form (or use ##PEAK TABLE= (XY..XY))`,
+      path,
+    );
+  }
+  const declaredRecord = records.filter((r) => r.label === 'NPOINTS' && r.line < record.line).pop();
+  const declared = declaredRecord === undefined ? Number.NaN : Number(declaredRecord.value);
+  const known = Number.isInteger(declared) && declared >= 0 && declared <= MAX_JCAMP_POINTS;
+  // Twice: the DIF Y check repeats one ordinate per line (see jcampOrdinateBound).
+  const allowed = 2 * (known ? declared : MAX_JCAMP_POINTS) + 64;
+  if (jcampOrdinateBound(text, record.next, allowed) > allowed) {
+    const limit = known ? `##NPOINTS=${declared} declares` : `fieldgap reads (${MAX_JCAMP_POINTS})`;
+    throw new FieldgapError('too-large', `the record would decode to more points than ${limit} (a DUP repeat count too large?); nothing was decoded`, path);
+  }
 }
 
 /** Refuses an XYDATA line with characters outside the ASDF alphabet, naming the file line. */
@@ -162,8 +205,7 @@ function resolveX(explicit: XUnit | undefined, label: string, x: Float64Array, p
   if (explicit !== undefined) return explicit;
   const named = xUnitFromLabel(label);
   if (named !== null) return named;
-  const min = Math.min(...x);
-  const max = Math.max(...x);
+  const { min, max } = xMinMaxValues(x);
   const guess = inferXUnit(min, max);
   if (guess === null) {
     throw new FieldgapError('parse-error', `##XUNITS "${label}" is not nm, cm-1, eV or µm and x values ${min}…${max} fit none of them: give the x unit`, path);
