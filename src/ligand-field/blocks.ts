@@ -101,7 +101,7 @@ export function blockPart(block: OperatorBlock, operator: Float64Array, keep: (e
     for (let a = 0; a < n; a++) {
       const u = block.basis[i * n + a]!;
       if (u === 0) continue;
-      for (let c = 0; c < m; c++) basis[i * m + c] += u * w[a * m + c]!;
+      for (let c = 0; c < m; c++) basis[i * m + c] = basis[i * m + c]! + u * w[a * m + c]!;
     }
   const operators = block.operators.map((op) => projectMatrix(op, w, n, m));
   return { twoS: block.twoS, label: block.label, masks: block.masks, size: m, basis, operators };

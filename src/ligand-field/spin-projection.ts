@@ -33,7 +33,7 @@ export function oneBodyTransitionMatrix(rowMasks: readonly number[], colMasks: r
       const sign = excitationSign(ket, p, q);
       if (sign === 0) continue;
       const row = rows.get((ket & ~(1 << q)) | (1 << p));
-      if (row !== undefined) out[row * colMasks.length + col] += sign * coef;
+      if (row !== undefined) out[row * colMasks.length + col] = out[row * colMasks.length + col]! + sign * coef;
     }
   });
   return out;
@@ -46,7 +46,7 @@ export function gramMatrix(a: Float64Array, rows: number, cols: number): Float64
     for (let i = 0; i < cols; i++) {
       const ai = a[r * cols + i]!;
       if (ai === 0) continue;
-      for (let j = 0; j < cols; j++) out[i * cols + j] += ai * a[r * cols + j]!;
+      for (let j = 0; j < cols; j++) out[i * cols + j] = out[i * cols + j]! + ai * a[r * cols + j]!;
     }
   return out;
 }
@@ -76,14 +76,14 @@ export function projectMatrix(a: Float64Array, u: Float64Array, n: number, m: nu
     for (let k = 0; k < n; k++) {
       const aik = a[i * n + k]!;
       if (aik === 0) continue;
-      for (let j = 0; j < m; j++) au[i * m + j] += aik * u[k * m + j]!;
+      for (let j = 0; j < m; j++) au[i * m + j] = au[i * m + j]! + aik * u[k * m + j]!;
     }
   const out = new Float64Array(m * m);
   for (let i = 0; i < n; i++)
     for (let r = 0; r < m; r++) {
       const uir = u[i * m + r]!;
       if (uir === 0) continue;
-      for (let c = 0; c < m; c++) out[r * m + c] += uir * au[i * m + c]!;
+      for (let c = 0; c < m; c++) out[r * m + c] = out[r * m + c]! + uir * au[i * m + c]!;
     }
   // Symmetrise away round-off so the eigen-solver sees an exactly symmetric matrix.
   for (let r = 0; r < m; r++)

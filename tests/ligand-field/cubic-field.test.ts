@@ -11,10 +11,10 @@ function products(a: ComplexMatrix, b: Float64Array): { ab: [Float64Array, Float
   for (let i = 0; i < n; i++)
     for (let j = 0; j < n; j++)
       for (let k = 0; k < n; k++) {
-        ab[0][i * n + j] += a.re[i * n + k]! * b[k * n + j]!;
-        ab[1][i * n + j] += a.im[i * n + k]! * b[k * n + j]!;
-        ba[0][i * n + j] += b[i * n + k]! * a.re[k * n + j]!;
-        ba[1][i * n + j] += b[i * n + k]! * a.im[k * n + j]!;
+        ab[0][i * n + j] = ab[0][i * n + j]! + a.re[i * n + k]! * b[k * n + j]!;
+        ab[1][i * n + j] = ab[1][i * n + j]! + a.im[i * n + k]! * b[k * n + j]!;
+        ba[0][i * n + j] = ba[0][i * n + j]! + b[i * n + k]! * a.re[k * n + j]!;
+        ba[1][i * n + j] = ba[1][i * n + j]! + b[i * n + k]! * a.im[k * n + j]!;
       }
   return { ab, ba };
 }

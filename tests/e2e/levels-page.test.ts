@@ -5,8 +5,8 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { computeFieldLevels } from '../../src/ligand-field/field-levels.js';
-import { browserTestsSkipped } from '../e2e/helpers/browser.js';
-import { openSession, type Session } from '../e2e/helpers/session.js';
+import { browserTestsSkipped } from './helpers/browser.js';
+import { openSession, type Session } from './helpers/session.js';
 
 describe.skipIf(browserTestsSkipped())('the Levels tab', () => {
   let s: Session;
