@@ -62,7 +62,7 @@ export class PlotFrame {
       ],
       legend: { show: spec.series.some((s) => s.quiet !== true) },
       cursor: { drag: { x: true, y: false, setScale: true } },
-      hooks: { draw: [(u: uPlot) => drawMarks(u, this.spec.marks)] },
+      hooks: { draw: [(u: uPlot) => drawMarks(u, this.spec.marks), (u: uPlot) => this.recordDraw(u)] },
     };
     this.plot = new uPlot(opts, alignedData(spec), container);
     this.fullX = fullXOf(spec);
@@ -150,6 +150,19 @@ export class PlotFrame {
   destroy(): void {
     this.observer.disconnect();
     this.plot.destroy();
+  }
+
+  /**
+   * Writes the shown x range and a draw count on the container
+   * (data-x-range="min max", data-draws, counting on across rebuilt charts),
+   * so a page test can wait for a redraw and read the zoom without reaching
+   * into uPlot.
+   */
+  private recordDraw(u: uPlot): void {
+    const scale = u.scales['x'];
+    const dataset = this.container.dataset;
+    dataset['xRange'] = `${scale?.min ?? ''} ${scale?.max ?? ''}`;
+    dataset['draws'] = String(Number(dataset['draws'] ?? '0') + 1);
   }
 
   private bindPick(): void {
