@@ -16,6 +16,7 @@ import { createUploadPanel } from './views/upload.js';
 import { alternativesPanel, assignmentTable, notesBox, parameterCards, warningsBox } from './views/results.js';
 import { bandsPanel } from './views/bands.js';
 import { diagramFigure, spectrumFigures } from './views/plots.js';
+import { keptPanel } from './views/keep.js';
 import { renderCompare } from './views/compare.js';
 import { setupTabs } from './views/tabs.js';
 import { renderLibrary, saveControls, type LibraryContext } from './views/library.js';
@@ -149,9 +150,9 @@ function renderMain(root: HTMLElement): void {
   root.replaceChildren(
     title,
     h('p', { class: 'subtitle', id: 'result-subtitle' }, subtitle, h('span', { class: 'muted' }, ` · ${entry.fileName}, ${entry.result.spectrum.points} points`)),
-    warningsBox(warnings) ?? '',
-    fit === null ? '' : parameterCards(fit, entry.originalFit),
-    notesBox(fit?.notes ?? []) ?? '',
+    keptPanel('warnings', [entry, JSON.stringify(warnings)], () => warningsBox(warnings)) ?? '',
+    fit === null ? '' : keptPanel('cards', [entry.fit, entry.shownAlternative, entry.originalFit], () => parameterCards(fit, entry.originalFit)),
+    keptPanel('notes', [entry.fit, entry.shownAlternative], () => notesBox(fit?.notes ?? [])) ?? '',
     h(
       'div',
       { class: 'toolbar downloads' },
@@ -163,8 +164,8 @@ function renderMain(root: HTMLElement): void {
       onUnit: (unit) => { state.unit = unit; render(); },
       onPick: (position) => addBand(entry, position),
     }),
-    fit === null ? '' : h('section', { class: 'panel' }, assignmentTable(fit)),
-    alternativesPanel(entry, { onShowAlternative: (index) => { entry.shownAlternative = index; render(); } }) ?? '',
+    fit === null ? '' : keptPanel('assignments', [entry.fit, entry.shownAlternative], () => h('section', { class: 'panel' }, assignmentTable(fit))),
+    keptPanel('alternatives', [entry, entry.fit, entry.shownAlternative], () => alternativesPanel(entry, { onShowAlternative: (index) => { entry.shownAlternative = index; render(); } })) ?? '',
     diagramFigure(entry) ?? '',
     bandsPanel(entry, state.pickArmed, state.refitting, {
       onPatch: (index, patch) => patchBand(entry, index, patch),

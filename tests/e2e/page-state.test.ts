@@ -96,7 +96,9 @@ describe.skipIf(browserTestsSkipped())('the page keeps its state', () => {
     await tagChart(s.page, 'spectrum', 'spectrumChart');
     await tagChart(s.page, 'diagram', 'diagramChart');
     await s.page.evaluate(() => {
-      (window as unknown as Record<string, Element | null>)['diagramFigure'] = document.querySelector('#diagram-figure');
+      const kept = window as unknown as Record<string, Element | null>;
+      kept['diagramFigure'] = document.querySelector('#diagram-figure');
+      kept['cards'] = document.querySelector('#parameters');
     });
     const image = await s.page.locator('#spectrum-plot canvas').first().evaluate((c) => (c as HTMLCanvasElement).toDataURL());
     const before = await draws(s.page, 'spectrum');
@@ -113,6 +115,22 @@ describe.skipIf(browserTestsSkipped())('the page keeps its state', () => {
     // The band edit changed nothing the diagram shows: not rebuilt, its figure is the same node.
     expect(await sameChart(s.page, 'diagram', 'diagramChart')).toBe(true);
     expect(await s.page.evaluate(() => document.querySelector('#diagram-figure') === (window as unknown as Record<string, Element | null>)['diagramFigure'])).toBe(true);
+    // Nor the result cards: only the bands panel and the spectrum changed.
+    expect(await s.page.evaluate(() => document.querySelector('#parameters') === (window as unknown as Record<string, Element | null>)['cards'])).toBe(true);
+  }, 30_000);
+
+  it('a refit without the band redraws the cards but keeps the spectrum chart and its zoom', async () => {
+    const response = s.page.waitForResponse((r) => r.url().endsWith('/api/v1/fit') && r.request().method() === 'POST');
+    await s.page.click('#refit');
+    expect((await response).status()).toBe(200);
+    await s.page.waitForSelector('#refit:not([disabled])');
+    // The new fit is new cards (the old node is gone) ...
+    expect(await s.page.evaluate(() => document.querySelector('#parameters') !== (window as unknown as Record<string, Element | null>)['cards'])).toBe(true);
+    // ... on the same spectrum chart, still zoomed.
+    expect(await sameChart(s.page, 'spectrum', 'spectrumChart')).toBe(true);
+    const kept = await shownRange(s.page, 'spectrum');
+    expect(kept[0]).toBeCloseTo(zoom[0], 6);
+    expect(kept[1]).toBeCloseTo(zoom[1], 6);
   }, 30_000);
 
   it('putting the band back keeps the zoom too, and Reset zoom shows everything', async () => {

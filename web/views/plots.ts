@@ -129,7 +129,8 @@ export function spectrumFigures(entry: AnalysisEntry, unit: AxisUnit, pickArmed:
   };
   const assignments = fit?.assignments ?? [];
   // The bands are edited in place, so they are compared by content.
-  const inputs = [curves, unit, JSON.stringify(entry.bands), assignments, entry.details.sample, entry.fileName];
+  // shownFit makes a new object for an alternative on every call, so the fit is compared by its source.
+  const inputs = [curves, unit, JSON.stringify(entry.bands), entry.fit, entry.shownAlternative, entry.details.sample, entry.fileName];
   if (!sameInputs(inputs, slot.inputs)) {
     slot.inputs = inputs;
     show('spectrum', slot, spectrumSpec({
@@ -180,7 +181,7 @@ export function diagramFigure(entry: AnalysisEntry): HTMLElement | null {
   const stem = safeFileStem(entry.fileName);
   const slot = slotFor('diagram', entry.key);
   const element = dress(slot, 'Energy levels (E/B against Dq/B) at the fitted C/B', toolbar('diagram', stem), 'Strong lines: levels of the ground-state spin; points: the observed bands on their assigned levels.');
-  const inputs = [fit];
+  const inputs = [entry.fit, entry.shownAlternative];
   if (sameInputs(inputs, slot.inputs)) return element;
   slot.inputs = inputs;
   if (slot.frame === null && slot.pending === null) slot.host.replaceChildren(h('p', { class: 'muted', id: 'diagram-status' }, 'Computing the levels…'));
