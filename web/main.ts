@@ -167,7 +167,8 @@ function renderMain(root: HTMLElement): void {
     fit === null ? '' : keptPanel('assignments', [entry.fit, entry.shownAlternative], () => h('section', { class: 'panel' }, assignmentTable(fit))),
     keptPanel('alternatives', [entry, entry.fit, entry.shownAlternative], () => alternativesPanel(entry, { onShowAlternative: (index) => { entry.shownAlternative = index; render(); } })) ?? '',
     diagramFigure(entry) ?? '',
-    bandsPanel(entry, state.pickArmed, state.refitting, {
+    // The C/B and free-C fields write to the entry without a render; their values are inputs all the same.
+    keptPanel('bands', [entry, entry.result, JSON.stringify(entry.bands), entry.fit, entry.shownAlternative, state.pickArmed, state.refitting, entry.cOverB, entry.freeC], () => bandsPanel(entry, state.pickArmed, state.refitting, {
       onPatch: (index, patch) => patchBand(entry, index, patch),
       onDelete: (index) => { entry.bands.splice(index, 1); render(); },
       onAdd: (position) => addBand(entry, position),
@@ -184,7 +185,7 @@ function renderMain(root: HTMLElement): void {
         entry.shownAlternative = null;
         render();
       },
-    }),
+    })),
   );
 }
 

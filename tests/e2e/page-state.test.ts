@@ -150,7 +150,10 @@ describe.skipIf(browserTestsSkipped())('the page keeps its state', () => {
     expect(reset[1]).toBeCloseTo(full[1], 6);
   }, 30_000);
 
-  it('a unit switch still redraws the x axis in nm, then back in cm-1', async () => {
+  it('a unit switch still redraws the x axis in nm, then back in cm-1, and leaves the bands panel alone', async () => {
+    await s.page.evaluate(() => {
+      (window as unknown as Record<string, Element | null>)['bandsPanel'] = document.querySelector('#bands');
+    });
     await s.page.click('#unit-nm');
     await s.page.waitForSelector('#unit-nm[aria-pressed="true"]');
     // A new axis needs a new chart; its range is the same window in nm.
@@ -161,6 +164,7 @@ describe.skipIf(browserTestsSkipped())('the page keeps its state', () => {
     const nm = await shownRange(s.page, 'spectrum');
     expect(nm[0]).toBeCloseTo(1e7 / full[1], 3);
     expect(nm[1]).toBeCloseTo(1e7 / full[0], 3);
+    expect(await s.page.evaluate(() => document.querySelector('#bands') === (window as unknown as Record<string, Element | null>)['bandsPanel'])).toBe(true);
     await s.page.click('#unit-cm-1');
     await s.page.waitForFunction(() => {
       const text = document.querySelector('#spectrum-plot')?.getAttribute('data-x-range') ?? '';
