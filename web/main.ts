@@ -17,6 +17,7 @@ import { alternativesPanel, assignmentTable, notesBox, parameterCards, warningsB
 import { bandsPanel } from './views/bands.js';
 import { columnsPanel } from './views/columns.js';
 import { diagramFigure, spectrumFigures } from './views/plots.js';
+import { keptPanel } from './views/keep.js';
 import { renderCompare } from './views/compare.js';
 import { setupTabs } from './views/tabs.js';
 import { renderLibrary, saveControls, type LibraryContext } from './views/library.js';
@@ -161,10 +162,10 @@ function renderMain(root: HTMLElement): void {
   root.replaceChildren(
     title,
     h('p', { class: 'subtitle', id: 'result-subtitle' }, subtitle, h('span', { class: 'muted' }, ` · ${entry.fileName}, ${entry.result.spectrum.points} points`)),
-    warningsBox(warnings) ?? '',
+    keptPanel('warnings', [entry, JSON.stringify(warnings)], () => warningsBox(warnings)) ?? '',
     columnsPanel(entry, { onAnalyse: (columns) => void analyseColumns(entry, columns) }) ?? '',
-    fit === null ? '' : parameterCards(fit, entry.originalFit),
-    notesBox(fit?.notes ?? []) ?? '',
+    fit === null ? '' : keptPanel('cards', [entry.fit, entry.shownAlternative, entry.originalFit], () => parameterCards(fit, entry.originalFit)),
+    keptPanel('notes', [entry.fit, entry.shownAlternative], () => notesBox(fit?.notes ?? [])) ?? '',
     h(
       'div',
       { class: 'toolbar downloads' },
@@ -176,10 +177,11 @@ function renderMain(root: HTMLElement): void {
       onUnit: (unit) => { state.unit = unit; render(); },
       onPick: (position) => addBand(entry, position),
     }),
-    fit === null ? '' : h('section', { class: 'panel' }, assignmentTable(fit)),
-    alternativesPanel(entry, { onShowAlternative: (index) => { entry.shownAlternative = index; render(); } }) ?? '',
+    fit === null ? '' : keptPanel('assignments', [entry.fit, entry.shownAlternative], () => h('section', { class: 'panel' }, assignmentTable(fit))),
+    keptPanel('alternatives', [entry, entry.fit, entry.shownAlternative], () => alternativesPanel(entry, { onShowAlternative: (index) => { entry.shownAlternative = index; render(); } })) ?? '',
     diagramFigure(entry) ?? '',
-    bandsPanel(entry, state.pickArmed, state.refitting, {
+    // The C/B and free-C fields write to the entry without a render; their values are inputs all the same.
+    keptPanel('bands', [entry, entry.result, JSON.stringify(entry.bands), entry.fit, entry.shownAlternative, state.pickArmed, state.refitting, entry.cOverB, entry.freeC], () => bandsPanel(entry, state.pickArmed, state.refitting, {
       onPatch: (index, patch) => patchBand(entry, index, patch),
       onDelete: (index) => { entry.bands.splice(index, 1); render(); },
       onAdd: (position) => addBand(entry, position),
@@ -196,7 +198,7 @@ function renderMain(root: HTMLElement): void {
         entry.shownAlternative = null;
         render();
       },
-    }),
+    })),
   );
 }
 

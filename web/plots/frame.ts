@@ -2,6 +2,10 @@
  * One uPlot chart built from a PlotSpec: drag on the plot to zoom in x,
  * double-click or "Reset zoom" to go back, marks drawn on the canvas, width
  * following its container, and a click handler for picking a position.
+ * update() swaps in a new spec on the same chart (same DOM node), keeping
+ * the x range the user zoomed to; only series whose looks changed are
+ * replaced, and only a different axis (unit, ticks, fixed range) needs a
+ * new frame.
  */
 import uPlot from 'uplot';
 import type { Mark, PlotSpec } from './spec.js';
@@ -19,23 +23,29 @@ const AXIS_STROKE = '#333';
 const GRID_STROKE = 'rgba(0, 0, 0, 0.09)';
 
 export class PlotFrame {
-  readonly spec: PlotSpec;
+  spec: PlotSpec;
   readonly plot: uPlot;
   private readonly observer: ResizeObserver;
   private readonly container: HTMLElement;
+  private yRangeNow: [number, number];
+  private onPick: ((x: number) => void) | undefined;
+  /** The x range shown when not zoomed (what uPlot chose for the whole data). */
+  private fullX: [number, number];
 
   constructor(container: HTMLElement, spec: PlotSpec, options: PlotFrameOptions = {}) {
     const { height = 320, onPick } = options;
     this.spec = spec;
     this.container = container;
+    this.onPick = onPick;
     container.replaceChildren();
-    const yRange = spec.yRange ?? padded(dataRange(spec.ys));
+    this.yRangeNow = yRangeOf(spec);
     const opts: uPlot.Options = {
       width: Math.max(320, container.clientWidth || 640),
       height,
       scales: {
-        x: spec.xRange === undefined ? { time: false } : { time: false, auto: false, range: () => spec.xRange! },
-        y: { auto: false, range: () => yRange },
+        // The range functions read the frame's current spec, so update() can change them.
+        x: spec.xRange === undefined ? { time: false } : { time: false, auto: false, range: () => this.spec.xRange ?? [0, 1] },
+        y: { auto: false, range: () => this.yRangeNow },
       },
       axes: [
         {
@@ -48,32 +58,16 @@ export class PlotFrame {
       ],
       series: [
         { label: spec.xLabel, value: (_u, v) => (v === null ? '—' : v.toFixed(2)) },
-        ...spec.series.map((s) => {
-          const series: uPlot.Series = {
-            label: s.label,
-            stroke: s.color,
-            width: s.width,
-            show: true,
-            value: (_u: uPlot, v: number | null) => (v === null ? '—' : v.toPrecision(4)),
-          };
-          if (s.dash !== undefined) series.dash = s.dash;
-          if (s.pointsOnly === true) {
-            series.paths = () => null;
-            series.points = { show: true, size: 7, stroke: s.color, fill: s.color };
-          } else {
-            series.points = { show: false };
-          }
-          return series;
-        }),
+        ...spec.series.map(uPlotSeries),
       ],
       legend: { show: spec.series.some((s) => s.quiet !== true) },
       cursor: { drag: { x: true, y: false, setScale: true } },
-      hooks: { draw: [(u: uPlot) => drawMarks(u, spec.marks)] },
+      hooks: { draw: [(u: uPlot) => drawMarks(u, this.spec.marks), (u: uPlot) => this.recordDraw(u)] },
     };
-    const data = [spec.x, ...spec.ys] as unknown as uPlot.AlignedData;
-    this.plot = new uPlot(opts, data, container);
+    this.plot = new uPlot(opts, alignedData(spec), container);
+    this.fullX = fullXOf(spec);
     hideQuietLegendRows(this.plot, spec);
-    if (onPick !== undefined) this.bindPick(onPick);
+    this.bindPick();
     this.observer = new ResizeObserver(() => {
       const width = Math.max(320, this.container.clientWidth);
       if (Math.abs(width - this.plot.width) > 2) this.plot.setSize({ width, height });
@@ -81,11 +75,51 @@ export class PlotFrame {
     this.observer.observe(container);
   }
 
+  /**
+   * Shows `spec` on this chart, keeping the user's x zoom (clipped to the
+   * new data). Returns false, changing nothing, when the spec has another
+   * x axis (label, ticks, fixed range) or legend: the caller then builds a
+   * new frame. `onPick` replaces the click handler.
+   */
+  update(spec: PlotSpec, onPick?: (x: number) => void): boolean {
+    if (!sameAxes(this.spec, spec)) return false;
+    const shown = this.xRange();
+    const zoomed = this.isZoomed();
+    const old = this.spec;
+    this.spec = spec;
+    this.onPick = onPick;
+    this.yRangeNow = yRangeOf(spec);
+    // Replace only the series whose looks differ; uPlot index 0 is x.
+    const common = Math.min(old.series.length, spec.series.length);
+    for (let i = 0; i < common; i++) {
+      if (seriesKey(old.series[i]!) === seriesKey(spec.series[i]!)) continue;
+      this.plot.delSeries(i + 1);
+      this.plot.addSeries(uPlotSeries(spec.series[i]!), i + 1);
+    }
+    for (let i = old.series.length; i > spec.series.length; i--) this.plot.delSeries(i);
+    for (let i = common; i < spec.series.length; i++) this.plot.addSeries(uPlotSeries(spec.series[i]!), i + 1);
+    // uPlot applies scales in a microtask, so the full range is taken from the spec, not read back.
+    this.fullX = fullXOf(spec);
+    this.plot.setData(alignedData(spec), true);
+    this.plot.setScale('y', { min: this.yRangeNow[0], max: this.yRangeNow[1] });
+    if (zoomed) {
+      const lo = Math.max(shown[0], this.fullX[0]);
+      const hi = Math.min(shown[1], this.fullX[1]);
+      if (hi > lo) this.plot.setScale('x', { min: lo, max: hi });
+    }
+    hideQuietLegendRows(this.plot, spec);
+    return true;
+  }
+
   /** Back to the full x range of the data. */
   resetZoom(): void {
-    const x = this.spec.x;
-    if (this.spec.xRange !== undefined) this.plot.setScale('x', { min: this.spec.xRange[0], max: this.spec.xRange[1] });
-    else if (x.length > 1) this.plot.setScale('x', { min: x[0]!, max: x[x.length - 1]! });
+    const [min, max] = fullXOf(this.spec);
+    if (max > min) this.plot.setScale('x', { min, max });
+  }
+
+  /** Whether the user has zoomed in x. */
+  isZoomed(): boolean {
+    return !sameRange(this.xRange(), this.fullX);
   }
 
   /** Current visible x range. */
@@ -118,7 +152,20 @@ export class PlotFrame {
     this.plot.destroy();
   }
 
-  private bindPick(onPick: (x: number) => void): void {
+  /**
+   * Writes the shown x range and a draw count on the container
+   * (data-x-range="min max", data-draws, counting on across rebuilt charts),
+   * so a page test can wait for a redraw and read the zoom without reaching
+   * into uPlot.
+   */
+  private recordDraw(u: uPlot): void {
+    const scale = u.scales['x'];
+    const dataset = this.container.dataset;
+    dataset['xRange'] = `${scale?.min ?? ''} ${scale?.max ?? ''}`;
+    dataset['draws'] = String(Number(dataset['draws'] ?? '0') + 1);
+  }
+
+  private bindPick(): void {
     let downAt: { x: number; y: number } | null = null;
     const over = this.plot.over;
     over.addEventListener('mousedown', (event) => {
@@ -129,11 +176,66 @@ export class PlotFrame {
       const moved = Math.hypot(event.clientX - downAt.x, event.clientY - downAt.y);
       downAt = null;
       // A drag is a zoom, not a pick.
-      if (moved > 3) return;
+      if (moved > 3 || this.onPick === undefined) return;
       const rect = over.getBoundingClientRect();
-      onPick(this.plot.posToVal(event.clientX - rect.left, 'x'));
+      this.onPick(this.plot.posToVal(event.clientX - rect.left, 'x'));
     });
   }
+}
+
+function uPlotSeries(s: PlotSpec['series'][number]): uPlot.Series {
+  const series: uPlot.Series = {
+    label: s.label,
+    stroke: s.color,
+    width: s.width,
+    show: true,
+    value: (_u: uPlot, v: number | null) => (v === null ? '—' : v.toPrecision(4)),
+  };
+  if (s.dash !== undefined) series.dash = s.dash;
+  if (s.pointsOnly === true) {
+    series.paths = () => null;
+    series.points = { show: true, size: 7, stroke: s.color, fill: s.color };
+  } else {
+    series.points = { show: false };
+  }
+  return series;
+}
+
+function alignedData(spec: PlotSpec): uPlot.AlignedData {
+  return [spec.x, ...spec.ys] as unknown as uPlot.AlignedData;
+}
+
+/** The x range uPlot shows unzoomed: the fixed range, else first to last x (uPlot's numeric x scale). */
+function fullXOf(spec: PlotSpec): [number, number] {
+  if (spec.xRange !== undefined) return spec.xRange;
+  return [spec.x[0] ?? 0, spec.x[spec.x.length - 1] ?? 1];
+}
+
+function yRangeOf(spec: PlotSpec): [number, number] {
+  return spec.yRange ?? padded(dataRange(spec.ys));
+}
+
+/** Everything about a series that uPlot fixes when the series is added. */
+function seriesKey(s: PlotSpec['series'][number]): string {
+  return JSON.stringify([s.label, s.color, s.width, s.dash ?? null, s.pointsOnly === true, s.quiet === true]);
+}
+
+/** Whether two specs share the x axis and legend that uPlot fixes when the chart is built. */
+export function sameAxes(a: PlotSpec, b: PlotSpec): boolean {
+  const legend = (s: PlotSpec): boolean => s.series.some((x) => x.quiet !== true);
+  return (
+    a.xLabel === b.xLabel &&
+    a.yLabel === b.yLabel &&
+    (a.xRange === undefined) === (b.xRange === undefined) &&
+    JSON.stringify(a.xTicks ?? null) === JSON.stringify(b.xTicks ?? null) &&
+    legend(a) === legend(b)
+  );
+}
+
+/** Equal within a millionth of their span (uPlot rounds scale limits). */
+function sameRange(a: [number, number], b: [number, number]): boolean {
+  const tolerance = 1e-6 * Math.max(Math.abs(b[1] - b[0]), 1e-12);
+  return Math.abs(a[0] - b[0]) <= tolerance && Math.abs(a[1] - b[1]) <= tolerance;
 }
 
 function padded([min, max]: [number, number]): [number, number] {

@@ -13,6 +13,8 @@ import { overlaySpec } from '../plots/spectrum-spec.js';
 import Papa from 'papaparse';
 
 let frame: PlotFrame | null = null;
+/** The overlay's plot host, kept with its chart across renders so the zoom survives. */
+let host: HTMLElement | null = null;
 
 function name(entry: AnalysisEntry): string {
   return entry.details.sample || entry.fileName;
@@ -29,10 +31,10 @@ export function comparisonCsv(entries: readonly AnalysisEntry[]): string {
 }
 
 export function renderCompare(root: HTMLElement, entries: readonly AnalysisEntry[], unit: AxisUnit, onUnit: (unit: AxisUnit) => void): void {
-  frame?.destroy();
-  frame = null;
   const done = entries.filter((e) => e.status === 'done');
   if (done.length === 0) {
+    frame?.destroy();
+    frame = null;
     root.replaceChildren(h('h2', {}, 'Compare analyses'), h('p', { class: 'muted' }, 'Analyse two or more spectra (several files can be chosen at once) to compare them here.'));
     return;
   }
@@ -68,7 +70,8 @@ export function renderCompare(root: HTMLElement, entries: readonly AnalysisEntry
     ),
   );
   const withCurves = done.filter((e) => e.result?.curves !== undefined);
-  const host = h('div', { class: 'plot', id: 'overlay-plot', role: 'img', 'aria-label': 'Overlay of the spectra' });
+  const plotHost = host ?? h('div', { class: 'plot', id: 'overlay-plot', role: 'img', 'aria-label': 'Overlay of the spectra' });
+  host = plotHost;
   const spec = overlaySpec(withCurves.map((e) => ({ name: name(e), curves: e.result!.curves! })), unit);
   const tools = h(
     'div',
@@ -81,7 +84,8 @@ export function renderCompare(root: HTMLElement, entries: readonly AnalysisEntry
   root.replaceChildren(
     h('h2', {}, 'Compare analyses'),
     h('section', { class: 'panel' }, table, h('div', { class: 'toolbar' }, h('button', { type: 'button', class: 'button small', id: 'compare-csv', onclick: () => download('comparison.csv', comparisonCsv(done), 'text/csv') }, 'Download CSV'))),
-    withCurves.length === 0 ? '' : h('figure', { class: 'panel figure' }, h('figcaption', {}, h('h3', {}, 'Spectra, each scaled to its maximum'), tools), host),
+    withCurves.length === 0 ? '' : h('figure', { class: 'panel figure' }, h('figcaption', {}, h('h3', {}, 'Spectra, each scaled to its maximum'), tools), plotHost),
   );
-  if (withCurves.length > 0) requestAnimationFrame(() => { frame?.destroy(); frame = new PlotFrame(host, spec); });
+  // The kept chart takes the new data when its axis is the same; a new chart is built after layout otherwise.
+  if (withCurves.length > 0 && (frame === null || !frame.update(spec))) requestAnimationFrame(() => { frame?.destroy(); frame = new PlotFrame(plotHost, spec); });
 }

@@ -11,6 +11,7 @@ import type { Diagram, FitResult } from '../types.js';
 import { PlotFrame } from '../plots/frame.js';
 import type { PlotSpec } from '../plots/spec.js';
 import { svgFromSpec } from '../plots/svg.js';
+import { BoundedCache } from '../plots/lru.js';
 import type { AxisUnit } from '../plots/spectrum-spec.js';
 import { residualSpec, spectrumSpec } from '../plots/spectrum-spec.js';
 import { diagramRangeFor, diagramSpec } from '../plots/diagram-spec.js';
@@ -21,16 +22,54 @@ export interface PlotHandlers {
   onPick(wavenumber: number): void;
 }
 
-const frames = new Map<string, PlotFrame>();
-const diagramCache = new Map<string, Promise<Diagram>>();
+/**
+ * One figure kept across renders: its element and plot host stay the same
+ * DOM nodes while the analysis it shows (`owner`) stays the same, so the
+ * chart keeps the user's zoom; only its caption is rebuilt.
+ */
+interface Slot {
+  owner: string;
+  element: HTMLElement;
+  host: HTMLElement;
+  frame: PlotFrame | null;
+  /** The spec waiting for the next animation frame to build the chart. */
+  pending: PlotSpec | null;
+  /** What the chart was last drawn from; the same inputs skip the update. */
+  inputs: readonly unknown[];
+  /** The current click handler; the frame calls it through the slot. */
+  pick: ((x: number) => void) | undefined;
+  /** Bumped on each diagram request, so a late answer cannot overwrite a newer one. */
+  generation: number;
+}
 
-function destroyFrame(id: string): void {
-  frames.get(id)?.destroy();
-  frames.delete(id);
+const slots = new Map<string, Slot>();
+/** Diagrams already asked for, by query; bounded so a long session does not keep every one. */
+export const DIAGRAM_CACHE_LIMIT = 16;
+const diagramCache = new BoundedCache<string, Promise<Diagram>>(DIAGRAM_CACHE_LIMIT);
+
+function dropSlot(id: string): void {
+  slots.get(id)?.frame?.destroy();
+  slots.delete(id);
+}
+
+/** The slot for this figure and analysis; a new one (new nodes) when the analysis changed. */
+function slotFor(id: string, owner: string): Slot {
+  const known = slots.get(id);
+  if (known !== undefined && known.owner === owner) return known;
+  dropSlot(id);
+  const host = h('div', { class: 'plot', id: `${id}-plot` });
+  const slot: Slot = { owner, element: h('figure', { class: 'panel figure', id: `${id}-figure` }), host, frame: null, pending: null, inputs: [], pick: undefined, generation: 0 };
+  slots.set(id, slot);
+  return slot;
+}
+
+/** Whether two input lists hold the same objects (or equal plain values) in order. */
+function sameInputs(a: readonly unknown[], b: readonly unknown[]): boolean {
+  return a.length === b.length && a.every((v, i) => Object.is(v, b[i]));
 }
 
 function toolbar(id: string, stem: string, extra: HTMLElement[] = []): HTMLElement {
-  const frame = (): PlotFrame | undefined => frames.get(id);
+  const frame = (): PlotFrame | undefined => slots.get(id)?.frame ?? undefined;
   return h(
     'div',
     { class: 'toolbar', role: 'toolbar', 'aria-label': `${id} plot tools` },
@@ -41,24 +80,27 @@ function toolbar(id: string, stem: string, extra: HTMLElement[] = []): HTMLEleme
   );
 }
 
-function figure(id: string, title: string, tools: HTMLElement, note?: string): { element: HTMLElement; host: HTMLElement } {
-  const host = h('div', { class: 'plot', id: `${id}-plot`, role: 'img', 'aria-label': title });
-  const element = h(
-    'figure',
-    { class: 'panel figure', id: `${id}-figure` },
-    h('figcaption', {}, h('h3', {}, title), tools),
-    host,
-    note === undefined ? null : h('p', { class: 'muted small' }, note),
-  );
-  return { element, host };
+/** Puts a fresh caption and note around the slot's kept plot host. */
+function dress(slot: Slot, title: string, tools: HTMLElement, note?: string): HTMLElement {
+  slot.host.setAttribute('role', 'img');
+  slot.host.setAttribute('aria-label', title);
+  slot.element.replaceChildren(h('figcaption', {}, h('h3', {}, title), tools), slot.host, note === undefined ? '' : h('p', { class: 'muted small' }, note));
+  return slot.element;
 }
 
-function mount(id: string, host: HTMLElement, spec: PlotSpec, onPick?: (x: number) => void): void {
-  destroyFrame(id);
+/** Shows the spec in the slot: an update of the kept chart, else a new chart after layout. */
+function show(id: string, slot: Slot, spec: PlotSpec): void {
+  if (slot.frame !== null && slot.pending === null && slot.frame.update(spec, (x) => slot.pick?.(x))) return;
+  const scheduled = slot.pending !== null;
+  slot.pending = spec;
+  if (scheduled) return;
   // Build after layout so the plot takes the width of its column.
   requestAnimationFrame(() => {
-    destroyFrame(id);
-    frames.set(id, new PlotFrame(host, spec, onPick === undefined ? {} : { onPick }));
+    const latest = slot.pending;
+    slot.pending = null;
+    if (slots.get(id) !== slot || latest === null) return;
+    slot.frame?.destroy();
+    slot.frame = new PlotFrame(slot.host, latest, { onPick: (x) => slot.pick?.(x) });
   });
 }
 
@@ -67,8 +109,8 @@ export function spectrumFigures(entry: AnalysisEntry, unit: AxisUnit, pickArmed:
   const curves = result?.curves;
   const stem = safeFileStem(entry.fileName);
   if (result === null || curves === undefined || curves.grid.length === 0) {
-    destroyFrame('spectrum');
-    destroyFrame('residuals');
+    dropSlot('spectrum');
+    dropSlot('residuals');
     return [h('p', { class: 'muted' }, 'The service sent no curves for this spectrum, so there is nothing to plot.')];
   }
   const fit = shownFit(entry);
@@ -79,28 +121,40 @@ export function spectrumFigures(entry: AnalysisEntry, unit: AxisUnit, pickArmed:
       h('button', { type: 'button', class: 'button small', id: `unit-${u}`, 'aria-pressed': String(unit === u), onclick: () => handlers.onUnit(u) }, u === 'nm' ? 'nm' : 'cm⁻¹'),
     ),
   );
-  const spectrum = figure('spectrum', 'Spectrum, baseline and fitted bands', toolbar('spectrum', stem, [unitSwitch]), pickArmed ? 'Click where the new band has its maximum.' : 'Drag across the plot to zoom; double-click or Reset zoom to see it all.');
-  if (pickArmed) spectrum.host.classList.add('picking');
-  const spec = spectrumSpec({
-    title: entry.details.sample || entry.fileName,
-    curves,
-    signalUnit: result.spectrum.signalUnit,
-    bands: entry.bands,
-    assignments: fit?.assignments ?? [],
-    masked: result.spectrum.masked,
-    unit,
-  });
-  mount('spectrum', spectrum.host, spec, (x) => {
+  const slot = slotFor('spectrum', entry.key);
+  const element = dress(slot, 'Spectrum, baseline and fitted bands', toolbar('spectrum', stem, [unitSwitch]), pickArmed ? 'Click where the new band has its maximum.' : 'Drag across the plot to zoom; double-click or Reset zoom to see it all.');
+  slot.host.classList.toggle('picking', pickArmed);
+  slot.pick = (x) => {
     if (pickArmed) handlers.onPick(unit === 'nm' ? 1e7 / x : x);
-  });
-  const out = [spectrum.element];
-  const residual = residualSpec(`Residuals of ${entry.fileName}`, curves, unit, result.spectrum.signalUnit);
-  if (residual !== null) {
-    const residuals = figure('residuals', 'Residuals: measured − (baseline + bands)', toolbar('residuals', stem));
-    mount('residuals', residuals.host, residual);
-    out.push(residuals.element);
-  } else {
-    destroyFrame('residuals');
+  };
+  const assignments = fit?.assignments ?? [];
+  // The bands are edited in place, so they are compared by content.
+  // shownFit makes a new object for an alternative on every call, so the fit is compared by its source.
+  const inputs = [curves, unit, JSON.stringify(entry.bands), entry.fit, entry.shownAlternative, entry.details.sample, entry.fileName];
+  if (!sameInputs(inputs, slot.inputs)) {
+    slot.inputs = inputs;
+    show('spectrum', slot, spectrumSpec({
+      title: entry.details.sample || entry.fileName,
+      curves,
+      signalUnit: result.spectrum.signalUnit,
+      bands: entry.bands,
+      assignments,
+      masked: result.spectrum.masked,
+      unit,
+    }));
+  }
+  const out = [element];
+  if (curves.model === undefined) {
+    dropSlot('residuals');
+    return out;
+  }
+  const residuals = slotFor('residuals', entry.key);
+  out.push(dress(residuals, 'Residuals: measured − (baseline + bands)', toolbar('residuals', stem)));
+  const residualInputs = [curves, unit, entry.fileName];
+  if (!sameInputs(residualInputs, residuals.inputs)) {
+    const residual = residualSpec(`Residuals of ${entry.fileName}`, curves, unit, result.spectrum.signalUnit);
+    residuals.inputs = residualInputs;
+    if (residual !== null) show('residuals', residuals, residual);
   }
   return out;
 }
@@ -121,12 +175,16 @@ function diagramKey(fit: FitResult): api.DiagramQuery {
 export function diagramFigure(entry: AnalysisEntry): HTMLElement | null {
   const fit = shownFit(entry);
   if (fit === null) {
-    destroyFrame('diagram');
+    dropSlot('diagram');
     return null;
   }
   const stem = safeFileStem(entry.fileName);
-  const { element, host } = figure('diagram', 'Energy levels (E/B against Dq/B) at the fitted C/B', toolbar('diagram', stem), 'Strong lines: levels of the ground-state spin; points: the observed bands on their assigned levels.');
-  host.append(h('p', { class: 'muted', id: 'diagram-status' }, 'Computing the levels…'));
+  const slot = slotFor('diagram', entry.key);
+  const element = dress(slot, 'Energy levels (E/B against Dq/B) at the fitted C/B', toolbar('diagram', stem), 'Strong lines: levels of the ground-state spin; points: the observed bands on their assigned levels.');
+  const inputs = [entry.fit, entry.shownAlternative];
+  if (sameInputs(inputs, slot.inputs)) return element;
+  slot.inputs = inputs;
+  if (slot.frame === null && slot.pending === null) slot.host.replaceChildren(h('p', { class: 'muted', id: 'diagram-status' }, 'Computing the levels…'));
   const query = diagramKey(fit);
   const key = JSON.stringify(query);
   let pending = diagramCache.get(key);
@@ -135,15 +193,22 @@ export function diagramFigure(entry: AnalysisEntry): HTMLElement | null {
     diagramCache.set(key, pending);
     pending.catch(() => diagramCache.delete(key));
   }
+  const generation = ++slot.generation;
+  const current = (): boolean => slots.get('diagram') === slot && slot.generation === generation;
   pending.then(
     (diagram) => {
-      if (!host.isConnected) return;
-      const spec = diagramSpec({ diagram, dqOverB: fittedDqOverB(fit), b: fit.b, assignments: fit.assignments });
-      mount('diagram', host, spec);
+      if (!current()) return;
+      show('diagram', slot, diagramSpec({ diagram, dqOverB: fittedDqOverB(fit), b: fit.b, assignments: fit.assignments }));
     },
     (error: unknown) => {
+      if (!current()) return;
       const message = error instanceof api.ApiError ? `${error.body.message}${error.body.path === '' ? '' : ` (${error.body.path})`}` : 'The diagram could not be computed.';
-      host.replaceChildren(h('p', { class: 'error' }, message));
+      slot.frame?.destroy();
+      slot.frame = null;
+      slot.pending = null;
+      // A later render asks again rather than keep showing the error.
+      slot.inputs = [];
+      slot.host.replaceChildren(h('p', { class: 'error' }, message));
     },
   );
   return element;
