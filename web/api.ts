@@ -100,6 +100,11 @@ export function fit(request: FitRequest): Promise<FitResult> {
   );
 }
 
+/** POST /predict: what a formula says (the Predict view). */
+export function predict<T>(body: Record<string, unknown>): Promise<T> {
+  return send<T>(`${BASE}/predict`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) }, 'the prediction');
+}
+
 export interface DiagramQuery {
   d: number;
   geometry: string;

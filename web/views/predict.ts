@@ -7,7 +7,7 @@
  * two ligands) is the everyday use. Answers come from POST /api/v1/predict.
  */
 import './predict.css';
-import { ApiError } from '../api.js';
+import * as api from '../api.js';
 import { h } from '../dom.js';
 import type { Prediction } from '../../src/series/predict.js';
 import type { ApiErrorBody } from '../types.js';
@@ -36,24 +36,9 @@ export function predictBody(column: Pick<Column, 'formula' | 'geometry' | 'libra
   return body;
 }
 
-async function requestPrediction(body: Record<string, unknown>): Promise<Prediction> {
-  let response: Response;
-  try {
-    response = await fetch('/api/v1/predict', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
-  } catch {
-    throw new ApiError({ code: 'network', message: 'Could not reach the fieldgap service for the prediction.', path: '' });
-  }
-  let answer: unknown;
-  try {
-    answer = await response.json();
-  } catch {
-    throw new ApiError({ code: 'network', message: `The service sent an answer that is not JSON (HTTP ${response.status}).`, path: '' });
-  }
-  if (!response.ok) {
-    const error = (answer as { error?: Partial<ApiErrorBody> }).error ?? {};
-    throw new ApiError({ code: String(error.code ?? 'http'), message: String(error.message ?? `HTTP ${response.status}`), path: String(error.path ?? '') });
-  }
-  return answer as Prediction;
+/** Through the page's one request path (api.ts), so the write header the service asks of the page goes with it. */
+function requestPrediction(body: Record<string, unknown>): Promise<Prediction> {
+  return api.predict<Prediction>(body);
 }
 
 const cm = (x: number): string => Math.round(x).toLocaleString('en-US').replace(/,/g, ' ');
@@ -178,7 +163,7 @@ function columnPanel(column: Column, index: number, libraryAvailable: boolean, s
       column.error = null;
       column.status = 'done';
     } catch (error) {
-      column.error = error instanceof ApiError ? error.body : { code: 'internal', message: 'Something went wrong in the page.', path: '' };
+      column.error = error instanceof api.ApiError ? error.body : { code: 'internal', message: 'Something went wrong in the page.', path: '' };
       column.result = null;
       column.status = 'failed';
     }
