@@ -325,6 +325,9 @@ function poorFit(e: Evaluated): boolean {
   return dof > 0 && e.chiSquare > dof + 2 * Math.sqrt(2 * dof);
 }
 
+/** Runners-up polished when the polished winner scores worse than they did on the scan (bounds the engine calls). */
+const MAX_REPOLISHED = 4;
+
 /** Observations that depend on C: bands at least this many, beyond the three parameters, before C/B is estimated unasked. */
 export const AUTO_FREE_C_MIN_BANDS = 4;
 
@@ -375,6 +378,17 @@ export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
   const threshold = unexplainedThreshold(positions);
   // Polishing with the engine may move a solution; one that then leaves bands out implausibly gives way to the next.
   let best = polished(evaluated[0], settings, sorted);
+  // Polishing fits the positions and may slide into a prior's tail (a worse posterior than on the scan): the
+  // runners-up that scored better than the polished winner are polished too, and the lowest score wins.
+  evaluated = [best, ...evaluated.slice(1)];
+  for (let i = 1; i < Math.min(evaluated.length, 1 + MAX_REPOLISHED) && evaluated[i]!.score < best.score; i++) {
+    const e = polished(evaluated[i]!, settings, sorted);
+    evaluated[i] = e;
+    if (e.score < best.score && acceptable(e, threshold) && (e.wrms <= threshold || best.wrms > threshold)) {
+      evaluated = [e, ...evaluated.filter((_, k) => k !== i)];
+      best = e;
+    }
+  }
   for (let i = 1; i < evaluated.length && !acceptable(best, threshold); i++) {
     best = polished(evaluated[i]!, settings, sorted);
     evaluated = [best, ...evaluated.filter((_, k) => k !== i)];

@@ -200,7 +200,12 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
     if (value === null || sigma === null || !(sigma >= 0.5 * Math.abs(value))) continue;
     const name = parameter === 'tenDq' ? '10Dq' : parameter.toUpperCase();
     undetermined.push({ parameter, reason: `its uncertainty (${sigma.toPrecision(2)} cm-1) is ${sigma >= Math.abs(value) ? 'larger than' : 'more than half'} the value`, action: 'reported, but not fixed by these bands' });
-    warnings.push(`${name} = ${Math.round(value)} cm-1 is not fixed by these bands: its uncertainty is ${sigma.toPrecision(2)} cm-1`);
+    warnings.push(`${name} = ${Math.round(value)} cm-1 is not determined by these bands: its uncertainty is ${sigma.toPrecision(2)} cm-1`);
+  }
+  for (const u of restingOnWeakBands(best, settings)) {
+    if (undetermined.some((v) => v.parameter === u.parameter)) continue;
+    undetermined.push({ parameter: u.parameter, reason: u.reason, action: u.action });
+    warnings.push(u.warning);
   }
   const crossover = crossoverOf(best, settings);
   if (status.status === 'not-converged') warnings.push(status.message);
@@ -274,6 +279,47 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
     skipped: best.skipped.map((s) => ({ ...s, energy: round(s.energy) })), alternatives, crossover,
     predicted: predictedTransitions(best, settings, predictedLimit), warnings, notes,
   };
+}
+
+/**
+ * Parameters that the chosen assignment fixes only through an assumption the
+ * positions cannot check (issue 13, item 5: say which parameter the data
+ * cannot fix):
+ * - B (and C) when a single band is assigned to a spin-allowed transition and
+ *   the rest to spin-forbidden ones: B then rests on which of the many weak
+ *   spin-forbidden transitions those bands are, and a stray or split maximum
+ *   finds one within its σ (common practice: B is read from two spin-allowed
+ *   bands, or from the sextet-free spectrum of high-spin d5).
+ * - 10Dq when one band is fitted and the spin-allowed class has several
+ *   transitions: which one the band is cannot be told from its position
+ *   alone, and 10Dq follows from that choice.
+ * The value is still reported; the entry and the warning say on what it rests.
+ */
+function restingOnWeakBands(best: Evaluated, settings: FitSettings): Array<{ parameter: 'b' | 'tenDq'; reason: string; action: string; warning: string }> {
+  const { branch, variant, scan } = best.candidate;
+  const out: Array<{ parameter: 'b' | 'tenDq'; reason: string; action: string; warning: string }> = [];
+  if (branch.allowed.length === 0) return out;
+  const allowed = new Set(branch.allowed);
+  const assignedAllowed = new Set(best.levelIndices.filter((k) => allowed.has(k)));
+  const assignedForbidden = best.levelIndices.filter((k) => !allowed.has(k)).length;
+  if (best.bDetermined && assignedAllowed.size === 1 && assignedForbidden > 0) {
+    out.push({
+      parameter: 'b',
+      reason: 'one band is assigned to a spin-allowed transition; B rests on the assignment of the spin-forbidden ones',
+      action: 'reported, but not determined by spin-allowed bands',
+      warning: `B = ${Math.round(best.params.b)} cm-1 is not determined by spin-allowed bands: one band is spin-allowed and B rests on which spin-forbidden transitions the others are`,
+    });
+  }
+  if (variant.observations.length === 1 && branch.allowed.length > 1 && assignedAllowed.size === 1) {
+    const id = scan.ids[best.levelIndices[0]!]!;
+    out.push({
+      parameter: 'tenDq',
+      reason: `one band, and ${describeSingle(settings, branch.multiplicity)} has ${branch.allowed.length} spin-allowed transitions`,
+      action: `reported, assuming the band is ${scan.ids[branch.ground]!.label} → ${id.label}`,
+      warning: `10Dq = ${Math.round(10 * best.params.dq)} cm-1 is not determined by one band alone: it assumes the band is ${scan.ids[branch.ground]!.label} → ${id.label}, one of ${branch.allowed.length} spin-allowed transitions`,
+    });
+  }
+  return out;
 }
 
 function nullableRound(v: number | null, digits = 1): number | null {

@@ -169,7 +169,7 @@ describe('honest when the bands cannot fix a parameter', () => {
     const r = fitBands({ ion: 'Cr3+', bands: '17400±3000, 24600±3000' });
     expect(r.uncertainty.b!).toBeGreaterThan(0.5 * r.b!);
     expect(r.undetermined.map((u) => u.parameter)).toContain('b');
-    expect(r.warnings.join(' ')).toMatch(/B = \d+ cm-1 is not fixed by these bands/);
+    expect(r.warnings.join(' ')).toMatch(/B = \d+ cm-1 is not determined by these bands/);
     // The same maxima with the default σ fix B well: nothing listed.
     expect(fitBands({ ion: 'Cr3+', bands: [17400, 24600] }).undetermined).toEqual([]);
   });
