@@ -30,7 +30,7 @@ import { lazyLibrary } from '../src/library/lazy.js';
 import { openLibraryAt, type Library, type LibraryLocation } from '../src/library/library.js';
 import { resolveLibraryLocation } from '../src/library/location.js';
 import { isFieldgapError } from '../src/errors.js';
-import { authenticate, type IdentityResolver } from './security/auth.js';
+import { authenticate, usersResolver, type IdentityResolver } from './security/auth.js';
 import { declaredLengthGuard } from './security/declared-length.js';
 import { hostGuard, LOOPBACK_HOSTS } from './security/hosts.js';
 import { originGuard } from './security/origin.js';
@@ -74,6 +74,13 @@ export interface AppOptions {
    * (401 otherwise): for a service bound beyond loopback. Default: none.
    */
   identify?: IdentityResolver;
+  /**
+   * Resolve tokens against the library's users (fieldgap users) first: a
+   * user's token names them and their group, and routes show only that
+   * group's records. `identify` then serves only while no user is defined.
+   * Default false (loopback: the single-user mode).
+   */
+  identifyUsers?: boolean;
 }
 
 /** The app, plus what it needs to stop: the pool it owns and the library. */
@@ -110,6 +117,7 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
     database,
     allowedHosts = LOOPBACK_HOSTS,
     identify,
+    identifyUsers = false,
   } = options;
   const ownsPool = typeof poolOption === 'string';
   const pool = poolOption === 'workers' ? createWorkerPool() : poolOption === 'in-process' ? createInProcessPool() : poolOption;
@@ -132,7 +140,7 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
   app.use(requestLogger(logger));
   // Who may ask at all, before any route runs: this server's names only, the token off loopback, no foreign site's writes.
   app.use(hostGuard(allowedHosts));
-  app.use(authenticate(identify));
+  app.use(authenticate(identifyUsers ? usersResolver(library.users, identify) : identify));
   app.use(originGuard());
   app.use(declaredLengthGuard(Math.max(maxBodyBytes + MULTIPART_OVERHEAD_BYTES, maxJsonBytes)));
   app.use('/api', express.json({ limit: maxJsonBytes }), jsonDepthGuard());

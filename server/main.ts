@@ -77,6 +77,8 @@ export async function startServer(options: ServeOptions = {}): Promise<RunningSe
   const app = createApp({
     allowedHosts: allowedHostsFor({ listenHost: host, extra: allowedHostNames }),
     ...(token === undefined ? {} : { identify: singleTokenResolver(token) }),
+    // Beyond loopback the library's users (when any are defined) replace the single token.
+    identifyUsers: !isLoopbackHost(host),
     ...appOptions,
     logger,
   });
@@ -156,6 +158,7 @@ export async function runServe(argv: string[], io: ServeIo): Promise<number> {
     io.stderr(
       `fieldgap: listening on ${host}: every request needs the access token${givenToken ? '' : ` ${running.token}`} ("Authorization: Bearer TOKEN" for scripts)\n`,
     );
+    if (!isLoopbackHost(host)) io.stderr('fieldgap: once users are defined (fieldgap users add), each request needs its user\'s own token instead\n');
   }
   // The library opens on first use; say now if it cannot, but serve anyway: it is retried on each request.
   await running.app.library.ping().then(

@@ -23,6 +23,7 @@ import type { Library } from '../../src/library/library.js';
 import { refitAnalysis } from '../../src/library/refit.js';
 import type { AnalysisDetails, AnalysisPatch, StoredOptions } from '../../src/library/types.js';
 import { checkDetails, MAX_NOTE, MAX_SHORT_TEXT } from '../../src/library/validate.js';
+import { libraryFor } from '../security/scope.js';
 import { spectrumUpload, type UploadedSpectrum } from '../upload.js';
 import { parseJsonBody, parseTextFields } from '../validate.js';
 import { toAnalyzeOptions, type AnalyzeFunction } from './analyze.js';
@@ -109,21 +110,21 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
     const options = toAnalyzeOptions(analysis, upload.fileName);
     if (corrections != null) options.corrections = checkCorrections(corrections);
     const result = await analyze(upload.content, options);
-    const saved = await library.add({ ...details, fileName, content: upload.content, options, result });
+    const saved = await libraryFor(library, res).add({ ...details, fileName, content: upload.content, options, result });
     res.status(201).location(`${req.baseUrl}/${saved.id}`).json(saved);
   });
 
   router.get('/', async (req, res) => {
     const { query, ion, sha256, limit, offset } = parseTextFields(listQuery, req.query);
-    res.json(await library.list({ ...(query !== undefined && { query }), ...(ion !== undefined && { ion }), ...(sha256 !== undefined && { sha256 }), ...(limit !== undefined && { limit }), ...(offset !== undefined && { offset }) }));
+    res.json(await libraryFor(library, res).list({ ...(query !== undefined && { query }), ...(ion !== undefined && { ion }), ...(sha256 !== undefined && { sha256 }), ...(limit !== undefined && { limit }), ...(offset !== undefined && { offset }) }));
   });
 
   router.get('/:id', async (req, res) => {
-    res.json(await library.get(idParam(req)));
+    res.json(await libraryFor(library, res).get(idParam(req)));
   });
 
   router.get('/:id/original', async (req, res) => {
-    const original = await library.getOriginal(idParam(req));
+    const original = await libraryFor(library, res).getOriginal(idParam(req));
     res.attachment(original.fileName);
     // Set as is: res.type() would add a charset the file may not be in.
     res.setHeader('Content-Type', ORIGINAL_TYPES[extname(original.fileName).toLowerCase()] ?? 'application/octet-stream');
@@ -141,11 +142,11 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
       if (value === undefined) continue;
       (patch as Record<string, unknown>)[key] = key === 'ligands' && value !== null ? ligandList(value as string | string[]) : value;
     }
-    res.json(await library.update(id, patch));
+    res.json(await libraryFor(library, res).update(id, patch));
   });
 
   router.delete('/:id', async (req, res) => {
-    await library.remove(idParam(req));
+    await libraryFor(library, res).remove(idParam(req));
     res.status(204).end();
   });
 
@@ -155,7 +156,7 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
     const changes = toAnalyzeOptions(fields, undefined) as Record<string, unknown>;
     // null takes the corrections away: the fit goes back to the found bands and the best assignment.
     if (corrections !== undefined) changes['corrections'] = corrections === null ? null : checkCorrections(corrections);
-    const record = await refitAnalysis(library, id, changes, (content, options: StoredOptions) => analyze(content, options));
+    const record = await refitAnalysis(libraryFor(library, res), id, changes, (content, options: StoredOptions) => analyze(content, options));
     res.json(record);
   });
 

@@ -19,6 +19,7 @@ import { parseFormula } from '../../src/chemistry/formula.js';
 import { ownFactorsFromFit, predictComplex, type PredictOptions } from '../../src/series/index.js';
 import type { Library } from '../../src/library/library.js';
 import { librarySeries } from '../../src/library/series.js';
+import { libraryFor } from '../security/scope.js';
 import { parseJsonBody, parseTextFields } from '../validate.js';
 
 export interface SeriesRouterDeps {
@@ -59,13 +60,13 @@ export function createSeriesRouter({ library }: SeriesRouterDeps): Router {
 
   router.get('/series', async (req, res) => {
     const { ion, criterion } = parseTextFields(seriesQuery, req.query);
-    res.json(await librarySeries(library, ion, criterion === undefined ? {} : { criterion }));
+    res.json(await librarySeries(libraryFor(library, res), ion, criterion === undefined ? {} : { criterion }));
   });
 
   // One ligand-field calculation at one Dq: milliseconds, so it runs here rather than in the pool.
   router.post('/predict', async (req, res) => {
     const { formula, geometry, library: useLibrary } = parseJsonBody(predictBody, req.body);
-    const { options, note } = await predictOptions(library, formula, geometry, useLibrary ?? false);
+    const { options, note } = await predictOptions(libraryFor(library, res), formula, geometry, useLibrary ?? false);
     const prediction = predictComplex(formula, options);
     if (note) prediction.warnings.push(note);
     res.json(prediction);

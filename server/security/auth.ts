@@ -12,15 +12,22 @@
 import { createHash, randomBytes, timingSafeEqual } from 'node:crypto';
 import type { NextFunction, Request, Response } from 'express';
 import { FieldgapError } from '../../src/errors.js';
+import type { RecordScope, UserStore } from '../../src/library/users.js';
 
 /** Who sent a request. */
 export interface Identity {
-  /** Stable name of the holder: "local" for loopback without a token, "token" for the single service token. */
+  /** Stable name of the holder: "local" for loopback without a token, "token" for the single service token, else the user's name. */
   id: string;
+  /** For a user of the library's users table: their group and whether they administer; absent: sees every record (single-user modes). */
+  scope?: RecordScope;
 }
 
-/** Maps a presented token to its holder, or undefined for a token nobody holds. Must not throw. */
-export type IdentityResolver = (token: string) => Identity | undefined;
+/**
+ * Maps a presented token to its holder, or undefined for a token nobody
+ * holds. May answer later (a lookup in the library); rejects only when it
+ * cannot tell (the database unreachable: a 503, never a 401).
+ */
+export type IdentityResolver = (token: string) => Identity | undefined | Promise<Identity | undefined>;
 
 /** The identity of every request when no token is required (loopback). */
 export const LOCAL_IDENTITY: Identity = Object.freeze({ id: 'local' });
@@ -42,6 +49,21 @@ export function singleTokenResolver(token: string, identity: Identity = { id: 't
   if (token.length < 16) throw new FieldgapError('invalid-argument', '--token: an access token needs at least 16 characters', '--token');
   const expected = digest(token);
   return (presented) => (timingSafeEqual(digest(presented), expected) ? identity : undefined);
+}
+
+/**
+ * The resolver of a service with users (fieldgap users): a token names the
+ * user who holds it, with their group. While no user is defined, the single
+ * service token (when given) is accepted instead, so a service started before
+ * its users keeps working; once users exist, only their tokens are.
+ */
+export function usersResolver(users: Pick<UserStore, 'resolveToken' | 'count'>, single?: IdentityResolver): IdentityResolver {
+  return async (token) => {
+    const scope = await users.resolveToken(token);
+    if (scope !== undefined) return { id: scope.user, scope };
+    if (single === undefined || (await users.count()) > 0) return undefined;
+    return single(token);
+  };
 }
 
 /** The value of one cookie from a Cookie header ("a=1; fieldgap_token=…"). */
@@ -83,29 +105,37 @@ function unauthorized(): FieldgapError {
  * the same address without the token, so it leaves the address bar.
  */
 export function authenticate(resolve: IdentityResolver | undefined) {
-  return (req: Request, res: Response, next: NextFunction): void => {
+  return async (req: Request, res: Response, next: NextFunction): Promise<void> => {
     if (resolve === undefined) {
       res.locals['identity'] = LOCAL_IDENTITY;
       return next();
     }
-    const inQuery = req.method === 'GET' && !req.path.startsWith('/api/') ? req.query['token'] : undefined;
-    if (typeof inQuery === 'string' && resolve(inQuery) !== undefined) {
-      res.cookie(TOKEN_COOKIE, inQuery, { httpOnly: true, sameSite: 'strict', path: '/' });
-      const rest = new URLSearchParams(req.originalUrl.split('?')[1] ?? '');
-      rest.delete('token');
-      const query = rest.toString();
-      // Only a path of this server: "//other.example/" would send the browser elsewhere.
-      const path = /^\/(?![/\\])/.test(req.path) ? req.path : '/';
-      res.redirect(303, `${path}${query === '' ? '' : `?${query}`}`);
-      return;
+    try {
+      await check(resolve, req, res, next);
+    } catch (error) {
+      next(error);
     }
-    const token = presentedToken(req);
-    const identity = token === undefined ? undefined : resolve(token);
-    if (identity === undefined) {
-      res.set('WWW-Authenticate', 'Bearer realm="fieldgap"');
-      return next(unauthorized());
-    }
-    res.locals['identity'] = identity;
-    next();
   };
+}
+
+async function check(resolve: IdentityResolver, req: Request, res: Response, next: NextFunction): Promise<void> {
+  const inQuery = req.method === 'GET' && !req.path.startsWith('/api/') ? req.query['token'] : undefined;
+  if (typeof inQuery === 'string' && (await resolve(inQuery)) !== undefined) {
+    res.cookie(TOKEN_COOKIE, inQuery, { httpOnly: true, sameSite: 'strict', path: '/' });
+    const rest = new URLSearchParams(req.originalUrl.split('?')[1] ?? '');
+    rest.delete('token');
+    const query = rest.toString();
+    // Only a path of this server: "//other.example/" would send the browser elsewhere.
+    const path = /^\/(?![/\\])/.test(req.path) ? req.path : '/';
+    res.redirect(303, `${path}${query === '' ? '' : `?${query}`}`);
+    return;
+  }
+  const token = presentedToken(req);
+  const identity = token === undefined ? undefined : await resolve(token);
+  if (identity === undefined) {
+    res.set('WWW-Authenticate', 'Bearer realm="fieldgap"');
+    return next(unauthorized());
+  }
+  res.locals['identity'] = identity;
+  next();
 }

@@ -45,6 +45,16 @@ export function lazyLibrary(engine: Library['engine'], open: () => Promise<Libra
     update: async (id, patch) => (await library()).update(id, patch),
     remove: async (id) => (await library()).remove(id),
     ping: async () => (await library()).ping(),
+    // A view that opens with the library; closing it leaves the library open.
+    scoped: (scope) => lazyLibrary(engine, async () => (await library()).scoped(scope)),
+    users: {
+      add: async (name, group, admin) => (await library()).users.add(name, group, admin),
+      list: async () => (await library()).users.list(),
+      newToken: async (name) => (await library()).users.newToken(name),
+      remove: async (name) => (await library()).users.remove(name),
+      resolveToken: async (token) => (await library()).users.resolveToken(token),
+      count: async () => (await library()).users.count(),
+    },
     close: async () => {
       closed = true;
       const lib = opened ?? (await opening?.catch(() => undefined));

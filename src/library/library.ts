@@ -9,6 +9,7 @@ import { ionOfResult, summarizeResult } from './summary.js';
 import type {
   AnalysisPatch, AnalysisRecord, AnalysisSummary, ListOptions, ListPage, NewAnalysis, OriginalFile, StoredOptions, StoredResult,
 } from './types.js';
+import { userStoreOver, type RecordScope, type UserStore } from './users.js';
 import { baseFileName, canonicalIon, canonicalIonOrNull, checkDetails } from './validate.js';
 
 export { LIBRARY_FILE };
@@ -45,6 +46,15 @@ export interface Library {
   remove(id: number): Promise<void>;
   /** Resolves when the database answers; rejects with 'storage-unavailable' when it does not. */
   ping(): Promise<void>;
+  /**
+   * The same library as seen by one user: only their group's records (all
+   * for an administrator), new records added in their name and group. A
+   * record outside the scope is 'not-found', as if it did not exist. The
+   * view shares this library's connection; its close() does nothing.
+   */
+  scoped(scope: RecordScope): Library;
+  /** The users and their tokens (users.ts). */
+  readonly users: UserStore;
   close(): Promise<void>;
 }
 
@@ -71,9 +81,12 @@ const SEARCHED = ['a.sample', 'a.formula', 'a.ion', 'a.ligands', 'a.solvent', 'a
 const FIT_COLUMNS: readonly (keyof FitColumns)[] = ['ten_dq', 'ten_dq_sd', 'b', 'b_sd', 'c', 'beta', 'beta_sd', 'spin_state', 'rms', 'status'];
 
 /** The library's rules over one engine. */
-export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'maxOriginalBytes'> = {}): Library {
+export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'maxOriginalBytes'> = {}, scope?: RecordScope): Library {
   const { maxOriginalBytes = 32 * 1024 * 1024 } = options;
   const sql = DIALECT_SQL[engine.dialect];
+  // The condition (on the analyses row `a`) that keeps a user to their group's records; none for an administrator or the single-user mode.
+  const groupOnly = scope === undefined || scope.admin ? undefined : scope.group;
+  const inScope = (alias: string) => (groupOnly === undefined ? { sql: '', params: [] as unknown[] } : { sql: ` AND ${alias}group_name = ?`, params: [groupOnly] as unknown[] });
 
   const addRevision = async (tx: SqlTx, id: number, revision: number, options: StoredOptions, result: StoredResult, version: string, now: string) => {
     const resultText = jsonText('result', result);
@@ -87,7 +100,8 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
   };
 
   const readRecord = async (tx: SqlTx, id: number): Promise<AnalysisRecord> => {
-    const row = await tx.get<SummaryRow>(`${SUMMARY_SELECT} WHERE a.id = ?`, [checkId(id)]);
+    const only = inScope('a.');
+    const row = await tx.get<SummaryRow>(`${SUMMARY_SELECT} WHERE a.id = ?${only.sql}`, [checkId(id), ...only.params]);
     if (!row) throw notFound(id);
     const current = (await tx.get<{ options: string; result: string }>(
       `SELECT r.options, x.result FROM revisions r JOIN results x ON x.revision_id = r.id
@@ -123,6 +137,10 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
       clauses.push('a.original_sha256 = ?');
       params.push(filter.sha256.toLowerCase());
     }
+    if (groupOnly !== undefined) {
+      clauses.push('a.group_name = ?');
+      params.push(groupOnly);
+    }
     return { where: clauses.length ? `WHERE ${clauses.join(' AND ')}` : '', params };
   };
 
@@ -148,12 +166,12 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
         const row = await tx.get<{ id: number }>(
           `INSERT INTO analyses
             (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note,
-             original_name, original_sha256, original_size)
-           VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?) RETURNING id`,
+             original_name, original_sha256, original_size, owner, group_name)
+           VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?) RETURNING id`,
           [
             now, now, details.sample!, details.formula ?? null, ion, JSON.stringify(details.ligands ?? []), details.solvent ?? null,
             details.temperature ?? null, details.measuredOn ?? null, details.note ?? null,
-            fileName, sha256Hex(content), content.length,
+            fileName, sha256Hex(content), content.length, scope?.user ?? null, scope?.group ?? null,
           ],
         );
         const newId = Number(row!.id);
@@ -184,11 +202,12 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
 
     getOriginal: async (id: number) => {
       checkId(id);
+      const only = inScope('a.');
       const row = await engine.read((tx) =>
         tx.get<{ original_name: string; original_sha256: string; original_size: number; bytes: Buffer }>(
           `SELECT a.original_name, a.original_sha256, a.original_size, o.bytes
-           FROM originals o JOIN analyses a ON a.id = o.analysis_id WHERE o.analysis_id = ?`,
-          [id],
+           FROM originals o JOIN analyses a ON a.id = o.analysis_id WHERE o.analysis_id = ?${only.sql}`,
+          [id, ...only.params],
         ),
       );
       if (!row) throw notFound(id);
@@ -223,7 +242,8 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
       const now = new Date().toISOString();
       await engine.write(async (tx) => {
         // Locks the record's row (PostgreSQL) so concurrent refits of one record take turns.
-        const exists = await tx.get<{ id: number }>(`SELECT id FROM analyses WHERE id = ?${sql.lockRow}`, [id]);
+        const only = inScope('');
+        const exists = await tx.get<{ id: number }>(`SELECT id FROM analyses WHERE id = ?${only.sql}${sql.lockRow}`, [id, ...only.params]);
         if (!exists) throw notFound(id);
         const current = await tx.get<{ n: number | null }>('SELECT max(revision) AS n FROM revisions WHERE analysis_id = ?', [id]);
         await tx.run(`UPDATE analyses SET ${[...sets, 'updated_at = ?'].join(', ')} WHERE id = ?`, [...params, now, id]);
@@ -236,12 +256,16 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
 
     remove: async (id: number) => {
       checkId(id);
-      const gone = await engine.write((tx) => tx.all<{ id: number }>('DELETE FROM analyses WHERE id = ? RETURNING id', [id]));
+      const only = inScope('');
+      const gone = await engine.write((tx) => tx.all<{ id: number }>(`DELETE FROM analyses WHERE id = ?${only.sql} RETURNING id`, [id, ...only.params]));
       if (gone.length === 0) throw notFound(id);
     },
 
     ping: () => engine.ping(),
-    close: () => engine.close(),
+    scoped: (next: RecordScope) => libraryOver(engine, options, next),
+    users: userStoreOver(engine),
+    // A scoped view does not own the connection it shares.
+    close: () => (scope === undefined ? engine.close() : Promise.resolve()),
   };
 }
 

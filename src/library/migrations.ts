@@ -90,6 +90,28 @@ export const MIGRATIONS: ReadonlyArray<(db: Database) => void> = [
   (db) => {
     db.exec('CREATE INDEX analyses_by_sha256 ON analyses(original_sha256);');
   },
+  // 4: users and groups. A record belongs to the user who added it and to
+  // that user's group (both NULL for records of the single-user mode, which
+  // only administrators see once users exist). Tokens are kept only as their
+  // SHA-256, so a copy of the database gives no one a working token.
+  (db) => {
+    db.exec(`
+      CREATE TABLE users (
+        name       TEXT PRIMARY KEY,
+        group_name TEXT NOT NULL,
+        is_admin   INTEGER NOT NULL DEFAULT 0,
+        created_at TEXT NOT NULL
+      );
+      CREATE TABLE tokens (
+        sha256     TEXT PRIMARY KEY,
+        user_name  TEXT NOT NULL REFERENCES users(name) ON DELETE CASCADE,
+        created_at TEXT NOT NULL
+      );
+      ALTER TABLE analyses ADD COLUMN owner TEXT;
+      ALTER TABLE analyses ADD COLUMN group_name TEXT;
+      CREATE INDEX analyses_by_group ON analyses(group_name);
+    `);
+  },
 ];
 
 /** The schema version this fieldgap writes. */

@@ -82,6 +82,23 @@ export const POSTGRES_MIGRATIONS: readonly string[] = [
   `,
   // 3: originals found by their SHA-256.
   `CREATE INDEX analyses_by_sha256 ON analyses(original_sha256);`,
+  // 4: users and groups; tokens only as their SHA-256.
+  `
+  CREATE TABLE users (
+    name       text PRIMARY KEY,
+    group_name text NOT NULL,
+    is_admin   boolean NOT NULL DEFAULT false,
+    created_at text NOT NULL
+  );
+  CREATE TABLE tokens (
+    sha256     text PRIMARY KEY,
+    user_name  text NOT NULL REFERENCES users(name) ON DELETE CASCADE,
+    created_at text NOT NULL
+  );
+  ALTER TABLE analyses ADD COLUMN owner text;
+  ALTER TABLE analyses ADD COLUMN group_name text;
+  CREATE INDEX analyses_by_group ON analyses(group_name);
+  `,
 ];
 
 if (POSTGRES_MIGRATIONS.length !== SCHEMA_VERSION) {

@@ -8,6 +8,7 @@ import { seriesCommand } from './series.js';
 import { serveCommand } from './serve.js';
 import { predictCommand } from './predict.js';
 import { watchCommand } from './watch.js';
+import { usersCommand } from './users.js';
 
 /**
  * Every CLI command, in the order `fieldgap --help` lists them. A new command
@@ -23,4 +24,5 @@ export const commands: Command[] = [
   serveCommand,
   predictCommand,
   watchCommand,
+  usersCommand,
 ];
