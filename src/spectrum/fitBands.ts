@@ -192,8 +192,9 @@ export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOpti
   }
   if (added > 0) fit = simplify(ctx, fit);
   fit = bandUnderEdge(ctx, fit);
+  fit = broadBandsToBaseline(ctx, fit);
   // The chosen model is refined to convergence (its trial stopped at the coarser tolerance, or early).
-  return refine(x, y, fit.bands, fit.edge, o, { maxIterations: 200, chiSquareTolerance: 0.01 });
+  return refine(x, y, fit.bands, fit.edge, ctx.o, { maxIterations: 200, chiSquareTolerance: 0.01 });
 }
 
 interface Context {
@@ -293,6 +294,33 @@ function simplify(ctx: Context, initial: RefineBandsResult): RefineBandsResult {
     }
   }
   return fit;
+}
+
+/** A band broader than this many typical band widths, away from the top of the range, is scattering or baseline. */
+const BASELINE_BROAD = 3;
+
+/**
+ * A band broader than BASELINE_BROAD × broadFwhm (7 500 cm-1 by default;
+ * spin-allowed d–d bands are 2 000–5 000 cm-1 wide, common practice)
+ * inside the range is the curvature of a scattering baseline (1/λ⁴ is ν⁴),
+ * which the straight baseline cannot follow: it is tried replaced by one
+ * more order of the baseline polynomial (up to 3) and the model
+ * simplified so when the criterion does not prefer the broad band by more
+ * than BIC_MARGIN (a simpler model, as in the merge of two bands).
+ * Changes ctx.o's baseline order when it succeeds. Only where the model
+ * keeps another band: a lone band is never taken for the baseline.
+ */
+function broadBandsToBaseline(ctx: Context, fit: RefineBandsResult): RefineBandsResult {
+  const { x, y, o } = ctx;
+  const broad = fit.bands.filter((b) => b.fwhm > BASELINE_BROAD * o.broadFwhm);
+  if (broad.length === 0 || broad.length === fit.bands.length || o.baselineOrder >= 3) return fit;
+  const order = o.baselineOrder + 1;
+  const scale = xPolynomialScale(x);
+  const raised: FitBandsOptions = { ...o, baselineOrder: order, baselineStart: xyPolynomialFit(x, o.baselineGuess, order, scale) };
+  const trial = refine(x, y, fit.bands.filter((b) => !broad.includes(b)), fit.edge, raised);
+  if (ctx.score(trial) >= ctx.score(fit) + BIC_MARGIN) return fit;
+  ctx.o = raised;
+  return trial;
 }
 
 /**

@@ -51,3 +51,17 @@ describe('a band under the UV edge', () => {
     }
   });
 });
+
+describe('a band broader than three band widths inside the range', () => {
+  it('is the scattering baseline, not a band: Cr(II) aqua over 200–1100 nm keeps its two Jahn–Teller components and nothing broad', () => {
+    const c = byId('cr2-aqua/uvvis');
+    const r = bandsOf(c);
+    // Two components of the Jahn–Teller split 5Eg → 5T2g band (Lever 1984, from memory: ≈ 10 000 and 14 000–16 000 cm-1).
+    const dd = c.bands.filter((b) => b.kind === 'spin-allowed' && !b.weak && b.position > r.range[0]);
+    expect(dd).toHaveLength(2);
+    for (const t of dd) expect(r.bands.some((b) => Math.abs(b.position - t.position) < 0.5 * t.fwhm), `${t.label} at ${t.position}`).toBe(true);
+    expect(r.bands.filter((b) => b.fwhm > 7500)).toEqual([]);
+    // The weak spin-forbidden triplets may show; nothing else.
+    expect(r.bands.filter((b) => b.kind === 'd-d')).toHaveLength(dd.length);
+  });
+});
