@@ -191,8 +191,10 @@ export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOpti
     fit = trial;
   }
   if (added > 0) fit = simplify(ctx, fit);
+  fit = bandUnderEdge(ctx, fit);
+  fit = broadBandsToBaseline(ctx, fit);
   // The chosen model is refined to convergence (its trial stopped at the coarser tolerance, or early).
-  return refine(x, y, fit.bands, fit.edge, o, { maxIterations: 200, chiSquareTolerance: 0.01 });
+  return refine(x, y, fit.bands, fit.edge, ctx.o, { maxIterations: 200, chiSquareTolerance: 0.01 });
 }
 
 interface Context {
@@ -292,6 +294,94 @@ function simplify(ctx: Context, initial: RefineBandsResult): RefineBandsResult {
     }
   }
   return fit;
+}
+
+/** A band broader than this many typical band widths, away from the top of the range, is scattering or baseline. */
+const BASELINE_BROAD = 3;
+
+/**
+ * A band broader than BASELINE_BROAD × broadFwhm (7 500 cm-1 by default;
+ * spin-allowed d–d bands are 2 000–5 000 cm-1 wide, common practice)
+ * inside the range is the curvature of a scattering baseline (1/λ⁴ is ν⁴),
+ * which the straight baseline cannot follow: it is tried replaced by one
+ * more order of the baseline polynomial (up to 3) and the model
+ * simplified so when the criterion does not prefer the broad band by more
+ * than BIC_MARGIN (a simpler model, as in the merge of two bands).
+ * Changes ctx.o's baseline order when it succeeds. Only where the model
+ * keeps another band: a lone band is never taken for the baseline.
+ */
+function broadBandsToBaseline(ctx: Context, fit: RefineBandsResult): RefineBandsResult {
+  const { x, y, o } = ctx;
+  const broad = fit.bands.filter((b) => b.fwhm > BASELINE_BROAD * o.broadFwhm);
+  if (broad.length === 0 || broad.length === fit.bands.length || o.baselineOrder >= 3) return fit;
+  const order = o.baselineOrder + 1;
+  const scale = xPolynomialScale(x);
+  const raised: FitBandsOptions = { ...o, baselineOrder: order, baselineStart: xyPolynomialFit(x, o.baselineGuess, order, scale) };
+  const trial = refine(x, y, fit.bands.filter((b) => !broad.includes(b)), fit.edge, raised);
+  if (ctx.score(trial) >= ctx.score(fit) + BIC_MARGIN) return fit;
+  ctx.o = raised;
+  return trial;
+}
+
+/**
+ * Starting positions of a band hidden under the UV edge, in units of
+ * broadFwhm below the top of the range: a shoulder of a d–d band on a
+ * steep charge-transfer rise (the 3T1g(P) band of Ni(II) near 395 nm in a
+ * 380–780 nm spectrum) shows no maximum and no curvature the candidate
+ * search sees, and the edge's free width absorbs it. A few starts span the
+ * last two band widths of the range.
+ */
+const UNDER_EDGE_STARTS = [0.3, 0.6, 1, 1.5];
+
+/**
+ * A band under the edge trades its position against the edge's: it is kept
+ * while its position deviation is under half its FWHM (the limit for noisy
+ * data) even on smooth data, and reports that deviation as its
+ * uncertainty, rather than being dropped and its place taken by the edge.
+ */
+const UNDER_EDGE_UNCERTAIN = 0.5;
+
+/** Broadest band under the edge, in units of broadFwhm: spin-allowed d–d bands are 2 000–5 000 cm-1 wide (common practice). */
+const UNDER_EDGE_BROADEST = 2;
+
+/**
+ * With an edge in the model, tries one more band under it near the top of
+ * the range, from each start of UNDER_EDGE_STARTS (height a third of the
+ * data above the baseline there, FWHM broadFwhm); the best trial is kept
+ * when it wins by BIC_MARGIN, its band has a maximum inside the range (not
+ * edge-like), stands apart from the other bands by a FWHM (not a split
+ * of one of them), is no broader than UNDER_EDGE_BROADEST band widths nor
+ * weaker than minAddedFraction of the tallest band, and no band of it is weak, a duplicate or undetermined
+ * (prune, with position deviations up to UNDER_EDGE_UNCERTAIN of the
+ * FWHM). So the edge may not take a d–d band's place; where the data have
+ * only the edge, the extra band does not pay for its parameters.
+ */
+function bandUnderEdge(ctx: Context, fit: RefineBandsResult): RefineBandsResult {
+  const { x, y, o } = ctx;
+  if (fit.edge === null || ctx.mode === false || fit.bands.length >= o.maxBands) return fit;
+  const xMax = x[x.length - 1] as number;
+  const base = xPolynomialValues(x, fit.baselineCoefficients, fit.scale);
+  let best: RefineBandsResult | null = null;
+  for (const k of UNDER_EDGE_STARTS) {
+    const position = xMax - k * o.broadFwhm;
+    if (position <= (x[0] as number) || fit.bands.some((b) => Math.abs(b.position - position) < 0.5 * b.fwhm)) continue;
+    const i = xNearestIndex(x, position);
+    const height = ((y[i] as number) - (base[i] as number)) / 3;
+    if (!(height > 0)) continue;
+    const bands = [...fit.bands, { position, height, fwhm: o.broadFwhm }].sort((a, b) => a.position - b.position);
+    const trial = refine(x, y, bands, fit.edge, o);
+    if (best === null || ctx.score(trial) < ctx.score(best)) best = trial;
+  }
+  if (best === null || ctx.score(best) >= ctx.score(fit) - BIC_MARGIN) return fit;
+  // The new band is the one not in the old model: it must stand apart from the old bands (not split one of them) and be
+  // no broader than UNDER_EDGE_BROADEST × broadFwhm (broader, it is a piece of the charge-transfer tail itself).
+  const added = best.bands.find((b) => fit.bands.every((a) => Math.abs(a.position - b.position) > 0.25 * a.fwhm));
+  if (added === undefined || added.fwhm > UNDER_EDGE_BROADEST * o.broadFwhm) return fit;
+  // Like a band added from the residual: on smooth data a weak broad residual is the band model's shape error.
+  if (added.height < (o.minAddedFraction ?? 0) * best.bands.reduce((m, b) => Math.max(m, b.height), 0)) return fit;
+  if (best.bands.some((b) => b !== added && Math.abs(b.position - added.position) < Math.max(b.fwhm, added.fwhm))) return fit;
+  if (best.bands.some((b) => edgeLike(b, xMax, o.broadFwhm)) || prune(best, x, o.noise, o.narrowFwhm, Math.max(o.uncertainFraction ?? 0.5, UNDER_EDGE_UNCERTAIN)) !== null) return fit;
+  return best;
 }
 
 function xMedian(values: Float64Array): number {

@@ -167,8 +167,7 @@ describe('the validation corpus', () => {
     expect(missed.length, missed.join(', ')).toBeLessThanOrEqual(Math.floor(0.1 * stepped.length));
   }, CORPUS_TIMEOUT_MS);
 
-  // fails until issue 13 lands: today rounded data grows bands where there are none.
-  it.fails('finds no spurious band on quantized, noise-free data', () => {
+  it('finds no spurious band on quantized, noise-free data', () => {
     const quantized = cases.filter((c) => c.distortions.noise === 0);
     const spurious: string[] = [];
     for (const c of quantized) {
