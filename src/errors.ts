@@ -24,6 +24,12 @@ export const ERROR_CODES = [
   'too-large',
   /** Work that exceeded its time limit. */
   'timeout',
+  /** Work refused before it started because every worker is busy and the queue is full (HTTP 503); try again shortly. */
+  'busy',
+  /** The client closed the connection before the answer was ready (HTTP 499, never sent: nobody is listening). */
+  'client-left',
+  /** A file or folder fieldgap may not read or write (the operating system refused access). */
+  'permission-denied',
   /** The results library cannot store more: its disk is full (HTTP 507). */
   'storage-full',
   /** The results library is read-only here (a read-only data folder or database user): reads work, writes do not (HTTP 507). */
