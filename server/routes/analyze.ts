@@ -5,6 +5,8 @@
  */
 import { Router } from 'express';
 import type { AnalyzeOptions, AnalyzeResult } from '../../src/analysis.js';
+import { checkOneCMode } from '../../src/analysis-option-names.js';
+import { invalidArgument } from '../../src/errors.js';
 import { clientGoneSignal } from '../abort.js';
 import type { ComputePool } from '../pool.js';
 import { analyzeFields, type AnalyzeFields } from '../schemas.js';
@@ -32,7 +34,11 @@ export function toAnalyzeOptions(fields: AnalyzeFields, fileName: string | undef
   if (fields.ion !== undefined) options.ion = fields.ion;
   if (fields.d !== undefined) options.d = fields.d;
   if (fields.geometry !== undefined) options.geometry = fields.geometry;
-  if (fields.conc !== undefined) options.concentration = fields.conc;
+  const concentration = fields.conc ?? fields.concentration;
+  if (fields.conc !== undefined && fields.concentration !== undefined && fields.conc !== fields.concentration) {
+    throw invalidArgument('concentration', 'give the concentration once: conc (concentration is its other name)');
+  }
+  if (concentration !== undefined) options.concentration = concentration;
   if (fields.path !== undefined) options.pathLength = fields.path;
   if (fields.xUnit !== undefined) options.xUnit = fields.xUnit;
   if (fields.yUnit !== undefined) options.yUnit = fields.yUnit;
@@ -44,6 +50,7 @@ export function toAnalyzeOptions(fields: AnalyzeFields, fileName: string | undef
   if (fields.ligands !== undefined) options.ligands = typeof fields.ligands === 'string' ? fields.ligands : [...fields.ligands];
   if (fields.curves !== undefined) options.curves = fields.curves;
   if (fields.stepCorrection !== undefined) options.stepCorrection = fields.stepCorrection;
+  checkOneCMode(options, 'rest');
   return options;
 }
 

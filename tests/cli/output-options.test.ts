@@ -21,7 +21,7 @@ describe('analyze output files', () => {
     expect(out.stderr).not.toMatch(/deprecated/);
     const old = await cli(['analyze', dir, '--ion', 'Cr3+', '--json', 'old.json'], dir);
     expect(old.code).toBe(0);
-    expect(old.stderr).toMatch(/--json old\.json is deprecated; write --out old\.json/);
+    expect(old.stderr).toMatch(/--json FILE is deprecated; write --out FILE/);
     expect(readFileSync(join(dir, 'new.json'), 'utf8')).toBe(readFileSync(join(dir, 'old.json'), 'utf8'));
     const both = await cli(['analyze', dir, '--ion', 'Cr3+', '--out', 'a.json', '--json', 'b.json'], dir);
     expect(both.code).toBe(2);

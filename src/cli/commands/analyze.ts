@@ -76,7 +76,7 @@ export const analyzeCommand: Command = {
     const csvOutput: OutputFile | undefined = values.csv === undefined ? undefined : { option: '--csv', path: values.csv, firstLine: CSV_COLUMNS.join(',') };
     if (json.jsonFile !== undefined) {
       if (values.out !== undefined) throw invalidArgument('--out', 'give the JSON output file once: --out FILE (--json FILE is its old spelling)');
-      io.stderr(`note: --json ${json.jsonFile} is deprecated; write --out ${json.jsonFile} (--json alone prints JSON)\n`);
+      io.stderr('note: --json FILE is deprecated; write --out FILE (--json alone prints JSON)\n');
     }
     const jsonPath = values.out ?? json.jsonFile;
     const jsonOutput: OutputFile | undefined = jsonPath === undefined ? undefined : { option: values.out !== undefined ? '--out' : '--json', path: jsonPath };
