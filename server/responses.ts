@@ -10,7 +10,7 @@ import { ERROR_CODES } from '../src/errors.js';
 import type { AnalyzeResult } from '../src/analysis.js';
 import type { FitResult } from '../src/fit/types.js';
 import type { AnalysisRecord, AnalysisSummary, FitSummary, ListPage, RevisionInfo } from '../src/library/types.js';
-import { X_UNITS, Y_UNITS } from '../src/spectrum/index.js';
+import { X_UNITS, Y_UNITS } from '../src/spectrum/types.js';
 
 const num = z.number();
 const geometry = z.enum(['octahedral', 'tetrahedral']);

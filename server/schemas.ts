@@ -12,7 +12,7 @@ import { z } from 'zod';
 import { MAX_FIT_BANDS } from '../src/fit/band-count.js';
 import { DIAGRAM_DEFAULTS } from '../src/ligand-field/index.js';
 import { PARAMETER_BOUNDS as BOUNDS } from '../src/ligand-field/parameter-bounds.js';
-import { X_UNITS, Y_UNITS } from '../src/spectrum/index.js';
+import { X_UNITS, Y_UNITS } from '../src/spectrum/types.js';
 
 const geometry = z.enum(['octahedral', 'tetrahedral']).meta({
   description: 'Coordination geometry: sets the sign of the cubic field.',

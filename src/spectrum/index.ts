@@ -5,7 +5,6 @@
  */
 export type * from './types.js';
 export { parseSpectrumText, type ParseSpectrumOptions } from './parseSpectrumText.js';
-export { Y_UNITS } from './types.js';
 export { CM1_PER_EV, X_UNITS, parseXUnitOption, valueToWavenumber, wavenumberToValue, xUnitFromName } from './units.js';
 export { xToWavenumber } from './xToWavenumber.js';
 export { yToAbsorbance } from './yToAbsorbance.js';
