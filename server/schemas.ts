@@ -147,7 +147,6 @@ export const analyzeFields = z.strictObject({
   geometry: geometry.optional(),
   // Physically meaningful ranges: a concentration of 1e-300 mol/L turns every band into "charge transfer".
   conc: positive('Concentration in mol/L (for molar absorption coefficients), 1e-7 to 20.').min(1e-7).max(20).optional(),
-  concentration: positive('Another name of conc (the pipeline\'s name), mol/L.').min(1e-7).max(20).optional(),
   path: positive('Path length in cm (default 1), 1e-4 to 100.').min(1e-4).max(100).optional(),
   xUnit: z.enum(X_UNITS).optional().meta({ description: 'Unit of the x column when the file does not say.' }),
   yUnit: z.enum(Y_UNITS).optional().meta({ description: 'Unit of the y column when the file does not say.' }),

@@ -6,7 +6,6 @@
 import { Router } from 'express';
 import type { AnalyzeOptions, AnalyzeResult } from '../../src/analysis.js';
 import { checkOneCMode } from '../../src/analysis-option-names.js';
-import { invalidArgument } from '../../src/errors.js';
 import { clientGoneSignal } from '../abort.js';
 import type { ComputePool } from '../pool.js';
 import { analyzeFields, type AnalyzeFields } from '../schemas.js';
@@ -34,11 +33,7 @@ export function toAnalyzeOptions(fields: AnalyzeFields, fileName: string | undef
   if (fields.ion !== undefined) options.ion = fields.ion;
   if (fields.d !== undefined) options.d = fields.d;
   if (fields.geometry !== undefined) options.geometry = fields.geometry;
-  const concentration = fields.conc ?? fields.concentration;
-  if (fields.conc !== undefined && fields.concentration !== undefined && fields.conc !== fields.concentration) {
-    throw invalidArgument('concentration', 'give the concentration once: conc (concentration is its other name)');
-  }
-  if (concentration !== undefined) options.concentration = concentration;
+  if (fields.conc !== undefined) options.concentration = fields.conc;
   if (fields.path !== undefined) options.pathLength = fields.path;
   if (fields.xUnit !== undefined) options.xUnit = fields.xUnit;
   if (fields.yUnit !== undefined) options.yUnit = fields.yUnit;

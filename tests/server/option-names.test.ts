@@ -25,14 +25,4 @@ describe('analysis option names', () => {
     expect(out.code).toBe(2);
     expect(out.stderr).toMatch(/--c-over-b/);
   });
-
-  it('REST takes concentration as another name of conc', async () => {
-    const a = await request(app).post('/api/v1/analyze?ion=Cr3%2B&conc=0.05').type('text/csv').send(readFileSync(AQUA)).expect(200);
-    const b = await request(app).post('/api/v1/analyze?ion=Cr3%2B&concentration=0.05').type('text/csv').send(readFileSync(AQUA)).expect(200);
-    const none = await request(app).post('/api/v1/analyze?ion=Cr3%2B').type('text/csv').send(readFileSync(AQUA)).expect(200);
-    expect(a.body.bands.some((band: { epsilon: number | null }) => band.epsilon !== null)).toBe(true);
-    expect(none.body.bands.every((band: { epsilon: number | null }) => band.epsilon === null)).toBe(true);
-    expect(b.body).toEqual(a.body);
-    await request(app).post('/api/v1/analyze?ion=Cr3%2B&conc=0.05&concentration=0.1').type('text/csv').send(readFileSync(AQUA)).expect(400);
-  });
 });
