@@ -18,7 +18,7 @@ export interface ErrorBody {
  */
 export class ServiceBusyError extends FieldgapError {
   constructor(message = 'the server is busy: too many analyses are waiting; try again shortly') {
-    super('timeout', message, '');
+    super('busy', message, '');
   }
 }
 
@@ -40,7 +40,7 @@ export class TaskBugError extends FieldgapError {
  */
 export class RequestAbortedError extends FieldgapError {
   constructor() {
-    super('timeout', 'the client closed the connection before the answer was ready', '');
+    super('client-left', 'the client closed the connection before the answer was ready', '');
   }
 }
 
@@ -52,6 +52,10 @@ const STATUS: Record<ErrorCode, number> = {
   'not-found': 404,
   'too-large': 413,
   timeout: 504,
+  busy: 503,
+  // 499 "client closed request" (a common practice, not a standard status): logged, never sent.
+  'client-left': 499,
+  'permission-denied': 403,
   'storage-full': 507,
   'storage-read-only': 507,
   'storage-unavailable': 503,
@@ -63,7 +67,6 @@ const STATUS: Record<ErrorCode, number> = {
 
 /** The HTTP status for an error the service answers with. */
 export function httpStatusFor(error: FieldgapError): number {
-  if (error instanceof ServiceBusyError) return 503;
   return STATUS[error.code];
 }
 

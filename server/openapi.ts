@@ -9,12 +9,14 @@ import { analysisRecordFields, listQuery, patchBody, refitFields } from './route
 import { predictBody, seriesQuery } from './routes/series.js';
 import { analyzeFields, diagramQuery, fitBody, levelsQuery, SPECTRUM_CONTENT_TYPES } from './schemas.js';
 import {
+  analysisRecordResponse,
   analyzeResponse,
   diagramResponse,
   errorResponse,
   fitResponse,
   healthResponse,
   levelsResponse,
+  listPageResponse,
 } from './responses.js';
 
 type JsonSchema = Record<string, unknown>;
@@ -94,7 +96,7 @@ export function buildOpenApiDocument(version: string, limits: DocumentedLimits):
   const recordFields = jsonSchema(analysisRecordFields) as { properties?: Record<string, JsonSchema> };
   const recordForm = { ...formSchema, properties: { ...formSchema.properties, ...recordFields.properties } };
   const idParameter = { name: 'id', in: 'path', required: true, schema: { type: 'integer', minimum: 1 } };
-  const record = (description: string) => ({ description, content: { 'application/json': { schema: { type: 'object' } } } });
+  const record = (description: string) => ok(description, 'AnalysisRecord');
 
   return {
     openapi: '3.1.0',
@@ -169,7 +171,7 @@ export function buildOpenApiDocument(version: string, limits: DocumentedLimits):
           operationId: 'listAnalyses',
           summary: 'Stored analyses, newest first',
           parameters: queryParameters(listQuery),
-          responses: { '200': record('{ analyses, total, limit, offset }.'), ...errorResponses(['400', '500']) },
+          responses: { '200': ok('{ analyses, total, limit, offset }.', 'AnalysisList'), ...errorResponses(['400', '500']) },
         },
       },
       '/api/v1/analyses/{id}': {
@@ -235,6 +237,8 @@ export function buildOpenApiDocument(version: string, limits: DocumentedLimits):
         Diagram: jsonSchema(diagramResponse, 'output'),
         FitResult: jsonSchema(fitResponse, 'output'),
         AnalyzeResult: jsonSchema(analyzeResponse, 'output'),
+        AnalysisRecord: jsonSchema(analysisRecordResponse, 'output'),
+        AnalysisList: jsonSchema(listPageResponse, 'output'),
       },
     },
   };

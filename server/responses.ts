@@ -6,6 +6,11 @@
  * a documented field fails a test instead of drifting silently.
  */
 import { z } from 'zod';
+import { ERROR_CODES } from '../src/errors.js';
+import type { AnalyzeResult } from '../src/analysis.js';
+import type { FitResult } from '../src/fit/types.js';
+import type { AnalysisRecord, AnalysisSummary, FitSummary, ListPage, RevisionInfo } from '../src/library/types.js';
+import { X_UNITS, Y_UNITS } from '../src/spectrum/types.js';
 
 const num = z.number();
 const geometry = z.enum(['octahedral', 'tetrahedral']);
@@ -13,22 +18,7 @@ const geometry = z.enum(['octahedral', 'tetrahedral']);
 export const errorResponse = z
   .strictObject({
     error: z.strictObject({
-      code: z.enum([
-        'invalid-argument',
-        'parse-error',
-        'unsupported-format',
-        'unexplained',
-        'not-found',
-        'too-large',
-        'timeout',
-        'storage-full',
-        'storage-read-only',
-        'storage-unavailable',
-        'storage-broken',
-        'internal',
-        'unauthorized',
-        'forbidden',
-      ]),
+      code: z.enum(ERROR_CODES),
       message: z.string(),
       path: z.string().meta({ description: 'The field, option or file position the error is about; "" when none.' }),
     }),
@@ -99,7 +89,16 @@ export const diagramResponse = z.looseObject({
 
 const nullableNum = num.nullable();
 
-export const fitResponse = z.looseObject({
+const spinState = z.enum(['high-spin', 'low-spin', 'no-choice']);
+const assignmentBrief = { observed: num, calculated: num, residual: num, term: z.string(), label: z.string() };
+const penalty = z.looseObject({ rule: z.string(), amount: num.meta({ description: 'Added to the score (a deviance).' }), detail: z.string() });
+
+/**
+ * Every field of the core's FitResult (src/fit/types.ts), each described: the
+ * `satisfies` below fails to compile when the core gains or loses a field
+ * this document does not describe.
+ */
+const fitShape = {
   d: z.number().int(),
   ion: z.string().nullable(),
   geometry,
@@ -110,53 +109,157 @@ export const fitResponse = z.looseObject({
   cOverB: nullableNum,
   cMode: z.enum(['ratio', 'fixed', 'free']),
   beta: nullableNum.meta({ description: 'Nephelauxetic ratio B/B0; null where B0 is not tabulated.' }),
+  betaSd: nullableNum.meta({ description: 'Standard uncertainty of beta: uncertainty.b / freeIonB.' }),
   freeIonB: nullableNum,
+  freeIonC: nullableNum,
+  freeIonSource: z.string().nullable(),
   groundTerm: z.string(),
-  spinState: z.enum(['high-spin', 'low-spin', 'no-choice']),
+  groundLabel: z.string(),
+  spinState,
   unpairedElectrons: z.number().int(),
   spinOnlyMoment: num.meta({ description: 'μB.' }),
   lfse: z.looseObject({ dq: num, cm1: num, configuration: z.string() }),
   rmsResidual: num,
   status: z.enum(['converged', 'exact', 'not-converged']),
   message: z.string(),
-  uncertainty: z.looseObject({ tenDq: nullableNum, b: nullableNum, c: nullableNum }),
-  assignments: z.array(
-    z.looseObject({ observed: num, calculated: num, residual: num, term: z.string(), parent: z.string(), label: z.string() }),
-  ),
-  alternatives: z.array(z.looseObject({
-    rmsResidual: num, dq: num, reason: z.string(),
-    probability: num.meta({ description: 'Probability of this alternative among the solutions evaluated.' }),
-  })),
+  evaluations: z.number().int(),
+  uncertainty: z.looseObject({ tenDq: nullableNum, dq: nullableNum, b: nullableNum, c: nullableNum }).meta({ description: 'Standard uncertainties, cm-1 (dq in Dq units of cm-1); null where not fitted.' }),
+  correlation: z.looseObject({ bDq: nullableNum, cDq: nullableNum, cB: nullableNum }),
+  score: num.meta({ description: 'Deviance, −2·ln of the posterior up to a constant: lower is better.' }),
+  chiSquare: num,
   probability: num.meta({ description: 'Probability of the chosen assignment: exp(−score/2) normalised over the solutions evaluated.' }),
   spinStateProbabilities: z.record(z.string(), num).meta({ description: 'Probability of each spin state, e.g. {"high-spin": 0.99, "low-spin": 0.01}.' }),
   undetermined: z.array(z.looseObject({ parameter: z.string(), reason: z.string(), action: z.string() })).meta({
     description: 'Parameters the bands cannot fix, and what was done (fixed at the prior, or not reported).',
   }),
-  predicted: z.array(z.looseObject({ energy: num, term: z.string(), label: z.string(), spinAllowed: z.boolean() })),
-  warnings: z.array(z.string()),
-});
-
-export const analyzeResponse = z.looseObject({
-  spectrum: z.looseObject({
-    points: z.number().int(),
-    range: z.tuple([num, num]).meta({ description: 'Lowest and highest wavenumber, cm-1.' }),
-    xUnit: z.string(),
-    yUnit: z.string(),
-    masked: z.unknown(),
-  }),
-  bands: z.array(
+  window: z.looseObject({ min: num, max: num }).nullable(),
+  ligands: z.array(z.string()),
+  penalties: z.array(penalty),
+  assignments: z.array(
     z.looseObject({
-      position: num.meta({ description: 'cm-1.' }),
-      wavelength: num.meta({ description: 'nm.' }),
-      height: num,
-      epsilon: nullableNum,
-      fwhm: nullableNum,
-      area: nullableNum,
-      oscillatorStrength: nullableNum,
-      kind: z.string(),
+      ...assignmentBrief, parent: z.string(), multiplicity: z.number().int(), spinAllowed: z.boolean(),
+      bands: z.array(z.number().int()), flags: z.array(z.string()), coincident: z.array(z.string()),
     }),
   ),
+  unassigned: z.array(z.looseObject({ observed: num, band: z.number().int(), reason: z.string() })),
+  skipped: z.array(z.looseObject({ energy: num, term: z.string(), label: z.string(), reason: z.string() })),
+  alternatives: z.array(z.looseObject({
+    assignments: z.array(z.looseObject(assignmentBrief)),
+    rmsResidual: num, score: num, penalties: z.array(penalty), dq: num, tenDq: num, b: nullableNum, c: nullableNum, beta: nullableNum,
+    groundTerm: z.string(), spinState, reason: z.string(),
+    probability: num.meta({ description: 'Probability of this alternative among the solutions evaluated.' }),
+  })),
+  crossover: z.looseObject({ dqOverB: num, fittedDqOverB: num, difference: num, percent: num, near: z.boolean() }).nullable(),
+  predicted: z.array(z.looseObject({
+    energy: num, term: z.string(), label: z.string(), parent: z.string(), multiplicity: z.number().int(), spinAllowed: z.boolean(), twoElectron: z.boolean(),
+  })),
+  warnings: z.array(z.string()),
+  notes: z.array(z.string()),
+} satisfies Record<keyof FitResult, z.ZodType>;
+
+export const fitResponse = z.looseObject(fitShape);
+
+const spectrumShape = {
+  points: z.number().int(),
+  range: z.tuple([num, num]).meta({ description: 'Lowest and highest wavenumber, cm-1.' }),
+  xUnit: z.enum(X_UNITS),
+  yUnit: z.enum(Y_UNITS),
+  masked: z.array(z.looseObject({ from: num, to: num, reason: z.string() })).meta({ description: 'Ranges left out of the analysis, cm-1.' }),
+  name: z.string(),
+  column: z.number().int().meta({ description: 'The y column analysed (1-based).' }),
+  format: z.string(),
+  signalUnit: z.enum(['absorbance', 'epsilon']).meta({ description: "'epsilon' (L mol-1 cm-1) with a concentration." }),
+  noise: num.meta({ description: 'Noise standard deviation, signal unit.' }),
+  quantization: num.meta({ description: 'Rounding step of the values as read, signal unit; 0 when not rounded.' }),
+  stepCorrections: z.array(z.looseObject({})).meta({ description: 'Detector steps removed from the data.' }),
+  columns: z.array(z.looseObject({ column: z.number().int(), name: z.string() })).optional(),
+} satisfies Record<keyof AnalyzeResult['spectrum'], z.ZodType>;
+
+const bandShape = {
+  position: num.meta({ description: 'cm-1.' }),
+  wavelength: num.meta({ description: 'nm.' }),
+  height: num,
+  epsilon: nullableNum.meta({ description: 'L mol-1 cm-1, with a concentration.' }),
+  fwhm: nullableNum,
+  area: nullableNum,
+  oscillatorStrength: nullableNum,
+  kind: z.enum(['d-d', 'spin-forbidden', 'charge-transfer']),
+  positionUncertainty: num.meta({ description: 'One standard deviation of the position, cm-1.' }),
+  shoulder: z.boolean(),
+  window: z.string().meta({ description: 'Where the maximum lies relative to the measured range.' }),
+  maximumInWindow: z.boolean(),
+} satisfies Record<keyof AnalyzeResult['bands'][number], z.ZodType>;
+
+/** Every field of the core's AnalyzeResult (src/analysis.ts); the `satisfies` ties the keys to it. */
+const analyzeShape = {
+  spectrum: z.looseObject(spectrumShape),
+  bands: z.array(z.looseObject(bandShape)),
   fit: fitResponse.nullable(),
   warnings: z.array(z.string()),
-  curves: z.unknown().optional(),
+  curves: z.looseObject({
+    grid: z.array(num).meta({ description: 'Uniform grid, cm-1, ascending.' }),
+    signal: z.array(nullableNum),
+    baseline: z.array(num),
+    model: z.array(num),
+    components: z.array(z.array(num)),
+  }).optional(),
+  corrections: z.looseObject({}).optional().meta({ description: 'The corrections the fit was made with.' }),
+} satisfies Record<keyof AnalyzeResult, z.ZodType>;
+
+export const analyzeResponse = z.looseObject(analyzeShape);
+
+/** The library's summary columns (src/library/types.ts FitSummary): cm-1, sd = one standard deviation. */
+const fitSummaryShape = {
+  tenDq: nullableNum, tenDqSd: nullableNum, b: nullableNum, bSd: nullableNum, c: nullableNum,
+  beta: nullableNum, betaSd: nullableNum.meta({ description: 'Standard uncertainty of beta.' }),
+  spinState: z.string().nullable(), rmsResidual: nullableNum, status: z.string().nullable(),
+} satisfies Record<keyof FitSummary, z.ZodType>;
+const fitSummary = z.strictObject(fitSummaryShape);
+
+const original = z.looseObject({
+  fileName: z.string(),
+  sha256: z.string().meta({ description: 'Lower-case hex SHA-256 of the bytes.' }),
+  size: z.int().nonnegative().meta({ description: 'Bytes.' }),
 });
+
+const summaryShape = {
+  id: z.int().positive(),
+  sample: z.string(),
+  formula: z.string().optional(),
+  ion: z.string().optional(),
+  ligands: z.array(z.string()).optional(),
+  solvent: z.string().optional(),
+  temperature: num.optional().meta({ description: 'Kelvin.' }),
+  measuredOn: z.string().optional().meta({ description: 'YYYY-MM-DD.' }),
+  note: z.string().optional(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  original,
+  revision: z.int().positive(),
+  toolVersion: z.string(),
+  summary: fitSummary,
+} satisfies Record<keyof AnalysisSummary, z.ZodType>;
+
+const revisionShape = {
+  revision: z.int().positive(),
+  createdAt: z.string(),
+  toolVersion: z.string(),
+  options: z.looseObject({}).meta({ description: 'The analysis options of this revision.' }),
+  summary: fitSummary,
+} satisfies Record<keyof RevisionInfo, z.ZodType>;
+
+/** One stored analysis, as GET, POST, PATCH and refit answer it. */
+export const analysisRecordResponse = z.looseObject({
+  ...summaryShape,
+  options: z.looseObject({}).meta({ description: 'The analysis options of the current revision.' }),
+  result: analyzeResponse,
+  revisions: z.array(z.looseObject(revisionShape)).meta({ description: 'Every revision, oldest first; the last is the current one.' }),
+} satisfies Record<keyof AnalysisRecord, z.ZodType>);
+
+/** GET /api/v1/analyses. */
+export const listPageResponse = z.looseObject({
+  analyses: z.array(z.looseObject(summaryShape)).meta({ description: 'Newest first.' }),
+  total: z.int().nonnegative().meta({ description: 'Matching records over all pages.' }),
+  limit: z.int().positive(),
+  offset: z.int().nonnegative(),
+} satisfies Record<keyof ListPage, z.ZodType>);

@@ -12,6 +12,7 @@ import { z } from 'zod';
 import { MAX_FIT_BANDS } from '../src/fit/band-count.js';
 import { DIAGRAM_DEFAULTS } from '../src/ligand-field/index.js';
 import { PARAMETER_BOUNDS as BOUNDS } from '../src/ligand-field/parameter-bounds.js';
+import { X_UNITS, Y_UNITS } from '../src/spectrum/types.js';
 
 const geometry = z.enum(['octahedral', 'tetrahedral']).meta({
   description: 'Coordination geometry: sets the sign of the cubic field.',
@@ -137,8 +138,7 @@ export const fitBody = z
   });
 export type FitBody = z.infer<typeof fitBody>;
 
-export const X_UNITS = ['nm', 'cm-1', 'eV', 'um'] as const;
-export const Y_UNITS = ['absorbance', 'transmittance', 'transmittance-percent', 'epsilon'] as const;
+export { X_UNITS, Y_UNITS };
 
 /** Fields of POST /analyze, as query parameters or multipart form fields. */
 export const analyzeFields = z.strictObject({

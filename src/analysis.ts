@@ -7,7 +7,8 @@
 import { checkCorrections, fitWithAlternative, type AnalysisCorrections } from './analysis-corrections.js';
 import { parseFormula } from './chemistry/formula.js';
 import { FieldgapError, invalidArgument } from './errors.js';
-import { defaultBandSigma, fitBands, type BandInput, type FitResult } from './fit/index.js';
+import { bandToFitInput } from './band-fit-input.js';
+import { fitBands, type FitResult } from './fit/index.js';
 import type { Geometry } from './ligand-field/types.js';
 import { gaussianValue } from './spectrum/gaussian.js';
 import { parseSpectrumText, processSpectrum } from './spectrum/index.js';
@@ -190,27 +191,6 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
     };
   }
   return result;
-}
-
-/**
- * A found band as the fit sees it. Its position uncertainty is the spectral
- * fit's σ combined in quadrature with the fit's default σ for a band maximum
- * (max(100 cm-1, 1 %)): the maximum of a broad band is not the vertical
- * transition energy, and that model error dominates on clean data.
- */
-function bandToFitInput(band: Band): BandInput {
-  const flags: string[] = [];
-  if (band.kind === 'charge-transfer') flags.push('charge-transfer');
-  if (band.kind === 'spin-forbidden') flags.push('spin-forbidden');
-  if (band.shoulder) flags.push('shoulder');
-  const input: BandInput = {
-    position: band.position,
-    uncertainty: Math.hypot(band.positionUncertainty, defaultBandSigma(band.position)),
-    width: band.fwhm,
-    flags,
-  };
-  if (band.epsilon !== null) input.epsilon = band.epsilon;
-  return input;
 }
 
 /** The geometry guessed from a formula, or undefined (the fit reports a bad formula with its path). */

@@ -3,6 +3,7 @@
  * the service's { code, message, path } so the page can show where the
  * problem is; a network failure or a non-JSON answer gets code 'network'.
  */
+import { ANALYSIS_OPTION_NAMES as NAME } from '../src/analysis-option-names.js';
 import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult, LibraryPage, LibraryRecord, SeriesReport } from './types.js';
 import { priorFields, type FitRequest, type SampleDetails } from './state.js';
 
@@ -64,19 +65,19 @@ async function send<T>(url: string, init: RequestInit, what: string): Promise<T>
   return readJson<T>(response, what);
 }
 
-/** The query fields of POST /analyze for the sample details given. */
+/** The query fields of POST /analyze for the sample details given (names from the one table, src/analysis-option-names.ts). */
 export function analyzeQuery(details: SampleDetails): URLSearchParams {
   const query = new URLSearchParams();
   const ion = details.ion.trim();
-  if (ion !== '') query.set('ion', ion);
-  else if (details.d !== null) query.set('d', String(details.d));
-  query.set('geometry', details.geometry);
-  if (details.concentration !== null) query.set('conc', String(details.concentration));
-  if (details.pathLength !== null) query.set('path', String(details.pathLength));
-  if (details.xUnit !== null) query.set('xUnit', details.xUnit);
-  if (details.column.trim() !== '') query.set('column', details.column.trim());
-  if (details.cOverB !== null) query.set('cOverB', String(details.cOverB));
-  if (details.freeC) query.set('freeC', 'true');
+  if (ion !== '') query.set(NAME.ion.rest, ion);
+  else if (details.d !== null) query.set(NAME.d.rest, String(details.d));
+  query.set(NAME.geometry.rest, details.geometry);
+  if (details.concentration !== null) query.set(NAME.concentration.rest, String(details.concentration));
+  if (details.pathLength !== null) query.set(NAME.pathLength.rest, String(details.pathLength));
+  if (details.xUnit !== null) query.set(NAME.xUnit.rest, details.xUnit);
+  if (details.column.trim() !== '') query.set(NAME.column.rest, details.column.trim());
+  if (details.cOverB !== null) query.set(NAME.cOverB.rest, String(details.cOverB));
+  if (details.freeC) query.set(NAME.freeC.rest, 'true');
   if (details.stepCorrection === false) query.set('stepCorrection', 'false');
   const priors = priorFields(details);
   if (priors.formula !== undefined) query.set('formula', priors.formula);

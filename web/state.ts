@@ -5,7 +5,7 @@
  */
 import { parseFormula } from '../src/chemistry/formula.js';
 import { findLigand } from '../src/chemistry/ligands.js';
-import { defaultBandSigma } from '../src/fit/observations.js';
+import { bandFitSigma, bandFlagsOf } from '../src/band-fit-input.js';
 import type { AnalyzeResult, ApiErrorBody, Band, BandFlag, BandKind, FitResult, Geometry, XUnit } from './types.js';
 
 /** What the user says about the sample; sent with the analysis and stored with it. */
@@ -92,13 +92,13 @@ export function defaultDetails(): SampleDetails {
 /**
  * The σ of a found band's position as the analysis gives it to the fit: the
  * spectral fit's σ combined in quadrature with the fit's default σ for a band
- * maximum (src/analysis.ts does the same), so a refit without corrections
+ * maximum (the core rule bandFitSigma, which the analysis uses), so a refit without corrections
  * reproduces the analysis.
  */
 export function fitUncertaintyOf(band: Band): number | null {
   if (typeof band.uncertainty === 'number') return band.uncertainty;
   if (typeof band.positionUncertainty === 'number' && Number.isFinite(band.positionUncertainty)) {
-    return Math.hypot(band.positionUncertainty, defaultBandSigma(band.position));
+    return bandFitSigma(band.position, band.positionUncertainty);
   }
   return null;
 }
@@ -145,11 +145,7 @@ export function editableBandsFromCorrections(found: readonly Band[], corrected: 
 
 /** Flags the fit endpoint reads for one band. */
 export function bandFlags(band: EditableBand): BandFlag[] {
-  const flags: BandFlag[] = [];
-  if (band.kind === 'charge-transfer') flags.push('charge-transfer');
-  if (band.kind === 'spin-forbidden') flags.push('spin-forbidden');
-  if (band.shoulder) flags.push('shoulder');
-  return flags;
+  return bandFlagsOf(band);
 }
 
 export interface FitRequestBand {

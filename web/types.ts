@@ -9,11 +9,15 @@
 import type { Diagram, DiagramLine, Geometry } from '../src/ligand-field/types.js';
 import type { BandKind, XUnit } from '../src/spectrum/types.js';
 import type { BandFlag } from '../src/fit/bands.js';
+import type { ErrorCode } from '../src/errors.js';
+import type { FitResult as CoreFit, Alternative as CoreAlternative } from '../src/fit/types.js';
+import type { FitSummary } from '../src/library/types.js';
 
 export type { BandFlag, BandKind, Diagram, DiagramLine, Geometry, XUnit };
 
 export interface ApiErrorBody {
-  code: string;
+  /** The service's ErrorCode, or the page's own 'network' / 'http' when no service answer came. */
+  code: ErrorCode | 'network' | 'http' | (string & {});
   message: string;
   path: string;
 }
@@ -83,59 +87,26 @@ export interface PredictedLevel {
   spinAllowed: boolean;
 }
 
-/** The fit result: dq, tenDq, b, c in cm-1; beta = b / freeIonB. */
-export interface FitResult {
-  d: number;
-  ion?: string | null;
-  geometry: Geometry;
-  dq: number;
-  tenDq: number;
-  /** null when the bands do not determine it. */
-  b: number | null;
-  c: number | null;
-  cOverB: number | null;
-  beta: number | null;
-  freeIonB: number | null;
-  groundTerm: string;
-  spinState: string;
-  unpairedElectrons: number;
-  spinOnlyMoment: number;
-  lfse?: unknown;
-  rmsResidual: number | null;
-  status: string;
-  message?: string;
-  uncertainty: { tenDq: number | null; b: number | null; c: number | null };
-  assignments: Assignment[];
-  /** Bands the fit did not use, and why. */
-  unassigned?: { observed: number; band: number; reason: string }[];
-  alternatives?: Alternative[];
-  predicted: PredictedLevel[];
-  warnings: string[];
-  notes?: string[];
-  /** Probability of the chosen assignment among those evaluated. */
-  probability?: number;
-  /** Probability of each spin state ("high-spin", "low-spin"; "no-choice" when the ion has none). */
-  spinStateProbabilities?: Record<string, number>;
-  /** Parameters the bands cannot fix, and what the fit did about it. */
-  undetermined?: { parameter: string; reason: string; action: string }[];
-}
+/**
+ * The fit result as the page reads it: the core's FitResult (src/fit/types.ts),
+ * its names and types, with the fields an older service may lack optional.
+ * dq, tenDq, b, c in cm-1; beta = b / freeIonB.
+ */
+export type FitResult = Pick<CoreFit,
+  'd' | 'geometry' | 'dq' | 'tenDq' | 'b' | 'c' | 'cOverB' | 'beta' | 'freeIonB' | 'groundTerm' | 'spinState'
+  | 'unpairedElectrons' | 'spinOnlyMoment' | 'status' | 'warnings'>
+  & Partial<Pick<CoreFit, 'ion' | 'message' | 'betaSd' | 'unassigned' | 'notes' | 'probability' | 'spinStateProbabilities' | 'undetermined'>>
+  & {
+    rmsResidual: number | null;
+    lfse?: unknown;
+    uncertainty: Pick<CoreFit['uncertainty'], 'tenDq' | 'b' | 'c'>;
+    assignments: Assignment[];
+    alternatives?: Alternative[];
+    predicted: PredictedLevel[];
+  };
 
-/** A competing assignment the fit found close to the best one (no uncertainties). */
-export interface Alternative {
-  assignments?: Assignment[];
-  rmsResidual?: number;
-  dq?: number;
-  tenDq?: number;
-  b?: number | null;
-  c?: number | null;
-  beta?: number | null;
-  groundTerm?: string;
-  spinState?: string;
-  /** Why the best assignment was preferred to this one. */
-  reason?: string;
-  /** Probability of this assignment among those evaluated. */
-  probability?: number;
-}
+/** A competing assignment the fit found close to the best one (no uncertainties): the core's Alternative, every field optional. */
+export type Alternative = Partial<Omit<CoreAlternative, 'assignments'>> & { assignments?: Assignment[] };
 
 /** The curves behind the spectrum plot, on one uniform grid in cm-1 (ascending). */
 export interface Curves {
@@ -158,19 +129,8 @@ export interface AnalyzeResult {
   curves?: Curves;
 }
 
-/** The numbers of a stored analysis the library lists (cm-1; sd = one standard deviation). */
-export interface LibrarySummary {
-  tenDq: number | null;
-  tenDqSd: number | null;
-  b: number | null;
-  bSd: number | null;
-  c: number | null;
-  beta: number | null;
-  betaSd: number | null;
-  spinState: string | null;
-  rmsResidual: number | null;
-  status: string | null;
-}
+/** The numbers of a stored analysis the library lists (cm-1; sd = one standard deviation): the library's own FitSummary. */
+export type LibrarySummary = FitSummary;
 
 /** One row of GET /api/v1/analyses. */
 export interface LibraryRow {

@@ -17,6 +17,7 @@ import { Router, type Request } from 'express';
 import { extname } from 'node:path';
 import { z } from 'zod';
 import { checkCorrections } from '../../src/analysis-corrections.js';
+import { detailsFromFormula } from '../../src/library/formula-details.js';
 import { invalidArgument } from '../../src/errors.js';
 import { analyzeFields } from '../schemas.js';
 import type { Library } from '../../src/library/library.js';
@@ -100,11 +101,17 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
     const upload = res.locals['spectrum'] as UploadedSpectrum;
     const { sample, formula, ligands, solvent, temperature, measuredOn, note, corrections, ...analysis } = parseTextFields(analysisRecordFields, upload.fields);
     const fileName = analysis.fileName ?? upload.fileName ?? 'spectrum';
+    // The formula gives the ion, the ligands and a geometry guess the client did not give (the rule `library add --formula` uses).
+    const given = ligands !== undefined ? ligandList(ligands) : undefined;
+    const fromFormula = formula !== undefined ? detailsFromFormula(formula, { ...analysis, ligands: given }, 'formula', '"ion"') : null;
+    if (fromFormula?.ion !== undefined) analysis.ion = fromFormula.ion;
+    if (fromFormula?.geometry !== undefined) analysis.geometry = fromFormula.geometry;
+    const detailLigands = given ?? fromFormula?.ligands;
     // Checked before the (costly) analysis, so a bad date does not cost a fit.
     const details = checkDetails({
       sample: sample ?? fileName.replace(/\.[^.]*$/, ''),
       formula, solvent, temperature, measuredOn, note,
-      ...(ligands !== undefined && { ligands: ligandList(ligands) }),
+      ...(detailLigands !== undefined && { ligands: detailLigands }),
       ...(analysis.ion !== undefined && { ion: analysis.ion }),
     }) as AnalysisDetails;
     const options = toAnalyzeOptions(analysis, upload.fileName);

@@ -5,6 +5,7 @@
  */
 import { Router } from 'express';
 import type { AnalyzeOptions, AnalyzeResult } from '../../src/analysis.js';
+import { checkOneCMode } from '../../src/analysis-option-names.js';
 import { clientGoneSignal } from '../abort.js';
 import type { ComputePool } from '../pool.js';
 import { analyzeFields, type AnalyzeFields } from '../schemas.js';
@@ -44,6 +45,7 @@ export function toAnalyzeOptions(fields: AnalyzeFields, fileName: string | undef
   if (fields.ligands !== undefined) options.ligands = typeof fields.ligands === 'string' ? fields.ligands : [...fields.ligands];
   if (fields.curves !== undefined) options.curves = fields.curves;
   if (fields.stepCorrection !== undefined) options.stepCorrection = fields.stepCorrection;
+  checkOneCMode(options, 'rest');
   return options;
 }
 

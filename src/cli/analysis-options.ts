@@ -1,6 +1,6 @@
 import type { AnalyzeOptions } from '../analysis.js';
 import { parseIon } from '../chemistry/ions.js';
-import { invalidArgument } from '../errors.js';
+import { ANALYSIS_OPTION_NAMES, checkOneCMode, type AnalysisOptionKey } from '../analysis-option-names.js';
 import { GEOMETRIES } from '../ligand-field/types.js';
 import { parseXUnitOption } from '../spectrum/index.js';
 import { choiceOption, numberOption } from './options.js';
@@ -17,7 +17,7 @@ export const ANALYSIS_OPTIONS = {
   'c-over-b': { type: 'string' },
   c: { type: 'string' },
   'free-c': { type: 'boolean' },
-} as const;
+} as const satisfies Record<(typeof ANALYSIS_OPTION_NAMES)[AnalysisOptionKey]['cli'], { type: 'string' | 'boolean' }>;
 
 export const ANALYSIS_USAGE = `Analysis options:
   --ion ION         metal ion, e.g. Cr3+ or Co(II)  (or --d N, the d-electron count)
@@ -54,8 +54,6 @@ export function analysisOptionsFrom(values: AnalysisValues): AnalyzeOptions {
   const c = numberOption('c', values.c, { min: Number.MIN_VALUE });
   if (c !== undefined) options.c = c;
   if (values['free-c']) options.freeC = true;
-  if ([cOverB, c, values['free-c'] || undefined].filter((v) => v !== undefined).length > 1) {
-    throw invalidArgument('--c-over-b', 'give at most one of --c-over-b, --c and --free-c');
-  }
+  checkOneCMode(options, 'cli');
   return options;
 }

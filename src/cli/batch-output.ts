@@ -78,7 +78,7 @@ export function jsonSink(write: (text: string) => void): RowSink {
 function writeError(option: string, path: string, error: unknown): FieldgapError {
   const code = (error as NodeJS.ErrnoException).code;
   const why = code === 'EACCES' || code === 'EPERM' ? 'permission denied' : code === 'ENOSPC' ? 'the disk is full' : `cannot be written (${code ?? 'unknown error'})`;
-  return new FieldgapError('invalid-argument', `${path}: ${why}`, option);
+  return new FieldgapError(code === 'EACCES' || code === 'EPERM' ? 'permission-denied' : 'invalid-argument', `${path}: ${why}`, option);
 }
 
 /**

@@ -73,7 +73,9 @@ export function itemsOf(file: string, options: AnalyzeOptions, cwd: string, expa
     const spectra = listSpectra(content, { fileName: file, ...(options.xUnit && { xUnit: options.xUnit }) });
     if (spectra.length <= 1) return [{ file, column: undefined, label: file, content }];
     return spectra.map((s) => ({ file, column: s.column, label: `${file}#${s.column} (${s.name})`, content }));
-  } catch {
+  } catch (error) {
+    // A file that cannot be read or parsed is one failed row (analyzeItem reports why); anything else is a bug and surfaces.
+    if (!isFieldgapError(error)) throw error;
     return [{ file, column: undefined, label: file }];
   }
 }

@@ -49,8 +49,15 @@ export function readInputFile(path: string, cwd: string): Uint8Array {
   try {
     return readFileSync(resolve(cwd, path));
   } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    const why = code === 'ENOENT' ? 'no such file' : code === 'EACCES' ? 'permission denied' : code === 'EISDIR' ? 'is a folder' : 'cannot be read';
-    throw new FieldgapError('not-found', why, path);
+    throw readError(error, path);
   }
+}
+
+/** A failed read as the error that says what happened: missing (not-found), refused (permission-denied), a folder, or unreadable. */
+export function readError(error: unknown, path: string): FieldgapError {
+  const code = (error as NodeJS.ErrnoException).code;
+  if (code === 'ENOENT') return new FieldgapError('not-found', 'no such file', path);
+  if (code === 'EACCES' || code === 'EPERM') return new FieldgapError('permission-denied', 'permission denied: fieldgap may not read this file', path);
+  if (code === 'EISDIR') return new FieldgapError('invalid-argument', 'is a folder', path);
+  return new FieldgapError('parse-error', `cannot be read (${code ?? 'unknown error'})`, path);
 }

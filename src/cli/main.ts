@@ -2,8 +2,8 @@ import { isFieldgapError } from '../errors.js';
 import type { CliIo, ServiceRunner } from './command.js';
 import { commands } from './commands/index.js';
 import { pipeWriter } from './pipe-output.js';
+import { packageVersion } from '../version.js';
 
-const VERSION = '0.1.0';
 
 function helpText(): string {
   const width = Math.max(...commands.map((c) => c.name.length), 8);
@@ -33,7 +33,7 @@ export async function runCli(argv: string[], io: CliIo): Promise<number> {
     return name === undefined ? 2 : 0;
   }
   if (name === '--version' || name === '-v') {
-    io.stdout(`${VERSION}\n`);
+    io.stdout(`${packageVersion()}\n`);
     return 0;
   }
   const command = commands.find((c) => c.name === name);

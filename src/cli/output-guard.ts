@@ -93,6 +93,6 @@ export function writeOutputFile(output: Pick<OutputFile, 'option' | 'path'>, tex
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
     const why = code === 'EACCES' || code === 'EPERM' ? 'permission denied' : code === 'ENOSPC' ? 'the disk is full' : `cannot be written (${code ?? 'unknown error'})`;
-    throw new FieldgapError('invalid-argument', `${output.path}: ${why}`, output.option);
+    throw new FieldgapError(code === 'EACCES' || code === 'EPERM' ? 'permission-denied' : 'invalid-argument', `${output.path}: ${why}`, output.option);
   }
 }

@@ -21,7 +21,7 @@ import { ligandFieldStabilisation, spinOnlyMoment } from './lfse.js';
 import type { SortedObservations } from './observations.js';
 import { levelIdentityKey } from './scan.js';
 import type { FitSettings } from './settings.js';
-import { fitUncertainty } from './uncertainty.js';
+import { betaSdOf, fitUncertainty } from './uncertainty.js';
 import type {
   Alternative, AssignedBand, CrossoverInfo, FitOptions, FitResult, FitStatus, Penalty, PredictedTransition,
 } from './types.js';
@@ -270,6 +270,7 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
       tenDq: nullableRound(uncertainty.tenDq), dq: nullableRound(uncertainty.dq, 2),
       b: nullableRound(uncertainty.b), c: nullableRound(uncertainty.c),
     },
+    betaSd: betaSdOf(nullableRound(uncertainty.b), settings.b0),
     correlation: {
       bDq: nullableRound(correlation.bDq, 4), cDq: nullableRound(correlation.cDq, 4), cB: nullableRound(correlation.cB, 4),
     },

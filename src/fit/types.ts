@@ -148,6 +148,8 @@ export interface FitResult {
   evaluations: number;
   /** Standard uncertainties, cm-1; null where the quantity is not fitted. */
   uncertainty: { tenDq: number | null; dq: number | null; b: number | null; c: number | null };
+  /** Standard uncertainty of beta: uncertainty.b / freeIonB (betaSdOf in uncertainty.ts); null where either is unknown. */
+  betaSd: number | null;
   /** Correlation coefficients of the fitted parameters. */
   correlation: { bDq: number | null; cDq: number | null; cB: number | null };
   /** Deviance, −2·ln of the posterior up to a constant (likelihood.ts): lower is better. */

@@ -71,3 +71,13 @@ export function fitUncertainty(best: Evaluated, weighted: boolean): FitUncertain
     basis,
   };
 }
+
+/**
+ * Standard uncertainty of β = B/B0: sd(B)/B0, the fitted B's standard
+ * deviation carried through the ratio (the free-ion B0 is a tabulated
+ * constant). null where either is unknown. The one place this rule lives:
+ * the fit result, the library summary and the page all read it from here.
+ */
+export function betaSdOf(bSd: number | null, freeIonB: number | null): number | null {
+  return bSd !== null && freeIonB !== null && freeIonB > 0 ? bSd / freeIonB : null;
+}

@@ -1,3 +1,4 @@
+import { betaSdOf } from '../fit/uncertainty.js';
 import type { FitSummary, StoredResult } from './types.js';
 
 /**
@@ -6,8 +7,8 @@ import type { FitSummary, StoredResult } from './types.js';
  * or a fit lacking a field, gives nulls rather than an error, because the
  * library must keep whatever the pipeline returned.
  *
- * betaSd = sd(B) / free-ion B, the propagation of the fitted B's standard
- * deviation through beta = B / B(free ion) (the free-ion value is a constant).
+ * betaSd is the fit's own (FitResult.betaSd); a result stored before the fit
+ * carried it gets it from the same rule (betaSdOf).
  */
 export function summarizeResult(result: StoredResult): FitSummary {
   const fit = field(result, 'fit');
@@ -21,7 +22,7 @@ export function summarizeResult(result: StoredResult): FitSummary {
     bSd,
     c: finite(field(fit, 'c')),
     beta: finite(field(fit, 'beta')),
-    betaSd: bSd !== null && freeIonB !== null && freeIonB > 0 ? bSd / freeIonB : null,
+    betaSd: finite(field(fit, 'betaSd')) ?? betaSdOf(bSd, freeIonB),
     spinState: text(field(fit, 'spinState')),
     rmsResidual: finite(field(fit, 'rmsResidual')),
     status: text(field(fit, 'status')),

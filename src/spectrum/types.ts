@@ -12,7 +12,8 @@
  * Unit of a spectrum's x axis. 'um' is the micrometre (µm is accepted when
  * reading headers and options).
  */
-export type XUnit = 'nm' | 'cm-1' | 'eV' | 'um';
+export const X_UNITS = ['nm', 'cm-1', 'eV', 'um'] as const;
+export type XUnit = (typeof X_UNITS)[number];
 
 /**
  * Unit of a spectrum's y axis.
@@ -21,7 +22,8 @@ export type XUnit = 'nm' | 'cm-1' | 'eV' | 'um';
  * - 'transmittance-percent': T in percent 0..100;
  * - 'epsilon': molar (decadic) absorptivity ε in L mol-1 cm-1.
  */
-export type YUnit = 'absorbance' | 'transmittance' | 'transmittance-percent' | 'epsilon';
+export const Y_UNITS = ['absorbance', 'transmittance', 'transmittance-percent', 'epsilon'] as const;
+export type YUnit = (typeof Y_UNITS)[number];
 
 /** One spectrum as read from a file, in the file's own units and order. */
 export interface Spectrum {

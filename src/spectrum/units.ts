@@ -7,13 +7,13 @@
  * (806 554.3937 m-1, exact in the 2019 SI) expressed in cm-1.
  */
 import { invalidArgument } from '../errors.js';
-import type { XUnit } from './types.js';
+import { X_UNITS, type XUnit } from './types.js';
 
 /** Wavenumber of one electronvolt, cm-1 (CODATA 2018). */
 export const CM1_PER_EV = 8065.543937;
 
-/** The x units fieldgap reads, in the order they are listed in messages. */
-export const X_UNITS: readonly XUnit[] = ['nm', 'cm-1', 'eV', 'um'];
+/** The x units fieldgap reads, in the order they are listed in messages (defined once, in types.ts). */
+export { X_UNITS };
 
 /** Converts one x value in `unit` to cm-1. Wavelengths must be > 0. */
 export function valueToWavenumber(value: number, unit: XUnit): number {

@@ -8,6 +8,7 @@ import { safeFileStem } from '../format.js';
 import type { AnalysisEntry } from '../state.js';
 import { shownFit } from '../state.js';
 import type { Diagram, FitResult } from '../types.js';
+import { cOverBOfFit } from '../../src/band-fit-input.js';
 import { PlotFrame } from '../plots/frame.js';
 import type { PlotSpec } from '../plots/spec.js';
 import { svgFromSpec } from '../plots/svg.js';
@@ -164,11 +165,8 @@ function fittedDqOverB(fit: FitResult): number | null {
   return fit.b !== null && fit.b > 0 ? fit.dq / fit.b : null;
 }
 
-/** C/B used by the analysis when the fit reports none (src/analysis.ts: free-ion ratio, else 4.5). */
-const FALLBACK_C_OVER_B = 4.5;
-
 function diagramKey(fit: FitResult): api.DiagramQuery {
-  const cOverB = fit.cOverB ?? (fit.b !== null && fit.c !== null && fit.b > 0 ? fit.c / fit.b : FALLBACK_C_OVER_B);
+  const cOverB = cOverBOfFit(fit);
   return { d: fit.d, geometry: fit.geometry, cOverB: Number(cOverB.toFixed(3)), maxDqOverB: diagramRangeFor(fittedDqOverB(fit) ?? 0), steps: 160 };
 }
 

@@ -47,14 +47,13 @@ function previously(now: number | null, before: number | null | undefined, decim
 
 export function parameterCards(fit: FitResult, original: FitResult | null): HTMLElement {
   const u = fit.uncertainty;
-  const betaUncertainty = u.b !== null && fit.freeIonB !== null && fit.freeIonB > 0 ? u.b / fit.freeIonB : null;
   return h(
     'div',
     { class: 'cards', id: 'parameters' },
     card('p-tendq', '10Dq', formatWithUncertainty(fit.tenDq, u.tenDq), UNIT.wavenumber, previously(fit.tenDq, original?.tenDq, 0)),
     card('p-b', 'Racah B', formatWithUncertainty(fit.b, u.b), UNIT.wavenumber, previously(fit.b, original?.b, 0)),
     card('p-c', 'Racah C', formatWithUncertainty(fit.c, u.c), UNIT.wavenumber, `C/B = ${formatNumber(fit.cOverB, 2)}`),
-    card('p-beta', 'β = B/B(free ion)', fit.beta === null ? '—' : formatWithUncertainty(fit.beta, betaUncertainty, 2), '', fit.freeIonB === null ? 'free-ion B not known for this ion' : `free-ion B = ${formatNumber(fit.freeIonB)} ${UNIT.wavenumber}`),
+    card('p-beta', 'β = B/B(free ion)', fit.beta === null ? '—' : formatWithUncertainty(fit.beta, fit.betaSd ?? null, 2), '', fit.freeIonB === null ? 'free-ion B not known for this ion' : `free-ion B = ${formatNumber(fit.freeIonB)} ${UNIT.wavenumber}`),
     card('p-spin', 'Spin state', spinStateText(fit.spinState), '', fit.spinState === 'no-choice' ? `${dCountText(fit.d)} has no high-/low-spin choice · ground term ${fit.groundTerm}` : `ground term ${fit.groundTerm}`),
     card('p-unpaired', 'Unpaired electrons', String(fit.unpairedElectrons), ''),
     card('p-moment', 'Spin-only moment', formatNumber(fit.spinOnlyMoment, 2), UNIT.moment),

@@ -1,5 +1,5 @@
 import type { AnalyzeOptions } from '../../analysis.js';
-import { FieldgapError } from '../../errors.js';
+import { FieldgapError, invalidArgument } from '../../errors.js';
 import { ANALYSIS_OPTIONS, analysisOptionsFrom } from '../analysis-options.js';
 import { csvSink, jsonSink, openOutputStream, tableSink, type RowSink } from '../batch-output.js';
 import { createBatchRunner, inThreadRunner } from '../batch-pool.js';
@@ -37,7 +37,8 @@ bands, and fits 10Dq, Racah B and C to the d-d bands.
                       --ion and --geometry are not given
   --ligands L         ligands for the priors, e.g. H2O or "NH3,Cl"
   --json              print the full result as JSON (one file), or all results
-  --json FILE.json    write all results to FILE.json (batch)
+  --out FILE.json     write all results as JSON to FILE.json (batch); the old
+                      spelling --json FILE.json still works (deprecated)
   --threads N         worker threads for a batch (default: one per core;
                       1: none). Rows are printed as files finish, in order.
   --csv FILE          write the one-row-per-spectrum summary to FILE (batch):
@@ -57,6 +58,7 @@ const OPTIONS = {
   formula: { type: 'string' },
   ligands: { type: 'string' },
   csv: { type: 'string' },
+  out: { type: 'string' },
   curves: { type: 'boolean' },
   'no-step-correction': { type: 'boolean' },
 } as const;
@@ -72,7 +74,12 @@ export const analyzeCommand: Command = {
     const options = analysisOptions(values);
     const threads = numberOption('threads', values.threads, { min: 1, max: 1024, integer: true });
     const csvOutput: OutputFile | undefined = values.csv === undefined ? undefined : { option: '--csv', path: values.csv, firstLine: CSV_COLUMNS.join(',') };
-    const jsonOutput: OutputFile | undefined = json.jsonFile === undefined ? undefined : { option: '--json', path: json.jsonFile };
+    if (json.jsonFile !== undefined) {
+      if (values.out !== undefined) throw invalidArgument('--out', 'give the JSON output file once: --out FILE (--json FILE is its old spelling)');
+      io.stderr('note: --json FILE is deprecated; write --out FILE (--json alone prints JSON)\n');
+    }
+    const jsonPath = values.out ?? json.jsonFile;
+    const jsonOutput: OutputFile | undefined = jsonPath === undefined ? undefined : { option: values.out !== undefined ? '--out' : '--json', path: jsonPath };
     const outputs = [csvOutput, jsonOutput].filter((o) => o !== undefined);
     const files = inputsApartFromOutputs(expandInputPaths(positionals, io.cwd), outputs, io.cwd);
     const expand = files.length > 1 || values.column === undefined;

@@ -1,7 +1,7 @@
 import { writeFileSync } from 'node:fs';
 import { basename, extname, resolve } from 'node:path';
 import type { AnalyzeOptions } from '../../analysis.js';
-import { parseFormula } from '../../chemistry/formula.js';
+import { detailsFromFormula } from '../../library/formula-details.js';
 import { FieldgapError, invalidArgument } from '../../errors.js';
 import type { CliIo, Command } from '../command.js';
 import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analysis-options.js';
@@ -340,24 +340,14 @@ function detailsFrom(values: DetailValues, file: string): Omit<NewAnalysis, 'fil
   return details;
 }
 
-/** What --formula tells when --ion/--d, --ligands or --geometry were not given. */
+/** What --formula tells when --ion/--d, --ligands or --geometry were not given (the rule: src/library/formula-details.ts). */
 export function fillFromFormula(formula: string | undefined, options: AnalyzeOptions, details: { ion?: string; ligands?: string[] }, io: CliIo): void {
   if (formula === undefined) return;
-  const needsIon = options.ion === undefined && options.d === undefined;
-  let parsed;
-  try {
-    parsed = parseFormula(formula);
-  } catch (error) {
-    if (needsIon && error instanceof FieldgapError) throw new FieldgapError(error.code, `${error.message} (or give --ion)`, '--formula');
-    io.stderr(`note: --formula "${formula}" is kept as written; fieldgap could not read it (${(error as Error).message})\n`);
-    return;
-  }
-  if (needsIon) options.ion = parsed.metal.label;
-  if (details.ligands === undefined) details.ligands = parsed.ligands.map((l) => l.key);
-  if (options.geometry === undefined && parsed.geometry !== undefined) {
-    options.geometry = parsed.geometry;
-    io.stderr(`note: geometry ${parsed.geometry} guessed from the formula (coordination number ${parsed.coordinationNumber}); --geometry to choose\n`);
-  }
+  const found = detailsFromFormula(formula, { ...options, ligands: details.ligands }, '--formula', '--ion');
+  if (found.ion !== undefined) options.ion = found.ion;
+  if (found.ligands !== undefined) details.ligands = found.ligands;
+  if (found.geometry !== undefined) options.geometry = found.geometry;
+  for (const note of found.notes) io.stderr(`note: ${note}${note.startsWith('geometry') ? '; --geometry to choose' : ''}\n`);
 }
 
 function writeNew(target: string, data: string | Buffer, force: boolean, io: CliIo): void {
