@@ -77,6 +77,8 @@ export interface Assignment {
   /** Absent in the assignments of an alternative. */
   parent?: string;
   label?: string;
+  /** Indices of the bands behind it: two for a split pair read at their mean (absent in an alternative's). */
+  bands?: number[];
 }
 
 export interface PredictedLevel {

@@ -37,6 +37,11 @@ export const LIMITS = {
   implausible: 4,
 } as const;
 
+/** The largest separation, cm-1, at which two neighbouring bands near this mean position may be read as one split band. */
+export function splitPairLimit(meanPosition: number): number {
+  return Math.max(LIMITS.splitBandSeparation, LIMITS.splitBandFraction * meanPosition);
+}
+
 export interface ClassTransition {
   /** ids index. */
   level: number;

@@ -29,7 +29,7 @@
  */
 import { averageObservations, type Observation, type SortedObservations } from './observations.js';
 import { deviance, effectiveWeight, LIKELIHOOD, unexplainedDeviance } from './likelihood.js';
-import { LIMITS } from './penalties.js';
+import { LIMITS, splitPairLimit } from './penalties.js';
 import type { Penalty } from './types.js';
 
 /** Unflagged bands left unexplained at most (besides the half rule). */
@@ -103,7 +103,7 @@ export function unexplainedPenalty(o: Observation, context: BandContext): Penalt
 /** Whether two neighbouring unflagged bands may be read as one split band. */
 export function splitPairAllowed(a: Observation, b: Observation): boolean {
   const separation = Math.abs(b.position - a.position);
-  return separation <= Math.max(LIMITS.splitBandSeparation, LIMITS.splitBandFraction * 0.5 * (a.position + b.position));
+  return separation <= splitPairLimit(0.5 * (a.position + b.position));
 }
 
 function splitPenalty(a: Observation, b: Observation): Penalty {

@@ -9,6 +9,7 @@ import type { Assignment, Curves, MaskedRange } from '../types.js';
 import type { EditableBand } from '../state.js';
 import type { Mark, PlotSpec, SeriesSpec } from './spec.js';
 import { levelLabel } from '../format.js';
+import { splitPairLimit } from '../../src/fit/penalties.js';
 import { dataRange } from './spec.js';
 
 export type AxisUnit = 'cm-1' | 'nm';
@@ -35,7 +36,11 @@ export function toAxis(wavenumber: number, unit: AxisUnit): number {
   return unit === 'nm' ? 1e7 / wavenumber : wavenumber;
 }
 
-/** The assignment whose observed position is this band's, within 1 cm-1. */
+/**
+ * The assignment whose observed position is this band's, within 1 cm-1; else
+ * the split pair (an assignment of two bands, observed at their mean) this
+ * band is a component of: within half the fit's split limit of the mean.
+ */
 export function assignmentForBand(position: number, assignments: readonly Assignment[]): Assignment | undefined {
   let best: Assignment | undefined;
   let bestGap = 1;
@@ -44,6 +49,15 @@ export function assignmentForBand(position: number, assignments: readonly Assign
     if (gap <= bestGap) {
       best = a;
       bestGap = gap;
+    }
+  }
+  if (best !== undefined) return best;
+  let pairGap = Infinity;
+  for (const a of assignments) {
+    const gap = Math.abs(a.observed - position);
+    if ((a.bands?.length ?? 0) > 1 && gap <= 0.5 * splitPairLimit(a.observed) + 1 && gap < pairGap) {
+      best = a;
+      pairGap = gap;
     }
   }
   return best;

@@ -60,6 +60,17 @@ describe('spectrum plot data', () => {
     expect(bandCaption(band(17_500, { kind: 'spin-forbidden' }), assignments)).toBe('3T1g(F) (spin-forbidden)');
   });
 
+  it('names both components of a split pair by the assignment of the pair, and nothing beyond half the split limit', () => {
+    // One 3T1g(F) read from two maxima 1 622 cm-1 apart, observed at their mean (the fit's split-band reading).
+    const pair = [{ observed: 14_333, calculated: 14_333, term: '3T1g', parent: '3F', label: '3T1g(F)', bands: [0, 1] }];
+    expect(bandCaption(band(13_522), pair)).toBe('3T1g(F)');
+    expect(bandCaption(band(15_144), pair)).toBe('3T1g(F)');
+    // 1 200 cm-1 from the mean is beyond half of the 2 000 cm-1 limit: not a component of that pair.
+    expect(bandCaption(band(13_133), pair)).toBe('unassigned');
+    // A single-band assignment is matched within 1 cm-1 only, as before.
+    expect(bandCaption(band(13_522), [{ ...pair[0]!, bands: [0] }])).toBe('unassigned');
+  });
+
   it('residuals are measured minus the model, with gaps where the data are masked', () => {
     const spec = residualSpec('r', curves, 'cm-1', 'absorbance');
     expect(spec).not.toBeNull();
