@@ -6,6 +6,7 @@
 import { ANALYSIS_OPTION_NAMES as NAME } from '../src/analysis-option-names.js';
 import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult, LibraryPage, LibraryRecord, SeriesReport } from './types.js';
 import { priorFields, type FitRequest, type SampleDetails } from './state.js';
+import type { FieldLevel } from '../src/ligand-field/field-levels.js';
 
 export class ApiError extends Error {
   readonly body: ApiErrorBody;
@@ -137,17 +138,8 @@ export interface FieldLevelsQuery {
   zeta: number;
 }
 
-/** One level as GET /levels gives it with ds, dt or zeta. */
-export interface FieldLevelRow {
-  energy: number;
-  degeneracy: number;
-  irrep: string;
-  parent: string;
-  parentWeight: number;
-  term: string;
-  multiplicity: number;
-  label: string;
-}
+/** One level as GET /levels gives it with ds, dt or zeta: the engine's own type. */
+export type FieldLevelRow = FieldLevel;
 
 export interface FieldLevelsAnswer {
   group: string;

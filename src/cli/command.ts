@@ -1,3 +1,5 @@
+import { invalidArgument } from '../errors.js';
+
 /**
  * The shape every CLI command has. A command parses its own arguments (with
  * node:util parseArgs, see options.ts), does its file access, calls the pure
@@ -29,4 +31,21 @@ export interface Command {
   usage: string;
   /** Returns the exit code: 0 success, 1 some items failed (batch), 2 bad input. */
   run(argv: string[], io: CliIo): Promise<number>;
+}
+
+/** A subcommand's handler (`library add`, `users token`): the arguments after its name. */
+export type SubcommandHandler = (argv: string[], io: CliIo) => Promise<number>;
+
+/**
+ * Runs `fieldgap COMMAND SUB ...` on the handler named SUB; a missing or
+ * unknown subcommand is one usage error that lists the known ones.
+ */
+export function runSubcommand(command: string, handlers: Readonly<Record<string, SubcommandHandler>>, argv: string[], io: CliIo): Promise<number> {
+  const [sub, ...rest] = argv;
+  const handler = sub === undefined ? undefined : handlers[sub];
+  if (!handler) {
+    const what = sub === undefined ? 'a subcommand is needed' : `unknown subcommand "${sub}"`;
+    throw invalidArgument(command, `${what}: one of ${Object.keys(handlers).join(', ')} (see fieldgap ${command} --help)`);
+  }
+  return handler(rest, io);
 }

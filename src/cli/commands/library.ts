@@ -3,7 +3,7 @@ import { basename, extname, resolve } from 'node:path';
 import type { AnalyzeOptions } from '../../analysis.js';
 import { detailsFromFormula } from '../../library/formula-details.js';
 import { FieldgapError, invalidArgument } from '../../errors.js';
-import type { CliIo, Command } from '../command.js';
+import { runSubcommand, type CliIo, type Command } from '../command.js';
 import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analysis-options.js';
 import { readInputFile } from '../files.js';
 import { numberOption, parseCommandArgs } from '../options.js';
@@ -91,13 +91,7 @@ export const libraryCommand: Command = {
   summary: 'save, list, search, refit and export analyses in the results library',
   usage: USAGE,
   async run(argv, io) {
-    const [sub, ...rest] = argv;
-    const handler = sub === undefined ? undefined : SUBCOMMANDS[sub];
-    if (!handler) {
-      const what = sub === undefined ? 'a subcommand is needed' : `unknown subcommand "${sub}"`;
-      throw invalidArgument('library', `${what}: one of ${Object.keys(SUBCOMMANDS).join(', ')} (see fieldgap library --help)`);
-    }
-    return handler(rest, io);
+    return runSubcommand('library', SUBCOMMANDS, argv, io);
   },
 };
 

@@ -1,5 +1,5 @@
 import { invalidArgument } from '../../errors.js';
-import type { CliIo, Command } from '../command.js';
+import { runSubcommand, type CliIo, type Command } from '../command.js';
 import { parseCommandArgs } from '../options.js';
 import { terminalSafe } from '../terminal-text.js';
 import type { Library } from '../../library/library.js';
@@ -98,12 +98,6 @@ export const usersCommand: Command = {
   summary: "manage the library's users, groups and access tokens (for a service beyond loopback)",
   usage: USAGE,
   async run(argv, io) {
-    const [sub, ...rest] = argv;
-    const handler = sub === undefined ? undefined : SUBCOMMANDS[sub];
-    if (!handler) {
-      const what = sub === undefined ? 'a subcommand is needed' : `unknown subcommand "${sub}"`;
-      throw invalidArgument('users', `${what}: one of ${Object.keys(SUBCOMMANDS).join(', ')} (see fieldgap users --help)`);
-    }
-    return handler(rest, io);
+    return runSubcommand('users', SUBCOMMANDS, argv, io);
   },
 };
