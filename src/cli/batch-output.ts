@@ -36,10 +36,17 @@ export function tableWidths(labels: readonly string[]): number[] {
   return TABLE_KEYS.map((k) => (k === 'file' ? file : Math.max(TABLE_HEAD[k].length, usual[k] ?? 0)));
 }
 
-/** One line of the summary table (long warnings cut to 70 characters). */
+/**
+ * One row of the summary table (long warnings cut to 70 characters). A file
+ * label wider than its column (a multi-column file's "path#2 (name)", known
+ * only once the file is read) stands on a line of its own, so the values
+ * below it stay under their headings.
+ */
 export function tableLine(row: SummaryRow, widths: readonly number[]): string {
   const cells = { ...row, warnings: row.warnings.length > 70 ? `${row.warnings.slice(0, 69)}…` : row.warnings };
-  return `${TABLE_KEYS.map((k, i) => cells[k].padEnd(widths[i]!)).join('  ').trimEnd()}\n`;
+  const own = cells.file.length > widths[0]! ? `${cells.file}\n` : '';
+  if (own !== '') cells.file = '';
+  return `${own}${TABLE_KEYS.map((k, i) => cells[k].padEnd(widths[i]!)).join('  ').trimEnd()}\n`;
 }
 
 /** The summary table, its heading first. */
