@@ -107,8 +107,12 @@ const SPIN_FREE_GROUPINGS = 3;
 
 const PARAMETER_NAMES = ['Dq', 'Ds', 'Dt', 'B', 'ζ'] as const;
 
-/** Non-decreasing index lists of length k over 0..n−1 (several bands on one level), at most limit. */
-function multisets(n: number, k: number, limit: number): number[][] {
+/**
+ * Index lists of length k over 0..n−1 in lexicographic order, at most limit:
+ * non-decreasing when repeats are allowed (several bands on one level),
+ * increasing otherwise (each band on its own level).
+ */
+function indexLists(n: number, k: number, limit: number, repeats: boolean): number[][] {
   const out: number[][] = [];
   const pick: number[] = [];
   const walk = (from: number): void => {
@@ -117,28 +121,10 @@ function multisets(n: number, k: number, limit: number): number[][] {
       out.push([...pick]);
       return;
     }
-    for (let i = from; i < n; i++) {
+    const last = repeats ? n - 1 : n - (k - pick.length);
+    for (let i = from; i <= last; i++) {
       pick.push(i);
-      walk(i);
-      pick.pop();
-    }
-  };
-  walk(0);
-  return out;
-}
-
-function combinations(n: number, k: number, limit: number): number[][] {
-  const out: number[][] = [];
-  const pick: number[] = [];
-  const walk = (from: number): void => {
-    if (out.length >= limit) return;
-    if (pick.length === k) {
-      out.push([...pick]);
-      return;
-    }
-    for (let i = from; i <= n - (k - pick.length); i++) {
-      pick.push(i);
-      walk(i + 1);
+      walk(repeats ? i : i + 1);
       pick.pop();
     }
   };
@@ -297,7 +283,7 @@ export function fitTetragonal(input: TetragonalFitInput): TetragonalFitResult {
       return x;
     };
     const groupings: Array<{ chi2: number; x: Float64Array; pick: number[] }> = [];
-    for (const pick of multisets(sfCandidates.length, fitted.length, 150)) {
+    for (const pick of indexLists(sfCandidates.length, fitted.length, 150, true)) {
       const residuals = (freeX: Float64Array): Float64Array => {
         const energies = modelEnergies(spinFree, toParameters(sfFull(freeX)));
         return Float64Array.from(fitted, (band, i) => (energies.get(sfCandidates[pick[i]!]!)! - band.position) / sigmas[i]!);
@@ -339,7 +325,7 @@ export function fitTetragonal(input: TetragonalFitInput): TetragonalFitResult {
         })
         .map(([key]) => key);
       if (keys.length < bandsOf.length) return [];
-      options.push(combinations(keys.length, bandsOf.length, 50).map((pick) => pick.map((i) => keys[i]!)));
+      options.push(indexLists(keys.length, bandsOf.length, 50, false).map((pick) => pick.map((i) => keys[i]!)));
     }
     // The product of the groups' choices, bands in ascending order.
     let product: string[][] = [[]];
@@ -376,7 +362,7 @@ export function fitTetragonal(input: TetragonalFitInput): TetragonalFitResult {
       plans.push(...spinOrbitPlans(x0));
     } else {
       if (candidates.length < fitted.length) continue;
-      for (const pick of combinations(candidates.length, fitted.length, MAX_ASSIGNMENTS)) {
+      for (const pick of indexLists(candidates.length, fitted.length, MAX_ASSIGNMENTS, false)) {
         plans.push({ chosen: pick.map((i) => candidates[i]!), skipped: pick[pick.length - 1]! + 1 - pick.length, x0 });
       }
     }
