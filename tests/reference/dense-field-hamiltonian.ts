@@ -1,5 +1,5 @@
 import { condonShortleyCk } from '../../src/ligand-field/gaunt.js';
-import { allDeterminants } from './dense-hamiltonian.js';
+import { allDeterminants, annihilate, create } from './dense-hamiltonian.js';
 import { jacobiEigen } from './jacobi-eigen.js';
 
 /**
@@ -90,19 +90,6 @@ function spinOrbit(): C[][] {
   return out;
 }
 
-function annihilate(state: { mask: number; sign: number } | null, q: number): { mask: number; sign: number } | null {
-  if (!state || !(state.mask & (1 << q))) return null;
-  let below = 0;
-  for (let i = 0; i < q; i++) if (state.mask & (1 << i)) below++;
-  return { mask: state.mask & ~(1 << q), sign: below % 2 ? -state.sign : state.sign };
-}
-
-function create(state: { mask: number; sign: number } | null, p: number): { mask: number; sign: number } | null {
-  if (!state || state.mask & (1 << p)) return null;
-  let below = 0;
-  for (let i = 0; i < p; i++) if (state.mask & (1 << i)) below++;
-  return { mask: state.mask | (1 << p), sign: below % 2 ? -state.sign : state.sign };
-}
 
 function coulomb(m1: number, m2: number, m3: number, m4: number, b: number, c: number): number {
   if (m1 + m2 !== m3 + m4) return 0;

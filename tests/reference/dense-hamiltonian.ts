@@ -18,14 +18,15 @@ const ml = (p: number): number => (p % 5) - 2;
 const up = (p: number): boolean => p < 5;
 
 /** a_q then sign, or null. */
-function annihilate(state: { mask: number; sign: number } | null, q: number): { mask: number; sign: number } | null {
+export function annihilate(state: { mask: number; sign: number } | null, q: number): { mask: number; sign: number } | null {
   if (!state || !(state.mask & (1 << q))) return null;
   let below = 0;
   for (let i = 0; i < q; i++) if (state.mask & (1 << i)) below++;
   return { mask: state.mask & ~(1 << q), sign: below % 2 ? -state.sign : state.sign };
 }
 
-function create(state: { mask: number; sign: number } | null, p: number): { mask: number; sign: number } | null {
+/** a†_p then sign, or null. */
+export function create(state: { mask: number; sign: number } | null, p: number): { mask: number; sign: number } | null {
   if (!state || state.mask & (1 << p)) return null;
   let below = 0;
   for (let i = 0; i < p; i++) if (state.mask & (1 << i)) below++;
