@@ -5,15 +5,20 @@
  * 70–90 % of the free ion's value, as B is).
  *
  * Honesty about the numbers, as in the B0/C0 table (src/chemistry/free-ion.ts):
- * no handbook could be opened while this table was written. The values are
- * recalled ("from memory") from the table the usual texts reproduce
- * (Griffith, The Theory of Transition-Metal Ions, 1961, Appendix 6;
+ * most values are recalled ("from memory") from the table the usual texts
+ * reproduce (Griffith, The Theory of Transition-Metal Ions, 1961, Appendix 6;
  * Figgis & Hitchman, Ligand Field Theory and Its Applications, 2000, free-ion
  * table). A search found the modern comprehensive tabulation,
  * Bendix, Brorson & Schäffer, "Accurate empirical spin–orbit-coupling
  * parameters ζ(nd) for gaseous nd^q transition-metal ions", Inorg. Chem. 32
- * (1993) 2838–2849, but not its numbers: check against it before relying on
- * the last digit. Less certain values say so in their source.
+ * (1993) 2838–2849 (abstract only, not its numbers), and the observed levels
+ * of Fe III (NIST Atomic Spectra Database, as copied in the CHIANTI database):
+ * Fe2+ is derived from its 5D fine structure (5D4…5D0 at 0, 436.2, 738.9,
+ * 932.4, 1027.3 cm-1) in intermediate coupling, ζ = 418 cm-1 (410 was
+ * recalled); tests/chemistry/free-ion-nist.test.ts repeats the derivation.
+ * In a complex ζ is reduced: e.g. tetrahedral CoO4 in Ca3Co(SeO3)4,
+ * ζ = 500 cm-1 (Wildner, J. Solid State Chem. 124 (1996) 143–150), 94 % of the
+ * Co2+ value here. Less certain values say so in their source.
  */
 export interface FreeIonZeta {
   /** ζ(3d), cm-1. */
@@ -47,7 +52,7 @@ export const FREE_ION_ZETA: ReadonlyMap<string, FreeIonZeta> = new Map<string, F
   ['Mn2+', { zeta: 347, source: UNSURE }],
   ['Fe3+', { zeta: 460, source: UNSURE }],
   // d6
-  ['Fe2+', { zeta: 410, source: SURE }],
+  ['Fe2+', { zeta: 418, source: 'derived from the NIST Atomic Spectra Database levels of Fe III (5D4…5D0, observed column of CHIANTI fe_3.elvlc, github.com/wtbarnes/chianti-database) in intermediate coupling with B0, C0 of src/chemistry/free-ion.ts; 410 is also quoted (from memory)' }],
   ['Co3+', { zeta: 580, source: UNSURE }],
   // d7
   ['Co2+', { zeta: 533, source: SURE }],

@@ -3,17 +3,18 @@ import { freeIonRacah, FREE_ION_RACAH } from '../../src/chemistry/free-ion.js';
 import { parseIon } from '../../src/chemistry/ions.js';
 
 describe('freeIonRacah', () => {
-  // Free-ion B0 in cm-1: from memory; cf. Lever, Inorganic Electronic Spectroscopy, 2nd ed. (1984)
-  // and Figgis & Hitchman, Ligand Field Theory and Its Applications (2000), free-ion tables.
+  // Free-ion B0 in cm-1 as the table holds them: from memory; cf. Lever, Inorganic Electronic Spectroscopy, 2nd ed. (1984)
+  // and Figgis & Hitchman, Ligand Field Theory and Its Applications (2000), free-ion tables. A found table (Jolly,
+  // Modern Inorganic Chemistry, 1989, p. 411) agrees for V3+ and Cr3+ and gives lower M2+ values (its numbers are in the
+  // source strings); Fe2+, Fe3+ and Ni3+ are derived from NIST levels and checked in free-ion-nist.test.ts.
   const recalled: [string, number][] = [
     ['Ti2+', 718], // from memory (Figgis & Hitchman 2000 table)
     ['V2+', 766], // from memory (Figgis & Hitchman 2000 table)
-    ['V3+', 861], // from memory (Figgis & Hitchman 2000 table)
+    ['V3+', 861], // from memory (Figgis & Hitchman 2000 table); Jolly (1989), p. 411: 861
     ['Cr2+', 830], // from memory (Figgis & Hitchman 2000 table)
-    ['Cr3+', 918], // from memory (Figgis & Hitchman 2000 table)
+    ['Cr3+', 918], // from memory (Figgis & Hitchman 2000 table); Jolly (1989), p. 411: 918
     ['Mn2+', 960], // from memory (Figgis & Hitchman 2000 table)
     ['Mn3+', 1140], // from memory (Figgis & Hitchman 2000 table)
-    ['Fe2+', 1058], // from memory (Figgis & Hitchman 2000 table)
     ['Co2+', 1115], // from memory (Figgis & Hitchman 2000 table)
     ['Ni2+', 1041], // from memory (Figgis & Hitchman 2000 table; 1080 also quoted)
   ];
@@ -35,7 +36,7 @@ describe('freeIonRacah', () => {
       const ion = parseIon(label);
       expect(ion.d).toBeGreaterThanOrEqual(2);
       expect(ion.d).toBeLessThanOrEqual(8);
-      expect(entry.source).toMatch(/from memory/);
+      expect(entry.source).toMatch(/from memory|NIST/);
       // C/B between about 3 and 5 for free 3d ions: common practice
       expect(entry.c / entry.b).toBeGreaterThan(3);
       expect(entry.c / entry.b).toBeLessThan(5);
