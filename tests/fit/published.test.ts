@@ -1,8 +1,13 @@
 /**
  * Fits of published band maxima against the parameters derived from them in
- * the literature. None of these texts was at hand while writing: band maxima
- * and parameters are recalled, and each line says so ("from memory") and
- * names where the numbers are usually quoted from.
+ * the literature. Most texts were not at hand while writing: band maxima and
+ * parameters recalled are marked "from memory" with where they are usually
+ * quoted from. What a search found is cited beside the recalled numbers:
+ * Jørgensen's g(metal) (Modern Aspects of Ligand Field Theory, 1971,
+ * pp. 347–348, via chemprof.tripod.com/fghk.htm) is by definition 10Dq of the
+ * hexaaqua ion (f(H2O) = 1), and f·g estimates other ligands; Ballhausen's
+ * F2, F4 for [Mn(H2O)6]2+; and one measured band list with its published Dq
+ * (Ni2+ in MgO, Phys. Rev. 1958).
  *
  * Tolerances: 10Dq within 3% and B within 10% of the quoted values (the
  * quoted analyses differ from ours in C/B and in which bands they use, and
@@ -33,13 +38,15 @@ describe('fitBands on published spectra', () => {
   });
 
   it('d3 [Cr(H2O)6]3+ and [Cr(NH3)6]3+', () => {
-    // from memory: [Cr(H2O)6]3+ 17 400, 24 600 cm-1 → 10Dq = 17 400, B ≈ 725 cm-1 (Lever, Inorganic Electronic Spectroscopy, 2nd ed., 1984)
+    // from memory: [Cr(H2O)6]3+ 17 400, 24 600 cm-1 → 10Dq = 17 400, B ≈ 725 cm-1 (Lever, Inorganic Electronic Spectroscopy, 2nd ed., 1984);
+    // 10Dq confirmed: Jørgensen's g(Cr3+) = 17 400 cm-1 (Modern Aspects of Ligand Field Theory, 1971, pp. 347–348)
     const aqua = fit({ ion: 'Cr3+', bands: [17400, 24600] });
     expect(aqua.assignments.map((a) => a.label)).toEqual(['4T2g(F)', '4T1g(F)']);
     within(aqua.tenDq, 17400, 0.03);
     within(aqua.b, 725, 0.1);
     expect(aqua.lfse.dq).toBe(-12);
-    // from memory: [Cr(NH3)6]3+ 21 550, 28 500 cm-1 → 10Dq = 21 550, B ≈ 657 cm-1 (Lever, 1984)
+    // from memory: [Cr(NH3)6]3+ 21 550, 28 500 cm-1 → 10Dq = 21 550, B ≈ 657 cm-1 (Lever, 1984);
+    // Jørgensen (1971) f(NH3)·g(Cr3+) = 1.25 × 17 400 = 21 750 (an estimate, 0.9 % from 21 550)
     const ammine = fit({ ion: 'Cr(III)', bands: [21550, 28500] });
     within(ammine.tenDq, 21550, 0.03);
     within(ammine.b, 657, 0.1);
@@ -47,7 +54,10 @@ describe('fitBands on published spectra', () => {
 
   it('d5 high-spin [Mn(H2O)6]2+ from its spin-forbidden quartet bands, C free', () => {
     // from memory: 18 900 (4T1g(G)), 23 100 (4T2g(G)), 25 000 (4A1g,4Eg(G)), 28 000 (4T2g(D)), 29 700 (4Eg(D)) cm-1;
-    // B ≈ 671, C ≈ 3710, 10Dq ≈ 8500 cm-1 (cf. Lever, 1984; Figgis & Hitchman, Ligand Field Theory and Its Applications, 2000)
+    // 10Dq ≈ 8500 cm-1 (cf. Lever, 1984; Figgis & Hitchman, Ligand Field Theory and Its Applications, 2000).
+    // B and C found: Ballhausen's fit of this ion, F2 = 1200 and F4 = 106 cm-1 (quoted on
+    // https://www.ppdoc.com/periodical/3f3c46c77bc81eb81e7815cc0f322624.html), gives B = F2 − 5F4 = 670 and C = 35F4 = 3710
+    // (Racah's relations, common practice).
     const r = fit({ ion: 'Mn2+', bands: [18900, 23100, 25000, 28000, 29700], freeC: true });
     expect(r.spinState).toBe('high-spin');
     expect(r.groundTerm).toBe('6A1g');
@@ -64,7 +74,8 @@ describe('fitBands on published spectra', () => {
   });
 
   it('d6 low-spin [Co(NH3)6]3+', () => {
-    // from memory: 21 050 (1T1g), 29 550 (1T2g) cm-1 → 10Dq ≈ 22 870, B ≈ 615 cm-1 (Lever, 1984)
+    // from memory: 21 050 (1T1g), 29 550 (1T2g) cm-1 → 10Dq ≈ 22 870, B ≈ 615 cm-1 (Lever, 1984);
+    // Jørgensen (1971) f(NH3)·g(Co3+) = 1.25 × 18 200 = 22 750 (an estimate, 0.5 % from 22 870)
     const r = fit({ ion: 'Co3+', bands: [21050, 29550] });
     expect(r.spinState).toBe('low-spin');
     expect(r.groundTerm).toBe('1A1g');
@@ -77,7 +88,8 @@ describe('fitBands on published spectra', () => {
   });
 
   it('d7 high-spin [Co(H2O)6]2+, ν2 (the weak two-electron 4A2g band) not given', () => {
-    // from memory: 8 100 (4T2g), 19 400 (4T1g(P)) cm-1 → Dq = 920 (10Dq 9200), B ≈ 825 cm-1 (Lever, 1984)
+    // from memory: 8 100 (4T2g), 19 400 (4T1g(P)) cm-1 → Dq = 920 (10Dq 9200), B ≈ 825 cm-1 (Lever, 1984);
+    // Jørgensen's g(Co2+) = 9 000 cm-1 (1971), the hexaaqua ion's 10Dq in his table: 2 % below 9 200
     const r = fit({ ion: 'Co2+', bands: [8100, 19400] });
     expect(r.spinState).toBe('high-spin');
     expect(r.assignments.map((a) => a.label)).toEqual(['4T2g(F)', '4T1g(P)']);
@@ -109,17 +121,39 @@ describe('fitBands on published spectra', () => {
   });
 
   it('d8 [Ni(H2O)6]2+ and [Ni(NH3)6]2+ from three bands', () => {
-    // from memory: [Ni(H2O)6]2+ 8 500, 13 800, 25 300 cm-1 → 10Dq ≈ 8 500, B ≈ 930 cm-1 (Lever, 1984)
+    // from memory: [Ni(H2O)6]2+ 8 500, 13 800, 25 300 cm-1 → 10Dq ≈ 8 500, B ≈ 930 cm-1 (Lever, 1984);
+    // Jørgensen's g(Ni2+) = 8 700 cm-1 (1971), the hexaaqua ion's 10Dq in his table: 2.4 % above 8 500
     const aqua = fit({ ion: 'Ni2+', bands: [8500, 13800, 25300] });
     expect(aqua.assignments.map((a) => a.label)).toEqual(['3T2g(F)', '3T1g(F)', '3T1g(P)']);
     within(aqua.tenDq, 8500, 0.03);
     within(aqua.b, 930, 0.1);
     expect(aqua.status).toBe('converged');
     expect(aqua.uncertainty.b).toBeGreaterThan(0);
-    // from memory: [Ni(NH3)6]2+ 10 750, 17 500, 28 200 cm-1 → 10Dq ≈ 10 750, B ≈ 880 cm-1 (Lever, 1984)
+    // from memory: [Ni(NH3)6]2+ 10 750, 17 500, 28 200 cm-1 → 10Dq ≈ 10 750, B ≈ 880 cm-1 (Lever, 1984);
+    // Jørgensen (1971) f(NH3)·g(Ni2+) = 1.25 × 8 700 = 10 875 (an estimate, 1.2 % from 10 750)
     const ammine = fit({ ion: 'Ni2+', bands: [10750, 17500, 28200] });
     within(ammine.tenDq, 10750, 0.03);
     within(ammine.b, 880, 0.1);
+  });
+
+  // Ni2+ in MgO, a measured band list with its published analysis: "Paramagnetic and Optical Spectra of Divalent Nickel in
+  // Cubic Crystalline Fields", Phys. Rev. (1958) (W. Low, author from memory), abstract via
+  // https://preview.concepedia.online/publication/W4254481442: eight lines at 8600, 13 400, 14 800, 21 550, 24 500, 25 950,
+  // 28 300 and 34 500 cm-1, fitted with Dq = 860, E_P = 13 000 (so B ≈ 867), λ = −245 cm-1. The three spin-allowed lines
+  // (3T2g, 3T1g(F), 3T1g(P); the abstract does not say which line is which: this reading is common practice for d8).
+  const MGO_NI = [8600, 13400, 24500];
+  it('d8 Ni2+ in MgO (measured lines): the three spin-allowed bands get the spin-allowed triplet assignment', () => {
+    const r = fit({ ion: 'Ni2+', bands: MGO_NI });
+    expect(r.assignments.map((a) => a.label)).toEqual(['3T2g(F)', '3T1g(F)', '3T1g(P)']);
+    within(r.b, 867, 0.1); // E_P / 15 from the paper's fit
+    // 10Dq within 5 %: measured 8 225 (−4.4 %) on this branch, see the 3 % check below.
+    within(r.tenDq, 8600, 0.05);
+  });
+  // Fails today: with one B and C/B fixed the three lines do not fit together (rms ≈ 270 cm-1) and the least-squares
+  // moves 10Dq to 8 225, 375 cm-1 below ν1, although for d8 10Dq is ν1 itself in this model; the paper's fit frees the
+  // term energies (E_P, E_D, E_G) and adds spin–orbit coupling. Kept as a marker for the fit's owners.
+  it.fails('d8 Ni2+ in MgO: 10Dq within 3 % of the published Dq = 860', () => {
+    within(fit({ ion: 'Ni2+', bands: MGO_NI }).tenDq, 8600, 0.03);
   });
 
   it('d9 [Cu(H2O)6]2+: 10Dq from the one band, B not determinable', () => {
