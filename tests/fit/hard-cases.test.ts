@@ -30,7 +30,8 @@ function probabilitiesAddUp(r: FitResult): void {
 // from memory: [Mn(H2O)6]2+ quartet bands 18 900 (4T1g(G)), 23 100 (4T2g(G)), 25 000 (4A1g,4Eg(G)), 28 000 (4T2g(D)),
 // 29 700 (4Eg(D)) cm-1; the analysis gives 10Dq ≈ 8 500, B ≈ 671, C ≈ 3 710 cm-1 (Heidt, Koster & Johnson, "Experimental and
 // crystal field study of the absorption spectrum of manganous perchlorate", J. Am. Chem. Soc. 1958; quoted in Lever,
-// Inorganic Electronic Spectroscopy, 2nd ed., 1984).
+// Inorganic Electronic Spectroscopy, 2nd ed., 1984). B and C found: Ballhausen's F2 = 1200, F4 = 106 cm-1 for this ion
+// (quoted on https://www.ppdoc.com/periodical/3f3c46c77bc81eb81e7815cc0f322624.html) give B = F2 − 5F4 = 670, C = 35F4 = 3710.
 const MN_AQUA = [18900, 23100, 25000, 28000, 29700];
 const MN_TEN_DQ = 8500;
 
@@ -98,7 +99,8 @@ describe('hexaaqua Co(II) is high-spin', () => {
       const r = fitBands({ ion: 'Co2+', bands: '19400, 21550:sh', window: { min: 1e7 / 780, max: 1e7 / 380 }, ...extra });
       expect(r.spinState).toBe('high-spin');
       expect(r.spinStateProbabilities['high-spin']).toBeGreaterThan(0.9);
-      // The published 10Dq is about 9 300 cm-1 (Lever, 1984, from memory): a low-spin reading would give about 20 000.
+      // The published 10Dq is about 9 300 cm-1 (Lever, 1984, from memory; Jørgensen's g(Co2+) = 9 000 cm-1, the hexaaqua
+      // ion's 10Dq in Modern Aspects of Ligand Field Theory, 1971, pp. 347–348): a low-spin reading would give about 20 000.
       expect(r.tenDq).toBeLessThan(12_000);
     }
   });
@@ -190,7 +192,8 @@ describe('honest when the bands cannot fix a parameter', () => {
 
 describe('ligand priors', () => {
   it('give the Jørgensen expectation and name it', () => {
-    // Jørgensen's f(H2O) = 1, g(Ni2+) = 8 700 cm-1 (src/chemistry/jorgensen.ts, from memory of Lever 1984's table)
+    // Jørgensen's f(H2O) = 1, g(Ni2+) = 8 700 cm-1 (Modern Aspects of Ligand Field Theory, 1971, pp. 347–348, looked up:
+    // see src/chemistry/jorgensen.ts)
     const r = fitBands({ ion: 'Ni2+', bands: [13800, 25300], ligands: 'H2O' });
     expect(r.ligands).toEqual(['H2O']);
     const tenDq = r.penalties.find((p) => p.rule === 'ten-dq');

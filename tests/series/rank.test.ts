@@ -4,17 +4,19 @@ import { rankByNephelauxetic, rankByTenDq, valuesOverlap } from '../../src/serie
 import type { SeriesAnalysis } from '../../src/series/types.js';
 
 // 10Dq of octahedral Cr(III) complexes, the 4A2g → 4T2g band maximum, cm-1.
-// From memory; cf. Lever, Inorganic Electronic Spectroscopy, 2nd ed. (1984), Cr(III) tables.
+// From memory; cf. Lever, Inorganic Electronic Spectroscopy, 2nd ed. (1984), Cr(III) tables. Found cross-check beside each:
+// Jørgensen's f(L)·g(Cr3+) with g(Cr3+) = 17 400 (Modern Aspects of Ligand Field Theory, 1971, pp. 347–348; an estimate,
+// good to a few per cent): the same order except ox- and H2O, which swap (both within 2 %), and CN- lies 11 % higher).
 // ±200 cm-1 for reading the maximum of a broad band: common practice.
 const CR3: SeriesAnalysis[] = [
-  { sample: '[CrCl6]3-', ligand: 'Cl', ion: 'Cr3+', tenDq: 13600, tenDqUncertainty: 200 }, // from memory, less certain
-  { sample: '[CrF6]3-', ligand: 'F', ion: 'Cr3+', tenDq: 15200, tenDqUncertainty: 200 }, // from memory
-  { sample: '[Cr(H2O)6]3+', ligand: 'H2O', ion: 'Cr3+', tenDq: 17400, tenDqUncertainty: 200 }, // from memory
-  { sample: '[Cr(ox)3]3-', ligand: 'ox', ion: 'Cr3+', tenDq: 17500, tenDqUncertainty: 200 }, // from memory
-  { sample: '[Cr(NCS)6]3-', ligand: 'NCS', ion: 'Cr3+', tenDq: 17800, tenDqUncertainty: 200 }, // from memory
-  { sample: '[Cr(NH3)6]3+', ligand: 'NH3', ion: 'Cr3+', tenDq: 21550, tenDqUncertainty: 200 }, // from memory
-  { sample: '[Cr(en)3]3+', ligand: 'en', ion: 'Cr3+', tenDq: 21900, tenDqUncertainty: 200 }, // from memory
-  { sample: '[Cr(CN)6]3-', ligand: 'CN', ion: 'Cr3+', tenDq: 26600, tenDqUncertainty: 200 }, // from memory
+  { sample: '[CrCl6]3-', ligand: 'Cl', ion: 'Cr3+', tenDq: 13600, tenDqUncertainty: 200 }, // from memory, less certain; f·g = 13 572
+  { sample: '[CrF6]3-', ligand: 'F', ion: 'Cr3+', tenDq: 15200, tenDqUncertainty: 200 }, // from memory; f·g = 15 660
+  { sample: '[Cr(H2O)6]3+', ligand: 'H2O', ion: 'Cr3+', tenDq: 17400, tenDqUncertainty: 200 }, // Jørgensen's g(Cr3+) = 17 400 (f(H2O) = 1)
+  { sample: '[Cr(ox)3]3-', ligand: 'ox', ion: 'Cr3+', tenDq: 17500, tenDqUncertainty: 200 }, // from memory; f·g = 17 226
+  { sample: '[Cr(NCS)6]3-', ligand: 'NCS', ion: 'Cr3+', tenDq: 17800, tenDqUncertainty: 200 }, // from memory; f·g = 17 748
+  { sample: '[Cr(NH3)6]3+', ligand: 'NH3', ion: 'Cr3+', tenDq: 21550, tenDqUncertainty: 200 }, // from memory; f·g = 21 750
+  { sample: '[Cr(en)3]3+', ligand: 'en', ion: 'Cr3+', tenDq: 21900, tenDqUncertainty: 200 }, // from memory; f·g = 22 272
+  { sample: '[Cr(CN)6]3-', ligand: 'CN', ion: 'Cr3+', tenDq: 26600, tenDqUncertainty: 200 }, // from memory; f·g = 29 580
 ];
 
 /** Seeded shuffle (mulberry32), so the test does not depend on the input order. */
