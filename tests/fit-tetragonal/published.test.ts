@@ -20,7 +20,15 @@
  * Those three stay as `it.todo` until their band lists are at hand.
  */
 import { describe, expect, it } from 'vitest';
+import type { CliIo } from '../../src/cli/command.js';
+import { runCli } from '../../src/cli/main.js';
 import { fitTetragonal } from '../../src/fit-tetragonal/index.js';
+
+async function cli(argv: string[]): Promise<{ code: number; out: string }> {
+  let out = '';
+  const io: CliIo = { stdout: (t) => (out += t), stderr: () => undefined, isTty: false, cwd: process.cwd(), env: {} };
+  return { code: await runCli(argv, io), out };
+}
 
 describe('tetragonal fit on published spectra', () => {
   it('tetragonally elongated Cu(II): [Cu(en)2]S2O3, three d–d bands, published d-orbital assignment', () => {
@@ -44,6 +52,17 @@ describe('tetragonal fit on published spectra', () => {
     expect(r.status).toBe('exact');
     // Three bands, three parameters: the compressed alternative fits as well and the result says so.
     expect(r.warnings.join(' ')).toMatch(/another assignment fits as well/);
+  });
+
+  it('the same band set through `fieldgap fit --symmetry tetragonal --json`', async () => {
+    // Same source and derivation as above: Dq = 1 560, Ds = 17 800/7, Dt = (14 300 − 4·Ds)/5 cm-1.
+    const { code, out } = await cli(['fit', '--ion', 'Cu2+', '--symmetry', 'tetragonal', '--bands', '14300,15600,19100', '--json']);
+    expect(code).toBe(0);
+    const json = JSON.parse(out);
+    expect(json.dq).toBeCloseTo(1560, 0);
+    expect(json.ds).toBeCloseTo(17800 / 7, 0);
+    expect(json.dt).toBeCloseTo((14300 - (4 * 17800) / 7) / 5, 0);
+    expect(json.groundTerm).toBe('2B1g');
   });
 
   it.todo('trans-dihalo tetragonal Cr(III) or Co(III): band maxima with published Dq, Ds, Dt (not found, see the header)');

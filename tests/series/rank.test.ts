@@ -6,7 +6,7 @@ import type { SeriesAnalysis } from '../../src/series/types.js';
 // 10Dq of octahedral Cr(III) complexes, the 4A2g → 4T2g band maximum, cm-1.
 // From memory; cf. Lever, Inorganic Electronic Spectroscopy, 2nd ed. (1984), Cr(III) tables. Found cross-check beside each:
 // Jørgensen's f(L)·g(Cr3+) with g(Cr3+) = 17 400 (Modern Aspects of Ligand Field Theory, 1971, pp. 347–348; an estimate,
-// good to a few per cent): the same order except ox- and H2O, which swap (both within 2 %), and CN- lies 11 % higher).
+// good to a few per cent): the same order except ox and H2O, which swap (both within 2 %), and CN- lies 11 % higher).
 // ±200 cm-1 for reading the maximum of a broad band: common practice.
 const CR3: SeriesAnalysis[] = [
   { sample: '[CrCl6]3-', ligand: 'Cl', ion: 'Cr3+', tenDq: 13600, tenDqUncertainty: 200 }, // from memory, less certain; f·g = 13 572
