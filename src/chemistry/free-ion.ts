@@ -62,7 +62,7 @@ const NIST_FIT = (spectrum: string): string =>
   `least-squares Racah fit to all observed 3d^n terms of ${spectrum} (NIST Atomic Spectra Database levels, as copied in the Cloudy/CHIANTI data files)`;
 const NIST_CHECKED = (b: number): string => `; checked: the NIST-level fit gives B = ${b} (within 5 %)`;
 const NIST_NI4 =
-  'least-squares Racah fit to the NIST (2000) 3d7 term energies of Ni IV as tabulated in Astron. Astrophys. (2005), https://www.aanda.org/articles/aa/full/2005/24/aa2025-04/table2.html';
+  `${NIST_FIT('Ni IV')}; the NIST (2000) term energies in Astron. Astrophys. (2005), https://www.aanda.org/articles/aa/full/2005/24/aa2025-04/table2.html, give the same 4P − 4F`;
 const NIST_FE4 =
   'C0 fitted (least squares at B0 = 1015) to the quartet terms of Fe IV (NIST Atomic Spectra Database levels, observed column of CHIANTI fe_4.elvlc, github.com/wtbarnes/chianti-database)';
 

@@ -19,7 +19,8 @@
  * coupling (the engine at Dq = 0 with the table's B0, C0; the levels are
  * reproduced to a few cm-1). Changes against the recalled values: Ti3+ 154 →
  * 153, V4+ 248 → 250, Ti2+ 123 → 120, Cr4+ 327 → 323, Cr3+ 273 → 271,
- * Cr2+ 230 → 229, Fe2+ 410 → 418, Co2+ 533 → 538, Ni2+ 649 → 667.
+ * Cr2+ 230 → 229, Fe2+ 410 → 418, Co2+ 533 → 538, Ni3+ 715 → 756,
+ * Ni2+ 649 → 667.
  * tests/chemistry/free-ion-nist.test.ts repeats every derivation. The d5
  * ions (6S ground, no first-order splitting) and the ions without a level
  * list keep recalled values.
@@ -65,7 +66,7 @@ export const FREE_ION_ZETA: ReadonlyMap<string, FreeIonZeta> = new Map<string, F
   ['Co3+', { zeta: 580, source: UNSURE }],
   // d7
   ['Co2+', { zeta: 538, source: nist('Co III', '4F9/2–4F3/2 in intermediate coupling; 533 was recalled') }],
-  ['Ni3+', { zeta: 715, source: UNSURE }],
+  ['Ni3+', { zeta: 756, source: nist('Ni IV', '4F9/2–4F3/2 in intermediate coupling; 715 was recalled, less certain') }],
   // d8
   ['Ni2+', { zeta: 667, source: nist('Ni III', '3F4–3F2 in intermediate coupling; 649 was recalled') }],
   ['Cu3+', { zeta: 890, source: UNSURE }],

@@ -7,12 +7,12 @@
  * data files of the Cloudy astrophysics code ("#Reference: NIST 2013-10-01"
  * or "NIST 2014-09-16" at the foot of each file;
  * github.com/cloudy-astrophysics/cloudy_lfs, data/stout/<el>/<el>_<stage>/*.nrg:
- * ti_3, v_4, cr_5, ni_3, v_3, cr_4, mn_5, co_3, cr_3, mn_4, mn_3) and of the
+ * ti_3, ti_4, v_3, v_4, v_5, cr_3, cr_4, cr_5, mn_3, mn_4, mn_5, co_3, ni_3, ni_4) and of the
  * CHIANTI database (github.com/wtbarnes/chianti-database, fe/fe_3/fe_3.elvlc
  * and fe/fe_4/fe_4.elvlc, observed column, "Version 3 of the NIST ASD").
- * Ni IV: NIST (2000) term energies in Rydberg, as tabulated in Astron.
- * Astrophys. (2005), https://www.aanda.org/articles/aa/full/2005/24/aa2025-04/table2.html
- * (converted with R∞ = 109 737.316 cm-1, CODATA).
+ * Ni IV is confirmed by the NIST (2000) term energies in Rydberg tabulated in
+ * Astron. Astrophys. (2005), https://www.aanda.org/articles/aa/full/2005/24/aa2025-04/table2.html
+ * (with R∞ = 109 737.316 cm-1, CODATA).
  *
  * Only the levels of the 3d^n configuration are kept. Repeated terms are
  * numbered by ascending energy, as the engine numbers them ("3P1" is the
@@ -27,7 +27,6 @@ export interface ObservedIon {
   levels: readonly Level[];
 }
 
-const RYDBERG = 109737.316;
 
 export const NIST_LEVELS: Readonly<Record<string, ObservedIon>> = {
   'Ti2+': { d: 2, ground: '3F', levels: [['3F',2,0],['3F',3,184.9],['3F',4,420.4],['1D',2,8473.5],['3P',0,10538.4],['3P',1,10603.6],['3P',2,10721.2],['1G',4,14397.6],['1S',0,32475.5]] },
@@ -43,7 +42,9 @@ export const NIST_LEVELS: Readonly<Record<string, ObservedIon>> = {
   'Mn2+': { d: 5, ground: '6S', levels: [['6S',2.5,0],['4G',5.5,26824.4],['4G',4.5,26851.1],['4G',2.5,26857.8],['4G',3.5,26859.9],['4P',2.5,29167.7],['4P',1.5,29207.3],['4P',0.5,29241.4],['4D',3.5,32307.3],['4D',0.5,32368.9],['4D',2.5,32383.7],['4D',1.5,32384.7],['2I',5.5,39174.4],['2I',6.5,39176.5],['4F',4.5,43573.16],['4F',3.5,43602.5],['4F',2.5,43668.84],['4F',1.5,43674.7]] },
   'Fe3+': { d: 5, ground: '6S', levels: [['6S',2.5,0],['4G',5.5,32245.5],['4G',4.5,32292.8],['4G',2.5,32301.2],['4G',3.5,32305.7],['4P',2.5,35253.8],['4P',1.5,35333.3],['4P',0.5,35406.6],['4D',3.5,38779.4],['4D',0.5,38896.7],['4D',2.5,38935.1],['4D',1.5,38938.2],['2I',5.5,47078.6],['2I',6.5,47090.5],['4F',4.5,52620.7],['4F',3.5,52695.4],['4F',1.5,52837.1],['4F',2.5,52838.0]] },
   'Fe2+': { d: 6, ground: '5D', levels: [['5D',4,0],['5D',3,436.2],['5D',2,738.9],['5D',1,932.4],['5D',0,1027.3],['3P1',2,19404.801],['3P1',1,20688.4],['3P1',0,21208.5],['3H',6,20051.1],['3H',5,20300.801],['3H',4,20481.9],['3F1',4,21462.199],['3F1',3,21699.9],['3F1',2,21857.199],['3G',5,24558.801],['3G',4,24940.9],['3G',3,25142.4],['3D',1,30725.801],['3D',2,30716.199],['3D',3,30857.801],['3P2',0,49148],['3P2',1,49576.898],['3P2',2,50412.301],['3F2',2,50184.898],['3F2',3,50295.199],['3F2',4,50276.102]] },
-  'Ni3+': { d: 7, ground: '4F', levels: [['4F', 4.5, 0], ['4P', 2.5, 0.15664 * RYDBERG], ['2G', 4.5, 0.17473 * RYDBERG], ['2P', 1.5, 0.20805 * RYDBERG], ['2H', 5.5, 0.23661 * RYDBERG], ['2D1', 2.5, 0.24255 * RYDBERG], ['2F', 3.5, 0.38753 * RYDBERG], ['2D2', 2.5, 0.60678 * RYDBERG]] },
+  // Ni IV (Cloudy ni_4.nrg, NIST 2014-09-16); its term centroids agree with the NIST (2000) column of the A&A 2005 table
+  // (4P − 4F = 17 189 cm-1 in both).
+  'Ni3+': { d: 7, ground: '4F', levels: [['4F', 4.5, 0], ['4F', 3.5, 1189.7], ['4F', 2.5, 2042.5], ['4F', 1.5, 2621.1], ['4P', 2.5, 18118.6], ['4P', 1.5, 18366.8], ['4P', 0.5, 18958.4], ['2G', 4.5, 19829.6], ['2G', 3.5, 20947.6], ['2P', 1.5, 23648.9], ['2P', 0.5, 24651.4], ['2H', 5.5, 26649.1], ['2D1', 2.5, 27096.5], ['2H', 4.5, 27677.6], ['2D1', 1.5, 28777.7], ['2F', 2.5, 43437.5], ['2F', 3.5, 43858.6], ['2D2', 1.5, 67360.0], ['2D2', 2.5, 67989.8]] },
   // d1: one term, 2D3/2 and 2D5/2 only.
   'Ti3+': { d: 1, ground: '2D', levels: [['2D', 1.5, 0], ['2D', 2.5, 382.1]] },
   'V4+': { d: 1, ground: '2D', levels: [['2D', 1.5, 0], ['2D', 2.5, 624.87]] },
