@@ -35,8 +35,11 @@
  *     charge-transfer tail hides the near-UV end of many spectra);
  *   · inside the measured range, or between observed bands: a one-electron
  *     spin-allowed transition p = 0.003 (it is strong and must appear); a
- *     two-electron one p = 0.5 (weak); one of a spin-forbidden class (high-
- *     spin d5, whose bands are all weak) p = 0.2;
+ *     two-electron one p = 0.5 (weak); in Td one that is electric-dipole
+ *     forbidden by symmetry (Γground × Γexcited without T2: 3A2 → 3T2 of
+ *     V(III), 4A2 → 4T2 of Co(II); orbital-selection.ts) p = 0.5 (weak);
+ *     one of a spin-forbidden class (high-spin d5, whose bands are all
+ *     weak) p = 0.2;
  *   · below the lowest band when the range is not known: in the infrared
  *     (< 5000 cm-1) p = 0.3 octahedral, 1 tetrahedral; a tetrahedral ion's
  *     lowest transition below 7000 cm-1 p = 0.7; else p = 0.05.
@@ -48,7 +51,8 @@
  * - Intensities, for bands that carry ε (L mol-1 cm-1): ln ε ~ Normal(μ, 1.3)
  *   with ε_μ = 20 for octahedral spin-allowed d–d bands, 300 tetrahedral
  *   (common practice: 1–150 and 50–1 500), a tenth of that for a two-electron
- *   transition; for spin-forbidden bands 3% of the strongest spin-allowed ε
+ *   transition and for a tetrahedral one forbidden by the orbital rule (ν1 of
+ *   tetrahedral Co(II) and V(III): tens against hundreds, common practice); for spin-forbidden bands 3% of the strongest spin-allowed ε
  *   of the spectrum, or ε_μ = 0.05 octahedral / 1 tetrahedral when every band
  *   is spin-forbidden (high-spin d5). Term: ((ln ε − ln ε_μ)/1.3)².
  * Priors (common practice unless a source is named)
@@ -97,6 +101,7 @@ export const LIKELIHOOD = {
   missAboveHighest: 0.1,
   forbiddenSeen: 0.15,
   missTwoElectron: 0.5,
+  missOrbitallyForbidden: 0.5,
   missForbiddenClass: 0.2,
   missBelowOctahedral: 0.05,
   missInfraredOctahedral: 0.3,
@@ -108,6 +113,7 @@ export const LIKELIHOOD = {
   epsilonOctahedral: 20,
   epsilonTetrahedral: 300,
   epsilonTwoElectronFactor: 0.1,
+  epsilonOrbitallyForbiddenFactor: 0.1,
   forbiddenRelative: 0.03,
   epsilonForbiddenOctahedral: 0.05,
   epsilonForbiddenTetrahedral: 1,

@@ -49,6 +49,8 @@ export interface ClassTransition {
   label: string;
   energy: number;
   twoElectron: boolean;
+  /** Electric-dipole forbidden by the tetrahedral orbital rule (orbital-selection.ts): weak. */
+  orbitallyForbidden?: boolean;
 }
 
 export interface AssignedTransition {
@@ -87,6 +89,7 @@ export interface SkipOutcome {
 function missInside(t: ClassTransition, classForbidden: boolean): { p: number; why: string } {
   if (classForbidden) return { p: LIKELIHOOD.missForbiddenClass, why: 'is weak (spin-forbidden class)' };
   if (t.twoElectron) return { p: LIKELIHOOD.missTwoElectron, why: 'is a two-electron jump, expected weak' };
+  if (t.orbitallyForbidden) return { p: LIKELIHOOD.missOrbitallyForbidden, why: 'is orbitally forbidden in Td, expected weak' };
   return { p: LIKELIHOOD.missAllowed, why: 'is a strong spin-allowed transition' };
 }
 
@@ -129,6 +132,8 @@ export function skippedTransitionPenalties(context: SkipContext): SkipOutcome {
       add(`${miss.why} but no band is assigned to it${window ? ' within the measured range' : ' between the observed bands'}`, miss.p);
     } else if (t.twoElectron) {
       add('is a two-electron jump, expected weak', LIKELIHOOD.missTwoElectron);
+    } else if (t.orbitallyForbidden) {
+      add('is orbitally forbidden in Td, expected weak', LIKELIHOOD.missOrbitallyForbidden);
     } else if (t.energy < LIMITS.infrared) {
       add('lies in the infrared, below the measured range', geometry === 'tetrahedral' ? 1 : LIKELIHOOD.missInfraredOctahedral);
     } else if (geometry === 'tetrahedral' && t.energy === lowestOfClass && t.energy < LIMITS.tetrahedralLowest) {
@@ -228,7 +233,7 @@ export function plausibilityPenalties({ b, c, mode, dq, priors }: PlausibilityCo
 export interface IntensityContext {
   geometry: Geometry;
   /** Per assigned band: its ε (undefined when not given), whether its transition is spin-allowed and two-electron. */
-  bands: Array<{ position: number; epsilon: number | undefined; spinAllowed: boolean; twoElectron: boolean }>;
+  bands: Array<{ position: number; epsilon: number | undefined; spinAllowed: boolean; twoElectron: boolean; orbitallyForbidden?: boolean }>;
   /** Every band of the assignment is spin-forbidden (high-spin d5). */
   allForbidden: boolean;
 }
@@ -245,8 +250,9 @@ export function intensityPenalties({ geometry, bands, allForbidden }: IntensityC
     let mu: number;
     let kind: string;
     if (band.spinAllowed) {
-      mu = band.twoElectron ? allowedMu * L.epsilonTwoElectronFactor : allowedMu;
-      kind = band.twoElectron ? 'a two-electron band' : `a spin-allowed ${geometry} band`;
+      const weak = band.twoElectron || band.orbitallyForbidden === true;
+      mu = band.twoElectron ? allowedMu * L.epsilonTwoElectronFactor : band.orbitallyForbidden ? allowedMu * L.epsilonOrbitallyForbiddenFactor : allowedMu;
+      kind = band.twoElectron ? 'a two-electron band' : weak ? 'a band orbitally forbidden in Td' : `a spin-allowed ${geometry} band`;
     } else if (strongest !== undefined && !allForbidden) {
       mu = strongest * L.forbiddenRelative;
       kind = 'a spin-forbidden band beside the spin-allowed ones';

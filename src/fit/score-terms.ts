@@ -13,6 +13,7 @@ import {
 } from './penalties.js';
 import type { FitSettings } from './settings.js';
 import { twoElectronLevels } from './two-electron.js';
+import { orbitallyForbiddenLevels } from './orbital-selection.js';
 import { deviance, LIKELIHOOD } from './likelihood.js';
 import type { Penalty } from './types.js';
 
@@ -52,8 +53,9 @@ export function scoreTerms(input: ScoreTermsInput): ScoreTerms {
     return entry;
   });
   const ctOnset = ctOnsetOf(sorted);
+  const weak = orbitallyForbiddenLevels(scan, branch.ground);
   const skip = skippedTransitionPenalties({
-    geometry: settings.geometry, transitions, assigned, classForbidden: variant.classForbidden,
+    geometry: settings.geometry, transitions: transitions.map((t) => (weak[t.level] === 1 ? { ...t, orbitallyForbidden: true } : t)), assigned, classForbidden: variant.classForbidden,
     ...(ctOnset !== undefined ? { ctOnset } : {}), ...(settings.window ? { window: settings.window } : {}),
   });
   const priors = plausibilityPenalties({
@@ -68,6 +70,7 @@ export function scoreTerms(input: ScoreTermsInput): ScoreTerms {
       position: o.position, epsilon: o.epsilon,
       spinAllowed: scan.ids[levels[i]!]!.multiplicity === branch.multiplicity,
       twoElectron: two[levels[i]!] === 1,
+      orbitallyForbidden: weak[levels[i]!] === 1,
     })),
   });
   // A band taken by a spin-forbidden transition beside spin-allowed ones: only a few of those show at all.
