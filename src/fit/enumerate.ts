@@ -32,6 +32,15 @@ export interface Branch {
   forbidden: number[];
 }
 
+/**
+ * The branch's ground is the strong-field one: not the ground at the weakest
+ * field of the scan (low-spin d4–d7 octahedral, d3–d6 tetrahedral). False for
+ * an ion with one ground level throughout.
+ */
+export function isLowSpinBranch(scan: LevelScan, branch: Branch): boolean {
+  return branch.ground !== scan.ground[0];
+}
+
 export function scanBranches(scan: LevelScan): Branch[] {
   const branches: Branch[] = [];
   scan.ground.forEach((g, j) => {

@@ -67,7 +67,15 @@
  *   tetrahedral), σ 15% (JORGENSEN_SOURCE; the rule holds to about 10%);
  *   otherwise flat over the range the ion shows with common ligands,
  *   0.7·g … 1.75·g (f of bromide to cyanide) with σ 15% tails; no prior
- *   without g.
+ *   without g. Above the expectation or the range, a low-spin solution (its
+ *   ground is the strong-field one) has a σ of 0.41 in ln 10Dq instead: the
+ *   f·g rule underestimates the low-spin cyanide complexes of M(II) and
+ *   M(III) ions, [Fe(CN)6]3- Dq = 3 495 cm-1 against 1.75·g = 24 500
+ *   ("Bindungsverhältnisse in Prussiaten", abstract on scilit.com, looked
+ *   up) and [Fe(CN)6]4- 10Dq ≈ 33 800 against 14 875 (Lever 1984, from
+ *   memory), a factor 2.3, put at two σ (σ = ln 2.3 / 2). A low-spin
+ *   ground itself says the ligands are of that strong-field class; a
+ *   high-spin solution keeps the 15% tail.
  * - β with ligands: Gaussian around 1 − h·k (Jørgensen), σ 0.1.
  */
 
@@ -127,6 +135,7 @@ export const LIKELIHOOD = {
   cOverBSigmaHigh: 2.0,
   defaultCOverB: 4.5,
   tenDqSigma: 0.15,
+  tenDqSigmaLowSpinHigh: Math.log(2.3) / 2,
   fLow: 0.7,
   fHigh: 1.75,
   tetrahedralFactor: 4 / 9,

@@ -168,6 +168,8 @@ export interface PlausibilityContext {
   /** Dq, cm-1; the 10Dq prior is skipped without it. */
   dq?: number;
   priors: PriorSettings;
+  /** The solution's ground is the strong-field (low-spin) one: a wider 10Dq tail above (likelihood.ts). */
+  lowSpin?: boolean;
 }
 
 /** The β prior's deviance at B (flat with tails; without B0 on B itself). */
@@ -181,17 +183,26 @@ export function betaPriorDeviance(b: number, priors: PriorSettings): number {
   return term;
 }
 
-/** The 10Dq prior's deviance at Dq. */
-export function tenDqPriorDeviance(dq: number, priors: PriorSettings): number {
+/** σ of ln 10Dq above the expectation or range: wider for a low-spin solution (likelihood.ts). */
+function tenDqSigmaAbove(lowSpin: boolean): number {
+  return lowSpin ? LIKELIHOOD.tenDqSigmaLowSpinHigh : LIKELIHOOD.tenDqSigma;
+}
+
+/** The 10Dq prior's deviance at Dq; `lowSpin`: the solution's ground is the strong-field one. */
+export function tenDqPriorDeviance(dq: number, priors: PriorSettings, lowSpin = false): number {
   if (!(dq > 0)) return 0;
   const L = LIKELIHOOD;
-  if (priors.tenDqExpected !== null) return (Math.log((10 * dq) / priors.tenDqExpected) / L.tenDqSigma) ** 2;
-  if (priors.tenDqRange) return flatWithTails(Math.log(10 * dq), Math.log(priors.tenDqRange[0]), Math.log(priors.tenDqRange[1]), L.tenDqSigma, L.tenDqSigma);
+  const above = tenDqSigmaAbove(lowSpin);
+  if (priors.tenDqExpected !== null) {
+    const r = Math.log((10 * dq) / priors.tenDqExpected);
+    return (r / (r > 0 ? above : L.tenDqSigma)) ** 2;
+  }
+  if (priors.tenDqRange) return flatWithTails(Math.log(10 * dq), Math.log(priors.tenDqRange[0]), Math.log(priors.tenDqRange[1]), L.tenDqSigma, above);
   return 0;
 }
 
 /** The prior terms at (Dq, B, C): β (and β from the ligands), C/B when fitted, 10Dq. Only non-zero terms. */
-export function plausibilityPenalties({ b, c, mode, dq, priors }: PlausibilityContext): Penalty[] {
+export function plausibilityPenalties({ b, c, mode, dq, priors, lowSpin = false }: PlausibilityContext): Penalty[] {
   const penalties: Penalty[] = [];
   const L = LIKELIHOOD;
   const b0 = priors.b0;
@@ -219,11 +230,12 @@ export function plausibilityPenalties({ b, c, mode, dq, priors }: PlausibilityCo
   if (dq !== undefined && dq > 0) {
     const tenDq = 10 * dq;
     if (priors.tenDqExpected !== null) {
-      const term = (Math.log(tenDq / priors.tenDqExpected) / L.tenDqSigma) ** 2;
+      const r = Math.log(tenDq / priors.tenDqExpected);
+      const term = (r / (r > 0 ? tenDqSigmaAbove(lowSpin) : L.tenDqSigma)) ** 2;
       if (term > 0) penalties.push({ rule: 'ten-dq', amount: term, detail: `10Dq = ${Math.round(tenDq)} cm-1 against ${Math.round(priors.tenDqExpected)} expected from the ligands (${priors.ligandNote})` });
     } else if (priors.tenDqRange) {
       const [lo10, hi10] = priors.tenDqRange;
-      const term = flatWithTails(Math.log(tenDq), Math.log(lo10), Math.log(hi10), L.tenDqSigma, L.tenDqSigma);
+      const term = flatWithTails(Math.log(tenDq), Math.log(lo10), Math.log(hi10), L.tenDqSigma, tenDqSigmaAbove(lowSpin));
       if (term > 0) penalties.push({ rule: 'ten-dq', amount: term, detail: `10Dq = ${Math.round(tenDq)} cm-1 is outside ${Math.round(lo10)}–${Math.round(hi10)} cm-1, the range this ion shows with common ligands` });
     }
   }

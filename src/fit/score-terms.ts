@@ -6,7 +6,7 @@
  * cannot drift apart.
  */
 import type { GridCandidate, DqOnlyCandidate } from './candidates.js';
-import { primaryClass } from './enumerate.js';
+import { isLowSpinBranch, primaryClass } from './enumerate.js';
 import type { SortedObservations } from './observations.js';
 import {
   betaPriorDeviance, intensityPenalties, plausibilityPenalties, tenDqPriorDeviance, skippedTransitionPenalties, type ClassTransition, type SkipOutcome,
@@ -59,7 +59,7 @@ export function scoreTerms(input: ScoreTermsInput): ScoreTerms {
     ...(ctOnset !== undefined ? { ctOnset } : {}), ...(settings.window ? { window: settings.window } : {}),
   });
   const priors = plausibilityPenalties({
-    b: input.b, c: input.c, mode: settings.mode, dq: input.dq,
+    b: input.b, c: input.c, mode: settings.mode, dq: input.dq, lowSpin: isLowSpinBranch(scan, branch),
     priors: input.bDetermined ? settings.priors : { ...settings.priors, b0: null, betaExpected: null },
   }).filter((p) => input.bDetermined || p.rule === 'ten-dq');
   const two = twoElectronLevels(scan, branch.ground);
@@ -86,7 +86,7 @@ export function scoreTerms(input: ScoreTermsInput): ScoreTerms {
  * The β and 10Dq priors as a function of (B, Dq), for choosing between the
  * grid points of one assignment (profile.ts gridOptimum).
  */
-export function gridPrior(settings: FitSettings): (b: number, dq: number) => number {
+export function gridPrior(settings: FitSettings): (b: number, dq: number, lowSpin?: boolean) => number {
   const priors = settings.priors;
-  return (b, dq) => betaPriorDeviance(b, priors) + tenDqPriorDeviance(dq, priors);
+  return (b, dq, lowSpin = false) => betaPriorDeviance(b, priors) + tenDqPriorDeviance(dq, priors, lowSpin);
 }
