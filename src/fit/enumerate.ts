@@ -41,6 +41,19 @@ export function isLowSpinBranch(scan: LevelScan, branch: Branch): boolean {
   return branch.ground !== scan.ground[0];
 }
 
+/**
+ * Every band of this branch is spin-forbidden and depends on C: high-spin d5,
+ * whose quartets all do (octahedral 4A1g, 4Eg(G) at 10B + 5C and 4Eg(D) at
+ * 17B + 5C fix B and C by themselves, the usual analysis of Mn(II) and
+ * Fe(III) spectra, common practice). Such a band list estimates C/B rather
+ * than assuming the free ion's, which complexes of these ions exceed
+ * (hexaaqua Mn(II): C/B ≈ 5.5 against 3.5 for the free ion; Lever 1984,
+ * from memory).
+ */
+export function everyBandSetsC(branch: Branch): boolean {
+  return branch.allowed.length === 0 && branch.forbidden.length > 0;
+}
+
 export function scanBranches(scan: LevelScan): Branch[] {
   const branches: Branch[] = [];
   scan.ground.forEach((g, j) => {
@@ -88,6 +101,41 @@ function lowestAt(scan: LevelScan, j: number, levels: number[], limit: number): 
 }
 
 const tables = new WeakMap<LevelScan, Map<string, AssignmentTable>>();
+const twins = new WeakMap<LevelScan, Int32Array>();
+
+/**
+ * For each level, the lowest ids index whose energy equals it at every point
+ * of the scan (itself when none): levels degenerate at every field, such as
+ * 4A1g and 4Eg(G) of d5, both at 10B + 5C in the cubic model. One band may
+ * lie on both; two distinct bands given one each are two maxima of one
+ * position of the model, scored as a split band (score-terms.ts).
+ */
+export function degenerateTwins(scan: LevelScan): Int32Array {
+  const hit = twins.get(scan);
+  if (hit) return hit;
+  const n = scan.ids.length;
+  const nx = scan.x.length;
+  const same = (a: number, b: number): boolean => {
+    for (let j = 0; j < nx; j++) {
+      const ea = scan.energies[j * n + a]!;
+      const eb = scan.energies[j * n + b]!;
+      if (!(Math.abs(ea - eb) <= 1e-7 * Math.max(1, Math.abs(ea)))) return false;
+    }
+    return true;
+  };
+  const out = Int32Array.from({ length: n }, (_, k) => k);
+  for (let k = 0; k < n; k++) {
+    for (let r = 0; r < k; r++) {
+      if (out[r] === r && scan.ids[r]!.multiplicity === scan.ids[k]!.multiplicity && same(r, k)) {
+        out[k] = r;
+        break;
+      }
+    }
+  }
+  twins.set(scan, out);
+  return out;
+}
+
 
 /**
  * All order-consistent assignments of nPrimary unflagged bands to the

@@ -51,6 +51,7 @@ import { freeCStart } from './free-c-start.js';
 import { candidateOnScan } from './move-candidate.js';
 import { evaluateDqOnly, evaluateGridCandidate, type Evaluated } from './evaluate.js';
 import { evaluateOnScan } from './evaluate-scan.js';
+import { everyBandSetsC } from './enumerate.js';
 import { sortObservations, type SortedObservations } from './observations.js';
 import { alternativeMargin, buildFitResult } from './result.js';
 import { cachedLevelScan } from './scan.js';
@@ -355,13 +356,14 @@ export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
     }
   } else if (settings.mode === 'ratio' && !settings.cOverBGiven && evaluated[0] && evaluated[0].bDetermined
     && sorted.primary.length + sorted.flagged.length >= AUTO_FREE_C_MIN_BANDS
-    && (poorFit(polished(evaluated[0], settings, sorted)) || evaluated[0].candidate.variant.touchesUnflagged
+    && (poorFit(polished(evaluated[0], settings, sorted)) || everyBandSetsC(evaluated[0].candidate.branch) || evaluated[0].candidate.variant.touchesUnflagged
       || evaluated[0].candidate.variant.dropped.length > 0)) {
     // Enough bands to estimate C/B (with its prior), and the assumed C/B fits them poorly or only by leaving
     // bands out: every band explained with C/B estimated is tried, and kept when it explains the bands better
     // by more than the cost of the extra parameter (ln m in −2·ln units, BIC-like).
     const free = { ...settings, mode: 'free' as const };
-    const alternative = evaluateAll(free, sorted, FREE_C_COARSE_RATIOS, true);
+    // High-spin d5: C/B is estimated from the bands as a rule, so the reductions are tried with it as well.
+    const alternative = evaluateAll(free, sorted, FREE_C_COARSE_RATIOS, !everyBandSetsC(evaluated[0].candidate.branch));
     const top = alternative[0] && polished(alternative[0], free, sorted);
     const m = sorted.primary.length + sorted.flagged.length;
     const ratioBest = polished(evaluated[0], settings, sorted);

@@ -6,7 +6,7 @@
  * cannot drift apart.
  */
 import type { GridCandidate, DqOnlyCandidate } from './candidates.js';
-import { isLowSpinBranch, primaryClass } from './enumerate.js';
+import { degenerateTwins, isLowSpinBranch, primaryClass } from './enumerate.js';
 import type { SortedObservations } from './observations.js';
 import {
   betaPriorDeviance, intensityPenalties, plausibilityPenalties, tenDqPriorDeviance, skippedTransitionPenalties, type ClassTransition, type SkipOutcome,
@@ -79,7 +79,32 @@ export function scoreTerms(input: ScoreTermsInput): ScoreTerms {
       rule: 'forbidden-band' as const, amount: deviance(LIKELIHOOD.forbiddenSeen),
       detail: `the band at ${Math.round(o.position)} cm-1 is taken as the spin-forbidden ${scan.ids[levels[i]!]!.label}, one of many weak transitions that seldom show`,
     }]);
-  return { ...skip, penalties: [...skip.penalties, ...priors, ...intensity, ...forbidden] };
+  return { ...skip, penalties: [...skip.penalties, ...priors, ...intensity, ...forbidden, ...twinPenalties(scan, observations, levels)] };
+}
+
+/**
+ * Two bands given to levels that are degenerate at every field (4A1g and
+ * 4Eg(G) of d5): the model has one position for both, so the pair is two
+ * maxima of one band and costs what reading them as a split band costs
+ * (likelihood.ts): −2·ln 0.1 + (Δ/1500 cm-1)². Without it the model error
+ * lets two separate bands sit on one calculated energy almost free.
+ */
+function twinPenalties(scan: GridCandidate['scan'], observations: ReadonlyArray<{ position: number }>, levels: Int32Array): Penalty[] {
+  const twin = degenerateTwins(scan);
+  const out: Penalty[] = [];
+  for (let i = 0; i < observations.length; i++) {
+    for (let k = i + 1; k < observations.length; k++) {
+      const a = levels[i]!;
+      const b = levels[k]!;
+      if (a === b || twin[a] !== twin[b]) continue;
+      const gap = Math.abs(observations[i]!.position - observations[k]!.position);
+      out.push({
+        rule: 'split-band', amount: deviance(LIKELIHOOD.splitPair) + (gap / LIKELIHOOD.splitScale) ** 2,
+        detail: `${Math.round(observations[i]!.position)} and ${Math.round(observations[k]!.position)} cm-1 go to ${scan.ids[a]!.label} and ${scan.ids[b]!.label}, which the model puts at one energy: two maxima of one band`,
+      });
+    }
+  }
+  return out;
 }
 
 /**
