@@ -41,19 +41,6 @@ export function isLowSpinBranch(scan: LevelScan, branch: Branch): boolean {
   return branch.ground !== scan.ground[0];
 }
 
-/**
- * Every band of this branch is spin-forbidden and depends on C: high-spin d5,
- * whose quartets all do (octahedral 4A1g, 4Eg(G) at 10B + 5C and 4Eg(D) at
- * 17B + 5C fix B and C by themselves, the usual analysis of Mn(II) and
- * Fe(III) spectra, common practice). Such a band list estimates C/B rather
- * than assuming the free ion's, which complexes of these ions exceed
- * (hexaaqua Mn(II): C/B ≈ 5.5 against 3.5 for the free ion; Lever 1984,
- * from memory).
- */
-export function everyBandSetsC(branch: Branch): boolean {
-  return branch.allowed.length === 0 && branch.forbidden.length > 0;
-}
-
 export function scanBranches(scan: LevelScan): Branch[] {
   const branches: Branch[] = [];
   scan.ground.forEach((g, j) => {

@@ -51,11 +51,10 @@ import { freeCStart } from './free-c-start.js';
 import { candidateOnScan } from './move-candidate.js';
 import { evaluateDqOnly, evaluateGridCandidate, type Evaluated } from './evaluate.js';
 import { evaluateOnScan } from './evaluate-scan.js';
-import { everyBandSetsC } from './enumerate.js';
 import { sortObservations, type SortedObservations } from './observations.js';
 import { alternativeMargin, buildFitResult } from './result.js';
 import { cachedLevelScan } from './scan.js';
-import { resolveFitSettings, type FitSettings } from './settings.js';
+import { estimatesCByDefault, resolveFitSettings, type FitSettings } from './settings.js';
 import type { FitInput, FitOptions, FitResult, Penalty } from './types.js';
 
 /** Grid candidates refined with the full engine (besides the best of each spin branch). */
@@ -338,6 +337,11 @@ export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
   const sorted = sortObservations(bands);
   const warnings: string[] = [];
   const notes: string[] = [...settings.notes];
+  const byDefault = estimatesCByDefault(settings, sorted.primary.length + sorted.flagged.length, AUTO_FREE_C_MIN_BANDS);
+  if (byDefault) {
+    settings = { ...settings, mode: 'free' };
+    notes.push(byDefault);
+  }
   const undetermined: FitResult['undetermined'] = [];
   let evaluated = evaluateAll(settings, sorted, scanRatios(settings));
   if (settings.mode === 'fixed' && evaluated[0]?.bDetermined) {
@@ -356,14 +360,13 @@ export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
     }
   } else if (settings.mode === 'ratio' && !settings.cOverBGiven && evaluated[0] && evaluated[0].bDetermined
     && sorted.primary.length + sorted.flagged.length >= AUTO_FREE_C_MIN_BANDS
-    && (poorFit(polished(evaluated[0], settings, sorted)) || everyBandSetsC(evaluated[0].candidate.branch) || evaluated[0].candidate.variant.touchesUnflagged
+    && (poorFit(polished(evaluated[0], settings, sorted)) || evaluated[0].candidate.variant.touchesUnflagged
       || evaluated[0].candidate.variant.dropped.length > 0)) {
     // Enough bands to estimate C/B (with its prior), and the assumed C/B fits them poorly or only by leaving
     // bands out: every band explained with C/B estimated is tried, and kept when it explains the bands better
     // by more than the cost of the extra parameter (ln m in −2·ln units, BIC-like).
     const free = { ...settings, mode: 'free' as const };
-    // High-spin d5: C/B is estimated from the bands as a rule, so the reductions are tried with it as well.
-    const alternative = evaluateAll(free, sorted, FREE_C_COARSE_RATIOS, !everyBandSetsC(evaluated[0].candidate.branch));
+    const alternative = evaluateAll(free, sorted, FREE_C_COARSE_RATIOS, true);
     const top = alternative[0] && polished(alternative[0], free, sorted);
     const m = sorted.primary.length + sorted.flagged.length;
     const ratioBest = polished(evaluated[0], settings, sorted);
