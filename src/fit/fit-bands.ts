@@ -337,7 +337,7 @@ export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
   const sorted = sortObservations(bands);
   const warnings: string[] = [];
   const notes: string[] = [...settings.notes];
-  const byDefault = estimatesCByDefault(settings, sorted.primary.length + sorted.flagged.length, AUTO_FREE_C_MIN_BANDS);
+  const byDefault = estimatesCByDefault(settings, sorted.primary.length + sorted.flagged.length);
   if (byDefault) {
     settings = { ...settings, mode: 'free' };
     notes.push(byDefault);
