@@ -55,6 +55,13 @@
  *   tetrahedral Co(II) and V(III): tens against hundreds, common practice); for spin-forbidden bands 3% of the strongest spin-allowed ε
  *   of the spectrum, or ε_μ = 0.05 octahedral / 1 tetrahedral when every band
  *   is spin-forbidden (high-spin d5). Term: ((ln ε − ln ε_μ)/1.3)².
+ * - Assignment prior: the spin states (branches) are a priori equally
+ *   probable and each shares its probability evenly among its N order-
+ *   consistent assignments of the bands, so one costs 2·ln N (score-terms.ts;
+ *   an Occam factor: a branch dense in levels may not win by its number of
+ *   chances).
+ * - Two bands on levels degenerate at every field (4A1g, 4Eg(G) of d5): as a
+ *   split band, −2·ln 0.1 + (Δ/1500 cm-1)².
  * Priors (common practice unless a source is named)
  * - β = B/B0 flat on [0.35, 1.0], half-Gaussian tails of σ 0.04 above and
  *   0.035 below (without B0: B flat on [150, 1250] cm-1, tails of 50 and

@@ -6,7 +6,7 @@
  * cannot drift apart.
  */
 import type { GridCandidate, DqOnlyCandidate } from './candidates.js';
-import { degenerateTwins, isLowSpinBranch, primaryClass } from './enumerate.js';
+import { degenerateTwins, enumerateAssignments, isLowSpinBranch, primaryClass } from './enumerate.js';
 import type { SortedObservations } from './observations.js';
 import {
   betaPriorDeviance, intensityPenalties, plausibilityPenalties, tenDqPriorDeviance, skippedTransitionPenalties, type ClassTransition, type SkipOutcome,
@@ -79,7 +79,23 @@ export function scoreTerms(input: ScoreTermsInput): ScoreTerms {
       rule: 'forbidden-band' as const, amount: deviance(LIKELIHOOD.forbiddenSeen),
       detail: `the band at ${Math.round(o.position)} cm-1 is taken as the spin-forbidden ${scan.ids[levels[i]!]!.label}, one of many weak transitions that seldom show`,
     }]);
-  return { ...skip, penalties: [...skip.penalties, ...priors, ...intensity, ...forbidden, ...twinPenalties(scan, observations, levels)] };
+  return { ...skip, penalties: [...skip.penalties, ...priors, ...intensity, ...forbidden, ...twinPenalties(scan, observations, levels), ...assignmentPrior(candidate)] };
+}
+
+/**
+ * The prior of one assignment within its spin state: each spin state (branch)
+ * is a priori as probable as the other, and its N order-consistent
+ * assignments of these bands share that probability evenly, so one costs
+ * 2·ln N. Without it a branch dense in levels (the doublets of low-spin
+ * Co(II), the quartets of low-spin d4) finds a level within the model error
+ * of any band and wins by the number of its chances, not by its fit.
+ */
+function assignmentPrior(candidate: GridCandidate | DqOnlyCandidate): Penalty[] {
+  if (candidate.kind !== 'grid') return [];
+  const { scan, branch, variant } = candidate;
+  const n = enumerateAssignments(scan, branch, variant.nPrimary, variant.observations.length - variant.nPrimary).count;
+  if (n <= 1) return [];
+  return [{ rule: 'assignments', amount: 2 * Math.log(n), detail: `one of ${n} ways to assign these bands in this spin state` }];
 }
 
 /**
