@@ -15,7 +15,7 @@
  *   unflagged bands (only flagged ones may be left for it).
  */
 import type { Branch } from './enumerate.js';
-import { enumerateAssignments, primaryClass, scanBranches, type AssignmentTable } from './enumerate.js';
+import { enumerateAssignments, isLowSpinBranch, primaryClass, scanBranches, type AssignmentTable } from './enumerate.js';
 import { averageObservations, type Observation, type SortedObservations } from './observations.js';
 import type { Reduction } from './reductions.js';
 import { LIMITS, penaltyTotal, type ClassTransition } from './penalties.js';
@@ -173,7 +173,7 @@ export function candidateGroups(
   scan: LevelScan,
   reduction: Reduction,
   p: number,
-  prior?: (b: number, dq: number) => number,
+  prior?: (b: number, dq: number, lowSpin?: boolean) => number,
 ): { groups: CandidateGroup[]; dqOnly: DqOnlyCandidate[] } {
   // Reduced band lists are many and only need to find a winner: a coarse pass over the grid first.
   const stride = reduction.penalty > 0 ? REDUCED_GRID_STRIDE : 1;
@@ -182,6 +182,8 @@ export function candidateGroups(
   for (const branch of scanBranches(scan)) {
     const variant = branchVariant(branch, reduction);
     if (variant) {
+      const strongField = isLowSpinBranch(scan, branch);
+      const branchPrior = prior && ((b: number, dq: number) => prior(b, dq, strongField));
       const m = variant.observations.length;
       if (m === 0) continue;
       if (m < p) {
@@ -201,7 +203,7 @@ export function candidateGroups(
       };
       const work = new Float64Array(m);
       for (let a = 0; a < table.count; a++) {
-        const solution = gridOptimum(scan, branch, table, a, o, w, work, stride, prior);
+        const solution = gridOptimum(scan, branch, table, a, o, w, work, stride, branchPrior);
         if (!solution) continue;
         group.wrms[a] = solution.ssr + variantPenalty;
         group.point[a] = solution.point;

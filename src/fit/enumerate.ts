@@ -32,6 +32,15 @@ export interface Branch {
   forbidden: number[];
 }
 
+/**
+ * The branch's ground is the strong-field one: not the ground at the weakest
+ * field of the scan (low-spin d4–d7 octahedral, d3–d6 tetrahedral). False for
+ * an ion with one ground level throughout.
+ */
+export function isLowSpinBranch(scan: LevelScan, branch: Branch): boolean {
+  return branch.ground !== scan.ground[0];
+}
+
 export function scanBranches(scan: LevelScan): Branch[] {
   const branches: Branch[] = [];
   scan.ground.forEach((g, j) => {
@@ -79,6 +88,41 @@ function lowestAt(scan: LevelScan, j: number, levels: number[], limit: number): 
 }
 
 const tables = new WeakMap<LevelScan, Map<string, AssignmentTable>>();
+const twins = new WeakMap<LevelScan, Int32Array>();
+
+/**
+ * For each level, the lowest ids index whose energy equals it at every point
+ * of the scan (itself when none): levels degenerate at every field, such as
+ * 4A1g and 4Eg(G) of d5, both at 10B + 5C in the cubic model. One band may
+ * lie on both; two distinct bands given one each are two maxima of one
+ * position of the model, scored as a split band (score-terms.ts).
+ */
+export function degenerateTwins(scan: LevelScan): Int32Array {
+  const hit = twins.get(scan);
+  if (hit) return hit;
+  const n = scan.ids.length;
+  const nx = scan.x.length;
+  const same = (a: number, b: number): boolean => {
+    for (let j = 0; j < nx; j++) {
+      const ea = scan.energies[j * n + a]!;
+      const eb = scan.energies[j * n + b]!;
+      if (!(Math.abs(ea - eb) <= 1e-7 * Math.max(1, Math.abs(ea)))) return false;
+    }
+    return true;
+  };
+  const out = Int32Array.from({ length: n }, (_, k) => k);
+  for (let k = 0; k < n; k++) {
+    for (let r = 0; r < k; r++) {
+      if (out[r] === r && scan.ids[r]!.multiplicity === scan.ids[k]!.multiplicity && same(r, k)) {
+        out[k] = r;
+        break;
+      }
+    }
+  }
+  twins.set(scan, out);
+  return out;
+}
+
 
 /**
  * All order-consistent assignments of nPrimary unflagged bands to the

@@ -54,7 +54,7 @@ import { evaluateOnScan } from './evaluate-scan.js';
 import { sortObservations, type SortedObservations } from './observations.js';
 import { alternativeMargin, buildFitResult } from './result.js';
 import { cachedLevelScan } from './scan.js';
-import { resolveFitSettings, type FitSettings } from './settings.js';
+import { estimatesCByDefault, resolveFitSettings, type FitSettings } from './settings.js';
 import type { FitInput, FitOptions, FitResult, Penalty } from './types.js';
 
 /** Grid candidates refined with the full engine (besides the best of each spin branch). */
@@ -337,6 +337,11 @@ export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
   const sorted = sortObservations(bands);
   const warnings: string[] = [];
   const notes: string[] = [...settings.notes];
+  const byDefault = estimatesCByDefault(settings, sorted.primary.length + sorted.flagged.length);
+  if (byDefault) {
+    settings = { ...settings, mode: 'free' };
+    notes.push(byDefault);
+  }
   const undetermined: FitResult['undetermined'] = [];
   let evaluated = evaluateAll(settings, sorted, scanRatios(settings));
   if (settings.mode === 'fixed' && evaluated[0]?.bDetermined) {

@@ -35,8 +35,11 @@
  *     charge-transfer tail hides the near-UV end of many spectra);
  *   · inside the measured range, or between observed bands: a one-electron
  *     spin-allowed transition p = 0.003 (it is strong and must appear); a
- *     two-electron one p = 0.5 (weak); one of a spin-forbidden class (high-
- *     spin d5, whose bands are all weak) p = 0.2;
+ *     two-electron one p = 0.5 (weak); in Td one that is electric-dipole
+ *     forbidden by symmetry (Γground × Γexcited without T2: 3A2 → 3T2 of
+ *     V(III), 4A2 → 4T2 of Co(II); orbital-selection.ts) p = 0.5 (weak);
+ *     one of a spin-forbidden class (high-spin d5, whose bands are all
+ *     weak) p = 0.2;
  *   · below the lowest band when the range is not known: in the infrared
  *     (< 5000 cm-1) p = 0.3 octahedral, 1 tetrahedral; a tetrahedral ion's
  *     lowest transition below 7000 cm-1 p = 0.7; else p = 0.05.
@@ -48,9 +51,17 @@
  * - Intensities, for bands that carry ε (L mol-1 cm-1): ln ε ~ Normal(μ, 1.3)
  *   with ε_μ = 20 for octahedral spin-allowed d–d bands, 300 tetrahedral
  *   (common practice: 1–150 and 50–1 500), a tenth of that for a two-electron
- *   transition; for spin-forbidden bands 3% of the strongest spin-allowed ε
+ *   transition and for a tetrahedral one forbidden by the orbital rule (ν1 of
+ *   tetrahedral Co(II) and V(III): tens against hundreds, common practice); for spin-forbidden bands 3% of the strongest spin-allowed ε
  *   of the spectrum, or ε_μ = 0.05 octahedral / 1 tetrahedral when every band
  *   is spin-forbidden (high-spin d5). Term: ((ln ε − ln ε_μ)/1.3)².
+ * - Assignment prior: the spin states (branches) are a priori equally
+ *   probable and each shares its probability evenly among its N order-
+ *   consistent assignments of the bands, so one costs 2·ln N (score-terms.ts;
+ *   an Occam factor: a branch dense in levels may not win by its number of
+ *   chances).
+ * - Two bands on levels degenerate at every field (4A1g, 4Eg(G) of d5): as a
+ *   split band, −2·ln 0.1 + (Δ/1500 cm-1)².
  * Priors (common practice unless a source is named)
  * - β = B/B0 flat on [0.35, 1.0], half-Gaussian tails of σ 0.04 above and
  *   0.035 below (without B0: B flat on [150, 1250] cm-1, tails of 50 and
@@ -63,7 +74,15 @@
  *   tetrahedral), σ 15% (JORGENSEN_SOURCE; the rule holds to about 10%);
  *   otherwise flat over the range the ion shows with common ligands,
  *   0.7·g … 1.75·g (f of bromide to cyanide) with σ 15% tails; no prior
- *   without g.
+ *   without g. Above the expectation or the range, a low-spin solution (its
+ *   ground is the strong-field one) has a σ of 0.41 in ln 10Dq instead: the
+ *   f·g rule underestimates the low-spin cyanide complexes of M(II) and
+ *   M(III) ions, [Fe(CN)6]3- Dq = 3 495 cm-1 against 1.75·g = 24 500
+ *   ("Bindungsverhältnisse in Prussiaten", abstract on scilit.com, looked
+ *   up) and [Fe(CN)6]4- 10Dq ≈ 33 800 against 14 875 (Lever 1984, from
+ *   memory), a factor 2.3, put at two σ (σ = ln 2.3 / 2). A low-spin
+ *   ground itself says the ligands are of that strong-field class; a
+ *   high-spin solution keeps the 15% tail.
  * - β with ligands: Gaussian around 1 − h·k (Jørgensen), σ 0.1.
  */
 
@@ -97,6 +116,7 @@ export const LIKELIHOOD = {
   missAboveHighest: 0.1,
   forbiddenSeen: 0.15,
   missTwoElectron: 0.5,
+  missOrbitallyForbidden: 0.5,
   missForbiddenClass: 0.2,
   missBelowOctahedral: 0.05,
   missInfraredOctahedral: 0.3,
@@ -108,6 +128,7 @@ export const LIKELIHOOD = {
   epsilonOctahedral: 20,
   epsilonTetrahedral: 300,
   epsilonTwoElectronFactor: 0.1,
+  epsilonOrbitallyForbiddenFactor: 0.1,
   forbiddenRelative: 0.03,
   epsilonForbiddenOctahedral: 0.05,
   epsilonForbiddenTetrahedral: 1,
@@ -121,6 +142,7 @@ export const LIKELIHOOD = {
   cOverBSigmaHigh: 2.0,
   defaultCOverB: 4.5,
   tenDqSigma: 0.15,
+  tenDqSigmaLowSpinHigh: Math.log(2.3) / 2,
   fLow: 0.7,
   fHigh: 1.75,
   tetrahedralFactor: 4 / 9,

@@ -49,6 +49,8 @@ export interface ClassTransition {
   label: string;
   energy: number;
   twoElectron: boolean;
+  /** Electric-dipole forbidden by the tetrahedral orbital rule (orbital-selection.ts): weak. */
+  orbitallyForbidden?: boolean;
 }
 
 export interface AssignedTransition {
@@ -87,6 +89,7 @@ export interface SkipOutcome {
 function missInside(t: ClassTransition, classForbidden: boolean): { p: number; why: string } {
   if (classForbidden) return { p: LIKELIHOOD.missForbiddenClass, why: 'is weak (spin-forbidden class)' };
   if (t.twoElectron) return { p: LIKELIHOOD.missTwoElectron, why: 'is a two-electron jump, expected weak' };
+  if (t.orbitallyForbidden) return { p: LIKELIHOOD.missOrbitallyForbidden, why: 'is orbitally forbidden in Td, expected weak' };
   return { p: LIKELIHOOD.missAllowed, why: 'is a strong spin-allowed transition' };
 }
 
@@ -129,6 +132,8 @@ export function skippedTransitionPenalties(context: SkipContext): SkipOutcome {
       add(`${miss.why} but no band is assigned to it${window ? ' within the measured range' : ' between the observed bands'}`, miss.p);
     } else if (t.twoElectron) {
       add('is a two-electron jump, expected weak', LIKELIHOOD.missTwoElectron);
+    } else if (t.orbitallyForbidden) {
+      add('is orbitally forbidden in Td, expected weak', LIKELIHOOD.missOrbitallyForbidden);
     } else if (t.energy < LIMITS.infrared) {
       add('lies in the infrared, below the measured range', geometry === 'tetrahedral' ? 1 : LIKELIHOOD.missInfraredOctahedral);
     } else if (geometry === 'tetrahedral' && t.energy === lowestOfClass && t.energy < LIMITS.tetrahedralLowest) {
@@ -163,6 +168,8 @@ export interface PlausibilityContext {
   /** Dq, cm-1; the 10Dq prior is skipped without it. */
   dq?: number;
   priors: PriorSettings;
+  /** The solution's ground is the strong-field (low-spin) one: a wider 10Dq tail above (likelihood.ts). */
+  lowSpin?: boolean;
 }
 
 /** The β prior's deviance at B (flat with tails; without B0 on B itself). */
@@ -176,17 +183,26 @@ export function betaPriorDeviance(b: number, priors: PriorSettings): number {
   return term;
 }
 
-/** The 10Dq prior's deviance at Dq. */
-export function tenDqPriorDeviance(dq: number, priors: PriorSettings): number {
+/** σ of ln 10Dq above the expectation or range: wider for a low-spin solution (likelihood.ts). */
+function tenDqSigmaAbove(lowSpin: boolean): number {
+  return lowSpin ? LIKELIHOOD.tenDqSigmaLowSpinHigh : LIKELIHOOD.tenDqSigma;
+}
+
+/** The 10Dq prior's deviance at Dq; `lowSpin`: the solution's ground is the strong-field one. */
+export function tenDqPriorDeviance(dq: number, priors: PriorSettings, lowSpin = false): number {
   if (!(dq > 0)) return 0;
   const L = LIKELIHOOD;
-  if (priors.tenDqExpected !== null) return (Math.log((10 * dq) / priors.tenDqExpected) / L.tenDqSigma) ** 2;
-  if (priors.tenDqRange) return flatWithTails(Math.log(10 * dq), Math.log(priors.tenDqRange[0]), Math.log(priors.tenDqRange[1]), L.tenDqSigma, L.tenDqSigma);
+  const above = tenDqSigmaAbove(lowSpin);
+  if (priors.tenDqExpected !== null) {
+    const r = Math.log((10 * dq) / priors.tenDqExpected);
+    return (r / (r > 0 ? above : L.tenDqSigma)) ** 2;
+  }
+  if (priors.tenDqRange) return flatWithTails(Math.log(10 * dq), Math.log(priors.tenDqRange[0]), Math.log(priors.tenDqRange[1]), L.tenDqSigma, above);
   return 0;
 }
 
 /** The prior terms at (Dq, B, C): β (and β from the ligands), C/B when fitted, 10Dq. Only non-zero terms. */
-export function plausibilityPenalties({ b, c, mode, dq, priors }: PlausibilityContext): Penalty[] {
+export function plausibilityPenalties({ b, c, mode, dq, priors, lowSpin = false }: PlausibilityContext): Penalty[] {
   const penalties: Penalty[] = [];
   const L = LIKELIHOOD;
   const b0 = priors.b0;
@@ -214,11 +230,12 @@ export function plausibilityPenalties({ b, c, mode, dq, priors }: PlausibilityCo
   if (dq !== undefined && dq > 0) {
     const tenDq = 10 * dq;
     if (priors.tenDqExpected !== null) {
-      const term = (Math.log(tenDq / priors.tenDqExpected) / L.tenDqSigma) ** 2;
+      const r = Math.log(tenDq / priors.tenDqExpected);
+      const term = (r / (r > 0 ? tenDqSigmaAbove(lowSpin) : L.tenDqSigma)) ** 2;
       if (term > 0) penalties.push({ rule: 'ten-dq', amount: term, detail: `10Dq = ${Math.round(tenDq)} cm-1 against ${Math.round(priors.tenDqExpected)} expected from the ligands (${priors.ligandNote})` });
     } else if (priors.tenDqRange) {
       const [lo10, hi10] = priors.tenDqRange;
-      const term = flatWithTails(Math.log(tenDq), Math.log(lo10), Math.log(hi10), L.tenDqSigma, L.tenDqSigma);
+      const term = flatWithTails(Math.log(tenDq), Math.log(lo10), Math.log(hi10), L.tenDqSigma, tenDqSigmaAbove(lowSpin));
       if (term > 0) penalties.push({ rule: 'ten-dq', amount: term, detail: `10Dq = ${Math.round(tenDq)} cm-1 is outside ${Math.round(lo10)}–${Math.round(hi10)} cm-1, the range this ion shows with common ligands` });
     }
   }
@@ -228,7 +245,7 @@ export function plausibilityPenalties({ b, c, mode, dq, priors }: PlausibilityCo
 export interface IntensityContext {
   geometry: Geometry;
   /** Per assigned band: its ε (undefined when not given), whether its transition is spin-allowed and two-electron. */
-  bands: Array<{ position: number; epsilon: number | undefined; spinAllowed: boolean; twoElectron: boolean }>;
+  bands: Array<{ position: number; epsilon: number | undefined; spinAllowed: boolean; twoElectron: boolean; orbitallyForbidden?: boolean }>;
   /** Every band of the assignment is spin-forbidden (high-spin d5). */
   allForbidden: boolean;
 }
@@ -245,8 +262,9 @@ export function intensityPenalties({ geometry, bands, allForbidden }: IntensityC
     let mu: number;
     let kind: string;
     if (band.spinAllowed) {
-      mu = band.twoElectron ? allowedMu * L.epsilonTwoElectronFactor : allowedMu;
-      kind = band.twoElectron ? 'a two-electron band' : `a spin-allowed ${geometry} band`;
+      const weak = band.twoElectron || band.orbitallyForbidden === true;
+      mu = band.twoElectron ? allowedMu * L.epsilonTwoElectronFactor : band.orbitallyForbidden ? allowedMu * L.epsilonOrbitallyForbiddenFactor : allowedMu;
+      kind = band.twoElectron ? 'a two-electron band' : weak ? 'a band orbitally forbidden in Td' : `a spin-allowed ${geometry} band`;
     } else if (strongest !== undefined && !allForbidden) {
       mu = strongest * L.forbiddenRelative;
       kind = 'a spin-forbidden band beside the spin-allowed ones';

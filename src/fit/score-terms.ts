@@ -6,13 +6,14 @@
  * cannot drift apart.
  */
 import type { GridCandidate, DqOnlyCandidate } from './candidates.js';
-import { primaryClass } from './enumerate.js';
+import { degenerateTwins, enumerateAssignments, isLowSpinBranch, primaryClass } from './enumerate.js';
 import type { SortedObservations } from './observations.js';
 import {
   betaPriorDeviance, intensityPenalties, plausibilityPenalties, tenDqPriorDeviance, skippedTransitionPenalties, type ClassTransition, type SkipOutcome,
 } from './penalties.js';
 import type { FitSettings } from './settings.js';
 import { twoElectronLevels } from './two-electron.js';
+import { orbitallyForbiddenLevels } from './orbital-selection.js';
 import { deviance, LIKELIHOOD } from './likelihood.js';
 import type { Penalty } from './types.js';
 
@@ -52,12 +53,13 @@ export function scoreTerms(input: ScoreTermsInput): ScoreTerms {
     return entry;
   });
   const ctOnset = ctOnsetOf(sorted);
+  const weak = orbitallyForbiddenLevels(scan, branch.ground);
   const skip = skippedTransitionPenalties({
-    geometry: settings.geometry, transitions, assigned, classForbidden: variant.classForbidden,
+    geometry: settings.geometry, transitions: transitions.map((t) => (weak[t.level] === 1 ? { ...t, orbitallyForbidden: true } : t)), assigned, classForbidden: variant.classForbidden,
     ...(ctOnset !== undefined ? { ctOnset } : {}), ...(settings.window ? { window: settings.window } : {}),
   });
   const priors = plausibilityPenalties({
-    b: input.b, c: input.c, mode: settings.mode, dq: input.dq,
+    b: input.b, c: input.c, mode: settings.mode, dq: input.dq, lowSpin: isLowSpinBranch(scan, branch),
     priors: input.bDetermined ? settings.priors : { ...settings.priors, b0: null, betaExpected: null },
   }).filter((p) => input.bDetermined || p.rule === 'ten-dq');
   const two = twoElectronLevels(scan, branch.ground);
@@ -68,6 +70,7 @@ export function scoreTerms(input: ScoreTermsInput): ScoreTerms {
       position: o.position, epsilon: o.epsilon,
       spinAllowed: scan.ids[levels[i]!]!.multiplicity === branch.multiplicity,
       twoElectron: two[levels[i]!] === 1,
+      orbitallyForbidden: weak[levels[i]!] === 1,
     })),
   });
   // A band taken by a spin-forbidden transition beside spin-allowed ones: only a few of those show at all.
@@ -76,14 +79,55 @@ export function scoreTerms(input: ScoreTermsInput): ScoreTerms {
       rule: 'forbidden-band' as const, amount: deviance(LIKELIHOOD.forbiddenSeen),
       detail: `the band at ${Math.round(o.position)} cm-1 is taken as the spin-forbidden ${scan.ids[levels[i]!]!.label}, one of many weak transitions that seldom show`,
     }]);
-  return { ...skip, penalties: [...skip.penalties, ...priors, ...intensity, ...forbidden] };
+  return { ...skip, penalties: [...skip.penalties, ...priors, ...intensity, ...forbidden, ...twinPenalties(scan, observations, levels), ...assignmentPrior(candidate)] };
+}
+
+/**
+ * The prior of one assignment within its spin state: each spin state (branch)
+ * is a priori as probable as the other, and its N order-consistent
+ * assignments of these bands share that probability evenly, so one costs
+ * 2·ln N. Without it a branch dense in levels (the doublets of low-spin
+ * Co(II), the quartets of low-spin d4) finds a level within the model error
+ * of any band and wins by the number of its chances, not by its fit.
+ */
+function assignmentPrior(candidate: GridCandidate | DqOnlyCandidate): Penalty[] {
+  if (candidate.kind !== 'grid') return [];
+  const { scan, branch, variant } = candidate;
+  const n = enumerateAssignments(scan, branch, variant.nPrimary, variant.observations.length - variant.nPrimary).count;
+  if (n <= 1) return [];
+  return [{ rule: 'assignments', amount: 2 * Math.log(n), detail: `one of ${n} ways to assign these bands in this spin state` }];
+}
+
+/**
+ * Two bands given to levels that are degenerate at every field (4A1g and
+ * 4Eg(G) of d5): the model has one position for both, so the pair is two
+ * maxima of one band and costs what reading them as a split band costs
+ * (likelihood.ts): −2·ln 0.1 + (Δ/1500 cm-1)². Without it the model error
+ * lets two separate bands sit on one calculated energy almost free.
+ */
+function twinPenalties(scan: GridCandidate['scan'], observations: ReadonlyArray<{ position: number }>, levels: Int32Array): Penalty[] {
+  const twin = degenerateTwins(scan);
+  const out: Penalty[] = [];
+  for (let i = 0; i < observations.length; i++) {
+    for (let k = i + 1; k < observations.length; k++) {
+      const a = levels[i]!;
+      const b = levels[k]!;
+      if (a === b || twin[a] !== twin[b]) continue;
+      const gap = Math.abs(observations[i]!.position - observations[k]!.position);
+      out.push({
+        rule: 'split-band', amount: deviance(LIKELIHOOD.splitPair) + (gap / LIKELIHOOD.splitScale) ** 2,
+        detail: `${Math.round(observations[i]!.position)} and ${Math.round(observations[k]!.position)} cm-1 go to ${scan.ids[a]!.label} and ${scan.ids[b]!.label}, which the model puts at one energy: two maxima of one band`,
+      });
+    }
+  }
+  return out;
 }
 
 /**
  * The β and 10Dq priors as a function of (B, Dq), for choosing between the
  * grid points of one assignment (profile.ts gridOptimum).
  */
-export function gridPrior(settings: FitSettings): (b: number, dq: number) => number {
+export function gridPrior(settings: FitSettings): (b: number, dq: number, lowSpin?: boolean) => number {
   const priors = settings.priors;
-  return (b, dq) => betaPriorDeviance(b, priors) + tenDqPriorDeviance(dq, priors);
+  return (b, dq, lowSpin = false) => betaPriorDeviance(b, priors) + tenDqPriorDeviance(dq, priors, lowSpin);
 }

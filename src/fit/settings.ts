@@ -200,3 +200,22 @@ export function resolveFitSettings(input: FitInput): FitSettings {
     priors: priorSettings(ion, geometry, b0, priorCentre, ligands), notes,
   };
 }
+
+/** d5 bands at least this many estimate C/B unasked: 4T1g(G), 4T2g(G) and 4A1g/4Eg(G) fix 10Dq, B and C. */
+export const D5_FREE_C_MIN_BANDS = 3;
+
+/**
+ * d5 band lists of at least D5_FREE_C_MIN_BANDS bands estimate C/B unasked (returns the
+ * note saying so; undefined otherwise): every quartet of high-spin d5 depends
+ * on C, and the field-independent 4A1g, 4Eg(G) (10B + 5C) and 4Eg(D)
+ * (17B + 5C) fix B and C by themselves, the usual analysis of Mn(II) and
+ * Fe(III) spectra (common practice). The free ion's ratio is a poor
+ * assumption there: hexaaqua Mn(II) has C/B ≈ 5.5 against 3.46 for the free
+ * ion (Lever, Inorganic Electronic Spectroscopy, 2nd ed. (1984), from
+ * memory). The C/B prior still applies; a C the bands do not fix falls back
+ * to the ratio with a warning (fit-bands.ts).
+ */
+export function estimatesCByDefault(settings: FitSettings, bandCount: number): string | undefined {
+  if (settings.d !== 5 || settings.mode !== 'ratio' || settings.cOverBGiven || bandCount < D5_FREE_C_MIN_BANDS) return undefined;
+  return `C/B estimated from the ${bandCount} bands (d5: every quartet depends on C; prior around ${settings.priors.cOverB.toFixed(2)}), not assumed at ${settings.cOverBSource}`;
+}

@@ -66,7 +66,7 @@ export interface AssignedBand {
 }
 
 export interface Penalty {
-  rule: 'skipped-transition' | 'unexplained-band' | 'split-band' | 'beta' | 'c-over-b' | 'jahn-teller-pair' | 'ten-dq' | 'ligands' | 'intensity' | 'forbidden-band';
+  rule: 'skipped-transition' | 'unexplained-band' | 'split-band' | 'beta' | 'c-over-b' | 'jahn-teller-pair' | 'ten-dq' | 'ligands' | 'intensity' | 'forbidden-band' | 'assignments';
   /** Added to the score: a deviance, −2·ln p (likelihood.ts). */
   amount: number;
   detail: string;

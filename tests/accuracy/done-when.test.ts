@@ -100,9 +100,18 @@ describe('published band sets', () => {
     const s = set('mn2-aqua-c-ratio-sf');
     expect(fitBands({ ion: s.ion, geometry: s.geometry, bands: s.bands }).unassigned).toEqual([]);
   });
-  // fails until issue 13 lands: today 10Dq ≈ 7 255 (−15 %), as the issue reports.
+  // fails until the engine has a Trees correction αL(L+1): today 10Dq ≈ 7 200 (−15 %). The cubic model without it
+  // cannot put 4T1g(P) at 32 400 cm-1 together with the other six bands (it predicts about 35 100 at the B and C the
+  // field-independent bands fix); the published assignment presumes the correction (published-sets.ts has the check).
+  // Without the 32 400 band the six give 10Dq ≈ 8 470 (−0.4 %), see the next test.
   it.fails('hexaaqua Mn(II), seven quartets, C free: 10Dq within 3 %', () => within3('mn2-aqua-7'));
-  // fails until issue 13 lands: as above, flagged.
+  it('hexaaqua Mn(II), the six quartets below 30 000 cm-1 of the seven-band set, C free: 10Dq within 3 %', () => {
+    const s = set('mn2-aqua-7');
+    const six = s.bands.split(',').filter((b) => !b.startsWith('32400')).join(',');
+    const r = fitBands({ ion: s.ion, geometry: s.geometry, bands: six, freeC: true });
+    expect(Math.abs(r.tenDq - s.tenDq) / s.tenDq).toBeLessThanOrEqual(0.03); // source: published-sets.ts
+  });
+  // fails until the engine has a Trees correction: as above, flagged.
   it.fails('hexaaqua Mn(II), seven quartets flagged spin-forbidden, C free: 10Dq within 3 %', () => within3('mn2-aqua-7-sf'));
   it('tetrahedral [NiCl4]2-: 10Dq within 3 %', () => within3('ni2-tet-cl'));
 });
