@@ -18,7 +18,7 @@ import type { LevelsResult } from '../ligand-field/types.js';
 import type { Evaluated } from './evaluate.js';
 import { primaryClass } from './enumerate.js';
 import { ligandFieldStabilisation, spinOnlyMoment } from './lfse.js';
-import type { SortedObservations } from './observations.js';
+import { intensityWeights, type SortedObservations } from './observations.js';
 import { levelIdentityKey } from './scan.js';
 import type { FitSettings } from './settings.js';
 import { betaSdOf, fitUncertainty } from './uncertainty.js';
@@ -237,7 +237,8 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
     }
   }
   if (variant.jahnTeller) {
-    notes.push(`${variant.jahnTeller.map((o) => Math.round(o.position)).join(' and ')} cm-1 are taken as Jahn–Teller components of one transition and averaged (10Dq from their mean)`);
+    const weighted = intensityWeights(variant.jahnTeller).some((w) => w !== 1);
+    notes.push(`${variant.jahnTeller.map((o) => Math.round(o.position)).join(' and ')} cm-1 are taken as Jahn–Teller components of one transition at their ${weighted ? 'intensity-weighted centroid' : 'mean (no intensities given to weight them)'}, ${Math.round(best.candidate.variant.observations[0]!.position)} cm-1`);
   }
   if (bFit !== null) notes.push(`uncertainties from ${basis}`);
   if (settings.mode === 'ratio' && bFit !== null) notes.push(settings.cOverBSource);
