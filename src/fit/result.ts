@@ -85,6 +85,9 @@ function crossoverOf(best: Evaluated, settings: FitSettings): CrossoverInfo | nu
 
 function statusOf(best: Evaluated): { status: FitStatus; message: string; evaluations: number } {
   const m = best.candidate.variant.observations.length;
+  if (best.bPrior) {
+    return { status: 'exact', message: `10Dq from the one band with B fixed at its prior (${Math.round(best.params.b)} cm-1): one band cannot fix both`, evaluations: 0 };
+  }
   if (!best.bDetermined) {
     const single = primaryClass(best.candidate.branch).levels.length === 1;
     const message = single
@@ -192,20 +195,21 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   const beta = bFit !== null && settings.b0 !== null ? bFit / settings.b0 : null;
   const { uncertainty, correlation, basis } = fitUncertainty(best, sorted.weighted);
   const status = statusOf(best);
+  for (const u of restingOnWeakBands(best, settings)) {
+    if (undetermined.some((v) => v.parameter === u.parameter)) continue;
+    undetermined.push({ parameter: u.parameter, reason: u.reason, action: u.action });
+    warnings.push(u.warning);
+  }
   // A standard uncertainty as large as the value itself: the bands do not fix it, whatever the fit's status says.
   const loose: Array<['tenDq' | 'b' | 'c', number | null, number | null]> = [
     ['tenDq', 10 * best.params.dq, uncertainty.tenDq], ['b', bFit, uncertainty.b], ['c', settings.mode === 'free' ? cFit : null, uncertainty.c],
   ];
   for (const [parameter, value, sigma] of loose) {
     if (value === null || sigma === null || !(sigma >= 0.5 * Math.abs(value))) continue;
+    if (undetermined.some((v) => v.parameter === parameter)) continue;
     const name = parameter === 'tenDq' ? '10Dq' : parameter.toUpperCase();
     undetermined.push({ parameter, reason: `its uncertainty (${sigma.toPrecision(2)} cm-1) is ${sigma >= Math.abs(value) ? 'larger than' : 'more than half'} the value`, action: 'reported, but not fixed by these bands' });
     warnings.push(`${name} = ${Math.round(value)} cm-1 is not determined by these bands: its uncertainty is ${sigma.toPrecision(2)} cm-1`);
-  }
-  for (const u of restingOnWeakBands(best, settings)) {
-    if (undetermined.some((v) => v.parameter === u.parameter)) continue;
-    undetermined.push({ parameter: u.parameter, reason: u.reason, action: u.action });
-    warnings.push(u.warning);
   }
   const crossover = crossoverOf(best, settings);
   if (status.status === 'not-converged') warnings.push(status.message);
@@ -235,6 +239,13 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
         `B is not determinable from one band: it is taken as ${scan.ids[branch.ground]!.label} → ${id.label}, which lies at exactly 10Dq for ${describeSingle(settings, branch.multiplicity)}; give a second spin-allowed band for B`,
       );
     }
+  }
+  if (best.bPrior) {
+    const { b, c } = best.params;
+    const prior = best.bPrior;
+    const fixed = `B fixed at its prior ${Math.round(b)} ± ${Math.round(prior.sigma)} cm-1 (${prior.source})${prior.cHeld ? '' : `, C = ${(c / b).toFixed(2)}·B`}`;
+    undetermined.push({ parameter: 'b', reason: 'one band cannot fix both 10Dq and B', action: fixed });
+    warnings.push(`B is not determined by one band: ${fixed}; 10Dq rests on it (its ± carries B's)`);
   }
   if (variant.jahnTeller) {
     const weighted = intensityWeights(variant.jahnTeller).some((w) => w !== 1);
