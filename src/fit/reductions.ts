@@ -13,8 +13,8 @@
  *   the median width of the d–d bands), ×5 for a band flagged
  *   spin-forbidden). So the weak, shoulder and narrow ones are left first.
  * - two neighbouring unflagged bands closer than max(2000 cm-1, 6% of their
- *   mean) read as the two maxima of one split band, taken at their
- *   intensity-weighted centroid (averageObservations):
+ *   mean) read as the two maxima of one split band, averaged (1/σ²-weighted
+ *   when the fit is weighted: precisionWeights says why):
  *   −2·ln 0.1 + (separation/1500 cm-1)².
  *
  * Limits: of the unflagged bands, at most half (and at most
@@ -28,7 +28,7 @@
  * penalty, the identity (nothing left out, penalty 0) first, so a caller can
  * stop as soon as the penalty alone exceeds the best score found.
  */
-import { averageObservations, type Observation, type SortedObservations } from './observations.js';
+import { averageObservations, precisionWeights, type Observation, type SortedObservations } from './observations.js';
 import { deviance, effectiveWeight, LIKELIHOOD, unexplainedDeviance } from './likelihood.js';
 import { LIMITS, splitPairLimit } from './penalties.js';
 import type { Penalty } from './types.js';
@@ -112,7 +112,7 @@ function splitPenalty(a: Observation, b: Observation): Penalty {
   return {
     rule: 'split-band',
     amount: deviance(LIKELIHOOD.splitPair) + (separation / LIKELIHOOD.splitScale) ** 2,
-    detail: `${Math.round(a.position)} and ${Math.round(b.position)} cm-1 are read as one split band (taken at their intensity-weighted centroid)`,
+    detail: `${Math.round(a.position)} and ${Math.round(b.position)} cm-1 are read as one split band (mean taken)`,
   };
 }
 
@@ -178,7 +178,7 @@ export function bandReductions(sorted: SortedObservations, p: number): Reduction
     }
     const next = primary[i + 1];
     if (next && splitPairAllowed(o, next)) {
-      keptP.push(averageObservations([o, next]));
+      keptP.push(averageObservations([o, next], precisionWeights([o, next], sorted.weighted)));
       merged.push([o, next]);
       penalties.push(splitPenalty(o, next));
       walkPrimary(i + 2);

@@ -59,14 +59,16 @@ describe('intensity-weighted centroid of split components', () => {
     expect(plain.notes.join(' ')).toMatch(/mean \(no intensities/);
   });
 
-  it('takes a close pair read as one split band at its centroid too', () => {
+  it('takes a close pair read as one split band at its 1/σ²-weighted mean (equal weights without σ)', () => {
     // The 3T1g(F) band of hexaaqua Ni(II) shows a spin–orbit doublet near 13 800 and 15 300 cm-1 beside ν1 ≈ 8 500 and
-    // ν3 ≈ 25 300 (Lever 1984, from memory); the areas are invented. The merged pair is taken at its centroid.
+    // ν3 ≈ 25 300 (Lever 1984, from memory); the areas are invented and not used for a pair (precisionWeights says why).
     const bands = [
       { position: 8500, area: 3000 }, { position: 13_800, area: 3000 }, { position: 15_300, area: 1000 }, { position: 25_300, area: 4000 },
     ];
     const r = fitBands({ ion: 'Ni2+', bands });
     expect(r.assignments.map((a) => a.bands)).toEqual([[0], [1, 2], [3]]);
-    expect(r.assignments[1]!.observed).toBeCloseTo(centroidReference([13_800, 15_300], [3000, 1000]), 0);
+    expect(r.assignments[1]!.observed).toBeCloseTo(14_550, 0);
+    const weighted = fitBands({ ion: 'Ni2+', bands: bands.map((b, i) => ({ ...b, uncertainty: i === 2 ? 400 : 100 })) });
+    expect(weighted.assignments[1]!.observed).toBeCloseTo((13_800 / 100 ** 2 + 15_300 / 400 ** 2) / (1 / 100 ** 2 + 1 / 400 ** 2), 0);
   });
 });
