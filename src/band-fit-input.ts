@@ -27,7 +27,7 @@ export function bandFitSigma(position: number, positionUncertainty: number): num
   return Math.hypot(positionUncertainty, defaultBandSigma(position));
 }
 
-/** A found band (cm-1) as a fit input: position, σ (bandFitSigma), width, ε when known, flags. */
+/** A found band (cm-1) as a fit input: position, σ (bandFitSigma), width, area, ε when known, flags. */
 export function bandToFitInput(band: Band): BandInput {
   const input: BandInput = {
     position: band.position,
@@ -36,6 +36,8 @@ export function bandToFitInput(band: Band): BandInput {
     flags: bandFlagsOf(band),
   };
   if (band.epsilon !== null) input.epsilon = band.epsilon;
+  // The area weights the components of a split band (their intensity-weighted centroid, src/fit/observations.ts).
+  if (Number.isFinite(band.area) && band.area > 0) input.area = band.area;
   return input;
 }
 

@@ -38,6 +38,12 @@ export interface BandInput {
   epsilon?: number;
   /** Full width at half maximum, cm-1. */
   width?: number;
+  /**
+   * Integrated intensity (area under the band), in any unit shared by the
+   * bands of one list (ε·cm-1 or absorbance·cm-1): only its ratio to other
+   * bands' areas is used, to weight the components of a split band.
+   */
+  area?: number;
   flags?: readonly (BandFlag | string)[];
 }
 
@@ -48,6 +54,7 @@ export interface ObservedBand {
   uncertainty?: number;
   epsilon?: number;
   width?: number;
+  area?: number;
   flags: BandFlag[];
 }
 
@@ -187,6 +194,8 @@ export function normalizeBands(bands: unknown, path = 'bands'): ObservedBand[] {
     if (epsilon !== undefined) band.epsilon = epsilon;
     const width = checkOptionalPositive(input['width'], `${at}.width`, 'a width');
     if (width !== undefined) band.width = width;
+    const area = checkOptionalPositive(input['area'], `${at}.area`, 'an area', true);
+    if (area !== undefined) band.area = area;
     const flags = input['flags'];
     if (flags !== undefined) {
       if (!Array.isArray(flags)) throw invalidArgument(`${at}.flags`, `${at}.flags: expected a list of flags`);

@@ -105,7 +105,7 @@ export function branchVariant(branch: Branch, reduction: Reduction): Variant | u
     if (primary.length > 3 || ratio > JAHN_TELLER_MAX_RATIO || reduction.penalty > 0) return undefined;
     jahnTeller = primary;
     penalties.push(jahnTellerPenalty(primary));
-    primary = [averageObservations(primary, sorted.weighted)];
+    primary = [averageObservations(primary)];
   }
   return {
     observations: [...primary, ...flagged], nPrimary: primary.length, classForbidden: cls.forbidden,

@@ -16,12 +16,15 @@ import { twoElectronLevels } from './two-electron.js';
 import type { FitSettings } from './settings.js';
 import type { SortedObservations } from './observations.js';
 import type { Penalty, SkippedTransition } from './types.js';
+import type { PriorBFix } from './prior-b.js';
 
 export interface Evaluated {
   candidate: GridCandidate | DqOnlyCandidate;
   params: FieldParameters;
   /** False for a Dq-only solution: b and c in params are nominal. */
   bDetermined: boolean;
+  /** One band, B fixed at its prior and Dq fitted (prior-b.ts); absent otherwise. */
+  bPrior?: PriorBFix;
   /** Engine levels at params; null for a solution refined on the scan only (an alternative). */
   levels: LevelsResult | null;
   groundTerm: string;

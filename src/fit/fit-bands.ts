@@ -40,8 +40,11 @@
 import { FieldgapError } from '../errors.js';
 import { normalizeBands } from './bands.js';
 import {
-  approximateScore, candidateAt, candidateGroups, type CandidateGroup, type DqOnlyCandidate, type GridCandidate,
+  approximateScore, branchVariant, candidateAt, candidateGroups, dqOnlyLevel, type CandidateGroup, type DqOnlyCandidate, type GridCandidate,
 } from './candidates.js';
+import { scanBranches } from './enumerate.js';
+import { bPriorOf, priorBOnScan, refinePriorB } from './prior-b.js';
+import type { Reduction } from './reductions.js';
 import { effectiveWeight } from './likelihood.js';
 import { LIMITS, penaltyTotal, plausibilityPenalties } from './penalties.js';
 import { gridPrior } from './score-terms.js';
@@ -203,6 +206,30 @@ function evaluateOnNeighbours(c: GridCandidate, settings: FitSettings, sorted: S
   return best;
 }
 
+/** Prior-B solutions (one band, B at its prior) polished with the engine at most, the best first. */
+export const MAX_PRIOR_B_POLISHED = 6;
+
+/**
+ * One observation left for a branch (a single d–d band, or one with only
+ * flagged bands left out): the prior-B solutions of every branch on the scan
+ * at the prior's C/B (prior-b.ts), except for the transition at exactly 10Dq,
+ * which the Dq-only candidate already takes without assuming B.
+ */
+function priorBCandidates(settings: FitSettings, sorted: SortedObservations, reduction: Reduction, scan: ReturnType<typeof cachedLevelScan>): Evaluated[] {
+  if (reduction.touchesUnflagged || reduction.sorted.primary.length + reduction.sorted.flagged.length !== 1) return [];
+  const prior = bPriorOf(settings);
+  const out: Evaluated[] = [];
+  for (const branch of scanBranches(scan)) {
+    const variant = branchVariant(branch, reduction);
+    if (!variant || variant.observations.length !== 1) continue;
+    const exact = dqOnlyLevel(scan, branch);
+    for (const e of priorBOnScan(scan, branch, variant, settings, sorted, prior)) {
+      if ((e.candidate as DqOnlyCandidate).level !== exact) out.push(e);
+    }
+  }
+  return out;
+}
+
 function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: number[], wholeListOnly = false): Evaluated[] {
   const p = settings.mode === 'free' ? 3 : 2;
   const threshold = unexplainedThreshold([...sorted.primary, ...sorted.flagged].map((o) => o.position));
@@ -212,11 +239,18 @@ function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: 
   const dqOnly: DqOnlyCandidate[] = [];
   // Groups that explain every unflagged band: their best is always refined, so a failure can name its rms.
   const wholeGroups: CandidateGroup[] = [];
+  // One band: B at its prior, on the scan at the C/B in use (the prior's in free mode; a fixed C keeps its first scan).
+  const priorScan = settings.mode === 'fixed' ? scans[0]! : cachedLevelScan(settings.d, settings.geometry, settings.cOverB);
+  const priorB: Evaluated[] = [];
   // Reductions by ascending penalty (the full band list first): one whose penalty alone exceeds the best
   // score found so far cannot win, and neither can any after it.
   let bound = Infinity;
   for (const reduction of bandReductions(sorted, p)) {
     if (reduction.penalty >= bound || (wholeListOnly && reduction.penalty > 0)) break;
+    for (const e of priorBCandidates(settings, sorted, reduction, priorScan)) {
+      priorB.push(e);
+      bound = Math.min(bound, e.score);
+    }
     scans.forEach((scan, i) => {
       const found = candidateGroups(scan, reduction, p, prior);
       groups.push(...found.groups);
@@ -254,6 +288,12 @@ function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: 
   for (const c of dqOnly) {
     const e = evaluateDqOnly(c, settings, sorted);
     if (e) evaluated.push(e);
+  }
+  // Prior-B solutions scored on the scan: the best few within the margin are polished with the engine; only those count.
+  const margin = alternativeMargin(Math.min(bestScore, ...evaluated.map((e) => e.score), ...priorB.map((e) => e.score)));
+  for (const e of priorB.sort((a, b) => a.score - b.score).filter((e) => e.score <= margin).slice(0, MAX_PRIOR_B_POLISHED)) {
+    const polishedB = refinePriorB(e, settings, sorted);
+    if (polishedB) evaluated.push(polishedB);
   }
   // Solutions within the rms threshold first (any fit beats a failure), then by score.
   const within = (e: Evaluated) => (e.wrms <= threshold ? 0 : 1);
@@ -297,6 +337,7 @@ export const C_UNDETERMINED_FRACTION = 0.25;
 /** Why C is not determined by the best free-C solution, or undefined when it is. */
 function cNotDetermined(best: Evaluated | undefined, weighted: boolean): string | undefined {
   if (!best) return undefined;
+  if (best.bPrior) return 'one band cannot fix C';
   if (cUndetermined(best) || !best.bDetermined) return 'their energies do not depend on C';
   if (!best.lsq) return undefined;
   const { uncertainty } = fitUncertainty(best, weighted);

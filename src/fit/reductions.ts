@@ -13,7 +13,8 @@
  *   the median width of the d–d bands), ×5 for a band flagged
  *   spin-forbidden). So the weak, shoulder and narrow ones are left first.
  * - two neighbouring unflagged bands closer than max(2000 cm-1, 6% of their
- *   mean) read as the two maxima of one split band, averaged:
+ *   mean) read as the two maxima of one split band, averaged (1/σ²-weighted
+ *   when the fit is weighted: precisionWeights says why):
  *   −2·ln 0.1 + (separation/1500 cm-1)².
  *
  * Limits: of the unflagged bands, at most half (and at most
@@ -27,7 +28,7 @@
  * penalty, the identity (nothing left out, penalty 0) first, so a caller can
  * stop as soon as the penalty alone exceeds the best score found.
  */
-import { averageObservations, type Observation, type SortedObservations } from './observations.js';
+import { averageObservations, precisionWeights, type Observation, type SortedObservations } from './observations.js';
 import { deviance, effectiveWeight, LIKELIHOOD, unexplainedDeviance } from './likelihood.js';
 import { LIMITS, splitPairLimit } from './penalties.js';
 import type { Penalty } from './types.js';
@@ -177,7 +178,7 @@ export function bandReductions(sorted: SortedObservations, p: number): Reduction
     }
     const next = primary[i + 1];
     if (next && splitPairAllowed(o, next)) {
-      keptP.push(averageObservations([o, next], sorted.weighted));
+      keptP.push(averageObservations([o, next], precisionWeights([o, next], sorted.weighted)));
       merged.push([o, next]);
       penalties.push(splitPenalty(o, next));
       walkPrimary(i + 2);

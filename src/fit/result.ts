@@ -17,8 +17,9 @@ import { twoElectronLevels } from './two-electron.js';
 import type { LevelsResult } from '../ligand-field/types.js';
 import type { Evaluated } from './evaluate.js';
 import { primaryClass } from './enumerate.js';
+import { dqOnlyLevel } from './candidates.js';
 import { ligandFieldStabilisation, spinOnlyMoment } from './lfse.js';
-import type { SortedObservations } from './observations.js';
+import { intensityWeights, type SortedObservations } from './observations.js';
 import { levelIdentityKey } from './scan.js';
 import type { FitSettings } from './settings.js';
 import { betaSdOf, fitUncertainty } from './uncertainty.js';
@@ -85,6 +86,9 @@ function crossoverOf(best: Evaluated, settings: FitSettings): CrossoverInfo | nu
 
 function statusOf(best: Evaluated): { status: FitStatus; message: string; evaluations: number } {
   const m = best.candidate.variant.observations.length;
+  if (best.bPrior) {
+    return { status: 'exact', message: `10Dq from the one band with B fixed at its prior (${Math.round(best.params.b)} cm-1): one band cannot fix both`, evaluations: 0 };
+  }
   if (!best.bDetermined) {
     const single = primaryClass(best.candidate.branch).levels.length === 1;
     const message = single
@@ -192,20 +196,21 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   const beta = bFit !== null && settings.b0 !== null ? bFit / settings.b0 : null;
   const { uncertainty, correlation, basis } = fitUncertainty(best, sorted.weighted);
   const status = statusOf(best);
+  for (const u of restingOnWeakBands(best, settings)) {
+    if (undetermined.some((v) => v.parameter === u.parameter)) continue;
+    undetermined.push({ parameter: u.parameter, reason: u.reason, action: u.action });
+    warnings.push(u.warning);
+  }
   // A standard uncertainty as large as the value itself: the bands do not fix it, whatever the fit's status says.
   const loose: Array<['tenDq' | 'b' | 'c', number | null, number | null]> = [
     ['tenDq', 10 * best.params.dq, uncertainty.tenDq], ['b', bFit, uncertainty.b], ['c', settings.mode === 'free' ? cFit : null, uncertainty.c],
   ];
   for (const [parameter, value, sigma] of loose) {
     if (value === null || sigma === null || !(sigma >= 0.5 * Math.abs(value))) continue;
+    if (undetermined.some((v) => v.parameter === parameter)) continue;
     const name = parameter === 'tenDq' ? '10Dq' : parameter.toUpperCase();
     undetermined.push({ parameter, reason: `its uncertainty (${sigma.toPrecision(2)} cm-1) is ${sigma >= Math.abs(value) ? 'larger than' : 'more than half'} the value`, action: 'reported, but not fixed by these bands' });
     warnings.push(`${name} = ${Math.round(value)} cm-1 is not determined by these bands: its uncertainty is ${sigma.toPrecision(2)} cm-1`);
-  }
-  for (const u of restingOnWeakBands(best, settings)) {
-    if (undetermined.some((v) => v.parameter === u.parameter)) continue;
-    undetermined.push({ parameter: u.parameter, reason: u.reason, action: u.action });
-    warnings.push(u.warning);
   }
   const crossover = crossoverOf(best, settings);
   if (status.status === 'not-converged') warnings.push(status.message);
@@ -236,8 +241,16 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
       );
     }
   }
+  if (best.bPrior) {
+    const { b, c } = best.params;
+    const prior = best.bPrior;
+    const fixed = `B fixed at its prior ${Math.round(b)} ± ${Math.round(prior.sigma)} cm-1 (${prior.source})${prior.cHeld ? '' : `, C = ${(c / b).toFixed(2)}·B`}`;
+    undetermined.push({ parameter: 'b', reason: 'one band cannot fix both 10Dq and B', action: fixed });
+    warnings.push(`B is not determined by one band: ${fixed}; 10Dq rests on it (its ± carries B's)`);
+  }
   if (variant.jahnTeller) {
-    notes.push(`${variant.jahnTeller.map((o) => Math.round(o.position)).join(' and ')} cm-1 are taken as Jahn–Teller components of one transition and averaged (10Dq from their mean)`);
+    const weighted = intensityWeights(variant.jahnTeller).some((w) => w !== 1);
+    notes.push(`${variant.jahnTeller.map((o) => Math.round(o.position)).join(' and ')} cm-1 are taken as Jahn–Teller components of one transition at their ${weighted ? 'intensity-weighted centroid' : 'mean (no intensities given to weight them)'}, ${Math.round(best.candidate.variant.observations[0]!.position)} cm-1`);
   }
   if (bFit !== null) notes.push(`uncertainties from ${basis}`);
   if (settings.mode === 'ratio' && bFit !== null) notes.push(settings.cOverBSource);
@@ -291,9 +304,16 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
  *   spin-forbidden transitions those bands are, and a stray or split maximum
  *   finds one within its σ (common practice: B is read from two spin-allowed
  *   bands, or from the sextet-free spectrum of high-spin d5).
+ *   10Dq then rests on that B as well, unless the spin-allowed band lies at
+ *   exactly 10Dq (ν1 of d3, d8).
  * - 10Dq when one band is fitted and the spin-allowed class has several
  *   transitions: which one the band is cannot be told from its position
  *   alone, and 10Dq follows from that choice.
+ * - 10Dq and B when fewer than two of the spin-allowed bands they are fitted
+ *   to have their maximum inside the measured range: the others' positions
+ *   are extrapolated from a flank (the spectrum stage's 'beyond-…' bands),
+ *   and a two-parameter fit through one extrapolated position is no
+ *   measurement of B.
  * The value is still reported; the entry and the warning say on what it rests.
  */
 function restingOnWeakBands(best: Evaluated, settings: FitSettings): Array<{ parameter: 'b' | 'tenDq'; reason: string; action: string; warning: string }> {
@@ -310,6 +330,28 @@ function restingOnWeakBands(best: Evaluated, settings: FitSettings): Array<{ par
       action: 'reported, but not determined by spin-allowed bands',
       warning: `B = ${Math.round(best.params.b)} cm-1 is not determined by spin-allowed bands: one band is spin-allowed and B rests on which spin-forbidden transitions the others are`,
     });
+    if (dqOnlyLevel(scan, branch) !== [...assignedAllowed][0]) {
+      out.push({
+        parameter: 'tenDq',
+        reason: 'one band is assigned to a spin-allowed transition whose energy depends on B; B rests on the spin-forbidden ones',
+        action: 'reported, but not determined by spin-allowed bands',
+        warning: `10Dq = ${Math.round(10 * best.params.dq)} cm-1 is not determined by spin-allowed bands alone: it rests on B, and B on the spin-forbidden assignment`,
+      });
+    }
+  }
+  const window = settings.window;
+  if (window && best.bDetermined && !best.bPrior) {
+    const observations = variant.observations;
+    const allowedRows = observations.map((o, i) => ({ o, k: best.levelIndices[i]! })).filter(({ k }) => allowed.has(k));
+    const outside = allowedRows.filter(({ o }) => o.position < window.min || o.position > window.max);
+    if (outside.length > 0 && allowedRows.length - outside.length < 2) {
+      const where = outside.map(({ o }) => Math.round(o.position)).join(' and ');
+      const reason = `it rests on the band at ${where} cm-1, whose maximum lies outside the measured range (${Math.round(window.min)}–${Math.round(window.max)} cm-1): its position is extrapolated`;
+      for (const [parameter, name, value] of [['tenDq', '10Dq', 10 * best.params.dq], ['b', 'B', best.params.b]] as const) {
+        if (out.some((u) => u.parameter === parameter)) continue;
+        out.push({ parameter, reason, action: 'reported, but not fixed by bands inside the measured range', warning: `${name} = ${Math.round(value)} cm-1 is not determined by bands inside the measured range: ${reason}` });
+      }
+    }
   }
   if (variant.observations.length === 1 && branch.allowed.length > 1 && assignedAllowed.size === 1) {
     const id = scan.ids[best.levelIndices[0]!]!;

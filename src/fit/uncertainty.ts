@@ -10,6 +10,9 @@
  *   default σ = max(100 cm-1, 1% of its position) (observations.ts), and
  *   cov = (J_σᵀJ_σ)⁻¹: the spread of the exact solution under that noise.
  * With C/B fixed, σ(C) = (C/B)·σ(B); with C fixed it is null.
+ * - One band with B fixed at its prior (prior-b.ts): σ(B) is the prior's σ,
+ *   and 10Dq carries both the band's σ and B's: with E(Dq, B) = ν,
+ *   σ²(Dq) = (σν/E_Dq)² + (E_B/E_Dq)²·σB², cov(Dq, B) = −(E_B/E_Dq)·σB².
  */
 import { covarianceCorrelation, jacobianCovariance } from './covariance.js';
 import type { Evaluated } from './evaluate.js';
@@ -35,6 +38,7 @@ export function fitUncertainty(best: Evaluated, weighted: boolean): FitUncertain
     const sigma = observations[0]!.sigma * ((10 * best.params.dq) / observations[0]!.position);
     return { ...NONE, uncertainty: { tenDq: sigma, dq: sigma / 10, b: null, c: null }, basis: 'the band position uncertainty' };
   }
+  if (best.bPrior) return priorBUncertainty(best);
   if (!best.lsq || !best.problem) return NONE;
   const m = observations.length;
   const p = best.problem.mode === 'free' ? 3 : 2;
@@ -69,6 +73,21 @@ export function fitUncertainty(best: Evaluated, weighted: boolean): FitUncertain
       cB: p === 3 ? finite(corr[5]!) : null,
     },
     basis,
+  };
+}
+
+/** The prior-B case of fitUncertainty (see the module docstring). */
+function priorBUncertainty(best: Evaluated): FitUncertainty {
+  const { sigma: sB, dEdDq, dEdB, cHeld } = best.bPrior!;
+  if (!Number.isFinite(dEdDq) || !Number.isFinite(dEdB) || dEdDq === 0) return { ...NONE, basis: 'not available (the solution was not polished)' };
+  const sigmaBand = best.candidate.variant.observations[0]!.sigma;
+  const k = dEdB / dEdDq;
+  const sdDq = Math.sqrt((sigmaBand / dEdDq) ** 2 + (k * sB) ** 2);
+  const corr = sdDq > 0 && sB > 0 ? (-k * sB * sB) / (sdDq * sB) : null;
+  return {
+    uncertainty: { tenDq: 10 * sdDq, dq: sdDq, b: sB, c: cHeld ? null : (best.params.c / best.params.b) * sB },
+    correlation: { bDq: corr, cDq: null, cB: null },
+    basis: "the band's uncertainty and the spread of B's prior (B fixed at it)",
   };
 }
 

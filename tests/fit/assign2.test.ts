@@ -26,7 +26,11 @@ describe('what a parameter rests on', () => {
   it('one band of an ion with several spin-allowed transitions: 10Dq is said to rest on which one it is', () => {
     const r = fitBands({ ion: 'Co2+', geometry: 'tetrahedral', bands: '16000' });
     expect(r.undetermined.map((u) => u.parameter)).toEqual(expect.arrayContaining(['tenDq', 'b']));
-    expect(r.warnings.join(' ')).toMatch(/10Dq = \d+ cm-1 is not determined by one band alone: it assumes the band is 4A2\(F\) → /);
+    expect(r.warnings.join(' ')).toMatch(/10Dq = \d+ cm-1 is not determined by one band alone: it assumes the band is 4A2\(F\) → 4T1\(P\)/);
+    // The visible band of tetrahedral Co(II) is ν3, 4A2 → 4T1(P), near 15 000–16 000 cm-1 with 10Dq ≈ 3 000–4 500
+    // ([CoCl4]2- to [Co(NCS)4]2-; Lever, Inorganic Electronic Spectroscopy, 2nd ed. (1984), from memory).
+    expect(r.tenDq).toBeGreaterThan(2500);
+    expect(r.tenDq).toBeLessThan(5000);
   });
 
   it('one band of an ion with one spin-allowed transition: 10Dq is determined, only B is listed', () => {
