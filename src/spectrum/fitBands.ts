@@ -17,7 +17,10 @@
  * 3. the edge (in 'auto' mode) is tried off when present and on when
  *    absent, kept by the same criterion;
  * 4. a band is added where the residual still shows one (not at the range
- *    boundaries), kept only by the criterion; then step 2–3 again.
+ *    boundaries), kept only by the criterion; then step 2–3 again;
+ * 5. the chosen model is refined to convergence and pruned once more (a
+ *    band undetermined only at convergence is dropped), so no reported band
+ *    has a position deviation over half its FWHM.
  */
 import { gaussianValue } from './gaussian.js';
 import { type BandCandidate, xyFindBandCandidates } from './xyFindBandCandidates.js';
@@ -194,7 +197,15 @@ export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOpti
   fit = bandUnderEdge(ctx, fit);
   fit = broadBandsToBaseline(ctx, fit);
   // The chosen model is refined to convergence (its trial stopped at the coarser tolerance, or early).
-  return refine(x, y, fit.bands, fit.edge, ctx.o, { maxIterations: 200, chiSquareTolerance: 0.01 });
+  let final = refine(x, y, fit.bands, fit.edge, ctx.o, { maxIterations: 200, chiSquareTolerance: 0.01 });
+  // Converged, a band may have drifted where its position is undetermined (a broad band taking up the baseline's
+  // curvature at the end of the range): pruned at the lenient limit a band under the edge is held to.
+  for (let loop = 0; loop < 3; loop++) {
+    const kept = prune(final, x, o.noise, o.narrowFwhm, Math.max(o.uncertainFraction ?? 0.5, UNDER_EDGE_UNCERTAIN));
+    if (kept === null || kept.length === 0) break;
+    final = refine(x, y, kept, final.edge, ctx.o, { maxIterations: 200, chiSquareTolerance: 0.01 });
+  }
+  return final;
 }
 
 interface Context {
