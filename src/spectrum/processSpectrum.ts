@@ -49,6 +49,7 @@ import { FieldgapError, invalidArgument } from '../errors.js';
 import { defaultThresholds, type ClassificationThresholds } from './bandClassify.js';
 import { bandsFromFit } from './bandsFromFit.js';
 import { fitBands } from './fitBands.js';
+import { gaussiansGroupMultiplets } from './gaussiansGroupMultiplets.js';
 import { gaussianValue } from './gaussian.js';
 import { spectrumToEnergy } from './spectrumToEnergy.js';
 import type { MaskReason, ProcessedSpectrum, Spectrum, StepCorrection } from './types.js';
@@ -212,8 +213,15 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const epsilonPerSignal = energy.signalUnit === 'epsilon' ? 1 : concentration === undefined ? null : 1 / (concentration * pathLength);
   const thresholds = { ...defaultThresholds(geometry), ...options.thresholds };
   const edgeAt = (v: number) => (fit.edge === null ? 0 : gaussianValue(v, fit.edge.position, fit.edge.height, fit.edge.fwhm));
-  const { bands: found, relative } = bandsFromFit(fit.bands, {
-    epsilonPerSignal, positionSd: fit.positionSd, noise, gridStep: step, thresholds, range,
+  // A multiplet (spin–orbit, Jahn–Teller, or an asymmetric band fitted by two Gaussians) is one band at its centre.
+  const grouped = gaussiansGroupMultiplets(fit.bands, fit.positionSd, { minFwhm: thresholds.narrowFwhm });
+  for (const parts of grouped.components) {
+    if (parts.length < 2) continue;
+    const maximum = gaussiansGroupMultiplets(parts, new Float64Array(parts.length)).bands[0]!.position;
+    warnings.push(`fitted components at ${parts.map((b) => b.position.toFixed(0)).join(', ')} cm-1 overlap without a maximum or shoulder of their own: reported as one band at the maximum of their sum, ${maximum.toFixed(0)} cm-1: a split (spin–orbit or Jahn–Teller) or asymmetric band`);
+  }
+  const { bands: found, relative } = bandsFromFit(grouped.bands, {
+    epsilonPerSignal, positionSd: grouped.positionSd, noise, gridStep: step, thresholds, range,
     baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
   });
   const bands = options.chargeTransferOnly === true ? found.map((b) => ({ ...b, kind: 'charge-transfer' as const })) : found;
