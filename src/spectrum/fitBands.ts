@@ -191,6 +191,7 @@ export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOpti
     if (extra === undefined) break;
     const trial = refine(x, y, [...fit.bands, { position: extra.position, height: extra.height, fwhm: extra.fwhm }].sort((a, b) => a.position - b.position), fit.edge, o);
     if (prune(trial, x, o.noise, o.narrowFwhm, o.uncertainFraction) !== null || ctx.score(trial) >= ctx.score(fit) - BIC_MARGIN) break;
+    if (broadenedWeak(trial, fit, extra, o)) break;
     fit = trial;
   }
   if (added > 0) fit = simplify(ctx, fit);
@@ -206,6 +207,22 @@ export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOpti
     final = refine(x, y, kept, final.edge, ctx.o, { maxIterations: 200, chiSquareTolerance: 0.01 });
   }
   return final;
+}
+
+/**
+ * A narrow residual candidate (a spin-forbidden line, exempt from
+ * minAddedFraction) that the refinement broadened past 2 × narrowFwhm is no
+ * longer a line: it is taking up a broad misfit (the heavy tail of an
+ * asymmetric band, a scattering baseline's curvature between bands) and is
+ * held, like any broad added band, to minAddedFraction of the tallest band.
+ */
+function broadenedWeak(trial: RefineBandsResult, before: RefineBandsResult, extra: GaussianParameters, o: FitBandsOptions): boolean {
+  if (extra.fwhm >= 2 * o.narrowFwhm) return false;
+  const added = trial.bands
+    .filter((b) => before.bands.every((a) => Math.abs(a.position - b.position) > 0.15 * a.fwhm))
+    .sort((a, b) => Math.abs(a.position - extra.position) - Math.abs(b.position - extra.position))[0];
+  if (added === undefined || added.fwhm < 2 * o.narrowFwhm) return false;
+  return added.height < (o.minAddedFraction ?? 0) * trial.bands.reduce((m, b) => Math.max(m, b.height), 0);
 }
 
 interface Context {
