@@ -17,7 +17,10 @@
  * 3. the edge (in 'auto' mode) is tried off when present and on when
  *    absent, kept by the same criterion;
  * 4. a band is added where the residual still shows one (not at the range
- *    boundaries), kept only by the criterion; then step 2–3 again.
+ *    boundaries), kept only by the criterion; then step 2–3 again;
+ * 5. the chosen model is refined to convergence and pruned once more (a
+ *    band undetermined only at convergence is dropped), so no reported band
+ *    has a position deviation over half its FWHM.
  */
 import { gaussianValue } from './gaussian.js';
 import { type BandCandidate, xyFindBandCandidates } from './xyFindBandCandidates.js';
@@ -188,13 +191,38 @@ export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOpti
     if (extra === undefined) break;
     const trial = refine(x, y, [...fit.bands, { position: extra.position, height: extra.height, fwhm: extra.fwhm }].sort((a, b) => a.position - b.position), fit.edge, o);
     if (prune(trial, x, o.noise, o.narrowFwhm, o.uncertainFraction) !== null || ctx.score(trial) >= ctx.score(fit) - BIC_MARGIN) break;
+    if (broadenedWeak(trial, fit, extra, o)) break;
     fit = trial;
   }
   if (added > 0) fit = simplify(ctx, fit);
   fit = bandUnderEdge(ctx, fit);
   fit = broadBandsToBaseline(ctx, fit);
   // The chosen model is refined to convergence (its trial stopped at the coarser tolerance, or early).
-  return refine(x, y, fit.bands, fit.edge, ctx.o, { maxIterations: 200, chiSquareTolerance: 0.01 });
+  let final = refine(x, y, fit.bands, fit.edge, ctx.o, { maxIterations: 200, chiSquareTolerance: 0.01 });
+  // Converged, a band may have drifted where its position is undetermined (a broad band taking up the baseline's
+  // curvature at the end of the range): pruned at the lenient limit a band under the edge is held to.
+  for (let loop = 0; loop < 3; loop++) {
+    const kept = prune(final, x, o.noise, o.narrowFwhm, Math.max(o.uncertainFraction ?? 0.5, UNDER_EDGE_UNCERTAIN));
+    if (kept === null || kept.length === 0) break;
+    final = refine(x, y, kept, final.edge, ctx.o, { maxIterations: 200, chiSquareTolerance: 0.01 });
+  }
+  return final;
+}
+
+/**
+ * A narrow residual candidate (a spin-forbidden line, exempt from
+ * minAddedFraction) that the refinement broadened past 2 × narrowFwhm is no
+ * longer a line: it is taking up a broad misfit (the heavy tail of an
+ * asymmetric band, a scattering baseline's curvature between bands) and is
+ * held, like any broad added band, to minAddedFraction of the tallest band.
+ */
+function broadenedWeak(trial: RefineBandsResult, before: RefineBandsResult, extra: GaussianParameters, o: FitBandsOptions): boolean {
+  if (extra.fwhm >= 2 * o.narrowFwhm) return false;
+  const added = trial.bands
+    .filter((b) => before.bands.every((a) => Math.abs(a.position - b.position) > 0.15 * a.fwhm))
+    .sort((a, b) => Math.abs(a.position - extra.position) - Math.abs(b.position - extra.position))[0];
+  if (added === undefined || added.fwhm < 2 * o.narrowFwhm) return false;
+  return added.height < (o.minAddedFraction ?? 0) * trial.bands.reduce((m, b) => Math.max(m, b.height), 0);
 }
 
 interface Context {

@@ -10,7 +10,8 @@
  * The noise model: the local noise of the data (second differences), never
  * below the rounding noise q/√12 of a rounded export (xQuantizationStep);
  * on smooth data (no more noise than the rounding, or under 2·10⁻⁴ of the
- * range: smoothed or computed data) the fit's σ also holds a band-shape
+ * range: smoothed or computed data; or noise under a tenth of the shape
+ * error at the tallest band: low-noise data) the fit's σ also holds a band-shape
  * error of 3 % of the band signal, since real bands are not Gaussian, and
  * broad bands are added from the residual only above a tenth of the
  * tallest. Detector steps are corrected only on strong evidence (8 σ of
@@ -49,6 +50,7 @@ import { FieldgapError, invalidArgument } from '../errors.js';
 import { defaultThresholds, type ClassificationThresholds } from './bandClassify.js';
 import { bandsFromFit } from './bandsFromFit.js';
 import { fitBands } from './fitBands.js';
+import { gaussiansGroupMultiplets } from './gaussiansGroupMultiplets.js';
 import { gaussianValue } from './gaussian.js';
 import { spectrumToEnergy } from './spectrumToEnergy.js';
 import type { MaskReason, ProcessedSpectrum, Spectrum, StepCorrection } from './types.js';
@@ -188,8 +190,8 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const baselineGuess = lowEnd === null
     ? hull
     : Float64Array.from(hull, (h, i) => Math.max(Math.min(h, (fy[i] as number) - gaussianValue(fx[i] as number, lowEnd.position, lowEnd.height, lowEnd.fwhm)), lowest));
-  // The fit's σ: measurement and rounding noise, plus, on smooth data, the shape error of a Gaussian band model on real bands.
-  const smooth = isSmooth(median(measuredNoise), quantum, fy);
+  // The fit's σ: measurement and rounding noise, plus, on smooth or low-noise data, the shape error of a Gaussian band model on real bands.
+  const smooth = isSmooth(median(measuredNoise), quantum, fy) || shapeDominates(median(measuredNoise), shapeError, lifted);
   const sigma = Float64Array.from(localNoise, (s, i) => Math.hypot(s, smooth ? shapeError * Math.max((fy[i] as number) - (baselineGuess[i] as number), 0) : 0));
   // Candidates are judged by their curvature against the white noise; the shape error is smooth and enters the fit only.
   const candidates = xyFindBandCandidates(fx, lifted, { noise: localNoise, broadFwhm, narrowFwhm, narrow: false });
@@ -212,8 +214,15 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const epsilonPerSignal = energy.signalUnit === 'epsilon' ? 1 : concentration === undefined ? null : 1 / (concentration * pathLength);
   const thresholds = { ...defaultThresholds(geometry), ...options.thresholds };
   const edgeAt = (v: number) => (fit.edge === null ? 0 : gaussianValue(v, fit.edge.position, fit.edge.height, fit.edge.fwhm));
-  const { bands: found, relative } = bandsFromFit(fit.bands, {
-    epsilonPerSignal, positionSd: fit.positionSd, noise, gridStep: step, thresholds, range,
+  // A multiplet (spin–orbit, Jahn–Teller, or an asymmetric band fitted by two Gaussians) is one band at its centre.
+  const grouped = gaussiansGroupMultiplets(fit.bands, fit.positionSd, { minFwhm: thresholds.narrowFwhm });
+  for (const parts of grouped.components) {
+    if (parts.length < 2) continue;
+    const maximum = gaussiansGroupMultiplets(parts, new Float64Array(parts.length)).bands[0]!.position;
+    warnings.push(`fitted components at ${parts.map((b) => b.position.toFixed(0)).join(', ')} cm-1 overlap without a maximum or shoulder of their own: reported as one band at the maximum of their sum, ${maximum.toFixed(0)} cm-1: a split (spin–orbit or Jahn–Teller) or asymmetric band`);
+  }
+  const { bands: found, relative } = bandsFromFit(grouped.bands, {
+    epsilonPerSignal, positionSd: grouped.positionSd, noise, gridStep: step, thresholds, range,
     baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
   });
   const bands = options.chargeTransferOnly === true ? found.map((b) => ({ ...b, kind: 'charge-transfer' as const })) : found;
@@ -236,6 +245,31 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
 
 /** A band centre may lie up to this fraction of its FWHM below the low-energy end of the range. */
 const BEYOND_LOW_END = 0.6;
+
+/**
+ * The band model's shape error dominates the noise when, at the tallest
+ * point above the lower hull, it exceeds this many noise deviations.
+ */
+const SHAPE_DOMINATES = 10;
+
+/**
+ * True when the Gaussian band model's shape error (shapeError × the tallest
+ * signal above the lower hull) exceeds SHAPE_DOMINATES noise deviations:
+ * low-noise (or smoothed) measured data, on which an asymmetric band's
+ * misfit, a few per cent of its height spread over the ~20 grid points
+ * across it, is worth a χ² of the order of 100, ten times the margin by
+ * which the model selection keeps an extra band (BIC_MARGIN): without the
+ * shape error in σ every asymmetric band is split in two and its flanks
+ * sprout weak bands. Ten, not the three noise deviations a single point
+ * would show, keeps noisy data on the noise-only σ: there a weak band in a
+ * UV edge's rise traded against the edge (tests/spectrum/process.test.ts).
+ * Such data are then treated as smooth (isSmooth).
+ */
+function shapeDominates(noise: number, shapeError: number, lifted: Float64Array): boolean {
+  let tallest = 0;
+  for (const v of lifted) tallest = Math.max(tallest, v);
+  return noise * SHAPE_DOMINATES < shapeError * tallest;
+}
 
 /**
  * An edge is modelled when the last 10 % of the kept range rises by more
@@ -263,7 +297,8 @@ function chooseEdge(x: Float64Array, y: Float64Array, hull: Float64Array, noise:
  * noise (1.5 q/√12), or, unrounded, under 2·10⁻⁴ of their range (smoothed
  * or computed data). On such data the noise says nothing about how well
  * Gaussians can describe real, asymmetric bands, and the band model's shape
- * error must be allowed for; on noisy data the noise dominates it.
+ * error must be allowed for; on noisy data the noise dominates it (but see
+ * shapeDominates: low-noise data are treated alike).
  */
 function isSmooth(measured: number, quantum: number, y: Float64Array): boolean {
   let min = Number.POSITIVE_INFINITY;

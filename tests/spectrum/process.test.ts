@@ -74,15 +74,26 @@ describe('processSpectrum on synthetic spectra (invented cases)', () => {
     }
   });
 
-  it('tetrahedral Co(II)-like strong band (ε ≈ 600) with a companion, descending scan', () => {
+  it('tetrahedral Co(II)-like strong band (ε ≈ 600) with an unresolved companion, descending scan: one band at the envelope maximum', () => {
+    // Issue 13: the spin–orbit multiplet of tetrahedral Co(II) (components 1 200 cm-1 apart, no shoulder of their
+    // own) is ONE band, at the maximum of the envelope.
     const bands = [{ position: 16000, fwhm: 2400, epsilon: 600 }, { position: 14800, fwhm: 1800, epsilon: 350 }];
     const spectrum = syntheticSpectrum({ bands, concentration: 0.001, noise: 0.002, seed: 9, descending: true });
     const result = processSpectrum(spectrum, { concentration: 0.001, geometry: 'tetrahedral' });
-    expect(result.bands).toHaveLength(2);
-    const strong = expectRecovered(result, bands[0]!, 0.6, true);
-    expect(strong.kind).toBe('d-d');
-    expect(Math.abs(strong.epsilon! - 600) / 600).toBeLessThan(TOLERANCE.shoulderShape);
-    expect(expectRecovered(result, bands[1]!, 0.35, true).kind).toBe('d-d');
+    expect(result.bands).toHaveLength(1);
+    // Slow reference: the envelope's maximum and height by dense sampling of the true sum (invented bands, not an outside value).
+    let top = 0;
+    let at = 0;
+    for (let x = 13000; x <= 18000; x += 1) {
+      const v = bands.reduce((s, b) => s + b.epsilon * Math.exp(-4 * Math.LN2 * ((x - b.position) / b.fwhm) ** 2), 0);
+      if (v > top) [top, at] = [v, x];
+    }
+    const band = result.bands[0]!;
+    expect(band.kind).toBe('d-d');
+    // One Gaussian (or components joined at their envelope's maximum): a symmetric model of an asymmetric envelope
+    // places it within the shoulder tolerance, a tenth of the FWHM (TOLERANCE.shoulderPosition).
+    expect(Math.abs(band.position - at)).toBeLessThan(TOLERANCE.shoulderPosition * band.fwhm);
+    expect(Math.abs(band.epsilon! - top) / top).toBeLessThan(TOLERANCE.isolatedShape);
   });
 
   it('masks a saturated charge-transfer region in the UV and still finds the d–d bands', () => {
