@@ -1,7 +1,6 @@
 import {
-  computeFieldLevels, doubleGroupRawLevels, tetragonalRawLevels, type FieldLevel, type ResolvedParameters,
+  computeFieldLevels, doubleGroupRawLevels, tetragonalEnergies, type FieldLevel, type ResolvedParameters,
 } from '../ligand-field/field-levels.js';
-import { CHANNEL_D4_IRREPS } from '../ligand-field/tetragonal-blocks.js';
 import type { Geometry } from '../ligand-field/types.js';
 
 /**
@@ -27,9 +26,9 @@ export function modelEnergies(setting: ModelSetting, p: ResolvedParameters): Map
     const ground = raw[0]!.energy;
     for (const r of raw) out.set(`${r.irrep}#${r.rank}`, r.energy - ground);
   } else {
-    const raw = tetragonalRawLevels(setting.d, p);
-    const ground = raw[0]!.energy;
-    for (const r of raw) out.set(`${r.twoS}:${CHANNEL_D4_IRREPS[r.channel]}#${r.rank}`, r.energy - ground);
+    const { count, energy, keys, ground } = tetragonalEnergies(setting.d, p);
+    const zero = energy[ground]!;
+    for (let i = 0; i < count; i++) out.set(keys[i]!, energy[i]! - zero);
   }
   return out;
 }

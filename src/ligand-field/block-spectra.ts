@@ -35,18 +35,28 @@ function workspaceFor(blocks: BlockSet): Workspace {
   return ws;
 }
 
-/** out[0..size²) = Σ_p coefficients[p]·operators[p]. */
+/**
+ * The lower triangle (row i, columns 0..i) of Σ_p coefficients[p]·operators[p]
+ * into out (size², row-major): all the eigensolvers of eigen-symmetric.ts
+ * read, so the upper triangle is left as it was and half the work is saved.
+ */
 export function blockHamiltonianInto(block: OperatorBlock, coefficients: ArrayLike<number>, out: Float64Array): void {
-  const length = block.size * block.size;
+  const n = block.size;
   const ops = block.operators;
   const first = ops[0]!;
   const c0 = coefficients[0]!;
-  for (let i = 0; i < length; i++) out[i] = c0 * first[i]!;
+  for (let i = 0; i < n; i++) {
+    const row = i * n;
+    for (let j = row; j <= row + i; j++) out[j] = c0 * first[j]!;
+  }
   for (let p = 1; p < ops.length; p++) {
     const op = ops[p]!;
     const cp = coefficients[p]!;
     if (cp === 0) continue;
-    for (let i = 0; i < length; i++) out[i] = out[i]! + cp * op[i]!;
+    for (let i = 0; i < n; i++) {
+      const row = i * n;
+      for (let j = row; j <= row + i; j++) out[j] = out[j]! + cp * op[j]!;
+    }
   }
 }
 

@@ -1,3 +1,4 @@
+import { cubicOrbitalField, realFieldInMlBasis } from './orbital-field.js';
 import type { Geometry } from './types.js';
 
 /**
@@ -10,22 +11,14 @@ import type { Geometry } from './types.js';
  * Tetrahedral: the same operator with the opposite sign (e = −6Dq, t2 = +4Dq,
  * 10Dq = E(t2) − E(e)), Dq being the tetrahedral field's own Dq.
  *
- * Returns a 5×5 row-major Float64Array. Other one-electron terms (a tetragonal
- * Ds, Dt, say) would be further operators of the same shape, each with its
- * own parameter: the many-electron Hamiltonian is Σ parameter × operator.
+ * Returns a 5×5 row-major Float64Array: realFieldInMlBasis of the cubic
+ * OrbitalField at Dq = 1. Other one-electron terms (the tetragonal Ds, Dt)
+ * are further operators of the same shape, each with its own parameter: the
+ * many-electron Hamiltonian is Σ parameter × operator.
  */
 export function cubicFieldOrbitalMatrix(geometry: Geometry): Float64Array {
-  const sign = geometry === 'octahedral' ? 1 : -1;
-  const v = new Float64Array(25);
-  const set = (mRow: number, mCol: number, value: number): void => {
-    v[(mRow + 2) * 5 + (mCol + 2)] = sign * value;
-  };
-  set(2, 2, 1);
-  set(-2, -2, 1);
-  set(1, 1, -4);
-  set(-1, -1, -4);
-  set(0, 0, 6);
-  set(2, -2, 5);
-  set(-2, 2, 5);
-  return v;
+  // The engine's field operator comes from the one-electron field matrix
+  // (orbital-field.ts), the single place a field is defined; the table above
+  // is what it gives, and tests/ligand-field/orbital-field.test.ts holds it to that.
+  return realFieldInMlBasis(cubicOrbitalField(1, geometry));
 }

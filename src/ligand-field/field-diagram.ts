@@ -1,6 +1,6 @@
 import { invalidArgument } from '../errors.js';
 import {
-  computeFieldLevels, doubleGroupRawLevels, tetragonalRawLevels, validateTetragonalParameters, type FieldLevel,
+  computeFieldLevels, doubleGroupRawLevels, tetragonalEnergies, validateTetragonalParameters, type FieldLevel,
   type ResolvedParameters,
 } from './field-levels.js';
 import { CHANNEL_D4_IRREPS } from './tetragonal-blocks.js';
@@ -89,11 +89,11 @@ function identifiedEnergies(d: number, geometry: Geometry, p: ResolvedParameters
     const ground = raw[0]!.energy;
     for (const r of raw) out.set(`${r.irrep}#${r.rank}`, [r.energy - ground, r.degeneracy]);
   } else {
-    const raw = tetragonalRawLevels(d, p);
-    const ground = raw[0]!.energy;
-    for (const r of raw) {
-      const irrep = CHANNEL_D4_IRREPS[r.channel]!;
-      out.set(`${r.twoS}:${irrep}#${r.rank}`, [r.energy - ground, (r.twoS + 1) * (irrep === 'E' ? 2 : 1)]);
+    const { count, energy, keys, twoS, channel, ground } = tetragonalEnergies(d, p);
+    const zero = energy[ground]!;
+    for (let i = 0; i < count; i++) {
+      const irrep = CHANNEL_D4_IRREPS[channel[i]!]!;
+      out.set(keys[i]!, [energy[i]! - zero, (twoS[i]! + 1) * (irrep === 'E' ? 2 : 1)]);
     }
   }
   return out;

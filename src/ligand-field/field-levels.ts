@@ -4,6 +4,8 @@ import { doubleGroupBlocks, type DoubleGroupIrrep } from './double-group-blocks.
 import { createEigenWorkspace, symmetricEigen, symmetricEigenvaluesInPlace, type EigenWorkspace } from './eigen-symmetric.js';
 import { computeLevels } from './levels.js';
 import { CHANNEL_D4_IRREPS, D4_DIMENSION, tetragonalBlocks, type D4Irrep } from './tetragonal-blocks.js';
+import { tetragonalLevelsFast } from './tetragonal-levels.js';
+import { tetragonalSpectrum, type TetragonalSpectrum } from './tetragonal-spectrum.js';
 import type { CubicIrrep, FieldParameters, Geometry } from './types.js';
 import { validateD, validateFieldParameters, validateFinite, validateGeometry } from './validate.js';
 
@@ -118,28 +120,34 @@ export interface RawTetragonalLevel {
   rank: number;
 }
 
-const tetragonalScratch = { size: 0, h: new Float64Array(0), values: new Float64Array(0), eigen: createEigenWorkspace(1) };
+const tetragonalCoefficients = new Float64Array(5);
+
+/**
+ * The spin-free (S, D4 irrep) levels of d^n (1..9), octahedral geometry, at
+ * Dq, B, C, Ds, Dt (ζ ignored), in the fixed order of tetragonal-spectrum.ts
+ * (unsorted, ground marked): what fits and diagrams evaluate. The arrays are
+ * reused by the next call for the same d.
+ */
+export function tetragonalEnergies(d: number, p: ResolvedParameters): TetragonalSpectrum {
+  tetragonalCoefficients[0] = p.dq;
+  tetragonalCoefficients[1] = p.b;
+  tetragonalCoefficients[2] = p.c;
+  tetragonalCoefficients[3] = p.ds;
+  tetragonalCoefficients[4] = p.dt;
+  return tetragonalSpectrum(tetragonalBlocks(d), tetragonalCoefficients);
+}
 
 /**
  * Every spin-free (S, D4 irrep) level of d^n (1..9) in the octahedral
  * geometry at Dq, B, C, Ds, Dt (ζ ignored), ascending (ties: higher spin,
  * then channel). Identity of a level along any path: (twoS, channel, rank).
+ * Objects made from tetragonalSpectrum's typed arrays and sorted: for the
+ * hot loops (fits, diagrams) tetragonalSpectrum itself is cheaper.
  */
 export function tetragonalRawLevels(d: number, p: ResolvedParameters): RawTetragonalLevel[] {
-  const blocks = tetragonalBlocks(d);
-  const coefficients = [p.dq, p.b, p.c, p.ds, p.dt];
-  const raw: RawTetragonalLevel[] = [];
-  const ws = tetragonalScratch;
-  blocks.blocks.forEach((row, s) => {
-    row.forEach((block, channel) => {
-      const n = block.size;
-      if (n === 0) return;
-      if (ws.size < n) Object.assign(ws, { size: n, h: new Float64Array(n * n), values: new Float64Array(n), eigen: createEigenWorkspace(n) });
-      blockHamiltonianInto(block, coefficients, ws.h);
-      symmetricEigenvaluesInPlace(ws.h, n, ws.values, ws.eigen);
-      for (let rank = 0; rank < n; rank++) raw.push({ energy: ws.values[rank]!, twoS: blocks.twoSValues[s]!, channel, rank });
-    });
-  });
+  const { count, energy, twoS, channel, rank } = tetragonalEnergies(d, p);
+  const raw = new Array<RawTetragonalLevel>(count);
+  for (let i = 0; i < count; i++) raw[i] = { energy: energy[i]!, twoS: twoS[i]!, channel: channel[i]!, rank: rank[i]! };
   raw.sort((x, y) => x.energy - y.energy || y.twoS - x.twoS || x.channel - y.channel);
   return raw;
 }
@@ -155,6 +163,24 @@ export function spinFreeFieldLevels(d: number, geometry: Geometry, p: ResolvedPa
       term: level.term, multiplicity: level.multiplicity, label: level.label,
     }));
   }
+  const tol = tolerance(p);
+  if (p.dq !== 0) {
+    return tetragonalLevelsFast(d, p.dq, p.b, p.c, p.ds, p.dt, tol).map(({ energy, twoS, irrep, parent, degeneracy }) => {
+      const term = `${twoS + 1}${GERADE_D4H[irrep]}`;
+      return { energy, degeneracy, irrep: GERADE_D4H[irrep], parent, parentWeight: 1, term, multiplicity: twoS + 1, label: `${term}[${parent}]` };
+    });
+  }
+  return spinFreeTetragonalLevelsViaCubic(d, p);
+}
+
+/**
+ * The tetragonal spin-free levels the slow, plain way: a labelled cubic
+ * evaluation (computeLevels) gives the octahedral parents by (2S+1, D4
+ * irrep) in ascending order, and the sorted tetragonal levels take them by
+ * rank. Used at Dq = 0 (where only computeLevels orders a term's components)
+ * and as the reference of tetragonal-levels.ts in the tests.
+ */
+export function spinFreeTetragonalLevelsViaCubic(d: number, p: ResolvedParameters): FieldLevel[] {
   const cubic = computeLevels(d, 'octahedral', p).levels;
   // (2S+1, D4 irrep) → octahedral parents in ascending energy.
   const parents = new Map<string, string[]>();

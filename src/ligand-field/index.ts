@@ -18,3 +18,6 @@ export { computeFieldDiagram, FIELD_DIAGRAM_AXES, type FieldDiagram, type FieldD
 export { fieldDiagramDocument, fieldLevelsDocument } from './field-documents.js';
 export { tetragonalOrbitalEnergies } from './tetragonal-field.js';
 export { freeIonZeta, FREE_ION_ZETA, type FreeIonZeta } from './free-ion-zeta.js';
+export { cubicOrbitalField, tetragonalOrbitalField, REAL_D_ORBITALS, type OrbitalField } from './orbital-field.js';
+export { angularOverlapField, type AngularOverlapLigand } from './angular-overlap.js';
+export { generalFieldLevels, type GeneralFieldLevel } from './general-field-levels.js';

@@ -1,3 +1,5 @@
+import { realFieldInMlBasis, tetragonalOrbitalField } from './orbital-field.js';
+
 /**
  * The tetragonal (D4h) one-electron field of a d shell, per unit Ds and per
  * unit Dt, in the |m_l = −2..2> basis (index m_l + 2), Condon–Shortley
@@ -16,27 +18,20 @@
  * traceless, so the centre of gravity of the five orbitals stays at zero:
  *   Ds: m_l = 0 → −2, ±1 → −1, ±2 → +2;
  *   Dt: m_l = 0 → −6, ±1 → +4, ±2 → −1.
- * A field from ligand positions (angular overlap, e_σ and e_π per ligand)
- * would be one more 5×5 operator of the same shape.
+ * The operators are made from the one-electron field matrix of
+ * orbital-field.ts (tetragonalOrbitalField), the single definition of the
+ * field; a field from ligand positions (angular-overlap.ts) is another
+ * producer of that matrix.
  */
 
-const DS_DIAGONAL = [2, -1, -2, -1, 2] as const;
-const DT_DIAGONAL = [-1, 4, -6, 4, -1] as const;
-
-function diagonalMatrix(values: readonly number[]): Float64Array {
-  const v = new Float64Array(25);
-  for (let i = 0; i < 5; i++) v[i * 6] = values[i]!;
-  return v;
-}
-
-/** Ds operator per unit Ds: 5×5 row-major Float64Array (a new copy each call). */
+/** Ds operator per unit Ds: 5×5 row-major Float64Array (a new copy each call), from the tetragonal OrbitalField. */
 export function dsOrbitalMatrix(): Float64Array {
-  return diagonalMatrix(DS_DIAGONAL);
+  return realFieldInMlBasis(tetragonalOrbitalField(0, 1, 0));
 }
 
-/** Dt operator per unit Dt: 5×5 row-major Float64Array (a new copy each call). */
+/** Dt operator per unit Dt: 5×5 row-major Float64Array (a new copy each call), from the tetragonal OrbitalField. */
 export function dtOrbitalMatrix(): Float64Array {
-  return diagonalMatrix(DT_DIAGONAL);
+  return realFieldInMlBasis(tetragonalOrbitalField(0, 0, 1));
 }
 
 /** One-electron energies (cm-1) of the D4h orbitals in the convention above. */

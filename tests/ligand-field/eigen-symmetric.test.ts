@@ -74,3 +74,35 @@ describe('symmetric eigen-solver (Householder + implicit QL)', () => {
     }
   });
 });
+
+describe('closed forms of orders 1 and 2 (the eigenvalue fast path)', () => {
+  // Reference: symmetricEigen, which always takes the general Householder + QL path.
+  it('agree with the general path on seeded random and extreme 2×2 matrices', () => {
+    const random = seededRandom(2024);
+    const cases: number[][] = [
+      [3, 0, 0, 3], [1, 1e-17, 1e-17, 1], [1e300, 5e299, 5e299, -1e300], [1e-300, 2e-300, 2e-300, 0], [-7, 4, 4, 2],
+    ];
+    for (let t = 0; t < 200; t++) {
+      const scale = 10 ** (12 * random() - 6);
+      const q = scale * (2 * random() - 1);
+      cases.push([scale * (2 * random() - 1), q, q, scale * (2 * random() - 1)]);
+    }
+    const values = new Float64Array(2);
+    for (const c of cases) {
+      const a = Float64Array.from(c);
+      symmetricEigenvaluesInPlace(Float64Array.from(a), 2, values);
+      const reference = symmetricEigen(a, 2).values;
+      const norm = Math.max(...c.map(Math.abs));
+      expect(values[0]).toBeLessThanOrEqual(values[1]!);
+      for (let i = 0; i < 2; i++) expect(Math.abs(values[i]! - reference[i]!)).toBeLessThanOrEqual(8e-16 * norm);
+    }
+  });
+
+  it('order 1 returns the entry and refuses a non-finite one', () => {
+    const values = new Float64Array(1);
+    symmetricEigenvaluesInPlace(Float64Array.from([-2.5]), 1, values);
+    expect(values[0]).toBe(-2.5);
+    expect(() => symmetricEigenvaluesInPlace(Float64Array.from([Number.NaN]), 1, values)).toThrow(/entry \(0, 0\) is NaN/);
+    expect(() => symmetricEigenvaluesInPlace(Float64Array.from([1, 0, Number.POSITIVE_INFINITY, 1]), 2, new Float64Array(2))).toThrow(/entry \(1, 0\) is Infinity/);
+  });
+});

@@ -1,0 +1,51 @@
+import { describe, expect, it } from 'vitest';
+import { spinFreeFieldLevels, spinFreeTetragonalLevelsViaCubic, validateTetragonalParameters } from '../../src/ligand-field/field-levels.js';
+import { tetragonalEnergies, tetragonalRawLevels } from '../../src/ligand-field/field-levels.js';
+import { seededRandom } from '../reference/seeded-random.js';
+
+/**
+ * The fast labelled tetragonal path (tetragonal-levels.ts: cubic block
+ * eigenvalues and name tables, no cubic Level objects) against the plain
+ * one (a labelled computeLevels, then parents by rank): the same levels,
+ * energies, parents and order. A check of the code against itself (both use
+ * this engine's blocks); the outside checks of the energies are the dense
+ * references in tests/ligand-field/tetragonal.test.ts.
+ */
+describe('tetragonal labelled levels: fast path = plain path', () => {
+  it.each([1, 2, 3, 4, 5, 6, 7, 8, 9])('d%i on seeded parameters of both signs, incl. strong fields and square-planar-like Ds, Dt', (d) => {
+    const random = seededRandom(100 + d);
+    for (let trial = 0; trial < 25; trial++) {
+      const b = 500 + 600 * random();
+      const p = validateTetragonalParameters('octahedral', {
+        dq: 200 + 3500 * random(), b, c: b * (3 + 2 * random()),
+        ds: (trial % 5 === 4 ? 6000 : 1200) * (random() - 0.3), dt: (trial % 5 === 4 ? 2000 : 500) * (random() - 0.3),
+      });
+      expect(spinFreeFieldLevels(d, 'octahedral', p)).toEqual(spinFreeTetragonalLevelsViaCubic(d, p));
+    }
+  });
+
+  it('keeps the exact coincidence 4A1g + 4Eg of d5 (4G) apart as two parents in the right order', () => {
+    // In Oh, 4A1g and 4Eg from 4G coincide at every Dq (common practice: they are the flat lines of the d5 Tanabe–Sugano diagram).
+    const p = validateTetragonalParameters('octahedral', { dq: 1500, b: 800, c: 3200, ds: 50, dt: 10 });
+    const fast = spinFreeFieldLevels(5, 'octahedral', p);
+    expect(fast).toEqual(spinFreeTetragonalLevelsViaCubic(5, p));
+    const parents = fast.map((l) => l.parent);
+    // 4A1g(G) → 4A1g; 4Eg(G) → 4A1g + 4B1g: one and two levels, not a mix-up of the two coincident parents.
+    expect(parents.filter((name) => name === '4A1g(G)')).toHaveLength(1);
+    expect(parents.filter((name) => name === '4Eg(G)')).toHaveLength(2);
+    expect(fast.find((l) => l.parent === '4A1g(G)')!.irrep).toBe('A1g');
+  });
+
+  it('the unsorted energies carry the same levels as the sorted objects, ground marked', () => {
+    const random = seededRandom(7);
+    for (let d = 1; d <= 9; d++) {
+      const p = validateTetragonalParameters('octahedral', { dq: 1800 * random() + 100, b: 700, c: 3000, ds: 800 * (random() - 0.5), dt: 300 * (random() - 0.5) });
+      const sorted = tetragonalRawLevels(d, p);
+      const { count, energy, keys, ground } = tetragonalEnergies(d, p);
+      expect(count).toBe(sorted.length);
+      expect(energy[ground]).toBe(sorted[0]!.energy);
+      const byKey = new Map(Array.from({ length: count }, (_, i) => [keys[i]!, energy[i]!]));
+      for (const r of sorted) expect(byKey.get(`${r.twoS}:${['A1', 'A2', 'E', 'B1', 'B2'][r.channel]}#${r.rank}`)).toBe(r.energy);
+    }
+  });
+});
