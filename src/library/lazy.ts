@@ -38,6 +38,7 @@ export function lazyLibrary(engine: Library['engine'], open: () => Promise<Libra
       return opened?.readOnly ?? false;
     },
     add: async (record) => (await library()).add(record),
+    addMany: async (records) => (await library()).addMany(records),
     list: async (options) => (await library()).list(options),
     listAll: async (filter) => (await library()).listAll(filter),
     get: async (id) => (await library()).get(id),

@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { FieldgapError, invalidArgument } from '../errors.js';
+import { FieldgapError, invalidArgument, isFieldgapError } from '../errors.js';
 import { packageVersion as toolVersion } from '../version.js';
 import { DIALECT_SQL, type SqlEngine, type SqlTx } from './engine.js';
 import { openPostgresEngine, type PostgresEngineOptions } from './postgres-engine.js';
@@ -33,6 +33,14 @@ export interface Library {
   readonly readOnly: boolean;
   /** Stores a new analysis (details, original bytes, options, result) and returns it with its id. */
   add(record: NewAnalysis): Promise<AnalysisRecord>;
+  /**
+   * Stores many analyses in one transaction (one commit, one fsync): each
+   * entry of the answer is the stored record, or the FieldgapError that kept
+   * that one record out (bad details, an original over the limit), in the
+   * order given. Nothing is stored unless the whole call resolves: a database
+   * failure rejects it and no record of the batch is kept.
+   */
+  addMany(records: readonly NewAnalysis[]): Promise<(AnalysisRecord | FieldgapError)[]>;
   /** One page of records, newest first, filtered by `query` words and `ion`. */
   list(options?: ListOptions): Promise<ListPage>;
   /** Every record matching the filter (no paging), newest first: for export and series. */
@@ -88,15 +96,66 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
   const groupOnly = scope === undefined || scope.admin ? undefined : scope.group;
   const inScope = (alias: string) => (groupOnly === undefined ? { sql: '', params: [] as unknown[] } : { sql: ` AND ${alias}group_name = ?`, params: [groupOnly] as unknown[] });
 
-  const addRevision = async (tx: SqlTx, id: number, revision: number, options: StoredOptions, result: StoredResult, version: string, now: string) => {
-    const resultText = jsonText('result', result);
-    const fit = fitParams(summarizeResult(result));
+  const addRevision = async (tx: SqlTx, id: number, revision: number, texts: RevisionTexts, version: string, now: string) => {
     const row = await tx.get<{ id: number }>(
       `INSERT INTO revisions (analysis_id, revision, created_at, tool_version, options, ${FIT_COLUMNS.join(', ')})
        VALUES (?, ?, ?, ?, ?, ${FIT_COLUMNS.map(() => '?').join(', ')}) RETURNING id`,
-      [id, revision, now, version, jsonText('options', options), ...FIT_COLUMNS.map((c) => fit[c])],
+      [id, revision, now, version, texts.options, ...FIT_COLUMNS.map((c) => texts.fit[c])],
     );
-    await tx.run('INSERT INTO results (revision_id, result) VALUES (?, ?)', [row!.id, resultText]);
+    await tx.run('INSERT INTO results (revision_id, result) VALUES (?, ?)', [row!.id, texts.result]);
+  };
+
+  /** Checks a new record and makes every value its rows need, before any transaction. */
+  const prepareAdd = (record: NewAnalysis): PreparedAdd => {
+    if (typeof record !== 'object' || record === null) throw invalidArgument('record', 'expected an analysis record');
+    const details = checkDetails({ ...record, sample: record.sample ?? '' });
+    const fileName = baseFileName(record.fileName);
+    const content = originalBytes(record.content, maxOriginalBytes);
+    const ion = details.ion ?? canonicalIonOrNull(ionOfResult(record.result)) ?? canonicalIonOrNull(ionOfOptions(record.options));
+    return {
+      values: [
+        details.sample!, details.formula ?? null, ion, JSON.stringify(details.ligands ?? []), details.solvent ?? null,
+        details.temperature ?? null, details.measuredOn ?? null, details.note ?? null,
+        fileName, sha256Hex(content), content.length, scope?.user ?? null, scope?.group ?? null,
+      ],
+      content,
+      texts: revisionTexts(record.options, record.result),
+      toolVersion: record.toolVersion ?? toolVersion(),
+    };
+  };
+
+  const insertPrepared = async (tx: SqlTx, p: PreparedAdd, now: string): Promise<number> => {
+    const row = await tx.get<{ id: number }>(
+      `INSERT INTO analyses
+        (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note,
+         original_name, original_sha256, original_size, owner, group_name, revision, tool_version, ${FIT_COLUMNS.join(', ')})
+       VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ${FIT_COLUMNS.map(() => '?').join(', ')}) RETURNING id`,
+      [now, now, ...p.values, 1, p.toolVersion, ...FIT_COLUMNS.map((c) => p.texts.fit[c])],
+    );
+    const newId = Number(row!.id);
+    await tx.run('INSERT INTO originals (analysis_id, bytes) VALUES (?, ?)', [newId, p.content]);
+    await addRevision(tx, newId, 1, p.texts, p.toolVersion, now);
+    return newId;
+  };
+
+  const addMany = async (records: readonly NewAnalysis[]): Promise<(AnalysisRecord | FieldgapError)[]> => {
+    if (!Array.isArray(records)) throw invalidArgument('records', 'expected a list of analysis records');
+    const prepared = records.map((record): PreparedAdd | FieldgapError => {
+      try {
+        return prepareAdd(record);
+      } catch (error) {
+        if (isFieldgapError(error)) return error;
+        throw error;
+      }
+    });
+    if (prepared.every((p) => isFieldgapError(p))) return prepared as FieldgapError[];
+    const now = new Date().toISOString();
+    // Each record is read back in the same transaction: what is returned is what was committed.
+    return engine.write(async (tx) => {
+      const saved: (AnalysisRecord | FieldgapError)[] = [];
+      for (const p of prepared) saved.push(isFieldgapError(p) ? p : await readRecord(tx, await insertPrepared(tx, p, now)));
+      return saved;
+    });
   };
 
   const readRecord = async (tx: SqlTx, id: number): Promise<AnalysisRecord> => {
@@ -154,33 +213,12 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
     readOnly: engine.readOnly,
 
     add: async (record: NewAnalysis) => {
-      if (typeof record !== 'object' || record === null) throw invalidArgument('record', 'expected an analysis record');
-      const details = checkDetails({ ...record, sample: record.sample ?? '' });
-      const fileName = baseFileName(record.fileName);
-      const content = originalBytes(record.content, maxOriginalBytes);
-      const ion = details.ion ?? canonicalIonOrNull(ionOfResult(record.result)) ?? canonicalIonOrNull(ionOfOptions(record.options));
-      jsonText('options', record.options);
-      jsonText('result', record.result);
-      const now = new Date().toISOString();
-      const id = await engine.write(async (tx) => {
-        const row = await tx.get<{ id: number }>(
-          `INSERT INTO analyses
-            (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note,
-             original_name, original_sha256, original_size, owner, group_name)
-           VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?) RETURNING id`,
-          [
-            now, now, details.sample!, details.formula ?? null, ion, JSON.stringify(details.ligands ?? []), details.solvent ?? null,
-            details.temperature ?? null, details.measuredOn ?? null, details.note ?? null,
-            fileName, sha256Hex(content), content.length, scope?.user ?? null, scope?.group ?? null,
-          ],
-        );
-        const newId = Number(row!.id);
-        await tx.run('INSERT INTO originals (analysis_id, bytes) VALUES (?, ?)', [newId, content]);
-        await addRevision(tx, newId, 1, record.options, record.result, record.toolVersion ?? toolVersion(), now);
-        return newId;
-      });
-      return get(id);
+      const [saved] = await addMany([record]);
+      if (saved instanceof FieldgapError) throw saved;
+      return saved!;
     },
+
+    addMany,
 
     list: async (options: ListOptions = {}) => {
       const limit = pageNumber('limit', options.limit, 50, 1, 1000);
@@ -237,8 +275,7 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
         sets.push('ligands = ?');
         params.push(JSON.stringify(patch.ligands === null ? [] : checkDetails({ ligands: patch.ligands }).ligands));
       }
-      if (patch.options !== undefined) jsonText('options', patch.options);
-      if (patch.result !== undefined) jsonText('result', patch.result);
+      const texts = patch.options !== undefined && patch.result !== undefined ? revisionTexts(patch.options, patch.result) : undefined;
       const now = new Date().toISOString();
       await engine.write(async (tx) => {
         // Locks the record's row (PostgreSQL) so concurrent refits of one record take turns.
@@ -246,10 +283,13 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
         const exists = await tx.get<{ id: number }>(`SELECT id FROM analyses WHERE id = ?${only.sql}${sql.lockRow}`, [id, ...only.params]);
         if (!exists) throw notFound(id);
         const current = await tx.get<{ n: number | null }>('SELECT max(revision) AS n FROM revisions WHERE analysis_id = ?', [id]);
-        await tx.run(`UPDATE analyses SET ${[...sets, 'updated_at = ?'].join(', ')} WHERE id = ?`, [...params, now, id]);
-        if (patch.options !== undefined && patch.result !== undefined) {
-          await addRevision(tx, id, (current?.n ?? 0) + 1, patch.options, patch.result, patch.toolVersion ?? toolVersion(), now);
-        }
+        const next = (current?.n ?? 0) + 1;
+        const version = patch.toolVersion ?? toolVersion();
+        // A new revision becomes the current one: its numbers are copied into the analyses row (schema step 5).
+        const currentSets = texts === undefined ? [] : ['revision = ?', 'tool_version = ?', ...FIT_COLUMNS.map((c) => `${c} = ?`)];
+        const currentParams = texts === undefined ? [] : [next, version, ...FIT_COLUMNS.map((c) => texts.fit[c])];
+        await tx.run(`UPDATE analyses SET ${[...sets, ...currentSets, 'updated_at = ?'].join(', ')} WHERE id = ?`, [...params, ...currentParams, now, id]);
+        if (texts !== undefined) await addRevision(tx, id, next, texts, version, now);
       });
       return get(id);
     },
@@ -298,6 +338,25 @@ function originalBytes(content: unknown, max: number): Buffer {
 
 export function sha256Hex(bytes: Uint8Array): string {
   return createHash('sha256').update(bytes).digest('hex');
+}
+
+/** A revision's options and result as the JSON text stored, and its fit numbers as columns. */
+interface RevisionTexts {
+  options: string;
+  result: string;
+  fit: FitColumns;
+}
+
+function revisionTexts(options: StoredOptions, result: StoredResult): RevisionTexts {
+  return { options: jsonText('options', options), result: jsonText('result', result), fit: fitParams(summarizeResult(result)) };
+}
+
+/** A checked new record: the analyses row's values after its two timestamps, the original, the revision. */
+interface PreparedAdd {
+  values: unknown[];
+  content: Buffer;
+  texts: RevisionTexts;
+  toolVersion: string;
 }
 
 function jsonText(field: string, value: unknown): string {
