@@ -41,6 +41,7 @@ export function lazyLibrary(engine: Library['engine'], open: () => Promise<Libra
     addMany: async (records) => (await library()).addMany(records),
     list: async (options) => (await library()).list(options),
     listAll: async (filter) => (await library()).listAll(filter),
+    listFits: async (filter) => (await library()).listFits(filter),
     get: async (id) => (await library()).get(id),
     getOriginal: async (id) => (await library()).getOriginal(id),
     update: async (id, patch) => (await library()).update(id, patch),
