@@ -42,6 +42,11 @@ export function lazyLibrary(engine: Library['engine'], open: () => Promise<Libra
     list: async (options) => (await library()).list(options),
     listAll: async (filter) => (await library()).listAll(filter),
     listFits: async (filter) => (await library()).listFits(filter),
+    listPages: (filter, pageSize) => ({
+      async *[Symbol.asyncIterator]() {
+        yield* (await library()).listPages(filter, pageSize);
+      },
+    }),
     get: async (id) => (await library()).get(id),
     getOriginal: async (id) => (await library()).getOriginal(id),
     update: async (id, patch) => (await library()).update(id, patch),

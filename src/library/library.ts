@@ -46,6 +46,13 @@ export interface Library {
   /** Every record matching the filter (no paging), newest first: for export and series. */
   listAll(filter?: Pick<ListOptions, 'query' | 'ion' | 'sha256'>): Promise<AnalysisSummary[]>;
   /**
+   * Every record matching the filter, newest first, one page at a time
+   * (`pageSize` records, default 500; each page its own read, resuming after
+   * the last id), so an export streams without holding the library in
+   * memory. Records added during the walk are not included.
+   */
+  listPages(filter?: Pick<ListOptions, 'query' | 'ion' | 'sha256'>, pageSize?: number): AsyncIterable<AnalysisSummary[]>;
+  /**
    * Every matching record's id, sample, formula, ligands, ion and the fit
    * numbers of a series (no paging), newest first: what `listAll` gives, cut
    * to what a series reads, so 100 000 records come back in a fraction of the time.
@@ -240,6 +247,28 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
     listAll: async (filter: Pick<ListOptions, 'query' | 'ion' | 'sha256'> = {}) => {
       const { where, params } = filterSql(filter);
       return engine.read(async (tx) => (await tx.all<SummaryRow>(`${SUMMARY_SELECT} ${where} ORDER BY a.id DESC`, params)).map(summaryFromRow));
+    },
+
+    listPages: (filter: Pick<ListOptions, 'query' | 'ion' | 'sha256'> = {}, pageSize = 500) => {
+      const size = pageNumber('pageSize', pageSize, 500, 1, 10_000);
+      const { where, params } = filterSql(filter);
+      const after = where === '' ? 'WHERE a.id < ?' : `${where} AND a.id < ?`;
+      return {
+        async *[Symbol.asyncIterator]() {
+          // Keyset paging: each page starts below the last id seen, so a page costs the same at the end as at the start.
+          let below: number | undefined;
+          for (;;) {
+            const rows = await engine.read((tx) =>
+              below === undefined
+                ? tx.all<SummaryRow>(`${SUMMARY_SELECT} ${where} ORDER BY a.id DESC LIMIT ?`, [...params, size])
+                : tx.all<SummaryRow>(`${SUMMARY_SELECT} ${after} ORDER BY a.id DESC LIMIT ?`, [...params, below, size]));
+            if (rows.length === 0) return;
+            yield rows.map(summaryFromRow);
+            if (rows.length < size) return;
+            below = rows.at(-1)!.id;
+          }
+        },
+      };
     },
 
     listFits: async (filter: Pick<ListOptions, 'query' | 'ion'> = {}) => {
