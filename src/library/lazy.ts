@@ -48,6 +48,7 @@ export function lazyLibrary(engine: Library['engine'], open: () => Promise<Libra
       },
     }),
     get: async (id) => (await library()).get(id),
+    getMany: async (ids) => (await library()).getMany(ids),
     getOriginal: async (id) => (await library()).getOriginal(id),
     update: async (id, patch) => (await library()).update(id, patch),
     remove: async (id) => (await library()).remove(id),

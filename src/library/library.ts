@@ -59,6 +59,8 @@ export interface Library {
    */
   listFits(filter?: Pick<ListOptions, 'query' | 'ion'>): Promise<FitRow[]>;
   get(id: number): Promise<AnalysisRecord>;
+  /** The full records of `ids`, in the order given, in one read; ids not in the library (or out of scope) are left out. */
+  getMany(ids: readonly number[]): Promise<AnalysisRecord[]>;
   /** The original file, byte for byte as it was added. */
   getOriginal(id: number): Promise<OriginalFile>;
   /** Edits details and/or adds a revision (options with result); returns the updated record. */
@@ -99,6 +101,8 @@ const DETAIL_COLUMNS = {
 } as const;
 const PATCH_KEYS = new Set([...Object.keys(DETAIL_COLUMNS), 'ligands', 'options', 'result', 'toolVersion']);
 const SEARCHED = ['a.sample', 'a.formula', 'a.ion', 'a.ligands', 'a.solvent', 'a.note'];
+/** Rows a multi-row INSERT or an IN (...) list takes at most (PostgreSQL allows 65 535 parameters a statement). */
+const ROWS_PER_INSERT = 200;
 const FIT_COLUMNS: readonly (keyof FitColumns)[] = ['ten_dq', 'ten_dq_sd', 'b', 'b_sd', 'c', 'beta', 'beta_sd', 'spin_state', 'rms', 'status'];
 
 /** The library's rules over one engine. */
@@ -137,18 +141,38 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
     };
   };
 
-  const insertPrepared = async (tx: SqlTx, p: PreparedAdd, now: string): Promise<number> => {
-    const row = await tx.get<{ id: number }>(
-      `INSERT INTO analyses
-        (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note,
-         original_name, original_sha256, original_size, owner, group_name, revision, tool_version, ${FIT_COLUMNS.join(', ')})
-       VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ${FIT_COLUMNS.map(() => '?').join(', ')}) RETURNING id`,
-      [now, now, ...p.values, 1, p.toolVersion, ...FIT_COLUMNS.map((c) => p.texts.fit[c])],
-    );
-    const newId = Number(row!.id);
-    await tx.run('INSERT INTO originals (analysis_id, bytes) VALUES (?, ?)', [newId, p.content]);
-    await addRevision(tx, newId, 1, p.texts, p.toolVersion, now);
-    return newId;
+  /**
+   * Inserts checked records; returns their ids in order. Each analyses row is
+   * its own INSERT (its id is needed, and RETURNING gives no order for many
+   * rows); the originals, revisions and results go in multi-row INSERTs of
+   * up to ROWS_PER_INSERT rows, matched to their analysis by id, not by order.
+   */
+  const insertPrepared = async (tx: SqlTx, records: readonly PreparedAdd[], now: string): Promise<number[]> => {
+    const ids: number[] = [];
+    for (const p of records) {
+      const row = await tx.get<{ id: number }>(
+        `INSERT INTO analyses
+          (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note,
+           original_name, original_sha256, original_size, owner, group_name, revision, tool_version, ${FIT_COLUMNS.join(', ')})
+         VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ${FIT_COLUMNS.map(() => '?').join(', ')}) RETURNING id`,
+        [now, now, ...p.values, 1, p.toolVersion, ...FIT_COLUMNS.map((c) => p.texts.fit[c])],
+      );
+      ids.push(Number(row!.id));
+    }
+    for (let start = 0; start < records.length; start += ROWS_PER_INSERT) {
+      const part = records.slice(start, start + ROWS_PER_INSERT);
+      const partIds = ids.slice(start, start + ROWS_PER_INSERT);
+      await tx.run(`INSERT INTO originals (analysis_id, bytes) VALUES ${part.map(() => '(?, ?)').join(', ')}`, part.flatMap((p, i) => [partIds[i], p.content]));
+      const revisionRow = `(?, 1, ?, ?, ?, ${FIT_COLUMNS.map(() => '?').join(', ')})`;
+      const revisions = await tx.all<{ id: number; analysis_id: number }>(
+        `INSERT INTO revisions (analysis_id, revision, created_at, tool_version, options, ${FIT_COLUMNS.join(', ')})
+         VALUES ${part.map(() => revisionRow).join(', ')} RETURNING id, analysis_id`,
+        part.flatMap((p, i) => [partIds[i], now, p.toolVersion, p.texts.options, ...FIT_COLUMNS.map((c) => p.texts.fit[c])]),
+      );
+      const revisionOf = new Map(revisions.map((r) => [Number(r.analysis_id), Number(r.id)]));
+      await tx.run(`INSERT INTO results (revision_id, result) VALUES ${part.map(() => '(?, ?)').join(', ')}`, part.flatMap((p, i) => [revisionOf.get(partIds[i]!), p.texts.result]));
+    }
+    return ids;
   };
 
   const addMany = async (records: readonly NewAnalysis[]): Promise<(AnalysisRecord | FieldgapError)[]> => {
@@ -163,34 +187,64 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
     });
     if (prepared.every((p) => isFieldgapError(p))) return prepared as FieldgapError[];
     const now = new Date().toISOString();
-    // Each record is read back in the same transaction: what is returned is what was committed.
+    // The records are read back in the same transaction: what is returned is what was committed.
     return engine.write(async (tx) => {
-      const saved: (AnalysisRecord | FieldgapError)[] = [];
-      for (const p of prepared) saved.push(isFieldgapError(p) ? p : await readRecord(tx, await insertPrepared(tx, p, now)));
-      return saved;
+      const valid = prepared.filter((p): p is PreparedAdd => !isFieldgapError(p));
+      const records = await readRecords(tx, await insertPrepared(tx, valid, now));
+      let next = 0;
+      return prepared.map((p) => (isFieldgapError(p) ? p : records[next++]!));
     });
   };
 
+  /** The full records of `ids` in scope, in the order given; ids not found (or out of scope) are left out. */
+  const readRecords = async (tx: SqlTx, ids: readonly number[]): Promise<AnalysisRecord[]> => {
+    const found = new Map<number, AnalysisRecord>();
+    for (let start = 0; start < ids.length; start += ROWS_PER_INSERT) {
+      const part = ids.slice(start, start + ROWS_PER_INSERT);
+      const marks = part.map(() => '?').join(', ');
+      const only = inScope('a.');
+      const rows = await tx.all<SummaryRow>(`${SUMMARY_SELECT} WHERE a.id IN (${marks})${only.sql}`, [...part, ...only.params]);
+      if (rows.length === 0) continue;
+      const inScopeIds = rows.map((r) => Number(r.id));
+      const inMarks = inScopeIds.map(() => '?').join(', ');
+      // The current revision is the one the analyses row names (kept in step by every write).
+      const current = await tx.all<{ analysis_id: number; options: string; result: string }>(
+        `SELECT r.analysis_id, r.options, x.result FROM analyses a
+         JOIN revisions r ON r.analysis_id = a.id AND r.revision = a.revision JOIN results x ON x.revision_id = r.id
+         WHERE a.id IN (${inMarks})`,
+        inScopeIds,
+      );
+      const revisions = await tx.all<RevisionRow & { analysis_id: number }>(
+        `SELECT analysis_id, revision, created_at, tool_version, options, ${FIT_COLUMNS.join(', ')}
+         FROM revisions WHERE analysis_id IN (${inMarks}) ORDER BY analysis_id, revision`,
+        inScopeIds,
+      );
+      const currentOf = new Map(current.map((c) => [Number(c.analysis_id), c]));
+      const historyOf = new Map<number, RevisionRow[]>();
+      for (const r of revisions) {
+        const list = historyOf.get(Number(r.analysis_id));
+        const { analysis_id: _id, ...revision } = r;
+        if (list) list.push(revision);
+        else historyOf.set(Number(r.analysis_id), [revision]);
+      }
+      for (const row of rows) {
+        const id = Number(row.id);
+        const now = currentOf.get(id)!;
+        found.set(id, {
+          ...summaryFromRow(row),
+          options: JSON.parse(now.options) as StoredOptions,
+          result: JSON.parse(now.result) as StoredResult,
+          revisions: historyOf.get(id)!.map(revisionFromRow),
+        });
+      }
+    }
+    return ids.flatMap((id) => found.get(id) ?? []);
+  };
+
   const readRecord = async (tx: SqlTx, id: number): Promise<AnalysisRecord> => {
-    const only = inScope('a.');
-    const row = await tx.get<SummaryRow>(`${SUMMARY_SELECT} WHERE a.id = ?${only.sql}`, [checkId(id), ...only.params]);
-    if (!row) throw notFound(id);
-    const current = (await tx.get<{ options: string; result: string }>(
-      `SELECT r.options, x.result FROM revisions r JOIN results x ON x.revision_id = r.id
-       WHERE r.analysis_id = ? ORDER BY r.revision DESC LIMIT 1`,
-      [id],
-    ))!;
-    const revisions = await tx.all<RevisionRow>(
-      `SELECT revision, created_at, tool_version, options, ${FIT_COLUMNS.join(', ')}
-       FROM revisions WHERE analysis_id = ? ORDER BY revision`,
-      [id],
-    );
-    return {
-      ...summaryFromRow(row),
-      options: JSON.parse(current.options) as StoredOptions,
-      result: JSON.parse(current.result) as StoredResult,
-      revisions: revisions.map(revisionFromRow),
-    };
+    const [record] = await readRecords(tx, [checkId(id)]);
+    if (!record) throw notFound(id);
+    return record;
   };
 
   const filterSql = (filter: Pick<ListOptions, 'query' | 'ion' | 'sha256'>) => {
@@ -292,6 +346,12 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
     },
 
     get,
+
+    getMany: async (ids: readonly number[]) => {
+      if (!Array.isArray(ids)) throw invalidArgument('ids', 'expected a list of ids');
+      ids.forEach(checkId);
+      return engine.read((tx) => readRecords(tx, ids));
+    },
 
     getOriginal: async (id: number) => {
       checkId(id);

@@ -68,6 +68,21 @@ forEachEngine('many records in one transaction, and the current revision in the 
     });
   });
 
+  describe('getMany', () => {
+    it('gives the full records in the order asked, each as get gives it, leaving out ids not there', async () => {
+      const saved = (await library.addMany([1, 2, 3, 4].map((i) => handBuiltRecord({ sample: `s${i}` }, 17_000 + i)))) as AnalysisRecord[];
+      const refit = handBuiltRecord({}, 18_000);
+      await library.update(saved[1]!.id, { options: refit.options, result: refit.result });
+      await library.remove(saved[2]!.id);
+      const ids = [saved[3]!.id, saved[1]!.id, 999, saved[2]!.id, saved[0]!.id];
+      const many = await library.getMany(ids);
+      expect(many.map((r) => r.id)).toEqual([saved[3]!.id, saved[1]!.id, saved[0]!.id]);
+      for (const record of many) expect(record).toEqual(await library.get(record.id));
+      expect(many[1]!.revisions).toHaveLength(2);
+      expect(many[1]!.result).toEqual(refit.result);
+    });
+  });
+
   describe('the current revision kept in the analyses row', () => {
     it('lists, exports and searches with the latest revision after refits, as the history says', async () => {
       const saved = await library.add(handBuiltRecord({ sample: 'refitted' }, 17_000));

@@ -56,7 +56,7 @@ async function csvChunks(library: Library, filter: Pick<ListOptions, 'query' | '
 async function* jsonChunks(library: Library, filter: Pick<ListOptions, 'query' | 'ion'>): AsyncGenerator<string> {
   let first = true;
   for await (const page of library.listPages(filter, PAGE)) {
-    const records = await Promise.all(page.map((s: AnalysisSummary) => library.get(s.id)));
+    const records = await library.getMany(page.map((s: AnalysisSummary) => s.id));
     let text = '';
     for (const record of records) {
       text += `${first ? '{\n  "analyses": [' : ','}\n    ${JSON.stringify(record, null, 2).replaceAll('\n', '\n    ')}`;
