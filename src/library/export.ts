@@ -45,12 +45,35 @@ export function libraryCsvRow(record: AnalysisSummary): CsvRow {
   };
 }
 
-/** CSV text (RFC 4180 quoting, CRLF line ends, a header row) of the records. */
+/** CSV text (RFC 4180 quoting, CRLF line ends, a header row, every line ended) of the records. */
 export function libraryCsv(records: AnalysisSummary[]): string {
+  // Papa ends a header without rows with a newline, and a header with rows without one.
+  if (records.length === 0) return CSV_HEADER;
   return `${Papa.unparse(
-    { fields: [...CSV_COLUMNS], data: records.map((r) => CSV_COLUMNS.map((c) => libraryCsvRow(r)[c])) },
+    { fields: [...CSV_COLUMNS], data: records.map(csvCells) },
     { escapeFormulae: true, newline: '\r\n' },
   )}\r\n`;
+}
+
+/**
+ * The same CSV as libraryCsv, in pieces: the header line, then the rows of
+ * each page as it comes (an export of 100 000 records never holds them all).
+ * Joined, the pieces are libraryCsv of all the records.
+ */
+export async function* libraryCsvChunks(pages: AsyncIterable<AnalysisSummary[]>): AsyncGenerator<string> {
+  yield CSV_HEADER;
+  for await (const page of pages) {
+    if (page.length === 0) continue;
+    yield `${Papa.unparse(page.map(csvCells), { escapeFormulae: true, newline: '\r\n' })}\r\n`;
+  }
+}
+
+/** The header line, with its line end. */
+const CSV_HEADER = Papa.unparse({ fields: [...CSV_COLUMNS], data: [] }, { escapeFormulae: true, newline: '\r\n' });
+
+function csvCells(record: AnalysisSummary): (string | number | null)[] {
+  const row = libraryCsvRow(record);
+  return CSV_COLUMNS.map((c) => row[c]);
 }
 
 function round(value: number | null, digits: number): number | null {

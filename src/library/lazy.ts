@@ -38,9 +38,17 @@ export function lazyLibrary(engine: Library['engine'], open: () => Promise<Libra
       return opened?.readOnly ?? false;
     },
     add: async (record) => (await library()).add(record),
+    addMany: async (records) => (await library()).addMany(records),
     list: async (options) => (await library()).list(options),
     listAll: async (filter) => (await library()).listAll(filter),
+    listFits: async (filter) => (await library()).listFits(filter),
+    listPages: (filter, pageSize) => ({
+      async *[Symbol.asyncIterator]() {
+        yield* (await library()).listPages(filter, pageSize);
+      },
+    }),
     get: async (id) => (await library()).get(id),
+    getMany: async (ids) => (await library()).getMany(ids),
     getOriginal: async (id) => (await library()).getOriginal(id),
     update: async (id, patch) => (await library()).update(id, patch),
     remove: async (id) => (await library()).remove(id),

@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { FieldgapError, invalidArgument } from '../errors.js';
+import { FieldgapError, invalidArgument, isFieldgapError } from '../errors.js';
 import { packageVersion as toolVersion } from '../version.js';
 import { DIALECT_SQL, type SqlEngine, type SqlTx } from './engine.js';
 import { openPostgresEngine, type PostgresEngineOptions } from './postgres-engine.js';
@@ -7,7 +7,7 @@ import { fitParams, likeWord, revisionFromRow, SUMMARY_SELECT, summaryFromRow, t
 import { LIBRARY_FILE, openSqliteEngine, type SqliteEngineOptions } from './sqlite-engine.js';
 import { ionOfResult, summarizeResult } from './summary.js';
 import type {
-  AnalysisPatch, AnalysisRecord, AnalysisSummary, ListOptions, ListPage, NewAnalysis, OriginalFile, StoredOptions, StoredResult,
+  AnalysisPatch, AnalysisRecord, AnalysisSummary, FitRow, ListOptions, ListPage, NewAnalysis, OriginalFile, StoredOptions, StoredResult,
 } from './types.js';
 import { userStoreOver, type RecordScope, type UserStore } from './users.js';
 import { baseFileName, canonicalIon, canonicalIonOrNull, checkDetails } from './validate.js';
@@ -33,11 +33,34 @@ export interface Library {
   readonly readOnly: boolean;
   /** Stores a new analysis (details, original bytes, options, result) and returns it with its id. */
   add(record: NewAnalysis): Promise<AnalysisRecord>;
+  /**
+   * Stores many analyses in one transaction (one commit, one fsync): each
+   * entry of the answer is the stored record, or the FieldgapError that kept
+   * that one record out (bad details, an original over the limit), in the
+   * order given. Nothing is stored unless the whole call resolves: a database
+   * failure rejects it and no record of the batch is kept.
+   */
+  addMany(records: readonly NewAnalysis[]): Promise<(AnalysisRecord | FieldgapError)[]>;
   /** One page of records, newest first, filtered by `query` words and `ion`. */
   list(options?: ListOptions): Promise<ListPage>;
   /** Every record matching the filter (no paging), newest first: for export and series. */
   listAll(filter?: Pick<ListOptions, 'query' | 'ion' | 'sha256'>): Promise<AnalysisSummary[]>;
+  /**
+   * Every record matching the filter, newest first, one page at a time
+   * (`pageSize` records, default 500; each page its own read, resuming after
+   * the last id), so an export streams without holding the library in
+   * memory. Records added during the walk are not included.
+   */
+  listPages(filter?: Pick<ListOptions, 'query' | 'ion' | 'sha256'>, pageSize?: number): AsyncIterable<AnalysisSummary[]>;
+  /**
+   * Every matching record's id, sample, formula, ligands, ion and the fit
+   * numbers of a series (no paging), newest first: what `listAll` gives, cut
+   * to what a series reads, so 100 000 records come back in a fraction of the time.
+   */
+  listFits(filter?: Pick<ListOptions, 'query' | 'ion'>): Promise<FitRow[]>;
   get(id: number): Promise<AnalysisRecord>;
+  /** The full records of `ids`, in the order given, in one read; ids not in the library (or out of scope) are left out. */
+  getMany(ids: readonly number[]): Promise<AnalysisRecord[]>;
   /** The original file, byte for byte as it was added. */
   getOriginal(id: number): Promise<OriginalFile>;
   /** Edits details and/or adds a revision (options with result); returns the updated record. */
@@ -78,6 +101,8 @@ const DETAIL_COLUMNS = {
 } as const;
 const PATCH_KEYS = new Set([...Object.keys(DETAIL_COLUMNS), 'ligands', 'options', 'result', 'toolVersion']);
 const SEARCHED = ['a.sample', 'a.formula', 'a.ion', 'a.ligands', 'a.solvent', 'a.note'];
+/** Rows a multi-row INSERT or an IN (...) list takes at most (PostgreSQL allows 65 535 parameters a statement). */
+const ROWS_PER_INSERT = 200;
 const FIT_COLUMNS: readonly (keyof FitColumns)[] = ['ten_dq', 'ten_dq_sd', 'b', 'b_sd', 'c', 'beta', 'beta_sd', 'spin_state', 'rms', 'status'];
 
 /** The library's rules over one engine. */
@@ -88,37 +113,138 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
   const groupOnly = scope === undefined || scope.admin ? undefined : scope.group;
   const inScope = (alias: string) => (groupOnly === undefined ? { sql: '', params: [] as unknown[] } : { sql: ` AND ${alias}group_name = ?`, params: [groupOnly] as unknown[] });
 
-  const addRevision = async (tx: SqlTx, id: number, revision: number, options: StoredOptions, result: StoredResult, version: string, now: string) => {
-    const resultText = jsonText('result', result);
-    const fit = fitParams(summarizeResult(result));
+  const addRevision = async (tx: SqlTx, id: number, revision: number, texts: RevisionTexts, version: string, now: string) => {
     const row = await tx.get<{ id: number }>(
       `INSERT INTO revisions (analysis_id, revision, created_at, tool_version, options, ${FIT_COLUMNS.join(', ')})
        VALUES (?, ?, ?, ?, ?, ${FIT_COLUMNS.map(() => '?').join(', ')}) RETURNING id`,
-      [id, revision, now, version, jsonText('options', options), ...FIT_COLUMNS.map((c) => fit[c])],
+      [id, revision, now, version, texts.options, ...FIT_COLUMNS.map((c) => texts.fit[c])],
     );
-    await tx.run('INSERT INTO results (revision_id, result) VALUES (?, ?)', [row!.id, resultText]);
+    await tx.run('INSERT INTO results (revision_id, result) VALUES (?, ?)', [row!.id, texts.result]);
+  };
+
+  /** Checks a new record and makes every value its rows need, before any transaction. */
+  const prepareAdd = (record: NewAnalysis): PreparedAdd => {
+    if (typeof record !== 'object' || record === null) throw invalidArgument('record', 'expected an analysis record');
+    const details = checkDetails({ ...record, sample: record.sample ?? '' });
+    const fileName = baseFileName(record.fileName);
+    const content = originalBytes(record.content, maxOriginalBytes);
+    const ion = details.ion ?? canonicalIonOrNull(ionOfResult(record.result)) ?? canonicalIonOrNull(ionOfOptions(record.options));
+    return {
+      values: [
+        details.sample!, details.formula ?? null, ion, JSON.stringify(details.ligands ?? []), details.solvent ?? null,
+        details.temperature ?? null, details.measuredOn ?? null, details.note ?? null,
+        fileName, sha256Hex(content), content.length, scope?.user ?? null, scope?.group ?? null,
+      ],
+      content,
+      texts: revisionTexts(record.options, record.result),
+      toolVersion: record.toolVersion ?? toolVersion(),
+    };
+  };
+
+  /**
+   * Inserts checked records; returns their ids in order. Each analyses row is
+   * its own INSERT (its id is needed, and RETURNING gives no order for many
+   * rows); the originals, revisions and results go in multi-row INSERTs of
+   * up to ROWS_PER_INSERT rows, matched to their analysis by id, not by order.
+   */
+  const insertPrepared = async (tx: SqlTx, records: readonly PreparedAdd[], now: string): Promise<number[]> => {
+    const ids: number[] = [];
+    for (const p of records) {
+      const row = await tx.get<{ id: number }>(
+        `INSERT INTO analyses
+          (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note,
+           original_name, original_sha256, original_size, owner, group_name, revision, tool_version, ${FIT_COLUMNS.join(', ')})
+         VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ${FIT_COLUMNS.map(() => '?').join(', ')}) RETURNING id`,
+        [now, now, ...p.values, 1, p.toolVersion, ...FIT_COLUMNS.map((c) => p.texts.fit[c])],
+      );
+      ids.push(Number(row!.id));
+    }
+    for (let start = 0; start < records.length; start += ROWS_PER_INSERT) {
+      const part = records.slice(start, start + ROWS_PER_INSERT);
+      const partIds = ids.slice(start, start + ROWS_PER_INSERT);
+      await tx.run(`INSERT INTO originals (analysis_id, bytes) VALUES ${part.map(() => '(?, ?)').join(', ')}`, part.flatMap((p, i) => [partIds[i], p.content]));
+      const revisionRow = `(?, 1, ?, ?, ?, ${FIT_COLUMNS.map(() => '?').join(', ')})`;
+      const revisions = await tx.all<{ id: number; analysis_id: number }>(
+        `INSERT INTO revisions (analysis_id, revision, created_at, tool_version, options, ${FIT_COLUMNS.join(', ')})
+         VALUES ${part.map(() => revisionRow).join(', ')} RETURNING id, analysis_id`,
+        part.flatMap((p, i) => [partIds[i], now, p.toolVersion, p.texts.options, ...FIT_COLUMNS.map((c) => p.texts.fit[c])]),
+      );
+      const revisionOf = new Map(revisions.map((r) => [Number(r.analysis_id), Number(r.id)]));
+      await tx.run(`INSERT INTO results (revision_id, result) VALUES ${part.map(() => '(?, ?)').join(', ')}`, part.flatMap((p, i) => [revisionOf.get(partIds[i]!), p.texts.result]));
+    }
+    return ids;
+  };
+
+  const addMany = async (records: readonly NewAnalysis[]): Promise<(AnalysisRecord | FieldgapError)[]> => {
+    if (!Array.isArray(records)) throw invalidArgument('records', 'expected a list of analysis records');
+    const prepared = records.map((record): PreparedAdd | FieldgapError => {
+      try {
+        return prepareAdd(record);
+      } catch (error) {
+        if (isFieldgapError(error)) return error;
+        throw error;
+      }
+    });
+    if (prepared.every((p) => isFieldgapError(p))) return prepared as FieldgapError[];
+    const now = new Date().toISOString();
+    // The records are read back in the same transaction: what is returned is what was committed.
+    return engine.write(async (tx) => {
+      const valid = prepared.filter((p): p is PreparedAdd => !isFieldgapError(p));
+      const records = await readRecords(tx, await insertPrepared(tx, valid, now));
+      let next = 0;
+      return prepared.map((p) => (isFieldgapError(p) ? p : records[next++]!));
+    });
+  };
+
+  /** The full records of `ids` in scope, in the order given; ids not found (or out of scope) are left out. */
+  const readRecords = async (tx: SqlTx, ids: readonly number[]): Promise<AnalysisRecord[]> => {
+    const found = new Map<number, AnalysisRecord>();
+    for (let start = 0; start < ids.length; start += ROWS_PER_INSERT) {
+      const part = ids.slice(start, start + ROWS_PER_INSERT);
+      const marks = part.map(() => '?').join(', ');
+      const only = inScope('a.');
+      const rows = await tx.all<SummaryRow>(`${SUMMARY_SELECT} WHERE a.id IN (${marks})${only.sql}`, [...part, ...only.params]);
+      if (rows.length === 0) continue;
+      const inScopeIds = rows.map((r) => Number(r.id));
+      const inMarks = inScopeIds.map(() => '?').join(', ');
+      // The current revision is the one the analyses row names (kept in step by every write).
+      const current = await tx.all<{ analysis_id: number; options: string; result: string }>(
+        `SELECT r.analysis_id, r.options, x.result FROM analyses a
+         JOIN revisions r ON r.analysis_id = a.id AND r.revision = a.revision JOIN results x ON x.revision_id = r.id
+         WHERE a.id IN (${inMarks})`,
+        inScopeIds,
+      );
+      const revisions = await tx.all<RevisionRow & { analysis_id: number }>(
+        `SELECT analysis_id, revision, created_at, tool_version, options, ${FIT_COLUMNS.join(', ')}
+         FROM revisions WHERE analysis_id IN (${inMarks}) ORDER BY analysis_id, revision`,
+        inScopeIds,
+      );
+      const currentOf = new Map(current.map((c) => [Number(c.analysis_id), c]));
+      const historyOf = new Map<number, RevisionRow[]>();
+      for (const r of revisions) {
+        const list = historyOf.get(Number(r.analysis_id));
+        const { analysis_id: _id, ...revision } = r;
+        if (list) list.push(revision);
+        else historyOf.set(Number(r.analysis_id), [revision]);
+      }
+      for (const row of rows) {
+        const id = Number(row.id);
+        const now = currentOf.get(id)!;
+        found.set(id, {
+          ...summaryFromRow(row),
+          options: JSON.parse(now.options) as StoredOptions,
+          result: JSON.parse(now.result) as StoredResult,
+          revisions: historyOf.get(id)!.map(revisionFromRow),
+        });
+      }
+    }
+    return ids.flatMap((id) => found.get(id) ?? []);
   };
 
   const readRecord = async (tx: SqlTx, id: number): Promise<AnalysisRecord> => {
-    const only = inScope('a.');
-    const row = await tx.get<SummaryRow>(`${SUMMARY_SELECT} WHERE a.id = ?${only.sql}`, [checkId(id), ...only.params]);
-    if (!row) throw notFound(id);
-    const current = (await tx.get<{ options: string; result: string }>(
-      `SELECT r.options, x.result FROM revisions r JOIN results x ON x.revision_id = r.id
-       WHERE r.analysis_id = ? ORDER BY r.revision DESC LIMIT 1`,
-      [id],
-    ))!;
-    const revisions = await tx.all<RevisionRow>(
-      `SELECT revision, created_at, tool_version, options, ${FIT_COLUMNS.join(', ')}
-       FROM revisions WHERE analysis_id = ? ORDER BY revision`,
-      [id],
-    );
-    return {
-      ...summaryFromRow(row),
-      options: JSON.parse(current.options) as StoredOptions,
-      result: JSON.parse(current.result) as StoredResult,
-      revisions: revisions.map(revisionFromRow),
-    };
+    const [record] = await readRecords(tx, [checkId(id)]);
+    if (!record) throw notFound(id);
+    return record;
   };
 
   const filterSql = (filter: Pick<ListOptions, 'query' | 'ion' | 'sha256'>) => {
@@ -154,33 +280,12 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
     readOnly: engine.readOnly,
 
     add: async (record: NewAnalysis) => {
-      if (typeof record !== 'object' || record === null) throw invalidArgument('record', 'expected an analysis record');
-      const details = checkDetails({ ...record, sample: record.sample ?? '' });
-      const fileName = baseFileName(record.fileName);
-      const content = originalBytes(record.content, maxOriginalBytes);
-      const ion = details.ion ?? canonicalIonOrNull(ionOfResult(record.result)) ?? canonicalIonOrNull(ionOfOptions(record.options));
-      jsonText('options', record.options);
-      jsonText('result', record.result);
-      const now = new Date().toISOString();
-      const id = await engine.write(async (tx) => {
-        const row = await tx.get<{ id: number }>(
-          `INSERT INTO analyses
-            (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note,
-             original_name, original_sha256, original_size, owner, group_name)
-           VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?) RETURNING id`,
-          [
-            now, now, details.sample!, details.formula ?? null, ion, JSON.stringify(details.ligands ?? []), details.solvent ?? null,
-            details.temperature ?? null, details.measuredOn ?? null, details.note ?? null,
-            fileName, sha256Hex(content), content.length, scope?.user ?? null, scope?.group ?? null,
-          ],
-        );
-        const newId = Number(row!.id);
-        await tx.run('INSERT INTO originals (analysis_id, bytes) VALUES (?, ?)', [newId, content]);
-        await addRevision(tx, newId, 1, record.options, record.result, record.toolVersion ?? toolVersion(), now);
-        return newId;
-      });
-      return get(id);
+      const [saved] = await addMany([record]);
+      if (saved instanceof FieldgapError) throw saved;
+      return saved!;
     },
+
+    addMany,
 
     list: async (options: ListOptions = {}) => {
       const limit = pageNumber('limit', options.limit, 50, 1, 1000);
@@ -198,7 +303,55 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
       return engine.read(async (tx) => (await tx.all<SummaryRow>(`${SUMMARY_SELECT} ${where} ORDER BY a.id DESC`, params)).map(summaryFromRow));
     },
 
+    listPages: (filter: Pick<ListOptions, 'query' | 'ion' | 'sha256'> = {}, pageSize = 500) => {
+      const size = pageNumber('pageSize', pageSize, 500, 1, 10_000);
+      const { where, params } = filterSql(filter);
+      const after = where === '' ? 'WHERE a.id < ?' : `${where} AND a.id < ?`;
+      return {
+        async *[Symbol.asyncIterator]() {
+          // Keyset paging: each page starts below the last id seen, so a page costs the same at the end as at the start.
+          let below: number | undefined;
+          for (;;) {
+            const rows = await engine.read((tx) =>
+              below === undefined
+                ? tx.all<SummaryRow>(`${SUMMARY_SELECT} ${where} ORDER BY a.id DESC LIMIT ?`, [...params, size])
+                : tx.all<SummaryRow>(`${SUMMARY_SELECT} ${after} ORDER BY a.id DESC LIMIT ?`, [...params, below, size]));
+            if (rows.length === 0) return;
+            yield rows.map(summaryFromRow);
+            if (rows.length < size) return;
+            below = rows.at(-1)!.id;
+          }
+        },
+      };
+    },
+
+    listFits: async (filter: Pick<ListOptions, 'query' | 'ion'> = {}) => {
+      const { where, params } = filterSql(filter);
+      const rows = await engine.read((tx) =>
+        tx.all<FitRowColumns>(`SELECT a.id, a.sample, a.formula, a.ligands, a.ion, a.ten_dq, a.ten_dq_sd, a.b, a.beta, a.beta_sd FROM analyses a ${where} ORDER BY a.id DESC`, params));
+      // A library repeats a few ligand lists thousands of times: each distinct text is parsed once (the arrays are shared, read only).
+      const ligandLists = new Map<string, string[]>();
+      return rows.map((row): FitRow => {
+        const fit: FitRow = { id: row.id, sample: row.sample, summary: { tenDq: row.ten_dq, tenDqSd: row.ten_dq_sd, b: row.b, beta: row.beta, betaSd: row.beta_sd } };
+        if (row.formula !== null) fit.formula = row.formula;
+        let ligands = ligandLists.get(row.ligands);
+        if (ligands === undefined) {
+          ligands = JSON.parse(row.ligands) as string[];
+          ligandLists.set(row.ligands, ligands);
+        }
+        if (ligands.length > 0) fit.ligands = ligands;
+        if (row.ion !== null) fit.ion = row.ion;
+        return fit;
+      });
+    },
+
     get,
+
+    getMany: async (ids: readonly number[]) => {
+      if (!Array.isArray(ids)) throw invalidArgument('ids', 'expected a list of ids');
+      ids.forEach(checkId);
+      return engine.read((tx) => readRecords(tx, ids));
+    },
 
     getOriginal: async (id: number) => {
       checkId(id);
@@ -237,8 +390,7 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
         sets.push('ligands = ?');
         params.push(JSON.stringify(patch.ligands === null ? [] : checkDetails({ ligands: patch.ligands }).ligands));
       }
-      if (patch.options !== undefined) jsonText('options', patch.options);
-      if (patch.result !== undefined) jsonText('result', patch.result);
+      const texts = patch.options !== undefined && patch.result !== undefined ? revisionTexts(patch.options, patch.result) : undefined;
       const now = new Date().toISOString();
       await engine.write(async (tx) => {
         // Locks the record's row (PostgreSQL) so concurrent refits of one record take turns.
@@ -246,10 +398,13 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
         const exists = await tx.get<{ id: number }>(`SELECT id FROM analyses WHERE id = ?${only.sql}${sql.lockRow}`, [id, ...only.params]);
         if (!exists) throw notFound(id);
         const current = await tx.get<{ n: number | null }>('SELECT max(revision) AS n FROM revisions WHERE analysis_id = ?', [id]);
-        await tx.run(`UPDATE analyses SET ${[...sets, 'updated_at = ?'].join(', ')} WHERE id = ?`, [...params, now, id]);
-        if (patch.options !== undefined && patch.result !== undefined) {
-          await addRevision(tx, id, (current?.n ?? 0) + 1, patch.options, patch.result, patch.toolVersion ?? toolVersion(), now);
-        }
+        const next = (current?.n ?? 0) + 1;
+        const version = patch.toolVersion ?? toolVersion();
+        // A new revision becomes the current one: its numbers are copied into the analyses row (schema step 5).
+        const currentSets = texts === undefined ? [] : ['revision = ?', 'tool_version = ?', ...FIT_COLUMNS.map((c) => `${c} = ?`)];
+        const currentParams = texts === undefined ? [] : [next, version, ...FIT_COLUMNS.map((c) => texts.fit[c])];
+        await tx.run(`UPDATE analyses SET ${[...sets, ...currentSets, 'updated_at = ?'].join(', ')} WHERE id = ?`, [...params, ...currentParams, now, id]);
+        if (texts !== undefined) await addRevision(tx, id, next, texts, version, now);
       });
       return get(id);
     },
@@ -298,6 +453,39 @@ function originalBytes(content: unknown, max: number): Buffer {
 
 export function sha256Hex(bytes: Uint8Array): string {
   return createHash('sha256').update(bytes).digest('hex');
+}
+
+/** The columns listFits reads. */
+interface FitRowColumns {
+  id: number;
+  sample: string;
+  formula: string | null;
+  ligands: string;
+  ion: string | null;
+  ten_dq: number | null;
+  ten_dq_sd: number | null;
+  b: number | null;
+  beta: number | null;
+  beta_sd: number | null;
+}
+
+/** A revision's options and result as the JSON text stored, and its fit numbers as columns. */
+interface RevisionTexts {
+  options: string;
+  result: string;
+  fit: FitColumns;
+}
+
+function revisionTexts(options: StoredOptions, result: StoredResult): RevisionTexts {
+  return { options: jsonText('options', options), result: jsonText('result', result), fit: fitParams(summarizeResult(result)) };
+}
+
+/** A checked new record: the analyses row's values after its two timestamps, the original, the revision. */
+interface PreparedAdd {
+  values: unknown[];
+  content: Buffer;
+  texts: RevisionTexts;
+  toolVersion: string;
 }
 
 function jsonText(field: string, value: unknown): string {

@@ -99,6 +99,19 @@ export const POSTGRES_MIGRATIONS: readonly string[] = [
   ALTER TABLE analyses ADD COLUMN group_name text;
   CREATE INDEX analyses_by_group ON analyses(group_name);
   `,
+  // 5: the current revision's number, version and fit columns copied into its analyses row.
+  `
+  ALTER TABLE analyses
+    ADD COLUMN revision integer, ADD COLUMN tool_version text,
+    ADD COLUMN ten_dq double precision, ADD COLUMN ten_dq_sd double precision, ADD COLUMN b double precision,
+    ADD COLUMN b_sd double precision, ADD COLUMN c double precision, ADD COLUMN beta double precision,
+    ADD COLUMN beta_sd double precision, ADD COLUMN spin_state text, ADD COLUMN rms double precision, ADD COLUMN status text;
+  UPDATE analyses a SET
+    revision = r.revision, tool_version = r.tool_version, ten_dq = r.ten_dq, ten_dq_sd = r.ten_dq_sd, b = r.b, b_sd = r.b_sd,
+    c = r.c, beta = r.beta, beta_sd = r.beta_sd, spin_state = r.spin_state, rms = r.rms, status = r.status
+    FROM revisions r
+    WHERE r.analysis_id = a.id AND r.revision = (SELECT max(revision) FROM revisions WHERE analysis_id = a.id);
+  `,
 ];
 
 if (POSTGRES_MIGRATIONS.length !== SCHEMA_VERSION) {

@@ -7,15 +7,17 @@ import type { AnalysisDetails, AnalysisSummary, FitSummary, RevisionInfo, Stored
  * does not have is shown as such).
  */
 
-/** The columns of one list row: the analysis with its original's name, size and hash, and its latest revision. */
+/**
+ * The columns of one list row: the analysis with its original's name, size
+ * and hash, and its latest revision's number, version and fit (copies kept
+ * in the analyses row since schema step 5, so a list reads one table).
+ */
 export const SUMMARY_SELECT = `
   SELECT a.id, a.created_at, a.updated_at, a.sample, a.formula, a.ion, a.ligands, a.solvent,
          a.temperature, a.measured_on, a.note, a.original_name, a.original_sha256, a.original_size,
-         r.revision, r.tool_version, r.ten_dq, r.ten_dq_sd, r.b, r.b_sd, r.c, r.beta, r.beta_sd,
-         r.spin_state, r.rms, r.status
-  FROM analyses a
-  JOIN revisions r ON r.analysis_id = a.id
-   AND r.revision = (SELECT max(revision) FROM revisions WHERE analysis_id = a.id)`;
+         a.revision, a.tool_version, a.ten_dq, a.ten_dq_sd, a.b, a.b_sd, a.c, a.beta, a.beta_sd,
+         a.spin_state, a.rms, a.status
+  FROM analyses a`;
 
 export interface FitColumns {
   ten_dq: number | null;

@@ -1,17 +1,18 @@
 import { parseFormula } from '../chemistry/formula.js';
 import { FieldgapError, isFieldgapError } from '../errors.js';
-import {
-  fitLigandFactors, rankByNephelauxetic, rankByTenDq, type FactorFit, type LigandShare, type RankOptions, type Ranking, type SeriesAnalysis,
-} from '../series/index.js';
+import { type FactorFit, type LigandShare, type RankOptions, type Ranking, type SeriesAnalysis } from '../series/index.js';
+import { fitCheckedLigandFactors } from '../series/factors.js';
+import { ligandLabels, rankCheckedByNephelauxetic, rankCheckedByTenDq } from '../series/rank.js';
+import { validateSeriesAnalyses } from '../series/validate.js';
 import type { Library } from './library.js';
-import type { AnalysisDetails, FitSummary } from './types.js';
+import type { AnalysisDetails, SeriesFit } from './types.js';
 import { canonicalIon } from './validate.js';
 
 /** What one stored (or freshly made) analysis contributes to a series. */
 export interface SeriesSource extends Pick<AnalysisDetails, 'sample' | 'formula' | 'ligands' | 'ion'> {
   /** The library id, or the file name for an analysis not stored. */
   id: string;
-  summary: FitSummary;
+  summary: SeriesFit;
 }
 
 export interface SeriesSkip {
@@ -46,7 +47,7 @@ export interface SeriesReport {
  * record with several ligands but no readable formula is left out (their
  * proportions are unknown).
  */
-export function seriesAnalysisOf(source: SeriesSource): SeriesAnalysis | string {
+export function seriesAnalysisOf(source: SeriesSource, readFormula: (formula: string | undefined) => LigandShare[] | undefined = formulaShares): SeriesAnalysis | string {
   const s = source.summary;
   if (s.tenDq === null || !(s.tenDq > 0)) return 'no fitted 10Dq';
   const analysis: SeriesAnalysis = { id: source.id, sample: source.sample, tenDq: s.tenDq };
@@ -55,7 +56,7 @@ export function seriesAnalysisOf(source: SeriesSource): SeriesAnalysis | string 
   if (s.beta !== null && s.beta > 0 && s.beta <= 1.2) analysis.beta = s.beta;
   if (s.betaSd !== null && analysis.beta !== undefined) analysis.betaUncertainty = s.betaSd;
   if (s.b !== null) analysis.b = s.b;
-  const shares = formulaShares(source.formula);
+  const shares = readFormula(source.formula);
   if (shares) analysis.ligands = shares;
   else if (source.ligands?.length === 1) analysis.ligand = source.ligands[0]!;
   else if (!source.ligands?.length) return 'no ligand given (set its ligands or a formula fieldgap reads)';
@@ -78,8 +79,16 @@ export function buildSeries(ionText: string, sources: readonly SeriesSource[], o
   const ion = canonicalIon(ionText);
   const analyses: SeriesAnalysis[] = [];
   const skipped: SeriesSkip[] = [];
+  // Each distinct formula is read once (a library repeats a few formulas thousands of times); the shares are only read.
+  const formulas = new Map<string | undefined, LigandShare[] | undefined>();
+  const readFormula = (formula: string | undefined) => {
+    if (formulas.has(formula)) return formulas.get(formula);
+    const shares = formulaShares(formula);
+    formulas.set(formula, shares);
+    return shares;
+  };
   for (const source of sources) {
-    const made = seriesAnalysisOf(source);
+    const made = seriesAnalysisOf(source, readFormula);
     if (typeof made === 'string') skipped.push({ id: source.id, sample: source.sample, reason: made });
     else analyses.push(made);
   }
@@ -90,10 +99,13 @@ export function buildSeries(ionText: string, sources: readonly SeriesSource[], o
       : `none of the ${sources.length} analyses of ${ion} has both a fitted 10Dq and a known ligand`;
     throw new FieldgapError('not-found', `${why}: nothing to rank`, 'ion');
   }
+  // Checked once for the factors and both rankings (each would check them again); a bad analysis throws here as it would there.
+  const shared = validateSeriesAnalyses(analyses);
+  const labels = ligandLabels(analyses);
   const notes: string[] = [];
   let factors: FactorFit | null = null;
   try {
-    factors = fitLigandFactors(analyses, { ion });
+    factors = fitCheckedLigandFactors(analyses, shared, { ion });
     notes.push(...factors.notes);
   } catch (error) {
     if (!isFieldgapError(error) || error.code !== 'invalid-argument') throw error;
@@ -102,8 +114,8 @@ export function buildSeries(ionText: string, sources: readonly SeriesSource[], o
   return {
     ion,
     count: analyses.length,
-    spectrochemical: rankByTenDq(analyses, options),
-    nephelauxetic: rankByNephelauxetic(analyses, options),
+    spectrochemical: rankCheckedByTenDq(analyses, labels, options),
+    nephelauxetic: rankCheckedByNephelauxetic(analyses, labels, options),
     factors,
     skipped,
     notes,
@@ -113,7 +125,7 @@ export function buildSeries(ionText: string, sources: readonly SeriesSource[], o
 /** The series of every analysis of `ion` in the library. */
 export async function librarySeries(library: Library, ion: string, options: RankOptions = {}): Promise<SeriesReport> {
   const label = canonicalIon(ion);
-  const sources = (await library.listAll({ ion: label })).map((r): SeriesSource => {
+  const sources = (await library.listFits({ ion: label })).map((r): SeriesSource => {
     const source: SeriesSource = { id: String(r.id), sample: r.sample, summary: r.summary };
     if (r.formula !== undefined) source.formula = r.formula;
     if (r.ligands !== undefined) source.ligands = r.ligands;

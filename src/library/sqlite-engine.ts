@@ -128,11 +128,23 @@ function sqliteEngineOver(db: Database.Database, readOnly: boolean): SqlEngine {
     queue = next.catch(() => undefined);
     return next;
   };
+  // Compiled statements by their SQL: the library's statements are few and run often (a batch
+  // of adds, a page of a list); a list with many search words makes new ones, so the cache is bounded.
+  const statements = new Map<string, Database.Statement>();
+  const statement = (sql: string): Database.Statement => {
+    let found = statements.get(sql);
+    if (found === undefined) {
+      if (statements.size >= 256) statements.clear();
+      found = db.prepare(sql);
+      statements.set(sql, found);
+    }
+    return found;
+  };
   const tx: SqlTx = {
-    all: async <R>(sql: string, params: readonly unknown[] = []) => db.prepare(sql).all(...params) as R[],
-    get: async <R>(sql: string, params: readonly unknown[] = []) => db.prepare(sql).get(...params) as R | undefined,
+    all: async <R>(sql: string, params: readonly unknown[] = []) => statement(sql).all(...params) as R[],
+    get: async <R>(sql: string, params: readonly unknown[] = []) => statement(sql).get(...params) as R | undefined,
     run: async (sql: string, params: readonly unknown[] = []) => {
-      db.prepare(sql).run(...params);
+      statement(sql).run(...params);
     },
   };
   const transaction = <T>(begin: string, fn: (t: SqlTx) => Promise<T>): Promise<T> =>

@@ -105,6 +105,15 @@ export interface AnalysisSummary extends AnalysisDetails {
   summary: FitSummary;
 }
 
+/** The fit numbers a ligand series reads (src/library/series.ts), cm-1 and β as in FitSummary. */
+export type SeriesFit = Pick<FitSummary, 'tenDq' | 'tenDqSd' | 'b' | 'beta' | 'betaSd'>;
+
+/** What a ligand series needs of one record, and no more: a narrow row for libraries of 100 000 records. */
+export interface FitRow extends Pick<AnalysisDetails, 'sample' | 'formula' | 'ligands' | 'ion'> {
+  id: number;
+  summary: SeriesFit;
+}
+
 /** A full record: the summary plus the current options and result, and the revision history. */
 export interface AnalysisRecord extends AnalysisSummary {
   options: StoredOptions;

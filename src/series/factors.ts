@@ -56,7 +56,11 @@ export interface FactorFit {
  * The uncertainty of g and k themselves is not known and not included.
  */
 export function fitLigandFactors(analyses: readonly SeriesAnalysis[], options: FitFactorsOptions = {}): FactorFit {
-  const shared = validateSeriesAnalyses(analyses);
+  return fitCheckedLigandFactors(analyses, validateSeriesAnalyses(analyses), options);
+}
+
+/** fitLigandFactors of analyses that validateSeriesAnalyses has passed, `shared` being the ion it returned. */
+export function fitCheckedLigandFactors(analyses: readonly SeriesAnalysis[], shared: Ion | undefined, options: FitFactorsOptions = {}): FactorFit {
   const ion = metalIon(shared, options.ion);
   const g = options.g ?? jorgensenG(ion);
   if (g === undefined || !(g > 0)) throw invalidArgument('g', `no tabulated g for ${ion.label} in Jørgensen's table: give g (cm-1) yourself`);

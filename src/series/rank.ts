@@ -17,8 +17,17 @@ export interface RankOptions {
  */
 export function rankByTenDq(analyses: readonly SeriesAnalysis[], options: RankOptions = {}): Ranking {
   validateSeriesAnalyses(analyses);
+  return rankCheckedByTenDq(analyses, ligandLabels(analyses), options);
+}
+
+/**
+ * rankByTenDq of analyses that validateSeriesAnalyses has passed, with their
+ * labels (ligandLabels): one check and one label per analysis when a caller
+ * makes both rankings of thousands of analyses.
+ */
+export function rankCheckedByTenDq(analyses: readonly SeriesAnalysis[], labels: readonly string[], options: RankOptions = {}): Ranking {
   const items = analyses.map((a, index) => ({ a, index, value: a.tenDq, uncertainty: a.tenDqUncertainty ?? 0 }));
-  return rank('spectrochemical', '10Dq / cm-1', items, [], options);
+  return rank('spectrochemical', '10Dq / cm-1', items, [], labels, options);
 }
 
 /**
@@ -28,13 +37,23 @@ export function rankByTenDq(analyses: readonly SeriesAnalysis[], options: RankOp
  */
 export function rankByNephelauxetic(analyses: readonly SeriesAnalysis[], options: RankOptions = {}): Ranking {
   validateSeriesAnalyses(analyses);
+  return rankCheckedByNephelauxetic(analyses, ligandLabels(analyses), options);
+}
+
+/** rankByNephelauxetic of analyses that validateSeriesAnalyses has passed, with their labels (ligandLabels). */
+export function rankCheckedByNephelauxetic(analyses: readonly SeriesAnalysis[], labels: readonly string[], options: RankOptions = {}): Ranking {
   const items: Item[] = [];
   const skipped: Ranking['skipped'] = [];
   analyses.forEach((a, index) => {
     if (a.beta === undefined) skipped.push({ index, sample: a.sample, reason: 'no beta given' });
     else items.push({ a, index, value: 1 - a.beta, uncertainty: a.betaUncertainty ?? 0 });
   });
-  return rank('nephelauxetic', '1 - beta', items, skipped, options);
+  return rank('nephelauxetic', '1 - beta', items, skipped, labels, options);
+}
+
+/** Each analysis's ligand label ("NH3", "NH3×5 Cl"), in the order given. */
+export function ligandLabels(analyses: readonly SeriesAnalysis[]): string[] {
+  return analyses.map((a, index) => ligandLabel(ligandShares(a, `analyses[${index}]`)));
 }
 
 interface Item {
@@ -51,7 +70,7 @@ export function valuesOverlap(v1: number, s1: number, v2: number, s2: number, cr
   return diff === 0 || diff < k * Math.hypot(s1, s2);
 }
 
-function rank(kind: Ranking['kind'], quantity: string, items: Item[], skipped: Ranking['skipped'], options: RankOptions): Ranking {
+function rank(kind: Ranking['kind'], quantity: string, items: Item[], skipped: Ranking['skipped'], labels: readonly string[], options: RankOptions): Ranking {
   const { criterion = 'one-sigma' } = options;
   // Stable sort: equal values keep the order the user gave.
   const sorted = [...items].sort((x, y) => x.value - y.value);
@@ -66,7 +85,7 @@ function rank(kind: Ranking['kind'], quantity: string, items: Item[], skipped: R
       position: i + 1,
       index: item.index,
       sample: item.a.sample,
-      ligandLabel: ligandLabel(ligandShares(item.a, `analyses[${item.index}]`)),
+      ligandLabel: labels[item.index]!,
       value: item.value,
       uncertainty: item.uncertainty,
       overlapsNext,

@@ -12,6 +12,8 @@ export function validateSeriesAnalyses(analyses: readonly SeriesAnalysis[], path
   if (!Array.isArray(analyses) || analyses.length === 0) throw invalidArgument(path, `${path}: expected at least one analysis`);
   let ion: Ion | undefined;
   let ionAt = -1;
+  // A series of thousands of analyses names a handful of ion spellings: each is read once.
+  const ions = new Map<string, Ion>();
   analyses.forEach((a, i) => {
     const at = `${path}[${i}]`;
     if (typeof a.sample !== 'string' || a.sample.trim() === '') throw invalidArgument(`${at}.sample`, `${at}.sample: expected a sample name`);
@@ -23,7 +25,11 @@ export function validateSeriesAnalyses(analyses: readonly SeriesAnalysis[], path
     nonNegative(a.betaUncertainty, `${at}.betaUncertainty`);
     ligandShares(a, at);
     if (a.ion !== undefined) {
-      const here = parseIon(a.ion, { path: `${at}.ion` });
+      let here = ions.get(a.ion);
+      if (here === undefined) {
+        here = parseIon(a.ion, { path: `${at}.ion` });
+        ions.set(a.ion, here);
+      }
       if (ion && here.label !== ion.label) {
         throw invalidArgument(`${at}.ion`, `${at}.ion: ${here.label} differs from ${ion.label} in ${path}[${ionAt}]: a series compares complexes of one metal ion`);
       }
@@ -48,8 +54,17 @@ export function ligandShares(a: SeriesAnalysis, at: string): LigandShare[] {
 
 /** "ammine" → "NH3"; a ligand fieldgap does not know keeps the user's spelling. */
 export function canonicalLigand(text: string): string {
-  return findLigand(text)?.key ?? text.trim();
+  let key = canonicalLigands.get(text);
+  if (key === undefined) {
+    key = findLigand(text)?.key ?? text.trim();
+    // A series repeats a few spellings thousands of times; findLigand reads a fixed table, so the answer never changes.
+    if (canonicalLigands.size >= 4096) canonicalLigands.clear();
+    canonicalLigands.set(text, key);
+  }
+  return key;
 }
+
+const canonicalLigands = new Map<string, string>();
 
 /** "NH3", or "NH3×5 Cl" for a mixed complex. */
 export function ligandLabel(shares: readonly LigandShare[]): string {

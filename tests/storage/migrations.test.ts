@@ -70,6 +70,34 @@ describe('schema migrations', () => {
     db.close();
   });
 
+  it('copies each record\'s latest revision into its row when upgrading to step 5', async () => {
+    const db = new Database(join(dir, LIBRARY_FILE));
+    migrate(db, 'test', 4);
+    db.exec(`
+      INSERT INTO analyses (created_at, updated_at, sample, ion, ligands, original_name, original_sha256, original_size)
+        VALUES ('2025-01-01T00:00:00.000Z', '2025-01-02T00:00:00.000Z', 'refitted', 'Cr3+', '["H2O"]', 'a.csv', '00', 3),
+               ('2025-01-01T00:00:00.000Z', '2025-01-01T00:00:00.000Z', 'once', 'Cr3+', '["NH3"]', 'b.csv', '01', 3);
+      INSERT INTO originals (analysis_id, bytes) VALUES (1, X'616263'), (2, X'646566');
+      INSERT INTO revisions (analysis_id, revision, created_at, tool_version, options, ten_dq, b, spin_state)
+        VALUES (1, 2, '2025-01-02T00:00:00.000Z', '0.0.2', '{}', 17600, 700, 'quartet'),
+               (1, 1, '2025-01-01T00:00:00.000Z', '0.0.1', '{}', 17400, 710, 'quartet'),
+               (2, 1, '2025-01-01T00:00:00.000Z', '0.0.1', '{}', 21500, 650, NULL);
+      INSERT INTO results (revision_id, result) VALUES (1, '{}'), (2, '{}'), (3, '{}');
+    `);
+    db.close();
+    const library = await openLibrary(dir);
+    try {
+      const listed = (await library.listAll()).map((a) => [a.sample, a.revision, a.toolVersion, a.summary.tenDq, a.summary.b, a.summary.spinState]);
+      expect(listed).toEqual([
+        ['once', 1, '0.0.1', 21500, 650, null],
+        ['refitted', 2, '0.0.2', 17600, 700, 'quartet'],
+      ]);
+      expect((await library.get(1)).revisions.map((r) => r.summary.tenDq)).toEqual([17400, 17600]);
+    } finally {
+      await library.close();
+    }
+  });
+
   it('refuses a library from a newer fieldgap', async () => {
     await (await openLibrary(dir)).close();
     const db = new Database(join(dir, LIBRARY_FILE));

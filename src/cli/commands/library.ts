@@ -159,21 +159,10 @@ const SUBCOMMANDS: Record<string, Handler> = {
     const { values } = parseCommandArgs(argv, { csv: { type: 'string' }, json: { type: 'string' }, query: { type: 'string' }, ion: { type: 'string' }, force: { type: 'boolean' }, ...DATA });
     if (values.csv !== undefined && values.json !== undefined) throw invalidArgument('--json', 'give --csv FILE or --json FILE, not both');
     const filter = { ...(values.query !== undefined && { query: values.query }), ...(values.ion !== undefined && { ion: values.ion }) };
-    const { libraryCsv } = await import('../../library/export.js');
-    const text = await withLibrary(values, io, async (library) => {
-      const summaries = await library.listAll(filter);
-      if (values.json === undefined) return libraryCsv(summaries);
-      const analyses: AnalysisRecord[] = [];
-      for (const s of summaries) analyses.push(await library.get(s.id));
-      return `${JSON.stringify({ analyses }, null, 2)}\n`;
-    });
+    const { exportLibrary } = await import('./library-export.js');
     const target = values.csv ?? values.json;
-    if (target === undefined || target === '-') {
-      io.stdout(text);
-      return 0;
-    }
-    writeNew(target, text, values.force === true, io);
-    io.stdout(`wrote ${target}\n`);
+    await withLibrary(values, io, (library) => exportLibrary(library, filter, values.json === undefined ? 'csv' : 'json', target, values.force === true, io));
+    if (target !== undefined && target !== '-') io.stdout(`wrote ${target}\n`);
     return 0;
   },
 

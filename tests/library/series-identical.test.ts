@@ -1,0 +1,109 @@
+import { describe, expect, it } from 'vitest';
+import { isFieldgapError } from '../../src/errors.js';
+import { buildSeries, seriesAnalysisOf, type SeriesReport, type SeriesSource } from '../../src/library/series.js';
+import { canonicalIon } from '../../src/library/validate.js';
+import { fitLigandFactors, rankByNephelauxetic, rankByTenDq, type FactorFit, type RankOptions, type SeriesAnalysis } from '../../src/series/index.js';
+
+/**
+ * buildSeries checks the analyses once, reads each formula and ligand
+ * spelling once and labels each analysis once for both rankings. The slow
+ * reference below is buildSeries as it was written first: every source on
+ * its own, then the three public functions, each checking and labelling
+ * every analysis again. The two must agree exactly (toEqual, not toBeCloseTo).
+ */
+function referenceSeries(ionText: string, sources: readonly SeriesSource[], options: RankOptions = {}): SeriesReport {
+  const ion = canonicalIon(ionText);
+  const analyses: SeriesAnalysis[] = [];
+  const skipped: SeriesReport['skipped'] = [];
+  for (const source of sources) {
+    const made = seriesAnalysisOf(source);
+    if (typeof made === 'string') skipped.push({ id: source.id, sample: source.sample, reason: made });
+    else analyses.push(made);
+  }
+  const notes: string[] = [];
+  let factors: FactorFit | null = null;
+  try {
+    factors = fitLigandFactors(analyses, { ion });
+    notes.push(...factors.notes);
+  } catch (error) {
+    if (!isFieldgapError(error) || error.code !== 'invalid-argument') throw error;
+    notes.push(`ligand factors not fitted: ${error.message}`);
+  }
+  return {
+    ion, count: analyses.length,
+    spectrochemical: rankByTenDq(analyses, options),
+    nephelauxetic: rankByNephelauxetic(analyses, options),
+    factors, skipped, notes,
+  };
+}
+
+/** A seeded generator, so a failure can be replayed. */
+function lcg(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    state = (Math.imul(state, 1_664_525) + 1_013_904_223) >>> 0;
+    return state / 2 ** 32;
+  };
+}
+
+// Spellings of a real library: formulas fieldgap reads (mixed, chelating), one it does not,
+// ligand names in several spellings, one ligand nobody tabulates, records without a fit or ligands.
+const FORMULAS = ['[Cr(H2O)6]Cl3', '[Cr(NH3)6]Cl3', '[Cr(en)3]Cl3', '[Cr(NH3)5Cl]Cl2', 'K3[Cr(ox)3]', 'K3[Cr(CN)6]', 'my own complex', undefined];
+const LIGAND_LISTS = [['H2O'], ['ammine'], ['NH3', 'Cl'], ['urea'], ['L1'], [], ['F']];
+
+function sources(count: number, seed: number): SeriesSource[] {
+  const next = lcg(seed);
+  const pick = <T>(list: readonly T[]): T => list[Math.floor(next() * list.length)]!;
+  return Array.from({ length: count }, (_v, i): SeriesSource => {
+    const hasFit = next() > 0.05;
+    const beta = next() > 0.1 ? 0.55 + 0.4 * next() : null;
+    const source: SeriesSource = {
+      id: String(count - i),
+      sample: `sample ${i}`,
+      ion: pick(['Cr3+', 'Cr(III)', 'cr 3+']),
+      summary: {
+        // rounded to 0.1 cm-1 as fits often are, so equal values and exact overlaps occur
+        tenDq: hasFit ? Math.round(150_000 + 100_000 * next()) / 10 : null,
+        tenDqSd: next() > 0.2 ? Math.round(2_000 * next()) / 10 : null,
+        b: hasFit ? 500 + 300 * next() : null,
+        beta,
+        betaSd: beta !== null && next() > 0.3 ? 0.03 * next() : null,
+      },
+    };
+    const formula = pick(FORMULAS);
+    if (formula !== undefined) source.formula = formula;
+    const ligands = pick(LIGAND_LISTS);
+    if (ligands.length > 0) source.ligands = ligands;
+    return source;
+  });
+}
+
+describe('buildSeries, checked once, against the reference that checks everything thrice', () => {
+  it.each([1, 2, 3])('gives the same report for 3 000 varied analyses (seed %i)', (seed) => {
+    const given = sources(3_000, seed);
+    for (const criterion of ['one-sigma', 'two-sigma'] as const) {
+      expect(buildSeries('Cr3+', given, { criterion })).toEqual(referenceSeries('Cr3+', given, { criterion }));
+    }
+  });
+
+  it('throws the same error for an analysis that fails the checks', () => {
+    const given = sources(50, 7);
+    given[10] = { id: 'bad', sample: 'bad sd', ligands: ['H2O'], summary: { tenDq: 17_000, tenDqSd: -5, b: null, beta: null, betaSd: null } };
+    const error = (fn: () => unknown) => {
+      try {
+        fn();
+      } catch (e) {
+        return e;
+      }
+      throw new Error('expected a throw');
+    };
+    expect(error(() => buildSeries('Cr3+', given))).toEqual(error(() => referenceSeries('Cr3+', given)));
+    expect(error(() => buildSeries('Cr3+', given))).toMatchObject({ code: 'invalid-argument', path: 'analyses[10].tenDqUncertainty' });
+  });
+
+  it('gives the same notes when the factors cannot be fitted (an ion without a tabulated g)', () => {
+    const given = sources(40, 11).map((s) => ({ ...s, ion: 'Ti3+' }));
+    const fast = buildSeries('Ti3+', given);
+    expect(fast).toEqual(referenceSeries('Ti3+', given));
+  });
+});
