@@ -16,7 +16,10 @@ describe('what 10Dq and B rest on', () => {
     const r = fitBands({ ion: 'Co2+', bands: '16000:sf:sh, 19800', window: VISIBLE });
     expect(r.assignments.filter((a) => a.spinAllowed)).toHaveLength(1);
     expect(listed(r)).toEqual(['b', 'tenDq']);
-    expect(r.warnings.join(' ')).toMatch(/10Dq = \d+ cm-1 is not determined by spin-allowed bands alone/);
+    // Either way is honest: B rests on the flagged band's assignment, or (when the score leaves the flagged shoulder
+    // unexplained) B is fixed at its prior and 10Dq rests on one band; a 10Dq stated as measured is the failure.
+    expect(r.warnings.join(' ')).toMatch(/10Dq = \d+ cm-1 is not determined by (spin-allowed bands alone|one band alone)/);
+    if (/one band alone/.test(r.warnings.join(' '))) expect(r.warnings.join(' ')).toMatch(/B fixed at its prior/);
   });
 
   it('two bands with one maximum beyond the measured range: 10Dq and B say they rest on the extrapolated one', () => {
