@@ -93,9 +93,10 @@ export function buildResult(s: FitSettings, ranked: readonly Trial[]): Tetragona
   // Determinacy and uncertainties from the weighted Jacobian at the solution (columns: free parameters).
   const J = winner.solve.jacobian;
   const scale = Math.max(...J.to1DArray().map(Math.abs), 1e-300);
-  const fullJ = new Matrix(J.rows, 5);
+  // What the data fix: the band rows only (a prior row, refine.ts, would make every parameter look determined).
+  const fullJ = new Matrix(fitted.length, 5);
   freeParams.forEach((j, c) => {
-    for (let i = 0; i < J.rows; i++) fullJ.set(i, j, J.get(i, c));
+    for (let i = 0; i < fitted.length; i++) fullJ.set(i, j, J.get(i, c));
   });
   const { combos, pivots } = rowSpaceCombinations(fullJ, freeParams, 1e-7 * scale);
   const rank = combos.length;
@@ -171,7 +172,7 @@ export function buildResult(s: FitSettings, ranked: readonly Trial[]): Tetragona
     assignments, components,
     alternatives: distinct.slice(distinct[0] === winner ? 1 : 0, 4).map((t) => ({
       labels: t.chosen.map((key) => labelKeys(setting, s.toParameters(s.full(t.solve.x, t.base))).byKey.get(key)!.label),
-      rmsResidual: Math.sqrt(t.solve.residuals.reduce((sum, v, i) => sum + (v * sigmas[i]!) ** 2, 0) / fitted.length),
+      rmsResidual: Math.sqrt(t.solve.residuals.subarray(0, fitted.length).reduce((sum, v, i) => sum + (v * sigmas[i]!) ** 2, 0) / fitted.length),
       score: t.score, probability: probabilityOf(t),
     })),
     predicted: labelled.levels.filter((l) => l.energy > 0 && l.energy < 50000).map(({ energy, degeneracy, irrep, parent, label }) => ({ energy, degeneracy, irrep, parent, label })),

@@ -1,6 +1,9 @@
-import { effectiveWeight } from '../fit/likelihood.js';
-import { betaPriorDeviance, skippedTransitionPenalties, splitPairLimit, type ClassTransition } from '../fit/penalties.js';
-import type { Penalty } from '../fit/types.js';
+import { jorgensenG } from '../chemistry/jorgensen.js';
+import { effectiveWeight, flatWithTails, LIKELIHOOD } from '../fit/likelihood.js';
+import {
+  betaPriorDeviance, skippedTransitionPenalties, splitPairLimit, tenDqPriorDeviance, type ClassTransition, type PriorSettings,
+} from '../fit/penalties.js';
+import type { TetragonalPenalty } from './types.js';
 import type { FieldLevel } from '../ligand-field/field-levels.js';
 import { groundKeyOf } from './enumerate.js';
 import type { RefinedTrial } from './refine.js';
@@ -20,11 +23,18 @@ import type { FitSettings } from './settings.js';
  *   transition, which hides under that band (the unresolved component of a
  *   split parent), none above the highest band or under a charge-transfer
  *   band, p = 0.003 between the observed bands, and so on;
- * - the β prior (B/B0) when B is fitted and the ion's B0 is known.
+ * - the β prior (B/B0) when B is fitted and the ion's B0 is known;
+ * - the 10Dq prior of likelihood.ts (flat over 0.7·g … 1.75·g, Jørgensen's
+ *   g of the ion, ×4/9 tetrahedral, 15 % tails) when the ion has g; the
+ *   cubic part Dq of a tetragonal field is the average environment's;
+ * - a ζ prior when ζ is fitted and the free ion's ζ0 is tabulated: ζ/ζ0
+ *   flat on [0.5, 1.0], half-Gaussian tails of σ 0.05 above and 0.1 below
+ *   (common practice: covalency reduces ζ in complexes to some 60–90 % of
+ *   the free ion's, never above it).
  * Lower is better; probabilities exp(−score/2) normalised over the distinct
  * assignments fitted (probabilitiesOf).
  */
-export function scoreTrial(s: FitSettings, trial: RefinedTrial): { score: number; penalties: Penalty[] } {
+export function scoreTrial(s: FitSettings, trial: RefinedTrial): { score: number; penalties: TetragonalPenalty[] } {
   const { energies, byKey, chosen } = trial;
   let chi2 = 0;
   s.fitted.forEach((band, i) => {
@@ -58,10 +68,27 @@ export function scoreTrial(s: FitSettings, trial: RefinedTrial): { score: number
   const { penalties } = skippedTransitionPenalties({
     geometry: s.geometry, transitions, assigned, classForbidden: false, ...(s.ctOnset === undefined ? {} : { ctOnset: s.ctOnset }),
   });
+  const out: TetragonalPenalty[] = [...penalties];
+  const p = s.toParameters(s.full(trial.solve.x, trial.base));
+  const g = s.ion ? jorgensenG(s.ion) : undefined;
+  const t = s.geometry === 'tetrahedral' ? LIKELIHOOD.tetrahedralFactor : 1;
+  const priors: PriorSettings = {
+    b0: s.b0, cOverB: s.cOverB, tenDqExpected: null, tenDqRange: g === undefined ? null : [LIKELIHOOD.fLow * g * t, LIKELIHOOD.fHigh * g * t],
+    betaExpected: null, ligandNote: null,
+  };
   if (s.freeParams.includes(3) && s.bMatters) {
-    const b = s.toParameters(s.full(trial.solve.x, trial.base)).b;
-    const amount = betaPriorDeviance(b, { b0: s.b0, cOverB: s.cOverB, tenDqExpected: null, tenDqRange: null, betaExpected: null, ligandNote: null });
-    if (amount > 0) penalties.push({ rule: 'beta', amount, detail: `B = ${b.toFixed(0)} cm-1${s.b0 === null ? '' : ` (β = ${(b / s.b0).toFixed(2)})`} lies outside the usual range` });
+    const amount = betaPriorDeviance(p.b, priors);
+    if (amount > 0) out.push({ rule: 'beta', amount, detail: `B = ${p.b.toFixed(0)} cm-1${s.b0 === null ? '' : ` (β = ${(p.b / s.b0).toFixed(2)})`} lies outside the usual range` });
   }
-  return { score: chi2 + penalties.reduce((sum, p) => sum + p.amount, 0), penalties };
+  const tenDq = tenDqPriorDeviance(p.dq, priors);
+  if (tenDq > 0) out.push({ rule: 'ten-dq', amount: tenDq, detail: `10Dq = ${(10 * p.dq).toFixed(0)} cm-1 lies outside the range ${s.ion?.label ?? 'the ion'} shows with common ligands` });
+  if (s.zetaMode === 'free' && s.tabulatedZeta) {
+    const ratio = p.zeta / s.tabulatedZeta.zeta;
+    const amount = flatWithTails(ratio, ZETA_PRIOR.low, ZETA_PRIOR.high, ZETA_PRIOR.sigmaLow, ZETA_PRIOR.sigmaHigh);
+    if (amount > 0) out.push({ rule: 'zeta', amount, detail: `ζ = ${p.zeta.toFixed(0)} cm-1 is ${(100 * ratio).toFixed(0)} % of the free ion's ${s.tabulatedZeta.zeta} cm-1 (complexes: 50–100 %)` });
+  }
+  return { score: chi2 + out.reduce((sum, q) => sum + q.amount, 0), penalties: out };
 }
+
+/** ζ/ζ0 in complexes (common practice): flat on [low, high], half-Gaussian tails. */
+export const ZETA_PRIOR = { low: 0.5, high: 1.0, sigmaLow: 0.1, sigmaHigh: 0.05 } as const;

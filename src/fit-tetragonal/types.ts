@@ -33,6 +33,11 @@ export interface TetragonalAssignment {
   bands: number[];
 }
 
+/** A score term (src/fit's Penalty), or the ζ prior of score.ts. */
+export interface TetragonalPenalty extends Omit<Penalty, 'rule'> {
+  rule: Penalty['rule'] | 'zeta';
+}
+
 /** Two or more bands assigned to components of one octahedral (or spin-free) parent: one band of the cubic parent, split. */
 export interface ParentComponents {
   /** The parent level, "4T1g(F)". */
@@ -71,7 +76,7 @@ export interface TetragonalFitResult {
   score: number;
   probability: number;
   /** The score's terms other than the positions' χ²: transitions left without a band, the β prior. */
-  penalties: Penalty[];
+  penalties: TetragonalPenalty[];
   groundTerm: string;
   groundLabel: string;
   assignments: TetragonalAssignment[];
@@ -103,5 +108,5 @@ export interface Trial {
   keepsGround: boolean;
   /** Filled by score.ts. */
   score: number;
-  penalties: Penalty[];
+  penalties: TetragonalPenalty[];
 }
