@@ -6,7 +6,9 @@ import { freeIonTerms } from '../../src/ligand-field/index.js';
  * Source: Racah, Phys. Rev. 62, 438 (1942) and Griffith, The Theory of
  * Transition-Metal Ions (1961), Table A20; the expressions below are recalled
  * from those tables (from memory), written relative to the ground term (A drops out).
- * d^n and d^(10−n) have the same term energies.
+ * d^n and d^(10−n) have the same term energies. An outside check of the model
+ * against observed free-ion terms (NIST Atomic Spectra Database levels of 13
+ * ions) is in tests/chemistry/free-ion-nist.test.ts.
  */
 type Expected = Record<string, (b: number, c: number) => number[]>;
 
