@@ -53,8 +53,12 @@
  *   (common practice: 1–150 and 50–1 500), a tenth of that for a two-electron
  *   transition and for a tetrahedral one forbidden by the orbital rule (ν1 of
  *   tetrahedral Co(II) and V(III): tens against hundreds, common practice); for spin-forbidden bands 3% of the strongest spin-allowed ε
- *   of the spectrum, or ε_μ = 0.05 octahedral / 1 tetrahedral when every band
- *   is spin-forbidden (high-spin d5). Term: ((ln ε − ln ε_μ)/1.3)².
+ *   of the spectrum, or, when every band is spin-forbidden (high-spin d5),
+ *   ε_μ = 0.3 octahedral / 1 tetrahedral with σ 1.7: the quartets of
+ *   octahedral d5 span about 0.01 (hexaaqua Mn(II)) to 10 (Fe(III) in
+ *   oxides, where charge transfer lies near and lends intensity), common
+ *   practice; ±2σ covers that span around its geometric mean. Term:
+ *   ((ln ε − ln ε_μ)/σ)², σ = 1.3 otherwise.
  * - Assignment prior: the spin states (branches) are a priori equally
  *   probable and each shares its probability evenly among its N order-
  *   consistent assignments of the bands, so one costs 2·ln N (score-terms.ts;
@@ -125,12 +129,13 @@ export const LIKELIHOOD = {
   infrared: 5000,
   tetrahedralLowest: 7000,
   logEpsilonSigma: 1.3,
+  logEpsilonSigmaAllForbidden: 1.7,
   epsilonOctahedral: 20,
   epsilonTetrahedral: 300,
   epsilonTwoElectronFactor: 0.1,
   epsilonOrbitallyForbiddenFactor: 0.1,
   forbiddenRelative: 0.03,
-  epsilonForbiddenOctahedral: 0.05,
+  epsilonForbiddenOctahedral: 0.3,
   epsilonForbiddenTetrahedral: 1,
   betaMin: 0.35,
   betaMax: 1.0,

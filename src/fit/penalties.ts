@@ -261,6 +261,7 @@ export function intensityPenalties({ geometry, bands, allForbidden }: IntensityC
     if (band.epsilon === undefined || !(band.epsilon > 0)) continue;
     let mu: number;
     let kind: string;
+    let sigma: number = L.logEpsilonSigma;
     if (band.spinAllowed) {
       const weak = band.twoElectron || band.orbitallyForbidden === true;
       mu = band.twoElectron ? allowedMu * L.epsilonTwoElectronFactor : band.orbitallyForbidden ? allowedMu * L.epsilonOrbitallyForbiddenFactor : allowedMu;
@@ -271,8 +272,9 @@ export function intensityPenalties({ geometry, bands, allForbidden }: IntensityC
     } else {
       mu = geometry === 'tetrahedral' ? L.epsilonForbiddenTetrahedral : L.epsilonForbiddenOctahedral;
       kind = 'a spin-forbidden band';
+      sigma = L.logEpsilonSigmaAllForbidden;
     }
-    const term = (Math.log(band.epsilon / mu) / L.logEpsilonSigma) ** 2;
+    const term = (Math.log(band.epsilon / mu) / sigma) ** 2;
     if (term > 0.01) {
       penalties.push({
         rule: 'intensity', amount: term,

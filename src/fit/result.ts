@@ -35,7 +35,8 @@ export function alternativeMargin(bestScore: number): number {
   return bestScore + deviance(LIKELIHOOD.alternativeRatio);
 }
 
-const round = (v: number, digits = 1) => Math.round(v * 10 ** digits) / 10 ** digits;
+// + 0: a residual that rounds to zero from below is 0, not −0 (JSON and structured clone would disagree).
+const round = (v: number, digits = 1) => Math.round(v * 10 ** digits) / 10 ** digits + 0;
 
 function assignmentRows(best: Evaluated): AssignedBand[] {
   const { scan, branch, variant } = best.candidate;
