@@ -42,7 +42,7 @@ import { normalizeBands } from './bands.js';
 import {
   approximateScore, branchVariant, candidateAt, candidateGroups, dqOnlyLevel, type CandidateGroup, type DqOnlyCandidate, type GridCandidate,
 } from './candidates.js';
-import { scanBranches } from './enumerate.js';
+import { primaryClass, scanBranches } from './enumerate.js';
 import { bPriorOf, priorBOnScan, refinePriorB } from './prior-b.js';
 import type { Reduction } from './reductions.js';
 import { effectiveWeight } from './likelihood.js';
@@ -230,6 +230,30 @@ function priorBCandidates(settings: FitSettings, sorted: SortedObservations, red
   return out;
 }
 
+/**
+ * A Dq-only solution of a class with several transitions (ν1 of d3 and d8
+ * octahedral, of d2 and d7 tetrahedral) is scored without the window
+ * terms, since the other transitions' energies depend on the unknown B;
+ * left so, it beats every assignment that pays for a transition missing
+ * inside the measured range (a lone band read as ν1 while ν2 would then lie
+ * in the window with no band). Its window terms are those of the same
+ * assignment with B at its prior (prior-b.ts): charged, and listed as
+ * skipped transitions, B itself staying unreported.
+ */
+function withWindowAtPriorB(e: Evaluated, settings: FitSettings, sorted: SortedObservations): Evaluated {
+  const candidate = e.candidate as DqOnlyCandidate;
+  if (primaryClass(candidate.branch).levels.length < 2) return e;
+  const same = priorBOnScan(candidate.scan, candidate.branch, candidate.variant, settings, sorted, bPriorOf(settings))
+    .filter((p) => (p.candidate as DqOnlyCandidate).level === candidate.level)
+    .sort((a, b) => a.score - b.score)[0];
+  if (!same) return e;
+  const window = same.penalties.filter((p) => p.rule === 'skipped-transition')
+    .map((p) => ({ ...p, detail: `${p.detail} (with B at its prior)` }));
+  if (window.length === 0) return e;
+  const penalties = [...e.penalties, ...window];
+  return { ...e, penalties, skipped: same.skipped, score: e.score + window.reduce((t, p) => t + p.amount, 0) };
+}
+
 function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: number[], wholeListOnly = false): Evaluated[] {
   const p = settings.mode === 'free' ? 3 : 2;
   const threshold = unexplainedThreshold([...sorted.primary, ...sorted.flagged].map((o) => o.position));
@@ -287,7 +311,7 @@ function evaluateAll(settings: FitSettings, sorted: SortedObservations, ratios: 
   }
   for (const c of dqOnly) {
     const e = evaluateDqOnly(c, settings, sorted);
-    if (e) evaluated.push(e);
+    if (e) evaluated.push(withWindowAtPriorB(e, settings, sorted));
   }
   // Prior-B solutions scored on the scan: the best few within the margin are polished with the engine; only those count.
   const margin = alternativeMargin(Math.min(bestScore, ...evaluated.map((e) => e.score), ...priorB.map((e) => e.score)));

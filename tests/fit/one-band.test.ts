@@ -98,4 +98,14 @@ describe('one band: B at its prior', () => {
     expect(r.tenDq).toBe(21_550);
     expect(r.b).toBeNull();
   });
+
+  it('charges a lone ν1 for the transitions the window should then show, at B\'s prior', () => {
+    // One Ni(II) band in a 200–1100 nm window read as ν1 = 10Dq: ν2 would then lie inside the range with no band.
+    const r = fitBands({ ion: 'Ni2+', bands: [14_800], window: { min: 1e7 / 1100, max: 1e7 / 200 } });
+    expect(r.b).toBeNull();
+    const window = r.penalties.filter((p) => p.rule === 'skipped-transition');
+    expect(window.length).toBeGreaterThan(0);
+    expect(window[0]!.detail).toMatch(/3T1g\(F\).*with B at its prior/);
+    expect(r.skipped.map((t) => t.label)).toContain('3T1g(F)');
+  });
 });
