@@ -12,7 +12,7 @@
  * fourth one cut to the 380–780 nm window of a visible-only instrument.
  */
 import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { availableParallelism, tmpdir } from 'node:os';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { computeLevels } from '../src/ligand-field/index.js';
 import { formatDelimited, synthesizeSpectrum } from '../src/spectrum/index.js';
@@ -63,7 +63,7 @@ export async function run(): Promise<void> {
   try {
     for (let k = 0; k < VARIANTS; k++) writeFileSync(join(root, `variant-${k}.csv`), spectrumCsv(k));
     const rss = new Map<number, number>();
-    process.stdout.write(`${availableParallelism()} cores\n`);
+    process.stdout.write(`${availableParallelism()} cores, load average ${loadavg().map((l) => l.toFixed(1)).join(' ')} at the start\n`);
     for (const n of sizes) {
       const dir = makeFolder(root, n);
       const summary = join(root, `summary-${n}.csv`);
@@ -75,7 +75,7 @@ export async function run(): Promise<void> {
       const mb = (maxRssKb ?? Number.NaN) / 1024;
       rss.set(n, mb);
       const target = n === 10_000 ? `; target < ${TARGET_S} s: ${ms / 1000 < TARGET_S ? 'met' : 'NOT met'}` : '';
-      process.stdout.write(`${String(n).padStart(6)} files: ${(ms / 1000).toFixed(1)} s wall, ${(n / (ms / 1000)).toFixed(0)} files/s, ${(cpuMs / 1000).toFixed(1)} s CPU (${(cpuMs / n).toFixed(1)} ms a file), peak RSS ${mb.toFixed(0)} MB, ${rows} rows (${failed} failed)${target}\n`);
+      process.stdout.write(`${String(n).padStart(6)} files: ${(ms / 1000).toFixed(1)} s wall, ${(n / (ms / 1000)).toFixed(0)} files/s, ${(cpuMs / 1000).toFixed(1)} s CPU (${(cpuMs / n).toFixed(1)} ms a file), peak RSS ${mb.toFixed(0)} MB, ${rows} rows (${failed} failed), load average ${loadavg()[0]!.toFixed(1)}${target}\n`);
       reportFigure({ key: `batch.${n}.s`, label: `batch: analyze ${n} files`, value: ms / 1000, unit: 's', better: 'lower' });
       reportFigure({ key: `batch.${n}.cpuMsPerFile`, label: `batch: CPU per file, ${n} files`, value: cpuMs / n, unit: 'ms', better: 'lower' });
       reportFigure({ key: `batch.${n}.rssMB`, label: `batch: peak RSS, ${n} files`, value: mb, unit: 'MB', better: 'lower' });

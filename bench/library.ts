@@ -7,8 +7,17 @@
  * (addMany, FILL_BATCH records a transaction), with the invented demo
  * spectrum (a distinct comment line each) and its real analysis result.
  * Targets (issue 17): a page of `library list` and a series under 200 ms,
- * an export of 10 000 records under 10 s, the database at most about 2× the
- * originals' bytes plus 5 kB per record.
+ * an export of 10 000 records under 10 s (streamed in pages as `library
+ * export` does: the CSV, and the JSON of the full records), the database at
+ * most about 2× the originals' bytes plus 5 kB per record. The series is
+ * timed three times (median, with its CPU time: on a shared machine the wall
+ * time follows the load average, printed beside each engine's figures).
+ *
+ * The full run: `scripts/test-postgres.sh start DIR` (prints the URL), then
+ * FIELDGAP_BENCH_DATABASE_URL=<url> FIELDGAP_BENCH_RECORDS=100000 npm run
+ * bench -- library.ts (about 2 GB of temporary files per engine; 5 to 6
+ * minutes of filling each on a busy 2-core machine), then
+ * `scripts/test-postgres.sh stop DIR`.
  */
 import { mkdtempSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';

@@ -238,13 +238,18 @@ function savedText(saved: AnalysisRecord): string {
   return `saved #${saved.id} "${saved.sample}"${saved.ion ? ` (${saved.ion})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`;
 }
 
+/** Files saved a transaction by `library add FILES...`. */
+const ADD_BATCH = 50;
+
 type AddValues = Parameters<typeof analysisOptionsFrom>[0] & DetailValues & LibraryFlags & { corrections?: string; json?: boolean };
 
 /**
  * `library add FILE FILE...`: every file in one process, into one open
  * library, each its own record (sample named after its file). The analyses
- * run on the batch pool (every core); records are saved and printed in the
- * order of the files. A file that cannot be read or analysed is reported on
+ * run on the batch pool (every core); records are saved in batches of up to
+ * ADD_BATCH files, one transaction each, and printed in the order of the
+ * files once their batch is committed (nothing is acknowledged before it is
+ * on disk). A file that cannot be read or analysed is reported on
  * stderr and the others go on (exit 1); with --json the saved records are
  * printed as one JSON array, each as it is saved.
  */
@@ -270,22 +275,42 @@ async function addMany(files: string[], values: AddValues, io: CliIo): Promise<n
           return { error };
         }
       };
+      // Saved a batch at a time: one transaction (one fsync) per batch, and each file's line printed only once its batch is committed.
+      const pending: { file: string; record?: NewAnalysis; error?: FieldgapError }[] = [];
+      let since = Date.now();
+      const report = (file: string, outcome: AnalysisRecord | FieldgapError) => {
+        if (outcome instanceof FieldgapError) {
+          failed++;
+          const where = outcome.path && outcome.path !== file && outcome.path !== basename(file) ? `${outcome.path}: ` : '';
+          io.stderr(`fieldgap library: ${file}: not saved: ${where}${outcome.message}\n`);
+          return;
+        }
+        if (values.json) io.stdout(`${saved > 0 ? ',' : ''}\n  ${JSON.stringify(outcome, null, 2).replaceAll('\n', '\n  ')}`);
+        else io.stdout(savedText(outcome));
+        saved++;
+      };
+      const flush = async () => {
+        const batch = pending.splice(0);
+        since = Date.now();
+        const records = batch.flatMap((p) => (p.record ? [p.record] : []));
+        const outcomes = records.length > 0 ? await library.addMany(records) : [];
+        let next = 0;
+        for (const p of batch) report(p.file, p.record ? outcomes[next++]! : p.error!);
+      };
       await runInOrder(files, analyse, async (done, file) => {
         try {
           if ('error' in done) throw done.error;
           const details = detailsFrom(values, file);
           fillFromFormula(values.formula, {}, details, { ...io, stderr: () => {} });
-          const record = await library.add({ ...details, fileName: basename(file), content: done.content, options: done.fileOptions, result: resultOf(done.outcome) });
-          if (values.json) io.stdout(`${saved > 0 ? ',' : ''}\n  ${JSON.stringify(record, null, 2).replaceAll('\n', '\n  ')}`);
-          else io.stdout(savedText(record));
-          saved++;
+          pending.push({ file, record: { ...details, fileName: basename(file), content: done.content, options: done.fileOptions, result: resultOf(done.outcome) } });
         } catch (error) {
           if (!(error instanceof FieldgapError)) throw error;
-          failed++;
-          const where = error.path && error.path !== file && error.path !== basename(file) ? `${error.path}: ` : '';
-          io.stderr(`fieldgap library: ${file}: not saved: ${where}${error.message}\n`);
+          pending.push({ file, error });
         }
+        // A batch is written when it is full, or after a second, so a slow folder still shows progress.
+        if (pending.length >= ADD_BATCH || Date.now() - since >= 1000) await flush();
       }, runner.threads * 4);
+      await flush();
       if (values.json) io.stdout(saved > 0 ? '\n]\n' : ']\n');
     } finally {
       await runner.close();
