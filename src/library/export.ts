@@ -1,5 +1,6 @@
-import Papa from 'papaparse';
-import type { AnalysisSummary } from './types.js';
+import { csvText } from '../report/csv.js';
+import { resultsCsv, type ResultsCsvInput } from '../report/results-csv.js';
+import type { AnalysisRecord, AnalysisSummary } from './types.js';
 
 /**
  * The library as a table for spreadsheets: one row per record, its current
@@ -47,10 +48,21 @@ export function libraryCsvRow(record: AnalysisSummary): CsvRow {
 
 /** CSV text (RFC 4180 quoting, CRLF line ends, a header row) of the records. */
 export function libraryCsv(records: AnalysisSummary[]): string {
-  return `${Papa.unparse(
-    { fields: [...CSV_COLUMNS], data: records.map((r) => CSV_COLUMNS.map((c) => libraryCsvRow(r)[c])) },
-    { escapeFormulae: true, newline: '\r\n' },
-  )}\r\n`;
+  return csvText(CSV_COLUMNS, records.map((r) => CSV_COLUMNS.map((c) => libraryCsvRow(r)[c])), { newline: '\r\n' });
+}
+
+/** What the results table (src/report/results-csv.ts) takes of a stored record: its file name, fit and warnings. */
+export function resultsCsvInputOf(record: AnalysisRecord): ResultsCsvInput {
+  const result = record.result as { fit?: ResultsCsvInput['fit']; warnings?: string[] };
+  return { label: record.original.fileName, fit: result.fit ?? null, warnings: result.warnings ?? [] };
+}
+
+/**
+ * The records as the results table, the columns of `analyze --csv`: a
+ * spectrum stored in the library gives the bytes its batch row gave.
+ */
+export function libraryResultsCsv(records: readonly AnalysisRecord[]): string {
+  return resultsCsv(records.map(resultsCsvInputOf));
 }
 
 function round(value: number | null, digits: number): number | null {

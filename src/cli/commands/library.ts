@@ -6,12 +6,14 @@ import { FieldgapError, invalidArgument } from '../../errors.js';
 import { runSubcommand, type CliIo, type Command } from '../command.js';
 import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analysis-options.js';
 import { readInputFile } from '../files.js';
-import { numberOption, parseCommandArgs } from '../options.js';
+import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 import type { AnalysisRecord, AnalysisSummary, FitSummary, NewAnalysis } from '../../library/types.js';
 import type { Library } from '../../library/library.js';
 import type { AssignmentChange } from '../../library/refit.js';
 import { checkCorrections, type AnalysisCorrections } from '../../analysis-corrections.js';
 import { terminalSafe } from '../terminal-text.js';
+import { formatPlusMinus } from '../../report/plus-minus.js';
+import { textTableLines, type ColumnAlign } from '../../report/text-table.js';
 
 /**
  * `fieldgap library`: the results library from the command line. Storage is
@@ -54,8 +56,9 @@ byte, with its SHA-256), options, results and the fieldgap version.
   library show ID [--json]   one record, its fit and its revisions
   library original ID --out FILE
                              write the stored original file back out
-  library export [--csv FILE | --json FILE] [--query Q] [--ion I] [--force]
-                             CSV (default, to stdout without FILE) or JSON
+  library export [--csv FILE | --json FILE] [--columns library|results] [--query Q] [--ion I] [--force]
+                             CSV (default, to stdout without FILE) or JSON;
+                             --columns results: the columns of analyze --csv
   library refit ID [analysis options] [--reset NAME]... [--corrections C] [--json]
                              rerun on the stored original with changed options;
                              kept as a new revision, earlier ones stay; every
@@ -156,15 +159,18 @@ const SUBCOMMANDS: Record<string, Handler> = {
   },
 
   export: async (argv, io) => {
-    const { values } = parseCommandArgs(argv, { csv: { type: 'string' }, json: { type: 'string' }, query: { type: 'string' }, ion: { type: 'string' }, force: { type: 'boolean' }, ...DATA });
+    const { values } = parseCommandArgs(argv, { csv: { type: 'string' }, json: { type: 'string' }, columns: { type: 'string' }, query: { type: 'string' }, ion: { type: 'string' }, force: { type: 'boolean' }, ...DATA });
     if (values.csv !== undefined && values.json !== undefined) throw invalidArgument('--json', 'give --csv FILE or --json FILE, not both');
+    const columns = choiceOption('--columns', values.columns, ['library', 'results'] as const, 'library');
+    if (values.json !== undefined && values.columns !== undefined) throw invalidArgument('--columns', '--columns chooses the CSV columns: give it with --csv FILE, not --json');
     const filter = { ...(values.query !== undefined && { query: values.query }), ...(values.ion !== undefined && { ion: values.ion }) };
-    const { libraryCsv } = await import('../../library/export.js');
+    const { libraryCsv, libraryResultsCsv } = await import('../../library/export.js');
     const text = await withLibrary(values, io, async (library) => {
       const summaries = await library.listAll(filter);
-      if (values.json === undefined) return libraryCsv(summaries);
+      if (values.json === undefined && columns === 'library') return libraryCsv(summaries);
       const analyses: AnalysisRecord[] = [];
       for (const s of summaries) analyses.push(await library.get(s.id));
+      if (values.json === undefined) return libraryResultsCsv(analyses);
       return `${JSON.stringify({ analyses }, null, 2)}\n`;
     });
     const target = values.csv ?? values.json;
@@ -356,10 +362,7 @@ function writeNew(target: string, data: string | Buffer, force: boolean, io: Cli
 
 /** "17400 ± 150" with the uncertainty to 2 significant figures and the value to match. */
 export function plusMinus(value: number | null, sd: number | null, minDecimals = 0): string {
-  if (value === null) return '-';
-  if (sd === null || !(sd > 0)) return value.toFixed(minDecimals);
-  const decimals = Math.max(minDecimals, Math.min(6, 1 - Math.floor(Math.log10(sd))));
-  return `${value.toFixed(decimals)} ± ${sd.toFixed(decimals)}`;
+  return value === null ? '-' : formatPlusMinus(value, sd, { digits: 'two-significant', minDigits: minDecimals, maxDigits: 6 });
 }
 
 export function fitLine(s: FitSummary): string {
@@ -404,10 +407,8 @@ function warningLines(record: AnalysisRecord): string {
 
 /** Columns padded to their widest cell; the first row is the header. */
 export function table(rows: string[][], rightAligned: ReadonlySet<number> = new Set()): string {
-  const widths = rows[0]!.map((_, c) => Math.max(...rows.map((r) => [...(r[c] ?? '')].length)));
-  return rows
-    .map((r) => r.map((cell, c) => (rightAligned.has(c) ? cell.padStart(widths[c]!) : cell.padEnd(widths[c]!))).join('  ').trimEnd())
-    .join('\n') + '\n';
+  const align = rows[0]!.map((_, c): ColumnAlign => (rightAligned.has(c) ? 'right' : 'left'));
+  return `${textTableLines(rows, { align }).join('\n')}\n`;
 }
 
 function summaryTable(analyses: AnalysisSummary[]): string {
