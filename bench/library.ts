@@ -15,7 +15,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import pg from 'pg';
-import { analyzeSpectrum } from '../src/analysis.js';
+import { analyzeSpectrum, type AnalyzeResult } from '../src/analysis.js';
 import { libraryCsv } from '../src/library/export.js';
 import { openLibraryAt, type Library, type LibraryLocation } from '../src/library/library.js';
 import { librarySeries } from '../src/library/series.js';
@@ -38,7 +38,7 @@ async function timed<T>(fn: () => Promise<T>): Promise<[T, number]> {
 export async function run(): Promise<void> {
   const spectrum = readFileSync(join(ROOT, 'spectra-demo', 'cr-aqua.csv'));
   const options = { ion: 'Cr3+', fileName: 'cr-aqua.csv' };
-  const result = JSON.parse(JSON.stringify(analyzeSpectrum(spectrum, options))) as object;
+  const result = JSON.parse(JSON.stringify(analyzeSpectrum(spectrum, options))) as AnalyzeResult;
   const ligands = ['H2O', 'NH3', 'en', 'urea', 'Cl', 'F', 'CN', 'ox'];
 
   const engines: { name: string; open: () => Promise<{ location: LibraryLocation; size: (lib: Library) => Promise<number>; drop: () => Promise<void> }> }[] = [

@@ -53,8 +53,8 @@ export function libraryCsv(records: AnalysisSummary[]): string {
 
 /** What the results table (src/report/results-csv.ts) takes of a stored record: its file name, fit and warnings. */
 export function resultsCsvInputOf(record: AnalysisRecord): ResultsCsvInput {
-  const result = record.result as { fit?: ResultsCsvInput['fit']; warnings?: string[] };
-  return { label: record.original.fileName, fit: result.fit ?? null, warnings: result.warnings ?? [] };
+  // A record saved by an older fieldgap may lack the fit or the warnings.
+  return { label: record.original.fileName, fit: record.result.fit ?? null, warnings: record.result.warnings ?? [] };
 }
 
 /**

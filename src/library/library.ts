@@ -158,7 +158,7 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
       const details = checkDetails({ ...record, sample: record.sample ?? '' });
       const fileName = baseFileName(record.fileName);
       const content = originalBytes(record.content, maxOriginalBytes);
-      const ion = details.ion ?? canonicalIonOrNull(ionOfResult(record.result)) ?? canonicalIonOrNull(ionOfOptions(record.options));
+      const ion = details.ion ?? canonicalIonOrNull(ionOfResult(record.result)) ?? canonicalIonOrNull(record.options?.ion);
       jsonText('options', record.options);
       jsonText('result', record.result);
       const now = new Date().toISOString();
@@ -305,10 +305,6 @@ function jsonText(field: string, value: unknown): string {
     throw invalidArgument(field, `${field}: expected a JSON object`);
   }
   return JSON.stringify(value);
-}
-
-function ionOfOptions(options: unknown): unknown {
-  return (options as { ion?: unknown } | null)?.ion;
 }
 
 function words(query: string | undefined): string[] {

@@ -14,6 +14,7 @@ import { checkCorrections, type AnalysisCorrections } from '../../analysis-corre
 import { terminalSafe } from '../terminal-text.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
 import { textTableLines, type ColumnAlign } from '../../report/text-table.js';
+import type { FitResult } from '../../fit/types.js';
 
 /**
  * `fieldgap library`: the results library from the command line. Storage is
@@ -401,8 +402,7 @@ function changeLines(changes: readonly AssignmentChange[]): string {
 }
 
 function warningLines(record: AnalysisRecord): string {
-  const warnings = (record.result as { warnings?: unknown }).warnings;
-  return Array.isArray(warnings) ? warnings.map((w) => `  warning: ${terminalSafe(String(w))}\n`).join('') : '';
+  return (record.result.warnings ?? []).map((w) => `  warning: ${terminalSafe(w)}\n`).join('');
 }
 
 /** Columns padded to their widest cell; the first row is the header. */
@@ -446,8 +446,8 @@ function recordText(r: AnalysisRecord): string {
   lines.push(`fit (revision ${r.revision} of ${r.revisions.length}, fieldgap ${r.toolVersion})`, `  ${fitLine(r.summary)}`);
   const s = r.summary;
   if (s.c !== null) lines.push(`  C = ${s.c.toFixed(0)} cm-1${s.status ? `   status ${s.status}` : ''}`);
-  const fit = (r.result as { fit?: { assignments?: { observed?: number; calculated?: number; term?: string }[] } | null }).fit;
-  const assignments = Array.isArray(fit?.assignments) ? fit.assignments : [];
+  // A record saved by an older fieldgap may lack the fit or a field of an assignment.
+  const assignments: Partial<FitResult['assignments'][number]>[] = r.result.fit?.assignments ?? [];
   if (assignments.length > 0) {
     const rows = [['  OBSERVED/cm-1', 'CALCULATED/cm-1', 'TERM']];
     for (const a of assignments) rows.push([`  ${a.observed?.toFixed(0) ?? '-'}`, a.calculated?.toFixed(0) ?? '-', a.term ?? '']);
