@@ -24,7 +24,7 @@ import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import pg from 'pg';
-import { analyzeSpectrum } from '../src/analysis.js';
+import { analyzeSpectrum, type AnalyzeResult } from '../src/analysis.js';
 import { libraryCsvChunks } from '../src/library/export.js';
 import { openLibraryAt, type Library, type LibraryLocation } from '../src/library/library.js';
 import type { AnalysisSummary, NewAnalysis } from '../src/library/types.js';
@@ -61,7 +61,7 @@ async function* firstRecords(library: Library, count: number): AsyncGenerator<An
 export async function run(): Promise<void> {
   const spectrum = readFileSync(join(ROOT, 'spectra-demo', 'cr-aqua.csv'));
   const options = { ion: 'Cr3+', fileName: 'cr-aqua.csv' };
-  const result = JSON.parse(JSON.stringify(analyzeSpectrum(spectrum, options))) as object;
+  const result = JSON.parse(JSON.stringify(analyzeSpectrum(spectrum, options))) as AnalyzeResult;
   const ligands = ['H2O', 'NH3', 'en', 'urea', 'Cl', 'F', 'CN', 'ox'];
 
   const engines: { name: string; open: () => Promise<{ location: LibraryLocation; size: (lib: Library) => Promise<number>; drop: () => Promise<void> }> }[] = [

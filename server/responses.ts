@@ -7,7 +7,9 @@
  */
 import { z } from 'zod';
 import { ERROR_CODES } from '../src/errors.js';
-import type { AnalyzeResult } from '../src/analysis.js';
+import type { AnalyzeOptions, AnalyzeResult } from '../src/analysis.js';
+import type { AnalysisCorrections } from '../src/analysis-corrections.js';
+import type { BandInput } from '../src/fit/bands.js';
 import type { FitResult } from '../src/fit/types.js';
 import type { AnalysisRecord, AnalysisSummary, FitSummary, ListPage, RevisionInfo } from '../src/library/types.js';
 import { X_UNITS, Y_UNITS } from '../src/spectrum/types.js';
@@ -57,7 +59,7 @@ const level = z.looseObject({
 
 export const levelsResponse = z.looseObject({
   d: z.number().int(),
-  geometry,
+  geometry: geometry.optional(),
   dq: num,
   b: num,
   c: num,
@@ -70,7 +72,7 @@ export const levelsResponse = z.looseObject({
 
 export const diagramResponse = z.looseObject({
   d: z.number().int(),
-  geometry,
+  geometry: geometry.optional(),
   cOverB: num,
   dqOverB: z.array(num),
   groundTerms: z.array(z.string()),
@@ -101,7 +103,7 @@ const penalty = z.looseObject({ rule: z.string(), amount: num.meta({ description
 const fitShape = {
   d: z.number().int(),
   ion: z.string().nullable(),
-  geometry,
+  geometry: geometry.optional(),
   dq: num,
   tenDq: num,
   b: nullableNum,
@@ -208,6 +210,46 @@ const analyzeShape = {
 
 export const analyzeResponse = z.looseObject(analyzeShape);
 
+/** A band of a user's correction (src/fit/bands.ts BandInput): cm-1. */
+const correctionBandShape = {
+  position: num.meta({ description: 'Band maximum, cm-1.' }),
+  uncertainty: num.optional().meta({ description: 'Standard uncertainty of the position, cm-1.' }),
+  epsilon: num.optional().meta({ description: 'L mol-1 cm-1.' }),
+  width: num.optional().meta({ description: 'Full width at half maximum, cm-1.' }),
+  area: num.optional().meta({ description: 'Integrated intensity of the band (any consistent unit): weights the components of a split band.' }),
+  flags: z.array(z.string()).optional().meta({ description: '"shoulder", "spin-forbidden", "charge-transfer".' }),
+} satisfies Record<keyof BandInput, z.ZodType>;
+
+/**
+ * The analysis options a stored analysis was made with: the core's
+ * AnalyzeOptions (src/analysis.ts), in the pipeline's names (REST's conc and
+ * path are stored as concentration and pathLength). Only the options given
+ * are stored.
+ */
+const storedOptionsShape = {
+  fileName: z.string().optional().meta({ description: "The original file's name (error positions name it)." }),
+  ion: z.string().optional().meta({ description: 'The metal ion as given, e.g. "Cr3+".' }),
+  d: z.int().min(1).max(9).optional().meta({ description: 'The d-electron count, when given instead of the ion.' }),
+  geometry: geometry.optional(),
+  concentration: num.optional().meta({ description: 'mol/L.' }),
+  pathLength: num.optional().meta({ description: 'cm.' }),
+  xUnit: z.enum(X_UNITS).optional(),
+  yUnit: z.enum(Y_UNITS).optional(),
+  column: z.union([z.int(), z.string()]).optional().meta({ description: 'The y column: its 1-based number or its header.' }),
+  cOverB: num.optional().meta({ description: 'Fixed C/B.' }),
+  c: num.optional().meta({ description: 'Fixed Racah C, cm-1.' }),
+  freeC: z.boolean().optional().meta({ description: 'C fitted.' }),
+  stepCorrection: z.boolean().optional(),
+  formula: z.string().optional(),
+  ligands: z.union([z.string(), z.array(z.string())]).optional(),
+  curves: z.boolean().optional(),
+  corrections: z.looseObject({
+    bands: z.array(z.looseObject(correctionBandShape)).optional().meta({ description: 'The band list fitted instead of the found bands.' }),
+    alternative: z.int().nonnegative().optional().meta({ description: 'The chosen alternative assignment (from 0).' }),
+  } satisfies Record<keyof AnalysisCorrections, z.ZodType>).optional().meta({ description: "The user's corrections." }),
+} satisfies Record<keyof AnalyzeOptions, z.ZodType>;
+const storedOptions = z.looseObject(storedOptionsShape);
+
 /** The library's summary columns (src/library/types.ts FitSummary): cm-1, sd = one standard deviation. */
 const fitSummaryShape = {
   tenDq: nullableNum, tenDqSd: nullableNum, b: nullableNum, bSd: nullableNum, c: nullableNum,
@@ -244,14 +286,14 @@ const revisionShape = {
   revision: z.int().positive(),
   createdAt: z.string(),
   toolVersion: z.string(),
-  options: z.looseObject({}).meta({ description: 'The analysis options of this revision.' }),
+  options: storedOptions.meta({ description: 'The analysis options of this revision.' }),
   summary: fitSummary,
 } satisfies Record<keyof RevisionInfo, z.ZodType>;
 
 /** One stored analysis, as GET, POST, PATCH and refit answer it. */
 export const analysisRecordResponse = z.looseObject({
   ...summaryShape,
-  options: z.looseObject({}).meta({ description: 'The analysis options of the current revision.' }),
+  options: storedOptions.meta({ description: 'The analysis options of the current revision.' }),
   result: analyzeResponse,
   revisions: z.array(z.looseObject(revisionShape)).meta({ description: 'Every revision, oldest first; the last is the current one.' }),
 } satisfies Record<keyof AnalysisRecord, z.ZodType>);

@@ -12,18 +12,13 @@ import { z } from 'zod';
 import { MAX_FIT_BANDS } from '../src/fit/band-count.js';
 import { DIAGRAM_DEFAULTS } from '../src/ligand-field/index.js';
 import { PARAMETER_BOUNDS as BOUNDS } from '../src/ligand-field/parameter-bounds.js';
+import { REST_ANALYSIS_FIELDS, cField, cOverBField, dCountField, formulaField, geometryField, ionField, ligandsField } from '../src/analysis-option-schema.js';
 import { X_UNITS, Y_UNITS } from '../src/spectrum/types.js';
 
-const geometry = z.enum(['octahedral', 'tetrahedral']).meta({
-  description: 'Coordination geometry: sets the sign of the cubic field.',
-});
-
-const dCount = z.number().int().min(0).max(10).meta({ description: 'Number of d electrons (d^n).' });
-
-const ion = z.string().trim().min(1).max(40).meta({
-  description: 'Metal ion with its charge, e.g. "Cr3+" or "Co(II)"; instead of d.',
-  examples: ['Cr3+'],
-});
+// The analysis option fields are defined once, in src/analysis-option-schema.ts.
+const geometry = geometryField;
+const dCount = dCountField;
+const ion = ionField;
 
 const positive = (description: string) => z.number().positive().finite().meta({ description });
 
@@ -100,17 +95,6 @@ const bandObject = z.strictObject({
 
 export const band = z.union([positive('Band maximum in cm-1.').max(LIMITS.maxEnergy), bandObject]);
 
-/** The complex's formula, for the fit's ligand priors (and the ion and a geometry guess when not given). */
-const formulaField = z.string().trim().min(1).max(200).meta({
-  description: 'The complex, e.g. "[Co(H2O)6]2+": ligand priors of the assignment (10Dq, β); the ion and a geometry guess when not given.',
-  examples: ['[Co(H2O)6]2+'],
-});
-
-/** Ligands for the fit's priors. */
-const ligandsField = z
-  .union([z.string().trim().min(1).max(200), z.array(z.string().trim().min(1).max(40)).max(12)])
-  .meta({ description: 'Ligands for the 10Dq and β priors: "H2O", "NH3,Cl" or a list.', examples: ['H2O'] });
-
 export const fitBody = z
   .strictObject({
     ion: ion.optional(),
@@ -121,8 +105,8 @@ export const fitBody = z
     }).meta({
       description: 'Observed d-d band maxima in cm-1, as numbers or objects.',
     }),
-    cOverB: positive('Fixed C/B ratio for the fit.').max(20).optional(),
-    c: positive('Fixed Racah C in cm-1.').max(BOUNDS.c.max).optional(),
+    cOverB: cOverBField.optional(),
+    c: cField.optional(),
     freeC: z.boolean().optional().meta({ description: 'Fit C as a free parameter (needs enough bands).' }),
     formula: formulaField.optional(),
     ligands: ligandsField.optional(),
@@ -142,29 +126,7 @@ export { X_UNITS, Y_UNITS };
 
 /** Fields of POST /analyze, as query parameters or multipart form fields. */
 export const analyzeFields = z.strictObject({
-  ion: ion.optional(),
-  d: dCount.optional(),
-  geometry: geometry.optional(),
-  // Physically meaningful ranges: a concentration of 1e-300 mol/L turns every band into "charge transfer".
-  conc: positive('Concentration in mol/L (for molar absorption coefficients), 1e-7 to 20.').min(1e-7).max(20).optional(),
-  path: positive('Path length in cm (default 1), 1e-4 to 100.').min(1e-4).max(100).optional(),
-  xUnit: z.enum(X_UNITS).optional().meta({ description: 'Unit of the x column when the file does not say.' }),
-  yUnit: z.enum(Y_UNITS).optional().meta({ description: 'Unit of the y column when the file does not say.' }),
-  column: z
-    .union([z.number().int().min(1), z.string().trim().min(1).max(80)])
-    .optional()
-    .meta({ description: 'Which y column to use: its 1-based number or its header.' }),
-  cOverB: positive('Fixed C/B ratio for the fit.').max(20).optional(),
-  c: positive('Fixed Racah C in cm-1.').max(BOUNDS.c.max).optional(),
-  freeC: z.boolean().optional().meta({ description: 'Fit C as a free parameter.' }),
-  formula: formulaField.optional(),
-  ligands: ligandsField.optional(),
-  curves: z.boolean().optional().meta({
-    description: 'Also return the curves on the energy grid (signal, baseline, model, components) for plotting.',
-  }),
-  stepCorrection: z.boolean().optional().meta({
-    description: 'Correct detector change-over steps (default true; only on overwhelming evidence, each listed with its size in spectrum.stepCorrections). false leaves the data as read.',
-  }),
+  ...REST_ANALYSIS_FIELDS,
   fileName: z.string().trim().min(1).max(200).optional().meta({
     description: 'Name used in error positions (file:line:column) for a raw-body upload.',
   }),

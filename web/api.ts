@@ -149,7 +149,7 @@ export interface FieldLevelsAnswer {
 }
 
 export function fieldLevels(query: FieldLevelsQuery): Promise<FieldLevelsAnswer> {
-  const params = new URLSearchParams(Object.entries(query).map(([k, v]) => [k, String(v)]));
+  const params = new URLSearchParams(Object.entries(query).map(([k, v]): [string, string] => [k, String(v)]));
   return send<FieldLevelsAnswer>(`${BASE}/levels?${params.toString()}`, { method: 'GET' }, 'the energy levels');
 }
 

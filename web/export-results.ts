@@ -3,10 +3,20 @@
  * details, bands as corrected, the fit shown) and CSV (parameters, then the
  * band and assignment table). Pure; cm-1 throughout, nm as an extra column.
  */
-import Papa from 'papaparse';
 import type { AnalysisEntry } from './state.js';
 import { shownFit, warningsFor } from './state.js';
 import { assignmentForBand, bandCaption } from './plots/spectrum-spec.js';
+import { csvText, type CsvCell } from '../src/report/csv.js';
+import { resultsCsv } from '../src/report/results-csv.js';
+
+/**
+ * The results table (src/report/results-csv.ts) of the analyses done on the
+ * page, one row each with the fit shown: the bytes `analyze --csv` and
+ * `library export --columns results` give for the same spectra.
+ */
+export function resultsTableCsv(entries: readonly AnalysisEntry[]): string {
+  return resultsCsv(entries.map((entry) => ({ label: entry.fileName, fit: shownFit(entry), warnings: warningsFor(entry) })));
+}
 
 export function resultJson(entry: AnalysisEntry): string {
   const fit = shownFit(entry);
@@ -26,7 +36,7 @@ export function resultJson(entry: AnalysisEntry): string {
   );
 }
 
-type Row = (string | number | null)[];
+type Row = CsvCell[];
 
 function cell(value: number | null | undefined): number | null {
   return value === null || value === undefined || !Number.isFinite(value) ? null : value;
@@ -67,5 +77,5 @@ export function resultCsv(entry: AnalysisEntry): string {
       cell(a?.calculated),
     ]);
   });
-  return Papa.unparse(rows, { newline: '\n' }) + '\n';
+  return csvText(null, rows, { newline: '\n' });
 }

@@ -2,6 +2,7 @@
  * Number and unit formatting for display. Values arrive in cm-1; nm only
  * appears here, at the edge. Pure functions, unit-tested in tests/e2e/.
  */
+import { formatPlusMinus } from '../src/report/plus-minus.js';
 
 export const UNIT = {
   wavenumber: 'cm⁻¹',
@@ -15,12 +16,7 @@ export function nmFromWavenumber(wavenumber: number): number {
   return 1e7 / wavenumber;
 }
 
-/** Digits after the point that show an uncertainty to two significant figures. */
-export function decimalsForUncertainty(uncertainty: number): number {
-  if (!Number.isFinite(uncertainty) || uncertainty <= 0) return 0;
-  const digits = 1 - Math.floor(Math.log10(uncertainty));
-  return Math.max(0, digits);
-}
+export { decimalsForUncertainty } from '../src/report/plus-minus.js';
 
 /**
  * "17 400 ± 120": the value rounded to the place of the uncertainty's second
@@ -33,11 +29,8 @@ export function formatWithUncertainty(
   fallbackDecimals = 0,
 ): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  if (uncertainty === null || uncertainty === undefined || !Number.isFinite(uncertainty) || uncertainty <= 0) {
-    return formatNumber(value, fallbackDecimals);
-  }
-  const decimals = decimalsForUncertainty(uncertainty);
-  return `${formatNumber(value, decimals)} ± ${formatNumber(uncertainty, decimals)}`;
+  const known = uncertainty !== null && uncertainty !== undefined && Number.isFinite(uncertainty) && uncertainty > 0;
+  return formatPlusMinus(value, uncertainty, { digits: known ? 'two-significant' : fallbackDecimals, number: formatNumber });
 }
 
 /** Fixed decimals, with a thin space grouping thousands (SI style) and a real minus sign. */
@@ -67,11 +60,8 @@ export function levelLabel(term: string, parent: string | undefined, label?: str
   return `${term}(${parent.replace(/^\d+/, '')})`;
 }
 
-/** "high-spin" → "high spin"; unknown words pass through. */
-export function spinStateText(spinState: string): string {
-  if (spinState === 'no-choice') return 'one possible';
-  return spinState.replace('-', ' ');
-}
+/** "high-spin" → "high spin"; unknown words pass through (src/report's one wording). */
+export { spinStateWords as spinStateText } from '../src/report/spin-state.js';
 
 /** "d7" with a superscript count, for headings. */
 export function dCountText(d: number): string {

@@ -5,7 +5,7 @@
  */
 import { Router } from 'express';
 import type { AnalyzeOptions, AnalyzeResult } from '../../src/analysis.js';
-import { checkOneCMode } from '../../src/analysis-option-names.js';
+import { analyzeOptionsFromRest } from '../../src/analysis-option-schema.js';
 import { clientGoneSignal } from '../abort.js';
 import type { ComputePool } from '../pool.js';
 import { analyzeFields, type AnalyzeFields } from '../schemas.js';
@@ -25,28 +25,10 @@ export interface AnalyzeRouterDeps {
  */
 export type AnalyzeFunction = (content: Buffer, options: AnalyzeOptions, signal?: AbortSignal) => Promise<AnalyzeResult>;
 
-/** The service's names (conc, path) → the pipeline's options; absent fields stay absent. */
+/** The service's names (conc, path) → the pipeline's options (src/analysis-option-schema.ts); absent fields stay absent. */
 export function toAnalyzeOptions(fields: AnalyzeFields, fileName: string | undefined): AnalyzeOptions {
-  const options: AnalyzeOptions = {};
   const name = fields.fileName ?? fileName;
-  if (name !== undefined) options.fileName = name;
-  if (fields.ion !== undefined) options.ion = fields.ion;
-  if (fields.d !== undefined) options.d = fields.d;
-  if (fields.geometry !== undefined) options.geometry = fields.geometry;
-  if (fields.conc !== undefined) options.concentration = fields.conc;
-  if (fields.path !== undefined) options.pathLength = fields.path;
-  if (fields.xUnit !== undefined) options.xUnit = fields.xUnit;
-  if (fields.yUnit !== undefined) options.yUnit = fields.yUnit;
-  if (fields.column !== undefined) options.column = fields.column;
-  if (fields.cOverB !== undefined) options.cOverB = fields.cOverB;
-  if (fields.c !== undefined) options.c = fields.c;
-  if (fields.freeC !== undefined) options.freeC = fields.freeC;
-  if (fields.formula !== undefined) options.formula = fields.formula;
-  if (fields.ligands !== undefined) options.ligands = typeof fields.ligands === 'string' ? fields.ligands : [...fields.ligands];
-  if (fields.curves !== undefined) options.curves = fields.curves;
-  if (fields.stepCorrection !== undefined) options.stepCorrection = fields.stepCorrection;
-  checkOneCMode(options, 'rest');
-  return options;
+  return { ...(name !== undefined && { fileName: name }), ...analyzeOptionsFromRest(fields) };
 }
 
 /** analyzeSpectrum in the pool. */

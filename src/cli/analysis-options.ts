@@ -1,6 +1,7 @@
 import type { AnalyzeOptions } from '../analysis.js';
 import { parseIon } from '../chemistry/ions.js';
-import { ANALYSIS_OPTION_NAMES, checkOneCMode, type AnalysisOptionKey } from '../analysis-option-names.js';
+import { ANALYSIS_OPTION_NAMES, type AnalysisOptionKey } from '../analysis-option-names.js';
+import { checkCliAnalysisOptions } from '../analysis-option-schema.js';
 import { GEOMETRIES } from '../ligand-field/types.js';
 import { parseXUnitOption } from '../spectrum/index.js';
 import { choiceOption, numberOption } from './options.js';
@@ -32,7 +33,7 @@ export const ANALYSIS_USAGE = `Analysis options:
 
 type AnalysisValues = { [K in keyof typeof ANALYSIS_OPTIONS]?: (typeof ANALYSIS_OPTIONS)[K]['type'] extends 'boolean' ? boolean : string };
 
-/** The pipeline's options from the command line; only the options given are set. */
+/** The pipeline's options from the command line (checked against src/analysis-option-schema.ts); only the options given are set. */
 export function analysisOptionsFrom(values: AnalysisValues): AnalyzeOptions {
   const options: AnalyzeOptions = {};
   if (values.ion !== undefined) {
@@ -54,6 +55,6 @@ export function analysisOptionsFrom(values: AnalysisValues): AnalyzeOptions {
   const c = numberOption('c', values.c, { min: Number.MIN_VALUE });
   if (c !== undefined) options.c = c;
   if (values['free-c']) options.freeC = true;
-  checkOneCMode(options, 'cli');
-  return options;
+  // The ranges of the one options schema (the REST fields have the same), and C fixed one way at most.
+  return checkCliAnalysisOptions(options);
 }

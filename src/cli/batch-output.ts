@@ -7,9 +7,11 @@
  */
 import { closeSync, openSync, writeSync } from 'node:fs';
 import { resolve } from 'node:path';
-import Papa from 'papaparse';
 import { FieldgapError } from '../errors.js';
-import { CSV_COLUMNS, type BatchRow, type SummaryRow } from './batch-rows.js';
+import type { BatchRow, SummaryRow } from './batch-rows.js';
+import { csvLine } from '../report/csv.js';
+import { RESULTS_CSV_COLUMNS, RESULTS_CSV_END, RESULTS_CSV_NEWLINE, resultsCsvLine } from '../report/results-csv.js';
+import { cellWidth, textTableLine } from '../report/text-table.js';
 
 /** Something rows are written to, one after the other. */
 export interface RowSink {
@@ -32,7 +34,7 @@ const TABLE_KEYS = Object.keys(TABLE_HEAD) as (keyof SummaryRow)[];
 export function tableWidths(labels: readonly string[]): number[] {
   const usual: Partial<Record<keyof SummaryRow, number>> = { ion: 4, tenDq: 11, b: 8, spinState: 10 };
   let file = TABLE_HEAD.file.length;
-  for (const label of labels) file = Math.max(file, label.length);
+  for (const label of labels) file = Math.max(file, cellWidth(label));
   return TABLE_KEYS.map((k) => (k === 'file' ? file : Math.max(TABLE_HEAD[k].length, usual[k] ?? 0)));
 }
 
@@ -44,9 +46,9 @@ export function tableWidths(labels: readonly string[]): number[] {
  */
 export function tableLine(row: SummaryRow, widths: readonly number[]): string {
   const cells = { ...row, warnings: row.warnings.length > 70 ? `${row.warnings.slice(0, 69)}…` : row.warnings };
-  const own = cells.file.length > widths[0]! ? `${cells.file}\n` : '';
+  const own = cellWidth(cells.file) > widths[0]! ? `${cells.file}\n` : '';
   if (own !== '') cells.file = '';
-  return `${own}${TABLE_KEYS.map((k, i) => cells[k].padEnd(widths[i]!)).join('  ').trimEnd()}\n`;
+  return `${own}${textTableLine(TABLE_KEYS.map((k) => cells[k]), widths)}\n`;
 }
 
 /** The summary table, its heading first. */
@@ -57,15 +59,15 @@ export function tableSink(write: (text: string) => void, labels: readonly string
 }
 
 /**
- * The --csv summary as Papa.unparse writes it whole: the heading, then each
- * row after a CRLF, and a final LF. Papa quotes field by field, so row by row
- * gives the same bytes.
+ * The --csv summary (src/report/results-csv.ts) written row by row: the
+ * heading, then each row after a CRLF, and a final LF. The one CSV writer
+ * quotes field by field, so row by row gives the bytes of the whole.
  */
 export function csvSink(write: (text: string) => void): RowSink {
-  write(CSV_COLUMNS.join(','));
+  write(csvLine(RESULTS_CSV_COLUMNS));
   return {
-    row: (row) => write(`\r\n${Papa.unparse([row.csv], { columns: [...CSV_COLUMNS], header: false })}`),
-    end: () => write('\n'),
+    row: (row) => write(`${RESULTS_CSV_NEWLINE}${resultsCsvLine(row.csv)}`),
+    end: () => write(RESULTS_CSV_END),
   };
 }
 

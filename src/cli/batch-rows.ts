@@ -8,11 +8,13 @@
 import { analyzeSpectrum, listSpectra, type AnalyzeOptions, type AnalyzeResult } from '../analysis.js';
 import { FieldgapError, isFieldgapError } from '../errors.js';
 import { readInputFile } from './files.js';
+import { formatPlusMinus } from '../report/plus-minus.js';
+import { RESULTS_CSV_COLUMNS, resultsCsvRow, resultsWarningsCell, type ResultsCsvRow } from '../report/results-csv.js';
 
-/** The --csv summary's columns, in order (its header line also marks the file as ours). */
-export const CSV_COLUMNS = ['file', 'ion', 'tenDq', 'tenDqSd', 'b', 'bSd', 'beta', 'spinState', 'rms', 'warnings'] as const;
+/** The --csv summary's columns: the results table of src/report/results-csv.ts. */
+export const CSV_COLUMNS = RESULTS_CSV_COLUMNS;
 
-export type CsvRow = Record<(typeof CSV_COLUMNS)[number], string | number>;
+export type CsvRow = ResultsCsvRow;
 
 /** One line of the summary table, as text cells. */
 export interface SummaryRow {
@@ -100,14 +102,14 @@ export function analyzeItem(item: Item, options: AnalyzeOptions, cwd: string, si
 
 /** The row's last cell: the warnings, or why the spectrum failed. */
 function warningsCell({ result, error }: Outcome): string {
-  return result ? result.warnings.join('; ') : `FAILED: ${error!.path ? `${error!.path}: ` : ''}${error!.message}`;
+  return resultsWarningsCell(result ? { warnings: result.warnings } : { warnings: [], error: error! });
 }
 
 export function summaryRow(outcome: Outcome): SummaryRow {
   const { item, result } = outcome;
   if (!result) return { file: item.label, ion: '', tenDq: '', b: '', beta: '', spinState: '', rms: '', warnings: warningsCell(outcome) };
   const f = result.fit;
-  const pm = (v: number | null, u: number | null | undefined, digits = 0) => (v === null ? '' : u ? `${v.toFixed(digits)} ± ${u.toFixed(digits)}` : v.toFixed(digits));
+  const pm = (v: number | null, u: number | null | undefined) => (v === null ? '' : formatPlusMinus(v, u));
   return {
     file: item.label,
     ion: f.ion ?? `d${f.d}`,
@@ -126,21 +128,8 @@ export function summaryRow(outcome: Outcome): SummaryRow {
  * is undetermined or the spectrum failed.
  */
 export function csvRow(outcome: Outcome): CsvRow {
-  const { item, result } = outcome;
-  const f = result?.fit;
-  const value = (v: number | null | undefined, digits = 1) => (v === null || v === undefined ? '' : Number(v.toFixed(digits)));
-  return {
-    file: item.label,
-    ion: f ? (f.ion ?? `d${f.d}`) : '',
-    tenDq: value(f?.tenDq),
-    tenDqSd: value(f?.uncertainty.tenDq),
-    b: value(f?.b),
-    bSd: value(f?.uncertainty.b),
-    beta: value(f?.beta, 3),
-    spinState: f?.spinState ?? '',
-    rms: value(f?.rmsResidual),
-    warnings: warningsCell(outcome),
-  };
+  const { item, result, error } = outcome;
+  return resultsCsvRow(result ? { label: item.label, fit: result.fit, warnings: result.warnings } : { label: item.label, fit: null, warnings: [], error: error! });
 }
 
 export function outcomeJson({ item, result, error }: Outcome) {

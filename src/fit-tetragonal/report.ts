@@ -1,18 +1,20 @@
+import { formatPlusMinus } from '../report/plus-minus.js';
 import type { TetragonalFitResult } from './types.js';
 
 const fmt = (v: number, digits = 0): string => v.toFixed(digits);
-const pm = (v: number | null, digits = 0): string => (v === null ? '' : ` ± ${fmt(v, digits)}`);
+/** A value and its uncertainty (shown even when zero) at `digits`. */
+const pm = (value: number, sd: number | null, digits = 0): string => formatPlusMinus(value, sd, { digits, showZero: true });
 
 /** The readable report of `fit --symmetry tetragonal` (or `fit --zeta …`). */
 export function tetragonalFitReport(r: TetragonalFitResult): string {
   const who = r.ion ? `${r.ion} (d${r.d})` : `d${r.d}`;
   const lines = [`${who} ${r.geometry}, ${r.symmetry} fit: ${r.assignments.length} band${r.assignments.length === 1 ? '' : 's'}, status ${r.status}`, ''];
-  lines.push(`  10Dq = ${fmt(r.tenDq)}${pm(r.uncertainty.tenDq)} cm-1   (Dq = ${fmt(r.dq, 1)}${pm(r.uncertainty.dq, 1)} cm-1)`);
+  lines.push(`  10Dq = ${pm(r.tenDq, r.uncertainty.tenDq)} cm-1   (Dq = ${pm(r.dq, r.uncertainty.dq, 1)} cm-1)`);
   if (r.symmetry === 'tetragonal') {
-    lines.push(`  Ds   = ${fmt(r.ds, 1)}${pm(r.uncertainty.ds, 1)} cm-1`, `  Dt   = ${fmt(r.dt, 1)}${pm(r.uncertainty.dt, 1)} cm-1`);
+    lines.push(`  Ds   = ${pm(r.ds, r.uncertainty.ds, 1)} cm-1`, `  Dt   = ${pm(r.dt, r.uncertainty.dt, 1)} cm-1`);
   }
-  if (r.b !== null) lines.push(`  B    = ${fmt(r.b)}${pm(r.uncertainty.b)} cm-1   C = ${fmt(r.c!)} cm-1 (C/B = ${fmt(r.cOverB, 2)} fixed)`);
-  lines.push(`  ζ    = ${fmt(r.zeta)}${pm(r.uncertainty.zeta)} cm-1 (${r.zetaMode}${r.freeIonZeta === null ? '' : `; free ion ${r.freeIonZeta} cm-1`})`);
+  if (r.b !== null) lines.push(`  B    = ${pm(r.b, r.uncertainty.b)} cm-1   C = ${fmt(r.c!)} cm-1 (C/B = ${fmt(r.cOverB, 2)} fixed)`);
+  lines.push(`  ζ    = ${pm(r.zeta, r.uncertainty.zeta)} cm-1 (${r.zetaMode}${r.freeIonZeta === null ? '' : `; free ion ${r.freeIonZeta} cm-1`})`);
   lines.push(
     `  The data fix: ${r.determined.join(', ')}`, '',
     `Ground level ${r.groundLabel}; rms residual ${fmt(r.rmsResidual, 1)} cm-1; score ${fmt(r.score, 1)} (probability ${fmt(100 * r.probability)} % among the assignments fitted)`,

@@ -32,6 +32,7 @@ import { averageObservations, precisionWeights, type Observation, type SortedObs
 import { deviance, effectiveWeight, LIKELIHOOD, unexplainedDeviance } from './likelihood.js';
 import { LIMITS, splitPairLimit } from './penalties.js';
 import type { Penalty } from './types.js';
+import { median } from '../numeric/median.js';
 
 /** Unflagged bands left unexplained at most (besides the half rule). */
 export const MAX_UNEXPLAINED_UNFLAGGED = 3;
@@ -56,11 +57,6 @@ export interface Reduction {
 interface BandContext {
   maxEpsilon: number;
   medianWidth: number;
-}
-
-function median(values: number[]): number {
-  const s = [...values].sort((a, b) => a - b);
-  return s.length === 0 ? Number.NaN : s.length % 2 ? s[(s.length - 1) / 2]! : (s[s.length / 2 - 1]! + s[s.length / 2]!) / 2;
 }
 
 function contextOf(sorted: SortedObservations): BandContext {

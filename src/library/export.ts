@@ -1,5 +1,6 @@
-import Papa from 'papaparse';
-import type { AnalysisSummary } from './types.js';
+import { csvText } from '../report/csv.js';
+import { resultsCsv, type ResultsCsvInput } from '../report/results-csv.js';
+import type { AnalysisRecord, AnalysisSummary } from './types.js';
 
 /**
  * The library as a table for spreadsheets: one row per record, its current
@@ -47,12 +48,21 @@ export function libraryCsvRow(record: AnalysisSummary): CsvRow {
 
 /** CSV text (RFC 4180 quoting, CRLF line ends, a header row, every line ended) of the records. */
 export function libraryCsv(records: AnalysisSummary[]): string {
-  // Papa ends a header without rows with a newline, and a header with rows without one.
-  if (records.length === 0) return CSV_HEADER;
-  return `${Papa.unparse(
-    { fields: [...CSV_COLUMNS], data: records.map(csvCells) },
-    { escapeFormulae: true, newline: '\r\n' },
-  )}\r\n`;
+  return csvText(CSV_COLUMNS, records.map(csvCells), { newline: '\r\n' });
+}
+
+/** What the results table (src/report/results-csv.ts) takes of a stored record: its file name, fit and warnings. */
+export function resultsCsvInputOf(record: AnalysisRecord): ResultsCsvInput {
+  // A record saved by an older fieldgap may lack the fit or the warnings.
+  return { label: record.original.fileName, fit: record.result.fit ?? null, warnings: record.result.warnings ?? [] };
+}
+
+/**
+ * The records as the results table, the columns of `analyze --csv`: a
+ * spectrum stored in the library gives the bytes its batch row gave.
+ */
+export function libraryResultsCsv(records: readonly AnalysisRecord[]): string {
+  return resultsCsv(records.map(resultsCsvInputOf));
 }
 
 /**
@@ -64,12 +74,12 @@ export async function* libraryCsvChunks(pages: AsyncIterable<AnalysisSummary[]>)
   yield CSV_HEADER;
   for await (const page of pages) {
     if (page.length === 0) continue;
-    yield `${Papa.unparse(page.map(csvCells), { escapeFormulae: true, newline: '\r\n' })}\r\n`;
+    yield csvText(null, page.map(csvCells), { newline: '\r\n' });
   }
 }
 
 /** The header line, with its line end. */
-const CSV_HEADER = Papa.unparse({ fields: [...CSV_COLUMNS], data: [] }, { escapeFormulae: true, newline: '\r\n' });
+const CSV_HEADER = csvText(CSV_COLUMNS, [], { newline: '\r\n' });
 
 function csvCells(record: AnalysisSummary): (string | number | null)[] {
   const row = libraryCsvRow(record);

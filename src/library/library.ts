@@ -128,7 +128,7 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
     const details = checkDetails({ ...record, sample: record.sample ?? '' });
     const fileName = baseFileName(record.fileName);
     const content = originalBytes(record.content, maxOriginalBytes);
-    const ion = details.ion ?? canonicalIonOrNull(ionOfResult(record.result)) ?? canonicalIonOrNull(ionOfOptions(record.options));
+    const ion = details.ion ?? canonicalIonOrNull(ionOfResult(record.result)) ?? canonicalIonOrNull(record.options?.ion);
     return {
       values: [
         details.sample!, details.formula ?? null, ion, JSON.stringify(details.ligands ?? []), details.solvent ?? null,
@@ -493,10 +493,6 @@ function jsonText(field: string, value: unknown): string {
     throw invalidArgument(field, `${field}: expected a JSON object`);
   }
   return JSON.stringify(value);
-}
-
-function ionOfOptions(options: unknown): unknown {
-  return (options as { ion?: unknown } | null)?.ion;
 }
 
 function words(query: string | undefined): string[] {

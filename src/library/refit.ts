@@ -1,4 +1,5 @@
 import { invalidArgument } from '../errors.js';
+import type { FitResult } from '../fit/types.js';
 import type { Library } from './library.js';
 import type { AnalysisPatch, AnalysisRecord, StoredOptions, StoredResult } from './types.js';
 
@@ -98,21 +99,19 @@ export function assignmentChanges(before: StoredResult, after: StoredResult): As
   return out;
 }
 
-function fitOf(result: StoredResult): Record<string, unknown> | null {
-  const fit = (result as { fit?: unknown }).fit;
-  return typeof fit === 'object' && fit !== null ? (fit as Record<string, unknown>) : null;
+/** The stored fit; a record saved by an older fieldgap may have none. */
+function fitOf(result: StoredResult): Partial<FitResult> | null {
+  return result.fit ?? null;
 }
 
-function assigned(fit: Record<string, unknown> | null): { observed: number; label: string }[] {
-  const list = fit?.['assignments'];
-  if (!Array.isArray(list)) return [];
-  return list.flatMap((item: unknown) => {
-    const x = item as { observed?: unknown; label?: unknown; term?: unknown };
+/** The assigned bands of a fit that have a position and a label (a label may be an older record's `term`). */
+function assigned(fit: Partial<FitResult> | null): { observed: number; label: string }[] {
+  return (fit?.assignments ?? []).flatMap((x) => {
     const label = text(x.label) ?? text(x.term);
     return typeof x.observed === 'number' && Number.isFinite(x.observed) && label !== null ? [{ observed: x.observed, label }] : [];
   });
 }
 
-function text(value: unknown): string | null {
+function text(value: string | null | undefined): string | null {
   return typeof value === 'string' && value !== '' ? value : null;
 }

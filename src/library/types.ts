@@ -8,14 +8,16 @@
  * measurement dates as YYYY-MM-DD).
  */
 
+import type { AnalyzeOptions, AnalyzeResult } from '../analysis.js';
+
 /**
- * The analysis options and result are stored as the JSON the pipeline
- * returns (AnalyzeOptions and AnalyzeResult of src/analysis.ts). The library
- * only reads a few fields of `result.fit` for its summary columns, so it
- * takes any object here.
+ * The analysis options and result are stored as the JSON the pipeline takes
+ * and returns: the core's AnalyzeOptions and AnalyzeResult (src/analysis.ts),
+ * read back as those types. A record saved by an older fieldgap may lack a
+ * field added since; the readers that must cope say so (summary.ts).
  */
-export type StoredOptions = object;
-export type StoredResult = object;
+export type StoredOptions = AnalyzeOptions;
+export type StoredResult = AnalyzeResult;
 
 /** What a chemist says about the sample; only `sample` is required. */
 export interface AnalysisDetails {

@@ -26,6 +26,7 @@ import { gaussianValue } from './gaussian.js';
 import { type BandCandidate, xyFindBandCandidates } from './xyFindBandCandidates.js';
 import { xPolynomialScale, xPolynomialValues, xyPolynomialFit } from './xyPolynomial.js';
 import { type GaussianParameters, type RefineBandsResult, xyRefineBands } from './xyRefineBands.js';
+import { median } from '../numeric/median.js';
 
 export interface FitBandsOptions {
   candidates: BandCandidate[];
@@ -412,8 +413,7 @@ function bandUnderEdge(ctx: Context, fit: RefineBandsResult): RefineBandsResult 
   return best;
 }
 
+/** The median (src/numeric/median.ts), 0 for no values. */
 function xMedian(values: Float64Array): number {
-  if (values.length === 0) return 0;
-  const sorted = Float64Array.from(values).sort();
-  return sorted[sorted.length >> 1] as number;
+  return values.length === 0 ? 0 : median(values);
 }

@@ -64,6 +64,7 @@ import { maskAroundStep, xyMaskedRegions, xyMaskPoints } from './xyMask.js';
 import { xPolynomialValues } from './xyPolynomial.js';
 import { xChooseGridStep, xUniformGrid, xyResampleUniformWithCounts } from './xyResample.js';
 import type { GaussianParameters } from './xyRefineBands.js';
+import { median as medianOf } from '../numeric/median.js';
 
 export interface ProcessSpectrumOptions {
   /** mol/L; with it, heights become ε (Beer–Lambert). @default unknown */
@@ -329,10 +330,9 @@ function gridNoise(x: Float64Array, y: Float64Array, kept: Uint8Array, grid: Flo
   return Float64Array.from(out);
 }
 
+/** The median (src/numeric/median.ts), 0 for no values. */
 function median(values: Float64Array): number {
-  if (values.length === 0) return 0;
-  const sorted = Float64Array.from(values).sort();
-  return sorted[sorted.length >> 1] as number;
+  return values.length === 0 ? 0 : medianOf(values);
 }
 
 function checkOptions(o: ProcessSpectrumOptions, baselineOrder: number, pathLength: number): void {

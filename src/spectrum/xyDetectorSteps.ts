@@ -4,6 +4,7 @@
  * side run smoothly (typically near 350 nm, or 800–900 nm).
  */
 import { xNoiseLocal } from './xNoise.js';
+import { median } from '../numeric/median.js';
 
 export interface DetectorStep {
   /** The jump lies between point `index` and `index + 1` (ascending wavenumber order). */
@@ -111,10 +112,8 @@ export function xyFindDetectorSteps(x: Float64Array, y: Float64Array, options: F
 /** 1.4826 × the median absolute deviation from the median (σ of normal data, robust to the few real jumps and band flanks). */
 function xRobustSpread(values: Float64Array): number {
   if (values.length === 0) return 0;
-  const sorted = Float64Array.from(values).sort();
-  const centre = sorted[sorted.length >> 1] as number;
-  const deviations = Float64Array.from(values, (v) => Math.abs(v - centre)).sort();
-  return 1.4826 * (deviations[deviations.length >> 1] as number);
+  const centre = median(values);
+  return 1.4826 * median(Float64Array.from(values, (v) => Math.abs(v - centre)));
 }
 
 /** Least-squares line through points [from, to) evaluated at xm, with its leverage 1/k + (xm − x̄)²/Sxx. */

@@ -3,6 +3,7 @@
  * quantity, so it is resampled as is (no Jacobian: unlike a spectral
  * density, A does not change when the axis changes from nm to cm-1).
  */
+import { median } from '../numeric/median.js';
 
 /**
  * Grid step, cm-1: the median spacing of the data (so the grid keeps the
@@ -13,10 +14,8 @@ export function xChooseGridStep(x: Float64Array, maxPoints = 600): number {
   const n = x.length;
   const gaps = new Float64Array(n - 1);
   for (let i = 0; i < n - 1; i++) gaps[i] = Math.abs((x[i + 1] as number) - (x[i] as number));
-  gaps.sort();
-  const median = gaps[(n - 1) >> 1] as number;
   const range = Math.abs((x[n - 1] as number) - (x[0] as number));
-  return Math.max(median, range / (maxPoints - 1));
+  return Math.max(median(gaps), range / (maxPoints - 1));
 }
 
 /** Uniform grid from `from` to (at most) `to` with spacing `step`. */

@@ -34,6 +34,9 @@ interface LayerRule {
 export const LAYER_RULES: readonly LayerRule[] = [
   { importer: 'src/', forbidden: 'server/', rule: 'src/ must not import server/' },
   { importer: 'server/', forbidden: 'src/cli/', rule: 'server/ must not import src/cli/' },
+  // The writers of every output: they take the core's results and know nothing of who shows them.
+  { importer: 'src/report/', forbidden: 'src/cli/', rule: 'src/report/ must not import src/cli/' },
+  { importer: 'src/report/', forbidden: 'src/library/', rule: 'src/report/ must not import src/library/' },
 ];
 
 function toPosix(path: string): string {

@@ -34,6 +34,8 @@ describe('layers point one way', () => {
     ['server/main.ts', "import { numberOption } from '../src/cli/options.js';", 'server/ must not import src/cli/'],
     ['server/routes/analyses.ts', "import type { CliIo } from '../../src/cli/command.js';", 'server/ must not import src/cli/'],
     ['src/library/library.ts', "const m = await import(`../../server/${name}.js`);", 'no import() with a computed specifier in src/ or server/'],
+    ['src/report/csv.ts', "import { io } from '../cli/command.js';", 'src/report/ must not import src/cli/'],
+    ['src/report/results-csv.ts', "import type { AnalysisRecord } from '../library/types.js';", 'src/report/ must not import src/library/'],
   ])('flags %s: %s', (path, text, rule) => {
     expect(wrongWayImports([{ path, text }]).map((w) => w.rule)).toEqual([rule]);
   });

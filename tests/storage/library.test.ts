@@ -5,7 +5,7 @@ import { readFileSync } from 'node:fs';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { LIBRARY_FILE, sha256Hex, type Library } from '../../src/library/library.js';
 import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
-import { handBuiltRecord } from './helpers/records.js';
+import { handBuiltRecord, partialResult } from './helpers/records.js';
 import { rejectionOf as errorOf } from './helpers/rejection.js';
 
 forEachEngine('the results library', (engine) => {
@@ -60,7 +60,7 @@ describe('add and get', () => {
   });
 
   it('omits details that were not given, and keeps nulls in the summary of a result without a fit', async () => {
-    const saved = await library.add({ sample: 'bare', fileName: 'b.csv', content: new Uint8Array([1]), options: {}, result: { fit: null } });
+    const saved = await library.add({ sample: 'bare', fileName: 'b.csv', content: new Uint8Array([1]), options: {}, result: partialResult({ fit: null }) });
     expect(Object.keys(saved)).not.toContain('formula');
     expect(Object.keys(saved)).not.toContain('ligands');
     expect(saved.summary.tenDq).toBeNull();
@@ -164,7 +164,7 @@ describe('update, refit and remove', () => {
 
   it('removes the record with its original and history', async () => {
     const saved = await library.add(handBuiltRecord());
-    await library.update(saved.id, { options: {}, result: {} });
+    await library.update(saved.id, { options: {}, result: partialResult({}) });
     await library.remove(saved.id);
     expect(await errorOf(() => library.get(saved.id))).toMatchObject({ code: 'not-found' });
     const left = 'SELECT (SELECT count(*) FROM originals) + (SELECT count(*) FROM revisions) + (SELECT count(*) FROM results) AS n';

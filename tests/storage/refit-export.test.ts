@@ -4,7 +4,7 @@ import { CSV_COLUMNS, libraryCsv } from '../../src/library/export.js';
 import type { Library } from '../../src/library/library.js';
 import { refitAnalysis, type AnalyzeStored } from '../../src/library/refit.js';
 import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
-import { handBuiltRecord } from './helpers/records.js';
+import { handBuiltRecord, partialResult } from './helpers/records.js';
 
 forEachEngine('refit and export', (engine) => {
 let where: TestLibrary;
@@ -24,7 +24,7 @@ function recordingAnalyze(): { analyze: AnalyzeStored; calls: { content: Buffer;
   const analyze: AnalyzeStored = async (content, options) => {
     calls.push({ content, options: options as Record<string, unknown> });
     const o = options as { ion?: string };
-    return { fit: { ion: o.ion ?? null, tenDq: 18_000 + calls.length, status: 'converged' }, warnings: [] };
+    return partialResult({ fit: { ion: o.ion ?? null, tenDq: 18_000 + calls.length, status: 'converged' }, warnings: [] });
   };
   return { analyze, calls };
 }

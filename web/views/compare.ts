@@ -10,7 +10,8 @@ import { PlotFrame } from '../plots/frame.js';
 import { svgFromSpec } from '../plots/svg.js';
 import type { AxisUnit } from '../plots/spectrum-spec.js';
 import { overlaySpec } from '../plots/spectrum-spec.js';
-import Papa from 'papaparse';
+import { csvText, type CsvCell } from '../../src/report/csv.js';
+import { resultsTableCsv } from '../export-results.js';
 
 let frame: PlotFrame | null = null;
 /** The overlay's plot host, kept with its chart across renders so the zoom survives. */
@@ -22,12 +23,13 @@ function name(entry: AnalysisEntry): string {
 
 /** CSV of the comparison table: one row per analysis, cm-1. */
 export function comparisonCsv(entries: readonly AnalysisEntry[]): string {
-  const rows: (string | number | null)[][] = [['sample', 'file', 'ligand', 'ion', 'd', 'geometry', '10Dq (cm-1)', 'u(10Dq) (cm-1)', 'B (cm-1)', 'u(B) (cm-1)', 'C (cm-1)', 'beta', 'spin state', 'rms residual (cm-1)']];
+  const header = ['sample', 'file', 'ligand', 'ion', 'd', 'geometry', '10Dq (cm-1)', 'u(10Dq) (cm-1)', 'B (cm-1)', 'u(B) (cm-1)', 'C (cm-1)', 'beta', 'spin state', 'rms residual (cm-1)'];
+  const rows: CsvCell[][] = [];
   for (const entry of entries) {
     const fit = shownFit(entry);
     rows.push([name(entry), entry.fileName, entry.details.ligand, fit?.ion ?? entry.details.ion, fit?.d ?? entry.details.d, fit?.geometry ?? entry.details.geometry, fit?.tenDq ?? null, fit?.uncertainty.tenDq ?? null, fit?.b ?? null, fit?.uncertainty.b ?? null, fit?.c ?? null, fit?.beta ?? null, fit?.spinState ?? null, fit?.rmsResidual ?? null]);
   }
-  return Papa.unparse(rows, { newline: '\n' }) + '\n';
+  return csvText(header, rows, { newline: '\n' });
 }
 
 export function renderCompare(root: HTMLElement, entries: readonly AnalysisEntry[], unit: AxisUnit, onUnit: (unit: AxisUnit) => void): void {
@@ -83,7 +85,7 @@ export function renderCompare(root: HTMLElement, entries: readonly AnalysisEntry
   );
   root.replaceChildren(
     h('h2', {}, 'Compare analyses'),
-    h('section', { class: 'panel' }, table, h('div', { class: 'toolbar' }, h('button', { type: 'button', class: 'button small', id: 'compare-csv', onclick: () => download('comparison.csv', comparisonCsv(done), 'text/csv') }, 'Download CSV'))),
+    h('section', { class: 'panel' }, table, h('div', { class: 'toolbar' }, h('button', { type: 'button', class: 'button small', id: 'compare-csv', onclick: () => download('comparison.csv', comparisonCsv(done), 'text/csv') }, 'Download CSV'), h('button', { type: 'button', class: 'button small', id: 'compare-results-csv', title: 'The columns of analyze --csv and library export --columns results', onclick: () => download('results.csv', resultsTableCsv(done), 'text/csv') }, 'Results CSV'))),
     withCurves.length === 0 ? '' : h('figure', { class: 'panel figure' }, h('figcaption', {}, h('h3', {}, 'Spectra, each scaled to its maximum'), tools), plotHost),
   );
   // The kept chart takes the new data when its axis is the same; a new chart is built after layout otherwise.

@@ -3,13 +3,13 @@
  * analysis with its details, list and search the saved ones, reopen or
  * delete one, export the list as CSV.
  */
-import Papa from 'papaparse';
 import * as api from '../api.js';
 import { download, h } from '../dom.js';
 import { UNIT, formatNumber, formatWithUncertainty, spinStateText } from '../format.js';
 import type { AnalysisEntry } from '../state.js';
 import { correctionsFor, defaultDetails, editableBandsFromCorrections, editableBandsFromResult, nextKey, type FitRequestBand } from '../state.js';
 import type { Geometry, LibraryRecord, LibraryRow, XUnit } from '../types.js';
+import { csvText } from '../../src/report/csv.js';
 
 export interface LibraryContext {
   /** Shows a reopened record on the Analyse view. */
@@ -102,7 +102,7 @@ function storedBands(record: LibraryRecord): AnalysisEntry['bands'] {
 export function libraryCsv(rows: readonly LibraryRow[]): string {
   const header = ['id', 'sample', 'formula', 'ion', 'ligands', '10Dq (cm-1)', 'sd 10Dq (cm-1)', 'B (cm-1)', 'sd B (cm-1)', 'C (cm-1)', 'beta', 'sd beta', 'spin state', 'rms (cm-1)', 'file', 'saved'];
   const data = rows.map((r) => [r.id, r.sample, r.formula ?? '', r.ion ?? '', (r.ligands ?? []).join('; '), r.summary.tenDq, r.summary.tenDqSd, r.summary.b, r.summary.bSd, r.summary.c, r.summary.beta, r.summary.betaSd, r.summary.spinState ?? '', r.summary.rmsResidual, r.original.fileName, r.createdAt]);
-  return Papa.unparse([header, ...data], { newline: '\n', escapeFormulae: true }) + '\n';
+  return csvText(header, data, { newline: '\n' });
 }
 
 interface ListState {

@@ -10,6 +10,8 @@ import './predict.css';
 import * as api from '../api.js';
 import { h } from '../dom.js';
 import type { Prediction } from '../../src/series/predict.js';
+import { formatPlusMinus } from '../../src/report/plus-minus.js';
+import { NO_SPIN_STATE_CHOICE } from '../../src/report/spin-state.js';
 import type { ApiErrorBody } from '../types.js';
 
 export type PredictGeometryChoice = '' | 'octahedral' | 'tetrahedral' | 'square-planar';
@@ -43,7 +45,7 @@ function requestPrediction(body: Record<string, unknown>): Promise<Prediction> {
 
 const cm = (x: number): string => Math.round(x).toLocaleString('en-US').replace(/,/g, ' ');
 const pmText = (value: number, sigma: number | undefined, digits = 0): string =>
-  sigma === undefined ? value.toFixed(digits) : `${digits === 0 ? cm(value) : value.toFixed(digits)} ± ${digits === 0 ? cm(sigma) : sigma.toFixed(digits)}`;
+  formatPlusMinus(value, sigma, { digits, number: (v, d) => (d === 0 ? cm(v) : v.toFixed(d)) });
 
 /** "P = 0.87", "P > 0.99", "P < 0.01". */
 function probabilityText(p: number): string {
@@ -55,7 +57,7 @@ function probabilityText(p: number): string {
 /** "high-spin (rule)", "low-spin, P = 0.97", "borderline: low-spin, P = 0.62". */
 export function spinHeadline(p: Prediction): string {
   const d = p.spinDecision;
-  if (d.state === 'no-choice') return 'no high/low-spin choice';
+  if (d.state === 'no-choice') return NO_SPIN_STATE_CHOICE;
   if (d.decidedBy === 'rule') return `${d.state} (by a rule of the trade)`;
   const n = d.numbers;
   const probability = n ? probabilityText(d.state === 'low-spin' ? n.probabilities.lowSpin : n.probabilities.highSpin) : '';

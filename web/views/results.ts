@@ -4,6 +4,7 @@
  * the close alternative assignments.
  */
 import { h } from '../dom.js';
+import { NO_SPIN_STATE_CHOICE } from '../../src/report/spin-state.js';
 import { UNIT, dCountText, formatNumber, formatWithUncertainty, levelLabel, nmFromWavenumber, spinStateText } from '../format.js';
 import type { AnalysisEntry } from '../state.js';
 import type { Alternative, FitResult } from '../types.js';
@@ -54,7 +55,7 @@ export function parameterCards(fit: FitResult, original: FitResult | null): HTML
     card('p-b', 'Racah B', formatWithUncertainty(fit.b, u.b), UNIT.wavenumber, previously(fit.b, original?.b, 0)),
     card('p-c', 'Racah C', formatWithUncertainty(fit.c, u.c), UNIT.wavenumber, `C/B = ${formatNumber(fit.cOverB, 2)}`),
     card('p-beta', 'β = B/B(free ion)', fit.beta === null ? '—' : formatWithUncertainty(fit.beta, fit.betaSd ?? null, 2), '', fit.freeIonB === null ? 'free-ion B not known for this ion' : `free-ion B = ${formatNumber(fit.freeIonB)} ${UNIT.wavenumber}`),
-    card('p-spin', 'Spin state', spinStateText(fit.spinState), '', fit.spinState === 'no-choice' ? `${dCountText(fit.d)} has no high-/low-spin choice · ground term ${fit.groundTerm}` : `ground term ${fit.groundTerm}`),
+    card('p-spin', 'Spin state', spinStateText(fit.spinState), '', fit.spinState === 'no-choice' ? `${dCountText(fit.d)}: ${NO_SPIN_STATE_CHOICE} · ground term ${fit.groundTerm}` : `ground term ${fit.groundTerm}`),
     card('p-unpaired', 'Unpaired electrons', String(fit.unpairedElectrons), ''),
     card('p-moment', 'Spin-only moment', formatNumber(fit.spinOnlyMoment, 2), UNIT.moment),
     card('p-rms', 'RMS residual', formatNumber(fit.rmsResidual, fit.rmsResidual !== null && Math.abs(fit.rmsResidual) < 10 ? 1 : 0), UNIT.wavenumber, fitStatusNote(fit)),

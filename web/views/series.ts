@@ -4,7 +4,6 @@
  * error bars, neighbours that are not resolved flagged, and the ligand
  * factors f and h fitted from the user's own analyses.
  */
-import Papa from 'papaparse';
 import * as api from '../api.js';
 import { download, h } from '../dom.js';
 import { UNIT, formatNumber, formatWithUncertainty } from '../format.js';
@@ -12,16 +11,18 @@ import { PlotFrame } from '../plots/frame.js';
 import { rankingSpec } from '../plots/series-spec.js';
 import { svgFromSpec } from '../plots/svg.js';
 import type { LibraryRow, Ranking, SeriesReport } from '../types.js';
+import { csvText } from '../../src/report/csv.js';
 
 const frames: PlotFrame[] = [];
 
 /** CSV of both rankings: one row per analysis and ranking. */
 export function seriesCsv(report: SeriesReport): string {
-  const rows: (string | number)[][] = [['ranking', 'position', 'sample', 'ligand', 'quantity', 'value', 'sd', 'not resolved from next']];
+  const header = ['ranking', 'position', 'sample', 'ligand', 'quantity', 'value', 'sd', 'not resolved from next'];
+  const rows: (string | number)[][] = [];
   for (const ranking of [report.spectrochemical, report.nephelauxetic]) {
     for (const e of ranking.entries) rows.push([ranking.kind, e.position, e.sample, e.ligandLabel, ranking.quantity, e.value, e.uncertainty, e.overlapsNext ? 'yes' : 'no']);
   }
-  return Papa.unparse(rows, { newline: '\n', escapeFormulae: true }) + '\n';
+  return csvText(header, rows, { newline: '\n' });
 }
 
 function rankingBlock(ranking: Ranking, id: string): HTMLElement {

@@ -5,6 +5,7 @@
 import { h, numberOrNull } from '../dom.js';
 import type { AnalysisEntry, SampleDetails } from '../state.js';
 import type { Geometry, XUnit } from '../types.js';
+import { ANALYSIS_OPTION_NAMES as NAME } from '../../src/analysis-option-names.js';
 
 export interface UploadHandlers {
   onAnalyse(files: File[], details: SampleDetails): void;
@@ -70,19 +71,19 @@ export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): 
     addFiles(event.dataTransfer?.files ?? null);
   });
 
-  const ion = h('input', { id: 'ion', name: 'ion', list: 'ion-list', autocomplete: 'off', placeholder: 'e.g. Ni2+', 'aria-describedby': 'ion-hint' });
+  const ion = h('input', { id: 'ion', name: NAME.ion.rest, list: 'ion-list', autocomplete: 'off', placeholder: 'e.g. Ni2+', 'aria-describedby': 'ion-hint' });
   const ionList = h('datalist', { id: 'ion-list' }, ...ION_SUGGESTIONS.map((value) => h('option', { value })));
-  const dCount = h('select', { id: 'd-count', name: 'd' }, h('option', { value: '' }, '—'), ...[1, 2, 3, 4, 5, 6, 7, 8, 9].map((d) => h('option', { value: String(d) }, `d${d}`)));
-  const geometry = h('select', { id: 'geometry', name: 'geometry' }, h('option', { value: 'octahedral' }, 'octahedral'), h('option', { value: 'tetrahedral' }, 'tetrahedral'));
-  const conc = h('input', { id: 'conc', name: 'conc', inputmode: 'decimal', placeholder: 'mol L⁻¹' });
-  const path = h('input', { id: 'path', name: 'path', inputmode: 'decimal', placeholder: '1' });
+  const dCount = h('select', { id: 'd-count', name: NAME.d.rest }, h('option', { value: '' }, '—'), ...[1, 2, 3, 4, 5, 6, 7, 8, 9].map((d) => h('option', { value: String(d) }, `d${d}`)));
+  const geometry = h('select', { id: 'geometry', name: NAME.geometry.rest }, h('option', { value: 'octahedral' }, 'octahedral'), h('option', { value: 'tetrahedral' }, 'tetrahedral'));
+  const conc = h('input', { id: 'conc', name: NAME.concentration.rest, inputmode: 'decimal', placeholder: 'mol L⁻¹' });
+  const path = h('input', { id: 'path', name: NAME.pathLength.rest, inputmode: 'decimal', placeholder: '1' });
   const sample = h('input', { id: 'sample', name: 'sample', placeholder: 'name or formula' });
   const ligand = h('input', { id: 'ligand', name: 'ligand', placeholder: 'e.g. H2O' });
   const formula = h('input', { id: 'formula', name: 'formula', placeholder: 'e.g. [Cr(H2O)6]Cl3', autocomplete: 'off' });
-  const xUnit = h('select', { id: 'x-unit', name: 'xUnit' }, h('option', { value: '' }, 'from the file'), h('option', { value: 'nm' }, 'nm'), h('option', { value: 'cm-1' }, 'cm⁻¹'), h('option', { value: 'eV' }, 'eV'), h('option', { value: 'um' }, 'µm'));
-  const column = h('input', { id: 'column', name: 'column', placeholder: 'first y column' });
-  const cOverB = h('input', { id: 'c-over-b', name: 'cOverB', inputmode: 'decimal', placeholder: 'free-ion value' });
-  const freeC = h('input', { id: 'free-c', name: 'freeC', type: 'checkbox' });
+  const xUnit = h('select', { id: 'x-unit', name: NAME.xUnit.rest }, h('option', { value: '' }, 'from the file'), h('option', { value: 'nm' }, 'nm'), h('option', { value: 'cm-1' }, 'cm⁻¹'), h('option', { value: 'eV' }, 'eV'), h('option', { value: 'um' }, 'µm'));
+  const column = h('input', { id: 'column', name: NAME.column.rest, placeholder: 'first y column' });
+  const cOverB = h('input', { id: 'c-over-b', name: NAME.cOverB.rest, inputmode: 'decimal', placeholder: 'free-ion value' });
+  const freeC = h('input', { id: 'free-c', name: NAME.freeC.rest, type: 'checkbox' });
   const stepCorrection = h('input', { id: 'step-correction', name: 'stepCorrection', type: 'checkbox', checked: true });
 
   const analyseButton = h('button', { type: 'submit', id: 'analyse', class: 'button primary', disabled: queued.length === 0 }, 'Analyse');

@@ -1,4 +1,6 @@
 import type { AnalyzeResult } from '../../analysis.js';
+import { formatPlusMinus } from '../../report/plus-minus.js';
+import { textTableLines } from '../../report/text-table.js';
 
 /** The readable report of one analysed spectrum: what was measured, the bands, the fit. */
 export function formatAnalysisReport(label: string, result: AnalyzeResult): string {
@@ -24,7 +26,7 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
   lines.push(...table([head, ...rows]));
   lines.push('', 'Ligand field');
   const pm = (v: number | null, u: number | null | undefined, unit: string, digits = 0) =>
-    v === null ? 'not determined' : `${v.toFixed(digits)}${u ? ` ± ${u.toFixed(digits)}` : ''} ${unit}`.trimEnd();
+    v === null ? 'not determined' : `${formatPlusMinus(v, u, { digits })} ${unit}`.trimEnd();
   lines.push(`  10Dq        ${pm(fit.tenDq, fit.uncertainty.tenDq, 'cm-1')}`);
   lines.push(`  B           ${pm(fit.b, fit.uncertainty.b, 'cm-1')}`);
   lines.push(`  C           ${pm(fit.c, fit.uncertainty.c, 'cm-1')}${fit.cMode === 'free' ? '' : ` (${fit.cMode === 'ratio' ? `C/B fixed at ${fit.cOverB?.toFixed(2)}` : 'fixed'})`}`);
@@ -39,8 +41,7 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
 }
 
 function table(rows: string[][]): string[] {
-  const widths = rows[0]!.map((_, i) => Math.max(...rows.map((r) => (r[i] ?? '').length)));
-  return rows.map((r) => `  ${r.map((c, i) => c.padEnd(widths[i]!)).join('  ').trimEnd()}`);
+  return textTableLines(rows, { indent: '  ' });
 }
 
 /** 0.9731 → "97%", tiny → "< 0.1%". */

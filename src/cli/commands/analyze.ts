@@ -12,6 +12,7 @@ import { numberOption, parseCommandArgs } from '../options.js';
 import { inputsApartFromOutputs, type OutputFile } from '../output-guard.js';
 import { createProgress } from '../progress.js';
 import { formatAnalysisReport } from './analyze-report.js';
+import { csvLine } from '../../report/csv.js';
 
 const USAGE = `Usage: fieldgap analyze FILES-or-FOLDERS... (--ion ION | --d N) [options]
 
@@ -73,7 +74,7 @@ export const analyzeCommand: Command = {
     if (positionals.length === 0) throw new FieldgapError('invalid-argument', 'give at least one spectrum file or folder', 'FILES');
     const options = analysisOptions(values);
     const threads = numberOption('threads', values.threads, { min: 1, max: 1024, integer: true });
-    const csvOutput: OutputFile | undefined = values.csv === undefined ? undefined : { option: '--csv', path: values.csv, firstLine: CSV_COLUMNS.join(',') };
+    const csvOutput: OutputFile | undefined = values.csv === undefined ? undefined : { option: '--csv', path: values.csv, firstLine: csvLine(CSV_COLUMNS) };
     if (json.jsonFile !== undefined) {
       if (values.out !== undefined) throw invalidArgument('--out', 'give the JSON output file once: --out FILE (--json FILE is its old spelling)');
       io.stderr('note: --json FILE is deprecated; write --out FILE (--json alone prints JSON)\n');

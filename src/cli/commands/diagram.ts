@@ -7,6 +7,8 @@ import type { Command } from '../command.js';
 import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 import { joinNegativeValues, parseFieldOptions } from './levels.js';
+import { csvText } from '../../report/csv.js';
+import { textTableLines } from '../../report/text-table.js';
 
 /**
  * `fieldgap diagram`: a Tanabe–Sugano-type diagram (E/B against Dq/B) as a
@@ -111,11 +113,8 @@ export function uniqueLineNames(diagram: Diagram): string[] {
 const round = (value: number): number => Math.round(value * 1e6) / 1e6;
 
 export function diagramCsv(diagram: Diagram): string {
-  const rows = [['dq_over_b', 'ground_term', ...uniqueLineNames(diagram)].join(',')];
-  diagram.dqOverB.forEach((x, i) => {
-    rows.push([round(x), diagram.groundTerms[i]!, ...diagram.lines.map((line) => round(line.energies[i]!))].join(','));
-  });
-  return `${rows.join('\n')}\n`;
+  const rows = diagram.dqOverB.map((x, i) => [round(x), diagram.groundTerms[i]!, ...diagram.lines.map((line) => round(line.energies[i]!))]);
+  return csvText(['dq_over_b', 'ground_term', ...uniqueLineNames(diagram)], rows, { newline: '\n' });
 }
 
 export function diagramTable(diagram: Diagram, crossover: number | undefined): string {
@@ -125,18 +124,15 @@ export function diagramTable(diagram: Diagram, crossover: number | undefined): s
   const header = ['level \\ Dq/B', ...columns.map((i) => diagram.dqOverB[i]!.toFixed(2))];
   const rows = diagram.lines.map((line, l) => [names[l]!, ...columns.map((i) => line.energies[i]!.toFixed(2))]);
   rows.push(['ground term', ...columns.map((i) => diagram.groundTerms[i]!)]);
-  const widths = header.map((h, col) => Math.max(h.length, ...rows.map((r) => r[col]!.length)));
-  const render = (cells: string[]): string =>
-    cells.map((cell, col) => (col === 0 ? cell.padEnd(widths[col]!) : cell.padStart(widths[col]!))).join('  ');
+  const [head, ...body] = textTableLines([header, ...rows], { align: header.map((_, col) => (col === 0 ? 'left' : 'right')) });
   const lines = [
     `d${diagram.d} ${diagram.geometry}, C/B = ${diagram.cOverB}: E/B above the ground level (B units), ${points} points computed`,
     crossover === undefined
       ? 'No spin crossover on this Dq/B range.'
       : `Spin crossover at Dq/B = ${crossover.toFixed(3)}.`,
     '',
-    render(header),
-    ...rows.slice(0, -1).map(render),
-    render(rows.at(-1)!),
+    head!,
+    ...body,
     '',
     'Use --csv or --json for every point.',
   ];
@@ -156,12 +152,10 @@ function fieldLineNames(diagram: FieldDiagram): string[] {
 }
 
 export function fieldDiagramCsv(diagram: FieldDiagram): string {
-  const names = fieldLineNames(diagram).map((name) => `"${name.replace(/"/g, '""')}"`);
-  const rows = [[`${diagram.axis}_over_b`, 'ground_term', ...names].join(',')];
-  diagram.x.forEach((x, i) => {
-    rows.push([round(x), diagram.groundTerms[i]!, ...diagram.lines.map((line) => round(line.energies[i]!))].join(','));
-  });
-  return `${rows.join('\n')}\n`;
+  const rows = diagram.x.map((x, i) => [round(x), diagram.groundTerms[i]!, ...diagram.lines.map((line) => round(line.energies[i]!))]);
+  // The line names are always quoted, as this CSV has always written them.
+  const quote = (value: unknown, column: number) => column >= 2 && typeof value === 'string';
+  return csvText([`${diagram.axis}_over_b`, 'ground_term', ...fieldLineNames(diagram)], rows, { newline: '\n', quote });
 }
 
 export function fieldDiagramTable(diagram: FieldDiagram): string {
@@ -170,16 +164,13 @@ export function fieldDiagramTable(diagram: FieldDiagram): string {
   const names = fieldLineNames(diagram);
   const header = [`level \\ ${AXIS_NAMES[diagram.axis]}`, ...columns.map((i) => diagram.x[i]!.toFixed(3))];
   const rows = diagram.lines.map((line, l) => [names[l]!, ...columns.map((i) => line.energies[i]!.toFixed(2))]);
-  const widths = header.map((h, col) => Math.max(h.length, ...rows.map((r) => r[col]!.length)));
-  const render = (cells: string[]): string =>
-    cells.map((cell, col) => (col === 0 ? cell.padEnd(widths[col]!) : cell.padStart(widths[col]!))).join('  ');
+  const table = textTableLines([header, ...rows], { align: header.map((_, col) => (col === 0 ? 'left' : 'right')) });
   const last = points - 1;
   const lines = [
     `d${diagram.d} ${diagram.geometry}, B = ${diagram.b} cm-1, C/B = ${diagram.cOverB}: E/B against ${AXIS_NAMES[diagram.axis]}; ` +
       `at the last point Dq = ${diagram.dq[last]}, Ds = ${diagram.ds[last]}, Dt = ${diagram.dt[last]}, ζ = ${diagram.zeta[last]} cm-1; ${points} points`,
     '',
-    render(header),
-    ...rows.map(render),
+    ...table,
     '',
     'Use --csv or --json for every point.',
   ];

@@ -7,6 +7,9 @@ import type { Command } from '../command.js';
 import { checkFitBandCount } from '../../fit/band-count.js';
 import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
+import { formatPlusMinus } from '../../report/plus-minus.js';
+import { spinStateSentence } from '../../report/spin-state.js';
+import { textTableLines } from '../../report/text-table.js';
 
 /**
  * `fieldgap fit`: 10Dq, Racah B and C from observed band maxima, with the
@@ -175,13 +178,11 @@ export function fitJson(result: FitResult): object {
 const fmt = (v: number, digits = 0) => v.toFixed(digits);
 /** 0.9731 → "97%"; below 0.1% → "< 0.1%". */
 const percent = (p: number) => (p < 0.001 ? '< 0.1%' : `${(100 * p).toPrecision(p >= 0.995 ? 3 : 2)}%`);
-const pm = (v: number | null, digits = 0) => (v === null ? '' : ` ± ${fmt(v, digits)}`);
+/** A value and its uncertainty (shown even when zero), at `digits`. */
+const pm = (v: number, u: number | null, digits = 0) => formatPlusMinus(v, u, { digits, showZero: true });
 
 function table(header: string[], rows: string[][]): string[] {
-  const widths = header.map((h, col) => Math.max(h.length, ...rows.map((r) => (r[col] ?? '').length)));
-  const render = (cells: string[]) =>
-    cells.map((cell, col) => (col === cells.length - 1 ? cell : cell.padEnd(widths[col]!))).join('  ').trimEnd();
-  return [render(header), ...rows.map(render)].map((line) => `  ${line}`);
+  return textTableLines([header, ...rows], { indent: '  ' });
 }
 
 /** The readable report of `fit`. */
@@ -190,17 +191,17 @@ export function fitReport(r: FitResult): string {
   const cMode = r.cMode === 'free' ? 'C fitted' : r.cMode === 'fixed' ? 'C fixed' : r.cOverB !== null ? `C/B fixed at ${fmt(r.cOverB, 2)}` : '';
   const fitted = r.assignments.reduce((n, a) => n + a.bands.length, 0);
   const lines = [`${who} ${r.geometry}: ${fitted} band${fitted === 1 ? '' : 's'} fitted${cMode ? `, ${cMode}` : ''}`, ''];
-  lines.push(`  10Dq = ${fmt(r.tenDq)}${pm(r.uncertainty.tenDq)} cm-1   (Dq = ${fmt(r.dq, 1)} cm-1)`);
+  lines.push(`  10Dq = ${pm(r.tenDq, r.uncertainty.tenDq)} cm-1   (Dq = ${fmt(r.dq, 1)} cm-1)`);
   if (r.b === null) {
     lines.push('  B    = not determinable from these bands');
   } else {
     const beta = r.beta === null ? 'β not available (no free-ion B0)' : `β = B/B0 = ${fmt(r.beta, 3)} (B0 = ${r.freeIonB} cm-1)`;
-    lines.push(`  B    = ${fmt(r.b)}${pm(r.uncertainty.b)} cm-1   ${beta}`);
-    lines.push(`  C    = ${fmt(r.c!)}${pm(r.uncertainty.c)} cm-1   C/B = ${fmt(r.cOverB!, 2)}`);
+    lines.push(`  B    = ${pm(r.b, r.uncertainty.b)} cm-1   ${beta}`);
+    lines.push(`  C    = ${pm(r.c!, r.uncertainty.c)} cm-1   C/B = ${fmt(r.cOverB!, 2)}`);
     if (r.correlation.bDq !== null) lines.push(`  correlation of B with Dq: ${fmt(r.correlation.bDq, 3)}`);
   }
   lines.push('');
-  const spin = r.spinState === 'no-choice' ? `no spin-state choice for d${r.d} ${r.geometry}` : r.spinState;
+  const spin = spinStateSentence(r.spinState, r.d, r.geometry);
   lines.push(`Ground level ${r.groundLabel}, ${spin}; ${r.unpairedElectrons} unpaired electron${r.unpairedElectrons === 1 ? '' : 's'}, spin-only moment ${fmt(r.spinOnlyMoment, 2)} μB`);
   if (r.crossover) {
     lines.push(`Spin crossover at Dq/B = ${fmt(r.crossover.dqOverB, 2)}; fitted Dq/B = ${fmt(r.crossover.fittedDqOverB, 2)} (${r.crossover.percent >= 0 ? '+' : ''}${fmt(r.crossover.percent, 1)}%)`);

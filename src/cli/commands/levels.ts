@@ -5,6 +5,8 @@ import {
 import type { Command } from '../command.js';
 import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
+import { spinStateSentence } from '../../report/spin-state.js';
+import { textTableLines } from '../../report/text-table.js';
 
 /**
  * `fieldgap levels`: the ligand-field levels of one d^n ion at given Dq, B
@@ -140,7 +142,7 @@ export function levelsTable(result: LevelsResult): string {
   const lines = [
     `d${d} ${geometry}: Dq = ${dq} cm-1 (10Dq = ${formatNumber(10 * dq, 0)} cm-1), B = ${b} cm-1, C = ${formatNumber(c, 1).replace(/\.0$/, "")} cm-1 (C/B = ${formatNumber(c / b, 3)})`,
     `Ground level: ${ground.label}, ${result.unpairedElectrons} unpaired electron${result.unpairedElectrons === 1 ? '' : 's'}; ${
-      result.spinState === 'no-choice' ? `d${d} ${geometry} has no high-/low-spin choice` : result.spinState
+      spinStateSentence(result.spinState, d, geometry)
     }`,
     '',
   ];
@@ -153,10 +155,7 @@ export function levelsTable(result: LevelsResult): string {
     String(level.degeneracy),
     i > 0 && level.multiplicity === ground.multiplicity ? '*' : '',
   ]);
-  const widths = header.map((h, col) => Math.max(h.length, ...rows.map((r) => r[col]!.length)));
-  const render = (cells: string[]): string =>
-    cells.map((cell, col) => (col === 0 ? cell.padEnd(widths[col]!) : cell.padStart(widths[col]!))).join('  ').trimEnd();
-  lines.push(render(header), ...rows.map(render), '', '* spin-allowed from the ground level (same multiplicity)');
+  lines.push(...textTableLines([header, ...rows], { align: ['left', 'right', 'right', 'right', 'right', 'right'] }), '', '* spin-allowed from the ground level (same multiplicity)');
   for (const note of result.notes) lines.push(`Note: ${note}`);
   return `${lines.join('\n')}\n`;
 }
@@ -178,10 +177,7 @@ export function fieldLevelsTable(result: FieldLevelsResult): string {
     level.parent,
     result.spinOrbit ? `${formatNumber(100 * level.parentWeight, 0)}%` : '',
   ]);
-  const widths = header.map((h, col) => Math.max(h.length, ...rows.map((r) => r[col]!.length)));
-  const render = (cells: string[]): string =>
-    cells.map((cell, col) => (col === 0 || col === 4 ? cell.padEnd(widths[col]!) : cell.padStart(widths[col]!))).join('  ').trimEnd();
-  lines.push(render(header), ...rows.map(render), '');
+  lines.push(...textTableLines([header, ...rows], { align: ['left', 'right', 'right', 'right', 'left', 'right'] }), '');
   for (const note of result.notes) lines.push(`Note: ${note}`);
   return `${lines.join('\n')}\n`;
 }

@@ -20,12 +20,12 @@ const PAGE = 500;
 export async function exportLibrary(
   library: Library,
   filter: Pick<ListOptions, 'query' | 'ion'>,
-  format: 'csv' | 'json',
+  format: 'csv' | 'results-csv' | 'json',
   target: string | undefined,
   force: boolean,
   io: CliIo,
 ): Promise<void> {
-  const chunks = format === 'csv' ? await csvChunks(library, filter) : jsonChunks(library, filter);
+  const chunks = format === 'csv' ? await csvChunks(library, filter) : format === 'results-csv' ? await resultsCsvChunks(library, filter) : jsonChunks(library, filter);
   if (target === undefined || target === '-') {
     for await (const chunk of chunks) io.stdout(chunk);
     return;
@@ -50,6 +50,21 @@ export async function exportLibrary(
 async function csvChunks(library: Library, filter: Pick<ListOptions, 'query' | 'ion'>): Promise<AsyncIterable<string>> {
   const { libraryCsvChunks } = await import('../../library/export.js');
   return libraryCsvChunks(library.listPages(filter, PAGE));
+}
+
+/** The results table of `analyze --csv` (src/report/results-csv.ts), one page of records at a time: the bytes of libraryResultsCsv. */
+async function resultsCsvChunks(library: Library, filter: Pick<ListOptions, 'query' | 'ion'>): Promise<AsyncIterable<string>> {
+  const { resultsCsvInputOf } = await import('../../library/export.js');
+  const { csvLine } = await import('../../report/csv.js');
+  const { RESULTS_CSV_COLUMNS, RESULTS_CSV_END, RESULTS_CSV_NEWLINE, resultsCsvLine, resultsCsvRow } = await import('../../report/results-csv.js');
+  return (async function* chunks() {
+    yield csvLine(RESULTS_CSV_COLUMNS);
+    for await (const page of library.listPages(filter, PAGE)) {
+      const records = await library.getMany(page.map((s: AnalysisSummary) => s.id));
+      yield records.map((r) => `${RESULTS_CSV_NEWLINE}${resultsCsvLine(resultsCsvRow(resultsCsvInputOf(r)))}`).join('');
+    }
+    yield RESULTS_CSV_END;
+  })();
 }
 
 /** `JSON.stringify({ analyses }, null, 2)` and a newline, written one record at a time. */

@@ -6,12 +6,15 @@ import { FieldgapError, invalidArgument } from '../../errors.js';
 import { runSubcommand, type CliIo, type Command } from '../command.js';
 import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analysis-options.js';
 import { readInputFile } from '../files.js';
-import { numberOption, parseCommandArgs } from '../options.js';
+import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 import type { AnalysisRecord, AnalysisSummary, FitSummary, NewAnalysis } from '../../library/types.js';
 import type { Library } from '../../library/library.js';
 import type { AssignmentChange } from '../../library/refit.js';
 import { checkCorrections, type AnalysisCorrections } from '../../analysis-corrections.js';
 import { terminalSafe } from '../terminal-text.js';
+import { formatPlusMinus } from '../../report/plus-minus.js';
+import { textTableLines, type ColumnAlign } from '../../report/text-table.js';
+import type { FitResult } from '../../fit/types.js';
 
 /**
  * `fieldgap library`: the results library from the command line. Storage is
@@ -54,8 +57,9 @@ byte, with its SHA-256), options, results and the fieldgap version.
   library show ID [--json]   one record, its fit and its revisions
   library original ID --out FILE
                              write the stored original file back out
-  library export [--csv FILE | --json FILE] [--query Q] [--ion I] [--force]
-                             CSV (default, to stdout without FILE) or JSON
+  library export [--csv FILE | --json FILE] [--columns library|results] [--query Q] [--ion I] [--force]
+                             CSV (default, to stdout without FILE) or JSON;
+                             --columns results: the columns of analyze --csv
   library refit ID [analysis options] [--reset NAME]... [--corrections C] [--json]
                              rerun on the stored original with changed options;
                              kept as a new revision, earlier ones stay; every
@@ -156,12 +160,14 @@ const SUBCOMMANDS: Record<string, Handler> = {
   },
 
   export: async (argv, io) => {
-    const { values } = parseCommandArgs(argv, { csv: { type: 'string' }, json: { type: 'string' }, query: { type: 'string' }, ion: { type: 'string' }, force: { type: 'boolean' }, ...DATA });
+    const { values } = parseCommandArgs(argv, { csv: { type: 'string' }, json: { type: 'string' }, columns: { type: 'string' }, query: { type: 'string' }, ion: { type: 'string' }, force: { type: 'boolean' }, ...DATA });
     if (values.csv !== undefined && values.json !== undefined) throw invalidArgument('--json', 'give --csv FILE or --json FILE, not both');
+    const columns = choiceOption('--columns', values.columns, ['library', 'results'] as const, 'library');
+    if (values.json !== undefined && values.columns !== undefined) throw invalidArgument('--columns', '--columns chooses the CSV columns: give it with --csv FILE, not --json');
     const filter = { ...(values.query !== undefined && { query: values.query }), ...(values.ion !== undefined && { ion: values.ion }) };
     const { exportLibrary } = await import('./library-export.js');
     const target = values.csv ?? values.json;
-    await withLibrary(values, io, (library) => exportLibrary(library, filter, values.json === undefined ? 'csv' : 'json', target, values.force === true, io));
+    await withLibrary(values, io, (library) => exportLibrary(library, filter, values.json !== undefined ? 'json' : columns === 'results' ? 'results-csv' : 'csv', target, values.force === true, io));
     if (target !== undefined && target !== '-') io.stdout(`wrote ${target}\n`);
     return 0;
   },
@@ -370,10 +376,7 @@ function writeNew(target: string, data: string | Buffer, force: boolean, io: Cli
 
 /** "17400 ± 150" with the uncertainty to 2 significant figures and the value to match. */
 export function plusMinus(value: number | null, sd: number | null, minDecimals = 0): string {
-  if (value === null) return '-';
-  if (sd === null || !(sd > 0)) return value.toFixed(minDecimals);
-  const decimals = Math.max(minDecimals, Math.min(6, 1 - Math.floor(Math.log10(sd))));
-  return `${value.toFixed(decimals)} ± ${sd.toFixed(decimals)}`;
+  return value === null ? '-' : formatPlusMinus(value, sd, { digits: 'two-significant', minDigits: minDecimals, maxDigits: 6 });
 }
 
 export function fitLine(s: FitSummary): string {
@@ -412,16 +415,13 @@ function changeLines(changes: readonly AssignmentChange[]): string {
 }
 
 function warningLines(record: AnalysisRecord): string {
-  const warnings = (record.result as { warnings?: unknown }).warnings;
-  return Array.isArray(warnings) ? warnings.map((w) => `  warning: ${terminalSafe(String(w))}\n`).join('') : '';
+  return (record.result.warnings ?? []).map((w) => `  warning: ${terminalSafe(w)}\n`).join('');
 }
 
 /** Columns padded to their widest cell; the first row is the header. */
 export function table(rows: string[][], rightAligned: ReadonlySet<number> = new Set()): string {
-  const widths = rows[0]!.map((_, c) => Math.max(...rows.map((r) => [...(r[c] ?? '')].length)));
-  return rows
-    .map((r) => r.map((cell, c) => (rightAligned.has(c) ? cell.padStart(widths[c]!) : cell.padEnd(widths[c]!))).join('  ').trimEnd())
-    .join('\n') + '\n';
+  const align = rows[0]!.map((_, c): ColumnAlign => (rightAligned.has(c) ? 'right' : 'left'));
+  return `${textTableLines(rows, { align }).join('\n')}\n`;
 }
 
 function summaryTable(analyses: AnalysisSummary[]): string {
@@ -459,8 +459,8 @@ function recordText(r: AnalysisRecord): string {
   lines.push(`fit (revision ${r.revision} of ${r.revisions.length}, fieldgap ${r.toolVersion})`, `  ${fitLine(r.summary)}`);
   const s = r.summary;
   if (s.c !== null) lines.push(`  C = ${s.c.toFixed(0)} cm-1${s.status ? `   status ${s.status}` : ''}`);
-  const fit = (r.result as { fit?: { assignments?: { observed?: number; calculated?: number; term?: string }[] } | null }).fit;
-  const assignments = Array.isArray(fit?.assignments) ? fit.assignments : [];
+  // A record saved by an older fieldgap may lack the fit or a field of an assignment.
+  const assignments: Partial<FitResult['assignments'][number]>[] = r.result.fit?.assignments ?? [];
   if (assignments.length > 0) {
     const rows = [['  OBSERVED/cm-1', 'CALCULATED/cm-1', 'TERM']];
     for (const a of assignments) rows.push([`  ${a.observed?.toFixed(0) ?? '-'}`, a.calculated?.toFixed(0) ?? '-', a.term ?? '']);

@@ -1,6 +1,8 @@
 import { parseIon, romanOxidationState } from '../../chemistry/ions.js';
 import { boxArrows } from '../../predict/occupation.js';
 import type { Prediction, UsedFactor } from '../../series/predict.js';
+import { formatPlusMinus } from '../../report/plus-minus.js';
+import { NO_SPIN_STATE_CHOICE } from '../../report/spin-state.js';
 
 /**
  * The readable report of `fieldgap predict`: every line fits an 80-column
@@ -46,8 +48,7 @@ const round = (x: number, step: number): number => Math.round(x / step) * step;
 const cm = (x: number): string => String(Math.round(x));
 
 function pm(value: number, sigma: number | undefined, digits: number): string {
-  if (sigma === undefined) return value.toFixed(digits);
-  return `${value.toFixed(digits)} ± ${sigma.toFixed(digits)}`;
+  return formatPlusMinus(value, sigma, { digits, showZero: true });
 }
 
 function factorText(name: string, f: UsedFactor, digits: number, unit = ''): string {
@@ -103,7 +104,7 @@ export function orbitalLines(p: Prediction): string[] {
 
 function spinText(p: Prediction): string {
   const d = p.spinDecision;
-  if (p.spinState.value === 'no-choice') return 'no high/low-spin choice';
+  if (p.spinState.value === 'no-choice') return NO_SPIN_STATE_CHOICE;
   const probability = d.numbers ? `, ${probabilityText(p.spinState.value === 'low-spin' ? d.numbers.probabilities.lowSpin : d.numbers.probabilities.highSpin)}` : '';
   if (d.decidedBy === 'rule') return `${p.spinState.value} (by rule${probability ? `; numbers alone${probability}` : ''})`;
   return `${p.spinState.value}${d.borderline ? ', BORDERLINE' : ''} (by the numbers${probability})`;
@@ -167,7 +168,7 @@ export function comparisonReport(a: Prediction, b: Prediction): string {
   const decided = (p: Prediction): string => (p.spinDecision.decidedBy === 'rule' ? `rule ${p === a ? 'A' : 'B'} (below)` : p.spinDecision.decidedBy === 'numbers' ? `numbers${p.spinDecision.borderline ? ' (borderline)' : ''}` : 'no spin choice');
   const spin = (p: Prediction): string => {
     const n = p.spinDecision.numbers;
-    if (p.spinState.value === 'no-choice') return 'no choice';
+    if (p.spinState.value === 'no-choice') return NO_SPIN_STATE_CHOICE;
     const prob = n ? `, ${probabilityText(p.spinState.value === 'low-spin' ? n.probabilities.lowSpin : n.probabilities.highSpin)}` : '';
     return p.spinDecision.decidedBy === 'rule' ? p.spinState.value : `${p.spinState.value}${prob}`;
   };

@@ -3,6 +3,7 @@ import { runSubcommand, type CliIo, type Command } from '../command.js';
 import { parseCommandArgs } from '../options.js';
 import { terminalSafe } from '../terminal-text.js';
 import type { Library } from '../../library/library.js';
+import { textTableLines } from '../../report/text-table.js';
 
 /**
  * `fieldgap users`: the users and groups of a shared library, kept in the
@@ -72,8 +73,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
       return 0;
     }
     const rows = [['NAME', 'GROUP', 'ROLE', 'TOKENS', 'CREATED'], ...users.map((u) => [u.name, u.group, u.admin ? 'admin' : 'user', String(u.tokens), u.createdAt])];
-    const widths = rows[0]!.map((_, i) => Math.max(...rows.map((r) => r[i]!.length)));
-    for (const row of rows) io.stdout(`${terminalSafe(row.map((cell, i) => cell.padEnd(widths[i]!)).join('  ').trimEnd())}\n`);
+    for (const line of textTableLines(rows)) io.stdout(`${terminalSafe(line)}\n`);
     return 0;
   },
   token: async (argv, io) => {

@@ -1,4 +1,13 @@
-import type { NewAnalysis } from '../../../src/library/types.js';
+import type { NewAnalysis, StoredResult } from '../../../src/library/types.js';
+
+/**
+ * A stored result with only some fields (or odd values), as an older
+ * fieldgap or another client may have stored it: typed as a StoredResult on
+ * purpose, so the tests can check that the library keeps whatever it got.
+ */
+export function partialResult(value: object): StoredResult {
+  return value as StoredResult;
+}
 
 /**
  * Hand-built records for the storage tests. The "result" is a stand-in with
@@ -20,7 +29,7 @@ export function handBuiltRecord(overrides: Partial<NewAnalysis> = {}, tenDq = 17
     fileName: 'sample-a.csv',
     content,
     options: { ion: 'Cr3+', geometry: 'octahedral', xUnit: 'nm' },
-    result: {
+    result: partialResult({
       spectrum: { points: 3, range: [10_000, 25_000], xUnit: 'nm', yUnit: 'absorbance', masked: [] },
       bands: [{ position: tenDq, kind: 'd-d' }],
       fit: {
@@ -29,7 +38,7 @@ export function handBuiltRecord(overrides: Partial<NewAnalysis> = {}, tenDq = 17
         uncertainty: { tenDq: 150, b: 20, c: 200 },
       },
       warnings: [],
-    },
+    }),
     ...overrides,
   };
 }

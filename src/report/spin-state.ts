@@ -1,0 +1,20 @@
+/**
+ * The one wording of a spin state for people. A d^n and geometry with one
+ * spin state only ('no-choice') is said as NO_SPIN_STATE_CHOICE in every
+ * sentence of the CLI and the page; table cells and CSV keep the value
+ * itself ('high-spin', 'low-spin', 'no-choice'), and the page's cards their
+ * short words (spinStateWords).
+ */
+import type { SpinState } from '../ligand-field/types.js';
+
+export const NO_SPIN_STATE_CHOICE = 'no high/low-spin choice';
+
+/** "no high/low-spin choice for d3 octahedral", or the state itself. */
+export function spinStateSentence(spinState: SpinState, d: number, geometry: string): string {
+  return spinState === 'no-choice' ? `${NO_SPIN_STATE_CHOICE} for d${d} ${geometry}` : spinState;
+}
+
+/** Short words for a card or cell on the page: "high spin", "low spin", "one possible"; unknown words pass through. */
+export function spinStateWords(spinState: SpinState | string): string {
+  return spinState === 'no-choice' ? 'one possible' : spinState.replace('-', ' ');
+}
