@@ -8,8 +8,8 @@
  * - a branch with a single transition in its class (d1, d9, high-spin d4
  *   and d6) takes two or three unflagged bands within a ratio of 1.6 of each
  *   other as Jahn–Teller components of that one transition, at their
- *   intensity-weighted centroid (only when no unflagged band was left out
- *   or merged);
+ *   intensity-weighted centroid (observations.ts; only when no band was
+ *   left out or merged);
  * - one unflagged band and nothing else gives a "Dq only" candidate when the
  *   branch has a transition at exactly 10Dq (dqOnlyLevel): 10Dq from the
  *   band, B not determinable; not from a reduction that left out or merged
@@ -102,9 +102,8 @@ export function branchVariant(branch: Branch, reduction: Reduction): Variant | u
   const penalties: Penalty[] = [...reduction.penalties];
   if (cls.levels.length === 1 && primary.length >= 2) {
     const ratio = primary[primary.length - 1]!.position / primary[0]!.position;
-    // Averaging components after leaving unflagged bands out stacks one repair on another: not a fit of what was
-    // measured. Bands flagged spin-forbidden may be left (their term charged), as everywhere.
-    if (primary.length > 3 || ratio > JAHN_TELLER_MAX_RATIO || reduction.touchesUnflagged) return undefined;
+    // Averaging components after leaving bands out stacks one repair on another: not a fit of what was measured.
+    if (primary.length > 3 || ratio > JAHN_TELLER_MAX_RATIO || reduction.penalty > 0) return undefined;
     jahnTeller = primary;
     penalties.push(jahnTellerPenalty(primary));
     primary = [averageObservations(primary)];

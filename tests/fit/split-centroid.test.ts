@@ -59,18 +59,6 @@ describe('intensity-weighted centroid of split components', () => {
     expect(plain.notes.join(' ')).toMatch(/mean \(no intensities/);
   });
 
-  it('leaves a flagged stray band out and still reads the split components of a one-transition ion at their centroid', () => {
-    // [Cu(H2O)6]2+: one broad Jahn–Teller-split band near 12 500 cm-1 (Lever 1984, from memory); 27 700 stands for a
-    // weak sharp feature the spectrum stage flagged spin-forbidden. The areas are invented.
-    const r = fitBands({ ion: 'Cu2+', bands: [{ position: 10_400, area: 500 }, { position: 13_600, area: 1500 }, { position: 27_700, area: 5, flags: ['sf'] }] });
-    expect(r.assignments.map((a) => a.bands)).toEqual([[0, 1]]);
-    expect(r.tenDq).toBeCloseTo(centroidReference([10_400, 13_600], [500, 1500]), 0);
-    expect(r.unassigned.map((u) => u.observed)).toEqual([27_700]);
-    expect(r.warnings.join(' ')).toMatch(/27700 cm-1.*left unexplained/);
-    // Not after leaving an unflagged band out: that would stack one repair on another (fails as before).
-    expect(() => fitBands({ ion: 'Cu2+', bands: [10_400, 13_600, 27_700] })).toThrow(/no assignment explains/);
-  });
-
   it('takes a close pair read as one split band at its 1/σ²-weighted mean (equal weights without σ)', () => {
     // The 3T1g(F) band of hexaaqua Ni(II) shows a spin–orbit doublet near 13 800 and 15 300 cm-1 beside ν1 ≈ 8 500 and
     // ν3 ≈ 25 300 (Lever 1984, from memory); the areas are invented and not used for a pair (precisionWeights says why).
