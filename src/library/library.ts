@@ -3,7 +3,7 @@ import { FieldgapError, invalidArgument, isFieldgapError } from '../errors.js';
 import { packageVersion as toolVersion } from '../version.js';
 import { DIALECT_SQL, type SqlEngine, type SqlTx } from './engine.js';
 import { openPostgresEngine, type PostgresEngineOptions } from './postgres-engine.js';
-import { fitParams, likeWord, revisionFromRow, SUMMARY_COLUMNS, SUMMARY_SELECT, summaryFromRow, type FitColumns, type RevisionRow, type SummaryRow } from './rows.js';
+import { fitParams, likeWord, revisionFromRow, SUMMARY_SELECT, summaryFromRow, type FitColumns, type RevisionRow, type SummaryRow } from './rows.js';
 import { LIBRARY_FILE, openSqliteEngine, type SqliteEngineOptions } from './sqlite-engine.js';
 import { ionOfResult, summarizeResult } from './summary.js';
 import type {
@@ -293,16 +293,6 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
       const { where, params } = filterSql(options);
       const countQuery = `SELECT CAST(count(*) AS INTEGER) AS n FROM analyses a ${where}`;
       return engine.read(async (tx) => {
-        if (words(options.query).length > 0) {
-          // A search tests every record's text: one scan gives the page and the count (a window over all matches).
-          const rows = await tx.all<SummaryRow & { matches: number }>(
-            `SELECT ${SUMMARY_COLUMNS}, CAST(count(*) OVER () AS INTEGER) AS matches FROM analyses a ${where} ORDER BY a.id DESC LIMIT ? OFFSET ?`,
-            [...params, limit, offset],
-          );
-          // A page past the end has no row to carry the count.
-          const total = rows.length > 0 ? Number(rows[0]!.matches) : (await tx.get<{ n: number }>(countQuery, params))!.n;
-          return { analyses: rows.map(({ matches: _m, ...row }) => summaryFromRow(row)), total, limit, offset };
-        }
         const total = (await tx.get<{ n: number }>(countQuery, params))!.n;
         const rows = await tx.all<SummaryRow>(`${SUMMARY_SELECT} ${where} ORDER BY a.id DESC LIMIT ? OFFSET ?`, [...params, limit, offset]);
         return { analyses: rows.map(summaryFromRow), total, limit, offset };

@@ -68,7 +68,7 @@ forEachEngine('many records in one transaction, and the current revision in the 
     });
   });
 
-  describe('a search counts its matches in the same scan as its page', () => {
+  describe('a search counts all its matches on every page', () => {
     it('gives the total of every match on each page, and past the last one', async () => {
       await library.addMany(Array.from({ length: 23 }, (_v, i) => handBuiltRecord({ sample: `s${i}`, note: i % 2 === 0 ? 'urea batch' : 'other' })));
       const all = (await library.listAll({ query: 'urea' })).map((r) => r.id);
