@@ -291,8 +291,9 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
       const limit = pageNumber('limit', options.limit, 50, 1, 1000);
       const offset = pageNumber('offset', options.offset, 0, 0, Number.MAX_SAFE_INTEGER);
       const { where, params } = filterSql(options);
+      const countQuery = `SELECT CAST(count(*) AS INTEGER) AS n FROM analyses a ${where}`;
       return engine.read(async (tx) => {
-        const total = (await tx.get<{ n: number }>(`SELECT CAST(count(*) AS INTEGER) AS n FROM analyses a ${where}`, params))!.n;
+        const total = (await tx.get<{ n: number }>(countQuery, params))!.n;
         const rows = await tx.all<SummaryRow>(`${SUMMARY_SELECT} ${where} ORDER BY a.id DESC LIMIT ? OFFSET ?`, [...params, limit, offset]);
         return { analyses: rows.map(summaryFromRow), total, limit, offset };
       });

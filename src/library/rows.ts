@@ -12,12 +12,13 @@ import type { AnalysisDetails, AnalysisSummary, FitSummary, RevisionInfo, Stored
  * and hash, and its latest revision's number, version and fit (copies kept
  * in the analyses row since schema step 5, so a list reads one table).
  */
-export const SUMMARY_SELECT = `
-  SELECT a.id, a.created_at, a.updated_at, a.sample, a.formula, a.ion, a.ligands, a.solvent,
-         a.temperature, a.measured_on, a.note, a.original_name, a.original_sha256, a.original_size,
-         a.revision, a.tool_version, a.ten_dq, a.ten_dq_sd, a.b, a.b_sd, a.c, a.beta, a.beta_sd,
-         a.spin_state, a.rms, a.status
-  FROM analyses a`;
+export const SUMMARY_COLUMNS = `
+  a.id, a.created_at, a.updated_at, a.sample, a.formula, a.ion, a.ligands, a.solvent,
+  a.temperature, a.measured_on, a.note, a.original_name, a.original_sha256, a.original_size,
+  a.revision, a.tool_version, a.ten_dq, a.ten_dq_sd, a.b, a.b_sd, a.c, a.beta, a.beta_sd,
+  a.spin_state, a.rms, a.status`;
+
+export const SUMMARY_SELECT = `SELECT ${SUMMARY_COLUMNS} FROM analyses a`;
 
 export interface FitColumns {
   ten_dq: number | null;

@@ -71,26 +71,45 @@ export function fitCheckedLigandFactors(analyses: readonly SeriesAnalysis[], sha
   const fSamples = new Map<string, Sample[]>();
   const hSamples = new Map<string, Sample[]>();
   const notes: string[] = [];
-  analyses.forEach((a, index) => {
-    const at = `analyses[${index}]`;
-    const shares = ligandShares(a, at).map((s) => ({ ...s, positions: s.count * (ligandByKey(s.ligand)?.denticity ?? 1) }));
-    const positions = shares.reduce((n, s) => n + s.positions, 0);
-    const fUnknown = shares.length === 1 ? shares : shares.filter((s) => knownF(s.ligand) === undefined);
-    if (fUnknown.length !== 1) {
-      notes.push(`${at} (${a.sample}): ${fUnknown.length === 0 ? 'every ligand already has an f' : 'more than one ligand without an f'}: gives no f`);
-    } else {
-      const x = fUnknown[0] as (typeof shares)[number];
-      const rest = shares.filter((s) => s !== x).reduce((sum, s) => sum + s.positions * (knownF(s.ligand) as number), 0);
-      const scale = positions / (g * x.positions);
-      push(fSamples, x.ligand, { value: a.tenDq * scale - rest / x.positions, sigma: a.tenDqUncertainty === undefined ? undefined : a.tenDqUncertainty * scale, index });
+  // What a complex's ligands give (the unknown ligand, its scale and the known rest) depends on its
+  // ligands alone: worked out once per distinct set, then applied to each analysis's numbers.
+  const plans = new Map<string, CompositionPlan>();
+  const planOf = (a: SeriesAnalysis, at: string): CompositionPlan => {
+    const key = a.ligand !== undefined ? `1${a.ligand}` : `*${(a.ligands ?? []).map((l) => `${l.ligand}\u0000${l.count}`).join('\u0001')}`;
+    let plan = plans.get(key);
+    if (plan === undefined) {
+      const shares = ligandShares(a, at).map((s) => ({ ...s, positions: s.count * (ligandByKey(s.ligand)?.denticity ?? 1) }));
+      const positions = shares.reduce((n, s) => n + s.positions, 0);
+      const fUnknown = shares.length === 1 ? shares : shares.filter((s) => knownF(s.ligand) === undefined);
+      let f: CompositionPlan['f'];
+      if (fUnknown.length !== 1) {
+        f = fUnknown.length === 0 ? 'every ligand already has an f' : 'more than one ligand without an f';
+      } else {
+        const x = fUnknown[0] as (typeof shares)[number];
+        const rest = shares.filter((s) => s !== x).reduce((sum, s) => sum + s.positions * (knownF(s.ligand) as number), 0);
+        f = { ligand: x.ligand, scale: positions / (g * x.positions), restPerPosition: rest / x.positions };
+      }
+      let h: CompositionPlan['h'];
+      const hUnknown = shares.length === 1 ? shares : shares.filter((s) => knownH(s.ligand) === undefined);
+      if (k !== undefined && hUnknown.length === 1) {
+        const x = hUnknown[0] as (typeof shares)[number];
+        const rest = shares.filter((s) => s !== x).reduce((sum, s) => sum + s.positions * (knownH(s.ligand) as number), 0);
+        h = { ligand: x.ligand, scale: positions / (k * x.positions), restPerPosition: rest / x.positions };
+      }
+      plan = { f, h };
+      plans.set(key, plan);
     }
-    if (a.beta === undefined || k === undefined) return;
-    const hUnknown = shares.length === 1 ? shares : shares.filter((s) => knownH(s.ligand) === undefined);
-    if (hUnknown.length !== 1) return;
-    const x = hUnknown[0] as (typeof shares)[number];
-    const rest = shares.filter((s) => s !== x).reduce((sum, s) => sum + s.positions * (knownH(s.ligand) as number), 0);
-    const scale = positions / (k * x.positions);
-    push(hSamples, x.ligand, { value: (1 - a.beta) * scale - rest / x.positions, sigma: a.betaUncertainty === undefined ? undefined : a.betaUncertainty * scale, index });
+    return plan;
+  };
+  analyses.forEach((a, index) => {
+    const { f, h } = planOf(a, `analyses[${index}]`);
+    if (typeof f === 'string') {
+      notes.push(`analyses[${index}] (${a.sample}): ${f}: gives no f`);
+    } else {
+      push(fSamples, f.ligand, { value: a.tenDq * f.scale - f.restPerPosition, sigma: a.tenDqUncertainty === undefined ? undefined : a.tenDqUncertainty * f.scale, index });
+    }
+    if (a.beta === undefined || h === undefined) return;
+    push(hSamples, h.ligand, { value: (1 - a.beta) * h.scale - h.restPerPosition, sigma: a.betaUncertainty === undefined ? undefined : a.betaUncertainty * h.scale, index });
   });
   if (k === undefined) notes.push(`no tabulated k for ${ion.label}: h is not fitted (give k yourself)`);
   const factors: LigandFactor[] = [...fSamples].map(([ligand, samples]) => {
@@ -111,6 +130,13 @@ export function fitCheckedLigandFactors(analyses: readonly SeriesAnalysis[], sha
   });
   const source = options.g === undefined ? JORGENSEN_SOURCE : 'g (and k) given by the user';
   return { ion: ion.label, g, k, source, factors, notes };
+}
+
+/** What one set of ligands gives: the ligand whose factor it measures, scale = N / (g·n_x), and Σ n_j f_j / n_x of the others; or why it gives none. */
+interface CompositionPlan {
+  f: { ligand: string; scale: number; restPerPosition: number } | string;
+  /** Undefined when k is unknown or the set has no single ligand without an h. */
+  h: { ligand: string; scale: number; restPerPosition: number } | undefined;
 }
 
 interface Sample {

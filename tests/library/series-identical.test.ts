@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { isFieldgapError } from '../../src/errors.js';
 import { buildSeries, seriesAnalysisOf, type SeriesReport, type SeriesSource } from '../../src/library/series.js';
 import { canonicalIon } from '../../src/library/validate.js';
-import { fitLigandFactors, rankByNephelauxetic, rankByTenDq, type FactorFit, type RankOptions, type SeriesAnalysis } from '../../src/series/index.js';
+import { referenceFactorSamples } from '../reference/ligand-factor-samples.js';
+import { combine, fitLigandFactors, rankByNephelauxetic, rankByTenDq, type FactorFit, type RankOptions, type SeriesAnalysis } from '../../src/series/index.js';
 
 /**
  * buildSeries checks the analyses once, reads each formula and ligand
@@ -77,6 +78,31 @@ function sources(count: number, seed: number): SeriesSource[] {
     return source;
   });
 }
+
+describe('fitLigandFactors, one plan per set of ligands, against the per-analysis reference', () => {
+  it.each([1, 2, 3])('gives the same samples, means and notes for 3 000 varied analyses (seed %i)', (seed) => {
+    const analyses = sources(3_000, seed).flatMap((s) => {
+      const made = seriesAnalysisOf(s);
+      return typeof made === 'string' ? [] : [made];
+    });
+    const fast = fitLigandFactors(analyses, { ion: 'Cr3+' });
+    const slow = referenceFactorSamples(analyses, fast.g, fast.k);
+    expect(fast.notes.slice(0, slow.notes.length)).toEqual(slow.notes);
+    expect(fast.factors.map((f) => f.ligand)).toEqual([...slow.f.keys()]);
+    for (const factor of fast.factors) {
+      const fs = slow.f.get(factor.ligand)!;
+      expect(factor.fFrom).toEqual(fs.map((s) => s.index));
+      expect({ value: factor.f, sigma: factor.fUncertainty }).toEqual(combine(fs));
+      const hs = slow.h.get(factor.ligand);
+      if (hs) {
+        expect(factor.hFrom).toEqual(hs.map((s) => s.index));
+        expect({ value: factor.h, sigma: factor.hUncertainty }).toEqual(combine(hs));
+      } else {
+        expect(factor.h).toBeUndefined();
+      }
+    }
+  });
+});
 
 describe('buildSeries, checked once, against the reference that checks everything thrice', () => {
   it.each([1, 2, 3])('gives the same report for 3 000 varied analyses (seed %i)', (seed) => {

@@ -68,6 +68,20 @@ forEachEngine('many records in one transaction, and the current revision in the 
     });
   });
 
+  describe('a search counts all its matches on every page', () => {
+    it('gives the total of every match on each page, and past the last one', async () => {
+      await library.addMany(Array.from({ length: 23 }, (_v, i) => handBuiltRecord({ sample: `s${i}`, note: i % 2 === 0 ? 'urea batch' : 'other' })));
+      const all = (await library.listAll({ query: 'urea' })).map((r) => r.id);
+      expect(all).toHaveLength(12);
+      const pages = [];
+      for (const offset of [0, 5, 10, 12, 40]) pages.push(await library.list({ query: 'urea', limit: 5, offset }));
+      expect(pages.map((p) => p.total)).toEqual([12, 12, 12, 12, 12]);
+      expect(pages.map((p) => p.analyses.map((a) => a.id))).toEqual([all.slice(0, 5), all.slice(5, 10), all.slice(10, 12), [], []]);
+      expect(pages[0]!.analyses[0]).toEqual((await library.listAll({ query: 'urea' }))[0]);
+      expect(await library.list({ query: 'nothing like this' })).toMatchObject({ total: 0, analyses: [] });
+    });
+  });
+
   describe('getMany', () => {
     it('gives the full records in the order asked, each as get gives it, leaving out ids not there', async () => {
       const saved = (await library.addMany([1, 2, 3, 4].map((i) => handBuiltRecord({ sample: `s${i}` }, 17_000 + i)))) as AnalysisRecord[];
