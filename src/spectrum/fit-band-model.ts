@@ -20,9 +20,9 @@
  *    boundaries), kept only by the criterion; then step 2–3 again.
  */
 import { gaussianValue } from './gaussian.js';
-import { type BandCandidate, xyFindBandCandidates } from './xyFindBandCandidates.js';
-import { xPolynomialScale, xPolynomialValues, xyPolynomialFit } from './xyPolynomial.js';
-import { type GaussianParameters, type RefineBandsResult, xyRefineBands } from './xyRefineBands.js';
+import { type BandCandidate, xyFindBandCandidates } from './xy-find-band-candidates.js';
+import { xPolynomialScale, xPolynomialValues, xyPolynomialFit } from './xy-polynomial.js';
+import { type GaussianParameters, type RefineBandsResult, xyRefineBands } from './xy-refine-bands.js';
 import { median } from '../numeric/median.js';
 
 export interface FitBandsOptions {
