@@ -1,5 +1,5 @@
 import { Matrix, SingularValueDecomposition } from 'ml-matrix';
-import { freeIonRacah } from '../chemistry/free-ion.js';
+import { freeIonRacah } from '../chemistry/free-ion-racah.js';
 import { parseIon, type Ion } from '../chemistry/ions.js';
 import { FieldgapError, invalidArgument } from '../errors.js';
 import { normalizeBands, type BandInput, type ObservedBand } from '../fit/bands.js';

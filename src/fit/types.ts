@@ -35,7 +35,7 @@ export interface FitInput {
   ligands?: string | readonly string[];
 }
 
-/** Tuning of the fit; every field has a documented default (see fit-bands.ts). */
+/** Tuning of the fit; every field has a documented default (see fit-ligand-field.ts). */
 export interface FitOptions {
   /** Transitions above this are left out of `predicted`. Default 50 000 cm-1. */
   predictedLimit?: number;
