@@ -4,7 +4,7 @@
  * method and likelihood.ts for the one score that chooses between
  * assignments (penalties.ts computes its named terms).
  */
-export { fitBands, unexplainedThreshold } from './fit-ligand-field.js';
+export { fitLigandField, fitBands, unexplainedThreshold } from './fit-ligand-field.js';
 export { parseBandList, normalizeBands, BAND_FLAGS, type BandFlag, type BandInput, type ObservedBand } from './bands.js';
 export { leastSquares, type LeastSquaresOptions, type LeastSquaresResult } from './least-squares.js';
 export { jacobianCovariance } from './covariance.js';

@@ -48,7 +48,7 @@
 import { FieldgapError, invalidArgument } from '../errors.js';
 import { defaultThresholds, type ClassificationThresholds } from './band-classify.js';
 import { bandsFromFit } from './bands-from-fit.js';
-import { fitBands } from './fit-band-model.js';
+import { fitBandModel } from './fit-band-model.js';
 import { gaussianValue } from './gaussian.js';
 import { spectrumToEnergy } from './spectrum-to-energy.js';
 import type { MaskReason, ProcessedSpectrum, Spectrum, StepCorrection } from './types.js';
@@ -204,7 +204,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
     warnings.push('no band stands out of the noise');
     return empty();
   }
-  const fit = fitBands(fx, fy, { candidates, edge, baselineGuess, baselineOrder, noise: sigma, beyondLowEnd: BEYOND_LOW_END, uncertainFraction: smooth ? 0.2 : 0.5, minAddedFraction: smooth ? 0.1 : 0, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
+  const fit = fitBandModel(fx, fy, { candidates, edge, baselineGuess, baselineOrder, noise: sigma, beyondLowEnd: BEYOND_LOW_END, uncertainFraction: smooth ? 0.2 : 0.5, minAddedFraction: smooth ? 0.1 : 0, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
   const polynomial = (xs: Float64Array) => xPolynomialValues(xs, fit.baselineCoefficients, fit.scale);
   const baseline = polynomial(grid);
   if (fit.edge !== null) for (let i = 0; i < grid.length; i++) baseline[i] = (baseline[i] as number) + gaussianValue(grid[i] as number, fit.edge.position, fit.edge.height, fit.edge.fwhm);
