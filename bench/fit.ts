@@ -1,5 +1,5 @@
 /**
- * Benchmark of fitBands with automatic assignment: median time of one fit
+ * Benchmark of fitLigandField with automatic assignment: median time of one fit
  * per d^n, geometry and spin branch, on the band sets of the round-trip test
  * (the engine's spin-allowed transitions below 50 000 cm-1, the lowest six;
  * quartets for high-spin d5) at B = 800 cm-1, C/B = 4.5. "cold" is the first
@@ -10,7 +10,7 @@
  * on a shared machine the wall clock includes waiting for a core.
  */
 import { engineCallCount } from '../src/fit/engine.js';
-import { fitBands, type FitInput } from '../src/fit/index.js';
+import { fitLigandField, type FitInput } from '../src/fit/index.js';
 import { computeLevels } from '../src/ligand-field/index.js';
 import type { Geometry } from '../src/ligand-field/types.js';
 
@@ -65,9 +65,9 @@ export async function run(): Promise<void> {
   let worst = 0;
   for (const { name, input } of cases()) {
     let t0 = performance.now();
-    let first: ReturnType<typeof fitBands>;
+    let first: ReturnType<typeof fitLigandField>;
     try {
-      first = fitBands(input);
+      first = fitLigandField(input);
     } catch (error) {
       rows.push([name, String(Array.isArray(input.bands) ? input.bands.length : 0), `fails: ${(error as Error).message.slice(0, 40)}`, '', '', '', '', '']);
       continue;
@@ -80,7 +80,7 @@ export async function run(): Promise<void> {
       const c0 = engineCallCount();
       const u0 = process.cpuUsage();
       t0 = performance.now();
-      fitBands(input);
+      fitLigandField(input);
       times.push(performance.now() - t0);
       const u = process.cpuUsage(u0);
       cpu.push((u.user + u.system) / 1000);

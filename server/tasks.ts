@@ -7,7 +7,7 @@
  */
 import { analyzeSpectrum, type AnalyzeOptions } from '../src/analysis.js';
 import { FieldgapError, isFieldgapError, type ErrorCode } from '../src/errors.js';
-import { fitBands, type FitInput } from '../src/fit/index.js';
+import { fitLigandField, type FitInput } from '../src/fit/index.js';
 import {
   computeFieldDiagram, computeFieldLevels, computeLevels, diagramDocument, fieldDiagramDocument, fieldLevelsDocument, levelsDocument,
   type FieldDiagramAxis,
@@ -111,7 +111,7 @@ function runTask(task: Task): unknown {
       return diagramDocument(d, geometry, { cOverB, maxDqOverB, steps });
     }
     case 'fit':
-      return fitBands(task.input);
+      return fitLigandField(task.input);
     case 'analyze':
       return analyzeSpectrum(task.input.content, task.input.options);
     default: {

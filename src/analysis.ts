@@ -8,7 +8,7 @@ import { checkCorrections, fitWithAlternative, type AnalysisCorrections } from '
 import { parseFormula } from './chemistry/formula.js';
 import { FieldgapError, invalidArgument } from './errors.js';
 import { bandToFitInput } from './band-fit-input.js';
-import { fitBands, type FitResult } from './fit/index.js';
+import { fitLigandField, type FitResult } from './fit/index.js';
 import type { Geometry } from './ligand-field/types.js';
 import { gaussianValue } from './spectrum/gaussian.js';
 import { parseSpectrumText, processSpectrum } from './spectrum/index.js';
@@ -140,7 +140,7 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
   }
   let fit: FitResult;
   try {
-    fit = fitBands({
+    fit = fitLigandField({
       ...(options.ion !== undefined && { ion: options.ion }),
       ...(options.d !== undefined && { d: options.d }),
       geometry,

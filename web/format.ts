@@ -61,7 +61,7 @@ export function levelLabel(term: string, parent: string | undefined, label?: str
 }
 
 /** "high-spin" → "high spin"; unknown words pass through (src/report's one wording). */
-export { spinStateWords as spinStateText } from '../src/report/spin-state.js';
+export { spinStateWords as spinStateText } from '../src/report/spin-state-wording.js';
 
 /** "d7" with a superscript count, for headings. */
 export function dCountText(d: number): string {

@@ -12,6 +12,7 @@ import type { BandFlag } from '../src/fit/bands.js';
 import type { ErrorCode } from '../src/errors.js';
 import type { FitResult as CoreFit, Alternative as CoreAlternative } from '../src/fit/types.js';
 import type { FitSummary } from '../src/library/types.js';
+import type { RankedEntry, Ranking } from '../src/series/types.js';
 
 export type { BandFlag, BandKind, Diagram, DiagramLine, Geometry, XUnit };
 
@@ -163,29 +164,8 @@ export interface LibraryRecord extends LibraryRow {
   result: AnalyzeResult;
 }
 
-/** One analysis in its place in a ranking (weakest first). */
-export interface RankedEntry {
-  position: number;
-  index: number;
-  id?: string;
-  sample: string;
-  ligandLabel: string;
-  /** 10Dq (cm-1) in the spectrochemical ranking, 1 − β in the nephelauxetic one. */
-  value: number;
-  uncertainty: number;
-  overlapsNext: boolean;
-}
-
-export interface Ranking {
-  kind: 'spectrochemical' | 'nephelauxetic';
-  quantity: string;
-  criterion: 'one-sigma' | 'two-sigma';
-  entries: RankedEntry[];
-  overlaps: { lower: number; upper: number; difference: number; combinedUncertainty: number }[];
-  /** "Cl < F < H2O ~ ox < NH3". */
-  series: string;
-  skipped: { index: number; sample: string; reason: string }[];
-}
+/** A ranking and its entries (weakest first): the core's types (src/series/types.ts), type-only. */
+export type { RankedEntry, Ranking };
 
 export interface LigandFactor {
   ligand: string;

@@ -8,7 +8,7 @@ export {
   parseIon, ionFromOxidationState, ionLabel, romanOxidationState, chargeFromText,
   ION_FORMS, MIN_OXIDATION_STATE, MAX_OXIDATION_STATE, type Ion, type ParseIonOptions,
 } from './ions.js';
-export { freeIonRacah, FREE_ION_RACAH, type FreeIonRacah } from './free-ion.js';
+export { freeIonRacah, FREE_ION_RACAH, type FreeIonRacah } from './free-ion-racah.js';
 export { LIGANDS, findLigand, ligandByKey, bareLigandAt, type Ligand } from './ligands.js';
 export { counterIonAt, counterIonByFormula, type CounterIon } from './counter-ions.js';
 export { parseFormula, type ParsedComplex, type LigandCount, type CounterIonCount } from './formula.js';

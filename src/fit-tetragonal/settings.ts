@@ -1,4 +1,4 @@
-import { freeIonRacah } from '../chemistry/free-ion.js';
+import { freeIonRacah } from '../chemistry/free-ion-racah.js';
 import { parseIon, type Ion } from '../chemistry/ions.js';
 import { invalidArgument } from '../errors.js';
 import { normalizeBands, type ObservedBand } from '../fit/bands.js';

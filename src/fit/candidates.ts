@@ -42,7 +42,7 @@ export interface Variant {
   dropped: Observation[];
   /** Pairs of bands read as one split band (averaged). */
   merged: Observation[][];
-  /** Unflagged bands were left out or merged: the fit must then be plausible on its own (fit-bands.ts). */
+  /** Unflagged bands were left out or merged: the fit must then be plausible on its own (fit-ligand-field.ts). */
   touchesUnflagged: boolean;
   /** Components averaged into the one primary observation, if any. */
   jahnTeller: Observation[] | null;

@@ -1,10 +1,10 @@
 /**
  * Fitting 10Dq, Racah B and C to observed d–d band maxima: automatic
- * assignment, spin-state logic, uncertainties. See fit-bands.ts for the
+ * assignment, spin-state logic, uncertainties. See fit-ligand-field.ts for the
  * method and likelihood.ts for the one score that chooses between
  * assignments (penalties.ts computes its named terms).
  */
-export { fitBands, unexplainedThreshold } from './fit-bands.js';
+export { fitLigandField, fitBands, unexplainedThreshold } from './fit-ligand-field.js';
 export { parseBandList, normalizeBands, BAND_FLAGS, type BandFlag, type BandInput, type ObservedBand } from './bands.js';
 export { leastSquares, type LeastSquaresOptions, type LeastSquaresResult } from './least-squares.js';
 export { jacobianCovariance } from './covariance.js';

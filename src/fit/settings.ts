@@ -6,7 +6,7 @@
  * table has it, else 4.5, a typical value for first-row ions), a fixed C
  * (`c`), or a free third parameter (`freeC`). At most one may be given.
  */
-import { freeIonRacah } from '../chemistry/free-ion.js';
+import { freeIonRacah } from '../chemistry/free-ion-racah.js';
 import { parseIon, type Ion } from '../chemistry/ions.js';
 import { findLigand } from '../chemistry/ligands.js';
 import { parseFormula, type ParsedComplex } from '../chemistry/formula.js';

@@ -1,5 +1,5 @@
 /**
- * The shapes of a band fit: what fitBands takes and the plain-JSON result it
+ * The shapes of a band fit: what fitLigandField takes and the plain-JSON result it
  * returns (it goes over HTTP and into a database). Energies in cm-1; level
  * energies from the ground level; terms as the engine writes them ("4T1g").
  */
@@ -35,7 +35,7 @@ export interface FitInput {
   ligands?: string | readonly string[];
 }
 
-/** Tuning of the fit; every field has a documented default (see fit-bands.ts). */
+/** Tuning of the fit; every field has a documented default (see fit-ligand-field.ts). */
 export interface FitOptions {
   /** Transitions above this are left out of `predicted`. Default 50 000 cm-1. */
   predictedLimit?: number;

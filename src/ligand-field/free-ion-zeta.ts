@@ -4,7 +4,7 @@
  * against which a fitted ζ is judged (in complexes ζ is reduced, typically to
  * 70–90 % of the free ion's value, as B is).
  *
- * Honesty about the numbers, as in the B0/C0 table (src/chemistry/free-ion.ts):
+ * Honesty about the numbers, as in the B0/C0 table (src/chemistry/free-ion-racah.ts):
  * most values are recalled ("from memory") from the table the usual texts
  * reproduce (Griffith, The Theory of Transition-Metal Ions, 1961, Appendix 6;
  * Figgis & Hitchman, Ligand Field Theory and Its Applications, 2000, free-ion

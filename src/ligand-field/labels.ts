@@ -1,4 +1,4 @@
-import type { TermComponent } from './free-ion.js';
+import type { TermComponent } from './free-ion-terms.js';
 import type { CubicIrrep, Geometry } from './types.js';
 
 /**

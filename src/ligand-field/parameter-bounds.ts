@@ -2,7 +2,7 @@
  * The ranges of ligand-field parameters fieldgap accepts at its edges (CLI
  * options, REST fields), in cm-1. They are wide enough for every d^n
  * complex and narrow enough that the engine's numbers stay meaningful:
- * the free-ion B0 tabulated in src/chemistry/free-ion.ts run from 718 to
+ * the free-ion B0 tabulated in src/chemistry/free-ion-racah.ts run from 718 to
  * 1 244 cm-1 and C0 from 2 629 to 4 976 cm-1 (3d ions; 4d and 5d ions have
  * smaller B, from memory), complexes reduce B by β ≥ ~0.2, and 10Dq of known
  * complexes stays below ~50 000 cm-1 (common practice). The bounds leave a

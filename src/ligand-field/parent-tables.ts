@@ -1,4 +1,4 @@
-import { termEnergiesUnitBInto, termEntries, termOrder, type TermEntry } from './free-ion.js';
+import { termEnergiesUnitBInto, termEntries, termOrder, type TermEntry } from './free-ion-terms.js';
 import { parentTableOf, type ParentTable } from './labels.js';
 import { LruCache } from './lru-cache.js';
 

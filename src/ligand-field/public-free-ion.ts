@@ -1,4 +1,4 @@
-import { freeIonTermsUnchecked } from './free-ion.js';
+import { freeIonTermsUnchecked } from './free-ion-terms.js';
 import type { FreeIonTerm } from './types.js';
 import { validateD, validateFinite } from './validate.js';
 

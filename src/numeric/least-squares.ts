@@ -1,7 +1,7 @@
 /**
  * The one nonlinear least-squares solver of fieldgap: bounded
  * Levenberg–Marquardt over Float64Array, used by the band fit of a spectrum
- * (src/spectrum/levenbergMarquardt.ts, an adapter) and by the ligand-field
+ * (src/spectrum/levenberg-marquardt.ts, an adapter) and by the ligand-field
  * fit (src/fit/least-squares.ts re-exports it).
  *
  * Minimises S(θ) = Σ r_i(θ)² within lower ≤ θ ≤ upper. Two ways in:

@@ -1,5 +1,5 @@
 import { FieldgapError } from '../errors.js';
-import { freeIonRacah } from '../chemistry/free-ion.js';
+import { freeIonRacah } from '../chemistry/free-ion-racah.js';
 import { parseFormula, type LigandCount, type ParsedComplex } from '../chemistry/formula.js';
 import type { Ion } from '../chemistry/ions.js';
 import { computeLevels, type SpinState } from '../ligand-field/index.js';

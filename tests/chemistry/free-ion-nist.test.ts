@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { freeIonRacah } from '../../src/chemistry/free-ion.js';
+import { freeIonRacah } from '../../src/chemistry/free-ion-racah.js';
 import { parseIon } from '../../src/chemistry/ions.js';
 import { freeIonZeta } from '../../src/ligand-field/free-ion-zeta.js';
 import { freeIonTerms } from '../../src/ligand-field/public-free-ion.js';

@@ -1,5 +1,5 @@
 import { computeFieldLevels } from '../../src/ligand-field/field-levels.js';
-import { freeIonTermsUnchecked } from '../../src/ligand-field/free-ion.js';
+import { freeIonTermsUnchecked } from '../../src/ligand-field/free-ion-terms.js';
 import type { Level, ObservedIon } from './nist-levels.js';
 
 /**

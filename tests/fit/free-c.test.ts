@@ -10,7 +10,7 @@ import { describe, expect, it } from 'vitest';
 import { candidateAt, candidateGroups } from '../../src/fit/candidates.js';
 import { scanBranches, enumerateAssignments } from '../../src/fit/enumerate.js';
 import { freeCStart } from '../../src/fit/free-c-start.js';
-import { FREE_C_RATIOS, fitBands } from '../../src/fit/fit-bands.js';
+import { FREE_C_RATIOS, fitBands } from '../../src/fit/fit-ligand-field.js';
 import { candidateOnScan } from '../../src/fit/move-candidate.js';
 import { sortObservations } from '../../src/fit/observations.js';
 import { bestScale, gridOptimum } from '../../src/fit/profile.js';

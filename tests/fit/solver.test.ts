@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import {
   leastSquares, leastSquaresNormal, LEAST_SQUARES_MESSAGES, type NormalEquationsProblem,
 } from '../../src/numeric/least-squares.js';
-import { levenbergMarquardtNormal } from '../../src/spectrum/levenbergMarquardt.js';
+import { levenbergMarquardtNormal } from '../../src/spectrum/levenberg-marquardt.js';
 import { seededRandom, uniform } from './random.js';
 
 /** Σr² of a residual function at params. */

@@ -1,5 +1,5 @@
 import { describe, expect, it, vi } from 'vitest';
-import { freeIonRecordsUnitB, termEnergiesUnitBInto, termEntries, termOrder } from '../../src/ligand-field/free-ion.js';
+import { freeIonRecordsUnitB, termEnergiesUnitBInto, termEntries, termOrder } from '../../src/ligand-field/free-ion-terms.js';
 import { parentTableOf } from '../../src/ligand-field/labels.js';
 import { LruCache } from '../../src/ligand-field/lru-cache.js';
 import { parentTableFor } from '../../src/ligand-field/parent-tables.js';

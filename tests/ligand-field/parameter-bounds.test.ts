@@ -1,12 +1,12 @@
 /**
  * The accepted parameter ranges hold every value of the project's own
  * free-ion table (an internal consistency check, not an outside one: the
- * table's values are from memory, see src/chemistry/free-ion.ts), with β
+ * table's values are from memory, see src/chemistry/free-ion-racah.ts), with β
  * down to 0.2, and refuse the ends of the double range with a message
  * naming the option.
  */
 import { describe, expect, it } from 'vitest';
-import { FREE_ION_RACAH } from '../../src/chemistry/free-ion.js';
+import { FREE_ION_RACAH } from '../../src/chemistry/free-ion-racah.js';
 import { checkParameterRange, PARAMETER_BOUNDS } from '../../src/ligand-field/parameter-bounds.js';
 
 describe('parameter bounds', () => {

@@ -1,5 +1,5 @@
 /**
- * Slow, obviously correct reference for src/spectrum/bandModel.ts, used only
+ * Slow, obviously correct reference for src/spectrum/band-model.ts, used only
  * in tests/spectrum/band-model.test.ts: the model written from its
  * definition (every band evaluated everywhere, the edge as a plain Gaussian
  * of centre xEnd + d and height A·exp(4 ln2 d²/W²)), the Jacobian by central

@@ -5,7 +5,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { csvLine, csvText } from '../../src/report/csv.js';
 import { decimalsForUncertainty, formatPlusMinus } from '../../src/report/plus-minus.js';
-import { NO_SPIN_STATE_CHOICE, spinStateSentence, spinStateWords } from '../../src/report/spin-state.js';
+import { NO_SPIN_STATE_CHOICE, spinStateSentence, spinStateWords } from '../../src/report/spin-state-wording.js';
 import { columnWidths, textTableLine, textTableLines } from '../../src/report/text-table.js';
 
 describe('the one CSV writer', () => {

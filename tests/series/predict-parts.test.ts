@@ -6,7 +6,7 @@ import { boxArrows, orbitalOccupation } from '../../src/predict/occupation.js';
 import { ligandF, ligandH, metalG, metalK } from '../../src/predict/factor-table.js';
 import { LIGANDS } from '../../src/chemistry/ligands.js';
 import { parseIon } from '../../src/chemistry/ions.js';
-import { freeIonRacah } from '../../src/chemistry/free-ion.js';
+import { freeIonRacah } from '../../src/chemistry/free-ion-racah.js';
 
 describe('normalCdf', () => {
   it('agrees with mathjs erf to 1e-7', () => {

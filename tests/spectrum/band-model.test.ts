@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { bandModelParameterCount, bandModelWork, type BandModelLayout, xBandModelValues, xyBandModelCost, xyBandModelNormal } from '../../src/spectrum/bandModel.js';
-import { bandFitBic, gaussiansMerge } from '../../src/spectrum/fitBands.js';
+import { bandModelParameterCount, bandModelWork, type BandModelLayout, xBandModelValues, xyBandModelCost, xyBandModelNormal } from '../../src/spectrum/band-model.js';
+import { bandFitBic, gaussiansMerge } from '../../src/spectrum/fit-band-model.js';
 import { gaussianValue } from '../../src/spectrum/gaussian.js';
 import { gaussianDeviates, mulberry32 } from '../../src/spectrum/random.js';
-import { xPolynomialScale } from '../../src/spectrum/xyPolynomial.js';
-import { xyRefineBands } from '../../src/spectrum/xyRefineBands.js';
+import { xPolynomialScale } from '../../src/spectrum/xy-polynomial.js';
+import { xyRefineBands } from '../../src/spectrum/xy-refine-bands.js';
 import { referenceModel, referenceNormal } from '../reference/band-model.js';
 
 const random = mulberry32(777);

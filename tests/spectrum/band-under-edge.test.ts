@@ -1,7 +1,7 @@
 /**
  * A d–d band that shows only as a shoulder on a steep charge-transfer rise
  * at the blue end of the window must be found as a band, not swallowed by
- * the UV edge model (fitBands.ts, bandUnderEdge); and the extra band must
+ * the UV edge model (fit-band-model.ts, bandUnderEdge); and the extra band must
  * not be invented where the rise has no shoulder.
  *
  * The spectra come from the validation corpus generator (tests/accuracy/),

@@ -5,8 +5,8 @@
  * the sum (slow and obviously correct), not an outside value.
  */
 import { describe, expect, it } from 'vitest';
-import { gaussiansCurvatureMinima, gaussiansGroupMultiplets } from '../../src/spectrum/gaussiansGroupMultiplets.js';
-import type { GaussianParameters } from '../../src/spectrum/xyRefineBands.js';
+import { gaussiansCurvatureMinima, gaussiansGroupMultiplets } from '../../src/spectrum/gaussians-group-multiplets.js';
+import type { GaussianParameters } from '../../src/spectrum/xy-refine-bands.js';
 
 const value = (x: number, parts: GaussianParameters[]): number =>
   parts.reduce((s, b) => s + b.height * Math.exp(-4 * Math.LN2 * ((x - b.position) / b.fwhm) ** 2), 0);

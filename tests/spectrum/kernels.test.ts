@@ -2,14 +2,14 @@ import { optimize } from 'ml-spectra-fitting';
 import { describe, expect, it } from 'vitest';
 import { gaussianValue } from '../../src/spectrum/gaussian.js';
 import { gaussianDeviates, mulberry32 } from '../../src/spectrum/random.js';
-import { sgSecondDerivativeNoise } from '../../src/spectrum/sgNoise.js';
-import { xNoiseFromSecondDifferences, xNoiseLocal } from '../../src/spectrum/xNoise.js';
-import { xyCorrectDetectorSteps, xyFindDetectorSteps } from '../../src/spectrum/xyDetectorSteps.js';
-import { xyLowerHull } from '../../src/spectrum/xyLowerHull.js';
-import { xyMaskedRegions, xyMaskPoints } from '../../src/spectrum/xyMask.js';
-import { xPolynomialScale, xPolynomialValues, xyPolynomialFit } from '../../src/spectrum/xyPolynomial.js';
-import { xyRefineBands } from '../../src/spectrum/xyRefineBands.js';
-import { xChooseGridStep, xUniformGrid, xyResampleUniform } from '../../src/spectrum/xyResample.js';
+import { sgSecondDerivativeNoise } from '../../src/spectrum/sg-noise.js';
+import { xNoiseFromSecondDifferences, xNoiseLocal } from '../../src/spectrum/x-noise.js';
+import { xyCorrectDetectorSteps, xyFindDetectorSteps } from '../../src/spectrum/xy-detector-steps.js';
+import { xyLowerHull } from '../../src/spectrum/xy-lower-hull.js';
+import { xyMaskedRegions, xyMaskPoints } from '../../src/spectrum/xy-mask.js';
+import { xPolynomialScale, xPolynomialValues, xyPolynomialFit } from '../../src/spectrum/xy-polynomial.js';
+import { xyRefineBands } from '../../src/spectrum/xy-refine-bands.js';
+import { xChooseGridStep, xUniformGrid, xyResampleUniform } from '../../src/spectrum/xy-resample.js';
 import {
   referenceLowerHull, referenceResample, referenceSgSecondDerivativeNoise,
 } from '../reference/spectrum-kernels.js';
@@ -162,7 +162,7 @@ describe('band refinement', () => {
 describe('Cholesky solve', () => {
   it('matches ml-matrix solve on seeded random SPD systems (library as reference)', async () => {
     const { Matrix, solve } = await import('ml-matrix');
-    const { choleskySolveInPlace } = await import('../../src/spectrum/levenbergMarquardt.js');
+    const { choleskySolveInPlace } = await import('../../src/spectrum/levenberg-marquardt.js');
     for (let trial = 0; trial < 10; trial++) {
       const p = 2 + Math.floor(random() * 15);
       const b = Matrix.rand(p + 3, p, { random });

@@ -10,7 +10,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyzeSpectrum } from '../../src/analysis.js';
 import { gaussianDeviates, mulberry32, parseSpectrumText, processSpectrum } from '../../src/spectrum/index.js';
-import { xQuantizationStep } from '../../src/spectrum/xQuantizationStep.js';
+import { xQuantizationStep } from '../../src/spectrum/x-quantization-step.js';
 import { caseSpectrum, corpusCases } from '../accuracy/cases.js';
 import { caseOptions } from '../accuracy/run-corpus.js';
 import { cli } from '../analysis/helpers.js';

@@ -20,8 +20,8 @@ vi.mock('jcampconverter', async (importOriginal) => {
 });
 
 const { parseSpectrumText } = await import('../../src/spectrum/index.js');
-const { MAX_JCAMP_POINTS } = await import('../../src/spectrum/parse/parseJcamp.js');
-const { jcampOrdinateBound } = await import('../../src/spectrum/parse/jcampPointBound.js');
+const { MAX_JCAMP_POINTS } = await import('../../src/spectrum/parse/parse-jcamp.js');
+const { jcampOrdinateBound } = await import('../../src/spectrum/parse/jcamp-point-bound.js');
 const { fixtureBytes } = await import('./load.js');
 
 const encode = (text: string) => new TextEncoder().encode(text);

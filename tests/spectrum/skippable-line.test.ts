@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { isSkippableLine } from '../../src/spectrum/parse/findNumericBlock.js';
+import { isSkippableLine } from '../../src/spectrum/parse/find-numeric-block.js';
 
 /** The obviously correct reference the character scan replaces. */
 function isSkippableLineByTrim(line: string): boolean {

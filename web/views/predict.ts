@@ -11,7 +11,7 @@ import * as api from '../api.js';
 import { h } from '../dom.js';
 import type { Prediction } from '../../src/series/predict.js';
 import { formatPlusMinus } from '../../src/report/plus-minus.js';
-import { NO_SPIN_STATE_CHOICE } from '../../src/report/spin-state.js';
+import { NO_SPIN_STATE_CHOICE } from '../../src/report/spin-state-wording.js';
 import type { ApiErrorBody } from '../types.js';
 
 export type PredictGeometryChoice = '' | 'octahedral' | 'tetrahedral' | 'square-planar';

@@ -4,7 +4,7 @@
  * the close alternative assignments.
  */
 import { h } from '../dom.js';
-import { NO_SPIN_STATE_CHOICE } from '../../src/report/spin-state.js';
+import { NO_SPIN_STATE_CHOICE } from '../../src/report/spin-state-wording.js';
 import { UNIT, dCountText, formatNumber, formatWithUncertainty, levelLabel, nmFromWavenumber, spinStateText } from '../format.js';
 import type { AnalysisEntry } from '../state.js';
 import type { Alternative, FitResult } from '../types.js';

@@ -1,5 +1,5 @@
 import { FieldgapError, invalidArgument, isFieldgapError } from '../../errors.js';
-import { fitBands, parseBandList, type FitInput, type FitResult } from '../../fit/index.js';
+import { fitLigandField, parseBandList, type FitInput, type FitResult } from '../../fit/index.js';
 import { GEOMETRIES } from '../../ligand-field/index.js';
 import { fitTetragonal, tetragonalFitReport, type TetragonalFitInput } from '../../fit-tetragonal/index.js';
 import { valueToWavenumber, xUnitFromName } from '../../spectrum/units.js';
@@ -8,7 +8,7 @@ import { checkFitBandCount } from '../../fit/band-count.js';
 import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
-import { spinStateSentence } from '../../report/spin-state.js';
+import { spinStateSentence } from '../../report/spin-state-wording.js';
 import { textTableLines } from '../../report/text-table.js';
 
 /**
@@ -61,7 +61,7 @@ Example: fieldgap fit --ion Cr3+ --bands 17400,24600
          fieldgap fit --ion Co2+ --geometry tetrahedral --bands "5800±100, 14700±150, 40000:ct"
 `;
 
-/** Field paths of fitBands errors → the option that supplied them. */
+/** Field paths of fitLigandField errors → the option that supplied them. */
 const OPTION_OF_FIELD: ReadonlyArray<[RegExp, string]> = [
   [/^ion/, '--ion'],
   [/^d$/, '--d'],
@@ -252,7 +252,7 @@ export const fitCommand: Command = {
     }
     let result: FitResult;
     try {
-      result = fitBands(input);
+      result = fitLigandField(input);
     } catch (error) {
       throw isFieldgapError(error) ? toOptionError(error) : error;
     }

@@ -5,7 +5,7 @@ import {
 import type { Command } from '../command.js';
 import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
-import { spinStateSentence } from '../../report/spin-state.js';
+import { spinStateSentence } from '../../report/spin-state-wording.js';
 import { textTableLines } from '../../report/text-table.js';
 
 /**

@@ -2,7 +2,7 @@ import { parseIon, romanOxidationState } from '../../chemistry/ions.js';
 import { boxArrows } from '../../predict/occupation.js';
 import type { Prediction, UsedFactor } from '../../series/predict.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
-import { NO_SPIN_STATE_CHOICE } from '../../report/spin-state.js';
+import { NO_SPIN_STATE_CHOICE } from '../../report/spin-state-wording.js';
 
 /**
  * The readable report of `fieldgap predict`: every line fits an 80-column

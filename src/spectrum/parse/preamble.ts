@@ -3,7 +3,7 @@
  * instrument metadata ("Instrument: …", "Slit width;2 nm", "X Units=nm").
  */
 import { isNumberCell } from './cells.js';
-import { isSkippableLine } from './findNumericBlock.js';
+import { isSkippableLine } from './find-numeric-block.js';
 
 export interface Preamble {
   /** Column names from the header row, or null when there is none. */

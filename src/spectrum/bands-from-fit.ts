@@ -2,11 +2,11 @@
  * Turning fitted Gaussians into reported bands: wavelength, ε, area,
  * oscillator strength, position uncertainty, the shoulder flag, kind.
  */
-import { bandOscillatorStrength, gaussianArea } from './bandOscillatorStrength.js';
-import { bandsClassify, type ClassificationThresholds } from './bandClassify.js';
+import { bandOscillatorStrength, gaussianArea } from './band-oscillator-strength.js';
+import { bandsClassify, type ClassificationThresholds } from './band-classify.js';
 import { gaussianValue } from './gaussian.js';
 import type { Band, BandWindow } from './types.js';
-import type { GaussianParameters } from './xyRefineBands.js';
+import type { GaussianParameters } from './xy-refine-bands.js';
 
 export interface BandsFromFitOptions {
   /** Factor turning signal height into ε (1 / (c·l), or 1 for ε input); null when ε is unknown. */

@@ -9,7 +9,7 @@
  * whitespace.
  */
 import { isMissingCell, isNumberCell } from './cells.js';
-import { linesToQuickCells, type Separator, splitLineQuick } from './splitLines.js';
+import { linesToQuickCells, type Separator, splitLineQuick } from './split-lines.js';
 
 const SEPARATORS: readonly Separator[] = ['\t', ';', ',', 'whitespace'];
 

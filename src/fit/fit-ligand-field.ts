@@ -1,5 +1,5 @@
 /**
- * fitBands: 10Dq, Racah B and C from observed band maxima, with automatic
+ * fitLigandField: 10Dq, Racah B and C from observed band maxima, with automatic
  * assignment and the spin-state logic.
  *
  * 1. Settings (settings.ts) and bands (bands.ts, observations.ts).
@@ -396,7 +396,7 @@ const MAX_REPOLISHED = 4;
 /** Observations that depend on C: bands at least this many, beyond the three parameters, before C/B is estimated unasked. */
 export const AUTO_FREE_C_MIN_BANDS = 4;
 
-export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
+export function fitLigandField(input: FitInput, options: FitOptions = {}): FitResult {
   let settings = resolveFitSettings(input);
   const bands = normalizeBands(input.bands, 'bands');
   const sorted = sortObservations(bands);
@@ -478,3 +478,6 @@ export function fitBands(input: FitInput, options: FitOptions = {}): FitResult {
   }
   return buildFitResult({ settings, sorted, best, others: evaluated.slice(1), warnings, notes, undetermined, options });
 }
+
+/** @deprecated The old name of fitLigandField (issue 18: two exported fitBands meant two things); kept for clients and tests that import it. */
+export const fitBands = fitLigandField;

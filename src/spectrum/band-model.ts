@@ -18,7 +18,7 @@
  * exp(−4 ln2 · 2.75²) ≈ 8e-10 of the height: far below any noise.
  */
 import { FOUR_LN2 } from './gaussian.js';
-import type { PolynomialScale } from './xyPolynomial.js';
+import type { PolynomialScale } from './xy-polynomial.js';
 
 /** Bands reach ±CUTOFF FWHM from their centre. */
 export const BAND_CUTOFF = 2.75;

@@ -4,9 +4,9 @@
  * text starts with a "##LABEL=" record, delimited text otherwise.
  */
 import { FieldgapError, invalidArgument } from '../errors.js';
-import { decodeText } from './parse/decodeText.js';
-import { parseDelimited } from './parse/parseDelimited.js';
-import { looksLikeJcamp, parseJcamp } from './parse/parseJcamp.js';
+import { decodeText } from './parse/decode-text.js';
+import { parseDelimited } from './parse/parse-delimited.js';
+import { looksLikeJcamp, parseJcamp } from './parse/parse-jcamp.js';
 import type { ParsedFile, XUnit, YUnit } from './types.js';
 
 export interface ParseSpectrumOptions {

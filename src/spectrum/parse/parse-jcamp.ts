@@ -13,9 +13,9 @@ import { convert } from 'jcampconverter';
 import { xMinMaxValues } from 'ml-spectra-processing';
 import { FieldgapError } from '../../errors.js';
 import type { Spectrum, XUnit, YUnit } from '../types.js';
-import { xUnitFromLabel, yUnitFromLabel } from '../unitLabels.js';
-import { inferXUnit } from './inferXUnit.js';
-import { jcampOrdinateBound } from './jcampPointBound.js';
+import { xUnitFromLabel, yUnitFromLabel } from '../unit-labels.js';
+import { inferXUnit } from './infer-x-unit.js';
+import { jcampOrdinateBound } from './jcamp-point-bound.js';
 
 /**
  * Most points one XYDATA block may decode to: far beyond any UV-vis-NIR

@@ -4,8 +4,8 @@
  * the file holds ε. Also returns the absorbance used for saturation checks
  * (ε · c · l for ε input with a concentration, else null for ε input).
  */
-import { yToAbsorbance } from './yToAbsorbance.js';
-import { xToWavenumber } from './xToWavenumber.js';
+import { yToAbsorbance } from './y-to-absorbance.js';
+import { xToWavenumber } from './x-to-wavenumber.js';
 import type { Spectrum } from './types.js';
 
 export interface EnergySpectrum {

@@ -4,7 +4,7 @@
  * range) and a low-order polynomial baseline, all fitted together, so a
  * broad weak band is not flattened into the baseline nor the baseline into
  * a band. Bounded Levenberg–Marquardt on the normal equations of the
- * analytic Jacobian (bandModel.ts: sparse, the edge parametrised by its
+ * analytic Jacobian (band-model.ts: sparse, the edge parametrised by its
  * value at the top of the range); uncertainties from the covariance
  * s²(JᵀJ)⁻¹ of the full model at the solution, s² = RSS / (n − p).
  *
@@ -12,10 +12,10 @@
  * baseline, and with a numerical Jacobian; it serves as the reference for
  * band-only fits in tests/reference.)
  */
-import { type BandModelLayout, bandModelParameterCount, xBandModelValues, bandModelWork, xyBandModelCost, xyBandModelNormal } from './bandModel.js';
+import { type BandModelLayout, bandModelParameterCount, xBandModelValues, bandModelWork, xyBandModelCost, xyBandModelNormal } from './band-model.js';
 import { FOUR_LN2, gaussianValue } from './gaussian.js';
-import { choleskySolveInPlace, levenbergMarquardtNormal } from './levenbergMarquardt.js';
-import { type PolynomialScale, xPolynomialScale, xyPolynomialFit } from './xyPolynomial.js';
+import { choleskySolveInPlace, levenbergMarquardtNormal } from './levenberg-marquardt.js';
+import { type PolynomialScale, xPolynomialScale, xyPolynomialFit } from './xy-polynomial.js';
 
 export interface GaussianParameters {
   position: number;

@@ -5,12 +5,12 @@
  */
 import { FieldgapError, invalidArgument } from '../../errors.js';
 import type { Spectrum, XUnit, YUnit } from '../types.js';
-import { isXUnitKey, isYUnitKey, xUnitFromLabel, yUnitFromLabel } from '../unitLabels.js';
-import { readDataBlock, type DataBlock } from './delimitedBlock.js';
-import { findNumericBlock } from './findNumericBlock.js';
-import { inferXUnit } from './inferXUnit.js';
+import { isXUnitKey, isYUnitKey, xUnitFromLabel, yUnitFromLabel } from '../unit-labels.js';
+import { readDataBlock, type DataBlock } from './delimited-block.js';
+import { findNumericBlock } from './find-numeric-block.js';
+import { inferXUnit } from './infer-x-unit.js';
 import { readPreamble } from './preamble.js';
-import { linesToCells, textToLines } from './splitLines.js';
+import { linesToCells, textToLines } from './split-lines.js';
 
 export interface DelimitedOptions {
   /** Name used in error paths and messages. */

@@ -16,7 +16,7 @@
  * way (clamped to [narrow, limit]), centre a tenth of that FWHM beyond the
  * end.
  */
-import type { GaussianParameters } from './xyRefineBands.js';
+import type { GaussianParameters } from './xy-refine-bands.js';
 
 export interface LowEndCandidateOptions {
   /** σ of each point. */

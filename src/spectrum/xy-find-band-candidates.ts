@@ -7,7 +7,7 @@
  * already found by the first are taken.
  */
 import { gsd } from 'ml-gsd';
-import { sgSecondDerivativeNoise } from './sgNoise.js';
+import { sgSecondDerivativeNoise } from './sg-noise.js';
 
 export interface BandCandidate {
   position: number;

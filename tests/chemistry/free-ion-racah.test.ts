@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { freeIonRacah, FREE_ION_RACAH } from '../../src/chemistry/free-ion.js';
+import { freeIonRacah, FREE_ION_RACAH } from '../../src/chemistry/free-ion-racah.js';
 import { parseIon } from '../../src/chemistry/ions.js';
 
 describe('freeIonRacah', () => {

@@ -5,7 +5,7 @@
  */
 import { FieldgapError } from '../../errors.js';
 import { cellToNumber, type DecimalMark, hasDecimalComma, isMissingCell, isNumberCell } from './cells.js';
-import { isSkippableLine, numericFieldCount, type NumericRun } from './findNumericBlock.js';
+import { isSkippableLine, numericFieldCount, type NumericRun } from './find-numeric-block.js';
 
 /** The data block: line range, its rows of numbers (NaN for missing) and their line numbers. */
 export interface DataBlock {

@@ -23,12 +23,12 @@
  *    has a position deviation over half its FWHM.
  */
 import { gaussianValue } from './gaussian.js';
-import { type BandCandidate, xyFindBandCandidates } from './xyFindBandCandidates.js';
-import { xPolynomialScale, xPolynomialValues, xyPolynomialFit } from './xyPolynomial.js';
-import { type GaussianParameters, type RefineBandsResult, xyRefineBands } from './xyRefineBands.js';
+import { type BandCandidate, xyFindBandCandidates } from './xy-find-band-candidates.js';
+import { xPolynomialScale, xPolynomialValues, xyPolynomialFit } from './xy-polynomial.js';
+import { type GaussianParameters, type RefineBandsResult, xyRefineBands } from './xy-refine-bands.js';
 import { median } from '../numeric/median.js';
 
-export interface FitBandsOptions {
+export interface FitBandModelOptions {
   candidates: BandCandidate[];
   edge: GaussianParameters | null;
   baselineGuess: Float64Array;
@@ -55,7 +55,7 @@ export interface FitBandsOptions {
   uncertainFraction?: number;
   /** How far below the low end a band centre may lie, fraction of its FWHM (RefineBandsOptions). @default 0 */
   beyondLowEnd?: number;
-  /** Polynomial of baselineGuess (see RefineBandsOptions); fitBands fits it once for all its trial models. */
+  /** Polynomial of baselineGuess (see RefineBandsOptions); fitBandModel fits it once for all its trial models. */
   baselineStart?: Float64Array;
 }
 
@@ -80,7 +80,7 @@ const TRIAL_ITERATIONS = 40;
 const TRIAL_CHI_SQUARE_TOLERANCE = 0.1;
 
 function refine(
-  x: Float64Array, y: Float64Array, bands: GaussianParameters[], edge: GaussianParameters | null, o: FitBandsOptions,
+  x: Float64Array, y: Float64Array, bands: GaussianParameters[], edge: GaussianParameters | null, o: FitBandModelOptions,
   { maxIterations = TRIAL_ITERATIONS, chiSquareTolerance = TRIAL_CHI_SQUARE_TOLERANCE } = {},
 ): RefineBandsResult {
   return xyRefineBands(x, y, {
@@ -161,9 +161,9 @@ function residual(x: Float64Array, y: Float64Array, fit: RefineBandsResult): Flo
  * Fits over (x, y): uniform, ascending x without gaps in the fitted part
  * (masked points removed). Returns the last accepted fit.
  */
-export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOptions): RefineBandsResult {
+export function fitBandModel(x: Float64Array, y: Float64Array, options: FitBandModelOptions): RefineBandsResult {
   const n = x.length;
-  const o: FitBandsOptions = { ...options, baselineStart: options.baselineStart ?? xyPolynomialFit(x, options.baselineGuess, options.baselineOrder, xPolynomialScale(x)) };
+  const o: FitBandModelOptions = { ...options, baselineStart: options.baselineStart ?? xyPolynomialFit(x, options.baselineGuess, options.baselineOrder, xPolynomialScale(x)) };
   const sigma = xMedian(o.noise);
   const ctx: Context = { x, y, o, sigma, score: (f) => bandFitBic(f, n), mode: o.edgeMode ?? 'auto' };
   const xMax = x[n - 1] as number;
@@ -217,7 +217,7 @@ export function fitBands(x: Float64Array, y: Float64Array, options: FitBandsOpti
  * asymmetric band, a scattering baseline's curvature between bands) and is
  * held, like any broad added band, to minAddedFraction of the tallest band.
  */
-function broadenedWeak(trial: RefineBandsResult, before: RefineBandsResult, extra: GaussianParameters, o: FitBandsOptions): boolean {
+function broadenedWeak(trial: RefineBandsResult, before: RefineBandsResult, extra: GaussianParameters, o: FitBandModelOptions): boolean {
   if (extra.fwhm >= 2 * o.narrowFwhm) return false;
   const added = trial.bands
     .filter((b) => before.bands.every((a) => Math.abs(a.position - b.position) > 0.15 * a.fwhm))
@@ -229,7 +229,7 @@ function broadenedWeak(trial: RefineBandsResult, before: RefineBandsResult, extr
 interface Context {
   x: Float64Array;
   y: Float64Array;
-  o: FitBandsOptions;
+  o: FitBandModelOptions;
   sigma: number;
   score: (fit: RefineBandsResult) => number;
   mode: 'auto' | boolean;
@@ -345,7 +345,7 @@ function broadBandsToBaseline(ctx: Context, fit: RefineBandsResult): RefineBands
   if (broad.length === 0 || broad.length === fit.bands.length || o.baselineOrder >= 3) return fit;
   const order = o.baselineOrder + 1;
   const scale = xPolynomialScale(x);
-  const raised: FitBandsOptions = { ...o, baselineOrder: order, baselineStart: xyPolynomialFit(x, o.baselineGuess, order, scale) };
+  const raised: FitBandModelOptions = { ...o, baselineOrder: order, baselineStart: xyPolynomialFit(x, o.baselineGuess, order, scale) };
   const trial = refine(x, y, fit.bands.filter((b) => !broad.includes(b)), fit.edge, raised);
   if (ctx.score(trial) >= ctx.score(fit) + BIC_MARGIN) return fit;
   ctx.o = raised;

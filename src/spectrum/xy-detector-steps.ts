@@ -3,7 +3,7 @@
  * neighbouring points by far more than the noise while the points on each
  * side run smoothly (typically near 350 nm, or 800–900 nm).
  */
-import { xNoiseLocal } from './xNoise.js';
+import { xNoiseLocal } from './x-noise.js';
 import { median } from '../numeric/median.js';
 
 export interface DetectorStep {

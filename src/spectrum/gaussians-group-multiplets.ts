@@ -27,9 +27,9 @@
  * cm-1 of its centre. Its position σ is that of the area-weighted mean,
  * √Σ (a_k/A)² σ_k² (the components' covariance neglected).
  */
-import { gaussiansMerge } from './fitBands.js';
+import { gaussiansMerge } from './fit-band-model.js';
 import { FOUR_LN2, gaussianValue } from './gaussian.js';
-import type { GaussianParameters } from './xyRefineBands.js';
+import type { GaussianParameters } from './xy-refine-bands.js';
 
 export interface GroupMultipletsOptions {
   /** Largest span, cm-1, from the first to the last component of one band. @default 2000 */

@@ -29,7 +29,7 @@
  *
  * The fit is weighted by σ (1/σ_i) and the model is chosen by
  * the Bayesian information criterion with that noise, χ² + p ln n; a model
- * with more components is kept only when it wins by more than 10 (fitBands.ts):
+ * with more components is kept only when it wins by more than 10 (fit-band-model.ts):
  * - a candidate band is dropped when weaker than 3 σ (5 σ for narrow bands),
  *   when its position is undetermined (σ_position > FWHM/2), or when it
  *   duplicates a stronger one;
@@ -47,23 +47,23 @@
  * - a band is added where the residual still shows one, by the criterion.
  */
 import { FieldgapError, invalidArgument } from '../errors.js';
-import { defaultThresholds, type ClassificationThresholds } from './bandClassify.js';
-import { bandsFromFit } from './bandsFromFit.js';
-import { fitBands } from './fitBands.js';
-import { gaussiansGroupMultiplets } from './gaussiansGroupMultiplets.js';
+import { defaultThresholds, type ClassificationThresholds } from './band-classify.js';
+import { bandsFromFit } from './bands-from-fit.js';
+import { fitBandModel } from './fit-band-model.js';
+import { gaussiansGroupMultiplets } from './gaussians-group-multiplets.js';
 import { gaussianValue } from './gaussian.js';
-import { spectrumToEnergy } from './spectrumToEnergy.js';
+import { spectrumToEnergy } from './spectrum-to-energy.js';
 import type { MaskReason, ProcessedSpectrum, Spectrum, StepCorrection } from './types.js';
-import { xNoiseFromSecondDifferences, xNoiseLocal } from './xNoise.js';
-import { xQuantizationStep } from './xQuantizationStep.js';
-import { xyCorrectDetectorSteps, xyFindDetectorSteps } from './xyDetectorSteps.js';
-import { xyFindBandCandidates } from './xyFindBandCandidates.js';
-import { xyHighEndBandCandidate, xyLowEndBandCandidate, xyNearLowEndBandCandidate } from './xyEndBandCandidates.js';
-import { xyLowerHull } from './xyLowerHull.js';
-import { maskAroundStep, xyMaskedRegions, xyMaskPoints } from './xyMask.js';
-import { xPolynomialValues } from './xyPolynomial.js';
-import { xChooseGridStep, xUniformGrid, xyResampleUniformWithCounts } from './xyResample.js';
-import type { GaussianParameters } from './xyRefineBands.js';
+import { xNoiseFromSecondDifferences, xNoiseLocal } from './x-noise.js';
+import { xQuantizationStep } from './x-quantization-step.js';
+import { xyCorrectDetectorSteps, xyFindDetectorSteps } from './xy-detector-steps.js';
+import { xyFindBandCandidates } from './xy-find-band-candidates.js';
+import { xyHighEndBandCandidate, xyLowEndBandCandidate, xyNearLowEndBandCandidate } from './xy-end-band-candidates.js';
+import { xyLowerHull } from './xy-lower-hull.js';
+import { maskAroundStep, xyMaskedRegions, xyMaskPoints } from './xy-mask.js';
+import { xPolynomialValues } from './xy-polynomial.js';
+import { xChooseGridStep, xUniformGrid, xyResampleUniformWithCounts } from './xy-resample.js';
+import type { GaussianParameters } from './xy-refine-bands.js';
 import { median as medianOf } from '../numeric/median.js';
 
 export interface ProcessSpectrumOptions {
@@ -206,7 +206,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
     warnings.push('no band stands out of the noise');
     return empty();
   }
-  const fit = fitBands(fx, fy, { candidates, edge, baselineGuess, baselineOrder, noise: sigma, beyondLowEnd: BEYOND_LOW_END, uncertainFraction: smooth ? 0.2 : 0.5, minAddedFraction: smooth ? 0.1 : 0, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
+  const fit = fitBandModel(fx, fy, { candidates, edge, baselineGuess, baselineOrder, noise: sigma, beyondLowEnd: BEYOND_LOW_END, uncertainFraction: smooth ? 0.2 : 0.5, minAddedFraction: smooth ? 0.1 : 0, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
   const polynomial = (xs: Float64Array) => xPolynomialValues(xs, fit.baselineCoefficients, fit.scale);
   const baseline = polynomial(grid);
   if (fit.edge !== null) for (let i = 0; i < grid.length; i++) baseline[i] = (baseline[i] as number) + gaussianValue(grid[i] as number, fit.edge.position, fit.edge.height, fit.edge.fwhm);
