@@ -216,7 +216,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const thresholds = { ...defaultThresholds(geometry), ...options.thresholds };
   const edgeAt = (v: number) => (fit.edge === null ? 0 : gaussianValue(v, fit.edge.position, fit.edge.height, fit.edge.fwhm));
   // A multiplet (spin–orbit, Jahn–Teller, or an asymmetric band fitted by two Gaussians) is one band at its centre.
-  const grouped = gaussiansGroupMultiplets(fit.bands, fit.positionSd, { minFwhm: thresholds.narrowFwhm });
+  const grouped = gaussiansGroupMultiplets(fit.bands, fit.positionSd, { minFwhm: thresholds.narrowFwhm, dataBands: candidates.map((c) => c.position) });
   for (const parts of grouped.components) {
     if (parts.length < 2) continue;
     const maximum = gaussiansGroupMultiplets(parts, new Float64Array(parts.length)).bands[0]!.position;

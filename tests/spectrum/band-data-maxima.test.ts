@@ -7,6 +7,7 @@
  * invented bands, and the parabola's vertex is checked against exact algebra.
  */
 import { describe, expect, it } from 'vitest';
+import { parseSpectrumText, processSpectrum } from '../../src/spectrum/index.js';
 import { xyBandDataMaxima, xyParabolaVertex } from '../../src/spectrum/xyBandDataMaxima.js';
 import { logNormalBand } from '../accuracy/band-shape.js';
 
@@ -36,5 +37,21 @@ describe('xyBandDataMaxima', () => {
     const { positions, sd } = xyBandDataMaxima(grid, signal, new Float64Array(grid.length), [{ position: 17200, height: 1, fwhm: 3000 }]);
     expect(positions[0]).toBe(17200);
     expect(sd[0]).toBe(0);
+  });
+});
+
+describe('processSpectrum reports an asymmetric band as one band at its maximum', () => {
+  it('two log-normal bands (skew 1.25, 1.3) on a 1 nm grid, rounded to 0.001: two bands, the lower within 80 cm-1 of its maximum', () => {
+    const truth = [{ at: 16500, fwhm: 3200, skew: 1.25, a: 0.5 }, { at: 23500, fwhm: 3500, skew: 1.3, a: 0.6 }];
+    const lines = ['nm,A'];
+    for (let nm = 300; nm <= 800; nm++) {
+      const x = 1e7 / nm;
+      lines.push(`${nm},${(0.02 + truth.reduce((s, b) => s + b.a * logNormalBand(x, b.at, b.fwhm, b.skew), 0)).toFixed(3)}`);
+    }
+    const result = processSpectrum(parseSpectrumText(`${lines.join('\n')}\n`).spectra[0]!);
+    // The skewed band is not split into a band and a false shoulder (the data's second derivative shows one band).
+    expect(result.bands).toHaveLength(2);
+    const low = result.bands.find((f) => Math.abs(f.position - 16500) < 1000)!;
+    expect(Math.abs(low.position - 16500)).toBeLessThan(80);
   });
 });
