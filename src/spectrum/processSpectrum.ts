@@ -51,6 +51,7 @@ import { defaultThresholds, type ClassificationThresholds } from './bandClassify
 import { bandsFromFit } from './bandsFromFit.js';
 import { fitBands } from './fitBands.js';
 import { gaussiansGroupMultiplets } from './gaussiansGroupMultiplets.js';
+import { xyBandDataMaxima } from './xyBandDataMaxima.js';
 import { gaussianValue } from './gaussian.js';
 import { spectrumToEnergy } from './spectrumToEnergy.js';
 import type { MaskReason, ProcessedSpectrum, Spectrum, StepCorrection } from './types.js';
@@ -215,14 +216,17 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const thresholds = { ...defaultThresholds(geometry), ...options.thresholds };
   const edgeAt = (v: number) => (fit.edge === null ? 0 : gaussianValue(v, fit.edge.position, fit.edge.height, fit.edge.fwhm));
   // A multiplet (spin–orbit, Jahn–Teller, or an asymmetric band fitted by two Gaussians) is one band at its centre.
-  const grouped = gaussiansGroupMultiplets(fit.bands, fit.positionSd, { minFwhm: thresholds.narrowFwhm });
+  const grouped = gaussiansGroupMultiplets(fit.bands, fit.positionSd, { minFwhm: thresholds.narrowFwhm, dataBands: candidates.map((c) => c.position) });
   for (const parts of grouped.components) {
     if (parts.length < 2) continue;
     const maximum = gaussiansGroupMultiplets(parts, new Float64Array(parts.length)).bands[0]!.position;
     warnings.push(`fitted components at ${parts.map((b) => b.position.toFixed(0)).join(', ')} cm-1 overlap without a maximum or shoulder of their own: reported as one band at the maximum of their sum, ${maximum.toFixed(0)} cm-1: a split (spin–orbit or Jahn–Teller) or asymmetric band`);
   }
-  const { bands: found, relative } = bandsFromFit(grouped.bands, {
-    epsilonPerSignal, positionSd: grouped.positionSd, noise, gridStep: step, thresholds, range,
+  // Each band at its maximum as the data show it, not at the centre of a symmetric model of an asymmetric band.
+  const maxima = xyBandDataMaxima(grid, onGrid, baseline, grouped.bands);
+  const atMaxima = grouped.bands.map((b, k) => ({ ...b, position: maxima.positions[k] as number }));
+  const { bands: found, relative } = bandsFromFit(atMaxima, {
+    epsilonPerSignal, positionSd: Float64Array.from(grouped.positionSd, (s, k) => Math.hypot(s, maxima.sd[k] as number)), noise, gridStep: step, thresholds, range,
     baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
   });
   const bands = options.chargeTransferOnly === true ? found.map((b) => ({ ...b, kind: 'charge-transfer' as const })) : found;
