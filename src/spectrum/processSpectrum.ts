@@ -8,12 +8,13 @@
  * mean wavenumber to the grid value (else interpolated).
  *
  * The noise model: the local noise of the data (second differences), never
- * below the rounding noise q/√12 of a rounded export (xQuantizationStep);
- * on smooth data (no more noise than the rounding, or under 2·10⁻⁴ of the
- * range: smoothed or computed data) the fit's σ also holds a band-shape
- * error of 3 % of the band signal, since real bands are not Gaussian, and
- * broad bands are added from the residual only above a tenth of the
- * tallest. Detector steps are corrected only on strong evidence (8 σ of
+ * below the rounding noise q/√12 of a rounded export (xQuantizationStep),
+ * combined with a band-shape error of 3 % of the band signal, since real
+ * bands are not Gaussian: noisy or smooth, a Gaussian's misfit to an
+ * asymmetric band is there, and only noise larger than it hides it. On
+ * smooth data (no more noise than the rounding, or under 2·10⁻⁴ of the
+ * range: smoothed or computed data) broad bands are added from the
+ * residual only above a tenth of the tallest. Detector steps are corrected only on strong evidence (8 σ of
  * the jump, at least 4 rounding steps, not undone nearby: xyDetectorSteps),
  * each listed in stepCorrections with its size; correctSteps false leaves
  * the data as read.
@@ -54,6 +55,7 @@ import { spectrumToEnergy } from './spectrumToEnergy.js';
 import type { MaskReason, ProcessedSpectrum, Spectrum, StepCorrection } from './types.js';
 import { xNoiseFromSecondDifferences, xNoiseLocal } from './xNoise.js';
 import { xQuantizationStep } from './xQuantizationStep.js';
+import { xyBandMaximum } from './xyBandMaximum.js';
 import { xyCorrectDetectorSteps, xyFindDetectorSteps } from './xyDetectorSteps.js';
 import { xyFindBandCandidates } from './xyFindBandCandidates.js';
 import { xyHighEndBandCandidate, xyLowEndBandCandidate, xyNearLowEndBandCandidate } from './xyEndBandCandidates.js';
@@ -90,11 +92,13 @@ export interface ProcessSpectrumOptions {
   maxGridPoints?: number;
   /**
    * Relative shape error of the Gaussian band model: real bands are
-   * asymmetric and carry unresolved components, so on smooth data (rounded,
-   * smoothed or noise-free: see isSmooth) the fit's σ at each point is the
-   * noise combined with this fraction of the band signal there (the data
-   * above the lower hull), and a band whose position is uncertain by more
-   * than a fifth of its FWHM (not half) is dropped; it is what keeps a band's asymmetry from being
+   * asymmetric and carry unresolved components, so the fit's σ at each
+   * point is the noise combined with this fraction of the band signal there
+   * (the data above the lower hull), on noisy data as on smooth: at a noise
+   * of 0.002 a band of absorbance 0.5 misfits a Gaussian by more than the
+   * noise. On smooth data (rounded, smoothed or noise-free: see isSmooth) a
+   * band whose position is uncertain by more than a fifth of its FWHM (not
+   * half) is dropped too. It is what keeps a band's asymmetry from being
    * read as extra bands. @default 0.03
    */
   shapeError?: number;
@@ -171,7 +175,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const range: [number, number] = [x[0] as number, x[x.length - 1] as number];
   const empty = (): ProcessedSpectrum => ({
     points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid,
-    baseline: new Float64Array(grid.length), model: new Float64Array(grid.length), signalUnit: energy.signalUnit, bands: [],
+    baseline: new Float64Array(grid.length), model: new Float64Array(grid.length), signalUnit: energy.signalUnit, bands: [], components: [],
     edge: null, noise, quantization: quantum, stepCorrections, fit: { points: fx.length, parameters: 0, rms: 0, iterations: 0, converged: true }, warnings,
   });
   if (fx.length < 10) {
@@ -188,9 +192,9 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const baselineGuess = lowEnd === null
     ? hull
     : Float64Array.from(hull, (h, i) => Math.max(Math.min(h, (fy[i] as number) - gaussianValue(fx[i] as number, lowEnd.position, lowEnd.height, lowEnd.fwhm)), lowest));
-  // The fit's σ: measurement and rounding noise, plus, on smooth data, the shape error of a Gaussian band model on real bands.
+  // The fit's σ: measurement and rounding noise, and the shape error of a Gaussian band model on real bands.
   const smooth = isSmooth(median(measuredNoise), quantum, fy);
-  const sigma = Float64Array.from(localNoise, (s, i) => Math.hypot(s, smooth ? shapeError * Math.max((fy[i] as number) - (baselineGuess[i] as number), 0) : 0));
+  const sigma = Float64Array.from(localNoise, (s, i) => Math.hypot(s, shapeError * Math.max((fy[i] as number) - (baselineGuess[i] as number), 0)));
   // Candidates are judged by their curvature against the white noise; the shape error is smooth and enters the fit only.
   const candidates = xyFindBandCandidates(fx, lifted, { noise: localNoise, broadFwhm, narrowFwhm, narrow: false });
   if (lowEnd !== null && candidates.every((c) => c.position > (fx[0] as number) + 0.5 * lowEnd.fwhm)) candidates.unshift({ ...lowEnd, pass: 'broad' });
@@ -215,6 +219,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const { bands: found, relative } = bandsFromFit(fit.bands, {
     epsilonPerSignal, positionSd: fit.positionSd, noise, gridStep: step, thresholds, range,
     baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
+    maxima: bandMaxima(fx, fy, polynomial(fx), edgeAt, fit.bands),
   });
   const bands = options.chargeTransferOnly === true ? found.map((b) => ({ ...b, kind: 'charge-transfer' as const })) : found;
   if (!fit.converged) warnings.push(`the band fit stopped after ${fit.iterations} iterations without converging: treat the band parameters with care`);
@@ -229,9 +234,23 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   if (fit.edge !== null) warnings.push(`a UV absorption edge was modelled (a Gaussian tail centred at ${fit.edge.position.toFixed(0)} cm-1, above the measured range)`);
   return {
     points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid, baseline, model,
-    signalUnit: energy.signalUnit, bands, edge: fit.edge, noise, quantization: quantum, stepCorrections,
+    signalUnit: energy.signalUnit, bands, components: fit.bands.map((b) => ({ position: b.position, height: b.height, fwhm: b.fwhm })),
+    edge: fit.edge, noise, quantization: quantum, stepCorrections,
     fit: { points: fx.length, parameters: fit.parameters, rms: fit.rms, iterations: fit.iterations, converged: fit.converged }, warnings,
   };
+}
+
+/**
+ * Each band's maximum as measured (xyBandMaximum) on the kept grid points:
+ * the top of the data less the baseline, the edge and the other bands.
+ */
+function bandMaxima(x: Float64Array, y: Float64Array, polynomial: Float64Array, edgeAt: (v: number) => number, bands: GaussianParameters[]): Array<number | null> {
+  const rest = Float64Array.from(y, (v, i) => v - (polynomial[i] as number) - edgeAt(x[i] as number));
+  for (const b of bands) for (let i = 0; i < x.length; i++) rest[i] = (rest[i] as number) - gaussianValue(x[i] as number, b.position, b.height, b.fwhm);
+  return bands.map((b) => {
+    const own = Float64Array.from(rest, (v, i) => v + gaussianValue(x[i] as number, b.position, b.height, b.fwhm));
+    return xyBandMaximum(x, own, b.position, b.fwhm);
+  });
 }
 
 /** A band centre may lie up to this fraction of its FWHM below the low-energy end of the range. */
@@ -261,9 +280,9 @@ function chooseEdge(x: Float64Array, y: Float64Array, hull: Float64Array, noise:
 /**
  * Data are smooth when their measured noise is no more than the rounding
  * noise (1.5 q/√12), or, unrounded, under 2·10⁻⁴ of their range (smoothed
- * or computed data). On such data the noise says nothing about how well
- * Gaussians can describe real, asymmetric bands, and the band model's shape
- * error must be allowed for; on noisy data the noise dominates it.
+ * or computed data). On such data a broad residual of a few per cent is the
+ * band model's shape error, not a band, and a band's position must be well
+ * determined (a fifth of its FWHM) to stand.
  */
 function isSmooth(measured: number, quantum: number, y: Float64Array): boolean {
   let min = Number.POSITIVE_INFINITY;
