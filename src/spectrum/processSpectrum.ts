@@ -45,10 +45,17 @@
  *   the range) starts on when the end of the range rises, and is then tried
  *   off (when on) or on (when off), kept by the same criterion;
  * - a band is added where the residual still shows one, by the criterion.
+ *
+ * What is reported: a main band and a much weaker component on its
+ * high-energy side that together are one skewed band are one band
+ * (bandsMergeAsymmetric); each band with a maximum of its own is reported
+ * at that maximum of the data (xyBandMaximum), since an asymmetric band's
+ * Gaussian centre lies toward its tail; `components` keeps the Gaussians.
  */
 import { FieldgapError, invalidArgument } from '../errors.js';
 import { defaultThresholds, type ClassificationThresholds } from './bandClassify.js';
 import { bandsFromFit } from './bandsFromFit.js';
+import { bandsMergeAsymmetric } from './bandsMergeAsymmetric.js';
 import { fitBands } from './fitBands.js';
 import { gaussianValue } from './gaussian.js';
 import { spectrumToEnergy } from './spectrumToEnergy.js';
@@ -216,10 +223,12 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const epsilonPerSignal = energy.signalUnit === 'epsilon' ? 1 : concentration === undefined ? null : 1 / (concentration * pathLength);
   const thresholds = { ...defaultThresholds(geometry), ...options.thresholds };
   const edgeAt = (v: number) => (fit.edge === null ? 0 : gaussianValue(v, fit.edge.position, fit.edge.height, fit.edge.fwhm));
-  const { bands: found, relative } = bandsFromFit(fit.bands, {
-    epsilonPerSignal, positionSd: fit.positionSd, noise, gridStep: step, thresholds, range,
+  // One asymmetric band the fit described as a band and a high-energy component is reported as one band.
+  const joined = bandsMergeAsymmetric([...fit.bands].sort((a, b) => a.position - b.position), sortedSd(fit.bands, fit.positionSd), shapeError, narrowFwhm);
+  const { bands: found, relative } = bandsFromFit(joined.bands, {
+    epsilonPerSignal, positionSd: joined.positionSd, noise, gridStep: step, thresholds, range,
     baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
-    maxima: bandMaxima(fx, fy, polynomial(fx), edgeAt, fit.bands),
+    maxima: bandMaxima(fx, fy, polynomial(fx), edgeAt, joined.bands),
   });
   const bands = options.chargeTransferOnly === true ? found.map((b) => ({ ...b, kind: 'charge-transfer' as const })) : found;
   if (!fit.converged) warnings.push(`the band fit stopped after ${fit.iterations} iterations without converging: treat the band parameters with care`);
@@ -234,10 +243,16 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   if (fit.edge !== null) warnings.push(`a UV absorption edge was modelled (a Gaussian tail centred at ${fit.edge.position.toFixed(0)} cm-1, above the measured range)`);
   return {
     points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid, baseline, model,
-    signalUnit: energy.signalUnit, bands, components: fit.bands.map((b) => ({ position: b.position, height: b.height, fwhm: b.fwhm })),
+    signalUnit: energy.signalUnit, bands, components: joined.bands.map((b) => ({ position: b.position, height: b.height, fwhm: b.fwhm })),
     edge: fit.edge, noise, quantization: quantum, stepCorrections,
     fit: { points: fx.length, parameters: fit.parameters, rms: fit.rms, iterations: fit.iterations, converged: fit.converged }, warnings,
   };
+}
+
+/** The position deviations in the order of the bands sorted by position. */
+function sortedSd(bands: GaussianParameters[], sd: Float64Array): Float64Array {
+  const order = bands.map((_, k) => k).sort((i, j) => (bands[i] as GaussianParameters).position - (bands[j] as GaussianParameters).position);
+  return Float64Array.from(order, (k) => sd[k] as number);
 }
 
 /**
