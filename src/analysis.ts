@@ -36,7 +36,7 @@ export interface AnalyzeOptions {
   cOverB?: number;
   /** Fixed C, cm-1. */
   c?: number;
-  /** Fit C as well. @default true with three or more d–d bands found and neither c nor cOverB given, else false */
+  /** Fit C as well. @default false */
   freeC?: boolean;
   /**
    * Correct detector change-over steps. A step is corrected only on
@@ -147,11 +147,7 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
       bands: corrections?.bands ?? processed.bands.map(bandToFitInput),
       ...(options.cOverB !== undefined && { cOverB: options.cOverB }),
       ...(options.c !== undefined && { c: options.c }),
-      // Three or more d–d bands from a spectrum: C is fitted too unless the user fixes it or C/B (the fit fixes C/B at its
-      // prior, and says so, when these bands do not determine C). Complexes' C/B often lies well above the free ion's
-      // (about 5 for the weak quartets of high-spin d5 against 3.5 for free Mn2+), and those bands are C-sensitive.
-      ...(options.freeC !== undefined ? { freeC: options.freeC } : options.c === undefined && options.cOverB === undefined && corrections?.bands === undefined
-        && dd.length >= AUTO_FREE_C_BANDS && { freeC: true }),
+      ...(options.freeC !== undefined && { freeC: options.freeC }),
       ...(options.formula !== undefined && { formula: options.formula }),
       ...(options.ligands !== undefined && { ligands: options.ligands }),
       // The measured range: a strong transition predicted inside it must show a band.
@@ -197,9 +193,6 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
   }
   return result;
 }
-
-/** d–d bands found in a spectrum from which C is fitted as well, unless the user fixes C or C/B. */
-const AUTO_FREE_C_BANDS = 3;
 
 /** The geometry guessed from a formula, or undefined (the fit reports a bad formula with its path). */
 function formulaGeometry(formula: string | undefined): Geometry | undefined {
