@@ -13,12 +13,6 @@
  * own, as a chemist reads a spectrum), or when the second-derivative band
  * search found one band there in the data (`dataBands`: two Gaussians
  * fitted to one skewed band can make a shoulder the data do not have),
- * or, given the band-shape error (`shapeError`), when the higher one is a
- * much weaker (MAX_COMPONENT_RATIO) component closer than the lower one's
- * FWHM and their sum is one log-normal band of skewness ≤ 1.35 within twice
- * that error (gaussiansPairAsOneBand: the main band and high-energy
- * component a fit makes of one skewed band, a pair whose sum can show a
- * shoulder; a Jahn–Teller pair with its weaker part below fails it),
  * while the joined components span
  * no more than `span` cm-1 (2 000: the spread of spin–orbit multiplets of
  * first-row T terms, ζ ≈ 100–650 cm-1, and the limit the ligand-field fit
@@ -37,7 +31,6 @@
  */
 import { gaussiansMerge } from './fitBands.js';
 import { FOUR_LN2, gaussianValue } from './gaussian.js';
-import { pairAsOneBand } from './gaussiansPairAsOneBand.js';
 import type { GaussianParameters } from './xyRefineBands.js';
 
 export interface GroupMultipletsOptions {
@@ -53,22 +46,7 @@ export interface GroupMultipletsOptions {
    * minima are still one band when the data showed one there. @default none (the model's curvature decides)
    */
   dataBands?: readonly number[];
-  /**
-   * The band model's shape error, relative to a band's peak (processSpectrum's
-   * shapeError): turns on the skewed-pair rule. @default none (the rule is off)
-   */
-  shapeError?: number;
 }
-
-/**
- * Tallest high-energy component, relative to the main band, that a
- * two-Gaussian description of one skewed band has: a log-normal band of
- * skewness 1.29 on noisy data is fitted as a main band and a component of
- * 0.44 of its height (tests/spectrum/merge-asymmetric.test.ts); a
- * component of comparable height (the 4T1g(P) shoulder of Co(II)) is a
- * band of its own.
- */
-const MAX_COMPONENT_RATIO = 0.6;
 
 export interface MultipletGroups {
   /** One band per group, ascending position. */
@@ -87,7 +65,7 @@ interface Group {
 
 /** Groups bands (any order) with their position σ; see the file's docstring. */
 export function gaussiansGroupMultiplets(bands: readonly GaussianParameters[], positionSd: Float64Array, options: GroupMultipletsOptions = {}): MultipletGroups {
-  const { span = 2000, minFwhm = 1000, maxSeparation = 1, dataBands, shapeError } = options;
+  const { span = 2000, minFwhm = 1000, maxSeparation = 1, dataBands } = options;
   const order = bands.map((b, k) => ({ b, sd: positionSd[k] as number })).sort((p, q) => p.b.position - q.b.position);
   let groups: Group[] = order.map(({ b, sd }) => ({ parts: [b], sds: [sd], merged: b }));
   for (;;) {
@@ -100,10 +78,9 @@ export function gaussiansGroupMultiplets(bands: readonly GaussianParameters[], p
       const first = q.parts[0]!;
       if (last.fwhm < minFwhm || first.fwhm < minFwhm) continue;
       const d = first.position - last.position;
+      if (d >= maxSeparation * 0.5 * (last.fwhm + first.fwhm)) continue;
+      if (gaussiansCurvatureMinima([last, first]) > 1 && dataBandsBetween(dataBands, last, first) > 1) continue;
       if (q.parts[q.parts.length - 1]!.position - p.parts[0]!.position > span) continue;
-      const envelope = d < maxSeparation * 0.5 * (last.fwhm + first.fwhm)
-        && (gaussiansCurvatureMinima([last, first]) <= 1 || dataBandsBetween(dataBands, last, first) <= 1);
-      if (!envelope && !skewedPair(last, first, shapeError)) continue;
       if (d < gap) {
         gap = d;
         best = j;
@@ -175,11 +152,6 @@ export function gaussiansCurvatureMinima(parts: readonly GaussianParameters[]): 
     current = next;
   }
   return count;
-}
-
-/** A main band and its weaker high-energy component that together are one skewed band (see the file's docstring). */
-function skewedPair(p: GaussianParameters, q: GaussianParameters, shapeError: number | undefined): boolean {
-  return shapeError !== undefined && q.height <= MAX_COMPONENT_RATIO * p.height && q.position - p.position < p.fwhm && pairAsOneBand(p, q, shapeError) !== null;
 }
 
 /** How many data bands lie between two components (within a quarter FWHM beyond each); 2 (apart) when unknown. */

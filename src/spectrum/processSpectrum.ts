@@ -48,8 +48,8 @@
  * - a band is added where the residual still shows one, by the criterion.
  *
  * What is reported: fitted components of one envelope (an unresolved
- * multiplet, or a main band and a much weaker component on its high-energy
- * side that together are one skewed band) are one band
+ * multiplet, or a main band and the weaker high-energy component a fit
+ * makes of one skewed band) are one band
  * (gaussiansGroupMultiplets); each band with a maximum of its own is reported
  * at that maximum of the data (xyBandMaximum), since an asymmetric band's
  * Gaussian centre lies toward its tail; `components` keeps the Gaussians.
@@ -226,7 +226,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const thresholds = { ...defaultThresholds(geometry), ...options.thresholds };
   const edgeAt = (v: number) => (fit.edge === null ? 0 : gaussianValue(v, fit.edge.position, fit.edge.height, fit.edge.fwhm));
   // One band per envelope: a multiplet (spin–orbit, Jahn–Teller) or an asymmetric band fitted by two Gaussians is one band.
-  const grouped = gaussiansGroupMultiplets(fit.bands, fit.positionSd, { minFwhm: thresholds.narrowFwhm, dataBands: candidates.map((c) => c.position), shapeError });
+  const grouped = gaussiansGroupMultiplets(fit.bands, fit.positionSd, { minFwhm: thresholds.narrowFwhm, dataBands: candidates.map((c) => c.position) });
   grouped.components.forEach((parts, k) => {
     if (parts.length < 2) return;
     warnings.push(`fitted components at ${parts.map((b) => b.position.toFixed(0)).join(', ')} cm-1 overlap without a maximum or shoulder of their own: reported as one band at the maximum of their sum, ${grouped.bands[k]!.position.toFixed(0)} cm-1: a split (spin–orbit or Jahn–Teller) or asymmetric band`);
