@@ -24,9 +24,10 @@ export interface BandsFromFitOptions {
   /** Baseline slope (signal per cm-1) near each band, for the shoulder test. */
   baselineAt: (x: number) => number;
   /**
-   * Each band's maximum as measured (xyBandMaximum: position and σ, cm-1),
-   * or null: the reported position of a band with a maximum of its own
-   * inside the range, its σ added to the position's.
+   * Each band's reported position where it is not the Gaussian's centre
+   * (cm-1, with a σ added to the position's: its maximum as measured,
+   * xyBandMaximum, or an unresolved multiplet's centroid), or null; used
+   * only for a band inside the range that is not a shoulder.
    * @default the Gaussian centres
    */
   maxima?: ReadonlyArray<BandMaximum | null>;

@@ -26,7 +26,9 @@
  * (on the validation corpus, tests/accuracy/, the maximum of such groups was
  * off the true band maximum by 1 % on average, the area-weighted mean by
  * 1.8 %), and an unresolved multiplet's maximum lies within a few hundred
- * cm-1 of its centre. Its position σ is that of the area-weighted mean,
+ * cm-1 of its centre (processSpectrum then reports it at the data's
+ * maximum, or at the components' centroid when the top lies above their
+ * mean: see bandMaxima there). Its position σ is that of the area-weighted mean,
  * √Σ (a_k/A)² σ_k² (the components' covariance neglected).
  */
 import { gaussiansMerge } from './fitBands.js';

@@ -90,8 +90,9 @@ export interface Band {
   /**
    * Maximum of the band, cm-1: the top of the data the band describes (the
    * data less the baseline and the other bands), which on an asymmetric band
-   * lies on the steep side of the Gaussian's centre; the Gaussian's centre
-   * for a shoulder or a band centred beyond the range.
+   * lies on the steep side of the Gaussian's centre; the centroid of the
+   * fitted components of an unresolved multiplet whose top lies above it;
+   * the Gaussian's centre for a shoulder or a band centred beyond the range.
    */
   position: number;
   /** The same position as a wavelength in nm (10^7 / position). */
