@@ -46,7 +46,9 @@
  *   off (when on) or on (when off), kept by the same criterion;
  * - a band is added where the residual still shows one, by the criterion.
  *
- * What is reported: a main band and a much weaker component on its
+ * What is reported: a narrow band lower than five times the fit's residual
+ * beside it is noise, smoothed by the instrument so that second differences
+ * missed it (bandsAboveResidual); a main band and a much weaker component on its
  * high-energy side that together are one skewed band are one band
  * (bandsMergeAsymmetric); each band with a maximum of its own is reported
  * at that maximum of the data (xyBandMaximum), since an asymmetric band's
@@ -55,6 +57,7 @@
 import { FieldgapError, invalidArgument } from '../errors.js';
 import { defaultThresholds, type ClassificationThresholds } from './bandClassify.js';
 import { bandsFromFit } from './bandsFromFit.js';
+import { bandsAboveResidual } from './bandsAboveResidual.js';
 import { bandsMergeAsymmetric } from './bandsMergeAsymmetric.js';
 import { fitBands } from './fitBands.js';
 import { gaussianValue } from './gaussian.js';
@@ -224,7 +227,13 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const thresholds = { ...defaultThresholds(geometry), ...options.thresholds };
   const edgeAt = (v: number) => (fit.edge === null ? 0 : gaussianValue(v, fit.edge.position, fit.edge.height, fit.edge.fwhm));
   // One asymmetric band the fit described as a band and a high-energy component is reported as one band.
-  const joined = bandsMergeAsymmetric([...fit.bands].sort((a, b) => a.position - b.position), sortedSd(fit.bands, fit.positionSd), shapeError, narrowFwhm);
+  // The fit's residual on the kept points: what the model leaves, smoothed noise and all.
+  const residualAt = Float64Array.from(fy, (v, i) => v - (polynomial(fx.subarray(i, i + 1))[0] as number) - edgeAt(fx[i] as number)
+    - fit.bands.reduce((sum, b) => sum + gaussianValue(fx[i] as number, b.position, b.height, b.fwhm), 0));
+  const significant = bandsAboveResidual(fit.bands, fx, residualAt, narrowFwhm);
+  const fitBandsKept = significant.map((k) => fit.bands[k] as GaussianParameters);
+  const sdKept = Float64Array.from(significant, (k) => fit.positionSd[k] as number);
+  const joined = bandsMergeAsymmetric([...fitBandsKept].sort((a, b) => a.position - b.position), sortedSd(fitBandsKept, sdKept), shapeError, narrowFwhm);
   const { bands: found, relative } = bandsFromFit(joined.bands, {
     epsilonPerSignal, positionSd: joined.positionSd, noise, gridStep: step, thresholds, range,
     baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
