@@ -47,9 +47,11 @@
  *   off (when on) or on (when off), kept by the same criterion;
  * - a band is added where the residual still shows one, by the criterion.
  *
- * What is reported: fitted components of one envelope (an unresolved
- * multiplet, or a main band and the weaker high-energy component a fit
- * makes of one skewed band) are one band
+ * What is reported: a narrow band lower than five times the fit's residual
+ * beside it is noise, smoothed by the instrument so that second differences
+ * missed it (bandsAboveResidual); fitted components of one envelope (an
+ * unresolved multiplet, or a main band and the weaker high-energy component
+ * a fit makes of one skewed band) are one band
  * (gaussiansGroupMultiplets); each band with a maximum of its own is reported
  * at that maximum of the data (xyBandMaximum), since an asymmetric band's
  * Gaussian centre lies toward its tail; `components` keeps the Gaussians.
@@ -57,6 +59,7 @@
 import { FieldgapError, invalidArgument } from '../errors.js';
 import { defaultThresholds, type ClassificationThresholds } from './bandClassify.js';
 import { bandsFromFit } from './bandsFromFit.js';
+import { bandsAboveResidual } from './bandsAboveResidual.js';
 import { fitBands } from './fitBands.js';
 import { gaussiansGroupMultiplets } from './gaussiansGroupMultiplets.js';
 import { gaussianValue } from './gaussian.js';
@@ -225,8 +228,14 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const epsilonPerSignal = energy.signalUnit === 'epsilon' ? 1 : concentration === undefined ? null : 1 / (concentration * pathLength);
   const thresholds = { ...defaultThresholds(geometry), ...options.thresholds };
   const edgeAt = (v: number) => (fit.edge === null ? 0 : gaussianValue(v, fit.edge.position, fit.edge.height, fit.edge.fwhm));
+  // The fit's residual on the kept points: what the model leaves, smoothed noise and all.
+  const residualAt = Float64Array.from(fy, (v, i) => v - (polynomial(fx.subarray(i, i + 1))[0] as number) - edgeAt(fx[i] as number)
+    - fit.bands.reduce((sum, b) => sum + gaussianValue(fx[i] as number, b.position, b.height, b.fwhm), 0));
+  const significant = bandsAboveResidual(fit.bands, fx, residualAt, narrowFwhm);
   // One band per envelope: a multiplet (spin–orbit, Jahn–Teller) or an asymmetric band fitted by two Gaussians is one band.
-  const grouped = gaussiansGroupMultiplets(fit.bands, fit.positionSd, { minFwhm: thresholds.narrowFwhm, dataBands: candidates.map((c) => c.position) });
+  const grouped = gaussiansGroupMultiplets(significant.map((k) => fit.bands[k] as GaussianParameters), Float64Array.from(significant, (k) => fit.positionSd[k] as number), {
+    minFwhm: thresholds.narrowFwhm, dataBands: candidates.map((c) => c.position),
+  });
   const { bands: found, relative } = bandsFromFit(grouped.bands, {
     epsilonPerSignal, positionSd: grouped.positionSd, noise, gridStep: step, thresholds, range,
     baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
