@@ -187,7 +187,8 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
       signal: Array.from(processed.signal, (v) => (Number.isFinite(v) ? v : null)),
       baseline: Array.from(processed.baseline),
       model: Array.from(processed.model),
-      components: processed.bands.map((b) => Array.from(grid, (x) => gaussianValue(x, b.position, b.height, b.fwhm))),
+      // The fitted Gaussians (a band's reported position is its measured maximum, not the Gaussian's centre).
+      components: processed.components.map((b) => Array.from(grid, (x) => gaussianValue(x, b.position, b.height, b.fwhm))),
     };
   }
   return result;

@@ -1,9 +1,12 @@
 /**
- * Turning fitted Gaussians into reported bands: wavelength, ε, area,
- * oscillator strength, position uncertainty, the shoulder flag, kind.
+ * Turning fitted Gaussians into reported bands: position (the measured
+ * maximum when the caller found one, else the Gaussian centre), wavelength,
+ * ε, area, oscillator strength, position uncertainty, the shoulder flag,
+ * kind.
  */
 import { bandOscillatorStrength, gaussianArea } from './band-oscillator-strength.js';
 import { bandsClassify, type ClassificationThresholds } from './band-classify.js';
+import type { BandMaximum } from './xy-band-maximum.js';
 import { gaussianValue } from './gaussian.js';
 import type { Band, BandWindow } from './types.js';
 import type { GaussianParameters } from './xy-refine-bands.js';
@@ -20,6 +23,14 @@ export interface BandsFromFitOptions {
   range: [number, number];
   /** Baseline slope (signal per cm-1) near each band, for the shoulder test. */
   baselineAt: (x: number) => number;
+  /**
+   * Each band's reported position where it is not the Gaussian's centre
+   * (cm-1, with a σ added to the position's: its maximum as measured,
+   * xyBandMaximum, or an unresolved multiplet's centroid), or null; used
+   * only for a band inside the range that is not a shoulder.
+   * @default the Gaussian centres
+   */
+  maxima?: ReadonlyArray<BandMaximum | null>;
 }
 
 /**
@@ -65,7 +76,7 @@ const EXTRAPOLATION: Record<BandWindow, number> = {
 };
 
 export function bandsFromFit(bands: GaussianParameters[], options: BandsFromFitOptions): { bands: Band[]; relative: boolean } {
-  const { epsilonPerSignal, positionSd, noise, gridStep, thresholds, baselineAt, range } = options;
+  const { epsilonPerSignal, positionSd, noise, gridStep, thresholds, baselineAt, range, maxima } = options;
   const epsilons = bands.map((b) => (epsilonPerSignal === null ? null : b.height * epsilonPerSignal));
   const { kinds, relative } = bandsClassify(
     bands.map((b, k) => ({ position: b.position, fwhm: b.fwhm, height: b.height, epsilon: epsilons[k] ?? null })),
@@ -77,17 +88,21 @@ export function bandsFromFit(bands: GaussianParameters[], options: BandsFromFitO
     const sd = positionSd[k] as number;
     // Fallback when the covariance is singular: FWHM · (σ / height) / √(points within the FWHM).
     const fallback = (b.fwhm * noise) / Math.max(b.height, 1e-300) / Math.sqrt(Math.max(b.fwhm / gridStep, 1));
+    const shoulder = isShoulder(b, bands, baselineAt);
+    // A band with a maximum of its own inside the range is reported at that maximum (an asymmetric band's centre is not its maximum).
+    const maximum = shoulder || window.startsWith('beyond') ? null : (maxima?.[k] ?? null);
+    const position = maximum?.position ?? b.position;
     return {
-      position: b.position,
-      wavelength: 1e7 / b.position,
+      position,
+      wavelength: 1e7 / position,
       height: b.height,
       epsilon,
       fwhm: b.fwhm,
       area: gaussianArea(b.height, b.fwhm),
       oscillatorStrength: epsilon === null ? null : bandOscillatorStrength(epsilon, b.fwhm),
       kind: kinds[k] ?? 'd-d',
-      positionUncertainty: Math.hypot(Number.isFinite(sd) ? sd : fallback, EXTRAPOLATION[window] * b.fwhm),
-      shoulder: isShoulder(b, bands, baselineAt),
+      positionUncertainty: Math.hypot(Number.isFinite(sd) ? sd : fallback, maximum?.sd ?? 0, EXTRAPOLATION[window] * b.fwhm),
+      shoulder,
       window,
       maximumInWindow: window === 'inside' || window.startsWith('near'),
     };

@@ -335,7 +335,11 @@ const BASELINE_BROAD = 3;
  * which the straight baseline cannot follow: it is tried replaced by one
  * more order of the baseline polynomial (up to 3) and the model
  * simplified so when the criterion does not prefer the broad band by more
- * than BIC_MARGIN (a simpler model, as in the merge of two bands).
+ * than BIC_MARGIN (a simpler model, as in the merge of two bands). Where
+ * the data show a maximum under the broad band (a band candidate of d–d
+ * width within its half width: the 3T1g(P) band of Ni(II) beside a steep
+ * charge-transfer onset), that band restarts from the candidate instead of
+ * going with the curvature.
  * Changes ctx.o's baseline order when it succeeds. Only where the model
  * keeps another band: a lone band is never taken for the baseline.
  */
@@ -346,7 +350,13 @@ function broadBandsToBaseline(ctx: Context, fit: RefineBandsResult): RefineBands
   const order = o.baselineOrder + 1;
   const scale = xPolynomialScale(x);
   const raised: FitBandModelOptions = { ...o, baselineOrder: order, baselineStart: xyPolynomialFit(x, o.baselineGuess, order, scale) };
-  const trial = refine(x, y, fit.bands.filter((b) => !broad.includes(b)), fit.edge, raised);
+  // A broad band over a maximum the data show (a band candidate of d–d width within its half width) has taken up the
+  // baseline's curvature beside a real band: that band restarts from the candidate, rather than going with the curvature.
+  const restarted = broad.flatMap((b) => o.candidates
+    .filter((c) => c.fwhm <= UNDER_EDGE_BROADEST * o.broadFwhm && Math.abs(c.position - b.position) < 0.5 * b.fwhm)
+    .filter((c) => fit.bands.every((k) => broad.includes(k) || Math.abs(k.position - c.position) > 0.5 * k.fwhm))
+    .map((c) => ({ position: c.position, height: c.height, fwhm: c.fwhm })));
+  const trial = refine(x, y, [...fit.bands.filter((b) => !broad.includes(b)), ...restarted].sort((a, b) => a.position - b.position), fit.edge, raised);
   if (ctx.score(trial) >= ctx.score(fit) + BIC_MARGIN) return fit;
   ctx.o = raised;
   return trial;

@@ -7,11 +7,13 @@
  * hand the ligand-field fit bands that do not exist.
  *
  * Rule: neighbouring broad components (FWHM at least `minFwhm`, so never a
- * narrow spin-flip line on a broad band) whose sum shows one minimum of the
- * second derivative, not two (no maximum or shoulder of its own, as a
- * chemist reads a spectrum and as the second-derivative band search sees
- * it), and that are less than `maxSeparation` × their mean FWHM apart, are
- * joined, closest pair first, while the joined components span
+ * narrow spin-flip line on a broad band) less than `maxSeparation` × their
+ * mean FWHM apart are joined, closest pair first, when their sum shows one
+ * minimum of the second derivative, not two (no maximum or shoulder of its
+ * own, as a chemist reads a spectrum), or when the second-derivative band
+ * search found one band there in the data (`dataBands`: two Gaussians
+ * fitted to one skewed band can make a shoulder the data do not have),
+ * while the joined components span
  * no more than `span` cm-1 (2 000: the spread of spin–orbit multiplets of
  * first-row T terms, ζ ≈ 100–650 cm-1, and the limit the ligand-field fit
  * uses for a split pair, src/fit/penalties.ts; common practice). Resolved
@@ -24,7 +26,9 @@
  * (on the validation corpus, tests/accuracy/, the maximum of such groups was
  * off the true band maximum by 1 % on average, the area-weighted mean by
  * 1.8 %), and an unresolved multiplet's maximum lies within a few hundred
- * cm-1 of its centre. Its position σ is that of the area-weighted mean,
+ * cm-1 of its centre (processSpectrum then reports it at the data's
+ * maximum, or at the components' centroid when the top lies above their
+ * mean: see bandMaxima there). Its position σ is that of the area-weighted mean,
  * √Σ (a_k/A)² σ_k² (the components' covariance neglected).
  */
 import { gaussiansMerge } from './fit-band-model.js';
@@ -38,6 +42,12 @@ export interface GroupMultipletsOptions {
   minFwhm?: number;
   /** Neighbours at least this fraction of their mean FWHM apart are never joined. @default 1 */
   maxSeparation?: number;
+  /**
+   * Positions of the bands the second-derivative search found in the data
+   * (before any fit), cm-1. Two components whose sum shows two curvature
+   * minima are still one band when the data showed one there. @default none (the model's curvature decides)
+   */
+  dataBands?: readonly number[];
 }
 
 export interface MultipletGroups {
@@ -57,7 +67,7 @@ interface Group {
 
 /** Groups bands (any order) with their position σ; see the file's docstring. */
 export function gaussiansGroupMultiplets(bands: readonly GaussianParameters[], positionSd: Float64Array, options: GroupMultipletsOptions = {}): MultipletGroups {
-  const { span = 2000, minFwhm = 1000, maxSeparation = 1 } = options;
+  const { span = 2000, minFwhm = 1000, maxSeparation = 1, dataBands } = options;
   const order = bands.map((b, k) => ({ b, sd: positionSd[k] as number })).sort((p, q) => p.b.position - q.b.position);
   let groups: Group[] = order.map(({ b, sd }) => ({ parts: [b], sds: [sd], merged: b }));
   for (;;) {
@@ -70,7 +80,8 @@ export function gaussiansGroupMultiplets(bands: readonly GaussianParameters[], p
       const first = q.parts[0]!;
       if (last.fwhm < minFwhm || first.fwhm < minFwhm) continue;
       const d = first.position - last.position;
-      if (d >= maxSeparation * 0.5 * (last.fwhm + first.fwhm) || gaussiansCurvatureMinima([last, first]) > 1) continue;
+      if (d >= maxSeparation * 0.5 * (last.fwhm + first.fwhm)) continue;
+      if (gaussiansCurvatureMinima([last, first]) > 1 && dataBandsBetween(dataBands, last, first) > 1) continue;
       if (q.parts[q.parts.length - 1]!.position - p.parts[0]!.position > span) continue;
       if (d < gap) {
         gap = d;
@@ -143,4 +154,10 @@ export function gaussiansCurvatureMinima(parts: readonly GaussianParameters[]): 
     current = next;
   }
   return count;
+}
+
+/** How many data bands lie between two components (within a quarter FWHM beyond each); 2 (apart) when unknown. */
+function dataBandsBetween(dataBands: readonly number[] | undefined, p: GaussianParameters, q: GaussianParameters): number {
+  if (dataBands === undefined) return 2;
+  return dataBands.filter((x) => x >= p.position - 0.25 * p.fwhm && x <= q.position + 0.25 * q.fwhm).length;
 }

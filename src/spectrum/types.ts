@@ -87,9 +87,15 @@ export type BandWindow = 'inside' | 'near-red-end' | 'near-blue-end' | 'beyond-r
 
 /** One absorption band, modelled as a Gaussian in energy. */
 export interface Band {
-  /** Centre of the band, cm-1. */
+  /**
+   * Maximum of the band, cm-1: the top of the data the band describes (the
+   * data less the baseline and the other bands), which on an asymmetric band
+   * lies on the steep side of the Gaussian's centre; the centroid of the
+   * fitted components of an unresolved multiplet whose top lies above it;
+   * the Gaussian's centre for a shoulder or a band centred beyond the range.
+   */
   position: number;
-  /** The same centre as a wavelength in nm (10^7 / position). */
+  /** The same position as a wavelength in nm (10^7 / position). */
   wavelength: number;
   /** Peak height above the baseline in the signal unit (absorbance, or ε when the file holds ε). */
   height: number;
@@ -156,6 +162,8 @@ export interface ProcessedSpectrum {
   /** The signal unit: 'absorbance', or 'epsilon' when the input was ε. */
   signalUnit: 'absorbance' | 'epsilon';
   bands: Band[];
+  /** Each band's fitted Gaussian (centre, height, FWHM; cm-1 and signal unit), in the order of `bands`: the curves to draw. */
+  components: Array<{ position: number; height: number; fwhm: number }>;
   edge: AbsorptionEdge | null;
   /** Noise standard deviation on the grid, signal unit. */
   noise: number;

@@ -14,7 +14,8 @@ describe('classification thresholds (common practice, Lever 1984)', () => {
     expect(bandKindFromEpsilon(band(140), oct)).toBe('d-d'); // common practice: octahedral spin-allowed ε ≈ 1–150
     expect(bandKindFromEpsilon(band(0.3), oct)).toBe('spin-forbidden'); // common practice: spin-forbidden ε < ~1
     expect(bandKindFromEpsilon(band(3, 600), oct, 30)).toBe('spin-forbidden'); // common practice: narrow spin-flip band well below the spin-allowed ones
-    expect(bandKindFromEpsilon(band(3, 600), oct)).toBe('d-d'); // alone it is the strongest band: never spin-forbidden
+    expect(bandKindFromEpsilon(band(6, 600), oct)).toBe('d-d'); // alone it is the strongest band: never spin-forbidden (area of ε 1.4 at 2500 cm-1)
+    expect(bandKindFromEpsilon(band(3, 600), oct)).toBe('spin-forbidden'); // alone, but its area is that of ε 0.72 at the typical width: below ε 1 (common practice)
     expect(bandKindFromEpsilon(band(5000), oct)).toBe('charge-transfer'); // common practice: CT ε > ~1000
     expect(bandKindFromEpsilon(band(400, 7000, 32000), oct)).toBe('charge-transfer'); // broad and strong at the UV edge
   });

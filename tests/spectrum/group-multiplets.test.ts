@@ -71,3 +71,13 @@ describe('gaussiansGroupMultiplets', () => {
     expect(Array.from(g.positionSd)).toEqual([7, 5]);
   });
 });
+
+describe('gaussiansGroupMultiplets with the bands the data showed', () => {
+  it('joins two components whose sum shows a shoulder when the data showed one band there, not when they showed two', () => {
+    const parts = [{ position: 16193, height: 0.487, fwhm: 2254 }, { position: 18085, height: 0.221, fwhm: 2105 }];
+    expect(gaussiansCurvatureMinima(parts)).toBe(2);
+    expect(gaussiansGroupMultiplets(parts, new Float64Array(2)).bands).toHaveLength(2);
+    expect(gaussiansGroupMultiplets(parts, new Float64Array(2), { dataBands: [16400] }).bands).toHaveLength(1);
+    expect(gaussiansGroupMultiplets(parts, new Float64Array(2), { dataBands: [16200, 18100] }).bands).toHaveLength(2);
+  });
+});
