@@ -261,12 +261,15 @@ export function shownFit(entry: AnalysisEntry): FitResult | null {
   const shown: FitResult = {
     ...fit,
     uncertainty: { tenDq: null, b: null, c: null },
+    // An alternative is not refined: none of the best fit's uncertainties apply to it (as fitWithAlternative in src/analysis-corrections.ts).
+    betaSd: null,
     predicted: [],
     unassigned: [],
     warnings: alternative.reason === undefined ? [] : [`alternative assignment: ${alternative.reason}`],
     notes: [],
     message: 'an alternative assignment, shown for comparison',
   };
+  if (alternative.probability !== undefined) shown.probability = alternative.probability;
   if (alternative.tenDq !== undefined) shown.tenDq = alternative.tenDq;
   if (alternative.dq !== undefined) shown.dq = alternative.dq;
   if (alternative.b !== undefined) shown.b = alternative.b;
@@ -283,7 +286,9 @@ export function shownFit(entry: AnalysisEntry): FitResult | null {
       shown.spinOnlyMoment = Math.sqrt(n * (n + 2));
     }
   }
-  shown.cOverB = shown.b !== null && shown.c !== null && shown.b > 0 ? shown.c / shown.b : fit.cOverB;
+  // Rounded as the core rounds C/B and μ (src/fit/result.ts, src/analysis-corrections.ts).
+  shown.cOverB = shown.b !== null && shown.c !== null && shown.b > 0 ? Math.round((1000 * shown.c) / shown.b) / 1000 : fit.cOverB;
+  shown.spinOnlyMoment = Math.round(1000 * shown.spinOnlyMoment) / 1000;
   return shown;
 }
 
