@@ -6,6 +6,7 @@
 import { parseFormula } from '../src/chemistry/formula.js';
 import { findLigand } from '../src/chemistry/ligands.js';
 import { bandFitSigma, bandFlagsOf } from '../src/band-fit-input.js';
+import { unpairedFromTerm } from '../src/analysis-corrections.js';
 import type { AnalyzeResult, ApiErrorBody, Band, BandFlag, BandKind, FitResult, Geometry, XUnit } from './types.js';
 
 /** What the user says about the sample; sent with the analysis and stored with it. */
@@ -241,11 +242,6 @@ export function hasBandCorrections(entry: AnalysisEntry): boolean {
   });
 }
 
-/** Unpaired electrons from a term's multiplicity 2S+1 (n = 2S). */
-export function unpairedFromTerm(term: string): number | null {
-  const match = /^(\d+)/.exec(term);
-  return match === null ? null : Number(match[1]) - 1;
-}
 
 /**
  * The fit shown: an alternative when the user picked one, else the best.
