@@ -9,9 +9,9 @@ import { formatPlusMinus } from '../../report/plus-minus.js';
 import { textTableLines, type ColumnAlign } from '../../report/text-table.js';
 import type { FitResult } from '../../fit/types.js';
 
-/** The line `library add` prints for a saved record (as the one-file add does). */
+/** The lines `library add` prints for a saved record (one file or many), stored text neutralised. */
 export function savedText(saved: AnalysisRecord): string {
-  return `saved #${saved.id} "${saved.sample}"${saved.ion ? ` (${saved.ion})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`;
+  return `saved #${saved.id} "${terminalSafe(saved.sample)}"${saved.ion ? ` (${terminalSafe(saved.ion)})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`;
 }
 
 /** "17400 ± 150" with the uncertainty to 2 significant figures and the value to match. */

@@ -115,7 +115,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
     const result = analyzeSpectrum(content, options);
     const saved = await withLibrary(values, io, (library) => library.add({ ...details, fileName: basename(file), content, options, result }));
     if (values.json) io.stdout(`${JSON.stringify(saved, null, 2)}\n`);
-    else io.stdout(`saved #${saved.id} "${terminalSafe(saved.sample)}"${saved.ion ? ` (${terminalSafe(saved.ion)})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`);
+    else io.stdout(savedText(saved));
     return 0;
   },
 
