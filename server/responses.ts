@@ -100,6 +100,11 @@ const penalty = z.looseObject({ rule: z.string(), amount: num.meta({ description
  * `satisfies` below fails to compile when the core gains or loses a field
  * this document does not describe.
  */
+const assignedBand = z.looseObject({
+  ...assignmentBrief, parent: z.string(), multiplicity: z.number().int(), spinAllowed: z.boolean(),
+  bands: z.array(z.number().int()), flags: z.array(z.string()), coincident: z.array(z.string()),
+});
+
 const fitShape = {
   d: z.number().int(),
   ion: z.string().nullable(),
@@ -137,18 +142,13 @@ const fitShape = {
   window: z.looseObject({ min: num, max: num }).nullable(),
   ligands: z.array(z.string()),
   penalties: z.array(penalty),
-  assignments: z.array(
-    z.looseObject({
-      ...assignmentBrief, parent: z.string(), multiplicity: z.number().int(), spinAllowed: z.boolean(),
-      bands: z.array(z.number().int()), flags: z.array(z.string()), coincident: z.array(z.string()),
-    }),
-  ),
+  assignments: z.array(assignedBand),
   unassigned: z.array(z.looseObject({ observed: num, band: z.number().int(), reason: z.string() })),
   skipped: z.array(z.looseObject({ energy: num, term: z.string(), label: z.string(), reason: z.string() })),
   alternatives: z.array(z.looseObject({
-    assignments: z.array(z.looseObject(assignmentBrief)),
-    rmsResidual: num, score: num, penalties: z.array(penalty), dq: num, tenDq: num, b: nullableNum, c: nullableNum, beta: nullableNum,
-    groundTerm: z.string(), spinState, reason: z.string(),
+    assignments: z.array(assignedBand),
+    rmsResidual: num, chiSquare: num, score: num, penalties: z.array(penalty), dq: num, tenDq: num, b: nullableNum, c: nullableNum, beta: nullableNum,
+    groundTerm: z.string(), groundLabel: z.string(), spinState, reason: z.string(),
     probability: num.meta({ description: 'Probability of this alternative among the solutions evaluated.' }),
   })),
   crossover: z.looseObject({ dqOverB: num, fittedDqOverB: num, difference: num, percent: num, near: z.boolean() }).nullable(),

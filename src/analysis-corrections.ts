@@ -17,6 +17,7 @@
  */
 import { invalidArgument } from './errors.js';
 import { normalizeBands, type BandInput } from './fit/bands.js';
+import { ligandFieldStabilisation, spinOnlyMoment } from './fit/lfse.js';
 import type { FitResult } from './fit/types.js';
 
 export interface AnalysisCorrections {
@@ -84,43 +85,57 @@ export function unpairedFromTerm(term: string): number | null {
 }
 
 /**
- * The fit with one of its alternative assignments in place of the best:
- * that alternative's parameters, assignments and spin state. An alternative
- * carries no uncertainties, so they are null; its magnetism follows its own
- * ground term (spin-only μ = √(n(n+2)) μB); C/B is its C over its B.
- * The page shows an alternative the same way (web/state.ts shownFit).
+ * The fit with one of its alternative assignments in place of the best: a
+ * complete FitResult whose every field is either the alternative's own or
+ * honestly empty, never the best fit's. Its parameters, assignment rows,
+ * ground level, spin state, score, χ², probability and penalties are the
+ * alternative's; its magnetism and LFSE follow its own ground term and Dq
+ * (spin-only μ = √(n(n+2)) μB); C/B is its C over its B. An alternative is
+ * not refined for uncertainties, so uncertainty, betaSd and correlation are
+ * null; its predicted, skipped and unassigned lists and its crossover are
+ * not computed, so they are empty (null). The page shows an alternative the
+ * same way (web/state.ts shownFit, checked against this in tests).
  */
 export function fitWithAlternative(fit: FitResult, index: number, path = 'corrections.alternative'): FitResult {
   const alternative = fit.alternatives[index];
   if (alternative === undefined) {
     throw invalidArgument(path, `${path}: the fit has ${fit.alternatives.length} alternative assignment${fit.alternatives.length === 1 ? '' : 's'}, no number ${index + 1}`);
   }
-  const shown: FitResult = {
+  const n = unpairedFromTerm(alternative.groundTerm) ?? fit.unpairedElectrons;
+  const lfse = ligandFieldStabilisation(fit.d, n, fit.geometry, alternative.dq);
+  const b = alternative.b;
+  const c = alternative.c;
+  return {
     ...fit,
-    uncertainty: { tenDq: null, dq: null, b: null, c: null },
-    predicted: [],
-    unassigned: [],
-    warnings: [`alternative assignment: ${alternative.reason}`],
-    notes: [],
-    message: 'an alternative assignment, chosen by the user',
-    tenDq: alternative.tenDq,
     dq: alternative.dq,
-    b: alternative.b,
-    c: alternative.c,
+    tenDq: alternative.tenDq,
+    b,
+    c,
+    cOverB: b !== null && c !== null && b > 0 ? Math.round((1000 * c) / b) / 1000 : null,
     beta: alternative.beta,
-    rmsResidual: alternative.rmsResidual,
-    assignments: alternative.assignments as FitResult['assignments'],
+    groundTerm: alternative.groundTerm,
+    groundLabel: alternative.groundLabel,
     spinState: alternative.spinState,
+    unpairedElectrons: n,
+    spinOnlyMoment: Math.round(1000 * spinOnlyMoment(n)) / 1000,
+    lfse: { ...lfse, cm1: Math.round(10 * lfse.cm1) / 10 },
+    rmsResidual: alternative.rmsResidual,
+    message: 'an alternative assignment, chosen by the user',
+    uncertainty: { tenDq: null, dq: null, b: null, c: null },
+    betaSd: null,
+    correlation: { bDq: null, cDq: null, cB: null },
+    score: alternative.score,
+    chiSquare: alternative.chiSquare,
+    probability: alternative.probability,
+    undetermined: b === null ? [{ parameter: 'b', reason: 'the alternative assignment does not fix B', action: 'B, C and β are not reported (null)' }] : [],
+    penalties: alternative.penalties,
+    assignments: alternative.assignments,
+    unassigned: [],
+    skipped: [],
     alternatives: fit.alternatives,
+    crossover: null,
+    predicted: [],
+    warnings: [`alternative assignment: ${alternative.reason}`],
+    notes: ['an alternative assignment is not refined: no uncertainties, predicted transitions, skipped transitions or spin-crossover distance'],
   };
-  if (alternative.groundTerm !== fit.groundTerm) {
-    shown.groundTerm = alternative.groundTerm;
-    const n = unpairedFromTerm(alternative.groundTerm);
-    if (n !== null) {
-      shown.unpairedElectrons = n;
-      shown.spinOnlyMoment = Math.sqrt(n * (n + 2));
-    }
-  }
-  shown.cOverB = shown.b !== null && shown.c !== null && shown.b > 0 ? shown.c / shown.b : fit.cOverB;
-  return shown;
 }

@@ -6,6 +6,7 @@
 import { parseFormula } from '../src/chemistry/formula.js';
 import { findLigand } from '../src/chemistry/ligands.js';
 import { bandFitSigma, bandFlagsOf } from '../src/band-fit-input.js';
+import { unpairedFromTerm } from '../src/analysis-corrections.js';
 import type { AnalyzeResult, ApiErrorBody, Band, BandFlag, BandKind, FitResult, Geometry, XUnit } from './types.js';
 
 /** What the user says about the sample; sent with the analysis and stored with it. */
@@ -241,11 +242,6 @@ export function hasBandCorrections(entry: AnalysisEntry): boolean {
   });
 }
 
-/** Unpaired electrons from a term's multiplicity 2S+1 (n = 2S). */
-export function unpairedFromTerm(term: string): number | null {
-  const match = /^(\d+)/.exec(term);
-  return match === null ? null : Number(match[1]) - 1;
-}
 
 /**
  * The fit shown: an alternative when the user picked one, else the best.
@@ -261,12 +257,15 @@ export function shownFit(entry: AnalysisEntry): FitResult | null {
   const shown: FitResult = {
     ...fit,
     uncertainty: { tenDq: null, b: null, c: null },
+    // An alternative is not refined: none of the best fit's uncertainties apply to it (as fitWithAlternative in src/analysis-corrections.ts).
+    betaSd: null,
     predicted: [],
     unassigned: [],
     warnings: alternative.reason === undefined ? [] : [`alternative assignment: ${alternative.reason}`],
     notes: [],
     message: 'an alternative assignment, shown for comparison',
   };
+  if (alternative.probability !== undefined) shown.probability = alternative.probability;
   if (alternative.tenDq !== undefined) shown.tenDq = alternative.tenDq;
   if (alternative.dq !== undefined) shown.dq = alternative.dq;
   if (alternative.b !== undefined) shown.b = alternative.b;
@@ -283,7 +282,9 @@ export function shownFit(entry: AnalysisEntry): FitResult | null {
       shown.spinOnlyMoment = Math.sqrt(n * (n + 2));
     }
   }
-  shown.cOverB = shown.b !== null && shown.c !== null && shown.b > 0 ? shown.c / shown.b : fit.cOverB;
+  // Rounded as the core rounds C/B and μ (src/fit/result.ts, src/analysis-corrections.ts).
+  shown.cOverB = shown.b !== null && shown.c !== null && shown.b > 0 ? Math.round((1000 * shown.c) / shown.b) / 1000 : fit.cOverB;
+  shown.spinOnlyMoment = Math.round(1000 * shown.spinOnlyMoment) / 1000;
   return shown;
 }
 

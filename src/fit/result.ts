@@ -140,11 +140,12 @@ function alternativeOf(alt: Evaluated, best: Evaluated, settings: FitSettings, p
   const rows = assignmentRows(alt);
   const b = alt.bDetermined ? alt.params.b : null;
   return {
-    assignments: rows.map(({ observed, calculated, residual, term, label }) => ({ observed, calculated, residual, term, label })),
-    rmsResidual: round(alt.wrms), score: round(alt.score, 2), probability: round(probability, 4), penalties: roundPenalties(alt.penalties),
+    assignments: rows,
+    rmsResidual: round(alt.wrms), chiSquare: round(alt.chiSquare, 2), score: round(alt.score, 2), probability: round(probability, 4), penalties: roundPenalties(alt.penalties),
     dq: round(alt.params.dq, 2), tenDq: round(10 * alt.params.dq), b: b === null ? null : round(b),
     c: b === null ? null : round(alt.params.c), beta: b !== null && settings.b0 ? round(b / settings.b0, 4) : null,
-    groundTerm: alt.groundTerm, spinState: alt.spinState, reason: reasonAgainst(alt, best),
+    groundTerm: alt.groundTerm, groundLabel: alt.candidate.scan.ids[alt.candidate.branch.ground]!.label,
+    spinState: alt.spinState, reason: reasonAgainst(alt, best),
   };
 }
 

@@ -80,8 +80,11 @@ export interface SkippedTransition {
 }
 
 export interface Alternative {
-  assignments: Array<Pick<AssignedBand, 'observed' | 'calculated' | 'residual' | 'term' | 'label'>>;
+  /** The full assignment rows, as in FitResult.assignments, so that a chosen alternative is a complete fit result. */
+  assignments: AssignedBand[];
   rmsResidual: number;
+  /** χ² of the band positions under this assignment (part of score). */
+  chiSquare: number;
   /** Deviance, −2·ln of the posterior up to a constant (likelihood.ts): lower is better. */
   score: number;
   /** Probability of this solution among those evaluated, exp(−score/2) normalised. */
@@ -93,6 +96,7 @@ export interface Alternative {
   c: number | null;
   beta: number | null;
   groundTerm: string;
+  groundLabel: string;
   spinState: SpinState;
   /** Why the chosen assignment was preferred to this one. */
   reason: string;

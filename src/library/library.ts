@@ -1,88 +1,22 @@
-import { createHash } from 'node:crypto';
 import { FieldgapError, invalidArgument, isFieldgapError } from '../errors.js';
 import { packageVersion as toolVersion } from '../version.js';
 import { DIALECT_SQL, type SqlEngine, type SqlTx } from './engine.js';
-import { openPostgresEngine, type PostgresEngineOptions } from './postgres-engine.js';
+import { checkId, jsonText, notFound, originalBytes, pageNumber, sha256Hex, words } from './input-checks.js';
+import type { Library, LibraryLocation, LibraryOptions } from './library-api.js';
+import { openPostgresEngine } from './postgres-engine.js';
 import { fitParams, likeWord, revisionFromRow, SUMMARY_SELECT, summaryFromRow, type FitColumns, type RevisionRow, type SummaryRow } from './rows.js';
-import { LIBRARY_FILE, openSqliteEngine, type SqliteEngineOptions } from './sqlite-engine.js';
+import { LIBRARY_FILE, openSqliteEngine } from './sqlite-engine.js';
 import { ionOfResult, summarizeResult } from './summary.js';
 import type {
-  AnalysisPatch, AnalysisRecord, AnalysisSummary, FitRow, ListOptions, ListPage, NewAnalysis, OriginalFile, StoredOptions, StoredResult,
+  AnalysisPatch, AnalysisRecord, FitRow, ListOptions, NewAnalysis, StoredOptions, StoredResult,
 } from './types.js';
-import { userStoreOver, type RecordScope, type UserStore } from './users.js';
+import { userStoreOver, type RecordScope } from './users.js';
 import { baseFileName, canonicalIon, canonicalIonOrNull, checkDetails } from './validate.js';
 
 export { LIBRARY_FILE };
 
-export interface LibraryOptions extends SqliteEngineOptions, PostgresEngineOptions {
-  /** Largest original file accepted, bytes. Default 32 MiB. */
-  maxOriginalBytes?: number;
-}
-
-/**
- * The results library: analyses with their original files (byte for byte,
- * with SHA-256) and every revision. One interface, two engines (SQLite, the
- * embedded default; PostgreSQL, shared by several instances): the rules
- * below are written once, the engines differ only in SQL dialect and in how
- * they open and lock. Every method is async (PostgreSQL's client is).
- */
-export interface Library {
-  /** "sqlite" or "postgres". */
-  readonly engine: SqlEngine['dialect'];
-  /** True when writes are refused (a read-only data folder): reads still work. */
-  readonly readOnly: boolean;
-  /** Stores a new analysis (details, original bytes, options, result) and returns it with its id. */
-  add(record: NewAnalysis): Promise<AnalysisRecord>;
-  /**
-   * Stores many analyses in one transaction (one commit, one fsync): each
-   * entry of the answer is the stored record, or the FieldgapError that kept
-   * that one record out (bad details, an original over the limit), in the
-   * order given. Nothing is stored unless the whole call resolves: a database
-   * failure rejects it and no record of the batch is kept.
-   */
-  addMany(records: readonly NewAnalysis[]): Promise<(AnalysisRecord | FieldgapError)[]>;
-  /** One page of records, newest first, filtered by `query` words and `ion`. */
-  list(options?: ListOptions): Promise<ListPage>;
-  /** Every record matching the filter (no paging), newest first: for export and series. */
-  listAll(filter?: Pick<ListOptions, 'query' | 'ion' | 'sha256'>): Promise<AnalysisSummary[]>;
-  /**
-   * Every record matching the filter, newest first, one page at a time
-   * (`pageSize` records, default 500; each page its own read, resuming after
-   * the last id), so an export streams without holding the library in
-   * memory. Records added during the walk are not included.
-   */
-  listPages(filter?: Pick<ListOptions, 'query' | 'ion' | 'sha256'>, pageSize?: number): AsyncIterable<AnalysisSummary[]>;
-  /**
-   * Every matching record's id, sample, formula, ligands, ion and the fit
-   * numbers of a series (no paging), newest first: what `listAll` gives, cut
-   * to what a series reads, so 100 000 records come back in a fraction of the time.
-   */
-  listFits(filter?: Pick<ListOptions, 'query' | 'ion'>): Promise<FitRow[]>;
-  get(id: number): Promise<AnalysisRecord>;
-  /** The full records of `ids`, in the order given, in one read; ids not in the library (or out of scope) are left out. */
-  getMany(ids: readonly number[]): Promise<AnalysisRecord[]>;
-  /** The original file, byte for byte as it was added. */
-  getOriginal(id: number): Promise<OriginalFile>;
-  /** Edits details and/or adds a revision (options with result); returns the updated record. */
-  update(id: number, patch: AnalysisPatch): Promise<AnalysisRecord>;
-  /** Deletes the record, its original and its history. */
-  remove(id: number): Promise<void>;
-  /** Resolves when the database answers; rejects with 'storage-unavailable' when it does not. */
-  ping(): Promise<void>;
-  /**
-   * The same library as seen by one user: only their group's records (all
-   * for an administrator), new records added in their name and group. A
-   * record outside the scope is 'not-found', as if it did not exist. The
-   * view shares this library's connection; its close() does nothing.
-   */
-  scoped(scope: RecordScope): Library;
-  /** The users and their tokens (users.ts). */
-  readonly users: UserStore;
-  close(): Promise<void>;
-}
-
-/** Where a library lives: a data folder (SQLite) or a PostgreSQL database. */
-export type LibraryLocation = { engine: 'sqlite'; dataDir: string } | { engine: 'postgres'; url: string };
+export type { Library, LibraryLocation, LibraryOptions } from './library-api.js';
+export { sha256Hex };
 
 /** Opens (creating when needed) the SQLite library in `dataDir`. */
 export async function openLibrary(dataDir: string, options: LibraryOptions = {}): Promise<Library> {
@@ -425,37 +359,6 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
   };
 }
 
-function checkId(id: unknown): number {
-  if (typeof id !== 'number' || !Number.isSafeInteger(id) || id < 1) {
-    throw invalidArgument('id', `id: expected a whole number from 1, got ${JSON.stringify(id)}`);
-  }
-  return id;
-}
-
-function notFound(id: number): FieldgapError {
-  return new FieldgapError('not-found', `no analysis with id ${id} in the library`, 'id');
-}
-
-function pageNumber(name: string, value: unknown, fallback: number, min: number, max: number): number {
-  if (value === undefined) return fallback;
-  if (typeof value !== 'number' || !Number.isInteger(value) || value < min || value > max) {
-    throw invalidArgument(name, `${name}: expected a whole number from ${min} to ${max}, got ${JSON.stringify(value)}`);
-  }
-  return value;
-}
-
-function originalBytes(content: unknown, max: number): Buffer {
-  if (!(content instanceof Uint8Array)) throw invalidArgument('content', 'content: the original file must be given as bytes');
-  if (content.length > max) {
-    throw new FieldgapError('too-large', `the original file is ${content.length} bytes, over the library's limit of ${max}`, 'content');
-  }
-  return Buffer.from(content.buffer, content.byteOffset, content.byteLength);
-}
-
-export function sha256Hex(bytes: Uint8Array): string {
-  return createHash('sha256').update(bytes).digest('hex');
-}
-
 /** The columns listFits reads. */
 interface FitRowColumns {
   id: number;
@@ -489,13 +392,3 @@ interface PreparedAdd {
   toolVersion: string;
 }
 
-function jsonText(field: string, value: unknown): string {
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
-    throw invalidArgument(field, `${field}: expected a JSON object`);
-  }
-  return JSON.stringify(value);
-}
-
-function words(query: string | undefined): string[] {
-  return (query ?? '').trim().split(/\s+/).filter((w) => w !== '');
-}

@@ -63,4 +63,14 @@ describe('library list and show', () => {
     expect(json.sample).toBe(sample);
     expect(json.note).toBe(note);
   });
+
+  it('library add of several files prints the saved lines neutralised too', async () => {
+    // In a batch each record is named after its file: a file name can carry an escape sequence.
+    const evil = 'evil\u001b[2J.csv';
+    copyFileSync(join(dir, 'cr.csv'), join(dir, evil));
+    const added = await cli('add', 'cr.csv', evil, '--ion', 'Cr3+');
+    expect(added.code, added.err).toBe(0);
+    expect(added.out).toContain('evil\\x1B[2J');
+    expect(added.out).not.toMatch(RAW_CONTROL);
+  });
 });

@@ -40,7 +40,7 @@ describe('stored options in the OpenAPI document', () => {
     const revision = resolve(resolve(record.properties!['revisions']!).items!);
     expect(Object.keys(resolve(revision.properties!['options']!).properties ?? {})).toEqual(described);
 
-    // Corrected bands only: a chosen alternative gives assignments without parent, bands and flags (src/analysis-corrections.ts casts them), which the schema does not accept; left for the fit's owners.
+    // Corrected bands here; a chosen alternative is checked against the schema in tests/storage/chosen-alternative.test.ts.
     const corrections = encodeURIComponent(JSON.stringify({ bands: [{ position: 17_400 }, { position: 24_500, uncertainty: 80 }] }));
     const saved = await request(app)
       .post(`/api/v1/analyses?ion=Cr3%2B&sample=demo&conc=0.05&path=1&xUnit=nm&cOverB=4.2&corrections=${corrections}`)

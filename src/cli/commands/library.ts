@@ -3,18 +3,15 @@ import { basename, extname, resolve } from 'node:path';
 import type { AnalyzeOptions } from '../../analysis.js';
 import { detailsFromFormula } from '../../library/formula-details.js';
 import { FieldgapError, invalidArgument } from '../../errors.js';
+import { changeLines, fitLine, plusMinus, recordText, savedText, summaryTable, table, warningLines } from './library-text.js';
 import { runSubcommand, type CliIo, type Command } from '../command.js';
 import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analysis-options.js';
 import { readInputFile } from '../files.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
-import type { AnalysisRecord, AnalysisSummary, FitSummary, NewAnalysis } from '../../library/types.js';
+import type { AnalysisRecord, NewAnalysis } from '../../library/types.js';
 import type { Library } from '../../library/library.js';
-import type { AssignmentChange } from '../../library/refit.js';
 import { checkCorrections, type AnalysisCorrections } from '../../analysis-corrections.js';
 import { terminalSafe } from '../terminal-text.js';
-import { formatPlusMinus } from '../../report/plus-minus.js';
-import { textTableLines, type ColumnAlign } from '../../report/text-table.js';
-import type { FitResult } from '../../fit/types.js';
 
 /**
  * `fieldgap library`: the results library from the command line. Storage is
@@ -90,6 +87,8 @@ ${ANALYSIS_USAGE}
 
 Energies are in cm-1.`;
 
+export { fitLine, plusMinus, table };
+
 export const libraryCommand: Command = {
   name: 'library',
   summary: 'save, list, search, refit and export analyses in the results library',
@@ -116,7 +115,7 @@ const SUBCOMMANDS: Record<string, Handler> = {
     const result = analyzeSpectrum(content, options);
     const saved = await withLibrary(values, io, (library) => library.add({ ...details, fileName: basename(file), content, options, result }));
     if (values.json) io.stdout(`${JSON.stringify(saved, null, 2)}\n`);
-    else io.stdout(`saved #${saved.id} "${terminalSafe(saved.sample)}"${saved.ion ? ` (${terminalSafe(saved.ion)})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`);
+    else io.stdout(savedText(saved));
     return 0;
   },
 
@@ -237,11 +236,6 @@ export async function withLibrary<T>(flags: LibraryFlags | string | undefined, i
   } finally {
     await library.close();
   }
-}
-
-/** The line `library add` prints for a saved record (as the one-file add does). */
-function savedText(saved: AnalysisRecord): string {
-  return `saved #${saved.id} "${saved.sample}"${saved.ion ? ` (${saved.ion})` : ''}\n  ${fitLine(saved.summary)}\n${warningLines(saved)}`;
 }
 
 /** Files saved a transaction by `library add FILES...`. */
@@ -374,21 +368,6 @@ function writeNew(target: string, data: string | Buffer, force: boolean, io: Cli
   }
 }
 
-/** "17400 ± 150" with the uncertainty to 2 significant figures and the value to match. */
-export function plusMinus(value: number | null, sd: number | null, minDecimals = 0): string {
-  return value === null ? '-' : formatPlusMinus(value, sd, { digits: 'two-significant', minDigits: minDecimals, maxDigits: 6 });
-}
-
-export function fitLine(s: FitSummary): string {
-  if (s.tenDq === null) return `no ligand-field fit${s.status ? ` (${s.status})` : ''}`;
-  const parts = [`10Dq = ${plusMinus(s.tenDq, s.tenDqSd)} cm-1`];
-  if (s.b !== null) parts.push(`B = ${plusMinus(s.b, s.bSd)} cm-1`);
-  if (s.beta !== null) parts.push(`β = ${plusMinus(s.beta, s.betaSd, 2)}`);
-  if (s.spinState) parts.push(s.spinState);
-  if (s.rmsResidual !== null) parts.push(`rms ${s.rmsResidual.toFixed(0)} cm-1`);
-  return parts.join('   ');
-}
-
 /** The stored options `--reset` takes back to their default, by their CLI names. */
 const RESETTABLE: Record<string, string> = {
   'c-over-b': 'cOverB', c: 'c', 'free-c': 'freeC', corrections: 'corrections', column: 'column', 'x-unit': 'xUnit',
@@ -399,78 +378,4 @@ const RESETTABLE: Record<string, string> = {
 function correctionsFrom(value: string, io: CliIo): AnalysisCorrections {
   const text = value.trim().startsWith('{') ? value : new TextDecoder().decode(readInputFile(value, io.cwd));
   return checkCorrections(text, '--corrections');
-}
-
-/** Every change in the assignment, one line each; says so when there is none. */
-function changeLines(changes: readonly AssignmentChange[]): string {
-  if (changes.length === 0) return '  assignment unchanged\n';
-  const names = { spinState: 'spin state', groundTerm: 'ground term', cMode: 'C' } as const;
-  return changes
-    .map((c) => {
-      const was = c.before ?? 'not assigned';
-      const now = c.after ?? 'not assigned';
-      return c.what === 'band' ? `  band ${c.observed!.toFixed(0)} cm-1: ${was} → ${now}\n` : `  ${names[c.what]}: ${was} → ${now}\n`;
-    })
-    .join('');
-}
-
-function warningLines(record: AnalysisRecord): string {
-  return (record.result.warnings ?? []).map((w) => `  warning: ${terminalSafe(w)}\n`).join('');
-}
-
-/** Columns padded to their widest cell; the first row is the header. */
-export function table(rows: string[][], rightAligned: ReadonlySet<number> = new Set()): string {
-  const align = rows[0]!.map((_, c): ColumnAlign => (rightAligned.has(c) ? 'right' : 'left'));
-  return `${textTableLines(rows, { align }).join('\n')}\n`;
-}
-
-function summaryTable(analyses: AnalysisSummary[]): string {
-  const rows = [['ID', 'SAMPLE', 'FORMULA', 'ION', '10Dq/cm-1', 'B/cm-1', 'β', 'SPIN', 'RMS/cm-1', 'SAVED']];
-  for (const a of analyses) {
-    const s = a.summary;
-    rows.push([
-      String(a.id), clip(a.sample, 28), clip(a.formula ?? '', 22), terminalSafe(a.ion ?? ''),
-      plusMinus(s.tenDq, s.tenDqSd), plusMinus(s.b, s.bSd), plusMinus(s.beta, s.betaSd, 2), s.spinState ?? '',
-      s.rmsResidual === null ? '-' : s.rmsResidual.toFixed(0), a.createdAt.slice(0, 10),
-    ]);
-  }
-  return table(rows, new Set([0, 4, 5, 6, 8]));
-}
-
-function clip(stored: string, width: number): string {
-  const text = terminalSafe(stored);
-  return [...text].length <= width ? text : `${[...text].slice(0, width - 1).join('')}…`;
-}
-
-function recordText(r: AnalysisRecord): string {
-  const lines = [`#${r.id}  ${terminalSafe(r.sample)}`];
-  const add = (label: string, value: string | undefined) => {
-    if (value !== undefined && value !== '') lines.push(`  ${label.padEnd(12)} ${terminalSafe(value)}`);
-  };
-  add('formula', r.formula);
-  add('ion', r.ion);
-  add('ligands', r.ligands?.join(', '));
-  add('solvent', r.solvent);
-  add('temperature', r.temperature === undefined ? undefined : `${r.temperature} K`);
-  add('measured', r.measuredOn);
-  add('note', r.note);
-  add('original', `${r.original.fileName}, ${r.original.size} bytes, sha256 ${r.original.sha256}`);
-  add('saved', `${r.createdAt}${r.updatedAt !== r.createdAt ? `, changed ${r.updatedAt}` : ''}`);
-  lines.push(`fit (revision ${r.revision} of ${r.revisions.length}, fieldgap ${r.toolVersion})`, `  ${fitLine(r.summary)}`);
-  const s = r.summary;
-  if (s.c !== null) lines.push(`  C = ${s.c.toFixed(0)} cm-1${s.status ? `   status ${s.status}` : ''}`);
-  // A record saved by an older fieldgap may lack the fit or a field of an assignment.
-  const assignments: Partial<FitResult['assignments'][number]>[] = r.result.fit?.assignments ?? [];
-  if (assignments.length > 0) {
-    const rows = [['  OBSERVED/cm-1', 'CALCULATED/cm-1', 'TERM']];
-    for (const a of assignments) rows.push([`  ${a.observed?.toFixed(0) ?? '-'}`, a.calculated?.toFixed(0) ?? '-', a.term ?? '']);
-    lines.push(table(rows, new Set([0, 1])).trimEnd());
-  }
-  if (r.revisions.length > 1) {
-    lines.push('revisions');
-    for (const rev of r.revisions) lines.push(`  ${rev.revision}  ${rev.createdAt}  ${fitLine(rev.summary)}  options ${JSON.stringify(rev.options)}`);
-  } else {
-    lines.push(`options ${JSON.stringify(r.options)}`);
-  }
-  return `${lines.join('\n')}\n${warningLines(r)}`;
 }

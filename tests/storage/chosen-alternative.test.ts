@@ -1,0 +1,107 @@
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import request from 'supertest';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { createApp, type FieldgapApp } from '../../server/app.js';
+import { analysisRecordResponse } from '../../server/responses.js';
+import { analyzeSpectrum, type AnalyzeResult } from '../../src/analysis.js';
+import { fitWithAlternative } from '../../src/analysis-corrections.js';
+import type { CliIo } from '../../src/cli/command.js';
+import { runCli } from '../../src/cli/main.js';
+import type { AnalysisRecord } from '../../src/library/types.js';
+import { defaultDetails, editableBandsFromResult, shownFit, type AnalysisEntry } from '../../web/state.js';
+import { captureLogger } from '../server/helpers.js';
+
+/**
+ * A chosen alternative assignment is a complete, honest fit result: every
+ * field the type promises (the stored record passes the response schema),
+ * its own rows, and no uncertainty borrowed from the best fit. The demo
+ * spectrum is an invented scenario; these are consistency checks between
+ * the core, the page, the CLI and the service, not numbers from outside.
+ */
+const ROOT = fileURLToPath(new URL('../..', import.meta.url));
+const AQUA = join(ROOT, 'spectra-demo', 'cr-aqua.csv');
+
+let dir: string;
+let app: FieldgapApp;
+beforeEach(() => {
+  dir = mkdtempSync(join(tmpdir(), 'fieldgap-alternative-'));
+  app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, dataDir: join(dir, 'lib') });
+});
+afterEach(async () => {
+  await app.close();
+  rmSync(dir, { recursive: true, force: true });
+});
+
+async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+  let out = '';
+  let err = '';
+  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: ROOT, env: { FIELDGAP_DATA: join(dir, 'cli') } };
+  const code = await runCli(['library', ...args], io);
+  return { code, out, err };
+}
+
+describe('a chosen alternative assignment', () => {
+  const analysed = analyzeSpectrum(readFileSync(AQUA), { ion: 'Cr3+', fileName: 'cr-aqua.csv' });
+
+  it('has full assignment rows and no uncertainties of the best fit', () => {
+    expect(analysed.fit.alternatives.length).toBeGreaterThan(0);
+    // the best fit has uncertainties, so clearing them is a change that can be seen
+    expect(analysed.fit.betaSd).not.toBeNull();
+    const alt = fitWithAlternative(analysed.fit, 0);
+    expect(alt.betaSd).toBeNull();
+    expect(alt.uncertainty).toEqual({ tenDq: null, dq: null, b: null, c: null });
+    expect(alt.correlation).toEqual({ bDq: null, cDq: null, cB: null });
+    expect(alt.score).toBe(analysed.fit.alternatives[0]!.score);
+    expect(alt.probability).toBe(analysed.fit.alternatives[0]!.probability);
+    expect(alt.assignments.length).toBeGreaterThan(0);
+    for (const a of alt.assignments) {
+      expect(typeof a.parent).toBe('string');
+      expect(Array.isArray(a.bands)).toBe(true);
+      expect(Array.isArray(a.flags)).toBe(true);
+    }
+    // each row points at the input band it explains
+    for (const a of alt.assignments) for (const i of a.bands) expect(analysed.bands[i]?.position).toBeDefined();
+  });
+
+  it('is stored as a record that passes the response schema (REST)', async () => {
+    const saved = await request(app)
+      .post('/api/v1/analyses')
+      .query({ ion: 'Cr3+', sample: 'aqua', corrections: JSON.stringify({ alternative: 0 }) })
+      .attach('spectrum', readFileSync(AQUA), 'cr-aqua.csv');
+    expect(saved.status, JSON.stringify(saved.body)).toBe(201);
+    expect(analysisRecordResponse.safeParse(saved.body).error).toBeUndefined();
+    expect((saved.body as AnalysisRecord & { result: AnalyzeResult }).result.fit.betaSd).toBeNull();
+    const refit = await request(app).post(`/api/v1/analyses/${saved.body.id}/refit`).send({}).expect(200);
+    expect(analysisRecordResponse.safeParse(refit.body).error).toBeUndefined();
+  });
+
+  it('the CLI shows no ± it does not have', async () => {
+    const best = await cli('add', AQUA, '--ion', 'Cr3+');
+    expect(best.code).toBe(0);
+    // the best fit prints its uncertainties: the check below can fail
+    expect(best.out).toMatch(/β = [\d.]+ ± [\d.]+/);
+    const chosen = await cli('add', AQUA, '--ion', 'Cr3+', '--corrections', '{"alternative":0}');
+    expect(chosen.code, chosen.err).toBe(0);
+    expect(chosen.out).toMatch(/β = [\d.]+/);
+    expect(chosen.out).not.toContain('±');
+  });
+
+  it('the page\'s shownFit and the core\'s fitWithAlternative agree on every field the page reads', () => {
+    const result = JSON.parse(JSON.stringify(analysed)) as AnalyzeResult;
+    const entry = {
+      key: 'a1', fileName: 'cr-aqua.csv', file: null, details: { ...defaultDetails(), ion: 'Cr3+' }, status: 'done', result, error: null,
+      fit: result.fit, originalFit: result.fit, bands: editableBandsFromResult(result.bands), cOverB: null, freeC: false, shownAlternative: 0, libraryId: null,
+    } as AnalysisEntry;
+    const page = shownFit(entry)!;
+    const core = fitWithAlternative(analysed.fit, 0);
+    const fields = ['d', 'geometry', 'dq', 'tenDq', 'b', 'c', 'cOverB', 'beta', 'betaSd', 'freeIonB', 'groundTerm', 'spinState', 'unpairedElectrons', 'rmsResidual', 'probability', 'predicted', 'unassigned'] as const;
+    for (const f of fields) expect([f, page[f]]).toEqual([f, core[f]]);
+    expect(page.spinOnlyMoment).toBeCloseTo(core.spinOnlyMoment, 3);
+    expect(page.uncertainty).toEqual({ tenDq: null, b: null, c: null });
+    expect(page.assignments).toEqual(core.assignments);
+    expect(page.warnings).toEqual(core.warnings);
+  });
+});
