@@ -1,5 +1,4 @@
-import { condonShortleyCk } from '../../src/ligand-field/gaunt.js';
-import { allDeterminants, annihilate, create } from './dense-hamiltonian.js';
+import { denseOneAndTwoBody } from './dense-hamiltonian.js';
 import { jacobiEigen } from './jacobi-eigen.js';
 
 /**
@@ -90,21 +89,8 @@ function spinOrbit(): C[][] {
   return out;
 }
 
-
-function coulomb(m1: number, m2: number, m3: number, m4: number, b: number, c: number): number {
-  if (m1 + m2 !== m3 + m4) return 0;
-  return (
-    condonShortleyCk(2, 2, m1, 2, m3) * condonShortleyCk(2, 2, m4, 2, m2) * (49 * b + 7 * c) +
-    condonShortleyCk(4, 2, m1, 2, m3) * condonShortleyCk(4, 2, m4, 2, m2) * ((63 * c) / 5)
-  );
-}
-
 /** The dense Hamiltonian (real; throws if an imaginary part survives). */
 export function denseFieldHamiltonian(n: number, geometry: 'octahedral' | 'tetrahedral', params: ReferenceFieldParameters): number[][] {
-  const dets = allDeterminants(n);
-  const index = new Map(dets.map((mask, i) => [mask, i]));
-  const size = dets.length;
-  const h = Array.from({ length: size }, () => new Array<number>(size).fill(0));
   const field = spatialField(geometry, params);
   const so = spinOrbit();
   const oneBody: number[][] = Array.from({ length: 10 }, () => new Array<number>(10).fill(0));
@@ -115,32 +101,7 @@ export function denseFieldHamiltonian(n: number, geometry: 'octahedral' | 'tetra
       if (Math.abs(value[1]) > 1e-12) throw new Error('reference: complex one-electron element');
       oneBody[p]![q] = value[0];
     }
-  const ml = (p: number): number => (p % 5) - 2;
-  const up = (p: number): boolean => p < 5;
-  dets.forEach((ket, col) => {
-    const start = { mask: ket, sign: 1 };
-    for (let p = 0; p < 10; p++)
-      for (let q = 0; q < 10; q++) {
-        const value = oneBody[p]![q]!;
-        if (value === 0) continue;
-        const out = create(annihilate(start, q), p);
-        if (out) h[index.get(out.mask)!]![col]! += out.sign * value;
-      }
-    for (let r = 0; r < 10; r++)
-      for (let s = 0; s < 10; s++) {
-        const after = annihilate(annihilate(start, r), s);
-        if (!after) continue;
-        for (let p = 0; p < 10; p++)
-          for (let q = 0; q < 10; q++) {
-            if (up(p) !== up(r) || up(q) !== up(s)) continue;
-            const value = 0.5 * coulomb(ml(p), ml(q), ml(r), ml(s), params.b, params.c);
-            if (value === 0) continue;
-            const out = create(create(after, q), p);
-            if (out) h[index.get(out.mask)!]![col]! += out.sign * value;
-          }
-      }
-  });
-  return h;
+  return denseOneAndTwoBody(n, oneBody, params.b, params.c);
 }
 
 /** All C(10, n) eigenvalues, ascending, from the lowest. */

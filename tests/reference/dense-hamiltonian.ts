@@ -63,17 +63,30 @@ export function allDeterminants(n: number): number[] {
 
 /** The dense Hamiltonian over all C(10, n) determinants (number[][]). */
 export function denseHamiltonian(n: number, geometry: Geometry, { dq, b, c }: FieldParameters): number[][] {
+  const fieldSign = geometry === 'octahedral' ? 1 : -1;
+  const oneBody = Array.from({ length: 10 }, (_, p) =>
+    Array.from({ length: 10 }, (_, q) => (up(p) === up(q) ? fieldSign * dq * fieldElement(ml(p), ml(q)) : 0)),
+  );
+  return denseOneAndTwoBody(n, oneBody, b, c);
+}
+
+/**
+ * H = Σ h_pq a†p a_q + ½ Σ <pq|rs> a†p a†q a_s a_r over all C(10, n)
+ * determinants, for a one-electron matrix h over the ten spin-orbitals
+ * (real, cm-1) and the Coulomb repulsion at Racah B and C: the one loop both
+ * slow references (cubic here, any field with ζ in dense-field-hamiltonian.ts)
+ * build their matrices with.
+ */
+export function denseOneAndTwoBody(n: number, oneBody: readonly (readonly number[])[], b: number, c: number): number[][] {
   const dets = allDeterminants(n);
   const index = new Map(dets.map((m, i) => [m, i]));
   const size = dets.length;
   const h = Array.from({ length: size }, () => new Array<number>(size).fill(0));
-  const fieldSign = geometry === 'octahedral' ? 1 : -1;
   dets.forEach((ket, col) => {
     const start = { mask: ket, sign: 1 };
     for (let p = 0; p < 10; p++)
       for (let q = 0; q < 10; q++) {
-        if (up(p) !== up(q)) continue;
-        const value = fieldSign * dq * fieldElement(ml(p), ml(q));
+        const value = oneBody[p]![q]!;
         if (value === 0) continue;
         const out = create(annihilate(start, q), p);
         if (out) h[index.get(out.mask)!]![col]! += out.sign * value;
