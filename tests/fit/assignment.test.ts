@@ -18,7 +18,7 @@ describe('automatic assignment', () => {
   });
 
   it('leaves a band no transition can take unexplained, with a penalty, and says which', () => {
-    // [Ni(H2O)6]2+ (from memory: 8 500, 13 800, 25 300 cm-1) with a stray band at 19 000 cm-1
+    // [Ni(H2O)6]2+ (8 500, 13 800, 25 300 cm-1; found: docs/sources.md NI-AQUA-VN) with a stray band at 19 000 cm-1
     const r = fitBands({ ion: 'Ni2+', bands: [8500, 13800, 19000, 25300] });
     expect(r.assignments.map((a) => a.observed)).toEqual([8500, 13800, 25300]);
     expect(r.unassigned).toEqual([{ observed: 19000, band: 2, reason: 'left unexplained by the chosen assignment' }]);

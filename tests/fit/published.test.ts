@@ -7,7 +7,8 @@
  * pp. 347–348, via chemprof.tripod.com/fghk.htm) is by definition 10Dq of the
  * hexaaqua ion (f(H2O) = 1), and f·g estimates other ligands; Ballhausen's
  * F2, F4 for [Mn(H2O)6]2+; and one measured band list with its published Dq
- * (Ni2+ in MgO, Phys. Rev. 1958).
+ * (Ni2+ in MgO, Phys. Rev. 1958); further found band maxima are listed with
+ * their addresses and differences in docs/sources.md.
  *
  * Tolerances: 10Dq within 3% and B within 10% of the quoted values (the
  * quoted analyses differ from ours in C/B and in which bands they use, and
@@ -40,6 +41,9 @@ describe('fitBands on published spectra', () => {
   it('d3 [Cr(H2O)6]3+ and [Cr(NH3)6]3+', () => {
     // from memory: [Cr(H2O)6]3+ 17 400, 24 600 cm-1 → 10Dq = 17 400, B ≈ 725 cm-1 (Lever, Inorganic Electronic Spectroscopy, 2nd ed., 1984);
     // 10Dq confirmed: Jørgensen's g(Cr3+) = 17 400 cm-1 (Modern Aspects of Ligand Field Theory, 1971, pp. 347–348)
+    // found: one measured aqueous spectrum, 17 000 and 24 000 cm-1 (Lancashire, UWI course notes C21J "Tanabe–Sugano
+    // diagrams", Table 1, mirror 212233.hqzbsc.asia/courses/C21Jspec_TS.html): differs by −2.3 % and −2.4 %; B = 725
+    // against B0 = 918 quoted on openknowledgegraph.com/topics/nephelauxetic-effect-covalency-questions.html (a quiz page)
     const aqua = fit({ ion: 'Cr3+', bands: [17400, 24600] });
     expect(aqua.assignments.map((a) => a.label)).toEqual(['4T2g(F)', '4T1g(F)']);
     within(aqua.tenDq, 17400, 0.03);
@@ -76,6 +80,8 @@ describe('fitBands on published spectra', () => {
   it('d6 low-spin [Co(NH3)6]3+', () => {
     // from memory: 21 050 (1T1g), 29 550 (1T2g) cm-1 → 10Dq ≈ 22 870, B ≈ 615 cm-1 (Lever, 1984);
     // Jørgensen (1971) f(NH3)·g(Co3+) = 1.25 × 18 200 = 22 750 (an estimate, 0.5 % from 22 870)
+    // found: λmax 470 nm = 21 280 cm-1 in a course exercise (tutorsglobe.com/question/the-absorbance-maxima-observed-for-
+    // the-following-cobalt-5660898.aspx): differs from 21 050 by +1.1 %
     const r = fit({ ion: 'Co3+', bands: [21050, 29550] });
     expect(r.spinState).toBe('low-spin');
     expect(r.groundTerm).toBe('1A1g');
@@ -90,6 +96,8 @@ describe('fitBands on published spectra', () => {
   it('d7 high-spin [Co(H2O)6]2+, ν2 (the weak two-electron 4A2g band) not given', () => {
     // from memory: 8 100 (4T2g), 19 400 (4T1g(P)) cm-1 → Dq = 920 (10Dq 9200), B ≈ 825 cm-1 (Lever, 1984);
     // Jørgensen's g(Co2+) = 9 000 cm-1 (1971), the hexaaqua ion's 10Dq in his table: 2 % below 9 200
+    // found: aqueous CoCl2·6H2O band at 512 nm = 19 531 cm-1 ("Infrared, mid infrared and UV–visible spectra study of
+    // cobalt chloride CoCl2·6H2O", www.iasj.net/iasj/article/131143): differs from 19 400 by +0.7 %
     const r = fit({ ion: 'Co2+', bands: [8100, 19400] });
     expect(r.spinState).toBe('high-spin');
     expect(r.assignments.map((a) => a.label)).toEqual(['4T2g(F)', '4T1g(P)']);
@@ -121,7 +129,9 @@ describe('fitBands on published spectra', () => {
   });
 
   it('d8 [Ni(H2O)6]2+ and [Ni(NH3)6]2+ from three bands', () => {
-    // from memory: [Ni(H2O)6]2+ 8 500, 13 800, 25 300 cm-1 → 10Dq ≈ 8 500, B ≈ 930 cm-1 (Lever, 1984);
+    // [Ni(H2O)6]2+ 8 500, 13 800, 25 300 cm-1, found as such in a thesis chapter on Ni(II) spectra
+    // (123docz.net/trich-doan/2479124-pho-hap-thu-electron-cua-phuc-chat-ni-ii.htm); 10Dq ≈ 8 500 follows (10Dq = ν1 for
+    // d8), B ≈ 930 cm-1 from memory (Lever, 1984);
     // Jørgensen's g(Ni2+) = 8 700 cm-1 (1971), the hexaaqua ion's 10Dq in his table: 2.4 % above 8 500
     const aqua = fit({ ion: 'Ni2+', bands: [8500, 13800, 25300] });
     expect(aqua.assignments.map((a) => a.label)).toEqual(['3T2g(F)', '3T1g(F)', '3T1g(P)']);
@@ -129,7 +139,9 @@ describe('fitBands on published spectra', () => {
     within(aqua.b, 930, 0.1);
     expect(aqua.status).toBe('converged');
     expect(aqua.uncertainty.b).toBeGreaterThan(0);
-    // from memory: [Ni(NH3)6]2+ 10 750, 17 500, 28 200 cm-1 → 10Dq ≈ 10 750, B ≈ 880 cm-1 (Lever, 1984);
+    // from memory: [Ni(NH3)6]2+ 10 750, 17 500, 28 200 cm-1 → 10Dq ≈ 10 750, B ≈ 880 cm-1 (Lever, 1984); found for ν2:
+    // "about 570 nm" = 17 540 cm-1 (Brown, LeMay et al., Chemistry: The Central Science, 11th ed., ch. 24, ex. 40, via
+    // studysmarter; see docs/sources.md), +0.2 %;
     // Jørgensen (1971) f(NH3)·g(Ni2+) = 1.25 × 8 700 = 10 875 (an estimate, 1.2 % from 10 750)
     const ammine = fit({ ion: 'Ni2+', bands: [10750, 17500, 28200] });
     within(ammine.tenDq, 10750, 0.03);
@@ -157,7 +169,8 @@ describe('fitBands on published spectra', () => {
   });
 
   it('d9 [Cu(H2O)6]2+: 10Dq from the one band, B not determinable', () => {
-    // from memory: one broad band near 12 500 cm-1 (800 nm) (Lever, 1984; common practice)
+    // one broad band near 12 500 cm-1: found "around 800 nm" (Zumdahl, Chemistry, 8th ed., ch. 21, ex. 54, via
+    // studysmarter; see docs/sources.md)
     const r = fit({ ion: 'Cu2+', bands: [12500] });
     expect(r.tenDq).toBe(12500);
     expect(r.b).toBeNull();

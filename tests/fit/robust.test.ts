@@ -40,7 +40,7 @@ describe('extra and split bands', () => {
   });
 
   it('leaves a spin-forbidden-flagged band that no spin-forbidden transition takes unexplained', () => {
-    // No doublet of Cr3+ lies anywhere near 4000 cm-1 (the lowest, 2Eg, is near 15 000; from memory).
+    // No doublet of Cr3+ lies anywhere near 4000 cm-1 (the lowest, 2Eg, is near 15 000: the d3 Tanabe–Sugano diagram, common practice).
     const plain = fitBands({ ion: 'Cr3+', bands: [17400, 24600] });
     const r = fitBands({ ion: 'Cr3+', bands: [sf(4000), 17400, 24600] });
     expect(r.unassigned).toEqual([{ observed: 4000, band: 0, reason: 'left unexplained by the chosen assignment' }]);
@@ -52,7 +52,7 @@ describe('extra and split bands', () => {
   });
 
   it('prefers to leave a shoulder or a weak band over a strong one', () => {
-    // [Ni(H2O)6]2+ (from memory: 8 500, 13 800, 25 300 cm-1) with a stray band at 19 000: strong or weak, it is the one left.
+    // [Ni(H2O)6]2+ (8 500, 13 800, 25 300 cm-1; found: docs/sources.md NI-AQUA-VN) with a stray band at 19 000: strong or weak, it is the one left.
     const strong = fitBands({ ion: 'Ni2+', bands: [8500, 13800, 19000, 25300] });
     const shoulder = fitBands({ ion: 'Ni2+', bands: [8500, 13800, { position: 19000, flags: ['shoulder'] }, 25300] });
     const weak = fitBands({

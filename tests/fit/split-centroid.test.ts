@@ -41,8 +41,9 @@ describe('intensity-weighted centroid of split components', () => {
   });
 
   it('reads a d1 band with its Jahn–Teller shoulder as one transition at the centroid (10Dq = its energy)', () => {
-    // [Ti(H2O)6]3+: a maximum near 20 300 cm-1 with a Jahn–Teller shoulder near 17 400 (Lever, Inorganic Electronic
-    // Spectroscopy, 2nd ed. (1984), from memory); the areas are invented, the expected value is the centroid formula.
+    // [Ti(H2O)6]3+: a maximum near 20 300 cm-1 (found: Crittenden, Sheffield chm131 pages, docs/sources.md TI-AQUA-SHEF)
+    // with a Jahn–Teller shoulder near 17 400 (Lever, 1984, from memory); the areas are invented, the expected value is
+    // the centroid formula.
     const r = fitBands({ ion: 'Ti3+', bands: [{ position: 17_400, area: 1400, flags: ['sh'] }, { position: 20_300, area: 2800 }] });
     expect(r.assignments).toHaveLength(1);
     expect(r.assignments[0]!.bands).toEqual([0, 1]);
@@ -51,7 +52,7 @@ describe('intensity-weighted centroid of split components', () => {
   });
 
   it('uses ε·width from the text form, and the plain mean without intensities', () => {
-    // [Cu(H2O)6]2+-like: one broad band near 12 500 cm-1 split by Jahn–Teller (Lever 1984, from memory); ε and widths invented.
+    // [Cu(H2O)6]2+-like: one broad band near 12 500 cm-1 (found: "around 800 nm", docs/sources.md ZUMDAHL-CU), split by Jahn–Teller; ε and widths invented.
     const weighted = fitBands({ ion: 'Cu2+', bands: '10300:e=6:w=2100, 13500:e=12:w=3200' });
     expect(weighted.tenDq).toBeCloseTo(centroidReference([10_300, 13_500], [6 * 2100, 12 * 3200]), 0);
     const plain = fitBands({ ion: 'Cu2+', bands: '10300, 13500' });
@@ -60,8 +61,9 @@ describe('intensity-weighted centroid of split components', () => {
   });
 
   it('takes a close pair read as one split band at its 1/σ²-weighted mean (equal weights without σ)', () => {
-    // The 3T1g(F) band of hexaaqua Ni(II) shows a spin–orbit doublet near 13 800 and 15 300 cm-1 beside ν1 ≈ 8 500 and
-    // ν3 ≈ 25 300 (Lever 1984, from memory); the areas are invented and not used for a pair (precisionWeights says why).
+    // The 3T1g(F) band of hexaaqua Ni(II) shows a doublet near 13 800 and 15 300 cm-1 beside ν1 ≈ 8 500 and ν3 ≈ 25 300
+    // (found: 8 500, 13 800, 15 200 (1Eg shoulder), 25 300, docs/sources.md NI-AQUA-VN; the second maximum differs by
+    // 0.7 %); the areas are invented and not used for a pair (precisionWeights says why).
     const bands = [
       { position: 8500, area: 3000 }, { position: 13_800, area: 3000 }, { position: 15_300, area: 1000 }, { position: 25_300, area: 4000 },
     ];

@@ -8,8 +8,8 @@
  * whose band positions are the project's own ligand-field engine: this is
  * NOT an outside check of the positions, only of the spectrum stage finding
  * bands the spectrum holds. The outside anchor: the 3T1g(P) band of
- * hexaaqua Ni(II) lies near 25 300 cm-1 (395 nm) (Lever, Inorganic
- * Electronic Spectroscopy, 2nd ed., 1984, from memory).
+ * hexaaqua Ni(II) lies near 25 300 cm-1 (395 nm) (found: a thesis chapter on
+ * Ni(II) spectra, 123docz.net/trich-doan/2479124, docs/sources.md NI-AQUA-VN).
  */
 import { describe, expect, it } from 'vitest';
 import { parseSpectrumText, processSpectrum } from '../../src/spectrum/index.js';
@@ -35,7 +35,7 @@ describe('a band under the UV edge', () => {
     const top = r.bands.reduce((a, b) => (b.position > a.position ? b : a));
     // Within 1 000 cm-1 of the generated maximum, with an honest uncertainty (the edge and the band trade places).
     expect(Math.abs(top.position - truth.position)).toBeLessThan(1000);
-    expect(Math.abs(top.position - 25_300)).toBeLessThan(1000); // Lever 1984 (from memory): 3T1g(P) ≈ 25 300 cm-1
+    expect(Math.abs(top.position - 25_300)).toBeLessThan(1000); // 3T1g(P) 25 300 cm-1 (found: docs/sources.md NI-AQUA-VN)
     expect(top.positionUncertainty).toBeGreaterThan(200);
     expect(top.kind).toBe('d-d');
   });

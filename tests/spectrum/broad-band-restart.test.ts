@@ -8,8 +8,8 @@
  * The spectrum comes from the validation corpus generator (tests/accuracy/),
  * whose band positions are the project's own ligand-field engine: NOT an
  * outside check. Outside anchor of the band's place: 3T1g(P) of hexaaqua
- * Ni(II) near 25 300 cm-1 (Lever, Inorganic Electronic Spectroscopy, 2nd ed.,
- * 1984, from memory).
+ * Ni(II) near 25 300 cm-1 (found: a thesis chapter on Ni(II) spectra,
+ * 123docz.net/trich-doan/2479124, docs/sources.md NI-AQUA-VN).
  */
 import { describe, expect, it } from 'vitest';
 import { parseSpectrumText, processSpectrum } from '../../src/spectrum/index.js';
