@@ -5,7 +5,8 @@
  * each line says "from memory" and names where they are usually quoted from.
  * The search tool was asked for them (hexaaqua Mn(II), [NiCl4]2-): it found
  * the studies (e.g. Koplitz, Kim & McClure, "Temperature dependence of 10Dq
- * for aqueous hexaaquomanganese(II)") but not their numbers.
+ * for aqueous hexaaquomanganese(II)") but not their numbers. Band maxima it
+ * found later for other ions are cited beside them (docs/sources.md).
  *
  * Each check fails on a wrong assignment or a wrong root: those move 10Dq or
  * B by far more than the tolerances.
@@ -86,7 +87,8 @@ describe('tetrahedral [NiCl4]2-', () => {
 
 describe('hexaaqua Co(II) is high-spin', () => {
   it('from its near-infrared and visible bands', () => {
-    // from memory: 8 100 (4T2g), 19 400 (4T1g(P)) cm-1 (Lever, Inorganic Electronic Spectroscopy, 2nd ed., 1984)
+    // from memory: 8 100 (4T2g), 19 400 (4T1g(P)) cm-1 (Lever, Inorganic Electronic Spectroscopy, 2nd ed., 1984); found
+    // 512 nm = 19 531 (+0.7 %, docs/sources.md CO-AQUA-IASJ)
     const r = fitBands({ ion: 'Co2+', bands: [8100, 19400] });
     expect(r.spinState).toBe('high-spin');
     expect(r.spinStateProbabilities['high-spin']).toBeGreaterThan(0.9);
@@ -113,8 +115,8 @@ describe('hexaaqua Co(II) is high-spin', () => {
 });
 
 describe('hexaaqua Ni(II) from its two visible bands', () => {
-  // from memory: 13 800 (3T1g(F)) and 25 300 (3T1g(P)) cm-1, ν1 = 10Dq ≈ 8 500 cm-1 lies beyond 780 nm
-  // (Lever, Inorganic Electronic Spectroscopy, 2nd ed., 1984).
+  // 13 800 (3T1g(F)) and 25 300 (3T1g(P)) cm-1, ν1 = 10Dq ≈ 8 500 cm-1 lies beyond 780 nm (found: all three in a thesis
+  // chapter on Ni(II) spectra, 123docz.net/trich-doan/2479124, docs/sources.md NI-AQUA-VN).
   it('gives 10Dq 8 000–9 000 cm-1 and β < 1, with or without the measured range', () => {
     for (const window of [undefined, { min: 1e7 / 780, max: 1e7 / 380 }]) {
       const r = fitBands({ ion: 'Ni2+', bands: [13800, 25300], ...(window ? { window } : {}) });

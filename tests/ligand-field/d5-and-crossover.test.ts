@@ -3,7 +3,9 @@ import { computeLevels, crossoverDqOverB, spinStateChoice } from '../../src/liga
 
 describe('d5 accidental degeneracy', () => {
   // 4A1g and 4Eg from 4G both lie at 10B + 5C above 6A1g at every Dq (high-spin region), and
-  // 4Eg(D) at 17B + 5C: Tanabe & Sugano, J. Phys. Soc. Jpn. 9, 753 (1954), their d5 diagram (from memory); common practice.
+  // 4Eg(D) at 17B + 5C: the free-ion 4G at 10B + 5C and 4D at 17B + 5C (found: Jørgensen, Absorption Spectra and Chemical
+  // Bonding in Complexes (1962), Table 2, docs/sources.md JORGENSEN-1962-T2), field-independent in the d5 diagram of
+  // Tanabe & Sugano, J. Phys. Soc. Jpn. 9, 753 (1954): common practice.
   it.each([0, 300, 900, 1500, 1800])('Dq = %i cm-1 (B = 800, C = 3200)', (dq) => {
     const b = 800;
     const c = 3200;

@@ -4,8 +4,16 @@ import { freeIonTerms } from '../../src/ligand-field/index.js';
 /**
  * Free-ion term energies above the ground term, in B and C, for every d^n.
  * Source: Racah, Phys. Rev. 62, 438 (1942) and Griffith, The Theory of
- * Transition-Metal Ions (1961), Table A20; the expressions below are recalled
- * from those tables (from memory), written relative to the ground term (A drops out).
+ * Transition-Metal Ions (1961), Table A20, written relative to the ground term
+ * (A drops out). Found (docs/sources.md JORGENSEN-1962-T2, RACAH-WIKI-DE):
+ * Jørgensen, Absorption Spectra and Chemical Bonding in Complexes (1962),
+ * Table 2 "Excitation energies of some multiplet terms in spherical symmetry"
+ * (excerpt on uniterpacademy.com) gives every d2/d8 term, the d3/d7 terms 4P,
+ * 2G, 2P, 2H and the d5 quartets 4G, 4P, 4D, 4F exactly as below; the German
+ * Wikipedia "Racah-Parameter" (de.zxc.wiki copy) gives the d2 terms as
+ * A − 8B, A + 7B, A − 3B + 2C, A + 4B + 2C, A + 14B + 7C, the same differences.
+ * The rest (d3 2F, 2D; all of d4/d6; the d5 doublets) is recalled from those
+ * tables (from memory).
  * d^n and d^(10−n) have the same term energies. An outside check of the model
  * against observed free-ion terms (NIST Atomic Spectra Database levels of 13
  * ions) is in tests/chemistry/free-ion-nist.test.ts.

@@ -4,10 +4,23 @@ import { wigner3j } from '../../src/ligand-field/wigner3j.js';
 
 describe('Wigner 3j by the Racah formula', () => {
   it('known values', () => {
-    expect(wigner3j(2, 2, 2, 0, 0, 0)).toBeCloseTo(-Math.sqrt(2 / 35), 14); // Edmonds, Angular Momentum in Quantum Mechanics (1957), closed form for (j j j; 0 0 0), from memory
+    expect(wigner3j(2, 2, 2, 0, 0, 0)).toBeCloseTo(-Math.sqrt(2 / 35), 14); // Edmonds, Angular Momentum in Quantum Mechanics (1957), closed form for (j1 j2 j3; 0 0 0) (recalled), by hand: −√(2!·2!·2!/7!)·3!/(1!·1!·1!); outside values: the SymPy checks below
     expect(wigner3j(1, 1, 0, 0, 0, 0)).toBeCloseTo(-1 / Math.sqrt(3), 14); // (j j 0; m −m 0) = (−1)^(j−m)/√(2j+1), common practice
     expect(wigner3j(2, 2, 0, 1, -1, 0)).toBeCloseTo(-1 / Math.sqrt(5), 14); // same closed form
     expect(wigner3j(2, 2, 4, 0, 0, 0)).toBeCloseTo(Math.sqrt(2 / 35), 14); // Edmonds (1957) closed form for (j1 j2 j3; 0 0 0), evaluated by hand: √(4!·4!/9!)·4!/(2!·2!)
+  });
+
+  it('agrees with values from SymPy (a general-purpose library used as reference)', () => {
+    // sympy.physics.wigner.wigner_3j docstring: wigner_3j(2, 6, 4, 0, 0, 0) = sqrt(715)/143
+    // (github.com/sympy/sympy, sympy/physics/wigner.py; found via the search tool).
+    expect(wigner3j(2, 6, 4, 0, 0, 0)).toBeCloseTo(Math.sqrt(715) / 143, 14);
+    // sympy/physics/tests/test_clebsch_gordan.py: ⟨2 2; 2 1|3 3⟩ = 1/√2, ⟨1 1; 1 0|2 1⟩ = 1/√2, ⟨1 1; 0 1|1 1⟩ = −1/√2,
+    // ⟨2 2; 2 2|4 4⟩ = 1, turned into 3j symbols by (j1 j2 J; m1 m2 −M) = (−1)^(j1−j2+M) ⟨j1 m1 j2 m2|J M⟩/√(2J+1)
+    // (the standard relation, common practice).
+    expect(wigner3j(2, 2, 3, 2, 1, -3)).toBeCloseTo(-1 / Math.sqrt(14), 14);
+    expect(wigner3j(1, 1, 2, 1, 0, -1)).toBeCloseTo(-1 / Math.sqrt(10), 14);
+    expect(wigner3j(1, 1, 1, 0, 1, -1)).toBeCloseTo(1 / Math.sqrt(6), 14);
+    expect(wigner3j(2, 2, 4, 2, 2, -4)).toBeCloseTo(1 / 3, 14);
   });
 
   it('selection rules give zero', () => {

@@ -41,7 +41,8 @@ describe('rankByTenDq', () => {
   it('reproduces the published spectrochemical order for Cr(III)', () => {
     // Spectrochemical series Cl < F < H2O ~ ox < NCS < NH3 < en < CN (the part of
     // I < Br < Cl < F < OH < H2O/ox < NCS < NH3 < en < NO2 < CN for which values are given):
-    // common practice; cf. Huheey, Keiter & Keiter, Inorganic Chemistry, 4th ed. (1993) (from memory)
+    // common practice; found in the order of Jørgensen's f: Cl- 0.78 < F- 0.90 < ox 0.99 ≈ H2O 1.00 < NCS- 1.02 < NH3 1.25
+    // < en 1.28 < CN- 1.7 (Modern Aspects of Ligand Field Theory, 1971, pp. 347–348, via chemprof.tripod.com/fghk.htm)
     for (const seed of [1, 2, 3, 4, 5]) {
       const ranking = rankByTenDq(shuffled(CR3, seed));
       expect(ranking.series).toBe('Cl < F < H2O ~ ox < NCS < NH3 < en < CN');

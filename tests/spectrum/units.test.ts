@@ -45,7 +45,7 @@ describe('y units and Beer–Lambert', () => {
 
   it('reproduces a Beer–Lambert worked example', () => {
     // A = 0.50 in a 1.00 cm cell at c = 0.010 mol/L gives ε = 50 L mol-1 cm-1
-    // (the classic worked form ε = A/(c·l); Harris, Quantitative Chemical Analysis, ch. 18, from memory).
+    // (the definition ε = A/(c·l): IUPAC Gold Book, "molar absorption coefficient", doi:10.1351/goldbook.M03972, found).
     expect(absorbanceToEpsilon(0.5, 0.01, 1)).toBeCloseTo(50, 12);
     expect(absorbanceToEpsilon(0.5, 0.01, 0.5)).toBeCloseTo(100, 12);
     expect(epsilonToAbsorbance(50, 0.01, 1)).toBeCloseTo(0.5, 12);
