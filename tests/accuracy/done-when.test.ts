@@ -43,7 +43,7 @@ describe('the real-like fixtures are what their recipe makes', () => {
 
 describe('visible-only spectra (380–780 nm, 0.01)', () => {
   // The grading is gradeRealLike's (run-corpus.ts), shared with docs/accuracy.md; the check values are in its wording:
-  // Ni(II) 10Dq 8 000–9 000 and β < 1 (Lever 1984, from memory: 10Dq ≈ 8 500), Co(II) high-spin (common practice),
+  // Ni(II) 10Dq 8 000–9 000 and β < 1 (10Dq = ν1 ≈ 8 500, found: docs/sources.md NI-AQUA-VN), Co(II) high-spin (common practice),
   // Cu(II) maximum near 12 350 cm-1 (published calibration data, see the fixtures README) within ±1 000 cm-1.
   const graded = (file: string, ion: string) => {
     let outcome: CaseOutcome;

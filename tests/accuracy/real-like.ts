@@ -36,7 +36,8 @@ export const REAL_LIKE: readonly RealLikeSpectrum[] = [
   {
     file: 'ni-aqua-visible.csv', title: 'aqueous Ni(II) ([Ni(H2O)6]2+), 0.20 mol/L, 1 cm', ion: 'Ni2+', concentration: 0.2, seed: 1301,
     bands: [
-      // Lever, Inorganic Electronic Spectroscopy, 2nd ed. (1984) (from memory): 8 500, 13 800, 25 300 cm-1, ε ≈ 2, 2, 5;
+      // 8 500, 13 800, 25 300 cm-1 (found: docs/sources.md NI-AQUA-VN, which also gives 1Eg at 15 200), ε ≈ 2, 2, 5 (Lever,
+      // Inorganic Electronic Spectroscopy, 2nd ed. (1984), from memory);
       // the middle band is split by 3T1g(F)/1Eg mixing into maxima near 13 800 and 15 300 cm-1 (cf. González, Rodrigue-Witchel
       // and Reber, "Absorption spectroscopy of octahedral nickel(II) complexes: a case study of interactions between multiple
       // electronic excited states", Coord. Chem. Rev. 251 (2007) 351; positions from memory).
@@ -46,7 +47,7 @@ export const REAL_LIKE: readonly RealLikeSpectrum[] = [
       band('3T1g(P)', 25300, 3300, 5.2, 1.15),
     ],
     distortions: { ...VISIBLE, chargeTransfer: { edgeAbsorbance: 0.15, fwhm: 8000, epsilon: 1500 } },
-    published: '10Dq ≈ 8 500 cm-1, B ≈ 930 cm-1 (Lever 1984, from memory)',
+    published: '10Dq ≈ 8 500 cm-1 (= ν1, found: docs/sources.md NI-AQUA-VN), B ≈ 930 cm-1 (Lever 1984, from memory)',
   },
   {
     file: 'co-aqua-visible.csv', title: 'aqueous Co(II) ([Co(H2O)6]2+), 0.15 mol/L, 1 cm', ion: 'Co2+', concentration: 0.15, seed: 1302,

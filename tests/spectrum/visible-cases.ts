@@ -14,9 +14,11 @@ export interface VisibleCase {
 
 /**
  * [Ni(H2O)6]2+: 3T2g 8 500, 3T1g(F) 13 800 (split by the 1Eg level near
- * 15 300: two maxima near 725 and 655 nm), 3T1g(P) 25 300 cm-1, ε about
- * 2, 2 and 5 — from memory (Lever, Inorganic Electronic Spectroscopy, 2nd
- * ed., 1984; the usual textbook set).
+ * 15 300: two maxima near 725 and 655 nm), 3T1g(P) 25 300 cm-1 — found:
+ * 8 500, 13 800, 1Eg 15 200, 25 300 in a thesis chapter on Ni(II) spectra
+ * (docs/sources.md NI-AQUA-VN) and "about 725 nm" (Brown et al., BROWN-NI);
+ * ε about 2, 2 and 5 — from memory (Lever, Inorganic Electronic
+ * Spectroscopy, 2nd ed., 1984; the usual textbook set).
  */
 export const NICKEL: VisibleCase = {
   name: '[Ni(H2O)6]2+', ion: 'Ni2+',
@@ -35,7 +37,8 @@ export const NICKEL: VisibleCase = {
 /**
  * [Co(H2O)6]2+: 4T2g 8 100, 4A2g ≈ 16 000 (weak, two-electron), 4T1g(P)
  * 19 400 cm-1 (ε ≈ 5) with a spin–orbit shoulder near 21 500 — from memory
- * (Lever, 1984).
+ * (Lever, 1984); found for the main band: 512 nm = 19 531 cm-1 (+0.7 %,
+ * docs/sources.md CO-AQUA-IASJ).
  */
 export const COBALT: VisibleCase = {
   name: '[Co(H2O)6]2+', ion: 'Co2+',
@@ -52,7 +55,8 @@ export const COBALT: VisibleCase = {
 
 /**
  * [Cu(H2O)6]2+: one broad Jahn–Teller band, maximum near 12 300 cm-1
- * (≈ 810 nm), ε ≈ 12 — from memory (Lever, 1984); ε(807 nm) ≈ 12 also
+ * (≈ 810 nm), ε ≈ 12 — from memory (Lever, 1984); found: "around 800 nm"
+ * = 12 500 cm-1 (Zumdahl, docs/sources.md ZUMDAHL-CU, +1.6 %); ε(807 nm) ≈ 12 also
  * follows from the absorbances of CuSO4 solutions quoted in
  * studymode.com, "Spectrophotometric analysis of copper sulphate"
  * (A = 0.246 at 20 mmol/L, 1 cm). Its lower Jahn–Teller component
