@@ -58,8 +58,8 @@ const F_ESTIMATES: ReadonlyMap<string, FactorValue> = new Map([
 
 /** h estimates for ligands the table lacks (nephelauxetic series F < H2O < NH3 < en ≈ ox < Cl < CN < Br < I: common practice). */
 const H_ESTIMATES: ReadonlyMap<string, FactorValue> = new Map([
-  ['I', estimate(2.7, 0.4, `${NEPHELAUXETIC_ESTIMATE}: beyond Br- (2.3); 2.7 from memory (Jørgensen)`)],
-  ['N3', estimate(2.4, 0.5, `${NEPHELAUXETIC_ESTIMATE}: near Br-; from memory (Jørgensen)`)],
+  ['I', estimate(2.7, 0.4, `${NEPHELAUXETIC_ESTIMATE}: beyond Br- (2.3); 2.7 from memory (Jørgensen); the h table as found (chemprof.tripod.com/fghk.htm) has no I- entry`)],
+  ['N3', estimate(2.4, 0.5, `${NEPHELAUXETIC_ESTIMATE}: near Br-; from memory (Jørgensen); the h table as found (chemprof.tripod.com/fghk.htm) gives f(N3-) = 0.83 but no h`)],
   ['dmf', estimate(1.2, 0.3, `${NEPHELAUXETIC_ESTIMATE}: O-donor like acetone (1.2)`)],
   ['urea', estimate(1.2, 0.3, `${NEPHELAUXETIC_ESTIMATE}: O-donor like acetone (1.2)`)],
   ['dmso', estimate(1.2, 0.3, `${NEPHELAUXETIC_ESTIMATE}: O-donor like acetone (1.2)`)],

@@ -116,7 +116,9 @@ describe('hexaaqua Co(II) is high-spin', () => {
 
 describe('hexaaqua Ni(II) from its two visible bands', () => {
   // 13 800 (3T1g(F)) and 25 300 (3T1g(P)) cm-1, ν1 = 10Dq ≈ 8 500 cm-1 lies beyond 780 nm (found: all three in a thesis
-  // chapter on Ni(II) spectra, 123docz.net/trich-doan/2479124, docs/sources.md NI-AQUA-VN).
+  // chapter on Ni(II) spectra, 123docz.net/trich-doan/2479124, docs/sources.md NI-AQUA-VN). From the two visible bands
+  // alone, Underhill & Billing's equations (Nature 210 (1966) 834, found; see tests/ligand-field/closed-forms.test.ts)
+  // give Dq = 824 and B = 958 cm-1 (worked here: 340Dq² − 18·39 100·Dq + 13 800·25 300 = 0, lower root), 10Dq = 8 240.
   it('gives 10Dq 8 000–9 000 cm-1 and β < 1, with or without the measured range', () => {
     for (const window of [undefined, { min: 1e7 / 780, max: 1e7 / 380 }]) {
       const r = fitBands({ ion: 'Ni2+', bands: [13800, 25300], ...(window ? { window } : {}) });

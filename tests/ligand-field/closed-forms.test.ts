@@ -19,7 +19,8 @@ const cases = [
 
 describe('closed forms for octahedral d3 and d8 (ground 4A2g / 3A2g)', () => {
   // Lever, Inorganic Electronic Spectroscopy, 2nd ed. (1984): ν1 = 10Dq,
-  // ν2, ν3 = 7.5B + 15Dq ∓ ½√(225B² + 100Dq² − 180DqB) (from memory).
+  // ν2, ν3 = 7.5B + 15Dq ∓ ½√(225B² + 100Dq² − 180DqB) (from memory). Their sum and product are what Underhill &
+  // Billing's equations for octahedral Ni(II) state (found, checked in the next test).
   it.each([[3, 4], [8, 3]] as const)('d%i', (d, multiplicity) => {
     for (const { dq, b, c } of cases) {
       const result = computeLevels(d, 'octahedral', { dq, b, c });
@@ -28,6 +29,22 @@ describe('closed forms for octahedral d3 and d8 (ground 4A2g / 3A2g)', () => {
       expect(at(result, `${multiplicity}T2g(F)`)).toBeCloseTo(10 * dq, 6);
       expect(at(result, `${multiplicity}T1g(F)`)).toBeCloseTo(7.5 * b + 15 * dq - 0.5 * root, 6);
       expect(at(result, `${multiplicity}T1g(P)`)).toBeCloseTo(7.5 * b + 15 * dq + 0.5 * root, 6);
+    }
+  });
+});
+
+describe('octahedral d8 against Underhill & Billing\'s equations', () => {
+  // Underhill & Billing, "Calculations of the Racah parameter B for nickel(II) and cobalt(II) compounds", Nature 210
+  // (1966) 834, as quoted in the abstract of "On the Study of Racah Parameter B for Nickel (II) and Cobalt (II)
+  // Compounds" (avantipublishers.com/index.php/jatsr/article/view/863): ν2 + ν3 − 30Dq − 15B = 0 and
+  // 340Dq² − 18(ν2 + ν3)Dq + ν2ν3 = 0 for octahedral Ni(II), ν2 = 3T1g(F), ν3 = 3T1g(P) (found).
+  it('the engine\'s ν2 and ν3 satisfy both', () => {
+    for (const { dq, b, c } of cases) {
+      const result = computeLevels(8, 'octahedral', { dq, b, c });
+      const nu2 = at(result, '3T1g(F)');
+      const nu3 = at(result, '3T1g(P)');
+      expect(nu2 + nu3 - 30 * dq - 15 * b).toBeCloseTo(0, 6);
+      expect((340 * dq * dq - 18 * (nu2 + nu3) * dq + nu2 * nu3) / (nu2 * nu3)).toBeCloseTo(0, 10);
     }
   });
 });

@@ -43,7 +43,10 @@ describe('parent labels follow the non-crossing rule', () => {
 });
 
 describe('familiar labels', () => {
-  // Tanabe & Sugano (1954) diagrams and Lever (1984) band assignments (from memory)
+  // Tanabe & Sugano (1954) diagrams and the usual band assignments: common practice. Found for d8: [Ni(H2O)6]2+ bands
+  // assigned 3A2g → 3T2g, 3T1g(F), 3T1g(P) with 1Eg and 1T2g spin-forbidden (docs/sources.md NI-AQUA-VN); for d3:
+  // Cr(III) 4A2g → 4T2g and 4A2g → 4T1g as the two main bands (a glass study quoted on th4.ilovetranslation.com);
+  // for d5 the quartets of 4G as the lowest (Jørgensen 1962, Table 2: 4G at 10B + 5C, the lowest quartet term).
   it('octahedral d3 (Cr3+): 4A2g(F) → 4T2g(F), 4T1g(F), 4T1g(P); 2Eg(G) below 4T2g', () => {
     const labels = computeLevels(3, 'octahedral', { dq: 1740, b: 725, c: 2900 }).levels.map((l) => l.label);
     expect(labels[0]).toBe('4A2g(F)');
