@@ -34,10 +34,10 @@ const FOUND = {
   brownNi: (nm: number, cm: number, diff: string): string => `found: maximum "about ${nm} nm" = ${cm} cm-1 (Brown, LeMay et al., Chemistry: The Central Science, 11th ed., ex. 24.40, docs/sources.md BROWN-NI), ${diff} from the ν2 above`,
   coAqua: 'found: aqueous CoCl2·6H2O band at 512 nm = 19 531 cm-1 (www.iasj.net/iasj/article/131143), +0.7 % from 19 400',
   coAmmine: 'found: λmax 470 nm = 21 280 cm-1 in a course exercise (tutorsglobe.com, docs/sources.md CO-AMMINE-Q), +1.1 % from 21 050',
-  crAqua: 'found: one measured aqueous spectrum at 17 000 and 24 000 cm-1 (Lancashire, UWI course notes C21J, docs/sources.md CR-AQUA-UWI), −2.3 % and −2.4 %',
+  crAqua: 'found: one measured aqueous spectrum at 17 000 and 24 000 cm-1 (course page C21J on Tanabe–Sugano diagrams, docs/sources.md CR-AQUA-C21J), −2.3 % and −2.4 %',
   tiAqua: 'found: [Ti(H2O)6]3+ νmax 20 300 cm-1 (Crittenden, University of Sheffield chm131 pages, chem.shef.ac.uk/chm131-2002/cha02tdc/examples.html); 10Dq = ν for d1 (common practice)',
   feAqua: 'found: 10 400 cm-1 in a course exercise\'s data table (answerhappy.com/viewtopic.php?t=18826, docs/sources.md FE-CO-AQUA-Q)',
-  cuAqua: 'found: maximum "around 800 nm" = 12 500 cm-1 (Zumdahl, Chemistry, 8th ed., ex. 21.54, docs/sources.md ZUMDAHL-CU); 10Dq = ν for d9 (common practice)',
+  cuAqua: 'found: maximum "around 800 nm" = 12 500 cm-1 (Chemistry, 8th ed., ex. 21.54, a textbook exercise, docs/sources.md CHEM8-CU); 10Dq = ν for d9 (common practice)',
 };
 const BALLHAUSEN_MN = 'B 670 and C 3710 found: Ballhausen F2 = 1200, F4 = 106 cm-1 (via ppdoc.com/periodical/3f3c46c77bc81eb81e7815cc0f322624.html); bands and 10Dq from memory';
 

@@ -41,7 +41,7 @@ describe('fitBands on published spectra', () => {
   it('d3 [Cr(H2O)6]3+ and [Cr(NH3)6]3+', () => {
     // from memory: [Cr(H2O)6]3+ 17 400, 24 600 cm-1 → 10Dq = 17 400, B ≈ 725 cm-1 (Lever, Inorganic Electronic Spectroscopy, 2nd ed., 1984);
     // 10Dq confirmed: Jørgensen's g(Cr3+) = 17 400 cm-1 (Modern Aspects of Ligand Field Theory, 1971, pp. 347–348)
-    // found: one measured aqueous spectrum, 17 000 and 24 000 cm-1 (Lancashire, UWI course notes C21J "Tanabe–Sugano
+    // found: one measured aqueous spectrum, 17 000 and 24 000 cm-1 (course page C21J "Tanabe–Sugano
     // diagrams", Table 1, mirror 212233.hqzbsc.asia/courses/C21Jspec_TS.html): differs by −2.3 % and −2.4 %; B = 725
     // against B0 = 918 quoted on openknowledgegraph.com/topics/nephelauxetic-effect-covalency-questions.html (a quiz page)
     const aqua = fit({ ion: 'Cr3+', bands: [17400, 24600] });
@@ -169,7 +169,7 @@ describe('fitBands on published spectra', () => {
   });
 
   it('d9 [Cu(H2O)6]2+: 10Dq from the one band, B not determinable', () => {
-    // one broad band near 12 500 cm-1: found "around 800 nm" (Zumdahl, Chemistry, 8th ed., ch. 21, ex. 54, via
+    // one broad band near 12 500 cm-1: found "around 800 nm" (textbook exercise, Chemistry, 8th ed., ch. 21, ex. 54, via
     // studysmarter; see docs/sources.md)
     const r = fit({ ion: 'Cu2+', bands: [12500] });
     expect(r.tenDq).toBe(12500);

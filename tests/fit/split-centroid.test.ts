@@ -52,7 +52,7 @@ describe('intensity-weighted centroid of split components', () => {
   });
 
   it('uses ε·width from the text form, and the plain mean without intensities', () => {
-    // [Cu(H2O)6]2+-like: one broad band near 12 500 cm-1 (found: "around 800 nm", docs/sources.md ZUMDAHL-CU), split by Jahn–Teller; ε and widths invented.
+    // [Cu(H2O)6]2+-like: one broad band near 12 500 cm-1 (found: "around 800 nm", docs/sources.md CHEM8-CU), split by Jahn–Teller; ε and widths invented.
     const weighted = fitBands({ ion: 'Cu2+', bands: '10300:e=6:w=2100, 13500:e=12:w=3200' });
     expect(weighted.tenDq).toBeCloseTo(centroidReference([10_300, 13_500], [6 * 2100, 12 * 3200]), 0);
     const plain = fitBands({ ion: 'Cu2+', bands: '10300, 13500' });

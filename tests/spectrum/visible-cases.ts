@@ -56,7 +56,7 @@ export const COBALT: VisibleCase = {
 /**
  * [Cu(H2O)6]2+: one broad Jahn–Teller band, maximum near 12 300 cm-1
  * (≈ 810 nm), ε ≈ 12 — from memory (Lever, 1984); found: "around 800 nm"
- * = 12 500 cm-1 (Zumdahl, docs/sources.md ZUMDAHL-CU, +1.6 %); ε(807 nm) ≈ 12 also
+ * = 12 500 cm-1 (textbook exercise, docs/sources.md CHEM8-CU, +1.6 %); ε(807 nm) ≈ 12 also
  * follows from the absorbances of CuSO4 solutions quoted in
  * studymode.com, "Spectrophotometric analysis of copper sulphate"
  * (A = 0.246 at 20 mmol/L, 1 cm). Its lower Jahn–Teller component

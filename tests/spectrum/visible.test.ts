@@ -82,7 +82,7 @@ describe.each(ROUNDINGS)('visible-only spectra rounded to %i decimals', (decimal
     expect(band.window).toBe('beyond-red-end');
     expect(band.maximumInWindow).toBe(false);
     expect(Math.abs(band.position - trueMaximum(o, 9000, 16_000))).toBeLessThan(1000);
-    expect(Math.abs(band.position - 12_500)).toBeLessThan(1000); // published maximum "around 800 nm" = 12 500 cm-1 (found: Zumdahl, Chemistry, 8th ed., ex. 21.54, docs/sources.md ZUMDAHL-CU); 12 300 recalled (Lever 1984)
+    expect(Math.abs(band.position - 12_500)).toBeLessThan(1000); // published maximum "around 800 nm" = 12 500 cm-1 (found: Chemistry, 8th ed., ex. 21.54, a textbook exercise, docs/sources.md CHEM8-CU); 12 300 recalled (Lever 1984)
     // An honest uncertainty: the centre is extrapolated from one flank.
     expect(band.positionUncertainty).toBeGreaterThan(300);
     expect(r.warnings.some((w) => /outside the measured range, beyond the red/.test(w))).toBe(true);
@@ -117,7 +117,7 @@ describe('the pipeline on the visible-only spectra', () => {
   it('Cu(II): one band given to the fit, 10Dq from it beyond the window, the note in the warnings', () => {
     const r = analyzeSpectrum(realisticCsv(COPPER.spectrum), { ion: 'Cu2+', concentration: COPPER.spectrum.concentration });
     expect(r.bands).toHaveLength(1);
-    expect(Math.abs(r.fit.tenDq! - 12_500)).toBeLessThan(1000); // published "around 800 nm" = 12 500 cm-1 (found: Zumdahl, Chemistry, 8th ed., ex. 21.54, docs/sources.md ZUMDAHL-CU)
+    expect(Math.abs(r.fit.tenDq! - 12_500)).toBeLessThan(1000); // published "around 800 nm" = 12 500 cm-1 (found: Chemistry, 8th ed., ex. 21.54, a textbook exercise, docs/sources.md CHEM8-CU)
     expect(r.warnings.some((w) => /outside the measured range/.test(w))).toBe(true);
   });
 
