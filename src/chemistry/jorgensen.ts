@@ -12,6 +12,10 @@ import type { Ion } from './ions.js';
  * estimating 10Dq and of h and k for estimating β" (chemprof.tripod.com,
  * tables2.htm). Only values in that table are here; estimates for ligands and
  * metals it lacks live in src/predict/factor-table.ts, marked as estimates.
+ * A second copy of the table on the same site (chemprof.tripod.com/fghk.htm,
+ * found again for issue 13) agrees on every value here except that it prints
+ * g(Ir3+) as 8 000 (an evident slip for 32 000) and gives no h for thiourea;
+ * tables2.htm also lists h(glycinate) = 2.0, which is not taken here.
  *
  * Ligand keys are those of ligands.ts ("NH3", "ox", "NCS"; "SCN" is the
  * S-bound thiocyanate, "py" the table's C5H5N); metal keys are ion labels ("Cr3+").

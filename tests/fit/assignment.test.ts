@@ -1,7 +1,8 @@
 /**
  * The assignment rules of src/fit/penalties.ts, on band sets whose right
  * answer a chemist reads at sight (values from memory: Lever, Inorganic
- * Electronic Spectroscopy, 2nd ed., 1984).
+ * Electronic Spectroscopy, 2nd ed., 1984, except where a found source is
+ * cited beside them; see docs/sources.md).
  */
 import { describe, expect, it } from 'vitest';
 import { fitBands } from '../../src/fit/index.js';
@@ -46,7 +47,8 @@ describe('automatic assignment', () => {
   });
 
   it('prefers β ≤ 1 and the one-electron band as the lowest: [Co(H2O)6]2+ with ν2 missing', () => {
-    // from memory: 8 100 and 19 400 cm-1; reading 8 100 as the two-electron 4A2g would need 4T2g near 3 700 cm-1 unobserved
+    // from memory: 8 100 and 19 400 cm-1 (19 400 found within 0.7 %: 512 nm, docs/sources.md CO-AQUA-IASJ); reading 8 100
+    // as the two-electron 4A2g would need 4T2g near 3 700 cm-1 unobserved
     const r = fitBands({ ion: 'Co2+', bands: [8100, 19400] });
     expect(r.assignments[0]!.label).toBe('4T2g(F)');
     expect(r.beta!).toBeLessThan(1);
