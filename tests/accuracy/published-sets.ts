@@ -33,7 +33,7 @@ const FOUND = {
   niAqua: 'found: 8 500, 13 800, 25 300 cm-1 as such in a thesis chapter on Ni(II) spectra (123docz.net/trich-doan/2479124, docs/sources.md NI-AQUA-VN)',
   brownNi: (nm: number, cm: number, diff: string): string => `found: maximum "about ${nm} nm" = ${cm} cm-1 (Brown, LeMay et al., Chemistry: The Central Science, 11th ed., ex. 24.40, docs/sources.md BROWN-NI), ${diff} from the ν2 above`,
   coAqua: 'found: aqueous CoCl2·6H2O band at 512 nm = 19 531 cm-1 (www.iasj.net/iasj/article/131143), +0.7 % from 19 400',
-  coAmmine: 'found: λmax 470 nm = 21 280 cm-1 in a course exercise (tutorsglobe.com, docs/sources.md CO-AMMINE-Q), +1.1 % from 21 050',
+  coAmmine: 'found: λmax 470 nm = 21 280 cm-1 in a course exercise (tutorsglobe.com, docs/sources.md CO-AMMINE-Q), +1.1 % from 21 050; Δo = 22 900 in a forum exercise (docs/sources.md CO-DQ-VN), +0.1 % from this 10Dq',
   crAqua: 'found: one measured aqueous spectrum at 17 000 and 24 000 cm-1 (course page C21J on Tanabe–Sugano diagrams, docs/sources.md CR-AQUA-C21J), −2.3 % and −2.4 %',
   tiAqua: 'found: [Ti(H2O)6]3+ νmax 20 300 cm-1 (Crittenden, University of Sheffield chm131 pages, chem.shef.ac.uk/chm131-2002/cha02tdc/examples.html); 10Dq = ν for d1 (common practice)',
   feAqua: 'found: 10 400 cm-1 in a course exercise\'s data table (answerhappy.com/viewtopic.php?t=18826, docs/sources.md FE-CO-AQUA-Q)',
@@ -64,7 +64,7 @@ export const PUBLISHED_SETS: readonly PublishedSet[] = [
   { id: 'co2-aqua', complex: '[Co(H2O)6]2+', ion: 'Co2+', geometry: 'octahedral', bands: '8100,19400', tenDq: 9200, b: 825, spinState: 'high-spin', source: `${JORGENSEN('g(Co2+) = 9 000, 2 % below this 10Dq')}; ${FOUND.coAqua}` },
   { id: 'co2-tet-cl', complex: '[CoCl4]2-', ion: 'Co2+', geometry: 'tetrahedral', bands: '5500,14700', tenDq: 3200, b: 710, spinState: 'no-choice', source: LEVER },
   { id: 'ni2-aqua', complex: '[Ni(H2O)6]2+', ion: 'Ni2+', geometry: 'octahedral', bands: '8500,13800,25300', tenDq: 8500, b: 930, spinState: 'no-choice', source: `${JORGENSEN('g(Ni2+) = 8 700, 2.4 % above this 10Dq')}; ${FOUND.niAqua}` },
-  { id: 'ni2-ammine', complex: '[Ni(NH3)6]2+', ion: 'Ni2+', geometry: 'octahedral', bands: '10750,17500,28200', tenDq: 10750, b: 880, spinState: 'no-choice', source: `${JORGENSEN('f(NH3)·g(Ni2+) = 10 875, an estimate within 1.2 %')}; ${FOUND.brownNi(570, 17540, '+0.2 %')}` },
+  { id: 'ni2-ammine', complex: '[Ni(NH3)6]2+', ion: 'Ni2+', geometry: 'octahedral', bands: '10750,17500,28200', tenDq: 10750, b: 880, spinState: 'no-choice', source: `${JORGENSEN('f(NH3)·g(Ni2+) = 10 875, an estimate within 1.2 %')}; ${FOUND.brownNi(570, 17540, '+0.2 %')}; found: Δo = 129 kJ/mol = 10 784 cm-1 (docs/sources.md NI-DQ-VN), +0.3 % from this 10Dq` },
   // Measured lines with their published analysis (found): Ni2+ in MgO, Phys. Rev. (1958), abstract via
   // preview.concepedia.online/publication/W4254481442: lines 8600, 13 400, (14 800), (21 550), 24 500, … cm-1, Dq = 860,
   // E_P = 13 000 (B ≈ 867). The spin-allowed three; which line is which is common practice for d8, not stated in the abstract.

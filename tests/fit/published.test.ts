@@ -79,7 +79,7 @@ describe('fitBands on published spectra', () => {
 
   it('d6 low-spin [Co(NH3)6]3+', () => {
     // from memory: 21 050 (1T1g), 29 550 (1T2g) cm-1 → 10Dq ≈ 22 870, B ≈ 615 cm-1 (Lever, 1984);
-    // Jørgensen (1971) f(NH3)·g(Co3+) = 1.25 × 18 200 = 22 750 (an estimate, 0.5 % from 22 870)
+    // Jørgensen (1971) f(NH3)·g(Co3+) = 1.25 × 18 200 = 22 750 (an estimate, 0.5 % from 22 870); 10Dq found: Δo = 22 900 cm-1 in a forum exercise (chemvn.chratec.com/t/…/6968, docs/sources.md CO-DQ-VN), +0.1 %
     // found: λmax 470 nm = 21 280 cm-1 in a course exercise (tutorsglobe.com/question/the-absorbance-maxima-observed-for-
     // the-following-cobalt-5660898.aspx): differs from 21 050 by +1.1 %
     const r = fit({ ion: 'Co3+', bands: [21050, 29550] });
@@ -142,7 +142,7 @@ describe('fitBands on published spectra', () => {
     // from memory: [Ni(NH3)6]2+ 10 750, 17 500, 28 200 cm-1 → 10Dq ≈ 10 750, B ≈ 880 cm-1 (Lever, 1984); found for ν2:
     // "about 570 nm" = 17 540 cm-1 (Brown, LeMay et al., Chemistry: The Central Science, 11th ed., ch. 24, ex. 40, via
     // studysmarter; see docs/sources.md), +0.2 %;
-    // Jørgensen (1971) f(NH3)·g(Ni2+) = 1.25 × 8 700 = 10 875 (an estimate, 1.2 % from 10 750)
+    // Jørgensen (1971) f(NH3)·g(Ni2+) = 1.25 × 8 700 = 10 875 (an estimate, 1.2 % from 10 750); 10Dq found: Δo = 129 kJ/mol = 10 784 ± 42 cm-1 in a Vietnamese lecture on complexes (123docz.net/trich-doan/355843, docs/sources.md NI-DQ-VN), +0.3 %
     const ammine = fit({ ion: 'Ni2+', bands: [10750, 17500, 28200] });
     within(ammine.tenDq, 10750, 0.03);
     within(ammine.b, 880, 0.1);
