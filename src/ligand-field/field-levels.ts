@@ -164,12 +164,7 @@ export function spinFreeFieldLevels(d: number, geometry: Geometry, p: ResolvedPa
     }));
   }
   const tol = tolerance(p);
-  if (p.dq !== 0) {
-    return tetragonalLevelsFast(d, p.dq, p.b, p.c, p.ds, p.dt, tol).map(({ energy, twoS, irrep, parent, degeneracy }) => {
-      const term = `${twoS + 1}${GERADE_D4H[irrep]}`;
-      return { energy, degeneracy, irrep: GERADE_D4H[irrep], parent, parentWeight: 1, term, multiplicity: twoS + 1, label: `${term}[${parent}]` };
-    });
-  }
+  if (p.dq !== 0) return tetragonalLevelsFast(d, p.dq, p.b, p.c, p.ds, p.dt, tol);
   return spinFreeTetragonalLevelsViaCubic(d, p);
 }
 
