@@ -37,8 +37,9 @@ it('tetrahedral [CoCl4]2-: the visible multiplet is read as 4T1(P) components, w
  * the model with ζ ≈ 1.2–1.6 ζ0, which is what the unconstrained fit
  * returned (162 %); the ζ prior holds it at the top of the complexes' range
  * instead. So the large ζ is not an error of the spin–orbit engine or of
- * the assignment (bands on doublet-dominated levels were tried too and
- * change nothing on this set): the envelope is wider than spin–orbit
+ * the assignment (an experiment that also let bands sit on levels led by a
+ * doublet but holding ≥ 10–25 % 4T1(P) gave the same ζ and no better fit on
+ * this set, so it was not kept): the envelope is wider than spin–orbit
  * coupling makes it, and band maxima of such an envelope do not measure ζ.
  * A published multiplet analysis with its band list (searched for: CoCl4
  * 2-, Cs3CoCl5, Cs2CoCl4 crystal spectra; Co(II) in tetrahedral oxide sites,
