@@ -68,7 +68,18 @@ export interface FieldLevel {
   multiplicity: number;
   /** For display: "4A2g[4T1g(F)]", "Γ8[4T1(F) 97%]". */
   label: string;
+  /**
+   * With spin–orbit only: the weight (0..1) of every spin-free parent that
+   * holds at least PARENT_WEIGHT_FLOOR of the level, the dominant one
+   * included. A level whose dominant parent is a doublet can hold a large
+   * share of a quartet (2T1(G) beside 4T1(P) in tetrahedral Co(II)): it
+   * borrows that quartet's intensity, and a fit may put a band on it.
+   */
+  parentWeights?: Readonly<Record<string, number>>;
 }
+
+/** Parents below this weight in a spin–orbit level are left out of parentWeights. */
+export const PARENT_WEIGHT_FLOOR = 0.01;
 
 export interface FieldLevelsResult {
   d: number;
@@ -164,12 +175,7 @@ export function spinFreeFieldLevels(d: number, geometry: Geometry, p: ResolvedPa
     }));
   }
   const tol = tolerance(p);
-  if (p.dq !== 0) {
-    return tetragonalLevelsFast(d, p.dq, p.b, p.c, p.ds, p.dt, tol).map(({ energy, twoS, irrep, parent, degeneracy }) => {
-      const term = `${twoS + 1}${GERADE_D4H[irrep]}`;
-      return { energy, degeneracy, irrep: GERADE_D4H[irrep], parent, parentWeight: 1, term, multiplicity: twoS + 1, label: `${term}[${parent}]` };
-    });
-  }
+  if (p.dq !== 0) return tetragonalLevelsFast(d, p.dq, p.b, p.c, p.ds, p.dt, tol);
   return spinFreeTetragonalLevelsViaCubic(d, p);
 }
 
@@ -335,11 +341,15 @@ function spinOrbitLevels(d: number, geometry: Geometry, p: ResolvedParameters): 
   const pushLevel = (energy: number, irrep: string, degeneracy: number, weights: Map<string, number>): void => {
     let parent = '?';
     let weight = -1;
-    for (const [name, w] of weights) if (w > weight) [parent, weight] = [name, w];
+    const parentWeights: Record<string, number> = {};
+    for (const [name, w] of weights) {
+      if (w > weight) [parent, weight] = [name, w];
+      if (w >= PARENT_WEIGHT_FLOOR) parentWeights[name] = Math.min(1, w);
+    }
     const relative = energy - ground;
     levels.push({
       energy: relative < tol ? 0 : relative, degeneracy, irrep, parent, parentWeight: Math.min(1, weight), term: irrep,
-      multiplicity: multiplicityOf(parent), label: `${irrep}[${parent} ${Math.round(100 * Math.min(1, weight))}%]`,
+      multiplicity: multiplicityOf(parent), label: `${irrep}[${parent} ${Math.round(100 * Math.min(1, weight))}%]`, parentWeights,
     });
   };
   if (!cubic) {

@@ -1,100 +1,221 @@
 import { FieldgapError } from '../errors.js';
-import { cubicBlockEigenvalues } from './block-spectra.js';
-import { irrepBlocks } from './irrep-blocks.js';
+import { blockHamiltonianInto } from './block-spectra.js';
+import { createEigenWorkspace, symmetricEigenvaluesInPlace, type EigenWorkspace } from './eigen-symmetric.js';
+import type { FieldLevel } from './field-levels.js';
+import { irrepBlocks, type IrrepBlocks } from './irrep-blocks.js';
+import type { ParentTable } from './labels.js';
 import { energyTolerance } from './levels.js';
 import { parentTableFor } from './parent-tables.js';
-import { CHANNEL_D4_IRREPS, D4_DIMENSION, tetragonalBlocks, type D4Irrep } from './tetragonal-blocks.js';
+import { CHANNEL_D4_IRREPS, D4_DIMENSION, tetragonalBlocks, type TetragonalBlocks } from './tetragonal-blocks.js';
 import { tetragonalSpectrum } from './tetragonal-spectrum.js';
 
 /**
  * The labelled spin-free levels of d^n (1..9) in a tetragonal field
- * (octahedral parent geometry, Dq ≠ 0), fast: no cubic Level objects and no
- * string keys on the way. Each level is (2S+1, D4h irrep) with its
- * octahedral parent: the i-th lowest (S, Γ4) level's parent is the i-th
- * lowest octahedral (S, Γ) level whose O → D4 reduction holds Γ4 (the
- * non-crossing rule along t·(Ds, Dt), see field-levels.ts). The D4 channel
- * of each octahedral irrep (O → D4: A1 → A1, A2 → B1, E → A1 + B1,
+ * (octahedral parent geometry, Dq ≠ 0), fast. Each level is (2S+1, D4h
+ * irrep) with its octahedral parent: the i-th lowest (S, Γ4) level's parent
+ * is the i-th lowest octahedral (S, Γ) level whose O → D4 reduction holds
+ * Γ4 (the non-crossing rule along t·(Ds, Dt), see field-levels.ts). The D4
+ * channel of each octahedral irrep (O → D4: A1 → A1, A2 → B1, E → A1 + B1,
  * T1 → A2 + E, T2 → B2 + E), read backwards, says which cubic (S, Γ) lists
  * are merged for each channel: A1 ← A1, E; A2 ← T1; E ← T1, T2;
  * B1 ← A2, E; B2 ← T2. The cubic energies are the eigenvalues of the
  * irrep blocks (irrep-blocks.ts) at Dq, B, C, the names those of
  * computeLevels (parent-tables.ts): rank r of (S, Γ) is the r-th eigenvalue
  * of its block. Equal energies (within computeLevels' cluster tolerance)
- * merge in irrep-column order, as computeLevels sorts ties. The slow
- * reference (computeLevels, then lists by (S, Γ4)) is
+ * merge in irrep-column order, as computeLevels sorts ties.
+ *
+ * Why it is fast (a labelled tetragonal evaluation is held to twice the
+ * cost of a labelled cubic one): everything that depends on d^n only (the
+ * slots of the tetragonal spectrum, their cubic sources, the term names,
+ * degeneracies) is built once per d^n; the label strings once per parent
+ * table (a handful per d^n, parent-tables.ts); a call computes the two sets
+ * of block eigenvalues, merges the cubic lists into two preallocated index
+ * arrays, sorts positions in place and makes one object per level.
+ *
+ * The slow reference (a labelled computeLevels, then parents by rank) is
  * spinFreeTetragonalLevelsViaCubic in field-levels.ts, which also serves
  * Dq = 0; tests/ligand-field/tetragonal-levels.test.ts compares the two.
  */
-export interface SpinFreeTetragonalLevel {
-  /** cm-1 above the ground level (0 within tol). */
-  energy: number;
-  twoS: number;
-  irrep: D4Irrep;
-  /** The octahedral parent's label, "4T1g(F)". */
-  parent: string;
-  degeneracy: number;
-}
 
 /** D4 channel (CHANNEL_D4_IRREPS index) → the cubic irrep columns (A1, A2, E, T1, T2 = 0..4) that hold it. */
 const CUBIC_SOURCES: readonly (readonly number[])[] = [[0, 2], [3], [3, 4], [1, 2], [4]];
 
-const cubicCoefficients = new Float64Array(3);
-const coefficients = new Float64Array(5);
+const GERADE_D4H: readonly string[] = ['A1g', 'A2g', 'Eg', 'B1g', 'B2g'];
 
-/** The parents of one (S, channel), ascending, by merging the sorted cubic lists (one or two). */
-function channelParents(
-  first: Float64Array, second: Float64Array | undefined, firstNames: readonly string[] | undefined, secondNames: readonly string[] | undefined, tol: number,
-): string[] {
-  if (first.length === 0 && (!second || second.length === 0)) return [];
-  if (!second) return firstNames!.slice(0, first.length);
-  const out: string[] = [];
-  let i = 0;
-  let j = 0;
-  while (i < first.length || j < second.length) {
-    // Ties within tol go to the first list (the lower irrep column), as computeLevels orders them.
-    if (j >= second.length || (i < first.length && first[i]! <= second[j]! + tol)) out.push(firstNames![i++]!);
-    else out.push(secondNames![j++]!);
-  }
-  return out;
+/** One (S, D4 channel) block of the tetragonal spectrum: its positions start..start+size−1, ranks 0..size−1. */
+interface Slot {
+  spinIndex: number;
+  twoS: number;
+  channel: number;
+  start: number;
+  size: number;
+  /** Cubic columns merged into it (one or two). */
+  first: number;
+  second: number | undefined;
+}
+
+/** What depends on d^n only. */
+interface Plan {
+  tetragonal: TetragonalBlocks;
+  cubic: IrrepBlocks;
+  slots: Slot[];
+  count: number;
+  /** Per position: "4A2g", "A2g", 2S+1 and the degeneracy. */
+  term: string[];
+  irrep: string[];
+  multiplicity: Int32Array;
+  degeneracy: Int32Array;
+  /** Per call: the parent's cubic column and rank of each position, and the sorted order. */
+  parentColumn: Int32Array;
+  parentRank: Int32Array;
+  order: Int32Array;
+  /** Largest cubic block, for the label index. */
+  maxRank: number;
+  /**
+   * The cubic (spin index, column) blocks whose eigenvalues some merge needs:
+   * a slot with one non-empty source takes its parents by rank and needs
+   * none (all of d1 and d9, most blocks of d2 and d8).
+   */
+  needed: Array<[number, number]>;
+  /** cubicValues[spinIndex][column]: eigenvalues of the needed blocks, ascending. */
+  cubicValues: Float64Array[][];
+  scratch: Float64Array;
+  eigen: EigenWorkspace;
+  /** The last parent table and its label store: a fit-free caller keeps C/B, and a lookup is saved. */
+  lastTable: ParentTable | undefined;
+  lastStore: Array<string | undefined>;
+}
+
+const plans: Array<Plan | undefined> = [];
+
+function planFor(d: number): Plan {
+  const hit = plans[d];
+  if (hit) return hit;
+  const tetragonal = tetragonalBlocks(d);
+  const cubic = irrepBlocks(d, 'octahedral');
+  const slots: Slot[] = [];
+  let start = 0;
+  // The position order of tetragonal-spectrum.ts: highest spin first, then channel, then rank.
+  for (let s = tetragonal.blocks.length - 1; s >= 0; s--)
+    tetragonal.blocks[s]!.forEach((block, channel) => {
+      if (block.size === 0) return;
+      const [first, second] = CUBIC_SOURCES[channel]! as [number, number | undefined];
+      const sources = cubic.blocks[s]![first]!.size + (second === undefined ? 0 : cubic.blocks[s]![second]!.size);
+      if (sources !== block.size) {
+        throw new FieldgapError('internal', `d${d}: tetragonal block ${tetragonal.twoSValues[s]! + 1}${CHANNEL_D4_IRREPS[channel]} has ${block.size} states, its cubic sources ${sources}`);
+      }
+      // A source that is empty leaves one list: parents by rank, no merge.
+      const firstSize = cubic.blocks[s]![first]!.size;
+      const merge = second !== undefined && firstSize > 0 && cubic.blocks[s]![second]!.size > 0;
+      const only = second === undefined || firstSize > 0 ? first : second;
+      slots.push({ spinIndex: s, twoS: tetragonal.twoSValues[s]!, channel, start, size: block.size, first: merge ? first : only, second: merge ? second : undefined });
+      start += block.size;
+    });
+  const count = start;
+  const needed: Array<[number, number]> = [];
+  for (const slot of slots)
+    if (slot.second !== undefined)
+      for (const column of [slot.first, slot.second])
+        if (!needed.some(([s, c]) => s === slot.spinIndex && c === column)) needed.push([slot.spinIndex, column]);
+  const largest = Math.max(1, ...needed.map(([s, c]) => cubic.blocks[s]![c]!.size));
+  const plan: Plan = {
+    tetragonal, cubic, slots, count,
+    term: new Array<string>(count), irrep: new Array<string>(count),
+    multiplicity: new Int32Array(count), degeneracy: new Int32Array(count),
+    parentColumn: new Int32Array(count), parentRank: new Int32Array(count), order: new Int32Array(count),
+    maxRank: Math.max(1, ...cubic.blocks.flat().map((b) => b.size)),
+    needed,
+    cubicValues: cubic.blocks.map((row) => row.map((b) => new Float64Array(b.size))),
+    scratch: new Float64Array(largest * largest),
+    eigen: createEigenWorkspace(largest),
+    lastTable: undefined,
+    lastStore: [],
+  };
+  for (const slot of slots)
+    for (let r = 0; r < slot.size; r++) {
+      const p = slot.start + r;
+      plan.irrep[p] = GERADE_D4H[slot.channel]!;
+      plan.term[p] = `${slot.twoS + 1}${plan.irrep[p]}`;
+      plan.multiplicity[p] = slot.twoS + 1;
+      plan.degeneracy[p] = (slot.twoS + 1) * D4_DIMENSION[CHANNEL_D4_IRREPS[slot.channel]!];
+    }
+  plans[d] = plan;
+  return plan;
+}
+
+/** Per parent table (fixed objects, parent-tables.ts): "4A2g[4T1g(F)]" by position, cubic column and rank, made on first use. */
+const labelTables = new WeakMap<ParentTable, Map<number, Array<string | undefined>>>();
+
+function labelStore(table: ParentTable, d: number): Array<string | undefined> {
+  let byD = labelTables.get(table);
+  if (!byD) labelTables.set(table, (byD = new Map()));
+  let store = byD.get(d);
+  if (!store) byD.set(d, (store = []));
+  return store;
 }
 
 /**
- * The levels, ascending (ties: higher spin, then channel), energies from the
- * ground level; tol (cm-1) zeroes round-off at the ground. dq ≠ 0: at Dq = 0
- * the octahedral order of a term's components is that of the limit Dq → 0
- * (levels.ts), which only computeLevels knows.
+ * Merges the ascending cubic lists of one slot into the parent (column,
+ * rank) of each of its positions. Ties within tol go to the first list (the
+ * lower irrep column), as computeLevels orders them.
  */
-export function tetragonalLevelsFast(d: number, dq: number, b: number, c: number, ds: number, dt: number, tol: number): SpinFreeTetragonalLevel[] {
-  const mergeTol = energyTolerance({ dq, b, c });
-  const cubic = irrepBlocks(d, 'octahedral');
+function mergeParents(slot: Slot, values: Float64Array[], tol: number, column: Int32Array, rank: Int32Array): void {
+  const first = values[slot.first]!;
+  let p = slot.start;
+  if (slot.second === undefined) {
+    for (let i = 0; i < first.length; i++, p++) {
+      column[p] = slot.first;
+      rank[p] = i;
+    }
+    return;
+  }
+  const second = values[slot.second]!;
+  let i = 0;
+  let j = 0;
+  for (; i < first.length || j < second.length; p++) {
+    if (j >= second.length || (i < first.length && first[i]! <= second[j]! + tol)) {
+      column[p] = slot.first;
+      rank[p] = i++;
+    } else {
+      column[p] = slot.second;
+      rank[p] = j++;
+    }
+  }
+}
+
+const cubicCoefficients = new Float64Array(3);
+const coefficients = new Float64Array(5);
+
+/**
+ * The levels, ascending (ties: higher spin, then channel), energies from the
+ * ground level (cm-1); tol (cm-1) zeroes round-off at the ground. dq ≠ 0:
+ * at Dq = 0 the octahedral order of a term's components is that of the
+ * limit Dq → 0 (levels.ts), which only computeLevels knows.
+ */
+export function tetragonalLevelsFast(d: number, dq: number, b: number, c: number, ds: number, dt: number, tol: number): FieldLevel[] {
+  const plan = planFor(d);
+  const { slots, count, parentColumn, parentRank, order, maxRank } = plan;
   cubicCoefficients[0] = dq;
   cubicCoefficients[1] = b;
   cubicCoefficients[2] = c;
-  const cubicValues = cubicBlockEigenvalues(cubic, cubicCoefficients);
-  const labels = parentTableFor(d, c / b).labels('octahedral');
-  const blocks = tetragonalBlocks(d);
-  // parents[8·twoS + channel]: the parent names of that (S, channel) in ascending order.
-  const parents: string[][] = [];
-  const spins = cubic.twoSValues;
-  for (let s = 0; s < spins.length; s++) {
-    const twoS = spins[s]!;
-    const values = cubicValues[s]!;
-    for (let channel = 0; channel < 5; channel++) {
-      const [a, b2] = CUBIC_SOURCES[channel]!;
-      const base = 5 * (twoS + 1);
-      parents[8 * twoS + channel] = b2 === undefined
-        ? channelParents(values[a!]!, undefined, labels[base + a!], undefined, mergeTol)
-        : channelParents(values[a!]!, values[b2]!, labels[base + a!], labels[base + b2], mergeTol);
-    }
+  const { needed, cubicValues, scratch, eigen } = plan;
+  for (let k = 0; k < needed.length; k++) {
+    const [s, column] = needed[k]!;
+    const block = plan.cubic.blocks[s]![column]!;
+    blockHamiltonianInto(block, cubicCoefficients, scratch);
+    symmetricEigenvaluesInPlace(scratch, block.size, cubicValues[s]![column]!, eigen);
+  }
+  const mergeTol = energyTolerance({ dq, b, c });
+  for (let k = 0; k < slots.length; k++) {
+    const slot = slots[k]!;
+    mergeParents(slot, cubicValues[slot.spinIndex]!, mergeTol, parentColumn, parentRank);
   }
   coefficients.set(cubicCoefficients);
   coefficients[3] = ds;
   coefficients[4] = dt;
-  const spectrum = tetragonalSpectrum(blocks, coefficients);
-  const { count, energy, twoS, channel, rank } = spectrum;
+  const { energy } = tetragonalSpectrum(plan.tetragonal, coefficients);
   // Positions come highest spin first, then by channel, each block ascending: a
   // stable insertion sort on energy alone gives the tie order (higher spin, then channel).
-  const order = orderScratch.length >= count ? orderScratch : (orderScratch = new Int32Array(count));
   for (let p = 0; p < count; p++) {
     const e = energy[p]!;
     let q = p - 1;
@@ -104,17 +225,29 @@ export function tetragonalLevelsFast(d: number, dq: number, b: number, c: number
     }
     order[q + 1] = p;
   }
+  const table = parentTableFor(d, c / b);
+  const names = table.labels('octahedral');
+  if (plan.lastTable !== table) {
+    plan.lastTable = table;
+    plan.lastStore = labelStore(table, d);
+  }
+  const store = plan.lastStore;
   const ground = energy[order[0]!]!;
-  const levels = new Array<SpinFreeTetragonalLevel>(count);
+  const levels = new Array<FieldLevel>(count);
   for (let k = 0; k < count; k++) {
     const i = order[k]!;
-    const parent = parents[8 * twoS[i]! + channel[i]!]?.[rank[i]!];
-    if (parent === undefined) throw new FieldgapError('internal', `no octahedral parent for tetragonal level ${twoS[i]! + 1}${CHANNEL_D4_IRREPS[channel[i]!]} #${rank[i]}`);
-    const irrep = CHANNEL_D4_IRREPS[channel[i]!]!;
+    const column = parentColumn[i]!;
+    const rank = parentRank[i]!;
+    const multiplicity = plan.multiplicity[i]!;
+    const parent = names[5 * multiplicity + column]?.[rank];
+    if (parent === undefined) throw new FieldgapError('internal', `no octahedral parent for tetragonal level ${plan.term[i]} (position ${i})`);
+    const at = (i * 5 + column) * maxRank + rank;
+    const label = (store[at] ??= `${plan.term[i]}[${parent}]`);
     const relative = energy[i]! - ground;
-    levels[k] = { energy: relative < tol ? 0 : relative, twoS: twoS[i]!, irrep, parent, degeneracy: (twoS[i]! + 1) * D4_DIMENSION[irrep] };
+    levels[k] = {
+      energy: relative < tol ? 0 : relative, degeneracy: plan.degeneracy[i]!, irrep: plan.irrep[i]!, parent, parentWeight: 1,
+      term: plan.term[i]!, multiplicity, label,
+    };
   }
   return levels;
 }
-
-let orderScratch = new Int32Array(0);
