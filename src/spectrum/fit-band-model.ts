@@ -17,7 +17,9 @@
  * 3. the edge (in 'auto' mode) is tried off when present and on when
  *    absent, kept by the same criterion;
  * 4. a band is added where the residual still shows one (not at the range
- *    boundaries), kept only by the criterion; then step 2–3 again;
+ *    boundaries), kept only by the criterion; then step 2–3 again; a band
+ *    under the edge is tried (bandUnderEdge), kept only when one more
+ *    baseline order cannot do as well;
  * 5. the chosen model is refined to convergence and pruned once more (a
  *    band undetermined only at convergence is dropped), so no reported band
  *    has a position deviation over half its FWHM.
@@ -420,7 +422,32 @@ function bandUnderEdge(ctx: Context, fit: RefineBandsResult): RefineBandsResult 
   if (added.height < (o.minAddedFraction ?? 0) * best.bands.reduce((m, b) => Math.max(m, b.height), 0)) return fit;
   if (best.bands.some((b) => b !== added && Math.abs(b.position - added.position) < Math.max(b.fwhm, added.fwhm))) return fit;
   if (best.bands.some((b) => edgeLike(b, xMax, o.broadFwhm)) || prune(best, x, o.noise, o.narrowFwhm, Math.max(o.uncertainFraction ?? 0.5, UNDER_EDGE_UNCERTAIN)) !== null) return fit;
+  if (curvatureExplains(ctx, fit, best)) return fit;
   return best;
+}
+
+/**
+ * Whether one more order of the baseline polynomial (up to 3), with no new
+ * band, explains the data about as well as `withBand`: its score is not
+ * worse than the band model's by more than BIC_MARGIN, the margin a model
+ * with more components must win by (the band adds three parameters, the
+ * order one). Below a charge-transfer edge the data bend smoothly: the
+ * edge's Gaussian is a stand-in for a CT band of unknown shape, a
+ * scattering baseline (1/λ⁴ is ν⁴) curves up, and the high-energy tails
+ * of asymmetric d–d bands are heavier than Gaussians; the broad misfit they
+ * leave is what a band under the edge would take up: a band the data do
+ * not have, beside the one d9 band of [Cu(NH3)4(H2O)2]2+ in a 380–780 nm
+ * spectrum (tests/accuracy/, cu2-ammine/vis). A real band under the edge
+ * (the 3T1g(P) band of Ni(II) near 395 nm) is a shoulder that a
+ * polynomial cannot follow.
+ */
+function curvatureExplains(ctx: Context, without: RefineBandsResult, withBand: RefineBandsResult): boolean {
+  const { x, y, o } = ctx;
+  if (o.baselineOrder >= 3) return false;
+  const order = o.baselineOrder + 1;
+  const raised: FitBandModelOptions = { ...o, baselineOrder: order, baselineStart: xyPolynomialFit(x, o.baselineGuess, order, xPolynomialScale(x)) };
+  const curved = refine(x, y, without.bands, without.edge, raised);
+  return ctx.score(curved) <= ctx.score(withBand) + BIC_MARGIN;
 }
 
 /** The median (src/numeric/median.ts), 0 for no values. */
