@@ -106,6 +106,12 @@ function weightsFromNoise(noise: Float64Array): Float64Array {
   return w;
 }
 
+/** The `count` bands of largest area (height × FWHM), in ascending position; all of them when there are no more. */
+export function strongestBands<T extends GaussianParameters>(bands: readonly T[], count: number): T[] {
+  if (bands.length <= count) return [...bands];
+  return [...bands].sort((p, q) => q.height * q.fwhm - p.height * p.fwhm).slice(0, count).sort((p, q) => p.position - q.position);
+}
+
 /** Index of the x nearest to v (x ascending). */
 export function xNearestIndex(x: Float64Array, v: number): number {
   let lo = 0;
@@ -171,10 +177,10 @@ export function fitBandModel(x: Float64Array, y: Float64Array, options: FitBandM
   const sigma = xMedian(o.noise);
   const ctx: Context = { x, y, o, sigma, score: (f) => bandFitBic(f, n), mode: o.edgeMode ?? 'auto' };
   const xMax = x[n - 1] as number;
-  // Candidates at the top of the range are the edge's rise, not bands (the edge is tried on later).
-  const start = o.candidates
-    .filter((c) => ctx.mode === false || !edgeLike(c, xMax, o.broadFwhm))
-    .slice(0, o.maxBands)
+  // Candidates at the top of the range are the edge's rise, not bands (the edge is tried on later). Beyond maxBands the
+  // largest (by area, height × FWHM) start, not the lowest in energy: on noisy data narrow noise candidates crowd one
+  // stretch, and a strong band at the far end must not be left out (v2-aqua/nir of tests/accuracy/ lost its 4T1g(P)).
+  const start = strongestBands(o.candidates.filter((c) => ctx.mode === false || !edgeLike(c, xMax, o.broadFwhm)), o.maxBands)
     .map((c) => ({ position: c.position, height: c.height, fwhm: c.fwhm }));
   const edge0 = ctx.mode === false ? null : o.edge;
   let fit = refine(x, y, start, edge0, o);
