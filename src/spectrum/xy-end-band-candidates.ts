@@ -11,7 +11,12 @@
  * within `look` of the end lies more than 2 σ above the first; the data fall
  * by more than `significance` σ within that stretch; over twice that stretch the data are concave (a
  * quadratic through them sags more than 3 σ below its chord, where a
- * sloping baseline is straight and a tail from the UV convex). The start: height
+ * sloping baseline is straight and a tail from the UV convex), or, convex,
+ * fall within `look` more than twice as far as a baseline straight in
+ * wavelength falling from the first point to the lowest over the whole
+ * range would (a band's flank is convex beyond its inflection point, half
+ * a FWHM from its centre, and falls steeply there: the 3T2g band of
+ * [Ni(H2O)6]2+ near 1 150 nm in a spectrum that stops at 1 100 nm). The start: height
  * y[0] − min y, FWHM twice the distance to where the data have fallen half
  * way (clamped to [narrow, limit]), centre a tenth of that FWHM beyond the
  * end.
@@ -47,14 +52,24 @@ export function xyLowEndBandCandidate(x: Float64Array, y: Float64Array, options:
   }
   if (!(y0 - lowest > significance * sigma)) return null;
   // A band's top is concave, its flank near the half-height point straight. A convex end is a band's flank only
-  // when it falls steeply (a baseline straight in nm is convex in cm-1, but falls gently).
+  // when it falls steeply: more than twice as far within `look` as a baseline straight in nm (convex in cm-1) that
+  // falls from the first point to the lowest over the whole range.
   const sag = endSag(x, y, 2 * look);
-  if (!(sag >= -3 * sigma || y0 - lowest > 0.5 * (y0 - min))) return null;
+  if (!(sag >= -3 * sigma || y0 - lowest > 2 * straightInNmFall(x0, x0 + look, x[n - 1] as number) * (y0 - min))) return null;
   const half = min + 0.5 * (y0 - min);
   let k = 1;
   while (k < n - 1 && (y[k] as number) > half) k++;
   const fwhm = Math.min(Math.max(2 * ((x[k] as number) - x0), fwhmLimits[0]), fwhmLimits[1]);
   return { position: x0 - 0.1 * fwhm, height: y0 - min, fwhm };
+}
+
+/**
+ * The fraction of its whole fall that a baseline straight in wavelength
+ * (λ = 10⁷/ν̃), falling from the red end `from` to the blue end `to`, makes
+ * between `from` and `at` (cm-1, from < at ≤ to).
+ */
+function straightInNmFall(from: number, at: number, to: number): number {
+  return (1 / from - 1 / Math.min(at, to)) / (1 / from - 1 / to);
 }
 
 /**

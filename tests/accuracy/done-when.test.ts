@@ -147,8 +147,7 @@ describe('the validation corpus', () => {
     return outcome;
   };
 
-  // fails until issue 13 lands: today about 40 % pass.
-  it.fails('passes at 95 % or better within 3 % (10Dq) and 8 % (B) with every spin state right', () => {
+  it('passes at 95 % or better within 3 % (10Dq) and 8 % (B) with every spin state right', () => {
     const rows = cases.map((c) => runCase(c, outcomeOf(c)));
     const s = summarize(rows);
     expect(s.rate).toBeGreaterThanOrEqual(0.95);
