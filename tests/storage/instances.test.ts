@@ -3,8 +3,8 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { afterEach, beforeEach, expect, it } from 'vitest';
-import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
+import { afterEach, expect, it } from 'vitest';
+import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 
 /**
  * Several service instances over one PostgreSQL library (issue 17): two
@@ -89,23 +89,20 @@ function writer(instance: () => Instance, tag: string, stop: { now: boolean }): 
 }
 
 forEachEngine('several instances over one library', (engine) => {
-  let where: TestLibrary;
+  const fresh = libraryPerTest(engine, { open: false });
   const instances: Instance[] = [];
-  beforeEach(async () => {
-    where = await freshLibrary(engine);
-  });
+  // Registered after libraryPerTest, so it runs before the library is removed.
   afterEach(async () => {
     for (const i of instances.splice(0)) {
       i.child.kill('SIGTERM');
       await i.closed;
     }
-    await where.dispose();
   });
 
   // Child processes compile the sources with tsx and analyse real spectra: minutes on a busy machine, not a tight limit.
   it.runIf(engine === 'postgres')('four writers on two instances, one killed and restarted: every acknowledged record on both', { timeout: 600_000 }, async () => {
-    if (where.location.engine !== 'postgres') return;
-    const database = where.location.url;
+    if (fresh.where.location.engine !== 'postgres') return;
+    const database = fresh.where.location.url;
     let a = await startInstance(database);
     const b = await startInstance(database);
     instances.push(b);
@@ -140,10 +137,10 @@ forEachEngine('several instances over one library', (engine) => {
     expect(createHash('sha256').update(original).digest('hex')).toBe(sha);
 
     // PostgreSQL manual, amcheck: bt_index_check raises an error on a corrupt B-tree index.
-    await where.exec('CREATE EXTENSION IF NOT EXISTS amcheck');
-    expect(await where.scalar(`SELECT count(bt_index_check(c.oid)) FROM pg_index i JOIN pg_class c ON c.oid = i.indexrelid
+    await fresh.where.exec('CREATE EXTENSION IF NOT EXISTS amcheck');
+    expect(await fresh.where.scalar(`SELECT count(bt_index_check(c.oid)) FROM pg_index i JOIN pg_class c ON c.oid = i.indexrelid
       JOIN pg_am m ON m.oid = c.relam WHERE m.amname = 'btree' AND c.relnamespace = current_schema()::regnamespace`)).toBeGreaterThanOrEqual(4);
-    expect(await where.scalar(`SELECT
+    expect(await fresh.where.scalar(`SELECT
       (SELECT count(*) FROM analyses a WHERE NOT EXISTS (SELECT 1 FROM originals o WHERE o.analysis_id = a.id))
     + (SELECT count(*) FROM revisions r WHERE NOT EXISTS (SELECT 1 FROM results x WHERE x.revision_id = r.id)) AS n`)).toBe(0);
   });
