@@ -1,9 +1,9 @@
-import { spawn, type ChildProcess } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterEach, expect, it } from 'vitest';
+import { startServeProcess, type ServeProcess } from '../helpers/serve-process.js';
 import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 
 /**
@@ -17,27 +17,12 @@ const ROOT = fileURLToPath(new URL('../..', import.meta.url));
 const ENTRY = fileURLToPath(new URL('./helpers/cli-entry.ts', import.meta.url));
 const SPECTRUM = readFileSync(join(ROOT, 'spectra-demo', 'cr-aqua.csv'));
 
-interface Instance {
-  child: ChildProcess;
-  url: string;
-  closed: Promise<unknown>;
-}
+type Instance = ServeProcess;
 
-async function startInstance(database: string): Promise<Instance> {
-  const child = spawn(process.execPath, ['--import', 'tsx', ENTRY, 'serve', '--port', '0', '--database', database], {
-    cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, FIELDGAP_LOG_LEVEL: 'warn' },
+function startInstance(database: string): Promise<Instance> {
+  return startServeProcess([process.execPath, '--import', 'tsx', ENTRY, 'serve', '--port', '0', '--database', database], {
+    cwd: ROOT, env: { ...process.env, FIELDGAP_LOG_LEVEL: 'warn' },
   });
-  const closed = new Promise((resolve) => child.once('close', resolve));
-  const url = await new Promise<string>((resolve, reject) => {
-    let out = '';
-    child.stdout!.setEncoding('utf8').on('data', (chunk: string) => {
-      out += chunk;
-      const match = /serving on (http:\/\/\S+)/.exec(out);
-      if (match) resolve(match[1]!);
-    });
-    void closed.then(() => reject(new Error(`serve ended before listening: ${out}`)));
-  });
-  return { child, url, closed };
 }
 
 interface Writer {
