@@ -1,5 +1,4 @@
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import request from 'supertest';
@@ -13,6 +12,7 @@ import { runCli } from '../../src/cli/main.js';
 import type { AnalysisRecord } from '../../src/library/types.js';
 import { defaultDetails, editableBandsFromResult, shownFit, type AnalysisEntry } from '../../web/state.js';
 import { captureLogger } from '../server/helpers.js';
+import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 
 /**
  * A chosen alternative assignment is a complete, honest fit result: every
@@ -24,21 +24,21 @@ import { captureLogger } from '../server/helpers.js';
 const ROOT = fileURLToPath(new URL('../..', import.meta.url));
 const AQUA = join(ROOT, 'spectra-demo', 'cr-aqua.csv');
 
-let dir: string;
+forEachEngine('a chosen alternative assignment, stored', (engine) => {
+const fresh = libraryPerTest(engine, { open: false });
 let app: FieldgapApp;
 beforeEach(() => {
-  dir = mkdtempSync(join(tmpdir(), 'fieldgap-alternative-'));
-  app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, dataDir: join(dir, 'lib') });
+  app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, ...fresh.where.app });
 });
+// Registered after libraryPerTest, so the service closes before its library goes.
 afterEach(async () => {
   await app.close();
-  rmSync(dir, { recursive: true, force: true });
 });
 
 async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
   let out = '';
   let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: ROOT, env: { FIELDGAP_DATA: join(dir, 'cli') } };
+  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: ROOT, env: { ...fresh.where.env } };
   const code = await runCli(['library', ...args], io);
   return { code, out, err };
 }
@@ -104,4 +104,5 @@ describe('a chosen alternative assignment', () => {
     entry.shownAlternative = null;
     expect(shownFit(entry)).toBe(result.fit);
   });
+});
 });

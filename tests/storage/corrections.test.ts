@@ -1,5 +1,4 @@
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import request from 'supertest';
@@ -13,6 +12,7 @@ import type { FitResult } from '../../src/fit/types.js';
 import type { AnalysisRecord } from '../../src/library/types.js';
 import { correctionsFor, defaultDetails, editableBandsFromCorrections, editableBandsFromResult, fitRequestFor, shownFit, type AnalysisEntry } from '../../web/state.js';
 import { captureLogger } from '../server/helpers.js';
+import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 
 /**
  * What the page shows after "Saved" is what the library stored: the page's
@@ -46,15 +46,15 @@ function pageEntry(result: AnalyzeResult): AnalysisEntry {
   } as AnalysisEntry;
 }
 
-let dir: string;
+forEachEngine('corrections in the library', (engine) => {
+const fresh = libraryPerTest(engine, { open: false });
 let app: FieldgapApp;
 beforeEach(() => {
-  dir = mkdtempSync(join(tmpdir(), 'fieldgap-corrections-'));
-  app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, dataDir: join(dir, 'lib') });
+  app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, ...fresh.where.app });
 });
+// Registered after libraryPerTest, so the service closes before its library goes.
 afterEach(async () => {
   await app.close();
-  rmSync(dir, { recursive: true, force: true });
 });
 
 function save(corrections: object | null) {
@@ -126,7 +126,7 @@ describe('library refit options are reversible, and every change in the assignme
   async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
     let out = '';
     let err = '';
-    const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: ROOT, env: { FIELDGAP_DATA: join(dir, 'cli') } };
+    const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: ROOT, env: { ...fresh.where.env } };
     const code = await runCli(['library', ...args], io);
     return { code, out, err };
   }
@@ -154,4 +154,5 @@ describe('library refit options are reversible, and every change in the assignme
     expect(lines.length).toBeGreaterThan(0);
     expect((await cli('refit', String(first.id), '--reset', 'colour')).err).toMatch(/--reset: "colour" is not a stored option/);
   });
+});
 });

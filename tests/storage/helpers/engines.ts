@@ -28,6 +28,8 @@ export interface TestLibrary {
   flags: string[];
   /** Environment naming this library (FIELDGAP_DATA or FIELDGAP_DATABASE_URL). */
   env: Record<string, string>;
+  /** createApp options naming this library. */
+  app: { dataDir: string } | { database: string };
   /** One number from a SQL query run directly on the database, behind the library's back. */
   scalar(sql: string): Promise<number>;
   /** Runs SQL directly on the database (to break things on purpose). */
@@ -79,6 +81,7 @@ export async function freshLibrary(engine: EngineName): Promise<TestLibrary> {
       open: (options) => openLibraryAt(location, options),
       flags: ['--data', dataDir],
       env: { FIELDGAP_DATA: dataDir },
+      app: { dataDir },
       scalar: async (sql) => raw((db) => Number(Object.values(db.prepare(sql).get() as object)[0])),
       exec: async (sql) => raw((db) => void db.exec(sql)),
       dispose: async () => rmSync(dir, { recursive: true, force: true }),
@@ -93,6 +96,7 @@ export async function freshLibrary(engine: EngineName): Promise<TestLibrary> {
     open: (options) => openLibraryAt(location, options),
     flags: ['--database', url],
     env: { FIELDGAP_DATABASE_URL: url },
+    app: { database: url },
     scalar: async (sql) => {
       const rows = await adminQuery(`SET search_path = ${schema}; ${sql}`);
       return Number(Object.values(rows[0]!)[0]);
