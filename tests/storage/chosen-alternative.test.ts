@@ -7,12 +7,11 @@ import { createApp, type FieldgapApp } from '../../server/app.js';
 import { analysisRecordResponse } from '../../server/responses.js';
 import { analyzeSpectrum, type AnalyzeResult } from '../../src/analysis.js';
 import { fitWithAlternative } from '../../src/analysis-corrections.js';
-import type { CliIo } from '../../src/cli/command.js';
-import { runCli } from '../../src/cli/main.js';
 import type { AnalysisRecord } from '../../src/library/types.js';
 import { defaultDetails, editableBandsFromResult, shownFit, type AnalysisEntry } from '../../web/state.js';
 import { captureLogger } from '../server/helpers.js';
 import { forEachEngine, libraryPerTest } from './helpers/engines.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 /**
  * A chosen alternative assignment is a complete, honest fit result: every
@@ -35,12 +34,8 @@ afterEach(async () => {
   await app.close();
 });
 
-async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: ROOT, env: { ...fresh.where.env } };
-  const code = await runCli(['library', ...args], io);
-  return { code, out, err };
+function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+  return runCliCaptured(['library', ...args], { cwd: ROOT, env: { ...fresh.where.env } });
 }
 
 describe('a chosen alternative assignment', () => {

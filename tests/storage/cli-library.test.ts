@@ -2,26 +2,18 @@ import Papa from 'papaparse';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
 import { analysisOptionsFrom } from '../../src/cli/analysis-options.js';
 import { libraryCommand, plusMinus } from '../../src/cli/commands/library.js';
-import { runCli } from '../../src/cli/main.js';
 import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 forEachEngine('fieldgap library (CLI)', (engine) => {
 const fresh = libraryPerTest(engine, { open: false });
 
 /** Runs `fieldgap library ...` in process, with FIELDGAP_DATA (or FIELDGAP_DATABASE_URL) naming the test library. */
-async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = {
-    stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: fresh.where.dir,
-    env: { ...fresh.where.env },
-  };
-  const code = await runCli(['library', ...args], io);
-  return { code, out, err };
+function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+  return runCliCaptured(['library', ...args], { cwd: fresh.where.dir, env: { ...fresh.where.env } });
 }
 
 async function seed(): Promise<void> {

@@ -1,19 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
 import { ligandFromFileName } from '../../src/cli/commands/series.js';
-import { runCli } from '../../src/cli/main.js';
 import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 forEachEngine('fieldgap series --library', (engine) => {
   const fresh = libraryPerTest(engine, { open: false });
 
-  async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-    let out = '';
-    let err = '';
-    const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: fresh.where.dir, env: {} };
-    const code = await runCli(['series', ...args], io);
-    return { code, out, err };
+  function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+    return runCliCaptured(['series', ...args], { cwd: fresh.where.dir });
   }
 
   it('prints both rankings with units and the fitted factors', async () => {

@@ -6,13 +6,12 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { createApp, type FieldgapApp } from '../../server/app.js';
 import { analyzeSpectrum, type AnalyzeResult } from '../../src/analysis.js';
 import { checkCorrections } from '../../src/analysis-corrections.js';
-import type { CliIo } from '../../src/cli/command.js';
-import { runCli } from '../../src/cli/main.js';
 import type { FitResult } from '../../src/fit/types.js';
 import type { AnalysisRecord } from '../../src/library/types.js';
 import { correctionsFor, defaultDetails, editableBandsFromCorrections, editableBandsFromResult, fitRequestFor, shownFit, type AnalysisEntry } from '../../web/state.js';
 import { captureLogger } from '../server/helpers.js';
 import { forEachEngine, libraryPerTest } from './helpers/engines.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 /**
  * What the page shows after "Saved" is what the library stored: the page's
@@ -123,12 +122,8 @@ describe('corrections stored with the record equal what the page shows', () => {
 });
 
 describe('library refit options are reversible, and every change in the assignment is shown', () => {
-  async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-    let out = '';
-    let err = '';
-    const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: ROOT, env: { ...fresh.where.env } };
-    const code = await runCli(['library', ...args], io);
-    return { code, out, err };
+  function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+    return runCliCaptured(['library', ...args], { cwd: ROOT, env: { ...fresh.where.env } });
   }
 
   it('--free-c, then --c-over-b 4.5 takes it back; --reset c-over-b returns to the first analysis', async () => {

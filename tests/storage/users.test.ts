@@ -1,10 +1,9 @@
 import { createHash } from 'node:crypto';
 import { expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
-import { runCli } from '../../src/cli/main.js';
 import { SCHEMA_VERSION } from '../../src/library/migrations.js';
 import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 /**
  * Users and groups in the library (schema step 4) and `fieldgap users`, on
@@ -15,12 +14,8 @@ import { handBuiltRecord } from './helpers/records.js';
 forEachEngine('users and groups in the library', (engine) => {
   const fresh = libraryPerTest(engine, { open: false });
 
-  async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-    let out = '';
-    let err = '';
-    const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: fresh.where.dir, env: { ...fresh.where.env } };
-    const code = await runCli(['users', ...args], io);
-    return { code, out, err };
+  function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+    return runCliCaptured(['users', ...args], { cwd: fresh.where.dir, env: { ...fresh.where.env } });
   }
 
   it('users add | list | token | remove manage the users; the token is printed once and stored as its SHA-256', async () => {
