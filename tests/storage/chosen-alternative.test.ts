@@ -2,15 +2,14 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import request from 'supertest';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { createApp, type FieldgapApp } from '../../server/app.js';
+import { describe, expect, it } from 'vitest';
 import { analysisRecordResponse } from '../../server/responses.js';
 import { analyzeSpectrum, type AnalyzeResult } from '../../src/analysis.js';
 import { fitWithAlternative } from '../../src/analysis-corrections.js';
 import type { AnalysisRecord } from '../../src/library/types.js';
 import { defaultDetails, editableBandsFromResult, shownFit, type AnalysisEntry } from '../../web/state.js';
-import { captureLogger } from '../server/helpers.js';
 import { forEachEngine, libraryPerTest } from './helpers/engines.js';
+import { servicePerTest } from './helpers/service.js';
 import { runCliCaptured } from '../helpers/cli-run.js';
 
 /**
@@ -25,14 +24,7 @@ const AQUA = join(ROOT, 'spectra-demo', 'cr-aqua.csv');
 
 forEachEngine('a chosen alternative assignment, stored', (engine) => {
 const fresh = libraryPerTest(engine, { open: false });
-let app: FieldgapApp;
-beforeEach(() => {
-  app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, ...fresh.where.app });
-});
-// Registered after libraryPerTest, so the service closes before its library goes.
-afterEach(async () => {
-  await app.close();
-});
+const service = servicePerTest(fresh);
 
 function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
   return runCliCaptured(['library', ...args], { cwd: ROOT, env: { ...fresh.where.env } });
@@ -62,14 +54,14 @@ describe('a chosen alternative assignment', () => {
   });
 
   it('is stored as a record that passes the response schema (REST)', async () => {
-    const saved = await request(app)
+    const saved = await request(service.app)
       .post('/api/v1/analyses')
       .query({ ion: 'Cr3+', sample: 'aqua', corrections: JSON.stringify({ alternative: 0 }) })
       .attach('spectrum', readFileSync(AQUA), 'cr-aqua.csv');
     expect(saved.status, JSON.stringify(saved.body)).toBe(201);
     expect(analysisRecordResponse.safeParse(saved.body).error).toBeUndefined();
     expect((saved.body as AnalysisRecord & { result: AnalyzeResult }).result.fit.betaSd).toBeNull();
-    const refit = await request(app).post(`/api/v1/analyses/${saved.body.id}/refit`).send({}).expect(200);
+    const refit = await request(service.app).post(`/api/v1/analyses/${saved.body.id}/refit`).send({}).expect(200);
     expect(analysisRecordResponse.safeParse(refit.body).error).toBeUndefined();
   });
 

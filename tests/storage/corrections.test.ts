@@ -2,15 +2,14 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import request from 'supertest';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { createApp, type FieldgapApp } from '../../server/app.js';
+import { describe, expect, it } from 'vitest';
 import { analyzeSpectrum, type AnalyzeResult } from '../../src/analysis.js';
 import { checkCorrections } from '../../src/analysis-corrections.js';
 import type { FitResult } from '../../src/fit/types.js';
 import type { AnalysisRecord } from '../../src/library/types.js';
 import { correctionsFor, defaultDetails, editableBandsFromCorrections, editableBandsFromResult, fitRequestFor, shownFit, type AnalysisEntry } from '../../web/state.js';
-import { captureLogger } from '../server/helpers.js';
 import { forEachEngine, libraryPerTest } from './helpers/engines.js';
+import { servicePerTest } from './helpers/service.js';
 import { runCliCaptured } from '../helpers/cli-run.js';
 
 /**
@@ -47,28 +46,21 @@ function pageEntry(result: AnalyzeResult): AnalysisEntry {
 
 forEachEngine('corrections in the library', (engine) => {
 const fresh = libraryPerTest(engine, { open: false });
-let app: FieldgapApp;
-beforeEach(() => {
-  app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, ...fresh.where.app });
-});
-// Registered after libraryPerTest, so the service closes before its library goes.
-afterEach(async () => {
-  await app.close();
-});
+const service = servicePerTest(fresh);
 
 function save(corrections: object | null) {
-  const req = request(app).post('/api/v1/analyses').query({ ion: 'Cr3+', sample: 'aqua', ...(corrections && { corrections: JSON.stringify(corrections) }) });
+  const req = request(service.app).post('/api/v1/analyses').query({ ion: 'Cr3+', sample: 'aqua', ...(corrections && { corrections: JSON.stringify(corrections) }) });
   return req.attach('spectrum', readFileSync(AQUA), 'cr-aqua.csv');
 }
 
 describe('corrections stored with the record equal what the page shows', () => {
   it('a band removed and one reclassified: the stored fit is the page\'s POST /fit answer', async () => {
-    const analysed = (await request(app).post('/api/v1/analyze?ion=Cr3%2B').attach('spectrum', readFileSync(AQUA), 'cr-aqua.csv').expect(200)).body as AnalyzeResult;
+    const analysed = (await request(service.app).post('/api/v1/analyze?ion=Cr3%2B').attach('spectrum', readFileSync(AQUA), 'cr-aqua.csv').expect(200)).body as AnalyzeResult;
     const entry = pageEntry(analysed);
     // The user drops the spin-forbidden band and marks the highest band as a shoulder.
     entry.bands[0]!.included = false;
     entry.bands[2]!.shoulder = true;
-    const pageFit = (await request(app).post('/api/v1/fit').send(fitRequestFor(entry)).expect(200)).body as FitResult;
+    const pageFit = (await request(service.app).post('/api/v1/fit').send(fitRequestFor(entry)).expect(200)).body as FitResult;
     entry.fit = pageFit;
     const corrections = correctionsFor(entry);
     expect(corrections?.bands).toHaveLength(2);
@@ -82,7 +74,7 @@ describe('corrections stored with the record equal what the page shows', () => {
     // the found bands are kept as found: a correction changes the fit, never the spectrum
     expect(saved.result.bands).toEqual(analysed.bands);
     // what was stored is what is read back
-    expect((await request(app).get(`/api/v1/analyses/${saved.id}`).expect(200)).body.result.fit).toEqual(saved.result.fit);
+    expect((await request(service.app).get(`/api/v1/analyses/${saved.id}`).expect(200)).body.result.fit).toEqual(saved.result.fit);
     // and the page, reopening the record, shows the bands the stored fit was made from
     const reopened = pageEntry(saved.result);
     reopened.bands = editableBandsFromCorrections(saved.result.bands, checkCorrections(corrections).bands as never);
@@ -103,10 +95,10 @@ describe('corrections stored with the record equal what the page shows', () => {
 
   it('is reproducible: a refit changing nothing gives the same fit; corrections: null takes them back', async () => {
     const saved = (await save({ alternative: 1 }).expect(201)).body as AnalysisRecord & { result: AnalyzeResult };
-    const again = (await request(app).post(`/api/v1/analyses/${saved.id}/refit`).send({}).expect(200)).body as AnalysisRecord & { result: AnalyzeResult; changes: unknown[] };
+    const again = (await request(service.app).post(`/api/v1/analyses/${saved.id}/refit`).send({}).expect(200)).body as AnalysisRecord & { result: AnalyzeResult; changes: unknown[] };
     expect(again.result.fit).toEqual(saved.result.fit);
     expect(again.changes).toEqual([]);
-    const back = (await request(app).post(`/api/v1/analyses/${saved.id}/refit`).send({ corrections: null }).expect(200)).body as AnalysisRecord & { result: AnalyzeResult; changes: { what: string }[] };
+    const back = (await request(service.app).post(`/api/v1/analyses/${saved.id}/refit`).send({ corrections: null }).expect(200)).body as AnalysisRecord & { result: AnalyzeResult; changes: { what: string }[] };
     expect(back.options).not.toHaveProperty('corrections');
     expect(back.result.fit).toEqual(JSON.parse(JSON.stringify(analyzeSpectrum(readFileSync(AQUA), { ion: 'Cr3+', fileName: 'cr-aqua.csv' }).fit)));
     expect(back.changes.length).toBeGreaterThan(0);
@@ -117,7 +109,7 @@ describe('corrections stored with the record equal what the page shows', () => {
     expect(bad.body.error.path).toMatch(/^corrections\.bands\[0\]/);
     expect((await save({ alternative: 9 }).expect(400)).body.error.path).toBe('corrections.alternative');
     expect((await save({ colour: 1 }).expect(400)).body.error.path).toBe('corrections.colour');
-    expect((await request(app).get('/api/v1/analyses').expect(200)).body.total).toBe(0);
+    expect((await request(service.app).get('/api/v1/analyses').expect(200)).body.total).toBe(0);
   });
 });
 
