@@ -93,8 +93,8 @@ export function unpairedFromTerm(term: string): number | null {
  * (spin-only μ = √(n(n+2)) μB); C/B is its C over its B. An alternative is
  * not refined for uncertainties, so uncertainty, betaSd and correlation are
  * null; its predicted, skipped and unassigned lists and its crossover are
- * not computed, so they are empty (null). The page shows an alternative the
- * same way (web/state.ts shownFit, checked against this in tests).
+ * not computed, so they are empty (null). The page shows an alternative
+ * with this function (web/state.ts shownFit).
  */
 export function fitWithAlternative(fit: FitResult, index: number, path = 'corrections.alternative'): FitResult {
   const alternative = fit.alternatives[index];

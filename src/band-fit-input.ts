@@ -16,6 +16,12 @@ export function bandFlagsOf(band: { kind: BandKind; shoulder: boolean }): BandFl
   return flags;
 }
 
+/** A band's kind from its fit flags, the inverse of bandFlagsOf (charge-transfer wins over spin-forbidden, as the fit refuses both). */
+export function bandKindOfFlags(flags: readonly BandFlag[]): BandKind {
+  if (flags.includes('charge-transfer')) return 'charge-transfer';
+  return flags.includes('spin-forbidden') ? 'spin-forbidden' : 'd-d';
+}
+
 /**
  * Standard uncertainty of a band maximum as a transition energy, cm-1: the
  * spectral fit's σ of the position combined in quadrature with the fit's

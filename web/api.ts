@@ -6,7 +6,7 @@
 import { ANALYSIS_OPTION_NAMES as NAME } from '../src/analysis-option-names.js';
 import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult, LibraryPage, LibraryRecord, SeriesReport } from './types.js';
 import { priorFields, type FitRequest, type SampleDetails } from './state.js';
-import type { FieldLevel } from '../src/ligand-field/field-levels.js';
+import type { FieldLevel, ResolvedParameters } from '../src/ligand-field/field-levels.js';
 
 export class ApiError extends Error {
   readonly body: ApiErrorBody;
@@ -127,16 +127,11 @@ export function diagram(query: DiagramQuery): Promise<Diagram> {
 }
 
 /** GET /levels beyond the cubic field: Dq, B, C with tetragonal Ds, Dt and spin–orbit ζ (cm-1). */
-export interface FieldLevelsQuery {
+export type FieldLevelsQuery = ResolvedParameters & {
   d: number;
+  /** The form's symmetry: a geometry, or "tetragonal". */
   geometry: string;
-  dq: number;
-  b: number;
-  c: number;
-  ds: number;
-  dt: number;
-  zeta: number;
-}
+};
 
 /** One level as GET /levels gives it with ds, dt or zeta: the engine's own type. */
 export type FieldLevelRow = FieldLevel;

@@ -5,8 +5,9 @@
  */
 import { parseFormula } from '../src/chemistry/formula.js';
 import { findLigand } from '../src/chemistry/ligands.js';
-import { bandFitSigma, bandFlagsOf } from '../src/band-fit-input.js';
-import { unpairedFromTerm } from '../src/analysis-corrections.js';
+import { bandFitSigma, bandFlagsOf, bandKindOfFlags } from '../src/band-fit-input.js';
+import { fitWithAlternative } from '../src/analysis-corrections.js';
+import type { FitResult as CoreFitResult } from '../src/fit/types.js';
 import type { AnalyzeResult, ApiErrorBody, Band, BandFlag, BandKind, FitResult, Geometry, XUnit } from './types.js';
 
 /** What the user says about the sample; sent with the analysis and stored with it. */
@@ -130,7 +131,7 @@ export function editableBandsFromCorrections(found: readonly Band[], corrected: 
   const bands = editableBandsFromResult(found).map((band) => ({ ...band, included: false }));
   for (const c of corrected) {
     const flags = c.flags ?? [];
-    const kind: BandKind = flags.includes('charge-transfer') ? 'charge-transfer' : flags.includes('spin-forbidden') ? 'spin-forbidden' : 'd-d';
+    const kind = bandKindOfFlags(flags);
     const same = bands.find((band) => band.origin === 'found' && !band.included && Math.abs(band.position - c.position) < 1e-6);
     if (same) {
       Object.assign(same, { included: true, kind, shoulder: flags.includes('shoulder'), uncertainty: c.uncertainty ?? same.uncertainty });
@@ -245,47 +246,17 @@ export function hasBandCorrections(entry: AnalysisEntry): boolean {
 
 /**
  * The fit shown: an alternative when the user picked one, else the best.
- * An alternative carries no uncertainties, so none are shown for it; its
- * magnetism follows its own ground term (spin-only μ = √(n(n+2)) μB).
+ * An alternative is the core's rule (fitWithAlternative, src/analysis-corrections.ts),
+ * the one the service applies when the record is saved with it: no
+ * uncertainties, its own magnetism, LFSE and C/B, the reason it lost as a warning.
  */
 export function shownFit(entry: AnalysisEntry): FitResult | null {
   const fit = entry.fit;
   if (fit === null) return null;
   const index = entry.shownAlternative;
-  const alternative = index === null ? undefined : fit.alternatives?.[index];
-  if (alternative === undefined) return fit;
-  const shown: FitResult = {
-    ...fit,
-    uncertainty: { tenDq: null, b: null, c: null },
-    // An alternative is not refined: none of the best fit's uncertainties apply to it (as fitWithAlternative in src/analysis-corrections.ts).
-    betaSd: null,
-    predicted: [],
-    unassigned: [],
-    warnings: alternative.reason === undefined ? [] : [`alternative assignment: ${alternative.reason}`],
-    notes: [],
-    message: 'an alternative assignment, shown for comparison',
-  };
-  if (alternative.probability !== undefined) shown.probability = alternative.probability;
-  if (alternative.tenDq !== undefined) shown.tenDq = alternative.tenDq;
-  if (alternative.dq !== undefined) shown.dq = alternative.dq;
-  if (alternative.b !== undefined) shown.b = alternative.b;
-  if (alternative.c !== undefined) shown.c = alternative.c;
-  if (alternative.beta !== undefined) shown.beta = alternative.beta;
-  if (alternative.rmsResidual !== undefined) shown.rmsResidual = alternative.rmsResidual;
-  if (alternative.assignments !== undefined) shown.assignments = alternative.assignments;
-  if (alternative.spinState !== undefined) shown.spinState = alternative.spinState;
-  if (alternative.groundTerm !== undefined && alternative.groundTerm !== fit.groundTerm) {
-    shown.groundTerm = alternative.groundTerm;
-    const n = unpairedFromTerm(alternative.groundTerm);
-    if (n !== null) {
-      shown.unpairedElectrons = n;
-      shown.spinOnlyMoment = Math.sqrt(n * (n + 2));
-    }
-  }
-  // Rounded as the core rounds C/B and μ (src/fit/result.ts, src/analysis-corrections.ts).
-  shown.cOverB = shown.b !== null && shown.c !== null && shown.b > 0 ? Math.round((1000 * shown.c) / shown.b) / 1000 : fit.cOverB;
-  shown.spinOnlyMoment = Math.round(1000 * shown.spinOnlyMoment) / 1000;
-  return shown;
+  if (index === null || fit.alternatives?.[index] === undefined) return fit;
+  // The page's fit is the service's FitResult; web/types.ts marks optional only what a record from an older fieldgap may lack.
+  return fitWithAlternative(fit as CoreFitResult, index);
 }
 
 /**

@@ -1,6 +1,7 @@
 import { FieldgapError } from '../errors.js';
 import type { Ion } from '../chemistry/ions.js';
 import { spinStateChoice } from '../ligand-field/spin-state.js';
+import { probabilityText } from '../report/probability.js';
 import type { Geometry, SpinState } from '../ligand-field/types.js';
 import { spinRule, type PredictGeometry, type Rule } from './rules.js';
 import { spinNumbers, type SpinNumbers } from './spin-decision.js';
@@ -72,7 +73,8 @@ export function decideSpin(
   const state: SpinState = lowSpin ? 'low-spin' : 'high-spin';
   const p = lowSpin ? numbers.probabilities.lowSpin : numbers.probabilities.highSpin;
   const side = lowSpin ? 'above' : 'below';
-  const pText = p > 0.995 ? 'P > 0.99' : `P = ${p.toFixed(2)}`;
+  // p ≥ 0.5 here, so the wording is "P = 0.87" or "P > 0.99".
+  const pText = probabilityText(p);
   const summary = numbers.borderline
     ? `borderline: 10Dq ≈ ${Math.round(tenDq)} cm-1 lies within the uncertainty of the crossover (${Math.round(numbers.crossoverTenDq)} cm-1); ${state} more likely (${pText})`
     : `${state}: 10Dq ≈ ${Math.round(tenDq)} cm-1 lies ${side} the crossover ${Math.round(numbers.crossoverTenDq)} cm-1 (${pText})`;

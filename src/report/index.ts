@@ -1,11 +1,12 @@
 /**
  * src/report: the one writer of each output, shared by the CLI, the service
  * and the page. CSV (csv.ts), text tables (text-table.ts), "±" (plus-minus.ts),
- * the spin-state wording (spin-state-wording.ts) and the per-analysis results table
- * (results-csv.ts). Pure; no file or network access.
+ * the spin-state wording (spin-state-wording.ts), probabilities in words (probability.ts)
+ * and the per-analysis results table (results-csv.ts). Pure; no file or network access.
  */
 export * from './csv.js';
 export * from './text-table.js';
 export * from './plus-minus.js';
 export * from './spin-state-wording.js';
 export * from './results-csv.js';
+export * from './probability.js';

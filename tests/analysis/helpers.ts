@@ -1,14 +1,12 @@
-import { runCli } from '../../src/cli/main.js';
 import { computeLevels } from '../../src/ligand-field/index.js';
 import type { Geometry } from '../../src/ligand-field/types.js';
 import { formatDelimited, synthesizeSpectrum } from '../../src/spectrum/index.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 /** Runs the CLI in process and collects what it prints. */
 export async function cli(argv: string[], cwd = process.cwd()) {
-  let stdout = '';
-  let stderr = '';
-  const code = await runCli(argv, { stdout: (t) => void (stdout += t), stderr: (t) => void (stderr += t), isTty: false, cwd, env: {} });
-  return { code, stdout, stderr };
+  const { code, out, err } = await runCliCaptured(argv, { cwd });
+  return { code, stdout: out, stderr: err };
 }
 
 export interface KnownComplex {

@@ -5,7 +5,7 @@ import { fileURLToPath } from 'node:url';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app.js';
-import { bandFitSigma, bandFlagsOf, bandToFitInput, cOverBOfFit } from '../../src/band-fit-input.js';
+import { bandFitSigma, bandFlagsOf, bandKindOfFlags, bandToFitInput, cOverBOfFit } from '../../src/band-fit-input.js';
 import { detailsFromFormula } from '../../src/library/formula-details.js';
 import { DEFAULT_C_OVER_B } from '../../src/fit/settings.js';
 import type { Band } from '../../src/spectrum/types.js';
@@ -32,6 +32,12 @@ describe('band to fit input', () => {
     expect(input.flags).toEqual(['shoulder']);
     expect(bandFlags({ position: 1, uncertainty: null, epsilon: null, width: null, kind: 'spin-forbidden', shoulder: true, included: true, origin: 'found', sourceIndex: 0 }))
       .toEqual(bandFlagsOf({ kind: 'spin-forbidden', shoulder: true }));
+  });
+
+  it('a band\'s kind from its flags is the inverse of its flags from its kind', () => {
+    for (const kind of ['d-d', 'spin-forbidden', 'charge-transfer'] as const) {
+      for (const shoulder of [false, true]) expect(bandKindOfFlags(bandFlagsOf({ kind, shoulder }))).toBe(kind);
+    }
   });
 
   it('C/B of a fit: the ratio, else C/B of its values, else the fit default', () => {

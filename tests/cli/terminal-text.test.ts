@@ -9,9 +9,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
-import { runCli } from '../../src/cli/main.js';
 import { terminalSafe } from '../../src/cli/terminal-text.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 // Any C0 control but LF (which separates our own lines), DEL, C1, bidi controls.
 const RAW_CONTROL = /[\u0000-\u0009\u000b-\u001f\u007f-\u009f\u202a-\u202e\u2066-\u2069]/;
@@ -24,12 +23,8 @@ beforeEach(() => {
 });
 afterEach(() => rmSync(dir, { recursive: true, force: true }));
 
-async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: dir, env: { FIELDGAP_DATA: join(dir, 'lib') } };
-  const code = await runCli(['library', ...args], io);
-  return { code, out, err };
+function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+  return runCliCaptured(['library', ...args], { cwd: dir, env: { FIELDGAP_DATA: join(dir, 'lib') } });
 }
 
 describe('terminalSafe', () => {

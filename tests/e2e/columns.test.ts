@@ -6,11 +6,11 @@
  */
 import { writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { formatDelimited, synthesizeSpectrum } from '../../src/spectrum/index.js';
 import { formatWithUncertainty } from '../../web/format.js';
 import { browserTestsSkipped } from './helpers/browser.js';
-import { openSession, type Session } from './helpers/session.js';
+import { sessionPerSuite } from './helpers/session.js';
 import { cardValue } from './helpers/page-actions.js';
 import { apiAnalyze } from './helpers/api.js';
 
@@ -39,13 +39,7 @@ async function writeTwoColumns(folder: string): Promise<string> {
 }
 
 describe.skipIf(browserTestsSkipped())('a multi-column file on the page', () => {
-  let s: Session;
-  beforeAll(async () => {
-    s = await openSession();
-  }, 60_000);
-  afterAll(async () => {
-    await s?.close();
-  });
+  const s = sessionPerSuite();
 
   it('analyses the first column, offers the others, and analyses each as its own entry', async () => {
     const path = await writeTwoColumns(s.folder);

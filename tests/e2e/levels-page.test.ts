@@ -3,19 +3,13 @@
  * choose tetragonal symmetry and spin–orbit coupling, and the table shows
  * what GET /api/v1/levels answers for the same parameters.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { computeFieldLevels } from '../../src/ligand-field/field-levels.js';
 import { browserTestsSkipped } from './helpers/browser.js';
-import { openSession, type Session } from './helpers/session.js';
+import { sessionPerSuite } from './helpers/session.js';
 
 describe.skipIf(browserTestsSkipped())('the Levels tab', () => {
-  let s: Session;
-  beforeAll(async () => {
-    s = await openSession();
-  }, 60_000);
-  afterAll(async () => {
-    await s?.close();
-  });
+  const s = sessionPerSuite();
 
   it('computes tetragonal levels with spin–orbit coupling as the engine does', async () => {
     await s.page.goto(s.service.baseUrl);

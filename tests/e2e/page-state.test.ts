@@ -6,10 +6,10 @@
  * event or selector (a redraw is seen through the data-draws/data-x-range
  * attributes PlotFrame writes on each draw), never on the clock.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { browserTestsSkipped } from './helpers/browser.js';
-import { openSession, type Session } from './helpers/session.js';
+import { sessionPerSuite } from './helpers/session.js';
 import { uploadAndAnalyse } from './helpers/page-actions.js';
 
 type Range = [number, number];
@@ -46,22 +46,17 @@ async function sameChart(page: Page, id: string, tag: string): Promise<boolean> 
 }
 
 describe.skipIf(browserTestsSkipped())('the page keeps its state', () => {
-  let s: Session;
+  const s = sessionPerSuite();
   let full: Range;
   let zoom: Range;
 
   beforeAll(async () => {
-    s = await openSession();
     await s.page.goto(s.service.baseUrl);
     await uploadAndAnalyse(s.page, [s.files[0]!]);
     await s.page.waitForSelector('#band-0-remove', { timeout: 30_000 });
     await s.page.waitForSelector('#spectrum-plot[data-draws]');
     await s.page.waitForSelector('#diagram-plot[data-draws]', { timeout: 30_000 });
   }, 90_000);
-
-  afterAll(async () => {
-    await s?.close();
-  });
 
   it('zooms the spectrum around the first band by dragging', async () => {
     full = await shownRange(s.page, 'spectrum');

@@ -6,28 +6,20 @@
  */
 import { readFile, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { formatWithUncertainty } from '../../web/format.js';
 import type { AnalyzeResult, FitResult } from '../../web/types.js';
 import { browserTestsSkipped } from './helpers/browser.js';
-import { openSession, SHOTS, type Session } from './helpers/session.js';
+import { SHOTS, sessionPerSuite } from './helpers/session.js';
 import { cardValue, uploadAndAnalyse } from './helpers/page-actions.js';
 import { apiAnalyze, apiAnswer } from './helpers/api.js';
 
 describe.skipIf(browserTestsSkipped())('more of the web page in headless Chromium', () => {
-  let s: Session;
+  const s = sessionPerSuite();
   /** The service's answer for the first file. */
   let first: AnalyzeResult;
   /** Uploads the service itself refuses (the bad file, a demo file it cannot fit). */
   let expectedAnalyzeFailures = 0;
-
-  beforeAll(async () => {
-    s = await openSession();
-  }, 60_000);
-
-  afterAll(async () => {
-    await s?.close();
-  });
 
   it('analyses a spectrum to start from', async () => {
     first = await apiAnalyze(s.service, s.files[0]!);

@@ -5,26 +5,18 @@
  * page shows is checked against the service's own answer for the same input.
  */
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { formatWithUncertainty, spinStateText } from '../../web/format.js';
 import type { AnalyzeResult } from '../../web/types.js';
 import { browserTestsSkipped } from './helpers/browser.js';
-import { openSession, SHOTS, type Session } from './helpers/session.js';
+import { SHOTS, sessionPerSuite } from './helpers/session.js';
 import { cardValue, uploadAndAnalyse } from './helpers/page-actions.js';
 import { apiAnalyze, apiFit } from './helpers/api.js';
 
 describe.skipIf(browserTestsSkipped())('the web page in headless Chromium', () => {
-  let s: Session;
+  const s = sessionPerSuite();
   /** The service's answer for the first file. */
   let first: AnalyzeResult;
-
-  beforeAll(async () => {
-    s = await openSession();
-  }, 60_000);
-
-  afterAll(async () => {
-    await s?.close();
-  });
 
   it('analyses an uploaded spectrum and shows the service\'s 10Dq and spin state', async () => {
     const file = s.files[0]!;

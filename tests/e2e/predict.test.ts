@@ -6,9 +6,9 @@
  * for the same formula (POST /api/v1/predict) and, for the chemistry, common
  * practice.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { browserTestsSkipped } from './helpers/browser.js';
-import { openSession, SHOTS, type Session } from './helpers/session.js';
+import { SHOTS, sessionPerSuite } from './helpers/session.js';
 
 async function servicePrediction(baseUrl: string, formula: string): Promise<{ unpairedElectrons: { value: number }; tenDq: { value: number } }> {
   const response = await fetch(`${baseUrl}/api/v1/predict`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ formula }) });
@@ -16,15 +16,10 @@ async function servicePrediction(baseUrl: string, formula: string): Promise<{ un
 }
 
 describe.skipIf(browserTestsSkipped())('the Predict view in headless Chromium', () => {
-  let s: Session;
+  const s = sessionPerSuite();
 
   beforeAll(async () => {
-    s = await openSession();
     await s.page.goto(s.service.baseUrl);
-  }, 60_000);
-
-  afterAll(async () => {
-    await s?.close();
   });
 
   it('predicts two complexes side by side: [Fe(H2O)6]2+ high-spin, [Fe(CN)6]4- low-spin', async () => {

@@ -1,8 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/main.js';
-import type { CliIo } from '../../src/cli/command.js';
 import { FieldgapError } from '../../src/errors.js';
 import { fitBands, type FitInput } from '../../src/fit/index.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 function errorOf(input: unknown): FieldgapError {
   try {
@@ -15,11 +14,8 @@ function errorOf(input: unknown): FieldgapError {
 }
 
 async function cli(argv: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const io: CliIo = { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t), isTty: false, cwd: '/', env: {} };
-  const code = await runCli(argv, io);
-  return { code, stdout, stderr };
+  const { code, out, err } = await runCliCaptured(argv, { cwd: '/' });
+  return { code, stdout: out, stderr: err };
 }
 
 describe('fitBands input errors', () => {

@@ -4,8 +4,6 @@
  * the priors, the two-electron label, and the CLI report and JSON.
  */
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/main.js';
-import type { CliIo } from '../../src/cli/command.js';
 import { parseWindow } from '../../src/cli/commands/fit.js';
 import { enumerateAssignments, scanBranches } from '../../src/fit/enumerate.js';
 import { deviance, effectiveWeight, flatWithTails, probabilitiesOf } from '../../src/fit/likelihood.js';
@@ -13,13 +11,11 @@ import { gridOptimum } from '../../src/fit/profile.js';
 import { cachedLevelScan } from '../../src/fit/scan.js';
 import { twoElectronLevels } from '../../src/fit/two-electron.js';
 import { seededRandom, uniform } from './random.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 async function cli(argv: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const io: CliIo = { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t), isTty: false, cwd: '/', env: {} };
-  const code = await runCli(argv, io);
-  return { code, stdout, stderr };
+  const { code, out, err } = await runCliCaptured(argv, { cwd: '/' });
+  return { code, stdout: out, stderr: err };
 }
 
 describe('likelihood helpers', () => {

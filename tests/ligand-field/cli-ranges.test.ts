@@ -4,27 +4,12 @@
  * one line naming the option and exit 2, never "internal error".
  */
 import { describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
 import { runCli } from '../../src/cli/main.js';
+import { capturedIo, type CapturedIo } from '../helpers/cli-run.js';
 import { parseFitArgs } from '../../src/cli/commands/fit.js';
 import { MAX_FIT_BANDS } from '../../src/fit/band-count.js';
 
-function io(): CliIo & { out: string; err: string } {
-  const state = {
-    out: '',
-    err: '',
-    isTty: false,
-    cwd: process.cwd(),
-    env: {},
-    stdout: (text: string) => {
-      state.out += text;
-    },
-    stderr: (text: string) => {
-      state.err += text;
-    },
-  };
-  return state;
-}
+const io = (): CapturedIo => capturedIo();
 
 describe('CLI ranges', () => {
   it.each([

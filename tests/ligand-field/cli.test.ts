@@ -1,16 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
 import { diagramCommand } from '../../src/cli/commands/diagram.js';
 import { levelsCommand } from '../../src/cli/commands/levels.js';
-import { runCli } from '../../src/cli/main.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 /** Runs one command line in process; main.ts's runCli finds the command by name. */
-async function run(argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: process.cwd(), env: {} };
-  const code = await runCli(argv, io);
-  return { code, out, err };
+function run(argv: string[]): Promise<{ code: number; out: string; err: string }> {
+  return runCliCaptured(argv);
 }
 
 describe('fieldgap levels', () => {

@@ -1,16 +1,11 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
-import { runCli } from '../../src/cli/main.js';
 import { computeFieldDiagram, computeFieldLevels, fieldLevelsDocument } from '../../src/ligand-field/index.js';
 import { makeTestApp, type TestApp } from '../server/helpers.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
-async function run(argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: process.cwd(), env: {} };
-  const code = await runCli(argv, io);
-  return { code, out, err };
+function run(argv: string[]): Promise<{ code: number; out: string; err: string }> {
+  return runCliCaptured(argv);
 }
 
 describe('fieldgap levels --ds --dt --zeta', () => {

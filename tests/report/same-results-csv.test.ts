@@ -4,14 +4,13 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
-import { runCli } from '../../src/cli/main.js';
 import { RESULTS_CSV_COLUMNS } from '../../src/report/results-csv.js';
 import { resultsTableCsv } from '../../web/export-results.js';
 import { defaultDetails, editableBandsFromResult, nextKey, type AnalysisEntry } from '../../web/state.js';
 import { analyzeQuery } from '../../web/api.js';
 import type { AnalyzeResult } from '../../web/types.js';
 import { makeTestApp, type TestApp } from '../server/helpers.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 /**
  * Issue 18's done-when: the same spectra give byte-identical CSV from the CLI
@@ -42,12 +41,8 @@ afterAll(async () => {
   rmSync(dir, { recursive: true, force: true });
 });
 
-async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: dir, env: { FIELDGAP_DATA: join(dir, 'library') } };
-  const code = await runCli(args, io);
-  return { code, out, err };
+function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+  return runCliCaptured(args, { cwd: dir, env: { FIELDGAP_DATA: join(dir, 'library') } });
 }
 
 /** The page's entry once the service has answered, as web/main.ts fills it. */

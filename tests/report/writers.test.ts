@@ -5,6 +5,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { csvLine, csvText } from '../../src/report/csv.js';
 import { decimalsForUncertainty, formatPlusMinus } from '../../src/report/plus-minus.js';
+import { percentText, probabilityText } from '../../src/report/probability.js';
 import { NO_SPIN_STATE_CHOICE, spinStateSentence, spinStateWords } from '../../src/report/spin-state-wording.js';
 import { columnWidths, textTableLine, textTableLines } from '../../src/report/text-table.js';
 
@@ -78,6 +79,24 @@ describe('the one spin-state wording', () => {
   });
 });
 
+describe('the one wording of a probability', () => {
+  it('gives two significant figures, three near certainty, and a floor', () => {
+    expect(percentText(0.9731)).toBe('97%');
+    expect(percentText(0.031)).toBe('3.1%');
+    expect(percentText(0.9972)).toBe('99.7%');
+    expect(percentText(0.0004)).toBe('< 0.1%');
+    expect(percentText(0.9731, { space: true })).toBe('97 %');
+    expect(percentText(0.0004, { space: true })).toBe('< 0.1 %');
+  });
+
+  it('says P to two decimals, and only a bound where two decimals cannot say more', () => {
+    expect(probabilityText(0.87)).toBe('P = 0.87');
+    expect(probabilityText(0.996)).toBe('P > 0.99');
+    expect(probabilityText(0.004)).toBe('P < 0.01');
+    expect(probabilityText(0.995)).toBe('P = 0.99');
+  });
+});
+
 describe('one writer per output', () => {
   const root = fileURLToPath(new URL('../..', import.meta.url));
   const sources = (folder: string) =>
@@ -91,5 +110,10 @@ describe('one writer per output', () => {
     expect(files.filter((f) => /\bunparse\(/.test(f.text)).map((f) => f.path)).toEqual([]);
     // A column padded to widths computed over rows is a table renderer of its own.
     expect(files.filter((f) => /padEnd\(widths\[|padStart\(widths\[/.test(f.text)).map((f) => f.path)).toEqual([]);
+  });
+
+  it('only src/report/ words a probability as a percentage or as P', () => {
+    const files = [...sources('src'), ...sources('server'), ...sources('web')].filter((f) => !f.path.startsWith('src/report/'));
+    expect(files.filter((f) => /toPrecision\(p >= 0\.995|'P > 0\.99'/.test(f.text)).map((f) => f.path)).toEqual([]);
   });
 });

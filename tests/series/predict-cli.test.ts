@@ -1,13 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/main.js';
-import type { CliIo } from '../../src/cli/command.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
-async function run(...argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: process.cwd(), env: {} };
-  const code = await runCli(['predict', ...argv], io);
-  return { code, out, err };
+function run(...argv: string[]): Promise<{ code: number; out: string; err: string }> {
+  return runCliCaptured(['predict', ...argv]);
 }
 
 describe('fieldgap predict', () => {

@@ -3,12 +3,11 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
-import { runCli } from '../../src/cli/main.js';
 import { createApp, type FieldgapApp } from '../../server/app.js';
 import { openLibrary } from '../../src/library/library.js';
 import { handBuiltRecord } from '../storage/helpers/records.js';
 import { captureLogger } from '../server/helpers.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 /**
  * `predict --library` and POST /api/v1/predict with "library": the ligand
@@ -26,12 +25,8 @@ beforeEach(async () => {
 });
 afterEach(() => rmSync(dir, { recursive: true, force: true }));
 
-async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: dir, env: {} };
-  const code = await runCli(['predict', ...args], io);
-  return { code, out, err };
+function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+  return runCliCaptured(['predict', ...args], { cwd: dir });
 }
 
 describe('fieldgap predict --library', () => {

@@ -3,7 +3,6 @@
  * graceful close with a request in flight, a clear error for a busy port,
  * and SIGTERM on a real process.
  */
-import { spawn } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -14,6 +13,7 @@ import { FieldgapError } from '../../src/errors.js';
 import { RequestAbortedError } from '../../server/errors.js';
 import { startServer, type RunningServer } from '../../server/main.js';
 import type { ComputePool } from '../../server/pool.js';
+import { startServeProcess } from '../helpers/serve-process.js';
 import { captureLogger } from './helpers.js';
 
 const silent = pino({ level: 'silent' });
@@ -123,31 +123,19 @@ describe('startServer', () => {
 describe('server/main.ts as a process', () => {
   it('prints its URL, serves, and exits 0 on SIGTERM', async () => {
     const main = fileURLToPath(new URL('../../server/main.ts', import.meta.url));
-    const child = spawn(process.execPath, ['--import', 'tsx', main, '--port', '0', '--data', dataDir], {
-      env: { ...process.env, FIELDGAP_LOG_LEVEL: 'info' },
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
-    let stdout = '';
-    let stderr = '';
-    child.stderr.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
     // Waits for the URL line, or for the process to end without one (no clock: a slow start is not a failure).
-    const url = await new Promise<string>((resolveUrl, rejectUrl) => {
-      child.once('exit', (code) => rejectUrl(new Error(`exited ${code} without printing its URL; stderr: ${stderr}`)));
-      child.stdout.on('data', (chunk: Buffer) => {
-        stdout += chunk.toString();
-        const match = /serving on (http:\/\/127\.0\.0\.1:\d+\/)/.exec(stdout);
-        if (match) resolveUrl(match[1]!);
-      });
+    const serve = await startServeProcess([process.execPath, '--import', 'tsx', main, '--port', '0', '--data', dataDir], {
+      env: { ...process.env, FIELDGAP_LOG_LEVEL: 'info' },
     });
+    const url = serve.url;
+    expect(url).toMatch(/^http:\/\/127\.0\.0\.1:\d+\/$/);
     const res = await fetch(`${url}api/v1/health`);
     expect(res.status).toBe(200);
-    const exit = new Promise<number | null>((resolveExit) => child.on('exit', (code) => resolveExit(code)));
-    child.kill('SIGTERM');
-    expect(await exit).toBe(0);
-    expect(stderr).toContain('SIGTERM');
-    expect(stderr).toContain('stopped');
+    expect(await serve.stop()).toBe(0);
+    expect(serve.stderr).toContain('SIGTERM');
+    expect(serve.stderr).toContain('stopped');
     // One JSON log line per request, with the fields the brief names.
-    const line = stdout
+    const line = serve.stdout
       .split('\n')
       .filter((l) => l.startsWith('{'))
       .map((l) => JSON.parse(l) as Record<string, unknown>)

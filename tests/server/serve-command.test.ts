@@ -1,26 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
 import { runCli } from '../../src/cli/main.js';
 import { runServe } from '../../server/main.js';
+import { capturedIo, type CapturedIo } from '../helpers/cli-run.js';
 
-function io(): CliIo & { out: string; err: string } {
-  const state = {
-    out: '',
-    err: '',
-    isTty: false,
-    cwd: process.cwd(),
-    env: {},
-    // What bin/fieldgap hands the CLI: the service's own entry.
-    runService: runServe,
-    stdout: (text: string) => {
-      state.out += text;
-    },
-    stderr: (text: string) => {
-      state.err += text;
-    },
-  };
-  return state;
-}
+// What bin/fieldgap hands the CLI: the service's own entry.
+const io = (): CapturedIo => capturedIo({ runService: runServe });
 
 describe('fieldgap serve', () => {
   it('is listed and documents its options', async () => {

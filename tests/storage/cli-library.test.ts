@@ -1,37 +1,23 @@
 import Papa from 'papaparse';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
+import { describe, expect, it } from 'vitest';
 import { analysisOptionsFrom } from '../../src/cli/analysis-options.js';
 import { libraryCommand, plusMinus } from '../../src/cli/commands/library.js';
-import { runCli } from '../../src/cli/main.js';
-import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
+import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 forEachEngine('fieldgap library (CLI)', (engine) => {
-let where: TestLibrary;
-let dir: string;
-beforeEach(async () => {
-  where = await freshLibrary(engine);
-  dir = where.dir;
-});
-afterEach(() => where.dispose());
+const fresh = libraryPerTest(engine, { open: false });
 
 /** Runs `fieldgap library ...` in process, with FIELDGAP_DATA (or FIELDGAP_DATABASE_URL) naming the test library. */
-async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = {
-    stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: dir,
-    env: { ...where.env },
-  };
-  const code = await runCli(['library', ...args], io);
-  return { code, out, err };
+function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+  return runCliCaptured(['library', ...args], { cwd: fresh.where.dir, env: { ...fresh.where.env } });
 }
 
 async function seed(): Promise<void> {
-  const library = await where.open();
+  const library = await fresh.where.open();
   await library.add(handBuiltRecord({ sample: 'chromium aqua' }));
   await library.add(handBuiltRecord({ sample: 'nickel ammine', formula: '[Ni(NH3)6]Cl2', ion: 'Ni2+', ligands: ['NH3'], content: new Uint8Array([0, 1, 2, 255]), fileName: 'ni.bin' }));
   await library.close();
@@ -79,12 +65,12 @@ describe('fieldgap library', () => {
   it('writes the original back out byte for byte, never over an existing file', async () => {
     await seed();
     expect((await cli('original', '2', '--out', 'back.bin')).code).toBe(0);
-    expect([...readFileSync(join(dir, 'back.bin'))]).toEqual([0, 1, 2, 255]);
-    writeFileSync(join(dir, 'taken.bin'), 'mine');
+    expect([...readFileSync(join(fresh.where.dir, 'back.bin'))]).toEqual([0, 1, 2, 255]);
+    writeFileSync(join(fresh.where.dir, 'taken.bin'), 'mine');
     const refused = await cli('original', '2', '--out', 'taken.bin');
     expect(refused.code).toBe(2);
     expect(refused.err).toContain('taken.bin: the file exists');
-    expect(readFileSync(join(dir, 'taken.bin'), 'utf8')).toBe('mine');
+    expect(readFileSync(join(fresh.where.dir, 'taken.bin'), 'utf8')).toBe('mine');
   });
 
   it('exports CSV to stdout or a file and JSON with the full records', async () => {
@@ -93,10 +79,10 @@ describe('fieldgap library', () => {
     const rows = Papa.parse<string[]>(csv.trim(), { newline: '\r\n' }).data; // papaparse as the reference reader
     expect(rows.map((r) => r[1])).toEqual(['sample', 'nickel ammine', 'chromium aqua']);
     expect((await cli('export', '--csv', 'all.csv')).code).toBe(0);
-    expect(readFileSync(join(dir, 'all.csv'), 'utf8')).toBe(csv);
+    expect(readFileSync(join(fresh.where.dir, 'all.csv'), 'utf8')).toBe(csv);
     expect((await cli('export', '--csv', 'all.csv')).code).toBe(2);
     expect((await cli('export', '--json', 'all.json', '--ion', 'Ni2+')).code).toBe(0);
-    const json = JSON.parse(readFileSync(join(dir, 'all.json'), 'utf8')) as { analyses: { sample: string; result: unknown }[] };
+    const json = JSON.parse(readFileSync(join(fresh.where.dir, 'all.json'), 'utf8')) as { analyses: { sample: string; result: unknown }[] };
     expect(json.analyses.map((a) => a.sample)).toEqual(['nickel ammine']);
     expect(json.analyses[0]!.result).toMatchObject({ fit: { tenDq: 17_400 } });
   });
@@ -110,7 +96,7 @@ describe('fieldgap library', () => {
 
   it('honours --data over FIELDGAP_DATA', async () => {
     await seed();
-    const other = join(dir, 'other');
+    const other = join(fresh.where.dir, 'other');
     expect((await cli('list', '--data', other)).out).toMatch(/empty/);
     expect(existsSync(join(other, 'library.sqlite'))).toBe(true);
   });

@@ -4,10 +4,9 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyzeSpectrum } from '../../src/analysis.js';
-import type { CliIo } from '../../src/cli/command.js';
-import { runCli } from '../../src/cli/main.js';
 import type { AnalysisRecord } from '../../src/library/types.js';
 import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 /**
  * `library add`, `library refit` and `series FILES` with the real pipeline on
@@ -26,12 +25,8 @@ beforeAll(async () => {
 });
 afterAll(() => where.dispose());
 
-async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: ROOT, env: { ...where.env } };
-  const code = await runCli(args, io);
-  return { code, out, err };
+function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+  return runCliCaptured(args, { cwd: ROOT, env: { ...where.env } });
 }
 
 const asJson = <T>(value: T): T => JSON.parse(JSON.stringify(value)) as T;

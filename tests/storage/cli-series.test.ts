@@ -1,36 +1,24 @@
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
+import { describe, expect, it } from 'vitest';
 import { ligandFromFileName } from '../../src/cli/commands/series.js';
-import { runCli } from '../../src/cli/main.js';
-import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
+import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
-
-let where: TestLibrary;
-let dir: string;
-
-async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: dir, env: {} };
-  const code = await runCli(['series', ...args], io);
-  return { code, out, err };
-}
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 forEachEngine('fieldgap series --library', (engine) => {
-  beforeEach(async () => {
-    where = await freshLibrary(engine);
-    dir = where.dir;
-  });
-  afterEach(() => where.dispose());
+  const fresh = libraryPerTest(engine, { open: false });
+
+  function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+    return runCliCaptured(['series', ...args], { cwd: fresh.where.dir });
+  }
 
   it('prints both rankings with units and the fitted factors', async () => {
     // hand-built records; the numbers are made up for the test
-    const library = await where.open();
+    const library = await fresh.where.open();
     await library.add(handBuiltRecord({ sample: 'cr-en', formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 21_900));
     await library.add(handBuiltRecord({ sample: 'cr-aqua', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_400));
     await library.add(handBuiltRecord({ sample: 'cr-aqua-2', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_500));
     await library.close();
-    const { code, out } = await cli('--ion', 'Cr3+', ...where.flags);
+    const { code, out } = await cli('--ion', 'Cr3+', ...fresh.where.flags);
     expect(code).toBe(0);
     expect(out).toMatch(/^Cr3\+: 3 analyses\n\nSpectrochemical series \(by 10Dq, weakest field first\)\n/);
     expect(out).toMatch(/ 1 +H2O +cr-aqua +2 +17400 ± 150 +~ next/);
@@ -38,13 +26,13 @@ forEachEngine('fieldgap series --library', (engine) => {
     expect(out).toContain('Nephelauxetic series');
     expect(out).toMatch(/Jørgensen factors for Cr3\+ \(f = 10Dq\/g, g = \d+ cm-1/);
     expect(out).toMatch(/ H2O +[\d.]+ ± [\d.]+ .* 2 analyses/);
-    const json = JSON.parse((await cli('--ion', 'Cr(III)', ...where.flags, '--json')).out) as { count: number };
+    const json = JSON.parse((await cli('--ion', 'Cr(III)', ...fresh.where.flags, '--json')).out) as { count: number };
     expect(json.count).toBe(3);
   });
 
   it('fails in one line without --ion or without analyses', async () => {
     expect((await cli()).err).toBe('fieldgap series: --ion is required: the metal ion of the series, e.g. --ion Cr3+\n');
-    const none = await cli('--ion', 'V3+', ...where.flags);
+    const none = await cli('--ion', 'V3+', ...fresh.where.flags);
     expect(none.code).toBe(2);
     expect(none.err).toBe('fieldgap series: ion: no analyses of V3+: nothing to rank\n');
   });

@@ -3,9 +3,9 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { LIBRARY_FILE } from '../../src/library/library.js';
-import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
+import { forEachEngine, libraryPerTest, type TestLibrary } from './helpers/engines.js';
 
 const WRITER = fileURLToPath(new URL('./helpers/writer.ts', import.meta.url));
 const ROOT = fileURLToPath(new URL('../..', import.meta.url));
@@ -82,16 +82,12 @@ async function halfMade(where: TestLibrary): Promise<number> {
 }
 
 forEachEngine('the library under concurrent writers', (engine) => {
-  let where: TestLibrary;
-  beforeEach(async () => {
-    // A fresh location with no library yet: the four writers below create it at once (migrations under a lock).
-    where = await freshLibrary(engine);
-  });
-  afterEach(() => where.dispose());
+  // A fresh location with no library yet: the four writers below create it at once (migrations under a lock).
+  const fresh = libraryPerTest(engine, { open: false });
 
   describe('several processes writing at once', () => {
     it('loses nothing: every acknowledged id is there, once', async () => {
-      const writers = ['w1', 'w2', 'w3', 'w4'].map((tag) => startWriter(where, tag, 25));
+      const writers = ['w1', 'w2', 'w3', 'w4'].map((tag) => startWriter(fresh.where, tag, 25));
       await Promise.all(writers.map((w) => w.ready));
       for (const w of writers) w.go();
       const codes = await Promise.all(writers.map((w) => w.done));
@@ -103,7 +99,7 @@ forEachEngine('the library under concurrent writers', (engine) => {
       // the writers really did interleave: some writer's ids are not one unbroken run
       expect(writers.some((w) => w.ids.at(-1)! - w.ids[0]! > 24)).toBe(true);
 
-      const library = await where.open();
+      const library = await fresh.where.open();
       try {
         const all = await library.listAll();
         expect(all).toHaveLength(100);
@@ -126,7 +122,7 @@ forEachEngine('the library under concurrent writers', (engine) => {
 
   describe('a writer killed mid-stream', () => {
     it('leaves a library that passes the engine\'s checks and holds every acknowledged id', async () => {
-      const writer = startWriter(where, 'k', 0);
+      const writer = startWriter(fresh.where, 'k', 0);
       await writer.ready;
       writer.go();
       await writer.acknowledged(40);
@@ -134,9 +130,9 @@ forEachEngine('the library under concurrent writers', (engine) => {
       expect(await writer.done).toBeNull();
       const acknowledged = [...writer.ids];
 
-      await engineChecks(where);
-      expect(await halfMade(where)).toBe(0);
-      const library = await where.open();
+      await engineChecks(fresh.where);
+      expect(await halfMade(fresh.where)).toBe(0);
+      const library = await fresh.where.open();
       try {
         for (const id of acknowledged) expect((await library.get(id)).sample).toMatch(/^k-\d+$/);
         // at most one add can have committed after its id line was lost with the process

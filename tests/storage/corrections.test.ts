@@ -1,18 +1,16 @@
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import request from 'supertest';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { createApp, type FieldgapApp } from '../../server/app.js';
+import { describe, expect, it } from 'vitest';
 import { analyzeSpectrum, type AnalyzeResult } from '../../src/analysis.js';
 import { checkCorrections } from '../../src/analysis-corrections.js';
-import type { CliIo } from '../../src/cli/command.js';
-import { runCli } from '../../src/cli/main.js';
 import type { FitResult } from '../../src/fit/types.js';
 import type { AnalysisRecord } from '../../src/library/types.js';
 import { correctionsFor, defaultDetails, editableBandsFromCorrections, editableBandsFromResult, fitRequestFor, shownFit, type AnalysisEntry } from '../../web/state.js';
-import { captureLogger } from '../server/helpers.js';
+import { forEachEngine, libraryPerTest } from './helpers/engines.js';
+import { servicePerTest } from './helpers/service.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 /**
  * What the page shows after "Saved" is what the library stored: the page's
@@ -46,30 +44,23 @@ function pageEntry(result: AnalyzeResult): AnalysisEntry {
   } as AnalysisEntry;
 }
 
-let dir: string;
-let app: FieldgapApp;
-beforeEach(() => {
-  dir = mkdtempSync(join(tmpdir(), 'fieldgap-corrections-'));
-  app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, dataDir: join(dir, 'lib') });
-});
-afterEach(async () => {
-  await app.close();
-  rmSync(dir, { recursive: true, force: true });
-});
+forEachEngine('corrections in the library', (engine) => {
+const fresh = libraryPerTest(engine, { open: false });
+const service = servicePerTest(fresh);
 
 function save(corrections: object | null) {
-  const req = request(app).post('/api/v1/analyses').query({ ion: 'Cr3+', sample: 'aqua', ...(corrections && { corrections: JSON.stringify(corrections) }) });
+  const req = request(service.app).post('/api/v1/analyses').query({ ion: 'Cr3+', sample: 'aqua', ...(corrections && { corrections: JSON.stringify(corrections) }) });
   return req.attach('spectrum', readFileSync(AQUA), 'cr-aqua.csv');
 }
 
 describe('corrections stored with the record equal what the page shows', () => {
   it('a band removed and one reclassified: the stored fit is the page\'s POST /fit answer', async () => {
-    const analysed = (await request(app).post('/api/v1/analyze?ion=Cr3%2B').attach('spectrum', readFileSync(AQUA), 'cr-aqua.csv').expect(200)).body as AnalyzeResult;
+    const analysed = (await request(service.app).post('/api/v1/analyze?ion=Cr3%2B').attach('spectrum', readFileSync(AQUA), 'cr-aqua.csv').expect(200)).body as AnalyzeResult;
     const entry = pageEntry(analysed);
     // The user drops the spin-forbidden band and marks the highest band as a shoulder.
     entry.bands[0]!.included = false;
     entry.bands[2]!.shoulder = true;
-    const pageFit = (await request(app).post('/api/v1/fit').send(fitRequestFor(entry)).expect(200)).body as FitResult;
+    const pageFit = (await request(service.app).post('/api/v1/fit').send(fitRequestFor(entry)).expect(200)).body as FitResult;
     entry.fit = pageFit;
     const corrections = correctionsFor(entry);
     expect(corrections?.bands).toHaveLength(2);
@@ -83,7 +74,7 @@ describe('corrections stored with the record equal what the page shows', () => {
     // the found bands are kept as found: a correction changes the fit, never the spectrum
     expect(saved.result.bands).toEqual(analysed.bands);
     // what was stored is what is read back
-    expect((await request(app).get(`/api/v1/analyses/${saved.id}`).expect(200)).body.result.fit).toEqual(saved.result.fit);
+    expect((await request(service.app).get(`/api/v1/analyses/${saved.id}`).expect(200)).body.result.fit).toEqual(saved.result.fit);
     // and the page, reopening the record, shows the bands the stored fit was made from
     const reopened = pageEntry(saved.result);
     reopened.bands = editableBandsFromCorrections(saved.result.bands, checkCorrections(corrections).bands as never);
@@ -104,10 +95,10 @@ describe('corrections stored with the record equal what the page shows', () => {
 
   it('is reproducible: a refit changing nothing gives the same fit; corrections: null takes them back', async () => {
     const saved = (await save({ alternative: 1 }).expect(201)).body as AnalysisRecord & { result: AnalyzeResult };
-    const again = (await request(app).post(`/api/v1/analyses/${saved.id}/refit`).send({}).expect(200)).body as AnalysisRecord & { result: AnalyzeResult; changes: unknown[] };
+    const again = (await request(service.app).post(`/api/v1/analyses/${saved.id}/refit`).send({}).expect(200)).body as AnalysisRecord & { result: AnalyzeResult; changes: unknown[] };
     expect(again.result.fit).toEqual(saved.result.fit);
     expect(again.changes).toEqual([]);
-    const back = (await request(app).post(`/api/v1/analyses/${saved.id}/refit`).send({ corrections: null }).expect(200)).body as AnalysisRecord & { result: AnalyzeResult; changes: { what: string }[] };
+    const back = (await request(service.app).post(`/api/v1/analyses/${saved.id}/refit`).send({ corrections: null }).expect(200)).body as AnalysisRecord & { result: AnalyzeResult; changes: { what: string }[] };
     expect(back.options).not.toHaveProperty('corrections');
     expect(back.result.fit).toEqual(JSON.parse(JSON.stringify(analyzeSpectrum(readFileSync(AQUA), { ion: 'Cr3+', fileName: 'cr-aqua.csv' }).fit)));
     expect(back.changes.length).toBeGreaterThan(0);
@@ -118,17 +109,13 @@ describe('corrections stored with the record equal what the page shows', () => {
     expect(bad.body.error.path).toMatch(/^corrections\.bands\[0\]/);
     expect((await save({ alternative: 9 }).expect(400)).body.error.path).toBe('corrections.alternative');
     expect((await save({ colour: 1 }).expect(400)).body.error.path).toBe('corrections.colour');
-    expect((await request(app).get('/api/v1/analyses').expect(200)).body.total).toBe(0);
+    expect((await request(service.app).get('/api/v1/analyses').expect(200)).body.total).toBe(0);
   });
 });
 
 describe('library refit options are reversible, and every change in the assignment is shown', () => {
-  async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-    let out = '';
-    let err = '';
-    const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: ROOT, env: { FIELDGAP_DATA: join(dir, 'cli') } };
-    const code = await runCli(['library', ...args], io);
-    return { code, out, err };
+  function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+    return runCliCaptured(['library', ...args], { cwd: ROOT, env: { ...fresh.where.env } });
   }
 
   it('--free-c, then --c-over-b 4.5 takes it back; --reset c-over-b returns to the first analysis', async () => {
@@ -154,4 +141,5 @@ describe('library refit options are reversible, and every change in the assignme
     expect(lines.length).toBeGreaterThan(0);
     expect((await cli('refit', String(first.id), '--reset', 'colour')).err).toMatch(/--reset: "colour" is not a stored option/);
   });
+});
 });

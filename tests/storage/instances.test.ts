@@ -1,10 +1,10 @@
-import { spawn, type ChildProcess } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { afterEach, beforeEach, expect, it } from 'vitest';
-import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
+import { afterEach, expect, it } from 'vitest';
+import { startServeProcess, type ServeProcess } from '../helpers/serve-process.js';
+import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 
 /**
  * Several service instances over one PostgreSQL library (issue 17): two
@@ -17,27 +17,12 @@ const ROOT = fileURLToPath(new URL('../..', import.meta.url));
 const ENTRY = fileURLToPath(new URL('./helpers/cli-entry.ts', import.meta.url));
 const SPECTRUM = readFileSync(join(ROOT, 'spectra-demo', 'cr-aqua.csv'));
 
-interface Instance {
-  child: ChildProcess;
-  url: string;
-  closed: Promise<unknown>;
-}
+type Instance = ServeProcess;
 
-async function startInstance(database: string): Promise<Instance> {
-  const child = spawn(process.execPath, ['--import', 'tsx', ENTRY, 'serve', '--port', '0', '--database', database], {
-    cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, FIELDGAP_LOG_LEVEL: 'warn' },
+function startInstance(database: string): Promise<Instance> {
+  return startServeProcess([process.execPath, '--import', 'tsx', ENTRY, 'serve', '--port', '0', '--database', database], {
+    cwd: ROOT, env: { ...process.env, FIELDGAP_LOG_LEVEL: 'warn' },
   });
-  const closed = new Promise((resolve) => child.once('close', resolve));
-  const url = await new Promise<string>((resolve, reject) => {
-    let out = '';
-    child.stdout!.setEncoding('utf8').on('data', (chunk: string) => {
-      out += chunk;
-      const match = /serving on (http:\/\/\S+)/.exec(out);
-      if (match) resolve(match[1]!);
-    });
-    void closed.then(() => reject(new Error(`serve ended before listening: ${out}`)));
-  });
-  return { child, url, closed };
 }
 
 interface Writer {
@@ -89,23 +74,20 @@ function writer(instance: () => Instance, tag: string, stop: { now: boolean }): 
 }
 
 forEachEngine('several instances over one library', (engine) => {
-  let where: TestLibrary;
+  const fresh = libraryPerTest(engine, { open: false });
   const instances: Instance[] = [];
-  beforeEach(async () => {
-    where = await freshLibrary(engine);
-  });
+  // Registered after libraryPerTest, so it runs before the library is removed.
   afterEach(async () => {
     for (const i of instances.splice(0)) {
       i.child.kill('SIGTERM');
       await i.closed;
     }
-    await where.dispose();
   });
 
   // Child processes compile the sources with tsx and analyse real spectra: minutes on a busy machine, not a tight limit.
   it.runIf(engine === 'postgres')('four writers on two instances, one killed and restarted: every acknowledged record on both', { timeout: 600_000 }, async () => {
-    if (where.location.engine !== 'postgres') return;
-    const database = where.location.url;
+    if (fresh.where.location.engine !== 'postgres') return;
+    const database = fresh.where.location.url;
     let a = await startInstance(database);
     const b = await startInstance(database);
     instances.push(b);
@@ -140,10 +122,10 @@ forEachEngine('several instances over one library', (engine) => {
     expect(createHash('sha256').update(original).digest('hex')).toBe(sha);
 
     // PostgreSQL manual, amcheck: bt_index_check raises an error on a corrupt B-tree index.
-    await where.exec('CREATE EXTENSION IF NOT EXISTS amcheck');
-    expect(await where.scalar(`SELECT count(bt_index_check(c.oid)) FROM pg_index i JOIN pg_class c ON c.oid = i.indexrelid
+    await fresh.where.exec('CREATE EXTENSION IF NOT EXISTS amcheck');
+    expect(await fresh.where.scalar(`SELECT count(bt_index_check(c.oid)) FROM pg_index i JOIN pg_class c ON c.oid = i.indexrelid
       JOIN pg_am m ON m.oid = c.relam WHERE m.amname = 'btree' AND c.relnamespace = current_schema()::regnamespace`)).toBeGreaterThanOrEqual(4);
-    expect(await where.scalar(`SELECT
+    expect(await fresh.where.scalar(`SELECT
       (SELECT count(*) FROM analyses a WHERE NOT EXISTS (SELECT 1 FROM originals o WHERE o.analysis_id = a.id))
     + (SELECT count(*) FROM revisions r WHERE NOT EXISTS (SELECT 1 FROM results x WHERE x.revision_id = r.id)) AS n`)).toBe(0);
   });

@@ -1,10 +1,11 @@
-import { spawn, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { chmodSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { LIBRARY_FILE, openLibrary } from '../../src/library/library.js';
+import { startServeProcess } from '../helpers/serve-process.js';
 import { handBuiltRecord } from './helpers/records.js';
 
 /**
@@ -60,18 +61,9 @@ describe.runIf(canDropRights)('a read-only data folder', () => {
   });
 
   it('serves reads; a write answers 507 with a message and no path', { timeout: 180_000 }, async () => {
-    const [command, ...rest] = [...RUN_AS, process.execPath, '--import', 'tsx', ENTRY, 'serve', '--port', '0', '--data', dataDir];
-    const child = spawn(command!, rest, { cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe'] });
+    const serve = await startServeProcess([...RUN_AS, process.execPath, '--import', 'tsx', ENTRY, 'serve', '--port', '0', '--data', dataDir], { cwd: ROOT });
+    const url = serve.url;
     try {
-      const url = await new Promise<string>((resolve, reject) => {
-        let out = '';
-        child.stdout!.setEncoding('utf8').on('data', (chunk: string) => {
-          out += chunk;
-          const match = /serving on (http:\/\/\S+)/.exec(out);
-          if (match) resolve(match[1]!);
-        });
-        child.on('close', (code) => reject(new Error(`serve ended (${code}) before listening`)));
-      });
       const list = await fetch(`${url}api/v1/analyses`);
       expect(list.status).toBe(200);
       expect(((await list.json()) as { total: number }).total).toBe(1);
@@ -83,9 +75,7 @@ describe.runIf(canDropRights)('a read-only data folder', () => {
       expect(JSON.parse(text)).toMatchObject({ error: { code: 'storage-read-only', path: 'library' } });
       expect(text).not.toContain(dir);
     } finally {
-      const closed = new Promise((resolve) => child.once('close', resolve));
-      child.kill('SIGTERM');
-      await closed;
+      await serve.stop();
     }
   });
 });

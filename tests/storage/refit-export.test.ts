@@ -1,22 +1,12 @@
 import Papa from 'papaparse';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { CSV_COLUMNS, libraryCsv } from '../../src/library/export.js';
-import type { Library } from '../../src/library/library.js';
 import { refitAnalysis, type AnalyzeStored } from '../../src/library/refit.js';
-import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
+import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 import { handBuiltRecord, partialResult } from './helpers/records.js';
 
 forEachEngine('refit and export', (engine) => {
-let where: TestLibrary;
-let library: Library;
-beforeEach(async () => {
-  where = await freshLibrary(engine);
-  library = await where.open();
-});
-afterEach(async () => {
-  await library.close();
-  await where.dispose();
-});
+const fresh = libraryPerTest(engine);
 
 /** A stand-in for the pipeline that records what it was given, so the merge of options can be checked. */
 function recordingAnalyze(): { analyze: AnalyzeStored; calls: { content: Buffer; options: Record<string, unknown> }[] } {
@@ -32,9 +22,9 @@ function recordingAnalyze(): { analyze: AnalyzeStored; calls: { content: Buffer;
 describe('refitAnalysis', () => {
   it('reruns on the stored original with merged options and keeps the history', async () => {
     const input = handBuiltRecord({ options: { ion: 'Cr3+', geometry: 'octahedral', cOverB: 4, xUnit: 'nm' } });
-    const saved = await library.add(input);
+    const saved = await fresh.library.add(input);
     const { analyze, calls } = recordingAnalyze();
-    const refit = await refitAnalysis(library, saved.id, { cOverB: 4.5, xUnit: null }, analyze);
+    const refit = await refitAnalysis(fresh.library, saved.id, { cOverB: 4.5, xUnit: null }, analyze);
     expect(Buffer.compare(calls[0]!.content, Buffer.from(input.content))).toBe(0);
     expect(calls[0]!.options).toEqual({ ion: 'Cr3+', geometry: 'octahedral', cOverB: 4.5, fileName: 'sample-a.csv' });
     expect(refit.revision).toBe(2);
@@ -44,26 +34,26 @@ describe('refitAnalysis', () => {
   });
 
   it('replaces d by a new ion and follows the ion in the details', async () => {
-    const saved = await library.add(handBuiltRecord({ ion: 'Cr3+', options: { d: 3 } }));
+    const saved = await fresh.library.add(handBuiltRecord({ ion: 'Cr3+', options: { d: 3 } }));
     const { analyze, calls } = recordingAnalyze();
-    const refit = await refitAnalysis(library, saved.id, { ion: 'V2+' }, analyze);
+    const refit = await refitAnalysis(fresh.library, saved.id, { ion: 'V2+' }, analyze);
     expect(calls[0]!.options).toEqual({ ion: 'V2+', fileName: 'sample-a.csv' });
     expect(refit.ion).toBe('V2+');
   });
 
   it('saves nothing when the analysis fails', async () => {
-    const saved = await library.add(handBuiltRecord());
-    await expect(refitAnalysis(library, saved.id, {}, async () => Promise.reject(new Error('no fit')))).rejects.toThrow('no fit');
-    expect((await await library.get(saved.id)).revision).toBe(1);
-    await expect(refitAnalysis(library, 42, {}, recordingAnalyze().analyze)).rejects.toMatchObject({ code: 'not-found' });
+    const saved = await fresh.library.add(handBuiltRecord());
+    await expect(refitAnalysis(fresh.library, saved.id, {}, async () => Promise.reject(new Error('no fit')))).rejects.toThrow('no fit');
+    expect((await await fresh.library.get(saved.id)).revision).toBe(1);
+    await expect(refitAnalysis(fresh.library, 42, {}, recordingAnalyze().analyze)).rejects.toMatchObject({ code: 'not-found' });
   });
 });
 
 describe('libraryCsv', () => {
   it('writes one row per record that a CSV reader gives back, formulas escaped', async () => {
-    await library.add(handBuiltRecord({ sample: 'plain, with "quotes"', ligands: ['H2O', 'Cl'] }));
-    await library.add(handBuiltRecord({ sample: '=HYPERLINK("x")' }, 17_123.456));
-    const text = libraryCsv(await await library.listAll());
+    await fresh.library.add(handBuiltRecord({ sample: 'plain, with "quotes"', ligands: ['H2O', 'Cl'] }));
+    await fresh.library.add(handBuiltRecord({ sample: '=HYPERLINK("x")' }, 17_123.456));
+    const text = libraryCsv(await await fresh.library.listAll());
     const parsed = Papa.parse<string[]>(text.trim(), { newline: '\r\n' }); // papaparse as the reference reader
     expect(parsed.errors).toEqual([]);
     const [header, first, second] = parsed.data;

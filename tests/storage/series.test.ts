@@ -1,20 +1,10 @@
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import type { Library } from '../../src/library/library.js';
+import { describe, expect, it } from 'vitest';
 import { librarySeries, seriesAnalysisOf } from '../../src/library/series.js';
-import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
+import { forEachEngine, freshLibrary, libraryPerTest } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
 
 forEachEngine('series from the library', (engine) => {
-let where: TestLibrary;
-let library: Library;
-beforeEach(async () => {
-  where = await freshLibrary(engine);
-  library = await where.open();
-});
-afterEach(async () => {
-  await library.close();
-  await where.dispose();
-});
+const fresh = libraryPerTest(engine);
 
 const noFit = { tenDq: null, tenDqSd: null, b: null, bSd: null, c: null, beta: null, betaSd: null, spinState: null, rmsResidual: null, status: null };
 
@@ -34,12 +24,12 @@ describe('seriesAnalysisOf', () => {
 describe('librarySeries', () => {
   it('ranks the analyses of one ion by 10Dq and by 1 - beta, skipping what cannot be ranked', async () => {
     // hand-built records; the numbers are made up for the test
-    await library.add(handBuiltRecord({ sample: 'en', formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 21_900));
-    await library.add(handBuiltRecord({ sample: 'aqua', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_400));
-    await library.add(handBuiltRecord({ sample: 'urea', formula: 'my urea complex', ligands: ['urea'] }, 16_200));
-    await library.add(handBuiltRecord({ sample: 'mixed', formula: 'unknown', ligands: ['NH3', 'Cl'] }, 18_000));
-    await library.add(handBuiltRecord({ sample: 'nickel', ion: 'Ni2+', formula: '[Ni(H2O)6]2+', ligands: ['H2O'] }, 8_500));
-    const report = await librarySeries(library, 'Cr(III)');
+    await fresh.library.add(handBuiltRecord({ sample: 'en', formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 21_900));
+    await fresh.library.add(handBuiltRecord({ sample: 'aqua', formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_400));
+    await fresh.library.add(handBuiltRecord({ sample: 'urea', formula: 'my urea complex', ligands: ['urea'] }, 16_200));
+    await fresh.library.add(handBuiltRecord({ sample: 'mixed', formula: 'unknown', ligands: ['NH3', 'Cl'] }, 18_000));
+    await fresh.library.add(handBuiltRecord({ sample: 'nickel', ion: 'Ni2+', formula: '[Ni(H2O)6]2+', ligands: ['H2O'] }, 8_500));
+    const report = await librarySeries(fresh.library, 'Cr(III)');
     expect(report.ion).toBe('Cr3+');
     expect(report.count).toBe(3);
     expect(report.spectrochemical.entries.map((e) => [e.sample, e.value])).toEqual([['urea', 16_200], ['aqua', 17_400], ['en', 21_900]]);
@@ -53,8 +43,8 @@ describe('librarySeries', () => {
   });
 
   it('says not-found when the library has no analyses of the ion', async () => {
-    await library.add(handBuiltRecord());
-    await expect(librarySeries(library, 'V3+')).rejects.toThrow(expect.objectContaining({ code: 'not-found', path: 'ion' }));
+    await fresh.library.add(handBuiltRecord());
+    await expect(librarySeries(fresh.library, 'V3+')).rejects.toThrow(expect.objectContaining({ code: 'not-found', path: 'ion' }));
     const aloneWhere = await freshLibrary(engine);
     const alone = await aloneWhere.open();
     try {
@@ -64,7 +54,7 @@ describe('librarySeries', () => {
       await alone.close();
       await aloneWhere.dispose();
     }
-    await expect(librarySeries(library, 'Q7')).rejects.toThrow(expect.objectContaining({ code: 'invalid-argument', path: 'ion' }));
+    await expect(librarySeries(fresh.library, 'Q7')).rejects.toThrow(expect.objectContaining({ code: 'invalid-argument', path: 'ion' }));
   });
 });
 });

@@ -12,7 +12,7 @@ import { LIBRARY_FILE, openLibrary, openLibraryAt } from '../../src/library/libr
 import { translatePostgresError } from '../../src/library/postgres-errors.js';
 import { translateSqliteError } from '../../src/library/sqlite-errors.js';
 import { captureLogger } from '../server/helpers.js';
-import { forEachEngine, freshLibrary, POSTGRES_TEST_URL, type TestLibrary } from './helpers/engines.js';
+import { forEachEngine, libraryPerTest, POSTGRES_TEST_URL } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
 import { rejectionOf } from './helpers/rejection.js';
 
@@ -95,26 +95,23 @@ describe('the service over a damaged library', () => {
 });
 
 forEachEngine('a database outage', (engine) => {
-  let where: TestLibrary;
+  const fresh = libraryPerTest(engine, { open: false });
   let app: FieldgapApp | undefined;
   let proxy: Proxy | undefined;
-  beforeEach(async () => {
-    where = await freshLibrary(engine);
-  });
+  // Registered after libraryPerTest, so it runs before the library is removed.
   afterEach(async () => {
     await app?.close();
     await proxy?.close();
-    await where.dispose();
   });
 
   it.runIf(engine === 'postgres')('answers 503 with Retry-After while the database is away, and recovers by itself', async () => {
     // The service reaches PostgreSQL through a proxy the test can cut, as a network or server outage would.
     const target = new URL(POSTGRES_TEST_URL!);
     proxy = await startProxy(Number(target.port), target.hostname);
-    if (where.location.engine !== 'postgres') return;
-    const url = new URL(where.location.url);
+    if (fresh.where.location.engine !== 'postgres') return;
+    const url = new URL(fresh.where.location.url);
     url.port = String(proxy.port);
-    const seeded = await where.open();
+    const seeded = await fresh.where.open();
     await seeded.add(handBuiltRecord({ sample: 'before the outage' }));
     await seeded.close();
     app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, database: url.toString() });

@@ -1,10 +1,9 @@
 import { createHash } from 'node:crypto';
-import { afterEach, beforeEach, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/command.js';
-import { runCli } from '../../src/cli/main.js';
+import { expect, it } from 'vitest';
 import { SCHEMA_VERSION } from '../../src/library/migrations.js';
-import { forEachEngine, freshLibrary, type TestLibrary } from './helpers/engines.js';
+import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
+import { runCliCaptured } from '../helpers/cli-run.js';
 
 /**
  * Users and groups in the library (schema step 4) and `fieldgap users`, on
@@ -13,18 +12,10 @@ import { handBuiltRecord } from './helpers/records.js';
  */
 
 forEachEngine('users and groups in the library', (engine) => {
-  let where: TestLibrary;
-  beforeEach(async () => {
-    where = await freshLibrary(engine);
-  });
-  afterEach(() => where.dispose());
+  const fresh = libraryPerTest(engine, { open: false });
 
-  async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-    let out = '';
-    let err = '';
-    const io: CliIo = { stdout: (t) => (out += t), stderr: (t) => (err += t), isTty: false, cwd: where.dir, env: { ...where.env } };
-    const code = await runCli(['users', ...args], io);
-    return { code, out, err };
+  function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
+    return runCliCaptured(['users', ...args], { cwd: fresh.where.dir, env: { ...fresh.where.env } });
   }
 
   it('users add | list | token | remove manage the users; the token is printed once and stored as its SHA-256', async () => {
@@ -34,18 +25,18 @@ forEachEngine('users and groups in the library', (engine) => {
     expect(token.code).toBe(0);
     const text = token.out.trim();
     expect(text).toMatch(/^[A-Za-z0-9_-]{43}$/);
-    expect(await where.scalar(`SELECT count(*) FROM tokens WHERE sha256 = '${createHash('sha256').update(text).digest('hex')}'`)).toBe(1);
+    expect(await fresh.where.scalar(`SELECT count(*) FROM tokens WHERE sha256 = '${createHash('sha256').update(text).digest('hex')}'`)).toBe(1);
     const listed = JSON.parse((await cli('list', '--json')).out) as { name: string; group: string; admin: boolean; tokens: number }[];
     expect(listed.map(({ name, group, admin, tokens }) => ({ name, group, admin, tokens }))).toEqual([
       { name: 'alice', group: 'labA', admin: false, tokens: 1 },
       { name: 'root', group: 'ops', admin: true, tokens: 0 },
     ]);
-    const library = await where.open();
+    const library = await fresh.where.open();
     try {
       expect(await library.users.resolveToken(text)).toEqual({ user: 'alice', group: 'labA', admin: false });
       expect((await cli('remove', 'alice')).code).toBe(0);
       expect(await library.users.resolveToken(text)).toBeUndefined();
-      expect(await where.scalar('SELECT count(*) FROM tokens')).toBe(0);
+      expect(await fresh.where.scalar('SELECT count(*) FROM tokens')).toBe(0);
     } finally {
       await library.close();
     }
@@ -64,7 +55,7 @@ forEachEngine('users and groups in the library', (engine) => {
   });
 
   it('a scoped view sees its group only; an administrator every record; records keep owner and group', async () => {
-    const library = await where.open();
+    const library = await fresh.where.open();
     try {
       await library.users.add('alice', 'labA');
       const a = library.scoped({ user: 'alice', group: 'labA', admin: false });
@@ -80,7 +71,7 @@ forEachEngine('users and groups in the library', (engine) => {
         await expect(attempt()).rejects.toMatchObject({ code: 'not-found', path: 'id' });
       }
       expect((await library.get(theirs.id)).note).toBe(theirs.note);
-      expect(await where.scalar(`SELECT count(*) FROM analyses WHERE id = ${theirs.id} AND owner = 'bob' AND group_name = 'labB'`)).toBe(1);
+      expect(await fresh.where.scalar(`SELECT count(*) FROM analyses WHERE id = ${theirs.id} AND owner = 'bob' AND group_name = 'labB'`)).toBe(1);
       // Closing a view leaves the library open.
       await a.close();
       expect((await library.list()).total).toBe(2);
@@ -90,13 +81,13 @@ forEachEngine('users and groups in the library', (engine) => {
   });
 
   it('two instances opening a fresh library at once apply the users step once', async () => {
-    const [one, two] = await Promise.all([where.open(), where.open()]);
+    const [one, two] = await Promise.all([fresh.where.open(), fresh.where.open()]);
     try {
       // One after the other: two SQLite connections of one process would wait on each other's lock synchronously.
       await one.users.add('alice', 'labA');
       await two.users.add('bob', 'labB');
       expect((await one.users.list()).map((u) => u.name)).toEqual(['alice', 'bob']);
-      const version = engine === 'sqlite' ? await where.scalar('PRAGMA user_version') : await where.scalar('SELECT version FROM fieldgap_schema');
+      const version = engine === 'sqlite' ? await fresh.where.scalar('PRAGMA user_version') : await fresh.where.scalar('SELECT version FROM fieldgap_schema');
       expect(version).toBe(SCHEMA_VERSION);
     } finally {
       await one.close();

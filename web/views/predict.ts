@@ -11,6 +11,7 @@ import * as api from '../api.js';
 import { h } from '../dom.js';
 import type { Prediction } from '../../src/series/predict.js';
 import { formatPlusMinus } from '../../src/report/plus-minus.js';
+import { probabilityText } from '../../src/report/probability.js';
 import { NO_SPIN_STATE_CHOICE } from '../../src/report/spin-state-wording.js';
 import type { ApiErrorBody } from '../types.js';
 
@@ -46,13 +47,6 @@ function requestPrediction(body: Record<string, unknown>): Promise<Prediction> {
 const cm = (x: number): string => Math.round(x).toLocaleString('en-US').replace(/,/g, ' ');
 const pmText = (value: number, sigma: number | undefined, digits = 0): string =>
   formatPlusMinus(value, sigma, { digits, number: (v, d) => (d === 0 ? cm(v) : v.toFixed(d)) });
-
-/** "P = 0.87", "P > 0.99", "P < 0.01". */
-function probabilityText(p: number): string {
-  if (p > 0.995) return 'P > 0.99';
-  if (p < 0.005) return 'P < 0.01';
-  return `P = ${p.toFixed(2)}`;
-}
 
 /** "high-spin (rule)", "low-spin, P = 0.97", "borderline: low-spin, P = 0.62". */
 export function spinHeadline(p: Prediction): string {

@@ -5,6 +5,7 @@
  */
 import { h } from '../dom.js';
 import { NO_SPIN_STATE_CHOICE } from '../../src/report/spin-state-wording.js';
+import { percentText as percentOf } from '../../src/report/probability.js';
 import { UNIT, dCountText, formatNumber, formatWithUncertainty, levelLabel, nmFromWavenumber, spinStateText } from '../format.js';
 import type { AnalysisEntry } from '../state.js';
 import type { Alternative, FitResult } from '../types.js';
@@ -63,10 +64,8 @@ export function parameterCards(fit: FitResult, original: FitResult | null): HTML
   );
 }
 
-/** 0.973 → "97 %"; below 0.1 % → "< 0.1 %". */
-function percentText(p: number): string {
-  return p < 0.001 ? '< 0.1 %' : `${(100 * p).toPrecision(p >= 0.995 ? 3 : 2)} %`;
-}
+/** 0.973 → "97 %"; below 0.1 % → "< 0.1 %" (src/report's wording, with the page's space before %). */
+const percentText = (p: number): string => percentOf(p, { space: true });
 
 /** "high spin 99 % · low spin 1 %" where the ion has a choice; the undetermined parameters otherwise. */
 function spinStateProbabilityText(fit: FitResult): string {

@@ -1,5 +1,6 @@
 import type { AnalyzeResult } from '../../analysis.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
+import { percentText } from '../../report/probability.js';
 import { textTableLines } from '../../report/text-table.js';
 
 /** The readable report of one analysed spectrum: what was measured, the bands, the fit. */
@@ -33,7 +34,7 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
   lines.push(`  beta        ${fit.beta === null ? 'not determined' : `${fit.beta.toFixed(3)} (B0 = ${fit.freeIonB} cm-1)`}`);
   lines.push(`  ground      ${fit.groundLabel}, ${fit.spinState}, ${fit.unpairedElectrons} unpaired, spin-only ${fit.spinOnlyMoment.toFixed(2)} μB`);
   lines.push(`  rms         ${fit.rmsResidual.toFixed(0)} cm-1 (${fit.message})`);
-  lines.push(`  assignment  probability ${percent(fit.probability)}${spinStates(fit.spinStateProbabilities)}`);
+  lines.push(`  assignment  probability ${percentText(fit.probability)}${spinStates(fit.spinStateProbabilities)}`);
   const warnings = result.warnings;
   if (warnings.length > 0) lines.push('', 'Warnings', ...warnings.map((w) => `  - ${w}`));
   lines.push('', 'Results are model estimates: check the assignment against the spectrum.');
@@ -44,13 +45,8 @@ function table(rows: string[][]): string[] {
   return textTableLines(rows, { indent: '  ' });
 }
 
-/** 0.9731 → "97%", tiny → "< 0.1%". */
-function percent(p: number): string {
-  return p < 0.001 ? '< 0.1%' : `${(100 * p).toPrecision(p >= 0.995 ? 3 : 2)}%`;
-}
-
 /** "; high-spin 99%, low-spin 1%" where the ion has a choice. */
 function spinStates(p: Partial<Record<string, number>>): string {
   const entries = Object.entries(p).filter(([key]) => key !== 'no-choice');
-  return entries.length ? `; ${entries.map(([key, v]) => `${key} ${percent(v ?? 0)}`).join(', ')}` : '';
+  return entries.length ? `; ${entries.map(([key, v]) => `${key} ${percentText(v ?? 0)}`).join(', ')}` : '';
 }

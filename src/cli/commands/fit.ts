@@ -8,6 +8,7 @@ import { checkFitBandCount } from '../../fit/band-count.js';
 import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
+import { percentText } from '../../report/probability.js';
 import { spinStateSentence } from '../../report/spin-state-wording.js';
 import { textTableLines } from '../../report/text-table.js';
 
@@ -176,8 +177,6 @@ export function fitJson(result: FitResult): object {
 }
 
 const fmt = (v: number, digits = 0) => v.toFixed(digits);
-/** 0.9731 → "97%"; below 0.1% → "< 0.1%". */
-const percent = (p: number) => (p < 0.001 ? '< 0.1%' : `${(100 * p).toPrecision(p >= 0.995 ? 3 : 2)}%`);
 /** A value and its uncertainty (shown even when zero), at `digits`. */
 const pm = (v: number, u: number | null, digits = 0) => formatPlusMinus(v, u, { digits, showZero: true });
 
@@ -209,7 +208,7 @@ export function fitReport(r: FitResult): string {
   lines.push(`LFSE = ${r.lfse.dq} Dq = ${fmt(r.lfse.cm1)} cm-1 (${r.lfse.configuration}; ${r.lfse.extraPairs} pair${r.lfse.extraPairs === 1 ? '' : 's'} beyond the free ion, pairing energy not included)`);
   lines.push(`Fit: ${r.message}; rms residual ${fmt(r.rmsResidual)} cm-1`);
   const spinChoice = Object.entries(r.spinStateProbabilities).filter(([key]) => key !== 'no-choice');
-  lines.push(`Probability of this assignment: ${percent(r.probability)}${spinChoice.length ? `; spin state: ${spinChoice.map(([key, p]) => `${key} ${percent(p ?? 0)}`).join(', ')}` : ''} (score ${fmt(r.score, 1)} = −2 ln p + const)`);
+  lines.push(`Probability of this assignment: ${percentText(r.probability)}${spinChoice.length ? `; spin state: ${spinChoice.map(([key, p]) => `${key} ${percentText(p ?? 0)}`).join(', ')}` : ''} (score ${fmt(r.score, 1)} = −2 ln p + const)`);
   for (const u of r.undetermined) lines.push(`Not determined by these bands: ${u.parameter === 'tenDq' ? '10Dq' : u.parameter.toUpperCase()} (${u.reason}); ${u.action}`);
   if (r.window) lines.push(`Measured range: ${fmt(r.window.min)}–${fmt(r.window.max)} cm-1 (${fmt(1e7 / r.window.max)}–${fmt(1e7 / r.window.min)} nm)`);
   lines.push('', 'Assignment (cm-1):');
@@ -222,7 +221,7 @@ export function fitReport(r: FitResult): string {
     lines.push('', 'Runners-up:');
     for (const alt of r.alternatives) {
       const params = `10Dq ${fmt(alt.tenDq)}${alt.b === null ? '' : `, B ${fmt(alt.b)}`}`;
-      lines.push(`  ${alt.assignments.map((a) => a.label).join(', ')}: ${params}, ${alt.spinState === 'no-choice' ? '' : `${alt.spinState}, `}rms ${fmt(alt.rmsResidual)} cm-1, probability ${percent(alt.probability)}`, `    not chosen: ${alt.reason}`);
+      lines.push(`  ${alt.assignments.map((a) => a.label).join(', ')}: ${params}, ${alt.spinState === 'no-choice' ? '' : `${alt.spinState}, `}rms ${fmt(alt.rmsResidual)} cm-1, probability ${percentText(alt.probability)}`, `    not chosen: ${alt.reason}`);
     }
   }
   lines.push('', `Predicted transitions below 50000 cm-1 (* spin-allowed):`);

@@ -2,6 +2,7 @@ import { invalidArgument } from '../../errors.js';
 import {
   computeFieldLevels, computeLevels, fieldLevelsDocument, GEOMETRIES, levelsDocument, type FieldLevelsResult, type LevelsResult,
 } from '../../ligand-field/index.js';
+import type { ResolvedParameters } from '../../ligand-field/field-levels.js';
 import type { Command } from '../command.js';
 import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
@@ -57,16 +58,10 @@ export function joinNegativeValues(argv: string[]): string[] {
   return out;
 }
 
-interface LevelsArgs {
+/** Dq, B, C with tetragonal Ds, Dt and spin–orbit ζ in cm-1 (Ds, Dt, ζ 0 when not given). */
+interface LevelsArgs extends ResolvedParameters {
   d: number;
   geometry: (typeof GEOMETRIES)[number];
-  dq: number;
-  b: number;
-  c: number;
-  /** Tetragonal Ds, Dt and spin–orbit ζ in cm-1; all 0 when not given. */
-  ds: number;
-  dt: number;
-  zeta: number;
   /** True when any of --ds, --dt, --zeta was given: the result beyond the cubic field. */
   beyondCubic: boolean;
   json: boolean;

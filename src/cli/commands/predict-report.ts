@@ -2,6 +2,7 @@ import { parseIon, romanOxidationState } from '../../chemistry/ions.js';
 import { boxArrows } from '../../predict/occupation.js';
 import type { Prediction, UsedFactor } from '../../series/predict.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
+import { probabilityText } from '../../report/probability.js';
 import { NO_SPIN_STATE_CHOICE } from '../../report/spin-state-wording.js';
 
 /**
@@ -60,13 +61,6 @@ const SUPERSCRIPT: Record<string, string> = { 0: '⁰', 1: '¹', 2: '²', 3: '³
 /** "t2g^6 eg^0" → "t2g⁶ eg⁰": the count as a superscript, so "t2⁴" is not read as "t24". */
 export function configurationText(configuration: string): string {
   return configuration.replace(/\^(\d)/g, (_m, digit: string) => SUPERSCRIPT[digit] ?? digit);
-}
-
-/** A probability for reading: "P = 0.87", "P > 0.99", "P < 0.01". */
-export function probabilityText(p: number): string {
-  if (p > 0.995) return 'P > 0.99';
-  if (p < 0.005) return 'P < 0.01';
-  return `P = ${p.toFixed(2)}`;
 }
 
 /** A horizontal bar of `value` on a scale whose full length is `max`. */

@@ -7,6 +7,7 @@ import { mkdir, mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import type { Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 import { launchBrowser, type Browser } from './browser.js';
 import { startService, type RunningService } from './server.js';
 import { demoFiles, type DemoFile } from './demo.js';
@@ -61,5 +62,37 @@ export async function openSession(): Promise<Session> {
       await service.stop();
       await rm(folder, { recursive: true, force: true });
     },
+  };
+}
+
+/**
+ * One session for the enclosing suite: opened before its first test (a
+ * generous limit: the page is built and Chromium started on a busy machine),
+ * closed after its last. The Session returned reads the open one, so a suite
+ * writes `const s = sessionPerSuite()` and uses `s.page` in its tests.
+ */
+export function sessionPerSuite(): Session {
+  let open: Session | undefined;
+  beforeAll(async () => {
+    open = await openSession();
+  }, 60_000);
+  afterAll(async () => {
+    await open?.close();
+    open = undefined;
+  });
+  const now = (): Session => {
+    if (open === undefined) throw new Error('sessionPerSuite: the session is open only while the suite runs');
+    return open;
+  };
+  return {
+    get service() { return now().service; },
+    get browser() { return now().browser; },
+    get page() { return now().page; },
+    get folder() { return now().folder; },
+    get files() { return now().files; },
+    get outside() { return now().outside; },
+    get problems() { return now().problems; },
+    get failed() { return now().failed; },
+    close: () => now().close(),
   };
 }

@@ -11,7 +11,11 @@ const fit: FitResult = {
   groundTerm: '3A2g', spinState: 'no-choice', unpairedElectrons: 2, spinOnlyMoment: 2.83, lfse: -10_200, rmsResidual: 40, status: 'converged',
   uncertainty: { tenDq: 60, b: 12, c: null },
   assignments: [{ observed: 8500, calculated: 8500, term: '3T2g', parent: '3F' }],
-  alternatives: [{ tenDq: 9100, b: 700, rmsResidual: 90, assignments: [] }],
+  // complete, as the core's Alternative (src/fit/types.ts): the page shows it through the core's fitWithAlternative
+  alternatives: [{
+    dq: 910, tenDq: 9100, b: 700, c: 3100, beta: 0.68, groundTerm: '3A2g', groundLabel: '3A2g(F)', spinState: 'no-choice',
+    rmsResidual: 90, chiSquare: 6, score: 14, probability: 0.08, penalties: [], assignments: [], reason: 'a larger RMS residual',
+  }],
   predicted: [], warnings: [],
 };
 
@@ -109,15 +113,16 @@ describe('warnings shown', () => {
     e.fit = { ...fit, warnings: ['new fit warning'] };
     expect(warningsFor(e)).toEqual(['edge modelled', 'fit: new fit warning']);
     e.shownAlternative = 0;
-    expect(warningsFor(e)).toEqual(['edge modelled']);
+    // an alternative's own warning is why it lost (fitWithAlternative, src/analysis-corrections.ts)
+    expect(warningsFor(e)).toEqual(['edge modelled', 'fit: alternative assignment: a larger RMS residual']);
   });
 
   it('an alternative shows no uncertainties and its own magnetism', () => {
     const e = entry();
-    e.fit = { ...fit, alternatives: [{ tenDq: 9000, b: 500, c: 2000, groundTerm: '1A1g', spinState: 'low-spin', assignments: [] }] };
+    e.fit = { ...fit, alternatives: [{ ...fit.alternatives![0]!, dq: 900, tenDq: 9000, b: 500, c: 2000, groundTerm: '1A1g', groundLabel: '1A1g(G)', spinState: 'low-spin' }] };
     e.shownAlternative = 0;
     const shown = shownFit(e)!;
-    expect(shown.uncertainty).toEqual({ tenDq: null, b: null, c: null });
+    expect(shown.uncertainty).toEqual({ tenDq: null, dq: null, b: null, c: null });
     expect(shown.unpairedElectrons).toBe(0);
     expect(shown.spinOnlyMoment).toBe(0);
     expect(shown.cOverB).toBe(4);

@@ -12,7 +12,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import pg from 'pg';
-import { describe, it } from 'vitest';
+import { afterEach, beforeEach, describe, it } from 'vitest';
 import Database from 'better-sqlite3';
 import { LIBRARY_FILE, openLibraryAt, type Library, type LibraryLocation, type LibraryOptions } from '../../../src/library/library.js';
 
@@ -28,6 +28,8 @@ export interface TestLibrary {
   flags: string[];
   /** Environment naming this library (FIELDGAP_DATA or FIELDGAP_DATABASE_URL). */
   env: Record<string, string>;
+  /** createApp options naming this library. */
+  app: { dataDir: string } | { database: string };
   /** One number from a SQL query run directly on the database, behind the library's back. */
   scalar(sql: string): Promise<number>;
   /** Runs SQL directly on the database (to break things on purpose). */
@@ -79,6 +81,7 @@ export async function freshLibrary(engine: EngineName): Promise<TestLibrary> {
       open: (options) => openLibraryAt(location, options),
       flags: ['--data', dataDir],
       env: { FIELDGAP_DATA: dataDir },
+      app: { dataDir },
       scalar: async (sql) => raw((db) => Number(Object.values(db.prepare(sql).get() as object)[0])),
       exec: async (sql) => raw((db) => void db.exec(sql)),
       dispose: async () => rmSync(dir, { recursive: true, force: true }),
@@ -93,6 +96,7 @@ export async function freshLibrary(engine: EngineName): Promise<TestLibrary> {
     open: (options) => openLibraryAt(location, options),
     flags: ['--database', url],
     env: { FIELDGAP_DATABASE_URL: url },
+    app: { database: url },
     scalar: async (sql) => {
       const rows = await adminQuery(`SET search_path = ${schema}; ${sql}`);
       return Number(Object.values(rows[0]!)[0]);
@@ -105,6 +109,57 @@ export async function freshLibrary(engine: EngineName): Promise<TestLibrary> {
       rmSync(dir, { recursive: true, force: true });
     },
   };
+}
+
+/** The library of the test running now, made by libraryPerTest. */
+export interface LibraryPerTest {
+  /** Where this test's library lives (its folder or schema, flags, environment). */
+  readonly where: TestLibrary;
+  /** The library opened there before the test (unless libraryPerTest was told open: false). */
+  readonly library: Library;
+  /** Closes the library and opens it again on a fresh connection (what a restart sees); the new one is `library`. */
+  reopen(): Promise<Library>;
+}
+
+/**
+ * Gives every test of the enclosing suite a fresh library of `engine`
+ * (freshLibrary), opened unless `open` is false, and closes and removes it
+ * after the test. Hooks registered later in the suite run inside these
+ * (vitest runs after-hooks in reverse), so a suite's own clean-up (a
+ * service, child processes) ends before the library goes.
+ */
+export function libraryPerTest(engine: EngineName, options: { open?: boolean } = {}): LibraryPerTest {
+  let where: TestLibrary | undefined;
+  let library: Library | undefined;
+  beforeEach(async () => {
+    where = await freshLibrary(engine);
+    if (options.open !== false) library = await where.open();
+  });
+  afterEach(async () => {
+    try {
+      await library?.close();
+    } finally {
+      await where?.dispose();
+      where = undefined;
+      library = undefined;
+    }
+  });
+  const current = {
+    get where(): TestLibrary {
+      if (where === undefined) throw new Error('libraryPerTest: there is a library only while a test runs');
+      return where;
+    },
+    get library(): Library {
+      if (library === undefined) throw new Error('libraryPerTest: no library is open (open: false, or outside a test)');
+      return library;
+    },
+    async reopen(): Promise<Library> {
+      await library?.close();
+      library = await current.where.open();
+      return library;
+    },
+  };
+  return current;
 }
 
 /** The test URL with a search_path, so a library lives in its own schema. */
