@@ -157,6 +157,14 @@ describe('seriesColumnsFromRow', () => {
     });
   });
 
+  it('reverses columns that came oldest first', () => {
+    const ascending = { ...row, id: '[3,5,9]' };
+    expect(seriesColumnsFromRow(ascending)).toEqual({
+      id: [9, 5, 3], sample: ['e', 'i', 'c'], formula: [null, '[Cr(H2O)6]3+', null], ligands: ['["F"]', '["H2O"]', '[]'],
+      tenDq: [3, 2, 1], tenDqSd: [null, 0.5, null], beta: [0.8, null, 0.7], betaSd: [0.01, null, null],
+    });
+  });
+
   it('reads no rows (PostgreSQL aggregates them to null) as empty columns', () => {
     const empty = Object.fromEntries(Object.keys(row).map((k) => [k, null]));
     expect(seriesColumnsFromRow(empty)).toEqual({ id: [], sample: [], formula: [], ligands: [], tenDq: [], tenDqSd: [], beta: [], betaSd: [] });
