@@ -58,6 +58,18 @@ async function* firstRecords(library: Library, count: number): AsyncGenerator<An
   }
 }
 
+/**
+ * The demo analysis with its 10Dq and β shifted by a deterministic amount per
+ * record (invented spread, up to ±5 % and ±0.05), so a series ranks varied
+ * values as a real library's would, not 100 000 equal ones.
+ */
+function variedResult(result: AnalyzeResult, i: number): AnalyzeResult {
+  const fit = result.fit;
+  if (!fit) return result;
+  const shift = ((i * 7_919) % 1_000) / 1_000 - 0.5;
+  return { ...result, fit: { ...fit, tenDq: fit.tenDq * (1 + 0.1 * shift), beta: fit.beta === null ? null : fit.beta + 0.1 * (((i * 104_729) % 1_000) / 1_000 - 0.5) } };
+}
+
 export async function run(): Promise<void> {
   const spectrum = readFileSync(join(ROOT, 'spectra-demo', 'cr-aqua.csv'));
   const options = { ion: 'Cr3+', fileName: 'cr-aqua.csv' };
@@ -124,7 +136,7 @@ export async function run(): Promise<void> {
             const content = Buffer.concat([Buffer.from(`# bench record ${i}\n`), spectrum]);
             originalBytes += content.length;
             const ligand = ligands[i % ligands.length]!;
-            batch.push({ sample: `bench ${ligand} ${i}`, ligands: [ligand], fileName: `run-${i}.csv`, content, options, result });
+            batch.push({ sample: `bench ${ligand} ${i}`, ligands: [ligand], fileName: `run-${i}.csv`, content, options, result: variedResult(result, i) });
           }
           const saved = await library.addMany(batch);
           const refused = saved.find((s) => s instanceof Error);
@@ -169,7 +181,7 @@ export async function run(): Promise<void> {
       process.stdout.write(
         `${engine.name} (load average ${loadavg().map((l) => l.toFixed(1)).join(' ')}): ${RECORDS} records added in ${(fillMs / 1000).toFixed(1)} s (${(RECORDS / (fillMs / 1000)).toFixed(0)} adds/s, ${FILL_BATCH} a transaction)\n` +
         `  list, a page of 50: median ${median(pages).toFixed(1)} ms (first 20 pages), last page ${deep.toFixed(1)} ms, search "urea" ${search.toFixed(1)} ms   target < 200 ms: ${Math.max(median(pages), deep, search) < 200 ? 'met' : 'NOT met'}\n` +
-        `  series of ${RECORDS} Cr3+ analyses: median ${seriesMs.toFixed(0)} ms (${median(seriesCpu).toFixed(0)} ms CPU)   target < 200 ms: ${seriesMs < 200 ? 'met' : 'NOT met'}\n` +
+        `  series of ${RECORDS} Cr3+ analyses: median ${seriesMs.toFixed(0)} ms (${median(seriesCpu).toFixed(0)} ms CPU; runs ${seriesRuns.map((t) => t.toFixed(0)).join(', ')} ms)   target < 200 ms: ${seriesMs < 200 ? 'met' : 'NOT met'}\n` +
         `  export of ${exported} records, streamed: CSV ${(exportMs / 1000).toFixed(2)} s (${(csvBytes / 1e6).toFixed(1)} MB), JSON of the full records ${(jsonMs / 1000).toFixed(2)} s (${(jsonBytes / 1e6).toFixed(0)} MB)   target < 10 s: ${Math.max(exportMs, jsonMs) < 10_000 ? 'met' : 'NOT met'}\n` +
         `  database ${(bytes / 1e6).toFixed(1)} MB for ${(originalBytes / 1e6).toFixed(1)} MB of originals: ${(bytes / originalBytes).toFixed(2)}× (bound 2× + 5 kB/record = ${(bound / 1e6).toFixed(1)} MB): ${bytes <= bound ? 'met' : 'NOT met'}\n`,
       );

@@ -15,6 +15,7 @@ import type { AnalyzeOptions } from './analysis.js';
 import { ANALYSIS_OPTION_NAMES, checkOneCMode, type AnalysisOptionKey } from './analysis-option-names.js';
 import { FieldgapError } from './errors.js';
 import { PARAMETER_BOUNDS } from './ligand-field/parameter-bounds.js';
+import { OVERLAP_CRITERIA } from './series/types.js';
 import { X_UNITS, Y_UNITS } from './spectrum/types.js';
 
 const positive = (description: string) => z.number().positive().finite().meta({ description });
@@ -39,6 +40,11 @@ export const formulaField = z.string().trim().min(1).max(200).meta({
 export const ligandsField = z
   .union([z.string().trim().min(1).max(200), z.array(z.string().trim().min(1).max(40)).max(12)])
   .meta({ description: 'Ligands for the 10Dq and β priors: "H2O", "NH3,Cl" or a list.', examples: ['H2O'] });
+
+/** A series's overlap criterion (`fieldgap series --criterion`, GET /series?criterion=). */
+export const criterionField = z.enum(OVERLAP_CRITERIA).meta({
+  description: 'When neighbours count as not resolved: |Δ| < k·sqrt(σ1² + σ2²) with k = 1 (default) or 2.',
+});
 
 /** Every analysis option a caller may give, in the pipeline's names; all optional. */
 export const ANALYSIS_OPTION_FIELDS = {
@@ -111,4 +117,16 @@ export function checkCliAnalysisOptions(options: AnalyzeOptions): AnalyzeOptions
   }
   checkOneCMode(options, 'cli');
   return options;
+}
+
+/**
+ * Checks one command-line option that has a field of its own in this schema
+ * (--formula, --ligands, --criterion) against that field, as the REST field
+ * of the same name is checked; an error names the option as typed ("--formula").
+ */
+export function checkCliOption<T>(field: z.ZodType<T>, value: unknown, name: string): T {
+  const result = field.safeParse(value);
+  if (result.success) return result.data;
+  const message = result.error.issues[0]?.message.replace(/^Invalid (input|option): /, '') ?? 'not a valid value';
+  throw new FieldgapError('invalid-argument', `--${name}: ${message}, got ${JSON.stringify(value)}`, `--${name}`);
 }

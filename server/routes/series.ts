@@ -19,6 +19,7 @@ import { parseFormula } from '../../src/chemistry/formula.js';
 import { ownFactorsFromFit, predictComplex, type PredictOptions } from '../../src/series/index.js';
 import type { Library } from '../../src/library/library.js';
 import { librarySeries } from '../../src/library/series.js';
+import { criterionField } from '../../src/analysis-option-schema.js';
 import { libraryFor } from '../security/scope.js';
 import { parseJsonBody, parseTextFields } from '../validate.js';
 
@@ -28,9 +29,7 @@ export interface SeriesRouterDeps {
 
 export const seriesQuery = z.strictObject({
   ion: z.string().trim().min(1).max(40).meta({ description: 'The metal ion whose analyses to rank, e.g. "Cr3+".', examples: ['Cr3+'] }),
-  criterion: z.enum(['one-sigma', 'two-sigma']).optional().meta({
-    description: 'When neighbours count as not resolved: |Δ| < k·sqrt(σ1² + σ2²) with k = 1 (default) or 2.',
-  }),
+  criterion: criterionField.optional(),
 });
 
 export const predictBody = z.strictObject({

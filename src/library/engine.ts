@@ -42,10 +42,12 @@ export interface DialectSql {
   like: string;
   /** Appended to a SELECT of the record row that a write will change, to lock it against concurrent writers. */
   lockRow: string;
+  /** The aggregate that makes a JSON array of a column's values in the order the rows come (SQLite gives its text, PostgreSQL json). */
+  jsonArray: string;
 }
 
 export const DIALECT_SQL: Record<Dialect, DialectSql> = {
   // SQLite's LIKE ignores ASCII case; one writer at a time holds the whole database.
-  sqlite: { like: 'LIKE', lockRow: '' },
-  postgres: { like: 'ILIKE', lockRow: ' FOR UPDATE' },
+  sqlite: { like: 'LIKE', lockRow: '', jsonArray: 'json_group_array' },
+  postgres: { like: 'ILIKE', lockRow: ' FOR UPDATE', jsonArray: 'json_agg' },
 };

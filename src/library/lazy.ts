@@ -42,6 +42,7 @@ export function lazyLibrary(engine: Library['engine'], open: () => Promise<Libra
     list: async (options) => (await library()).list(options),
     listAll: async (filter) => (await library()).listAll(filter),
     listFits: async (filter) => (await library()).listFits(filter),
+    seriesColumns: async (ion) => (await library()).seriesColumns(ion),
     listPages: (filter, pageSize) => ({
       async *[Symbol.asyncIterator]() {
         yield* (await library()).listPages(filter, pageSize);

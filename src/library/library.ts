@@ -5,6 +5,7 @@ import { checkId, jsonText, notFound, originalBytes, pageNumber, sha256Hex, word
 import type { Library, LibraryLocation, LibraryOptions } from './library-api.js';
 import { openPostgresEngine } from './postgres-engine.js';
 import { fitParams, likeWord, revisionFromRow, SUMMARY_SELECT, summaryFromRow, type FitColumns, type RevisionRow, type SummaryRow } from './rows.js';
+import { seriesColumnsFromRow, seriesColumnsSql } from './series-columns.js';
 import { LIBRARY_FILE, openSqliteEngine } from './sqlite-engine.js';
 import { ionOfResult, summarizeResult } from './summary.js';
 import type {
@@ -278,6 +279,12 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
         if (row.ion !== null) fit.ion = row.ion;
         return fit;
       });
+    },
+
+    seriesColumns: async (ion: string) => {
+      const { where, params } = filterSql({ ion });
+      const row = await engine.read((tx) => tx.get<Record<string, unknown>>(seriesColumnsSql(sql.jsonArray, where), params));
+      return seriesColumnsFromRow(row);
     },
 
     get,

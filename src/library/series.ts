@@ -6,6 +6,7 @@ import { ligandLabels, rankCheckedByNephelauxetic, rankCheckedByTenDq } from '..
 import { validateSeriesAnalyses } from '../series/validate.js';
 import type { Library } from './library.js';
 import type { AnalysisDetails, SeriesFit } from './types.js';
+import { seriesFromColumns } from './series-from-columns.js';
 import { canonicalIon } from './validate.js';
 
 /** What one stored (or freshly made) analysis contributes to a series. */
@@ -74,19 +75,26 @@ function formulaShares(formula: string | undefined): LigandShare[] | undefined {
   }
 }
 
-/** Rankings and factors of the given analyses of `ion`. */
-export function buildSeries(ionText: string, sources: readonly SeriesSource[], options: RankOptions = {}): SeriesReport {
-  const ion = canonicalIon(ionText);
-  const analyses: SeriesAnalysis[] = [];
-  const skipped: SeriesSkip[] = [];
-  // Each distinct formula is read once (a library repeats a few formulas thousands of times); the shares are only read.
+/**
+ * formulaShares that reads each distinct formula once (a library repeats a
+ * few formulas thousands of times); the shares it gives are only read.
+ */
+export function formulaReader(): (formula: string | undefined) => LigandShare[] | undefined {
   const formulas = new Map<string | undefined, LigandShare[] | undefined>();
-  const readFormula = (formula: string | undefined) => {
+  return (formula) => {
     if (formulas.has(formula)) return formulas.get(formula);
     const shares = formulaShares(formula);
     formulas.set(formula, shares);
     return shares;
   };
+}
+
+/** Rankings and factors of the given analyses of `ion`. */
+export function buildSeries(ionText: string, sources: readonly SeriesSource[], options: RankOptions = {}): SeriesReport {
+  const ion = canonicalIon(ionText);
+  const analyses: SeriesAnalysis[] = [];
+  const skipped: SeriesSkip[] = [];
+  const readFormula = formulaReader();
   for (const source of sources) {
     const made = seriesAnalysisOf(source, readFormula);
     if (typeof made === 'string') skipped.push({ id: source.id, sample: source.sample, reason: made });
@@ -122,15 +130,27 @@ export function buildSeries(ionText: string, sources: readonly SeriesSource[], o
   };
 }
 
-/** The series of every analysis of `ion` in the library. */
+/**
+ * The series of every analysis of `ion` in the library: the records read as
+ * columns (library.seriesColumns) and ranked by seriesFromColumns, which gives
+ * buildSeries's report without an object per record on the way; when it
+ * cannot (a value buildSeries refuses, so its error names the analysis),
+ * buildSeries itself over the records read one by one.
+ */
 export async function librarySeries(library: Library, ion: string, options: RankOptions = {}): Promise<SeriesReport> {
   const label = canonicalIon(ion);
-  const sources = (await library.listFits({ ion: label })).map((r): SeriesSource => {
+  const columns = await library.seriesColumns(label);
+  const fast = columns === undefined ? undefined : seriesFromColumns(label, columns, formulaReader(), options);
+  return fast ?? buildSeries(label, await librarySources(library, label), options);
+}
+
+/** Every record of the ion `label` as buildSeries takes it, newest first. */
+export async function librarySources(library: Library, label: string): Promise<SeriesSource[]> {
+  return (await library.listFits({ ion: label })).map((r): SeriesSource => {
     const source: SeriesSource = { id: String(r.id), sample: r.sample, summary: r.summary };
     if (r.formula !== undefined) source.formula = r.formula;
     if (r.ligands !== undefined) source.ligands = r.ligands;
     if (r.ion !== undefined) source.ion = r.ion;
     return source;
   });
-  return buildSeries(label, sources, options);
 }

@@ -116,6 +116,24 @@ export interface FitRow extends Pick<AnalysisDetails, 'sample' | 'formula' | 'li
   summary: SeriesFit;
 }
 
+/**
+ * What a ligand series reads of every record of one ion, column by column
+ * (index i of each array is one record), newest first: the shape the
+ * engines return in one aggregated row (library.seriesColumns), read by
+ * src/library/series-columns.ts. `ligands` is each record's stored JSON text
+ * (a few distinct texts repeat over thousands of records); energies in cm-1.
+ */
+export interface SeriesColumns {
+  id: number[];
+  sample: string[];
+  formula: (string | null)[];
+  ligands: string[];
+  tenDq: (number | null)[];
+  tenDqSd: (number | null)[];
+  beta: (number | null)[];
+  betaSd: (number | null)[];
+}
+
 /** A full record: the summary plus the current options and result, and the revision history. */
 export interface AnalysisRecord extends AnalysisSummary {
   options: StoredOptions;

@@ -33,8 +33,9 @@ export interface SeriesAnalysis {
   b?: number;
 }
 
-/** How close two neighbours must be to be flagged as not resolved. */
-export type OverlapCriterion = 'one-sigma' | 'two-sigma';
+/** How close two neighbours must be to be flagged as not resolved (the one list the CLI and REST options read). */
+export const OVERLAP_CRITERIA = ['one-sigma', 'two-sigma'] as const;
+export type OverlapCriterion = (typeof OVERLAP_CRITERIA)[number];
 
 /** One analysis in its place in a ranking. */
 export interface RankedEntry {

@@ -4,7 +4,8 @@ import { invalidArgument, isFieldgapError } from '../../errors.js';
 import type { Ranking } from '../../series/index.js';
 import type { Command, CliIo } from '../command.js';
 import { expandInputPaths, readInputFile } from '../files.js';
-import { choiceOption, parseCommandArgs } from '../options.js';
+import { parseCommandArgs } from '../options.js';
+import { checkCliOption, criterionField } from '../../analysis-option-schema.js';
 import type { SeriesReport, SeriesSource } from '../../library/series.js';
 import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analysis-options.js';
 import { plusMinus, table, withLibrary } from './library.js';
@@ -64,7 +65,8 @@ export const seriesCommand: Command = {
     );
     if (values.ion === undefined) throw invalidArgument('--ion', '--ion is required: the metal ion of the series, e.g. --ion Cr3+');
     if (values.library && positionals.length > 0) throw invalidArgument('--library', 'give --library or FILES, not both');
-    const criterion = choiceOption('criterion', values.criterion, ['one-sigma', 'two-sigma'], 'one-sigma');
+    // The REST field's check (src/analysis-option-schema.ts); typed in any case, as the other choices are.
+    const criterion = values.criterion === undefined ? 'one-sigma' : checkCliOption(criterionField, values.criterion.trim().toLowerCase(), 'criterion');
     const { buildSeries, librarySeries } = await import('../../library/series.js');
     let report: SeriesReport;
     if (positionals.length === 0) {

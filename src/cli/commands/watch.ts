@@ -9,6 +9,7 @@ import type { CliIo, Command } from '../command.js';
 import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analysis-options.js';
 import { SPECTRUM_EXTENSIONS } from '../files.js';
 import { numberOption, parseCommandArgs } from '../options.js';
+import { checkCliOption, formulaField, ligandsField } from '../../analysis-option-schema.js';
 import { fillFromFormula, fitLine, type LibraryFlags } from './library.js';
 
 /**
@@ -97,8 +98,11 @@ export const watchCommand: Command = {
     }
     const options = analysisOptionsFrom(values);
     const details: { formula?: string; ligands?: string[] } = {};
-    if (values.formula !== undefined) details.formula = values.formula;
-    if (values.ligands !== undefined) details.ligands = values.ligands.split(',').map((l) => l.trim()).filter((l) => l !== '');
+    // Checked as the REST fields formula and ligands are (src/analysis-option-schema.ts), before any file is read.
+    if (values.formula !== undefined) details.formula = checkCliOption(formulaField, values.formula, 'formula');
+    if (values.ligands !== undefined) {
+      details.ligands = (checkCliOption(ligandsField, values.ligands, 'ligands') as string).split(',').map((l) => l.trim()).filter((l) => l !== '');
+    }
     fillFromFormula(values.formula, options, details, io);
     if (options.ion === undefined && options.d === undefined) throw invalidArgument('--ion', '--ion is required: the metal ion of the spectra in the folder');
     if (values.into !== undefined && (values.data !== undefined || values.database !== undefined)) {
