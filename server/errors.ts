@@ -136,6 +136,22 @@ function bestUnionIssue(issue: Issue & { code: 'invalid_union' }): Issue | undef
   return { ...best, path: [...issue.path, ...best.path] };
 }
 
+/**
+ * zod's default range message ("Too small: expected number to be >=0") in
+ * words a user reads: "must be ≥ 0", "at most 10 items". A schema's own
+ * message is kept (undefined here).
+ */
+function rangeWords(issue: Issue): string | undefined {
+  if ((issue.code !== 'too_small' && issue.code !== 'too_big') || !/^Too (small|big): /.test(issue.message)) return undefined;
+  const small = issue.code === 'too_small';
+  const bound = String(small ? issue.minimum : issue.maximum);
+  if (issue.origin === 'number' || issue.origin === 'bigint') {
+    return `must be ${small ? (issue.inclusive ? '≥' : '>') : issue.inclusive ? '≤' : '<'} ${bound}`;
+  }
+  const unit = issue.origin === 'array' || issue.origin === 'set' ? 'item' : issue.origin === 'string' ? 'character' : undefined;
+  return unit === undefined ? undefined : `must have ${small ? 'at least' : 'at most'} ${bound} ${unit}${bound === '1' ? '' : 's'}`;
+}
+
 /** One zod issue as a sentence that starts with the field it is about. */
 function issueMessage(issue: Issue, input: unknown): { path: string; message: string } {
   if (issue.code === 'invalid_union') {
@@ -155,7 +171,7 @@ function issueMessage(issue: Issue, input: unknown): { path: string; message: st
   if (issue.code === 'invalid_type') {
     detail = got === undefined ? `is required (${issue.expected})` : `expected ${issue.expected}, got ${describeValue(got)}`;
   } else if (issue.code === 'invalid_value' || issue.code === 'too_big' || issue.code === 'too_small') {
-    detail = `${detail.replace(/^Invalid option: /, '')}, got ${describeValue(got)}`;
+    detail = `${rangeWords(issue) ?? detail.replace(/^Invalid option: /, '')}, got ${describeValue(got)}`;
   }
   return { path, message: `${path}: ${detail}` };
 }

@@ -120,6 +120,40 @@ export async function startServer(options: ServeOptions = {}): Promise<RunningSe
   return { url: formatUrl(host, actualPort), token, port: actualPort, server, app, close };
 }
 
+/** What the service says when it starts: the address to open and, beyond loopback, which token each request needs. */
+export interface StartupFacts {
+  url: string;
+  host: string;
+  /** The service token, undefined on loopback (no token needed). */
+  token: string | undefined;
+  /** The token came from --token / FIELDGAP_TOKEN (never echoed). */
+  tokenGiven: boolean;
+  /** Users defined in the library; undefined when the library could not be asked. */
+  users: number | undefined;
+}
+
+/**
+ * The start lines of `fieldgap serve` (stdout: where it serves; stderr: what
+ * a request needs). With users in the library, beyond loopback, the service
+ * token is refused, so it is not offered: each user sends their own.
+ */
+export function startupMessage({ url, host, token, tokenGiven, users }: StartupFacts): { stdout: string; stderr: string } {
+  const api = `(API ${url}api/v1, press Ctrl-C to stop)`;
+  if (token === undefined) return { stdout: `fieldgap: serving on ${url} ${api}\n`, stderr: '' };
+  const beyondLoopback = !isLoopbackHost(host);
+  if (beyondLoopback && users !== undefined && users > 0) {
+    return {
+      stdout: `fieldgap: serving on ${url} (open ${url}?token=YOUR_TOKEN once in the browser) ${api}\n`,
+      stderr: `fieldgap: listening on ${host}: ${users} user${users === 1 ? ' is' : 's are'} defined in the library: each request needs its user's own token ("Authorization: Bearer TOKEN"; a new one with fieldgap users token NAME)\n`,
+    };
+  }
+  // A token the user chose is not echoed; a generated one must be, or nobody could use the service.
+  const pageUrl = tokenGiven ? `${url} (open ${url}?token=YOUR_TOKEN once in the browser)` : `${url}?token=${token}`;
+  let stderr = `fieldgap: listening on ${host}: every request needs the access token${tokenGiven ? '' : ` ${token}`} ("Authorization: Bearer TOKEN" for scripts)\n`;
+  if (beyondLoopback) stderr += "fieldgap: once users are defined (fieldgap users add), each request needs its user's own token instead\n";
+  return { stdout: `fieldgap: serving on ${pageUrl} ${api}\n`, stderr };
+}
+
 export interface ServeIo {
   stdout: (text: string) => void;
   stderr: (text: string) => void;
@@ -149,17 +183,11 @@ export async function runServe(argv: string[], io: ServeIo): Promise<number> {
     allowedHostNames,
     ...(givenToken ? { token: givenToken } : {}),
   });
-  if (running.token === undefined) {
-    io.stdout(`fieldgap: serving on ${running.url} (API ${running.url}api/v1, press Ctrl-C to stop)\n`);
-  } else {
-    // A token the user chose is not echoed; a generated one must be, or nobody could use the service.
-    const pageUrl = givenToken ? `${running.url} (open ${running.url}?token=YOUR_TOKEN once in the browser)` : `${running.url}?token=${running.token}`;
-    io.stdout(`fieldgap: serving on ${pageUrl} (API ${running.url}api/v1, press Ctrl-C to stop)\n`);
-    io.stderr(
-      `fieldgap: listening on ${host}: every request needs the access token${givenToken ? '' : ` ${running.token}`} ("Authorization: Bearer TOKEN" for scripts)\n`,
-    );
-    if (!isLoopbackHost(host)) io.stderr('fieldgap: once users are defined (fieldgap users add), each request needs its user\'s own token instead\n');
-  }
+  // Beyond loopback, users in the library replace the service token: say so rather than print a token that is refused.
+  const users = running.token === undefined || isLoopbackHost(host) ? 0 : await running.app.library.users.count().catch(() => undefined);
+  const start = startupMessage({ url: running.url, host, token: running.token, tokenGiven: givenToken !== undefined && givenToken !== '', users });
+  io.stdout(start.stdout);
+  io.stderr(start.stderr);
   // The library opens on first use; say now if it cannot, but serve anyway: it is retried on each request.
   await running.app.library.ping().then(
     () => io.stdout(`fieldgap: library: ${describeLocation(location)}${running.app.library.readOnly ? ' (read-only)' : ''}\n`),

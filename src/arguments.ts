@@ -23,7 +23,13 @@ export function parseCommandArgs<O extends Options>(
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
     const match = /'(-{1,2}[\w-]+)/.exec(message);
-    throw invalidArgument(match?.[1] ?? 'arguments', message.replace(/\. To specify.*$/s, ''));
+    const option = match?.[1] ?? 'arguments';
+    // "--bands -5,10": node's three-line "ambiguous" message becomes one line that says what to type.
+    const next = argv[argv.indexOf(option) + 1];
+    if (/is ambiguous/.test(message) && argv.includes(option) && next !== undefined) {
+      throw invalidArgument(option, `${option}: the value "${next}" starts with "-" and reads as an option: write ${option}=${next}`);
+    }
+    throw invalidArgument(option, message.replace(/\.?\s*To specify.*$/s, '').replace(/\s*\n\s*/g, ' '));
   }
 }
 

@@ -93,7 +93,7 @@ export function presentedToken(req: Request): string | undefined {
 function unauthorized(): FieldgapError {
   return new FieldgapError(
     'unauthorized',
-    'Authorization: this fieldgap service needs its access token: send "Authorization: Bearer TOKEN", or open the address it printed at start (…/?token=TOKEN) in the browser',
+    'Authorization: this fieldgap service needs an access token: your user\'s token (fieldgap users token NAME) or, while it has no users, the one it printed at start; send "Authorization: Bearer TOKEN", or open …/?token=TOKEN once in the browser',
     'Authorization',
   );
 }

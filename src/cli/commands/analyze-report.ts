@@ -2,6 +2,7 @@ import type { AnalyzeResult } from '../../analysis.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
 import { percentText } from '../../report/probability.js';
 import { textTableLines } from '../../report/text-table.js';
+import { spinStateSentence } from '../../report/spin-state-wording.js';
 
 /** The readable report of one analysed spectrum: what was measured, the bands, the fit. */
 export function formatAnalysisReport(label: string, result: AnalyzeResult): string {
@@ -30,15 +31,22 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
     v === null ? 'not determined' : `${formatPlusMinus(v, u, { digits })} ${unit}`.trimEnd();
   lines.push(`  10Dq        ${pm(fit.tenDq, fit.uncertainty.tenDq, 'cm-1')}`);
   lines.push(`  B           ${pm(fit.b, fit.uncertainty.b, 'cm-1')}`);
-  lines.push(`  C           ${pm(fit.c, fit.uncertainty.c, 'cm-1')}${fit.cMode === 'free' ? '' : ` (${fit.cMode === 'ratio' ? `C/B fixed at ${fit.cOverB?.toFixed(2)}` : 'fixed'})`}`);
-  lines.push(`  beta        ${fit.beta === null ? 'not determined' : `${fit.beta.toFixed(3)} (B0 = ${fit.freeIonB} cm-1)`}`);
-  lines.push(`  ground      ${fit.groundLabel}, ${fit.spinState}, ${fit.unpairedElectrons} unpaired, spin-only ${fit.spinOnlyMoment.toFixed(2)} μB`);
+  lines.push(`  C           ${pm(fit.c, fit.uncertainty.c, 'cm-1')}${cModeNote(fit)}`);
+  lines.push(`  beta        ${fit.beta === null ? 'not determined' : `${formatPlusMinus(fit.beta, fit.betaSd, { digits: 3 })} (B0 = ${fit.freeIonB} cm-1)`}`);
+  lines.push(`  ground      ${fit.groundLabel}, ${spinStateSentence(fit.spinState, fit.d, fit.geometry)}, ${fit.unpairedElectrons} unpaired, spin-only ${fit.spinOnlyMoment.toFixed(2)} μB`);
   lines.push(`  rms         ${fit.rmsResidual.toFixed(0)} cm-1 (${fit.message})`);
   lines.push(`  assignment  probability ${percentText(fit.probability)}${spinStates(fit.spinStateProbabilities)}`);
   const warnings = result.warnings;
   if (warnings.length > 0) lines.push('', 'Warnings', ...warnings.map((w) => `  - ${w}`));
   lines.push('', 'Results are model estimates: check the assignment against the spectrum.');
   return `${lines.join('\n')}\n`;
+}
+
+/** " (C/B fixed at 4.64)", " (fixed)", or nothing when C is fitted or not determined at all (d1, d9: no C/B to show). */
+function cModeNote(fit: NonNullable<AnalyzeResult['fit']>): string {
+  if (fit.cMode === 'free' || fit.c === null) return '';
+  if (fit.cMode === 'fixed') return ' (fixed)';
+  return fit.cOverB === null ? '' : ` (C/B fixed at ${fit.cOverB.toFixed(2)})`;
 }
 
 function table(rows: string[][]): string[] {
