@@ -6,6 +6,7 @@
 import type { AnalysisEntry } from './state.js';
 import { shownFit, warningsFor } from './state.js';
 import { assignmentForBand, bandCaption } from './plots/spectrum-spec.js';
+import { nmFromWavenumber } from './format.js';
 import { csvText, type CsvCell } from '../src/report/csv.js';
 import { resultsCsv } from '../src/report/results-csv.js';
 
@@ -68,7 +69,7 @@ export function resultCsv(entry: AnalysisEntry): string {
     rows.push([
       i + 1,
       band.position,
-      Number((1e7 / band.position).toFixed(1)),
+      Number(nmFromWavenumber(band.position).toFixed(1)),
       cell(band.epsilon),
       band.kind,
       band.shoulder ? 'yes' : 'no',

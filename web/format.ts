@@ -2,7 +2,9 @@
  * Number and unit formatting for display. Values arrive in cm-1; nm only
  * appears here, at the edge. Pure functions, unit-tested in tests/e2e/.
  */
+import { levelLabel as engineLevelLabel } from '../src/ligand-field/labels.js';
 import { formatPlusMinus } from '../src/report/plus-minus.js';
+import { wavenumberToValue } from '../src/spectrum/units.js';
 
 export const UNIT = {
   wavenumber: 'cm⁻¹',
@@ -11,9 +13,9 @@ export const UNIT = {
   moment: 'μB',
 } as const;
 
-/** nm ↔ cm-1: the conversion is its own inverse (1e7 / x). */
+/** cm-1 → nm, the core's conversion (src/spectrum/units.ts: λ = 10^7 / ν̃). */
 export function nmFromWavenumber(wavenumber: number): number {
-  return 1e7 / wavenumber;
+  return wavenumberToValue(wavenumber, 'nm');
 }
 
 export { decimalsForUncertainty } from '../src/report/plus-minus.js';
@@ -51,13 +53,13 @@ export function plainNumber(value: number | null | undefined, decimals?: number)
 
 /**
  * A level's display name: the service's label when it sent one, else the
- * term with the parent's letter (and repeat number) but not its multiplicity,
- * as DEVELOPERS.md writes them: ("4T1g", "4P") → "4T1g(P)", ("2T2g", "2D2") → "2T2g(D2)".
+ * engine's label of term and parent (src/ligand-field/labels.ts):
+ * ("4T1g", "4P") → "4T1g(P)", ("2T2g", "2D2") → "2T2g(D2)"; the term alone without a parent.
  */
 export function levelLabel(term: string, parent: string | undefined, label?: string): string {
   if (label !== undefined && label !== '') return label;
   if (parent === undefined || parent === '') return term;
-  return `${term}(${parent.replace(/^\d+/, '')})`;
+  return engineLevelLabel(term, parent);
 }
 
 /** "high-spin" → "high spin"; unknown words pass through (src/report's one wording). */

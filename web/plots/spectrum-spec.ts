@@ -2,13 +2,14 @@
  * PlotSpecs for a spectrum: the measured signal, the baseline, each fitted
  * band on the baseline and their sum, each band labelled with its
  * assignment; the residual of the band model; and an overlay of several
- * spectra. Data arrive in cm-1; the nm axis is made here by 1e7/x and a
+ * spectra. Data arrive in cm-1; the nm axis is made here by the core's 10^7/x (src/spectrum/units.ts) and a
  * reversal so x stays ascending.
  */
 import type { Assignment, Curves, MaskedRange } from '../types.js';
 import type { EditableBand } from '../state.js';
 import type { Mark, PlotSpec, SeriesSpec } from './spec.js';
 import { levelLabel } from '../format.js';
+import { valueToWavenumber, wavenumberToValue } from '../../src/spectrum/units.js';
 import { splitPairLimit } from '../../src/fit/penalties.js';
 import { dataRange } from './spec.js';
 
@@ -29,11 +30,16 @@ export function axisValues(gridCm: readonly number[], unit: AxisUnit): { x: numb
   const order = gridCm.map((_, i) => i);
   if (unit === 'cm-1') return { x: [...gridCm], order };
   order.reverse();
-  return { x: order.map((i) => 1e7 / gridCm[i]!), order };
+  return { x: order.map((i) => toAxis(gridCm[i]!, unit)), order };
 }
 
+/** A wavenumber (cm-1) on the axis, and back: the core's conversions (src/spectrum/units.ts). */
 export function toAxis(wavenumber: number, unit: AxisUnit): number {
-  return unit === 'nm' ? 1e7 / wavenumber : wavenumber;
+  return wavenumberToValue(wavenumber, unit);
+}
+
+export function fromAxis(value: number, unit: AxisUnit): number {
+  return valueToWavenumber(value, unit);
 }
 
 /**

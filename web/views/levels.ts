@@ -6,6 +6,7 @@
  */
 import * as api from '../api.js';
 import { h } from '../dom.js';
+import { nmFromWavenumber } from '../format.js';
 
 interface Field {
   name: keyof api.FieldLevelsQuery;
@@ -45,7 +46,7 @@ function table(answer: api.FieldLevelsAnswer): HTMLElement {
     h('tbody', {}, answer.levels.map((level, i) => h('tr', {},
       h('td', {}, level.term),
       h('td', { class: 'num' }, level.energy.toFixed(0)),
-      h('td', { class: 'num' }, i === 0 || level.energy === 0 ? '' : (1e7 / level.energy).toFixed(0)),
+      h('td', { class: 'num' }, i === 0 || level.energy === 0 ? '' : nmFromWavenumber(level.energy).toFixed(0)),
       h('td', { class: 'num' }, String(level.degeneracy)),
       h('td', {}, level.parent),
       spinOrbit ? h('td', { class: 'num' }, `${(100 * level.parentWeight).toFixed(0)} %`) : null,

@@ -14,7 +14,7 @@ import type { PlotSpec } from '../plots/spec.js';
 import { svgFromSpec } from '../plots/svg.js';
 import { BoundedCache } from '../plots/lru.js';
 import type { AxisUnit } from '../plots/spectrum-spec.js';
-import { residualSpec, spectrumSpec } from '../plots/spectrum-spec.js';
+import { fromAxis, residualSpec, spectrumSpec } from '../plots/spectrum-spec.js';
 import { diagramRangeFor, diagramSpec } from '../plots/diagram-spec.js';
 
 export interface PlotHandlers {
@@ -126,7 +126,7 @@ export function spectrumFigures(entry: AnalysisEntry, unit: AxisUnit, pickArmed:
   const element = dress(slot, 'Spectrum, baseline and fitted bands', toolbar('spectrum', stem, [unitSwitch]), pickArmed ? 'Click where the new band has its maximum.' : 'Drag across the plot to zoom; double-click or Reset zoom to see it all.');
   slot.host.classList.toggle('picking', pickArmed);
   slot.pick = (x) => {
-    if (pickArmed) handlers.onPick(unit === 'nm' ? 1e7 / x : x);
+    if (pickArmed) handlers.onPick(fromAxis(x, unit));
   };
   const assignments = fit?.assignments ?? [];
   // The bands are edited in place, so they are compared by content.
