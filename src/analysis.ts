@@ -8,9 +8,10 @@ import { checkCorrections, fitWithAlternative, type AnalysisCorrections } from '
 import { parseFormula } from './chemistry/formula.js';
 import { FieldgapError, invalidArgument } from './errors.js';
 import { bandToFitInput } from './band-fit-input.js';
-import { fitLigandField, type FitResult } from './fit/index.js';
+import { fitLigandField, type BandInput, type FitResult } from './fit/index.js';
 import type { Geometry } from './ligand-field/types.js';
 import { gaussianValue } from './spectrum/gaussian.js';
+import { bandsOnEdge } from './spectrum/bands-on-edge.js';
 import { parseSpectrumText, processSpectrum } from './spectrum/index.js';
 import { parseIon } from './chemistry/ions.js';
 import type { Band, MaskedRegion, ParsedFile, Spectrum, StepCorrection, XUnit, YUnit } from './spectrum/types.js';
@@ -138,26 +139,32 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
     }
     throw new FieldgapError('unexplained', `no d–d bands to fit: ${found} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`, where);
   }
+  const fitOf = (bands: BandInput[]): FitResult => fitLigandField({
+    ...(options.ion !== undefined && { ion: options.ion }),
+    ...(options.d !== undefined && { d: options.d }),
+    geometry,
+    bands,
+    ...(options.cOverB !== undefined && { cOverB: options.cOverB }),
+    ...(options.c !== undefined && { c: options.c }),
+    ...(options.freeC !== undefined && { freeC: options.freeC }),
+    ...(options.formula !== undefined && { formula: options.formula }),
+    ...(options.ligands !== undefined && { ligands: options.ligands }),
+    // The measured range: a strong transition predicted inside it must show a band.
+    window: { min: processed.range[0], max: processed.range[1] },
+  });
   let fit: FitResult;
   try {
-    fit = fitLigandField({
-      ...(options.ion !== undefined && { ion: options.ion }),
-      ...(options.d !== undefined && { d: options.d }),
-      geometry,
-      bands: corrections?.bands ?? processed.bands.map(bandToFitInput),
-      ...(options.cOverB !== undefined && { cOverB: options.cOverB }),
-      ...(options.c !== undefined && { c: options.c }),
-      ...(options.freeC !== undefined && { freeC: options.freeC }),
-      ...(options.formula !== undefined && { formula: options.formula }),
-      ...(options.ligands !== undefined && { ligands: options.ligands }),
-      // The measured range: a strong transition predicted inside it must show a band.
-      window: { min: processed.range[0], max: processed.range[1] },
-    });
+    fit = fitOf(corrections?.bands ?? processed.bands.map(bandToFitInput));
   } catch (error) {
     if (error instanceof FieldgapError && error.code === 'unexplained') {
-      throw new FieldgapError('unexplained', `${error.message} (bands found at ${positions(processed.bands)} cm-1)`, where);
-    }
-    throw error;
+      // A shoulder riding on the charge-transfer edge may be a piece of the edge: when no assignment takes the bands as
+      // found, it is left to the edge (flagged charge transfer) and the fit tried once more; it says so.
+      const riding = corrections?.bands === undefined ? bandsOnEdge(processed.bands, processed.edge).filter((k) => processed.bands[k]!.kind !== 'charge-transfer') : [];
+      const retried = riding.length === 0 ? null : fitOrNull(() => fitOf(processed.bands.map((b, k) => bandToFitInput(riding.includes(k) ? { ...b, kind: 'charge-transfer' } : b))));
+      if (retried === null) throw new FieldgapError('unexplained', `${error.message} (bands found at ${positions(processed.bands)} cm-1)`, where);
+      fit = retried;
+      warnings.push(`the band${riding.length > 1 ? 's' : ''} at ${riding.map((k) => Math.round(processed.bands[k]!.position)).join(', ')} cm-1, a shoulder on the charge-transfer edge, left to the edge: no assignment takes ${riding.length > 1 ? 'them' : 'it'} as a d–d band beside the others`);
+    } else throw error;
   }
   if (corrections?.alternative !== undefined) fit = fitWithAlternative(fit, corrections.alternative);
   const result: AnalyzeResult = {
@@ -221,6 +228,16 @@ function dCountOf(ion: string | undefined): number | undefined {
     return parseIon(ion).d;
   } catch {
     return undefined;
+  }
+}
+
+/** The fit, or null when it refuses the bands as unexplained. */
+function fitOrNull(fit: () => FitResult): FitResult | null {
+  try {
+    return fit();
+  } catch (error) {
+    if (error instanceof FieldgapError && error.code === 'unexplained') return null;
+    throw error;
   }
 }
 
