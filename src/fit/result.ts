@@ -259,6 +259,9 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   if (settings.b0 === null && settings.ion === null) notes.push('beta is null: no ion was given (only d), so no free-ion B0');
   else if (settings.b0 === null) notes.push(`beta is null: no free-ion B0 is tabulated for ${settings.ion!.label}`);
   if (settings.freeIonSource) notes.push(`free-ion B0, C0: ${settings.freeIonSource}`);
+  if (settings.treesUsed) {
+    notes.push(`Trees correction α·L(L+1) ${settings.alphaFree ? 'fitted' : 'fixed'}: α = ${(best.params.alpha ?? settings.alpha).toFixed(1)} cm-1; B, C and 10Dq are those of that model (higher B, lower 10Dq than a fit without α)`);
+  }
   const unassigned = [
     ...sorted.chargeTransfer.map((b) => ({ observed: round(b.position), band: b.index, reason: 'charge-transfer band: left out of the fit' })),
     ...variant.dropped.map((o) => ({ observed: round(o.position), band: o.bands[0]!, reason: 'left unexplained by the chosen assignment' })),
@@ -281,9 +284,11 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
       return { ...l, cm1: round(l.cm1) };
     })(),
     rmsResidual: round(best.wrms), status: status.status, message: status.message, evaluations: status.evaluations,
+    ...(settings.treesUsed ? { alpha: round(best.params.alpha ?? settings.alpha, 1) } : {}),
     uncertainty: {
       tenDq: nullableRound(uncertainty.tenDq), dq: nullableRound(uncertainty.dq, 2),
       b: nullableRound(uncertainty.b), c: nullableRound(uncertainty.c),
+      ...(uncertainty.alpha !== undefined ? { alpha: nullableRound(uncertainty.alpha, 1) } : {}),
     },
     betaSd: betaSdOf(nullableRound(uncertainty.b), settings.b0),
     correlation: {
