@@ -9,6 +9,8 @@
  * 80 (1958) 6471; both from memory).
  */
 import { describe, expect, it } from 'vitest';
+import type { CliIo } from '../../src/cli/command.js';
+import { runCli } from '../../src/cli/main.js';
 import { FieldgapError } from '../../src/errors.js';
 import { fitLigandField } from '../../src/fit/index.js';
 import { computeLevels } from '../../src/ligand-field/index.js';
@@ -64,5 +66,31 @@ describe('fit with the Trees correction', () => {
       expect(error).toBeInstanceOf(FieldgapError);
       expect((error as FieldgapError).path).toBe('trees');
     }
+  });
+});
+
+describe('fit --trees on the command line', () => {
+  async function run(argv: string[]) {
+    let stdout = '';
+    let stderr = '';
+    const io: CliIo = { stdout: (t) => (stdout += t), stderr: (t) => (stderr += t), isTty: false, cwd: '/', env: {} };
+    const code = await runCli(argv, io);
+    return { code, stdout, stderr };
+  }
+
+  it('--trees free prints α with its ±, and --json gives alpha and uncertainty.alpha', async () => {
+    const text = await run(['fit', '--ion', 'Mn2+', '--bands', MN_AQUA_7, '--free-c', '--trees', 'free']);
+    expect(text.code).toBe(0);
+    expect(text.stdout).toMatch(/α {4}= \d+\.\d ± \d+\.\d cm-1 {3}Trees correction/);
+    const json = await run(['fit', '--ion', 'Mn2+', '--bands', MN_AQUA_7, '--free-c', '--trees', 'free', '--json']);
+    const parsed = JSON.parse(json.stdout) as { alpha: number; uncertainty: { alpha: number } };
+    expect(typeof parsed.alpha).toBe('number');
+    expect(typeof parsed.uncertainty.alpha).toBe('number');
+  }, SLOW_MS);
+
+  it('a bad --trees names the option', async () => {
+    const bad = await run(['fit', '--ion', 'Mn2+', '--bands', '18900,23100,25000', '--trees', 'lots']);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toContain('--trees');
   });
 });
