@@ -56,8 +56,10 @@ export const PUBLISHED_SETS: readonly PublishedSet[] = [
   { id: 'ni2-ammine', complex: '[Ni(NH3)6]2+', ion: 'Ni2+', geometry: 'octahedral', bands: '10750,17500,28200', tenDq: 10750, b: 880, spinState: 'no-choice', source: JORGENSEN('f(NH3)·g(Ni2+) = 10 875, an estimate within 1.2 %') },
   // Measured lines with their published analysis (found): Ni2+ in MgO, Phys. Rev. (1958), abstract via
   // preview.concepedia.online/publication/W4254481442: lines 8600, 13 400, (14 800), (21 550), 24 500, … cm-1, Dq = 860,
-  // E_P = 13 000 (B ≈ 867). The spin-allowed three; which line is which is common practice for d8, not stated in the abstract.
-  { id: 'ni2-mgo', complex: 'Ni2+ in MgO (crystal)', ion: 'Ni2+', geometry: 'octahedral', bands: '8600,13400,24500', tenDq: 8600, b: 867, spinState: 'no-choice', source: 'Paramagnetic and Optical Spectra of Divalent Nickel in Cubic Crystalline Fields, Phys. Rev. (1958): Dq 860, E_P 13 000 cm-1 (found)' },
+  // E_P = 13 000 (B ≈ 867). The spin-allowed lines with 14 800, the 1Eg(D) partner that spin–orbit coupling mixes with
+  // 3T1g(F) at 13 400 (their barycentre is the spin-allowed energy; common practice for d8, not stated in the abstract).
+  // Without 14 800 the fit gives 10Dq 8 225 (−4.4 %): the cubic model puts 3T1g(F) near 14 100, not at 13 400.
+  { id: 'ni2-mgo', complex: 'Ni2+ in MgO (crystal)', ion: 'Ni2+', geometry: 'octahedral', bands: '8600,13400,14800,24500', tenDq: 8600, b: 867, spinState: 'no-choice', source: 'Paramagnetic and Optical Spectra of Divalent Nickel in Cubic Crystalline Fields, Phys. Rev. (1958): Dq 860, E_P 13 000 cm-1 (found)' },
   { id: 'ni2-tet-cl', complex: '[NiCl4]2-', ion: 'Ni2+', geometry: 'tetrahedral', bands: '7550,14250', tenDq: 4100, b: null, spinState: 'no-choice', source: LEVER },
   { id: 'ti3-aqua', complex: '[Ti(H2O)6]3+', ion: 'Ti3+', geometry: 'octahedral', bands: '20300', tenDq: 20300, b: null, spinState: 'no-choice', source: LEVER },
   { id: 'v2-aqua', complex: '[V(H2O)6]2+', ion: 'V2+', geometry: 'octahedral', bands: '12350,18500,27900', tenDq: 12350, b: null, spinState: 'no-choice', source: JORGENSEN('g(V2+) = 12 000, 2.8 % below this 10Dq') },
