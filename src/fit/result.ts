@@ -328,21 +328,25 @@ function restingOnWeakBands(best: Evaluated, settings: FitSettings): Array<{ par
   const out: Array<{ parameter: 'b' | 'tenDq'; reason: string; action: string; warning: string }> = [];
   if (branch.allowed.length === 0) return out;
   const allowed = new Set(branch.allowed);
-  const assignedAllowed = new Set(best.levelIndices.filter((k) => allowed.has(k)));
-  const assignedForbidden = best.levelIndices.filter((k) => !allowed.has(k)).length;
-  if (best.bDetermined && assignedAllowed.size === 1 && assignedForbidden > 0) {
+  // A band flagged spin-forbidden on a weak spin-allowed level (flaggedClass, enumerate.ts) is as weak a support as a spin-forbidden one.
+  const strong = (k: number, i: number) => allowed.has(k) && i < variant.nPrimary;
+  const assignedAllowed = new Set(Array.from(best.levelIndices).filter((k, i) => strong(k, i)));
+  const assignedWeak = Array.from(best.levelIndices).filter((k, i) => !strong(k, i));
+  const weakAllowed = assignedWeak.some((k) => allowed.has(k));
+  if (best.bDetermined && assignedAllowed.size === 1 && assignedWeak.length > 0) {
+    const which = weakAllowed ? 'the weak (flagged) ones' : 'the spin-forbidden ones';
     out.push({
       parameter: 'b',
-      reason: 'one band is assigned to a spin-allowed transition; B rests on the assignment of the spin-forbidden ones',
+      reason: `one band is assigned to a strong spin-allowed transition; B rests on the assignment of ${which}`,
       action: 'reported, but not determined by spin-allowed bands',
-      warning: `B = ${Math.round(best.params.b)} cm-1 is not determined by spin-allowed bands: one band is spin-allowed and B rests on which spin-forbidden transitions the others are`,
+      warning: `B = ${Math.round(best.params.b)} cm-1 is not determined by spin-allowed bands: one band is a strong spin-allowed one and B rests on which ${weakAllowed ? 'weak (spin-forbidden or two-electron)' : 'spin-forbidden'} transitions the others are`,
     });
     if (dqOnlyLevel(scan, branch) !== [...assignedAllowed][0]) {
       out.push({
         parameter: 'tenDq',
-        reason: 'one band is assigned to a spin-allowed transition whose energy depends on B; B rests on the spin-forbidden ones',
+        reason: `one band is assigned to a strong spin-allowed transition whose energy depends on B; B rests on ${which}`,
         action: 'reported, but not determined by spin-allowed bands',
-        warning: `10Dq = ${Math.round(10 * best.params.dq)} cm-1 is not determined by spin-allowed bands alone: it rests on B, and B on the spin-forbidden assignment`,
+        warning: `10Dq = ${Math.round(10 * best.params.dq)} cm-1 is not determined by spin-allowed bands alone: it rests on B, and B on the ${weakAllowed ? 'weak bands\' assignment' : 'spin-forbidden assignment'}`,
       });
     }
   }
