@@ -94,3 +94,17 @@ describe('fit --trees on the command line', () => {
     expect(bad.stderr).toContain('--trees');
   });
 });
+
+describe('the note that suggests the Trees term (trees-suggestion.ts)', () => {
+  it('seven Mn(II) quartets without trees: the note gives the α model; the result itself stays the cubic one', () => {
+    const r = fitLigandField({ ion: 'Mn2+', bands: MN_AQUA_7, freeC: true });
+    expect(r.alpha).toBeUndefined();
+    expect(r.notes.some((n) => n.startsWith('the Trees correction α·L(L+1) explains these bands markedly better'))).toBe(true);
+  }, SLOW_MS);
+
+  it('no note where α gains little (the six quartets below 30 000 cm-1) or cannot be judged (two bands)', () => {
+    const six = fitLigandField({ ion: 'Mn2+', bands: MN_AQUA_7.split(',').slice(0, 6).join(','), freeC: true });
+    const two = fitLigandField({ ion: 'Cr3+', bands: '17400,24600' }); // Lever (1984), from memory
+    for (const r of [six, two]) expect(r.notes.some((n) => n.startsWith('the Trees correction'))).toBe(false);
+  }, SLOW_MS);
+});
