@@ -26,6 +26,7 @@ export function toFitInput(body: FitBody): FitInput {
   if (body.cOverB !== undefined) input.cOverB = body.cOverB;
   if (body.c !== undefined) input.c = body.c;
   if (body.freeC !== undefined) input.freeC = body.freeC;
+  if (body.trees !== undefined) input.trees = body.trees;
   if (body.formula !== undefined) input.formula = body.formula;
   if (body.ligands !== undefined) input.ligands = body.ligands;
   if (body.window !== undefined) input.window = body.window;

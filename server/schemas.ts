@@ -108,6 +108,7 @@ export const fitBody = z
     cOverB: cOverBField.optional(),
     c: cField.optional(),
     freeC: z.boolean().optional().meta({ description: 'Fit C as a free parameter (needs enough bands).' }),
+    trees: z.union([z.literal('free'), z.number().min(-500).max(500)]).optional().meta({ description: 'The Trees correction α·L(L+1): α fixed in cm-1, or "free" to fit it. Default: none.' }),
     formula: formulaField.optional(),
     ligands: ligandsField.optional(),
     window: z

@@ -19,6 +19,7 @@
  */
 import { forEachCombination } from './combinations.js';
 import type { LevelScan } from './scan.js';
+import { twoElectronLevels } from './two-electron.js';
 
 export interface Branch {
   /** ids index of the assumed ground level. */
@@ -125,9 +126,24 @@ export function degenerateTwins(scan: LevelScan): Int32Array {
 
 
 /**
+ * The levels a band flagged spin-forbidden may take: the spin-forbidden ones,
+ * and the two-electron spin-allowed ones (two-electron.ts: 4A2g of high-spin
+ * octahedral Co(II), 3A2g of V(III)). The flag says "weak, well below the
+ * spin-allowed bands" (a user's reading, or the spectrum stage's, which
+ * judges by intensity only), and those spin-allowed transitions are weak in
+ * just that way (common practice: ε about a tenth of the one-electron bands);
+ * the intensity term (penalties.ts) then scores the band as two-electron.
+ */
+export function flaggedClass(scan: LevelScan, branch: Branch): number[] {
+  if (primaryClass(branch).forbidden) return branch.forbidden;
+  const two = twoElectronLevels(scan, branch.ground);
+  return [...branch.forbidden, ...branch.allowed.filter((k) => two[k] === 1)];
+}
+
+/**
  * All order-consistent assignments of nPrimary unflagged bands to the
  * branch's primary class and nFlagged spin-forbidden-flagged bands to its
- * forbidden class (when the primary class is itself forbidden the flagged
+ * forbidden class and its weak spin-allowed levels (flaggedClass; when the primary class is itself forbidden the flagged
  * bands must be counted in nPrimary by the caller), with the grid points at
  * which each holds.
  */
@@ -147,9 +163,10 @@ export function enumerateAssignments(
   const primary = primaryClass(branch);
   const byKey = new Map<string, { levels: number[]; points: number[] }>();
   const width = nPrimary + nFlagged;
+  const weakClass = flaggedClass(scan, branch);
   for (const j of branch.points) {
     const a = lowestAt(scan, j, primary.levels, nPrimary + maxSkip);
-    const f = nFlagged > 0 ? lowestAt(scan, j, branch.forbidden, nFlagged + maxSkipFlagged) : [];
+    const f = nFlagged > 0 ? lowestAt(scan, j, weakClass, nFlagged + maxSkipFlagged) : [];
     forEachCombination(a.length, nPrimary, (ia) => {
       const head = Array.from(ia, (i) => a[i]!);
       forEachCombination(f.length, nFlagged, (jf) => {

@@ -105,9 +105,11 @@ export function evaluateGridCandidate(
     observed: Float64Array.from(observations, (o) => o.position),
     sigma: Float64Array.from(observations, (o) => (sorted.weighted ? o.sigma : 1)),
     bRange: bRangeOf(settings),
+    ...(settings.treesUsed ? { alpha: settings.alpha, alphaFree: settings.alphaFree } : {}),
   };
   const start: FieldParameters = from ?? {
     dq: grid.x * grid.b, b: grid.b, c: settings.mode === 'fixed' ? settings.cFixed : scan.cOverB * grid.b,
+    ...(settings.alpha !== 0 ? { alpha: settings.alpha } : {}),
   };
   const refined = refineSolution(problem, start, maxEvaluations);
   let { params, levels, calculated } = refined;

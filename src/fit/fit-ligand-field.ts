@@ -59,6 +59,7 @@ import { cachedLevelScan } from './scan.js';
 import { estimatesCByDefault, resolveFitSettings, type FitSettings } from './settings.js';
 import type { FitInput, FitOptions, FitResult } from './types.js';
 import { acceptable, groupsBound, lowestWrms, REFINED_CANDIDATES, selectForRefinement, wrmsOrder } from './select-candidates.js';
+import { treesSuggestion } from './trees-suggestion.js';
 
 export { REFINED_CANDIDATES };
 
@@ -366,6 +367,8 @@ export function fitLigandField(input: FitInput, options: FitOptions = {}): FitRe
       'bands',
     );
   }
+  const trees = treesSuggestion(best, settings);
+  if (trees) notes.push(trees);
   return buildFitResult({ settings, sorted, best, others: evaluated.slice(1), warnings, notes, undetermined, options });
 }
 

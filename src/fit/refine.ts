@@ -7,6 +7,11 @@
  * parameter); ∂/∂B then follows from Euler's relation for functions
  * homogeneous of degree 1, E = Dq·∂E/∂Dq + B·∂E/∂B + C·∂E/∂C, so a Jacobian
  * costs one or two engine calls instead of two or three.
+ *
+ * With the Trees correction (trees-correction.ts) α is a fixed engine
+ * parameter (`alpha`) or one more fitted one (`alphaFree`, the last θ, one
+ * more forward difference); H stays linear in (Dq, B, C, α), so Euler's
+ * relation still gives ∂/∂B, less α·∂E/∂α.
  */
 import { levelsAt as computeLevels } from './engine.js';
 import type { FieldParameters, Geometry, LevelsResult } from '../ligand-field/types.js';
@@ -31,6 +36,10 @@ export interface RefineProblem {
   sigma: Float64Array;
   /** Bounds on B, cm-1, where the β prior is negligible beyond (likelihood.ts). Default: B ≥ 1. */
   bRange?: [number, number];
+  /** The Trees α, cm-1: fixed at this value, or the start when alphaFree. Default 0 (none). */
+  alpha?: number;
+  /** α is fitted (the last parameter). Default false. */
+  alphaFree?: boolean;
 }
 
 export interface Refined {
@@ -44,6 +53,13 @@ export interface Refined {
 
 /** (θ) → field parameters for the mode. */
 export function parametersOf(problem: RefineProblem, theta: Float64Array): FieldParameters {
+  const params = cubicParametersOf(problem, theta);
+  if (problem.alphaFree) params.alpha = theta[theta.length - 1]!;
+  else if (problem.alpha !== undefined && problem.alpha !== 0) params.alpha = problem.alpha;
+  return params;
+}
+
+function cubicParametersOf(problem: RefineProblem, theta: Float64Array): FieldParameters {
   const dq = theta[0]!;
   const b = theta[1]!;
   if (problem.mode === 'ratio') return { dq, b, c: problem.cOverB * b };
@@ -53,7 +69,13 @@ export function parametersOf(problem: RefineProblem, theta: Float64Array): Field
 
 /** θ for the mode from field parameters. */
 export function thetaOf(problem: RefineProblem, params: FieldParameters): Float64Array {
-  return problem.mode === 'free' ? Float64Array.of(params.dq, params.b, params.c) : Float64Array.of(params.dq, params.b);
+  const cubic = problem.mode === 'free' ? [params.dq, params.b, params.c] : [params.dq, params.b];
+  return Float64Array.from(problem.alphaFree ? [...cubic, params.alpha ?? problem.alpha ?? 0] : cubic);
+}
+
+/** Number of fitted parameters: Dq, B, C when free, α when free. */
+export function parameterCount(problem: Pick<RefineProblem, 'mode' | 'alphaFree'>): number {
+  return (problem.mode === 'free' ? 3 : 2) + (problem.alphaFree ? 1 : 0);
 }
 
 /** Energies of the assigned levels above the assumed ground level; NaN where a key is missing. */
@@ -62,6 +84,9 @@ export function assignedEnergies(levels: LevelsResult, groundKey: string, keys: 
   const zero = byKey.get(groundKey) ?? Number.NaN;
   keys.forEach((key, i) => (out[i] = (byKey.get(key) ?? Number.NaN) - zero));
 }
+
+/** |α| bound of a fitted Trees α, cm-1. */
+export const ALPHA_BOUND = 500;
 
 export function refineSolution(problem: RefineProblem, start: FieldParameters, maxEvaluations = 40): Refined {
   const m = problem.observed.length;
@@ -76,36 +101,48 @@ export function refineSolution(problem: RefineProblem, start: FieldParameters, m
     energiesAt(parametersOf(problem, theta), calc);
     for (let i = 0; i < m; i++) out[i] = (calc[i]! - problem.observed[i]!) / problem.sigma[i]!;
   };
-  const p = problem.mode === 'free' ? 3 : 2;
+  const p = parameterCount(problem);
   const jacobian = (theta: Float64Array, r: Float64Array, out: Float64Array): number => {
     const params = parametersOf(problem, theta);
     const { dq, b, c } = params;
+    const alpha = params.alpha ?? 0;
     // calc from the residuals (exact: r was computed at theta).
     for (let i = 0; i < m; i++) calc[i] = r[i]! * problem.sigma[i]! + problem.observed[i]!;
     const hDq = 1e-6 * Math.max(dq, 0.1 * b, 1);
-    energiesAt({ dq: dq + hDq, b, c }, shifted);
+    energiesAt({ ...params, dq: dq + hDq }, shifted);
     const dDq = Float64Array.from(shifted, (v, i) => (v - calc[i]!) / hDq);
     let dC: Float64Array | undefined;
+    let dAlpha: Float64Array | undefined;
     let calls = 1;
     if (problem.mode !== 'ratio') {
       const hC = 1e-6 * Math.max(c, b, 1);
-      energiesAt({ dq, b, c: c + hC }, shifted);
+      energiesAt({ ...params, c: c + hC }, shifted);
       dC = Float64Array.from(shifted, (v, i) => (v - calc[i]!) / hC);
       calls++;
     }
+    if (problem.alphaFree) {
+      const hAlpha = 1e-6 * Math.max(Math.abs(alpha), 0.1 * b, 1);
+      energiesAt({ ...params, alpha: alpha + hAlpha }, shifted);
+      dAlpha = Float64Array.from(shifted, (v, i) => (v - calc[i]!) / hAlpha);
+      calls++;
+    }
     for (let i = 0; i < m; i++) {
-      // Ratio mode: total dE/dB along C = rB is (E − Dq·E_Dq)/B; otherwise the partial (E − Dq·E_Dq − C·E_C)/B.
-      const dB = (calc[i]! - dq * dDq[i]! - (dC ? c * dC[i]! : 0)) / b;
+      // Ratio mode: total dE/dB along C = rB is (E − Dq·E_Dq − α·E_α)/B; otherwise the partial (E − Dq·E_Dq − C·E_C − α·E_α)/B.
+      const dB = (calc[i]! - dq * dDq[i]! - (dC ? c * dC[i]! : 0) - (dAlpha ? alpha * dAlpha[i]! : 0)) / b;
       const s = problem.sigma[i]!;
       out[i * p] = dDq[i]! / s;
       out[i * p + 1] = dB / s;
-      if (p === 3) out[i * p + 2] = dC![i]! / s;
+      if (dC) out[i * p + 2] = dC[i]! / s;
+      if (dAlpha) out[i * p + p - 1] = dAlpha[i]! / s;
     }
     return calls;
   };
   const [bLow, bHigh] = problem.bRange ?? [1, Infinity];
-  const lower = p === 3 ? Float64Array.of(0, bLow, 0) : Float64Array.of(0, bLow);
-  const upper = p === 3 ? Float64Array.of(Infinity, bHigh, Infinity) : Float64Array.of(Infinity, bHigh);
+  const cubicLower = problem.mode === 'free' ? [0, bLow, 0] : [0, bLow];
+  const cubicUpper = problem.mode === 'free' ? [Infinity, bHigh, Infinity] : [Infinity, bHigh];
+  // α: the first-row values lie near 60–80 cm-1 (trees-correction.ts); ±500 only keeps a runaway fit finite.
+  const lower = Float64Array.from(problem.alphaFree ? [...cubicLower, -ALPHA_BOUND] : cubicLower);
+  const upper = Float64Array.from(problem.alphaFree ? [...cubicUpper, ALPHA_BOUND] : cubicUpper);
   // Exact to 1e-6 cm-1 per band is exact: below that only rounding is left to chase.
   let atol = 0;
   for (let i = 0; i < m; i++) atol += 0.5 * (1e-6 / problem.sigma[i]!) ** 2;

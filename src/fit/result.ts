@@ -259,6 +259,9 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   if (settings.b0 === null && settings.ion === null) notes.push('beta is null: no ion was given (only d), so no free-ion B0');
   else if (settings.b0 === null) notes.push(`beta is null: no free-ion B0 is tabulated for ${settings.ion!.label}`);
   if (settings.freeIonSource) notes.push(`free-ion B0, C0: ${settings.freeIonSource}`);
+  if (settings.treesUsed) {
+    notes.push(`Trees correction α·L(L+1) ${settings.alphaFree ? 'fitted' : 'fixed'}: α = ${(best.params.alpha ?? settings.alpha).toFixed(1)} cm-1; B, C and 10Dq are those of that model (higher B, lower 10Dq than a fit without α)`);
+  }
   const unassigned = [
     ...sorted.chargeTransfer.map((b) => ({ observed: round(b.position), band: b.index, reason: 'charge-transfer band: left out of the fit' })),
     ...variant.dropped.map((o) => ({ observed: round(o.position), band: o.bands[0]!, reason: 'left unexplained by the chosen assignment' })),
@@ -281,9 +284,11 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
       return { ...l, cm1: round(l.cm1) };
     })(),
     rmsResidual: round(best.wrms), status: status.status, message: status.message, evaluations: status.evaluations,
+    ...(settings.treesUsed ? { alpha: round(best.params.alpha ?? settings.alpha, 1) } : {}),
     uncertainty: {
       tenDq: nullableRound(uncertainty.tenDq), dq: nullableRound(uncertainty.dq, 2),
       b: nullableRound(uncertainty.b), c: nullableRound(uncertainty.c),
+      ...(uncertainty.alpha !== undefined ? { alpha: nullableRound(uncertainty.alpha, 1) } : {}),
     },
     betaSd: betaSdOf(nullableRound(uncertainty.b), settings.b0),
     correlation: {
@@ -323,21 +328,25 @@ function restingOnWeakBands(best: Evaluated, settings: FitSettings): Array<{ par
   const out: Array<{ parameter: 'b' | 'tenDq'; reason: string; action: string; warning: string }> = [];
   if (branch.allowed.length === 0) return out;
   const allowed = new Set(branch.allowed);
-  const assignedAllowed = new Set(best.levelIndices.filter((k) => allowed.has(k)));
-  const assignedForbidden = best.levelIndices.filter((k) => !allowed.has(k)).length;
-  if (best.bDetermined && assignedAllowed.size === 1 && assignedForbidden > 0) {
+  // A band flagged spin-forbidden on a weak spin-allowed level (flaggedClass, enumerate.ts) is as weak a support as a spin-forbidden one.
+  const strong = (k: number, i: number) => allowed.has(k) && i < variant.nPrimary;
+  const assignedAllowed = new Set(Array.from(best.levelIndices).filter((k, i) => strong(k, i)));
+  const assignedWeak = Array.from(best.levelIndices).filter((k, i) => !strong(k, i));
+  const weakAllowed = assignedWeak.some((k) => allowed.has(k));
+  if (best.bDetermined && assignedAllowed.size === 1 && assignedWeak.length > 0) {
+    const which = weakAllowed ? 'the weak (flagged) ones' : 'the spin-forbidden ones';
     out.push({
       parameter: 'b',
-      reason: 'one band is assigned to a spin-allowed transition; B rests on the assignment of the spin-forbidden ones',
+      reason: `one band is assigned to a strong spin-allowed transition; B rests on the assignment of ${which}`,
       action: 'reported, but not determined by spin-allowed bands',
-      warning: `B = ${Math.round(best.params.b)} cm-1 is not determined by spin-allowed bands: one band is spin-allowed and B rests on which spin-forbidden transitions the others are`,
+      warning: `B = ${Math.round(best.params.b)} cm-1 is not determined by spin-allowed bands: one band is a strong spin-allowed one and B rests on which ${weakAllowed ? 'weak (spin-forbidden or two-electron)' : 'spin-forbidden'} transitions the others are`,
     });
     if (dqOnlyLevel(scan, branch) !== [...assignedAllowed][0]) {
       out.push({
         parameter: 'tenDq',
-        reason: 'one band is assigned to a spin-allowed transition whose energy depends on B; B rests on the spin-forbidden ones',
+        reason: `one band is assigned to a strong spin-allowed transition whose energy depends on B; B rests on ${which}`,
         action: 'reported, but not determined by spin-allowed bands',
-        warning: `10Dq = ${Math.round(10 * best.params.dq)} cm-1 is not determined by spin-allowed bands alone: it rests on B, and B on the spin-forbidden assignment`,
+        warning: `10Dq = ${Math.round(10 * best.params.dq)} cm-1 is not determined by spin-allowed bands alone: it rests on B, and B on the ${weakAllowed ? 'weak bands\' assignment' : 'spin-forbidden assignment'}`,
       });
     }
   }

@@ -47,11 +47,13 @@ export function scoreTerms(input: ScoreTermsInput): ScoreTerms {
   const { candidate, settings, sorted, transitions, calculated, levels } = input;
   const { variant, scan, branch } = candidate;
   const observations = variant.observations;
-  const assigned = Array.from(levels.subarray(0, variant.nPrimary), (k, i) => {
+  // The bands on class transitions: the unflagged ones, and a flagged one on a weak spin-allowed level (flaggedClass).
+  const classLevels = new Set(primaryClass(branch).levels);
+  const assigned = Array.from(levels.subarray(0, observations.length), (k, i) => {
     const entry: { level: number; calculated: number; width?: number } = { level: k, calculated: calculated[i]! };
     if (observations[i]!.width !== undefined) entry.width = observations[i]!.width!;
     return entry;
-  });
+  }).filter((entry, i) => i < variant.nPrimary || classLevels.has(entry.level));
   const ctOnset = ctOnsetOf(sorted);
   const weak = orbitallyForbiddenLevels(scan, branch.ground);
   const skip = skippedTransitionPenalties({

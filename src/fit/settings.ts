@@ -43,6 +43,12 @@ export interface FitSettings {
   priors: PriorSettings;
   /** What the formula and ligands changed, for the notes. */
   notes: string[];
+  /** The Trees α, cm-1 (fixed, or the start when alphaFree); 0 without the correction. */
+  alpha: number;
+  /** α is fitted. */
+  alphaFree: boolean;
+  /** The user asked for the Trees correction (fixed or free). */
+  treesUsed: boolean;
 }
 
 function readFormula(value: unknown): ParsedComplex | undefined {
@@ -194,11 +200,26 @@ export function resolveFitSettings(input: FitInput): FitSettings {
   const ligands = [...(formula?.ligands.map((l) => ({ key: l.key, count: l.count })) ?? []), ...readLigands(input.ligands)];
   const window = readWindow(input.window);
   const priorCentre = free ? free.c / free.b : LIKELIHOOD.defaultCOverB;
+  const trees = readTrees(input.trees);
   return {
+    ...trees,
     d, ion, geometry, b0, c0, freeIonSource: free?.source ?? null, mode, cOverB: ratio, cOverBSource,
     cFixed: c ?? Number.NaN, cOverBGiven: cOverB !== undefined, window, ligands,
     priors: priorSettings(ion, geometry, b0, priorCentre, ligands), notes,
   };
+}
+
+/** The largest |α| accepted, cm-1: far beyond any reported value (60–80 cm-1 for first-row ions). */
+const MAX_TREES_ALPHA = 500;
+
+/** `trees`: a fixed α (cm-1) or "free"; absent: no correction. */
+function readTrees(value: unknown): { alpha: number; alphaFree: boolean; treesUsed: boolean } {
+  if (value === undefined) return { alpha: 0, alphaFree: false, treesUsed: false };
+  if (value === 'free') return { alpha: 0, alphaFree: true, treesUsed: true };
+  if (typeof value !== 'number' || !Number.isFinite(value) || Math.abs(value) > MAX_TREES_ALPHA) {
+    throw invalidArgument('trees', `trees must be the Trees α in cm-1 (at most ${MAX_TREES_ALPHA} in size) or "free", got ${JSON.stringify(value)}`);
+  }
+  return { alpha: value, alphaFree: false, treesUsed: true };
 }
 
 /** d5 bands at least this many estimate C/B unasked: 4T1g(G), 4T2g(G) and 4A1g/4Eg(G) fix 10Dq, B and C. */

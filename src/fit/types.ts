@@ -24,6 +24,12 @@ export interface FitInput {
   /** Fit C as a third parameter (needs ≥ 3 d–d bands that depend on C). */
   freeC?: boolean;
   /**
+   * The Trees correction α·L(L+1) (src/ligand-field/trees-correction.ts): a
+   * fixed α in cm-1, or "free" to fit it as one more parameter. Default: none
+   * (α = 0), the cubic model of the usual published analyses.
+   */
+  trees?: number | 'free';
+  /**
    * The measured range, cm-1: a strong transition predicted inside it must
    * show a band; one outside it may be missing. Default: unknown (the bands'
    * own span stands in for it).
@@ -150,8 +156,10 @@ export interface FitResult {
   status: FitStatus;
   message: string;
   evaluations: number;
-  /** Standard uncertainties, cm-1; null where the quantity is not fitted. */
-  uncertainty: { tenDq: number | null; dq: number | null; b: number | null; c: number | null };
+  /** The Trees α in cm-1 (fixed or fitted); present only when the fit used it (`trees`). */
+  alpha?: number;
+  /** Standard uncertainties, cm-1; null where the quantity is not fitted (alpha: present only when α was fitted). */
+  uncertainty: { tenDq: number | null; dq: number | null; b: number | null; c: number | null; alpha?: number | null };
   /** Standard uncertainty of beta: uncertainty.b / freeIonB (betaSdOf in uncertainty.ts); null where either is unknown. */
   betaSd: number | null;
   /** Correlation coefficients of the fitted parameters. */

@@ -16,6 +16,7 @@
  */
 import { covarianceCorrelation, jacobianCovariance } from './covariance.js';
 import type { Evaluated } from './evaluate.js';
+import { parameterCount } from './refine.js';
 import type { FitResult } from './types.js';
 
 export interface FitUncertainty {
@@ -41,7 +42,7 @@ export function fitUncertainty(best: Evaluated, weighted: boolean): FitUncertain
   if (best.bPrior) return priorBUncertainty(best);
   if (!best.lsq || !best.problem) return NONE;
   const m = observations.length;
-  const p = best.problem.mode === 'free' ? 3 : 2;
+  const p = parameterCount(best.problem);
   const dof = m - p;
   let jacobian = best.lsq.jacobian;
   let scale: number;
@@ -63,14 +64,15 @@ export function fitUncertainty(best: Evaluated, weighted: boolean): FitUncertain
   const corr = covarianceCorrelation(cov, p);
   const sd = (j: number) => Math.sqrt(Math.max(cov[j * p + j]!, 0));
   const ratio = best.params.c / best.params.b;
-  const sigmaC = p === 3 ? sd(2) : best.problem.mode === 'ratio' ? ratio * sd(1) : null;
+  const cFree = best.problem.mode === 'free';
+  const sigmaC = cFree ? sd(2) : best.problem.mode === 'ratio' ? ratio * sd(1) : null;
   const finite = (v: number) => (Number.isFinite(v) ? v : null);
   return {
-    uncertainty: { tenDq: 10 * sd(0), dq: sd(0), b: sd(1), c: sigmaC },
+    uncertainty: { tenDq: 10 * sd(0), dq: sd(0), b: sd(1), c: sigmaC, ...(best.problem.alphaFree ? { alpha: sd(p - 1) } : {}) },
     correlation: {
       bDq: finite(corr[1]!),
-      cDq: p === 3 ? finite(corr[2]!) : null,
-      cB: p === 3 ? finite(corr[5]!) : null,
+      cDq: cFree ? finite(corr[2]!) : null,
+      cB: cFree ? finite(corr[p + 2]!) : null,
     },
     basis,
   };

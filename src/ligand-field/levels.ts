@@ -6,6 +6,7 @@ import { levelSpectrum, type LevelSpectrum } from './level-spectrum.js';
 import { parentTableFor } from './parent-tables.js';
 import { hundTwoSpin, spinStateChoice } from './spin-state.js';
 import type { FieldParameters, Geometry, Level, LevelsResult, SpinState } from './types.js';
+import { treesAlphaOf, treesIrrepBlocks, treesParentTable } from './trees-correction.js';
 import { validateD, validateFieldParameters, validateGeometry } from './validate.js';
 
 /**
@@ -38,7 +39,8 @@ function identity(twoS: number, irrep: number, rank: number): number {
   return 64 * (5 * (twoS + 1) + irrep) + rank;
 }
 
-const coefficients = new Float64Array(3);
+/** [dq, b, c, alpha]: the three-operator blocks read the first three. */
+const coefficients = new Float64Array(4);
 
 /**
  * Sorted position → position in the output. Normally the identity; at Dq = 0
@@ -47,8 +49,8 @@ const coefficients = new Float64Array(3);
  * Dq → 0 limit gives (5T2g, not 5Eg, for octahedral d6). Ranks stay those
  * of the Dq = 0 order.
  */
-function freeIonOrder(blocks: IrrepBlocks, b: number, c: number, tol: number): (spectrum: LevelSpectrum) => number[] {
-  coefficients.set([1e-6 * b, b, c]);
+function freeIonOrder(blocks: IrrepBlocks, b: number, c: number, alpha: number, tol: number): (spectrum: LevelSpectrum) => number[] {
+  coefficients.set([1e-6 * b, b, c, alpha]);
   const onset = levelSpectrum(blocks, coefficients, tol);
   const position = new Map<number, number>();
   for (let p = 0; p < onset.count; p++) position.set(identity(onset.twoS[p]!, onset.irrep[p]!, onset.rank[p]!), p);
@@ -77,13 +79,15 @@ export function computeLevels(d: number, geometry: Geometry, params: FieldParame
   validateFieldParameters(params);
   if (d === 0 || d === 10) return closedShell(d, geometry, params);
   const { dq, b, c } = params;
-  const table = parentTableFor(d, c / b);
-  const blocks = irrepBlocks(d, geometry);
+  const alpha = treesAlphaOf(params);
+  const table = alpha === 0 ? parentTableFor(d, c / b) : treesParentTable(d, b, c, alpha);
+  const blocks = alpha === 0 ? irrepBlocks(d, geometry) : treesIrrepBlocks(d, geometry);
   const tol = energyTolerance(params);
-  const reorder = dq === 0 ? freeIonOrder(blocks, b, c, tol) : undefined;
+  const reorder = dq === 0 ? freeIonOrder(blocks, b, c, alpha, tol) : undefined;
   coefficients[0] = dq;
   coefficients[1] = b;
   coefficients[2] = c;
+  coefficients[3] = alpha;
   const spectrum = levelSpectrum(blocks, coefficients, tol);
   const order = reorder?.(spectrum);
   const labels = table.labels(geometry);

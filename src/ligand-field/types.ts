@@ -12,6 +12,8 @@ export interface FieldParameters {
   dq: number;
   b: number;
   c: number;
+  /** The Trees correction α·L(L+1) in cm-1 (trees-correction.ts); absent or 0: none. */
+  alpha?: number;
 }
 
 /** Irreducible representations of the octahedral rotation group O, without parity. */

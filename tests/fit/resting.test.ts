@@ -14,7 +14,8 @@ describe('what 10Dq and B rest on', () => {
   it('one spin-allowed band beside a spin-forbidden one: B and 10Dq both rest on the spin-forbidden assignment', () => {
     // A hexaaqua Co(II)-like list: the visible maximum near 19 800 cm-1 and a weak flagged shoulder near 16 000.
     const r = fitBands({ ion: 'Co2+', bands: '16000:sf:sh, 19800', window: VISIBLE });
-    expect(r.assignments.filter((a) => a.spinAllowed)).toHaveLength(1);
+    // One strong band: the flagged shoulder may take a spin-forbidden level or the weak two-electron 4A2g (flaggedClass).
+    expect(r.assignments.filter((a) => a.spinAllowed && !a.flags.includes('spin-forbidden'))).toHaveLength(1);
     expect(listed(r)).toEqual(['b', 'tenDq']);
     // Either way is honest: B rests on the flagged band's assignment, or (when the score leaves the flagged shoulder
     // unexplained) B is fixed at its prior and 10Dq rests on one band; a 10Dq stated as measured is the failure.

@@ -143,6 +143,13 @@ describe('POST /api/v1/fit', () => {
       json(fitBands({ d: 8, bands: [8500, { position: 13800, flags: ['shoulder'] }, 25300, { position: 40000, flags: ['ct'] }], cOverB: 4.2 })),
     );
   });
+  it('passes trees through and answers alpha with its uncertainty', async () => {
+    const body = { ion: 'Fe3+', bands: [12600, 18500, 24300, 25200, 27000], freeC: true, trees: 'free' } as const; // invented list: a pass-through check
+    const res = await request(t.app).post('/api/v1/fit').send(body).expect(200);
+    expect(res.body).toEqual(json(fitBands({ ion: 'Fe3+', bands: [12600, 18500, 24300, 25200, 27000], freeC: true, trees: 'free' })));
+    expect(typeof fitResponse.parse(res.body).alpha).toBe('number');
+    await request(t.app).post('/api/v1/fit').send({ ...body, trees: 'lots' }).expect(400);
+  });
   it('answers 422 when no model explains the bands', async () => {
     const res = await request(t.app).post('/api/v1/fit').send({ d: 1, bands: [20000, 40000, 60000] }).expect(422);
     expect(errorResponse.parse(res.body).error.code).toBe('unexplained');

@@ -17,7 +17,8 @@ import { textTableLines } from '../../report/text-table.js';
  * assignment chosen automatically, as a readable report or as JSON.
  */
 const USAGE = `Usage: fieldgap fit (--ion ION | --d N | --formula F) --bands LIST [--geometry G]
-                    [--c-over-b R | --c C | --free-c] [--ligands L] [--window RANGE] [--json]
+                    [--c-over-b R | --c C | --free-c] [--trees ALPHA|free]
+                    [--ligands L] [--window RANGE] [--json]
 
 Fits 10Dq, Racah B (and C) to observed d-d band maxima. The bands are assigned
 automatically to transitions from the ground level, trying both spin states
@@ -44,6 +45,9 @@ Options:
   --c-over-b R     fix C/B at R (default: the free ion's C0/B0, else 4.5)
   --c C            fix Racah C at C cm-1 instead
   --free-c         fit C too (needs at least 3 d-d bands that depend on C)
+  --trees ALPHA    add the Trees correction alpha·L(L+1) with alpha fixed at
+                     ALPHA cm-1, or fitted with --trees free (default: none,
+                     the cubic model of most published analyses)
   --symmetry S     cubic (default) or tetragonal: fit Dq, Ds, Dt (and B) with the
                    D4h convention a1g(z²) = 6Dq − 2Ds − 6Dt, b1g(x²−y²) = 6Dq + 2Ds − Dt,
                    b2g(xy) = −4Dq + 2Ds − Dt, eg(xz, yz) = −4Dq − Ds + 4Dt
@@ -71,6 +75,7 @@ const OPTION_OF_FIELD: ReadonlyArray<[RegExp, string]> = [
   [/^cOverB/, '--c-over-b'],
   [/^c$/, '--c'],
   [/^freeC/, '--free-c'],
+  [/^trees/, '--trees'],
   [/^zeta/, '--zeta'],
   [/^formula/, '--formula'],
   [/^ligands/, '--ligands'],
@@ -94,6 +99,7 @@ export function parseFitArgs(argv: string[]): { input: FitInput; json: boolean; 
     'c-over-b': { type: 'string' },
     c: { type: 'string' },
     'free-c': { type: 'boolean' },
+    trees: { type: 'string' },
     formula: { type: 'string' },
     ligands: { type: 'string' },
     window: { type: 'string' },
@@ -133,9 +139,11 @@ export function parseFitArgs(argv: string[]): { input: FitInput; json: boolean; 
     input.c = c;
   }
   if (values['free-c']) input.freeC = true;
+  if (values.trees !== undefined) input.trees = values.trees === 'free' ? 'free' : numberOption('trees', values.trees, { min: -500, max: 500 })!;
   const symmetry = choiceOption('symmetry', values.symmetry, ['cubic', 'tetragonal'] as const, 'cubic');
   if (symmetry === 'cubic' && values.zeta === undefined && !values['free-zeta']) return { input, json: values.json ?? false };
   // Beyond the cubic field: the fit of src/fit-tetragonal/.
+  if (values.trees !== undefined) throw invalidArgument('--trees', '--trees is not available with --symmetry tetragonal or --zeta');
   if (values['free-c']) throw invalidArgument('--free-c', '--free-c is not available with --symmetry tetragonal or --zeta (C/B stays fixed)');
   if (values.c !== undefined) throw invalidArgument('--c', '--c is not available with --symmetry tetragonal or --zeta: give --c-over-b');
   const tetragonal: TetragonalFitInput = { bands: input.bands, geometry: input.geometry ?? 'octahedral', symmetry };
@@ -197,6 +205,7 @@ export function fitReport(r: FitResult): string {
     const beta = r.beta === null ? 'β not available (no free-ion B0)' : `β = B/B0 = ${fmt(r.beta, 3)} (B0 = ${r.freeIonB} cm-1)`;
     lines.push(`  B    = ${pm(r.b, r.uncertainty.b)} cm-1   ${beta}`);
     lines.push(`  C    = ${pm(r.c!, r.uncertainty.c)} cm-1   C/B = ${fmt(r.cOverB!, 2)}`);
+    if (r.alpha !== undefined) lines.push(`  α    = ${pm(r.alpha, r.uncertainty.alpha ?? null, 1)} cm-1   Trees correction α·L(L+1)${r.uncertainty.alpha === undefined ? ', fixed' : ''}`);
     if (r.correlation.bDq !== null) lines.push(`  correlation of B with Dq: ${fmt(r.correlation.bDq, 3)}`);
   }
   lines.push('');
