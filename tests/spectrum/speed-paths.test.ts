@@ -7,7 +7,11 @@
  * the pieces are in savitzky-golay.test.ts and gsd-cached-weights.test.ts.
  *
  * Speed paths and their references:
- * - gsdCachedWeights (cached Savitzky–Golay weights) ← ml-gsd's gsd.
+ * - gsdCachedWeights (cached Savitzky–Golay weights) ← ml-gsd's gsd;
+ * - jacobianNormalProducts (blocked sums) ← one pass per pair of columns
+ *   (tests/reference/band-model.ts);
+ * - reusedBandModelWork (work arrays kept between fits) ← fresh arrays for
+ *   each fit (bandModelWork).
  */
 import { describe, expect, it, vi } from 'vitest';
 import { caseSpectrum, corpusCases } from '../accuracy/cases.js';
@@ -16,14 +20,18 @@ import { caseOptions } from '../accuracy/run-corpus.js';
 type Analyze = (typeof import('../../src/analysis.js'))['analyzeSpectrum'];
 
 const GSD = '../../src/spectrum/gsd-cached-weights.js';
+const PRODUCTS = '../../src/spectrum/jacobian-normal-products.js';
+const WORK = '../../src/spectrum/band-model-work-reuse.js';
 
 /** analyzeSpectrum from a fresh module graph: with the speed paths, or with their references. */
 async function pipeline(reference: boolean): Promise<Analyze> {
   vi.resetModules();
   if (reference) {
     vi.doMock(GSD, async () => ({ gsdCachedWeights: (await import('ml-gsd')).gsd }));
+    vi.doMock(PRODUCTS, async () => ({ jacobianNormalProducts: (await import('../reference/band-model.js')).referencePairwiseProducts }));
+    vi.doMock(WORK, async () => ({ reusedBandModelWork: (await import('../../src/spectrum/band-model.js')).bandModelWork }));
   } else {
-    vi.doUnmock(GSD);
+    for (const path of [GSD, PRODUCTS, WORK]) vi.doUnmock(path);
   }
   return (await import('../../src/analysis.js')).analyzeSpectrum;
 }
