@@ -46,6 +46,7 @@ export function jacobianNormalProducts(
       const lo = Math.max(fu, from[v0] as number);
       const hi = Math.min(tu, to[v0] as number);
       if (nu === 3 && nv === 3) products3x3(jac, n, u0, v0, lo, hi, a, q);
+      else if (nu === 3 && nv === 2) products3x2(jac, n, u0, v0, lo, hi, a, q);
       else {
         for (let u = u0; u < u0 + nu; u++) {
           for (let v = v0; v < v0 + nv; v++) put(a, q, u, v, product(jac, u * n, jac, v * n, lo, hi));
@@ -103,6 +104,29 @@ function products3x3(jac: Float64Array, n: number, u0: number, v0: number, lo: n
   put(a, q, u0, v0, s00); put(a, q, u0, v0 + 1, s01); put(a, q, u0, v0 + 2, s02);
   put(a, q, u0 + 1, v0, s10); put(a, q, u0 + 1, v0 + 1, s11); put(a, q, u0 + 1, v0 + 2, s12);
   put(a, q, u0 + 2, v0, s20); put(a, q, u0 + 2, v0 + 1, s21); put(a, q, u0 + 2, v0 + 2, s22);
+}
+
+/** A chunk of three against one of two (a band against the last baseline terms), as products3x3. */
+function products3x2(jac: Float64Array, n: number, u0: number, v0: number, lo: number, hi: number, a: Float64Array, q: number): void {
+  const ou0 = u0 * n;
+  const ou1 = ou0 + n;
+  const ou2 = ou1 + n;
+  const ov0 = v0 * n;
+  const ov1 = ov0 + n;
+  let s00 = 0, s01 = 0, s10 = 0, s11 = 0, s20 = 0, s21 = 0;
+  for (let i = lo; i < hi; i++) {
+    const u0i = jac[ou0 + i] as number;
+    const u1i = jac[ou1 + i] as number;
+    const u2i = jac[ou2 + i] as number;
+    const v0i = jac[ov0 + i] as number;
+    const v1i = jac[ov1 + i] as number;
+    s00 += u0i * v0i; s01 += u0i * v1i;
+    s10 += u1i * v0i; s11 += u1i * v1i;
+    s20 += u2i * v0i; s21 += u2i * v1i;
+  }
+  put(a, q, u0, v0, s00); put(a, q, u0, v0 + 1, s01);
+  put(a, q, u0 + 1, v0, s10); put(a, q, u0 + 1, v0 + 1, s11);
+  put(a, q, u0 + 2, v0, s20); put(a, q, u0 + 2, v0 + 1, s21);
 }
 
 /** A chunk of three with itself (upper triangle) and its three entries of g, over [lo, hi). */
