@@ -11,7 +11,7 @@
  * the same peaks.
  */
 import { gsd, type GSDOptions, type GSDPeak } from 'ml-gsd';
-import { xIsEquallySpaced, xIsMonotonic, xMinMaxValues } from 'ml-spectra-processing';
+import { xIsEquallySpaced, xMinMaxValues } from 'ml-spectra-processing';
 import { xSavitzkyGolay } from './x-savitzky-golay.js';
 
 interface XIndex {
@@ -27,7 +27,7 @@ export function gsdCachedWeights(data: { x: Float64Array; y: Float64Array }, opt
   } = options;
   const { x } = data;
   const ours = noiseLevel !== undefined && maxCriteria && maxAbsoluteRatio === 0 && !realTopDetection && peakDetectionAlgorithm === 'second'
-    && x.length >= 2 && xIsMonotonic(x) === 1 && xIsEquallySpaced(x);
+    && x.length >= 2 && xIsIncreasing(x) && xIsEquallySpaced(x);
   if (!ours) return gsd(data, options);
   const y = data.y.slice();
   for (let i = 0; i < y.length; i++) if ((y[i] as number) < noiseLevel) y[i] = noiseLevel;
@@ -47,6 +47,18 @@ export function gsdCachedWeights(data: { x: Float64Array; y: Float64Array }, opt
   }
   const { left, right } = firstDerivativeIntervals(x, dY);
   return peaksFromIntervals(x, yData, ddY, yThreshold, minima, left, right).sort((a, b) => a.x - b.x);
+}
+
+/**
+ * x strictly ascending (anything else goes to ml-gsd, which runs its own
+ * check). A plain loop rather than ml-spectra-processing's xIsMonotonic: in
+ * the profile of the analysis bench that one took 4 % of the time (about
+ * 1 ms a call for 400 values, against 0.6 µs when timed alone; the cause
+ * was not pinned down).
+ */
+function xIsIncreasing(x: Float64Array): boolean {
+  for (let i = 1; i < x.length; i++) if (!((x[i] as number) > (x[i - 1] as number))) return false;
+  return true;
 }
 
 /** Pairs (last maximum, next minimum) of the first derivative: the inflection points around each peak (ml-gsd's getMinMaxIntervalsDy, x ascending). */
