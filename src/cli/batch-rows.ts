@@ -71,15 +71,19 @@ export interface BatchFileTask {
 export function itemsOf(file: string, options: AnalyzeOptions, cwd: string, expandColumns: boolean): Item[] {
   if (options.column !== undefined || !expandColumns) return [{ file, column: options.column, label: file }];
   try {
-    const content = readInputFile(file, cwd);
-    const spectra = listSpectra(content, { fileName: file, ...(options.xUnit && { xUnit: options.xUnit }) });
-    if (spectra.length <= 1) return [{ file, column: undefined, label: file, content }];
-    return spectra.map((s) => ({ file, column: s.column, label: `${file}#${s.column} (${s.name})`, content }));
+    return columnItems(file, readInputFile(file, cwd), options);
   } catch (error) {
     // A file that cannot be read or parsed is one failed row (analyzeItem reports why); anything else is a bug and surfaces.
     if (!isFieldgapError(error)) throw error;
     return [{ file, column: undefined, label: file }];
   }
+}
+
+/** A file's bytes as items: one, or one per column when it holds several spectra (throws when it cannot be parsed). */
+function columnItems(file: string, content: Uint8Array, options: AnalyzeOptions): Item[] {
+  const spectra = listSpectra(content, { fileName: file, ...(options.xUnit && { xUnit: options.xUnit }) });
+  if (spectra.length <= 1) return [{ file, column: undefined, label: file, content }];
+  return spectra.map((s) => ({ file, column: s.column, label: `${file}#${s.column} (${s.name})`, content }));
 }
 
 /** Analyses one item; a single-item run lets its error through (exit 2), a batch keeps it in the row. */
@@ -145,20 +149,47 @@ export function outcomeJsonEntry(outcome: Outcome): string {
   return `    ${JSON.stringify(outcomeJson(outcome), null, 2).replaceAll('\n', '\n    ')}`;
 }
 
-/** The finished rows of some items of a batch (never throws: a failure is its row). */
-export function rowsOfItems(items: readonly Item[], options: AnalyzeOptions, cwd: string, json: boolean): BatchRow[] {
-  return items.map((item) => {
-    const outcome = analyzeItem(item, options, cwd, false);
-    return {
-      summary: summaryRow(outcome),
-      csv: csvRow(outcome),
-      ...(json && { json: outcomeJsonEntry(outcome) }),
-      failed: outcome.error !== undefined,
-    };
-  });
+/** A finished row from an outcome. */
+function rowOf(outcome: Outcome, json: boolean): BatchRow {
+  return {
+    summary: summaryRow(outcome),
+    csv: csvRow(outcome),
+    ...(json && { json: outcomeJsonEntry(outcome) }),
+    failed: outcome.error !== undefined,
+  };
 }
 
-/** The finished rows of one file of a batch (never throws: a failure is its row). */
+/** The finished rows of some items of a batch (never throws: a failure is its row). */
+export function rowsOfItems(items: readonly Item[], options: AnalyzeOptions, cwd: string, json: boolean): BatchRow[] {
+  return items.map((item) => rowOf(analyzeItem(item, options, cwd, false), json));
+}
+
+/**
+ * The finished rows of one file of a batch (never throws: a failure is its
+ * row); the same rows as rowsOfItems(itemsOf(...)). The usual file holds one
+ * spectrum, so it is analysed as it stands, its text parsed once; only when
+ * the analysis shows several spectra (result.spectrum.columns), or fails, is
+ * the file listed and, if it holds several, analysed column by column.
+ */
 export function analyzeBatchFile(task: BatchFileTask): BatchRow[] {
-  return rowsOfItems(itemsOf(task.file, task.options, task.cwd, task.expandColumns), task.options, task.cwd, task.json);
+  const { file, options, cwd, expandColumns, json } = task;
+  if (options.column !== undefined || !expandColumns) return rowsOfItems(itemsOf(file, options, cwd, expandColumns), options, cwd, json);
+  let content: Uint8Array;
+  try {
+    content = readInputFile(file, cwd);
+  } catch (error) {
+    if (!isFieldgapError(error)) throw error;
+    return rowsOfItems([{ file, column: undefined, label: file }], options, cwd, json);
+  }
+  const whole: Item = { file, column: undefined, label: file, content };
+  const outcome = analyzeItem(whole, options, cwd, false);
+  if (outcome.result !== undefined && outcome.result.spectrum.columns === undefined) return [rowOf(outcome, json)];
+  let items: Item[];
+  try {
+    items = columnItems(file, content, options);
+  } catch (error) {
+    if (!isFieldgapError(error)) throw error;
+    items = [whole];
+  }
+  return items.length === 1 && outcome.result === undefined ? [rowOf(outcome, json)] : rowsOfItems(items, options, cwd, json);
 }

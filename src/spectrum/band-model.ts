@@ -18,6 +18,7 @@
  * exp(−4 ln2 · 2.75²) ≈ 8e-10 of the height: far below any noise.
  */
 import { FOUR_LN2 } from './gaussian.js';
+import { jacobianNormalProducts } from './jacobian-normal-products.js';
 import type { PolynomialScale } from './xy-polynomial.js';
 
 /** Bands reach ±CUTOFF FWHM from their centre. */
@@ -203,22 +204,7 @@ export function xyBandModelNormal(
       for (let i = from[u] as number; i < (to[u] as number); i++) jac[ou + i] = (jac[ou + i] as number) * (weights[i] as number);
     }
   }
-  for (let u = 0; u < q; u++) {
-    const ou = u * n;
-    const fu = from[u] as number;
-    const tu = to[u] as number;
-    let gs = 0;
-    for (let i = fu; i < tu; i++) gs += (jac[ou + i] as number) * (r[i] as number);
-    g[u] = gs;
-    for (let v = u; v < q; v++) {
-      const lo = Math.max(fu, from[v] as number);
-      const hi = Math.min(tu, to[v] as number);
-      const ov = v * n;
-      let s = 0;
-      for (let i = lo; i < hi; i++) s += (jac[ou + i] as number) * (jac[ov + i] as number);
-      a[u * q + v] = s;
-      a[v * q + u] = s;
-    }
-  }
+  // Products a block of columns at a time; the same sums as one pass per pair (jacobian-normal-products.ts).
+  jacobianNormalProducts(jac, r, from, to, n, q, a, g);
   return cost;
 }

@@ -6,7 +6,8 @@
  * (spin-forbidden) bands, from which only narrow, significant peaks not
  * already found by the first are taken.
  */
-import { gsd } from 'ml-gsd';
+// Cached Savitzky–Golay weights; the same peaks as ml-gsd's gsd (src/spectrum/gsd-cached-weights.ts).
+import { gsdCachedWeights as gsd } from './gsd-cached-weights.js';
 import { sgSecondDerivativeNoise } from './sg-noise.js';
 
 export interface BandCandidate {

@@ -12,7 +12,8 @@
  * baseline, and with a numerical Jacobian; it serves as the reference for
  * band-only fits in tests/reference.)
  */
-import { type BandModelLayout, bandModelParameterCount, xBandModelValues, bandModelWork, xyBandModelCost, xyBandModelNormal } from './band-model.js';
+import { type BandModelLayout, bandModelParameterCount, xBandModelValues, xyBandModelCost, xyBandModelNormal } from './band-model.js';
+import { reusedBandModelWork } from './band-model-work-reuse.js';
 import { FOUR_LN2, gaussianValue } from './gaussian.js';
 import { choleskySolveInPlace, levenbergMarquardtNormal } from './levenberg-marquardt.js';
 import { type PolynomialScale, xPolynomialScale, xyPolynomialFit } from './xy-polynomial.js';
@@ -110,7 +111,8 @@ export function xyRefineBands(x: Float64Array, y: Float64Array, options: RefineB
   }
   const b0 = e0 + (layout.edge ? 3 : 0);
   initial.set(options.baselineStart ?? xyPolynomialFit(x, options.baselineGuess, baselineOrder, scale), b0);
-  const work = bandModelWork(n, p);
+  // Work arrays reused between fits of a thread (band-model-work-reuse.ts).
+  const work = reusedBandModelWork(n, p);
   const weights = options.weights ?? null;
   const fit = levenbergMarquardtNormal(
     {

@@ -55,3 +55,30 @@ export function referenceNormal(x: number[], y: number[], weights: number[], lay
   });
   return { a, g, cost };
 }
+
+/**
+ * The products of the band fit's normal equations as xyBandModelNormal
+ * summed them before jacobian-normal-products.ts: one pass per pair of
+ * columns over their common window (jac column major, column u at u·n).
+ */
+export function referencePairwiseProducts(
+  jac: Float64Array, r: Float64Array, from: Int32Array, to: Int32Array, n: number, q: number, a: Float64Array, g: Float64Array,
+): void {
+  for (let u = 0; u < q; u++) {
+    const ou = u * n;
+    const fu = from[u]!;
+    const tu = to[u]!;
+    let gs = 0;
+    for (let i = fu; i < tu; i++) gs += jac[ou + i]! * r[i]!;
+    g[u] = gs;
+    for (let v = u; v < q; v++) {
+      const lo = Math.max(fu, from[v]!);
+      const hi = Math.min(tu, to[v]!);
+      const ov = v * n;
+      let s = 0;
+      for (let i = lo; i < hi; i++) s += jac[ou + i]! * jac[ov + i]!;
+      a[u * q + v] = s;
+      a[v * q + u] = s;
+    }
+  }
+}
