@@ -30,6 +30,10 @@ describe.skipIf(browserTestsSkipped())('the probability card', () => {
     expect(all).toMatch(/B, C and β are not determined/);
     await s.page.screenshot({ path: join(SHOTS, 'probability-card.png') });
     expect(all).not.toMatch(/tenDq|null|\bcm-1\b/);
+    // One unit wording on the page: the core's warnings say cm-1, the page cm⁻¹.
+    const warnings = (await s.page.locator('#warnings').innerText());
+    expect(warnings).toMatch(/cm⁻¹/);
+    expect(warnings).not.toMatch(/\bcm-1\b/);
     expect(s.problems).toEqual([]);
   }, 90_000);
 });

@@ -9,7 +9,7 @@ import { percentText as percentOf } from '../../src/report/probability.js';
 import { UNIT, dCountText, formatNumber, formatWithUncertainty, levelLabel, nmFromWavenumber, spinStateText } from '../format.js';
 import type { AnalysisEntry } from '../state.js';
 import type { Alternative, FitResult } from '../types.js';
-import { undeterminedDetail, undeterminedHeadline } from '../undetermined-wording.js';
+import { chemistWording, undeterminedDetail, undeterminedHeadline } from '../undetermined-wording.js';
 
 export interface ResultHandlers {
   onShowAlternative(index: number | null): void;
@@ -18,7 +18,7 @@ export interface ResultHandlers {
 /** The fit's remarks that are not warnings, kept out of the way. */
 export function notesBox(notes: readonly string[]): HTMLElement | null {
   if (notes.length === 0) return null;
-  return h('details', { class: 'notes', id: 'fit-notes' }, h('summary', {}, `Notes from the fit (${notes.length})`), h('ul', {}, ...notes.map((n) => h('li', {}, n))));
+  return h('details', { class: 'notes', id: 'fit-notes' }, h('summary', {}, `Notes from the fit (${notes.length})`), h('ul', {}, ...notes.map((n) => h('li', {}, chemistWording(n)))));
 }
 
 export function warningsBox(messages: readonly string[]): HTMLElement | null {
@@ -27,7 +27,7 @@ export function warningsBox(messages: readonly string[]): HTMLElement | null {
     'div',
     { class: 'warnings', id: 'warnings', role: 'status' },
     h('h3', {}, messages.length === 1 ? 'Warning' : `${messages.length} warnings`),
-    h('ul', {}, ...messages.map((m) => h('li', {}, m))),
+    h('ul', {}, ...messages.map((m) => h('li', {}, chemistWording(m)))),
   );
 }
 
