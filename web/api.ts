@@ -7,6 +7,7 @@ import { ANALYSIS_OPTION_NAMES as NAME } from '../src/analysis-option-names.js';
 import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult, LibraryPage, LibraryRecord, SeriesReport } from './types.js';
 import { priorFields, type FitRequest, type SampleDetails } from './state.js';
 import type { FieldLevel, ResolvedParameters } from '../src/ligand-field/field-levels.js';
+import type { FieldDiagramAnswer } from './plots/level-diagram-spec.js';
 
 export class ApiError extends Error {
   readonly body: ApiErrorBody;
@@ -141,6 +142,19 @@ export interface FieldLevelsAnswer {
   groundTerm: string;
   levels: FieldLevelRow[];
   notes: string[];
+}
+
+/** GET /diagram with an axis: E/B of every level along Dq, the distortion or ζ (the Levels tab's plot). */
+export interface FieldDiagramQuery extends FieldLevelsQuery {
+  axis: 'dq' | 'distortion' | 'zeta';
+  maxDqOverB: number;
+  steps: number;
+}
+
+export function fieldDiagram(query: FieldDiagramQuery): Promise<FieldDiagramAnswer> {
+  const { c, ...rest } = query;
+  const params = new URLSearchParams(Object.entries({ ...rest, cOverB: c / query.b }).map(([k, v]): [string, string] => [k, String(v)]));
+  return send<FieldDiagramAnswer>(`${BASE}/diagram?${params.toString()}`, { method: 'GET' }, 'the level diagram');
 }
 
 export function fieldLevels(query: FieldLevelsQuery): Promise<FieldLevelsAnswer> {

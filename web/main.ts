@@ -71,24 +71,39 @@ async function analyseFiles(files: File[], details: SampleDetails): Promise<void
 async function analyseColumns(source: AnalysisEntry, columns: number[]): Promise<void> {
   const file = source.file;
   if (file === null) return;
-  await analyseEntries(columns.map((column) => ({ file, name: `${file.name} #${column}`, details: { ...source.details, column: String(column) } })));
+  const all = source.result?.spectrum.columns;
+  await analyseEntries(columns.map((column) => ({ file, name: `${file.name} #${column}`, details: { ...source.details, column: String(column) }, ...(all !== undefined && { sibling: { column, columns: all } }) })));
 }
 
-async function analyseEntries(requests: Array<{ file: File; name: string; details: SampleDetails }>): Promise<void> {
-  const entries = requests.map(({ file, name, details }) => {
+/**
+ * A column of a file with several spectra, analysed on its own: the service
+ * then reads that column alone and lists no others, so the page keeps the
+ * file's list (from the first analysis) to say which of how many it is.
+ */
+interface SiblingColumn {
+  column: number;
+  columns: Array<{ column: number; name: string }>;
+}
+
+async function analyseEntries(requests: Array<{ file: File; name: string; details: SampleDetails; sibling?: SiblingColumn }>): Promise<void> {
+  const entries = requests.map(({ file, name, details, sibling }) => {
     const entry: AnalysisEntry = {
       key: nextKey(), fileName: name, file, details: { ...details }, status: 'pending', result: null, error: null, fit: null,
       originalFit: null, bands: [], cOverB: details.cOverB, freeC: details.freeC, shownAlternative: null, libraryId: null,
     };
-    return { file, entry };
+    return { file, entry, sibling };
   });
   state.entries.push(...entries.map((e) => e.entry));
   if (entries[0] !== undefined) state.currentKey = entries[0].entry.key;
   render();
   await Promise.all(
-    entries.map(async ({ file, entry }) => {
+    entries.map(async ({ file, entry, sibling }) => {
       try {
         const result = await api.analyze(file, entry.details);
+        if (sibling !== undefined && result.spectrum.columns === undefined) {
+          result.spectrum.columns = sibling.columns;
+          result.spectrum.column ??= sibling.column;
+        }
         entry.result = result;
         entry.fit = result.fit;
         entry.originalFit = result.fit;
@@ -162,8 +177,8 @@ function renderMain(root: HTMLElement): void {
   root.replaceChildren(
     title,
     h('p', { class: 'subtitle', id: 'result-subtitle' }, subtitle, h('span', { class: 'muted' }, ` · ${entry.fileName}, ${entry.result.spectrum.points} points`)),
+    columnsPanel(entry, state.entries, { onAnalyse: (columns) => void analyseColumns(entry, columns), onSelect: (key) => { state.currentKey = key; render(); } }) ?? '',
     keptPanel('warnings', [entry, JSON.stringify(warnings)], () => warningsBox(warnings)) ?? '',
-    columnsPanel(entry, { onAnalyse: (columns) => void analyseColumns(entry, columns) }) ?? '',
     fit === null ? '' : keptPanel('cards', [entry.fit, entry.shownAlternative, entry.originalFit], () => parameterCards(fit, entry.originalFit)),
     keptPanel('notes', [entry.fit, entry.shownAlternative], () => notesBox(fit?.notes ?? [])) ?? '',
     h(

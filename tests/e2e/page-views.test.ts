@@ -102,6 +102,8 @@ describe.skipIf(browserTestsSkipped())('more of the web page in headless Chromiu
       if (answer.status === 200) {
         const fit = (answer.body as AnalyzeResult).fit!;
         expect(await cell(file.name).textContent()).toBe(formatWithUncertainty(fit.tenDq, fit.uncertainty.tenDq));
+        // β with its ±, as the result cards show it (column 7: after 10Dq, B, C).
+        if (fit.beta !== null) expect(await s.page.locator('#compare-table tbody tr', { hasText: file.name }).locator('td').nth(6).textContent()).toBe(formatWithUncertainty(fit.beta, fit.betaSd ?? null, 2));
       } else {
         await expect(s.page.locator('#entries li', { hasText: file.name }).locator('.status').textContent()).resolves.toBe('failed');
       }

@@ -64,7 +64,8 @@ export function renderCompare(root: HTMLElement, entries: readonly AnalysisEntry
           h('td', { class: 'num' }, fit === null ? 'no fit' : formatWithUncertainty(fit.tenDq, fit.uncertainty.tenDq)),
           h('td', { class: 'num' }, fit === null ? '—' : formatWithUncertainty(fit.b, fit.uncertainty.b)),
           h('td', { class: 'num' }, fit === null ? '—' : formatWithUncertainty(fit.c, fit.uncertainty.c)),
-          h('td', { class: 'num' }, fit === null ? '—' : formatNumber(fit.beta, 2)),
+          // β with its ± as on the result cards and in the library.
+          h('td', { class: 'num' }, fit === null || fit.beta === null ? '—' : formatWithUncertainty(fit.beta, fit.betaSd ?? null, 2)),
           h('td', {}, fit === null ? '—' : spinStateText(fit.spinState)),
           h('td', { class: 'num' }, fit === null ? '—' : formatNumber(fit.rmsResidual)),
         );

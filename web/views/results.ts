@@ -9,6 +9,7 @@ import { percentText as percentOf } from '../../src/report/probability.js';
 import { UNIT, dCountText, formatNumber, formatWithUncertainty, levelLabel, nmFromWavenumber, spinStateText } from '../format.js';
 import type { AnalysisEntry } from '../state.js';
 import type { Alternative, FitResult } from '../types.js';
+import { chemistWording, undeterminedDetail, undeterminedHeadline } from '../undetermined-wording.js';
 
 export interface ResultHandlers {
   onShowAlternative(index: number | null): void;
@@ -17,7 +18,7 @@ export interface ResultHandlers {
 /** The fit's remarks that are not warnings, kept out of the way. */
 export function notesBox(notes: readonly string[]): HTMLElement | null {
   if (notes.length === 0) return null;
-  return h('details', { class: 'notes', id: 'fit-notes' }, h('summary', {}, `Notes from the fit (${notes.length})`), h('ul', {}, ...notes.map((n) => h('li', {}, n))));
+  return h('details', { class: 'notes', id: 'fit-notes' }, h('summary', {}, `Notes from the fit (${notes.length})`), h('ul', {}, ...notes.map((n) => h('li', {}, chemistWording(n)))));
 }
 
 export function warningsBox(messages: readonly string[]): HTMLElement | null {
@@ -26,11 +27,11 @@ export function warningsBox(messages: readonly string[]): HTMLElement | null {
     'div',
     { class: 'warnings', id: 'warnings', role: 'status' },
     h('h3', {}, messages.length === 1 ? 'Warning' : `${messages.length} warnings`),
-    h('ul', {}, ...messages.map((m) => h('li', {}, m))),
+    h('ul', {}, ...messages.map((m) => h('li', {}, chemistWording(m)))),
   );
 }
 
-function card(id: string, name: string, value: string, unit: string, note?: string): HTMLElement {
+function card(id: string, name: string, value: string, unit: string, note?: string | HTMLElement): HTMLElement {
   return h(
     'div',
     { class: 'card', id },
@@ -60,19 +61,33 @@ export function parameterCards(fit: FitResult, original: FitResult | null): HTML
     card('p-unpaired', 'Unpaired electrons', String(fit.unpairedElectrons), ''),
     card('p-moment', 'Spin-only moment', formatNumber(fit.spinOnlyMoment, 2), UNIT.moment),
     card('p-rms', 'RMS residual', formatNumber(fit.rmsResidual, fit.rmsResidual !== null && Math.abs(fit.rmsResidual) < 10 ? 1 : 0), UNIT.wavenumber, fitStatusNote(fit)),
-    ...(fit.probability === undefined ? [] : [card('p-probability', 'Probability of this assignment', percentText(fit.probability), '', spinStateProbabilityText(fit))]),
+    ...(fit.probability === undefined ? [] : [card('p-probability', 'Probability of this assignment', percentText(fit.probability), '', spinStateProbabilityNote(fit))]),
   );
 }
 
 /** 0.973 → "97 %"; below 0.1 % → "< 0.1 %" (src/report's wording, with the page's space before %). */
 const percentText = (p: number): string => percentOf(p, { space: true });
 
-/** "high spin 99 % · low spin 1 %" where the ion has a choice; the undetermined parameters otherwise. */
-function spinStateProbabilityText(fit: FitResult): string {
+/**
+ * Under the probability: "high spin 99 % · low spin 1 %" where the ion has a
+ * choice, and one short line naming what the bands do not fix (10Dq, B),
+ * with the reasons folded ("why") so the card stays a card.
+ */
+function spinStateProbabilityNote(fit: FitResult): HTMLElement {
   const entries = Object.entries(fit.spinStateProbabilities ?? {}).filter(([key]) => key !== 'no-choice');
-  const parts = entries.map(([key, p]) => `${spinStateText(key)} ${percentText(p)}`);
-  for (const u of fit.undetermined ?? []) parts.push(`not fixed by the bands: ${u.parameter} (${u.action})`);
-  return parts.join(' · ');
+  const spin = entries.map(([key, p]) => `${spinStateText(key)} ${percentText(p)}`).join(' · ');
+  const undetermined = fit.undetermined ?? [];
+  return h(
+    'div',
+    { id: 'p-probability-note' },
+    spin === '' ? null : h('div', {}, spin),
+    undetermined.length === 0 ? null : h(
+      'details',
+      { class: 'card-details', id: 'p-undetermined' },
+      h('summary', {}, undeterminedHeadline(undetermined)),
+      h('ul', {}, ...undetermined.map((u) => h('li', {}, undeterminedDetail(u)))),
+    ),
+  );
 }
 
 /** "fit: converged"; the fit's own message only when it did not simply converge. */

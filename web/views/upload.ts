@@ -4,6 +4,7 @@
  */
 import { h, numberOrNull } from '../dom.js';
 import type { AnalysisEntry, SampleDetails } from '../state.js';
+import { columnNote } from './columns.js';
 import type { Geometry, XUnit } from '../types.js';
 import { ANALYSIS_OPTION_NAMES as NAME } from '../../src/analysis-option-names.js';
 
@@ -153,6 +154,12 @@ function entryStatus(entry: AnalysisEntry): string {
   return `10Dq ${Math.round(entry.fit.tenDq)} cm⁻¹`;
 }
 
+/** Under the name of an entry whose file holds several spectra: which one it is. */
+function columnItemNote(entry: AnalysisEntry): HTMLElement | null {
+  const note = columnNote(entry);
+  return note === null ? null : h('small', { class: 'entry-column' }, note);
+}
+
 function entryItem(entry: AnalysisEntry, currentKey: string | null, handlers: UploadHandlers): HTMLElement {
   const current = entry.key === currentKey;
   return h(
@@ -167,7 +174,7 @@ function entryItem(entry: AnalysisEntry, currentKey: string | null, handlers: Up
         'aria-current': current ? 'true' : undefined,
         onclick: () => handlers.onSelect(entry.key),
       },
-      h('span', { class: 'name' }, entry.details.sample || entry.fileName),
+      h('span', { class: 'name' }, entry.details.sample || entry.fileName, columnItemNote(entry)),
       h('span', { class: `status ${entry.status}` }, entryStatus(entry)),
     ),
   );
