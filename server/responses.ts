@@ -135,6 +135,9 @@ const fitShape = {
   score: num.meta({ description: 'Deviance, −2·ln of the posterior up to a constant: lower is better.' }),
   chiSquare: num,
   probability: num.meta({ description: 'Probability of the chosen assignment: exp(−score/2) normalised over the solutions evaluated.' }),
+  goodnessOfFit: z.looseObject({
+    chiSquare: num, degreesOfFreedom: z.number().int(), pValue: num, verdict: z.enum(['good', 'poor']), betaPhysical: z.boolean().nullable(),
+  }).meta({ description: 'Absolute check of the chosen solution: χ² of the positions against its degrees of freedom, its p-value, "poor" below 1 %; betaPhysical false when β lies outside 0.3–1.1. The probability is only relative to the other assignments.' }),
   spinStateProbabilities: z.record(z.string(), num).meta({ description: 'Probability of each spin state, e.g. {"high-spin": 0.99, "low-spin": 0.01}.' }),
   undetermined: z.array(z.looseObject({ parameter: z.string(), reason: z.string(), action: z.string() })).meta({
     description: 'Parameters the bands cannot fix, and what was done (fixed at the prior, or not reported).',

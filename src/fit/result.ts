@@ -23,6 +23,7 @@ import { intensityWeights, type SortedObservations } from './observations.js';
 import { levelIdentityKey } from './scan.js';
 import type { FitSettings } from './settings.js';
 import { betaSdOf, fitUncertainty } from './uncertainty.js';
+import { EXACT_CHI_SQUARE, goodnessOfFitOf, goodnessWarnings, pValueText, type GoodnessOfFit } from './goodness-of-fit.js';
 import type {
   Alternative, AssignedBand, CrossoverInfo, FitOptions, FitResult, FitStatus, Penalty, PredictedTransition,
 } from './types.js';
@@ -85,7 +86,13 @@ function crossoverOf(best: Evaluated, settings: FitSettings): CrossoverInfo | nu
   };
 }
 
-function statusOf(best: Evaluated): { status: FitStatus; message: string; evaluations: number } {
+/** Parameters fitted to the positions: 1 (Dq) for a one-band solution, else 2 or 3. */
+function fittedParameterCount(best: Evaluated): number {
+  if (best.bPrior || !best.bDetermined) return 1;
+  return best.problem?.mode === 'free' ? 3 : 2;
+}
+
+function statusOf(best: Evaluated, fit: GoodnessOfFit): { status: FitStatus; message: string; evaluations: number } {
   const m = best.candidate.variant.observations.length;
   if (best.bPrior) {
     return { status: 'exact', message: `10Dq from the one band with B fixed at its prior (${Math.round(best.params.b)} cm-1): one band cannot fix both`, evaluations: 0 };
@@ -104,7 +111,11 @@ function statusOf(best: Evaluated): { status: FitStatus; message: string; evalua
   const evaluations = best.lsq.evaluations;
   if (!best.lsq.success) return { status: 'not-converged', message: `not converged: ${best.lsq.message} (${evaluations} evaluations)`, evaluations };
   const how = `${best.lsq.message} after ${evaluations} evaluations`;
-  if (m === p) return { status: 'exact', message: `exact: ${m} bands determine the ${p} parameters; converged (${how})`, evaluations };
+  // "exact" means the bands are reproduced; m = p bands that no parameters reproduce are a least-squares compromise.
+  if (m === p && fit.chiSquare <= EXACT_CHI_SQUARE) return { status: 'exact', message: `exact: ${m} bands determine the ${p} parameters; converged (${how})`, evaluations };
+  if (m === p) {
+    return { status: 'converged', message: `not exact: no parameters reproduce the ${m} bands (χ² = ${fit.chiSquare.toFixed(1)}, ${pValueText(fit.pValue)}); least-squares compromise (${how})`, evaluations };
+  }
   return { status: 'converged', message: `converged: ${how}`, evaluations };
 }
 
@@ -197,7 +208,8 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   const cFit = best.bDetermined ? best.params.c : null;
   const beta = bFit !== null && settings.b0 !== null ? bFit / settings.b0 : null;
   const { uncertainty, correlation, basis } = fitUncertainty(best, sorted.weighted);
-  const status = statusOf(best);
+  const goodnessOfFit = goodnessOfFitOf(best.chiSquare, variant.observations.length, fittedParameterCount(best), beta);
+  const status = statusOf(best, goodnessOfFit);
   for (const u of restingOnWeakBands(best, settings)) {
     if (undetermined.some((v) => v.parameter === u.parameter)) continue;
     undetermined.push({ parameter: u.parameter, reason: u.reason, action: u.action });
@@ -266,6 +278,9 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   const kept = solutions.slice(1).filter((o) => o.score <= alternativeMargin(best.score)).slice(0, maxAlternatives);
   const alternatives = kept.map((o) => alternativeOf(o, best, settings, probabilityOf.get(o) ?? 0));
   const probability = probabilities[0]!;
+  // β already warned by its prior's penalty needs no second warning (goodnessOfFit.betaPhysical still says it).
+  const betaWarned = best.penalties.some((p) => p.rule === 'beta' && p.amount >= deviance(0.1));
+  warnings.push(...goodnessWarnings(goodnessOfFit, probability, betaWarned ? null : beta, best.wrms));
   if (probability < 0.5) {
     warnings.push(`the chosen assignment is not certain: probability ${(100 * probability).toFixed(0)}% (see the alternatives)`);
   }
@@ -290,6 +305,7 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
       bDq: nullableRound(correlation.bDq, 4), cDq: nullableRound(correlation.cDq, 4), cB: nullableRound(correlation.cB, 4),
     },
     score: round(best.score, 2), chiSquare: round(best.chiSquare, 2), probability: round(probability, 4), spinStateProbabilities,
+    goodnessOfFit: { ...goodnessOfFit, chiSquare: round(goodnessOfFit.chiSquare, 2), pValue: Number(goodnessOfFit.pValue.toPrecision(3)) },
     undetermined, window: settings.window ?? null, ligands: [...new Set(settings.ligands.map((l) => l.key))],
     penalties: roundPenalties(best.penalties), assignments: assignmentRows(best), unassigned,
     skipped: best.skipped.map((s) => ({ ...s, energy: round(s.energy) })), alternatives, crossover,

@@ -7,6 +7,7 @@ import type { Ion } from '../chemistry/ions.js';
 import type { Geometry, SpinState } from '../ligand-field/types.js';
 import type { BandFlag, BandInput } from './bands.js';
 import type { Lfse } from './lfse.js';
+import type { GoodnessOfFit } from './goodness-of-fit.js';
 
 export interface FitInput {
   /** "Cr3+", "Cr(III)", or a parsed Ion. Gives d and, where tabulated, B0 and C0. */
@@ -162,6 +163,8 @@ export interface FitResult {
   chiSquare: number;
   /** Probability of the chosen assignment among the solutions evaluated. */
   probability: number;
+  /** Absolute check of the chosen solution (goodness-of-fit.ts): the probability above is only relative to the other assignments. */
+  goodnessOfFit: GoodnessOfFit;
   /** Probability of each spin state (summed over its solutions); only states the d-count allows. */
   spinStateProbabilities: Partial<Record<SpinState, number>>;
   /** Parameters the bands do not determine, each with what was done (fixed at its prior, or not reported). */
