@@ -23,6 +23,7 @@ import { intensityWeights, type SortedObservations } from './observations.js';
 import { levelIdentityKey } from './scan.js';
 import type { FitSettings } from './settings.js';
 import { betaSdOf, fitUncertainty } from './uncertainty.js';
+import { assignmentGroupOf } from './assignment-groups.js';
 import { EXACT_CHI_SQUARE, goodnessOfFitOf, goodnessWarnings, pValueText, type GoodnessOfFit } from './goodness-of-fit.js';
 import type {
   Alternative, AssignedBand, CrossoverInfo, FitOptions, FitResult, FitStatus, Penalty, PredictedTransition,
@@ -147,7 +148,7 @@ function reasonAgainst(alt: Evaluated, best: Evaluated): string {
   return `${verdict}${parts.length ? `: ${parts.join('; ')}` : ''}`;
 }
 
-function alternativeOf(alt: Evaluated, best: Evaluated, settings: FitSettings, probability: number): Alternative {
+function alternativeOf(alt: Evaluated, best: Evaluated, settings: FitSettings, probability: number, inChosenGroup = false): Alternative {
   const rows = assignmentRows(alt);
   const b = alt.bDetermined ? alt.params.b : null;
   return {
@@ -156,7 +157,7 @@ function alternativeOf(alt: Evaluated, best: Evaluated, settings: FitSettings, p
     dq: round(alt.params.dq, 2), tenDq: round(10 * alt.params.dq), b: b === null ? null : round(b),
     c: b === null ? null : round(alt.params.c), beta: b !== null && settings.b0 ? round(b / settings.b0, 4) : null,
     groundTerm: alt.groundTerm, groundLabel: alt.candidate.scan.ids[alt.candidate.branch.ground]!.label,
-    spinState: alt.spinState, reason: reasonAgainst(alt, best),
+    spinState: alt.spinState, reason: reasonAgainst(alt, best), inChosenGroup,
   };
 }
 
@@ -276,13 +277,23 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
     ...variant.dropped.map((o) => ({ observed: round(o.position), band: o.bands[0]!, reason: 'left unexplained by the chosen assignment' })),
   ];
   const kept = solutions.slice(1).filter((o) => o.score <= alternativeMargin(best.score)).slice(0, maxAlternatives);
-  const alternatives = kept.map((o) => alternativeOf(o, best, settings, probabilityOf.get(o) ?? 0));
+  const { group: assignmentGroup, inGroup } = assignmentGroupOf(solutions, probabilities, uncertainty);
+  const grouped = new Set(solutions.filter((_, i) => inGroup[i]));
+  const alternatives = kept.map((o) => alternativeOf(o, best, settings, probabilityOf.get(o) ?? 0, grouped.has(o)));
   const probability = probabilities[0]!;
   // β already warned by its prior's penalty needs no second warning (goodnessOfFit.betaPhysical still says it).
   const betaWarned = best.penalties.some((p) => p.rule === 'beta' && p.amount >= deviance(0.1));
   warnings.push(...goodnessWarnings(goodnessOfFit, probability, betaWarned ? null : beta, best.wrms));
-  if (probability < 0.5) {
-    warnings.push(`the chosen assignment is not certain: probability ${(100 * probability).toFixed(0)}% (see the alternatives)`);
+  if (assignmentGroup.probability < 0.5) {
+    const of = assignmentGroup.members > 1 ? `; its spin-allowed assignment and parameters ${(100 * assignmentGroup.probability).toFixed(0)}%` : '';
+    warnings.push(`the chosen assignment is not certain: probability ${(100 * probability).toFixed(0)}%${of} (see the alternatives)`);
+  } else if (probability < 0.5) {
+    // Only the labels of weak bands are in doubt (assignment-groups.ts): a note, not a warning.
+    const range = (r: [number, number]) => (Math.round(r[0]) === Math.round(r[1]) ? `${Math.round(r[0])}` : `${Math.round(r[0])}–${Math.round(r[1])}`);
+    notes.push(
+      `the spin-allowed assignment and the parameters are ${(100 * assignmentGroup.probability).toFixed(0)}% probable over ${assignmentGroup.members} solutions `
+      + `(10Dq ${range(assignmentGroup.tenDqRange)}${assignmentGroup.bRange ? `, B ${range(assignmentGroup.bRange)}` : ''} cm-1) that differ only in the labels of the spin-forbidden or unexplained bands; this labelling is ${(100 * probability).toFixed(0)}% probable`,
+    );
   }
   return {
     d: settings.d, ion: settings.ion?.label ?? null, geometry: settings.geometry,
@@ -305,6 +316,7 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
       bDq: nullableRound(correlation.bDq, 4), cDq: nullableRound(correlation.cDq, 4), cB: nullableRound(correlation.cB, 4),
     },
     score: round(best.score, 2), chiSquare: round(best.chiSquare, 2), probability: round(probability, 4), spinStateProbabilities,
+    assignmentGroup: { ...assignmentGroup, probability: round(assignmentGroup.probability, 4) },
     goodnessOfFit: { ...goodnessOfFit, chiSquare: round(goodnessOfFit.chiSquare, 2), pValue: Number(goodnessOfFit.pValue.toPrecision(3)) },
     undetermined, window: settings.window ?? null, ligands: [...new Set(settings.ligands.map((l) => l.key))],
     penalties: roundPenalties(best.penalties), assignments: assignmentRows(best), unassigned,

@@ -71,6 +71,9 @@ const percentText = (p: number): string => percentOf(p, { space: true });
 function spinStateProbabilityText(fit: FitResult): string {
   const entries = Object.entries(fit.spinStateProbabilities ?? {}).filter(([key]) => key !== 'no-choice');
   const parts = entries.map(([key, p]) => `${spinStateText(key)} ${percentText(p)}`);
+  // Relative to the other assignments: say so when only weak-band labels differ, and when even the best fits poorly.
+  if (fit.assignmentGroup && fit.assignmentGroup.members > 1) parts.push(`spin-allowed assignment and parameters ${percentText(fit.assignmentGroup.probability)}`);
+  if (fit.goodnessOfFit?.verdict === 'poor') parts.push(`poorly fitted (χ² p = ${fit.goodnessOfFit.pValue.toPrecision(2)})`);
   for (const u of fit.undetermined ?? []) parts.push(`not fixed by the bands: ${u.parameter} (${u.action})`);
   return parts.join(' · ');
 }
