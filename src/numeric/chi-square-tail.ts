@@ -10,20 +10,14 @@
  * Why not a library: the fit's degrees of freedom are small integers, for
  * which these sums are exact; the one chi-square package in the registry
  * list (@stdlib/stats-base-dists-chisquare-cdf) pulls native-addon loaders
- * into the page's bundle. erfc is Numerical Recipes' Chebyshev fit (Press et
- * al., Numerical Recipes, 2nd ed. (1992), §6.2, erfcc), fractional error
- * below 1.2e-7 everywhere: ample for a p-value. tests/numeric checks it
- * against mathjs's erf.
+ * into the page's bundle. erfc is the project's one (src/predict/normal.ts,
+ * Numerical Recipes' erfcc, fractional error below 1.2e-7): ample for a
+ * p-value. tests/numeric checks the tail against a slow quadrature.
  */
+import { erfc } from '../predict/normal.js';
 
-/** erfc(z), fractional error < 1.2e-7. */
-export function erfcOf(z: number): number {
-  const t = 1 / (1 + 0.5 * Math.abs(z));
-  const y = t * Math.exp(-z * z - 1.26551223 + t * (1.00002368 + t * (0.37409196 + t * (0.09678418
-    + t * (-0.18628806 + t * (0.27886807 + t * (-1.13520398 + t * (1.48851587
-    + t * (-0.82215223 + t * 0.17087277)))))))));
-  return z >= 0 ? y : 2 - y;
-}
+/** erfc(z): the project's one error function (src/predict/normal.ts). */
+export const erfcOf = erfc;
 
 /** P(χ²_k ≥ x); 1 for x ≤ 0. k must be a positive integer. */
 export function chiSquareTail(x: number, k: number): number {
