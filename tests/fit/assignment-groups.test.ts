@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { analyzeSpectrum } from '../../src/analysis.js';
 import { fitLigandField } from '../../src/fit/index.js';
 import { fitReport } from '../../src/cli/commands/fit.js';
+import { fitWithAlternative } from '../../src/analysis-corrections.js';
 
 describe('the probability of the spin-allowed assignment and parameters (issue 13)', () => {
   it('a sharp Cr(III) band read as 2Eg or 2T1g does not make the parameters uncertain', () => {
@@ -35,8 +36,9 @@ describe('the probability of the spin-allowed assignment and parameters (issue 1
   });
 
   it('keeps different spin-allowed assignments apart', () => {
-    // Ni(II) with two bands: ν1/ν2 against ν2/ν3 give very different 10Dq; common practice.
-    const r = fitLigandField({ ion: 'Ni2+', bands: [13800, 25300] });
+    // Co(II) aqua 8 100 and 19 400 cm-1 (common practice): 4T2g/4T1g(P) against other readings with other 10Dq.
+    const r = fitLigandField({ ion: 'Co2+', bands: [8100, 19400] });
+    expect(r.alternatives.length).toBeGreaterThan(0);
     for (const a of r.alternatives) {
       if (Math.abs(a.tenDq - r.tenDq) > 0.05 * r.tenDq) expect(a.inChosenGroup).toBe(false);
     }
@@ -49,5 +51,16 @@ describe('the probability of the spin-allowed assignment and parameters (issue 1
     const r = fitLigandField({ ion: 'Co2+', bands: [8100, 19400] });
     for (const a of r.alternatives) if (a.spinState !== r.spinState) expect(a.inChosenGroup).toBe(false);
     expect(r.assignmentGroup.probability).toBeLessThanOrEqual((r.spinStateProbabilities[r.spinState] ?? 1) + 1e-3);
+  });
+
+  it('an alternative chosen by the user carries its own group and goodness of fit, not the winner\'s', () => {
+    // Co(II) aqua 8 100 and 19 400 cm-1: common practice.
+    const r = fitLigandField({ ion: 'Co2+', bands: [8100, 19400] });
+    const k = r.alternatives.findIndex((a) => !a.inChosenGroup);
+    expect(k).toBeGreaterThanOrEqual(0);
+    const alt = fitWithAlternative(r, k);
+    expect(alt.assignmentGroup.probability).toBeCloseTo(r.alternatives[k]!.probability, 6);
+    expect(alt.assignmentGroup.members).toBe(1);
+    expect(alt.goodnessOfFit.chiSquare).toBeCloseTo(r.alternatives[k]!.chiSquare, 6);
   });
 });
