@@ -136,6 +136,13 @@ const fitShape = {
   score: num.meta({ description: 'Deviance, −2·ln of the posterior up to a constant: lower is better.' }),
   chiSquare: num,
   probability: num.meta({ description: 'Probability of the chosen assignment: exp(−score/2) normalised over the solutions evaluated.' }),
+  assignmentGroup: z.looseObject({
+    probability: num, members: z.number().int(), spinAllowed: z.array(z.looseObject({ observed: num, label: z.string() })),
+    tenDqRange: z.tuple([num, num]), bRange: z.tuple([num, num]).nullable(),
+  }).meta({ description: 'The solutions that share the chosen spin-allowed assignment, spin state and parameters (they differ only in the labels of spin-forbidden or unexplained bands): their summed probability and parameter ranges, cm-1.' }),
+  goodnessOfFit: z.looseObject({
+    chiSquare: num, degreesOfFreedom: z.number().int(), pValue: num, verdict: z.enum(['good', 'poor']), betaPhysical: z.boolean().nullable(),
+  }).meta({ description: 'Absolute check of the chosen solution: χ² of the positions against its degrees of freedom, its p-value, "poor" below 1 %; betaPhysical false when β lies outside 0.3–1.1. The probability is only relative to the other assignments.' }),
   spinStateProbabilities: z.record(z.string(), num).meta({ description: 'Probability of each spin state, e.g. {"high-spin": 0.99, "low-spin": 0.01}.' }),
   undetermined: z.array(z.looseObject({ parameter: z.string(), reason: z.string(), action: z.string() })).meta({
     description: 'Parameters the bands cannot fix, and what was done (fixed at the prior, or not reported).',
@@ -151,6 +158,7 @@ const fitShape = {
     rmsResidual: num, chiSquare: num, score: num, penalties: z.array(penalty), dq: num, tenDq: num, b: nullableNum, c: nullableNum, beta: nullableNum,
     groundTerm: z.string(), groundLabel: z.string(), spinState, reason: z.string(),
     probability: num.meta({ description: 'Probability of this alternative among the solutions evaluated.' }),
+    inChosenGroup: z.boolean().meta({ description: 'Same spin-allowed assignment, spin state and parameters as the chosen one: differs only in weak-band labels.' }),
   })),
   crossover: z.looseObject({ dqOverB: num, fittedDqOverB: num, difference: num, percent: num, near: z.boolean() }).nullable(),
   predicted: z.array(z.looseObject({

@@ -15,6 +15,7 @@
  * the finder gave, `result.fit` is the corrected fit, and
  * `result.corrections` repeats the corrections it was made with.
  */
+import { goodnessOfFitOf } from './fit/goodness-of-fit.js';
 import { invalidArgument } from './errors.js';
 import { normalizeBands, type BandInput } from './fit/bands.js';
 import { ligandFieldStabilisation, spinOnlyMoment } from './fit/lfse.js';
@@ -127,6 +128,13 @@ export function fitWithAlternative(fit: FitResult, index: number, path = 'correc
     score: alternative.score,
     chiSquare: alternative.chiSquare,
     probability: alternative.probability,
+    // The winner's absolute check and group do not describe the alternative: its own (src/fit/goodness-of-fit.ts, assignment-groups.ts).
+    goodnessOfFit: goodnessOfFitOf(alternative.chiSquare, alternative.assignments.length, b === null ? 1 : fit.cMode === 'free' ? 3 : 2, alternative.beta),
+    assignmentGroup: alternative.inChosenGroup && fit.assignmentGroup ? fit.assignmentGroup : {
+      probability: alternative.probability, members: 1,
+      spinAllowed: alternative.assignments.filter((a) => a.spinAllowed).map((a) => ({ observed: Math.round(a.observed), label: a.label })),
+      tenDqRange: [alternative.tenDq, alternative.tenDq], bRange: b === null ? null : [b, b],
+    },
     undetermined: b === null ? [{ parameter: 'b', reason: 'the alternative assignment does not fix B', action: 'B, C and β are not reported (null)' }] : [],
     penalties: alternative.penalties,
     assignments: alternative.assignments,

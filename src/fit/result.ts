@@ -23,6 +23,8 @@ import { intensityWeights, type SortedObservations } from './observations.js';
 import { levelIdentityKey } from './scan.js';
 import type { FitSettings } from './settings.js';
 import { betaSdOf, fitUncertainty } from './uncertainty.js';
+import { assignmentGroupOf } from './assignment-groups.js';
+import { EXACT_CHI_SQUARE, goodnessOfFitOf, goodnessWarnings, pValueText, type GoodnessOfFit } from './goodness-of-fit.js';
 import type {
   Alternative, AssignedBand, CrossoverInfo, FitOptions, FitResult, FitStatus, Penalty, PredictedTransition,
 } from './types.js';
@@ -85,7 +87,13 @@ function crossoverOf(best: Evaluated, settings: FitSettings): CrossoverInfo | nu
   };
 }
 
-function statusOf(best: Evaluated): { status: FitStatus; message: string; evaluations: number } {
+/** Parameters fitted to the positions: 1 (Dq) for a one-band solution, else 2 or 3. */
+function fittedParameterCount(best: Evaluated): number {
+  if (best.bPrior || !best.bDetermined) return 1;
+  return best.problem?.mode === 'free' ? 3 : 2;
+}
+
+function statusOf(best: Evaluated, fit: GoodnessOfFit): { status: FitStatus; message: string; evaluations: number } {
   const m = best.candidate.variant.observations.length;
   if (best.bPrior) {
     return { status: 'exact', message: `10Dq from the one band with B fixed at its prior (${Math.round(best.params.b)} cm-1): one band cannot fix both`, evaluations: 0 };
@@ -104,7 +112,11 @@ function statusOf(best: Evaluated): { status: FitStatus; message: string; evalua
   const evaluations = best.lsq.evaluations;
   if (!best.lsq.success) return { status: 'not-converged', message: `not converged: ${best.lsq.message} (${evaluations} evaluations)`, evaluations };
   const how = `${best.lsq.message} after ${evaluations} evaluations`;
-  if (m === p) return { status: 'exact', message: `exact: ${m} bands determine the ${p} parameters; converged (${how})`, evaluations };
+  // "exact" means the bands are reproduced; m = p bands that no parameters reproduce are a least-squares compromise.
+  if (m === p && fit.chiSquare <= EXACT_CHI_SQUARE) return { status: 'exact', message: `exact: ${m} bands determine the ${p} parameters; converged (${how})`, evaluations };
+  if (m === p) {
+    return { status: 'converged', message: `not exact: no parameters reproduce the ${m} bands (χ² = ${fit.chiSquare.toFixed(1)}, ${pValueText(fit.pValue)}); least-squares compromise (${how})`, evaluations };
+  }
   return { status: 'converged', message: `converged: ${how}`, evaluations };
 }
 
@@ -136,7 +148,7 @@ function reasonAgainst(alt: Evaluated, best: Evaluated): string {
   return `${verdict}${parts.length ? `: ${parts.join('; ')}` : ''}`;
 }
 
-function alternativeOf(alt: Evaluated, best: Evaluated, settings: FitSettings, probability: number): Alternative {
+function alternativeOf(alt: Evaluated, best: Evaluated, settings: FitSettings, probability: number, inChosenGroup = false): Alternative {
   const rows = assignmentRows(alt);
   const b = alt.bDetermined ? alt.params.b : null;
   return {
@@ -145,7 +157,7 @@ function alternativeOf(alt: Evaluated, best: Evaluated, settings: FitSettings, p
     dq: round(alt.params.dq, 2), tenDq: round(10 * alt.params.dq), b: b === null ? null : round(b),
     c: b === null ? null : round(alt.params.c), beta: b !== null && settings.b0 ? round(b / settings.b0, 4) : null,
     groundTerm: alt.groundTerm, groundLabel: alt.candidate.scan.ids[alt.candidate.branch.ground]!.label,
-    spinState: alt.spinState, reason: reasonAgainst(alt, best),
+    spinState: alt.spinState, reason: reasonAgainst(alt, best), inChosenGroup,
   };
 }
 
@@ -197,7 +209,8 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   const cFit = best.bDetermined ? best.params.c : null;
   const beta = bFit !== null && settings.b0 !== null ? bFit / settings.b0 : null;
   const { uncertainty, correlation, basis } = fitUncertainty(best, sorted.weighted);
-  const status = statusOf(best);
+  const goodnessOfFit = goodnessOfFitOf(best.chiSquare, variant.observations.length, fittedParameterCount(best), beta);
+  const status = statusOf(best, goodnessOfFit);
   for (const u of restingOnWeakBands(best, settings)) {
     if (undetermined.some((v) => v.parameter === u.parameter)) continue;
     undetermined.push({ parameter: u.parameter, reason: u.reason, action: u.action });
@@ -267,10 +280,23 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
     ...variant.dropped.map((o) => ({ observed: round(o.position), band: o.bands[0]!, reason: 'left unexplained by the chosen assignment' })),
   ];
   const kept = solutions.slice(1).filter((o) => o.score <= alternativeMargin(best.score)).slice(0, maxAlternatives);
-  const alternatives = kept.map((o) => alternativeOf(o, best, settings, probabilityOf.get(o) ?? 0));
+  const { group: assignmentGroup, inGroup } = assignmentGroupOf(solutions, probabilities, uncertainty);
+  const grouped = new Set(solutions.filter((_, i) => inGroup[i]));
+  const alternatives = kept.map((o) => alternativeOf(o, best, settings, probabilityOf.get(o) ?? 0, grouped.has(o)));
   const probability = probabilities[0]!;
-  if (probability < 0.5) {
-    warnings.push(`the chosen assignment is not certain: probability ${(100 * probability).toFixed(0)}% (see the alternatives)`);
+  // β already warned by its prior's penalty needs no second warning (goodnessOfFit.betaPhysical still says it).
+  const betaWarned = best.penalties.some((p) => p.rule === 'beta' && p.amount >= deviance(0.1));
+  warnings.push(...goodnessWarnings(goodnessOfFit, probability, betaWarned ? null : beta, best.wrms));
+  if (assignmentGroup.probability < 0.5) {
+    const of = assignmentGroup.members > 1 ? `; its spin-allowed assignment and parameters ${(100 * assignmentGroup.probability).toFixed(0)}%` : '';
+    warnings.push(`the chosen assignment is not certain: probability ${(100 * probability).toFixed(0)}%${of} (see the alternatives)`);
+  } else if (probability < 0.5) {
+    // Only the labels of weak bands are in doubt (assignment-groups.ts): a note, not a warning.
+    const range = (r: [number, number]) => (Math.round(r[0]) === Math.round(r[1]) ? `${Math.round(r[0])}` : `${Math.round(r[0])}–${Math.round(r[1])}`);
+    notes.push(
+      `the spin-allowed assignment and the parameters are ${(100 * assignmentGroup.probability).toFixed(0)}% probable over ${assignmentGroup.members} solutions `
+      + `(10Dq ${range(assignmentGroup.tenDqRange)}${assignmentGroup.bRange ? `, B ${range(assignmentGroup.bRange)}` : ''} cm-1) that differ only in the labels of the spin-forbidden or unexplained bands; this labelling is ${(100 * probability).toFixed(0)}% probable`,
+    );
   }
   return {
     d: settings.d, ion: settings.ion?.label ?? null, geometry: settings.geometry,
@@ -295,6 +321,8 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
       bDq: nullableRound(correlation.bDq, 4), cDq: nullableRound(correlation.cDq, 4), cB: nullableRound(correlation.cB, 4),
     },
     score: round(best.score, 2), chiSquare: round(best.chiSquare, 2), probability: round(probability, 4), spinStateProbabilities,
+    assignmentGroup: { ...assignmentGroup, probability: round(assignmentGroup.probability, 4) },
+    goodnessOfFit: { ...goodnessOfFit, chiSquare: round(goodnessOfFit.chiSquare, 2), pValue: Number(goodnessOfFit.pValue.toPrecision(3)) },
     undetermined, window: settings.window ?? null, ligands: [...new Set(settings.ligands.map((l) => l.key))],
     penalties: roundPenalties(best.penalties), assignments: assignmentRows(best), unassigned,
     skipped: best.skipped.map((s) => ({ ...s, energy: round(s.energy) })), alternatives, crossover,

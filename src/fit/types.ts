@@ -7,6 +7,8 @@ import type { Ion } from '../chemistry/ions.js';
 import type { Geometry, SpinState } from '../ligand-field/types.js';
 import type { BandFlag, BandInput } from './bands.js';
 import type { Lfse } from './lfse.js';
+import type { GoodnessOfFit } from './goodness-of-fit.js';
+import type { AssignmentGroup } from './assignment-groups.js';
 
 export interface FitInput {
   /** "Cr3+", "Cr(III)", or a parsed Ion. Gives d and, where tabulated, B0 and C0. */
@@ -106,6 +108,8 @@ export interface Alternative {
   spinState: SpinState;
   /** Why the chosen assignment was preferred to this one. */
   reason: string;
+  /** Same spin-allowed assignment, spin state and parameters as the chosen one (assignment-groups.ts): it differs only in weak-band labels. */
+  inChosenGroup: boolean;
 }
 
 export interface PredictedTransition {
@@ -170,6 +174,10 @@ export interface FitResult {
   chiSquare: number;
   /** Probability of the chosen assignment among the solutions evaluated. */
   probability: number;
+  /** The chosen solution's group: the solutions with its spin-allowed assignment and parameters, and their summed probability (assignment-groups.ts). */
+  assignmentGroup: AssignmentGroup;
+  /** Absolute check of the chosen solution (goodness-of-fit.ts): the probability above is only relative to the other assignments. */
+  goodnessOfFit: GoodnessOfFit;
   /** Probability of each spin state (summed over its solutions); only states the d-count allows. */
   spinStateProbabilities: Partial<Record<SpinState, number>>;
   /** Parameters the bands do not determine, each with what was done (fixed at its prior, or not reported). */

@@ -6,6 +6,7 @@ import { computeLevels, type SpinState } from '../ligand-field/index.js';
 import { ligandF, ligandH, ligandsWithF, metalG, metalK, type FactorKind, type FactorValue } from '../predict/factor-table.js';
 import { orbitalOccupation, type Occupation } from '../predict/occupation.js';
 import { decideSpin, orbitalContribution, type SpinDecision } from '../predict/decide-spin.js';
+import { lowSpinAdjustment } from '../predict/low-spin-g.js';
 import { fourCoordinateRule, type PredictGeometry, type Rule } from '../predict/rules.js';
 import { averageEnvironmentFactor } from './average-environment.js';
 
@@ -138,7 +139,7 @@ export function predictComplex(formula: string, options: PredictOptions = {}): P
   const fSigma = Math.hypot(...ligands.map((l, i) => ((positions[i] as number) * l.fFactor.uncertainty) / total));
   const mixed = ligands.length > 1;
   const octahedralTenDq = gFactor.value * fAverage;
-  const tenDqSigmaRel = Math.hypot(gFactor.uncertainty / gFactor.value, fSigma / fAverage, METHOD_SCATTER);
+  let tenDqSigmaRel = Math.hypot(gFactor.uncertainty / gFactor.value, fSigma / fAverage, METHOD_SCATTER);
   let tenDqMethod = mixed ? "rule of average environment: 10Dq = g·Σ n_i f_i / N (Jørgensen's factors)" : 'Jørgensen: 10Dq = f·g';
   let tenDqValue = octahedralTenDq;
   if (geometry === 'tetrahedral') {
@@ -152,7 +153,26 @@ export function predictComplex(formula: string, options: PredictOptions = {}): P
   tenDqMethod += `; ±${Math.round(100 * tenDqSigmaRel)}% (factors' uncertainties and the method's ${Math.round(100 * METHOD_SCATTER)}% scatter)`;
 
   const racah = estimateRacah(metal, ligands, positions, kFactor, warnings);
-  const decision = decideSpin(metal, geometry, tenDqValue, tenDqSigmaRel, racah, ligands.map((l) => l.key), warnings);
+  const spinWarnings: string[] = [];
+  let decision = decideSpin(metal, geometry, tenDqValue, tenDqSigmaRel, racah, ligands.map((l) => l.key), spinWarnings);
+  // A g measured on a high-spin aqua ion does not carry to the ion's low-spin complexes (src/predict/low-spin-g.ts).
+  const lowSpin = lowSpinAdjustment(metal.label, geometry, decision.state, options.g !== undefined);
+  if (lowSpin?.kind === 'low-spin-g') {
+    tenDqValue = lowSpin.g.value * fAverage;
+    tenDqSigmaRel = Math.hypot(lowSpin.g.sigma / lowSpin.g.value, fSigma / fAverage, METHOD_SCATTER);
+    tenDqMethod += `; low-spin: g replaced by the ion's low-spin g ${lowSpin.g.value} cm-1 (${lowSpin.g.source}), ±${Math.round(100 * tenDqSigmaRel)}%`;
+    warnings.push(lowSpin.warning);
+  } else if (lowSpin?.kind === 'widened') {
+    tenDqSigmaRel = Math.hypot(tenDqSigmaRel, lowSpin.scatter);
+    tenDqMethod += `; low-spin with a high-spin g: ±${Math.round(100 * tenDqSigmaRel)}%, f·g likely too low`;
+    warnings.push(lowSpin.warning);
+  }
+  if (lowSpin) {
+    // The numbers' probability is shown beside the spin state: recomputed with the 10Dq actually reported.
+    spinWarnings.length = 0;
+    decision = decideSpin(metal, geometry, tenDqValue, tenDqSigmaRel, racah, ligands.map((l) => l.key), spinWarnings);
+  }
+  warnings.push(...spinWarnings);
   const ground = groundTermFor(metal, geometry, tenDqValue, racah, decision, warnings);
   const highSpinFill = decision.state !== 'low-spin';
   const occupation = orbitalOccupation(metal.d, geometry, highSpinFill);
@@ -166,7 +186,7 @@ export function predictComplex(formula: string, options: PredictOptions = {}): P
   };
   const sources = [...new Set([
     ...ligands.flatMap((l) => [l.fFactor.source, l.hFactor.source]),
-    gFactor.source, kFactor.source,
+    gFactor.source, kFactor.source, ...(lowSpin?.kind === 'low-spin-g' ? [lowSpin.g.source] : []),
     ...(racah ? [racah.source] : []),
     ...(decision.numbers?.pairingEnergy ? [decision.numbers.pairingEnergy.source] : []),
     ...(decision.rule ? [`${decision.rule.statement} (${decision.rule.source})`] : []),

@@ -75,7 +75,11 @@ const percentText = (p: number): string => percentOf(p, { space: true });
  */
 function spinStateProbabilityNote(fit: FitResult): HTMLElement {
   const entries = Object.entries(fit.spinStateProbabilities ?? {}).filter(([key]) => key !== 'no-choice');
-  const spin = entries.map(([key, p]) => `${spinStateText(key)} ${percentText(p)}`).join(' · ');
+  const parts = entries.map(([key, p]) => `${spinStateText(key)} ${percentText(p)}`);
+  // Relative to the other assignments: say so when only weak-band labels differ, and when even the best fits poorly.
+  if (fit.assignmentGroup && fit.assignmentGroup.members > 1) parts.push(`spin-allowed assignment and parameters ${percentText(fit.assignmentGroup.probability)}`);
+  if (fit.goodnessOfFit?.verdict === 'poor') parts.push(`poorly fitted (χ² p = ${fit.goodnessOfFit.pValue.toPrecision(2)})`);
+  const spin = parts.join(' · ');
   const undetermined = fit.undetermined ?? [];
   return h(
     'div',

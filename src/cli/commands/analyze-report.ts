@@ -35,7 +35,12 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
   lines.push(`  beta        ${fit.beta === null ? 'not determined' : `${formatPlusMinus(fit.beta, fit.betaSd, { digits: 3 })} (B0 = ${fit.freeIonB} cm-1)`}`);
   lines.push(`  ground      ${fit.groundLabel}, ${spinStateSentence(fit.spinState, fit.d, fit.geometry)}, ${fit.unpairedElectrons} unpaired, spin-only ${fit.spinOnlyMoment.toFixed(2)} μB`);
   lines.push(`  rms         ${fit.rmsResidual.toFixed(0)} cm-1 (${fit.message})`);
-  lines.push(`  assignment  probability ${percentText(fit.probability)}${spinStates(fit.spinStateProbabilities)}`);
+  // The group (src/fit/assignment-groups.ts): a stored result from an older fieldgap may lack it.
+  const group = fit.assignmentGroup as typeof fit.assignmentGroup | undefined;
+  const grouped = group && group.members > 1 ? `; spin-allowed assignment and parameters ${percentText(group.probability)} (${group.members} labellings of the weak bands)` : '';
+  lines.push(`  assignment  probability ${percentText(fit.probability)}${grouped}${spinStates(fit.spinStateProbabilities)}`);
+  const goodness = fit.goodnessOfFit as typeof fit.goodnessOfFit | undefined;
+  if (goodness?.verdict === 'poor') lines.push(`  fit         POOR: χ² = ${goodness.chiSquare.toFixed(1)} for ${goodness.degreesOfFreedom} degrees of freedom (p = ${goodness.pValue.toPrecision(2)})`);
   const warnings = result.warnings;
   if (warnings.length > 0) lines.push('', 'Warnings', ...warnings.map((w) => `  - ${w}`));
   lines.push('', 'Results are model estimates: check the assignment against the spectrum.');

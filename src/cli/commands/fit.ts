@@ -217,7 +217,15 @@ export function fitReport(r: FitResult): string {
   lines.push(`LFSE = ${r.lfse.dq} Dq = ${fmt(r.lfse.cm1)} cm-1 (${r.lfse.configuration}; ${r.lfse.extraPairs} pair${r.lfse.extraPairs === 1 ? '' : 's'} beyond the free ion, pairing energy not included)`);
   lines.push(`Fit: ${r.message}; rms residual ${fmt(r.rmsResidual)} cm-1`);
   const spinChoice = Object.entries(r.spinStateProbabilities).filter(([key]) => key !== 'no-choice');
-  lines.push(`Probability of this assignment: ${percentText(r.probability)}${spinChoice.length ? `; spin state: ${spinChoice.map(([key, p]) => `${key} ${percentText(p ?? 0)}`).join(', ')}` : ''} (score ${fmt(r.score, 1)} = −2 ln p + const)`);
+  lines.push(`Probability of this assignment: ${percentText(r.probability)}${spinChoice.length ? `; spin state: ${spinChoice.map(([key, p]) => `${key} ${percentText(p ?? 0)}`).join(', ')}` : ''} (score ${fmt(r.score, 1)} = −2 ln p + const; relative to the other assignments tried)`);
+  const group = r.assignmentGroup as FitResult['assignmentGroup'] | undefined;
+  if (group && group.members > 1) {
+    const range = (x: [number, number]) => (Math.round(x[0]) === Math.round(x[1]) ? fmt(x[0]) : `${fmt(x[0])}–${fmt(x[1])}`);
+    lines.push(`Probability of the spin-allowed assignment and parameters: ${percentText(group.probability)} (${group.members} solutions differing only in weak-band labels; 10Dq ${range(group.tenDqRange)}${group.bRange ? `, B ${range(group.bRange)}` : ''} cm-1)`);
+  }
+  // The absolute check (src/fit/goodness-of-fit.ts): older stored results lack it.
+  const g = r.goodnessOfFit as FitResult['goodnessOfFit'] | undefined;
+  if (g) lines.push(`Goodness of fit: ${g.verdict === 'poor' ? 'POOR' : 'good'}: χ² = ${fmt(g.chiSquare, 1)} for ${g.degreesOfFreedom} degree${g.degreesOfFreedom === 1 ? '' : 's'} of freedom (p = ${g.pValue < 1e-6 ? '< 1e-6' : g.pValue.toPrecision(2)})${g.betaPhysical === false ? '; β outside 0.3–1.1, not physical' : ''}`);
   for (const u of r.undetermined) lines.push(`Not determined by these bands: ${u.parameter === 'tenDq' ? '10Dq' : u.parameter.toUpperCase()} (${u.reason}); ${u.action}`);
   if (r.window) lines.push(`Measured range: ${fmt(r.window.min)}–${fmt(r.window.max)} cm-1 (${fmt(1e7 / r.window.max)}–${fmt(1e7 / r.window.min)} nm)`);
   lines.push('', 'Assignment (cm-1):');
@@ -230,7 +238,7 @@ export function fitReport(r: FitResult): string {
     lines.push('', 'Runners-up:');
     for (const alt of r.alternatives) {
       const params = `10Dq ${fmt(alt.tenDq)}${alt.b === null ? '' : `, B ${fmt(alt.b)}`}`;
-      lines.push(`  ${alt.assignments.map((a) => a.label).join(', ')}: ${params}, ${alt.spinState === 'no-choice' ? '' : `${alt.spinState}, `}rms ${fmt(alt.rmsResidual)} cm-1, probability ${percentText(alt.probability)}`, `    not chosen: ${alt.reason}`);
+      lines.push(`  ${alt.assignments.map((a) => a.label).join(', ')}: ${params}, ${alt.spinState === 'no-choice' ? '' : `${alt.spinState}, `}rms ${fmt(alt.rmsResidual)} cm-1, probability ${percentText(alt.probability)}${alt.inChosenGroup ? ' (same spin-allowed assignment and parameters)' : ''}`, `    not chosen: ${alt.reason}`);
     }
   }
   lines.push('', `Predicted transitions below 50000 cm-1 (* spin-allowed):`);
