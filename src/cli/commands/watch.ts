@@ -119,7 +119,7 @@ export const watchCommand: Command = {
     process.once('SIGINT', onSignal);
     process.once('SIGTERM', onSignal);
     try {
-      io.stdout(`watching ${positionals[0]} (every ${interval} ms; Ctrl-C to stop)\n`);
+      io.stdout(values.once ? `reading ${positionals[0]} once\n` : `watching ${positionals[0]} (every ${interval} ms; Ctrl-C to stop)\n`);
       await watchFolder(dir, sink, io, { interval, settle: values.once ? 0 : settle, once: values.once === true, signal: stop.signal });
     } finally {
       process.off('SIGINT', onSignal);
@@ -199,14 +199,28 @@ export async function watchFolder(
     }
     if (alreadyStored > 0) io.stdout(`${alreadyStored} file${alreadyStored === 1 ? '' : 's'} already in the library\n`);
     if (once) return;
-    await new Promise<void>((resolveWait) => {
-      const timer = setTimeout(resolveWait, interval);
-      signal.addEventListener('abort', () => {
-        clearTimeout(timer);
-        resolveWait();
-      }, { once: true });
-    });
+    await pause(interval, signal);
   }
+}
+
+/**
+ * Waits `ms`, or until `signal` aborts. The abort listener is removed when the
+ * timer fires: a watcher polls for days, and one listener left per poll grows
+ * without bound (and trips node's MaxListenersExceeded warning after ten).
+ */
+export function pause(ms: number, signal: AbortSignal): Promise<void> {
+  return new Promise<void>((resolveWait) => {
+    if (signal.aborted) return resolveWait();
+    const onAbort = () => {
+      clearTimeout(timer);
+      resolveWait();
+    };
+    const timer = setTimeout(() => {
+      signal.removeEventListener('abort', onAbort);
+      resolveWait();
+    }, ms);
+    signal.addEventListener('abort', onAbort, { once: true });
+  });
 }
 
 async function localSink(flags: LibraryFlags, io: CliIo, options: AnalyzeOptions, details: { formula?: string; ligands?: string[] }): Promise<Sink> {
