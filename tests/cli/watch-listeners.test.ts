@@ -20,7 +20,7 @@ beforeEach(() => {
 afterEach(() => rmSync(dir, { recursive: true, force: true }));
 
 const noSink = {
-  find: async () => null,
+  stored: async () => [],
   save: async () => {
     throw new Error('nothing to save in this test');
   },
