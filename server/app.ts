@@ -29,8 +29,8 @@ import { createSeriesRouter } from './routes/series.js';
 import { lazyLibrary } from '../src/library/lazy.js';
 import { openLibraryAt, type Library, type LibraryLocation } from '../src/library/library.js';
 import { resolveLibraryLocation } from '../src/library/location.js';
-import { isFieldgapError } from '../src/errors.js';
 import { authenticate, usersResolver, type IdentityResolver } from './security/auth.js';
+import { healthHandler } from './routes/health.js';
 import { declaredLengthGuard } from './security/declared-length.js';
 import { hostGuard, LOOPBACK_HOSTS } from './security/hosts.js';
 import { originGuard } from './security/origin.js';
@@ -140,22 +140,15 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
   app.use(requestLogger(logger));
   // Who may ask at all, before any route runs: this server's names only, the token off loopback, no foreign site's writes.
   app.use(hostGuard(allowedHosts));
-  app.use(authenticate(identifyUsers ? usersResolver(library.users, identify) : identify));
+  const resolve = identifyUsers ? usersResolver(library.users, identify) : identify;
+  // Health before the token check: a proxy's health check needs no token (it gets the short answer, routes/health.ts).
+  app.get('/api/v1/health', healthHandler({ version, startedAt, pool, library, resolve }));
+  app.use(authenticate(resolve));
   app.use(originGuard());
   app.use(declaredLengthGuard(Math.max(maxBodyBytes + MULTIPART_OVERHEAD_BYTES, maxJsonBytes)));
   app.use('/api', express.json({ limit: maxJsonBytes }), jsonDepthGuard());
 
   const api = express.Router();
-  api.get('/health', async (_req, res) => {
-    const reachable = await library.ping().then(
-      () => ({ reachable: true }),
-      (error: unknown) => ({ reachable: false, message: isFieldgapError(error) ? error.message : 'the library could not be opened' }),
-    );
-    res.json({
-      status: 'ok', version, uptime: (Date.now() - startedAt) / 1000, pool: { mode: pool.mode, workersStopped: pool.workersStopped() },
-      library: { engine: library.engine, readOnly: library.readOnly, ...reachable },
-    });
-  });
   api.get('/openapi.json', (_req, res) => {
     res.json(openapi);
   });

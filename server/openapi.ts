@@ -112,7 +112,11 @@ export function buildOpenApiDocument(version: string, limits: DocumentedLimits):
     },
     paths: {
       '/api/v1/health': {
-        get: { operationId: 'health', summary: 'Liveness check', responses: { '200': ok('The server is up.', 'Health') } },
+        get: {
+          operationId: 'health', summary: 'Liveness check',
+          description: 'Needs no token. Beyond loopback, a request without a valid token (a proxy\'s health check) gets only { status, library: { reachable } }; with one, the full answer.',
+          responses: { '200': ok('The server is up.', 'Health') },
+        },
       },
       '/api/v1/openapi.json': {
         get: { operationId: 'openapi', summary: 'This document', responses: { '200': { description: 'OpenAPI 3.1 document.' } } },

@@ -13,6 +13,7 @@ import { createHash, randomBytes, timingSafeEqual } from 'node:crypto';
 import type { NextFunction, Request, Response } from 'express';
 import { FieldgapError } from '../../src/errors.js';
 import type { RecordScope, UserStore } from '../../src/library/users.js';
+import { rememberVerifiedTokens, type VerifiedTokenOptions } from './verified-tokens.js';
 
 /** Who sent a request. */
 export interface Identity {
@@ -57,13 +58,14 @@ export function singleTokenResolver(token: string, identity: Identity = { id: 't
  * service token (when given) is accepted instead, so a service started before
  * its users keeps working; once users exist, only their tokens are.
  */
-export function usersResolver(users: Pick<UserStore, 'resolveToken' | 'count'>, single?: IdentityResolver): IdentityResolver {
-  return async (token) => {
+export function usersResolver(users: Pick<UserStore, 'resolveToken' | 'count'>, single?: IdentityResolver, remember?: VerifiedTokenOptions): IdentityResolver {
+  // Through a database outage, tokens verified shortly before keep the stateless routes open (verified-tokens.ts says why and how long).
+  return rememberVerifiedTokens(async (token) => {
     const scope = await users.resolveToken(token);
     if (scope !== undefined) return { id: scope.user, scope };
     if (single === undefined || (await users.count()) > 0) return undefined;
     return single(token);
-  };
+  }, remember);
 }
 
 /** The value of one cookie from a Cookie header ("a=1; fieldgap_token=…"). */

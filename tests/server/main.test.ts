@@ -99,9 +99,12 @@ describe('startServer', () => {
     try {
       expect(running.token).toMatch(/^[\w-]{40,}$/);
       expect(running.url).not.toContain('0.0.0.0');
-      const base = `http://127.0.0.1:${running.port}/api/v1/health`;
+      const base = `http://127.0.0.1:${running.port}/api/v1/analyses`;
       expect((await fetch(base)).status).toBe(401);
       expect((await fetch(base, { headers: { authorization: `Bearer ${running.token}` } })).status).toBe(200);
+      // Health answers a proxy's check without a token, but only status and reachability (issue 17, audit).
+      const health = `http://127.0.0.1:${running.port}/api/v1/health`;
+      expect(await (await fetch(health)).json()).toEqual({ status: 'ok', library: { reachable: true } });
     } finally {
       await running.close();
     }

@@ -110,7 +110,7 @@ describe('fieldgap watch', () => {
 
     // A restart stores nothing twice; a new file is stored.
     const again = startWatch();
-    await again.until((l) => l.includes('50 files already in the library'));
+    await again.until((l) => l.some((x) => x.startsWith('50 files already in the library: ')));
     writeFileSync(join(folder, 'run-50.csv'), spectrumFile(50));
     await again.until((l) => saved(l).length >= 1);
     expect(await again.stop()).toBe(0);
@@ -149,9 +149,55 @@ describe('fieldgap watch', () => {
       expect(first.lines.filter((l) => l.startsWith('notes.csv: not stored: '))).toHaveLength(1);
       const second = await run();
       expect(saved(second.lines)).toHaveLength(0);
-      expect(second.lines).toContain('3 files already in the library');
+      expect(second.lines).toContain('3 files already in the library: run-0.csv, run-1.csv, run-2.csv');
       const page = (await (await fetch(`${url}/api/v1/analyses`)).json()) as { total: number };
       expect(page.total).toBe(3);
+    } finally {
+      await new Promise((resolve) => server.close(resolve));
+      await app.close();
+    }
+  });
+
+  it('stores every spectrum of a multi-column file, one record each, locally and --into a service; a second pass stores none again', { timeout: 300_000 }, async () => {
+    // spectra-demo/cr-series.csv: the invented demo scenario, three y columns (en, urea, NCS), which analyze and series read as three spectra.
+    const series = readFileSync(join(ROOT, 'spectra-demo', 'cr-series.csv'));
+    writeFileSync(join(folder, 'cr-series.csv'), series);
+    const LABELS = ['cr-series.csv#1 (Cr-en absorbance)', 'cr-series.csv#2 (Cr-urea absorbance)', 'cr-series.csv#3 (Cr-NCS absorbance)'];
+    const run = async (...target: string[]) => {
+      const child = spawn(process.execPath, ['--import', 'tsx', ENTRY, 'watch', folder, '--ion', 'Cr3+', ...target, '--once'], { cwd: ROOT });
+      let out = '';
+      child.stdout!.setEncoding('utf8').on('data', (c: string) => (out += c));
+      const code = await new Promise((resolve) => child.once('close', resolve));
+      return { code, lines: out.trim().split('\n') };
+    };
+    const app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, dataDir: join(dir, 'service-lib') });
+    const server = createServer(app);
+    await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+    try {
+      const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+      for (const target of [['--data', dataDir], ['--into', url]]) {
+        const first = await run(...target);
+        expect(first.code).toBe(0);
+        expect(first.lines.filter((l) => / saved #\d+ /.test(l)).map((l) => l.split(': saved')[0])).toEqual(LABELS);
+        const second = await run(...target);
+        expect(second.lines.filter((l) => / saved #\d+ /.test(l))).toHaveLength(0);
+        expect(second.lines).toContain(`3 files already in the library: ${LABELS.join(', ')}`);
+      }
+      const library = await openLibrary(dataDir);
+      try {
+        const page = await library.list({});
+        expect(page.total).toBe(3);
+        const records = await Promise.all(page.analyses.map((a) => library.get(a.id)));
+        expect(records.map((r) => r.options.column).sort()).toEqual([1, 2, 3]);
+        expect(records.map((r) => r.sample).sort()).toEqual(['cr-series: Cr-NCS absorbance', 'cr-series: Cr-en absorbance', 'cr-series: Cr-urea absorbance']);
+        // Three different spectra, three different fits: not one column stored three times.
+        expect(new Set(records.map((r) => r.summary.tenDq)).size).toBe(3);
+        for (const r of records) expect(r.original.sha256).toBe(sha(series));
+      } finally {
+        await library.close();
+      }
+      const remote = (await (await fetch(`${url}/api/v1/analyses`)).json()) as { total: number };
+      expect(remote.total).toBe(3);
     } finally {
       await new Promise((resolve) => server.close(resolve));
       await app.close();

@@ -6,6 +6,7 @@ import type { AnalysisRecord, AnalysisSummary, FitSummary } from '../../library/
 import type { AssignmentChange } from '../../library/refit.js';
 import { terminalSafe } from '../terminal-text.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
+import { NO_SPIN_STATE_CHOICE } from '../../report/spin-state-wording.js';
 import { textTableLines, type ColumnAlign } from '../../report/text-table.js';
 import type { FitResult } from '../../fit/types.js';
 
@@ -24,7 +25,8 @@ export function fitLine(s: FitSummary): string {
   const parts = [`10Dq = ${plusMinus(s.tenDq, s.tenDqSd)} cm-1`];
   if (s.b !== null) parts.push(`B = ${plusMinus(s.b, s.bSd)} cm-1`);
   if (s.beta !== null) parts.push(`β = ${plusMinus(s.beta, s.betaSd, 2)}`);
-  if (s.spinState) parts.push(s.spinState);
+  // A sentence, not a table cell: the one wording of src/report (a stored summary has no d or geometry to add).
+  if (s.spinState) parts.push(s.spinState === 'no-choice' ? NO_SPIN_STATE_CHOICE : s.spinState);
   if (s.rmsResidual !== null) parts.push(`rms ${s.rmsResidual.toFixed(0)} cm-1`);
   return parts.join('   ');
 }
@@ -35,8 +37,9 @@ export function changeLines(changes: readonly AssignmentChange[]): string {
   const names = { spinState: 'spin state', groundTerm: 'ground term', cMode: 'C' } as const;
   return changes
     .map((c) => {
-      const was = c.before ?? 'not assigned';
-      const now = c.after ?? 'not assigned';
+      const words = (v: string | null | undefined) => (v === 'no-choice' && c.what === 'spinState' ? NO_SPIN_STATE_CHOICE : v ?? 'not assigned');
+      const was = words(c.before);
+      const now = words(c.after);
       return c.what === 'band' ? `  band ${c.observed!.toFixed(0)} cm-1: ${was} → ${now}\n` : `  ${names[c.what]}: ${was} → ${now}\n`;
     })
     .join('');
@@ -91,7 +94,8 @@ export function recordText(r: AnalysisRecord): string {
   const assignments: Partial<FitResult['assignments'][number]>[] = r.result.fit?.assignments ?? [];
   if (assignments.length > 0) {
     const rows = [['  OBSERVED/cm-1', 'CALCULATED/cm-1', 'TERM']];
-    for (const a of assignments) rows.push([`  ${a.observed?.toFixed(0) ?? '-'}`, a.calculated?.toFixed(0) ?? '-', a.term ?? '']);
+    // The label keeps the parent term ("3T1g(P)"): by the bare term both Ni(II) bands read "3T1g". Older records may lack it.
+    for (const a of assignments) rows.push([`  ${a.observed?.toFixed(0) ?? '-'}`, a.calculated?.toFixed(0) ?? '-', terminalSafe(a.label ?? a.term ?? '')]);
     lines.push(table(rows, new Set([0, 1])).trimEnd());
   }
   if (r.revisions.length > 1) {

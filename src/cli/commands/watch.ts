@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, extname, join, resolve } from 'node:path';
-import type { AnalyzeOptions } from '../../analysis.js';
+import type { AnalyzeOptions, listSpectra } from '../../analysis.js';
 import { FieldgapError, invalidArgument, isFieldgapError } from '../../errors.js';
 import type { Library } from '../../library/library.js';
 import type { FitSummary } from '../../library/types.js';
@@ -49,12 +49,47 @@ ${ANALYSIS_USAGE}
 
 Energies are in cm-1.`;
 
+/** One spectrum of a file: `column` undefined for a file's only spectrum (or the one --column chose, kept in the options). */
+export interface WatchedSpectrum {
+  column?: number;
+  /** The column's name, for a file that holds several. */
+  name?: string;
+}
+
 /** Where analysed files go: this machine's library, or a service. */
-interface Sink {
-  /** The id of a record whose original has this SHA-256, or null. */
-  find(sha256: string): Promise<number | null>;
-  save(file: string, content: Uint8Array): Promise<{ id: number; summary: FitSummary }>;
+export interface Sink {
+  /**
+   * The records whose original has this SHA-256, each by the column it
+   * analysed (its options.column; null when it names none: a file's only or
+   * first spectrum).
+   */
+  stored(sha256: string): Promise<Array<number | string | null>>;
+  save(file: string, content: Uint8Array, spectrum: WatchedSpectrum): Promise<{ id: number; summary: FitSummary }>;
   close(): Promise<void>;
+}
+
+/**
+ * The spectra of a file to store, one record each, as `analyze` and `series`
+ * read them: every y column of a multi-column file, unless --column chose one.
+ * A file that cannot be parsed is one item: its analysis says why.
+ */
+export function spectraToStore(
+  content: Uint8Array, fileName: string, options: Pick<AnalyzeOptions, 'column' | 'xUnit'>, list: typeof listSpectra,
+): WatchedSpectrum[] {
+  if (options.column !== undefined) return [{}];
+  try {
+    const spectra = list(content, { fileName, ...(options.xUnit !== undefined && { xUnit: options.xUnit }) });
+    return spectra.length <= 1 ? [{}] : spectra.map((s) => ({ column: s.column, name: s.name }));
+  } catch (error) {
+    if (!isFieldgapError(error)) throw error;
+    return [{}];
+  }
+}
+
+/** Whether `spectrum` is among the `stored` columns of its file (a record without a column is the file's first spectrum). */
+function alreadyStored(spectrum: WatchedSpectrum, stored: ReadonlyArray<number | string | null>, first: WatchedSpectrum | undefined): boolean {
+  if (spectrum.column === undefined) return stored.length > 0;
+  return stored.some((c) => (c === null ? spectrum.column === first?.column : String(c) === String(spectrum.column)));
 }
 
 interface Tracked {
@@ -114,13 +149,18 @@ export const watchCommand: Command = {
       ? remoteSink(values.into, values.token ?? io.env['FIELDGAP_TOKEN'], options, details)
       : await localSink({ data: values.data, database: values.database }, io, options, details);
 
+    // Loaded here, not at the top: every fieldgap command loads this file, and the pipeline is heavy.
+    const { listSpectra: list } = await import('../../analysis.js');
     const stop = new AbortController();
     const onSignal = () => stop.abort();
     process.once('SIGINT', onSignal);
     process.once('SIGTERM', onSignal);
     try {
-      io.stdout(`watching ${positionals[0]} (every ${interval} ms; Ctrl-C to stop)\n`);
-      await watchFolder(dir, sink, io, { interval, settle: values.once ? 0 : settle, once: values.once === true, signal: stop.signal });
+      io.stdout(values.once ? `reading ${positionals[0]} once\n` : `watching ${positionals[0]} (every ${interval} ms; Ctrl-C to stop)\n`);
+      await watchFolder(dir, sink, io, {
+        interval, settle: values.once ? 0 : settle, once: values.once === true, signal: stop.signal,
+        spectra: (content, name) => spectraToStore(content, name, options, list),
+      });
     } finally {
       process.off('SIGINT', onSignal);
       process.off('SIGTERM', onSignal);
@@ -135,7 +175,11 @@ export async function watchFolder(
   dir: string,
   sink: Sink,
   io: Pick<CliIo, 'stdout' | 'stderr'>,
-  { interval, settle, once, signal }: { interval: number; settle: number; once: boolean; signal: AbortSignal },
+  { interval, settle, once, signal, spectra = () => [{}] }: {
+    interval: number; settle: number; once: boolean; signal: AbortSignal;
+    /** The spectra of a file, each stored as its own record; default: the file is one. */
+    spectra?: (content: Uint8Array, fileName: string) => WatchedSpectrum[];
+  },
 ): Promise<void> {
   const tracked = new Map<string, Tracked>();
   while (!signal.aborted) {
@@ -146,7 +190,7 @@ export async function watchFolder(
       io.stderr(`watch: cannot read the folder (${(error as NodeJS.ErrnoException).code ?? 'error'}); trying again\n`);
       names = [];
     }
-    let alreadyStored = 0;
+    const already: string[] = [];
     for (const name of names) {
       if (signal.aborted) break;
       const path = join(dir, name);
@@ -179,34 +223,58 @@ export async function watchFolder(
       entry.done = true;
       if (entry.handled === sha) continue;
       entry.handled = sha;
-      try {
-        const existing = await sink.find(sha);
-        if (existing !== null) {
-          alreadyStored += 1;
-          continue;
-        }
-        const saved = await sink.save(name, content);
-        io.stdout(`${name}: saved #${saved.id}   ${fitLine(saved.summary)}\n`);
-      } catch (error) {
-        const message = isFieldgapError(error) ? `${error.path && error.path !== name ? `${error.path}: ` : ''}${error.message}` : (error as Error).message;
-        io.stdout(`${name}: not stored: ${message.replace(/[\r\n]+/g, ' ')}\n`);
-        // A library or service that is away is tried again on the next poll; a file that cannot be analysed is not.
-        if (isFieldgapError(error) && (error.code === 'storage-unavailable' || error.code === 'timeout')) {
-          entry.handled = null;
-          entry.done = false;
+      // Every spectrum of the file is its own record (as analyze and series read them); none is left out unsaid.
+      const parts = spectra(content, name);
+      let stored: Array<number | string | null> | undefined;
+      for (const spectrum of parts) {
+        const label = spectrum.column === undefined ? name : `${name}#${spectrum.column}${spectrum.name ? ` (${spectrum.name})` : ''}`;
+        try {
+          stored ??= await sink.stored(sha);
+          if (alreadyStored(spectrum, stored, parts[0])) {
+            already.push(label);
+            continue;
+          }
+          const saved = await sink.save(name, content, spectrum);
+          io.stdout(`${label}: saved #${saved.id}   ${fitLine(saved.summary)}\n`);
+        } catch (error) {
+          const message = isFieldgapError(error) ? `${error.path && error.path !== name ? `${error.path}: ` : ''}${error.message}` : (error as Error).message;
+          io.stdout(`${label}: not stored: ${message.replace(/[\r\n]+/g, ' ')}\n`);
+          // A library or service that is away is tried again on the next poll (the spectra stored by then are skipped); a file that cannot be analysed is not.
+          if (isFieldgapError(error) && (error.code === 'storage-unavailable' || error.code === 'timeout')) {
+            entry.handled = null;
+            entry.done = false;
+            break;
+          }
         }
       }
     }
-    if (alreadyStored > 0) io.stdout(`${alreadyStored} file${alreadyStored === 1 ? '' : 's'} already in the library\n`);
+    if (already.length > 0) {
+      const shown = already.length > 5 ? `${already.slice(0, 5).join(', ')} and ${already.length - 5} more` : already.join(', ');
+      io.stdout(`${already.length} ${already.length === 1 ? 'file' : 'files'} already in the library: ${shown}\n`);
+    }
     if (once) return;
-    await new Promise<void>((resolveWait) => {
-      const timer = setTimeout(resolveWait, interval);
-      signal.addEventListener('abort', () => {
-        clearTimeout(timer);
-        resolveWait();
-      }, { once: true });
-    });
+    await pause(interval, signal);
   }
+}
+
+/**
+ * Waits `ms`, or until `signal` aborts. The abort listener is removed when the
+ * timer fires: a watcher polls for days, and one listener left per poll grows
+ * without bound (and trips node's MaxListenersExceeded warning after ten).
+ */
+export function pause(ms: number, signal: AbortSignal): Promise<void> {
+  return new Promise<void>((resolveWait) => {
+    if (signal.aborted) return resolveWait();
+    const onAbort = () => {
+      clearTimeout(timer);
+      resolveWait();
+    };
+    const timer = setTimeout(() => {
+      signal.removeEventListener('abort', onAbort);
+      resolveWait();
+    }, ms);
+    signal.addEventListener('abort', onAbort, { once: true });
+  });
 }
 
 async function localSink(flags: LibraryFlags, io: CliIo, options: AnalyzeOptions, details: { formula?: string; ligands?: string[] }): Promise<Sink> {
@@ -217,15 +285,24 @@ async function localSink(flags: LibraryFlags, io: CliIo, options: AnalyzeOptions
   ]);
   const library: Library = await openLibraryAt(resolveLibraryLocation({ dataFlag: flags.data, databaseFlag: flags.database, env: io.env, cwd: io.cwd }));
   return {
-    find: async (sha256) => (await library.list({ sha256, limit: 1 })).analyses[0]?.id ?? null,
-    save: async (file, content) => {
-      const fileOptions = { ...options, fileName: basename(file) };
+    stored: async (sha256) => {
+      const page = await library.list({ sha256, limit: 1000 });
+      return Promise.all(page.analyses.map(async (a) => (await library.get(a.id)).options.column ?? null));
+    },
+    save: async (file, content, spectrum) => {
+      const fileOptions = { ...options, fileName: basename(file), ...(spectrum.column !== undefined && { column: spectrum.column }) };
       const result = analyzeSpectrum(content, fileOptions);
-      const saved = await library.add({ ...details, sample: basename(file, extname(file)), fileName: basename(file), content, options: fileOptions, result });
+      const saved = await library.add({ ...details, sample: sampleName(file, spectrum), fileName: basename(file), content, options: fileOptions, result });
       return { id: saved.id, summary: saved.summary };
     },
     close: () => library.close(),
   };
+}
+
+/** The record's sample: the file's name, and for one of several spectra its column's name too ("cr-series: en", as series names them). */
+function sampleName(file: string, spectrum: WatchedSpectrum): string {
+  const base = basename(file, extname(file));
+  return spectrum.column === undefined ? base : `${base}: ${spectrum.name ?? `column ${spectrum.column}`}`;
 }
 
 /** A fieldgap service at `base` (http://host:port, with or without /api/v1). */
@@ -262,14 +339,15 @@ function remoteSink(base: string, token: string | undefined, options: AnalyzeOpt
   if (details.formula !== undefined) fields.set('formula', details.formula);
   if (details.ligands !== undefined) fields.set('ligands', details.ligands.join(','));
   return {
-    find: async (sha256) => {
-      const page = (await call(`analyses?${new URLSearchParams({ sha256, limit: '1' }).toString()}`, { method: 'GET' })) as { analyses: { id: number }[] };
-      return page.analyses[0]?.id ?? null;
+    stored: async (sha256) => {
+      const page = (await call(`analyses?${new URLSearchParams({ sha256, limit: '1000' }).toString()}`, { method: 'GET' })) as { analyses: { id: number }[] };
+      return Promise.all(page.analyses.map(async (a) => ((await call(`analyses/${a.id}`, { method: 'GET' })) as { options?: { column?: number | string } }).options?.column ?? null));
     },
-    save: async (file, content) => {
+    save: async (file, content, spectrum) => {
       const query = new URLSearchParams(fields);
       query.set('fileName', basename(file));
-      query.set('sample', basename(file, extname(file)));
+      query.set('sample', sampleName(file, spectrum));
+      if (spectrum.column !== undefined) query.set('column', String(spectrum.column));
       const saved = (await call(`analyses?${query.toString()}`, {
         method: 'POST', body: new Uint8Array(content), headers: { 'Content-Type': 'application/octet-stream' },
       })) as { id: number; summary: FitSummary };
