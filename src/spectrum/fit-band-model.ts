@@ -17,7 +17,8 @@
  * 3. the edge (in 'auto' mode) is tried off when present and on when
  *    absent, kept by the same criterion;
  * 4. a band is added where the residual still shows one (not at the range
- *    boundaries), kept only by the criterion; then step 2–3 again; a band
+ *    boundaries; a broad band the first fit lost is sought against the white
+ *    noise too: residualCandidates), kept only by the criterion; then step 2–3 again; a band
  *    under the edge is tried (bandUnderEdge), kept only when one more
  *    baseline order cannot do as well; a narrow maximum of the data that
  *    the model has no line for, on a broad band, restarts that band and its

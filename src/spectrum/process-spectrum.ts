@@ -25,7 +25,10 @@
  * to 0.6 FWHM outside the range; a maximum close to the blue end is
  * proposed as a band, so the UV edge (a CT band centred above the range)
  * cannot take its place. Each band reports its window
- * (inside / near-… / beyond-…); a centre outside the range carries an
+ * (inside / near-… / beyond-…) against the data kept: a stretch masked at
+ * an end moves that end inward (keptRange), and a red end masked as
+ * negative or at a step is closed, no band centred in or on it
+ * (kept-window.ts); a centre outside the range carries an
  * extrapolation error of a tenth of its FWHM in its uncertainty.
  *
  * The fit is weighted by σ (1/σ_i) and the model is chosen by
