@@ -149,8 +149,8 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
     ...(options.freeC !== undefined && { freeC: options.freeC }),
     ...(options.formula !== undefined && { formula: options.formula }),
     ...(options.ligands !== undefined && { ligands: options.ligands }),
-    // The measured range: a strong transition predicted inside it must show a band.
-    window: { min: processed.range[0], max: processed.range[1] },
+    // The range of the data used (the measured range less masked end stretches): a strong transition predicted inside it must show a band.
+    window: { min: processed.keptRange[0], max: processed.keptRange[1] },
   });
   let fit: FitResult;
   try {

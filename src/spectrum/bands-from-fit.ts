@@ -19,7 +19,7 @@ export interface BandsFromFitOptions {
   noise: number;
   gridStep: number;
   thresholds: ClassificationThresholds;
-  /** Measured range [min, max], cm-1 (for each band's window). */
+  /** Range of the data used [min, max], cm-1: the measured range less masked end stretches (for each band's window). */
   range: [number, number];
   /** Baseline slope (signal per cm-1) near each band, for the shoulder test. */
   baselineAt: (x: number) => number;

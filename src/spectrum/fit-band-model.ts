@@ -17,7 +17,8 @@
  * 3. the edge (in 'auto' mode) is tried off when present and on when
  *    absent, kept by the same criterion;
  * 4. a band is added where the residual still shows one (not at the range
- *    boundaries), kept only by the criterion; then step 2–3 again; a band
+ *    boundaries; a broad band the first fit lost is sought against the white
+ *    noise too: residualCandidates), kept only by the criterion; then step 2–3 again; a band
  *    under the edge is tried (bandUnderEdge), kept only when one more
  *    baseline order cannot do as well; a narrow maximum of the data that
  *    the model has no line for, on a broad band, restarts that band and its
@@ -37,8 +38,17 @@ export interface FitBandModelOptions {
   edge: GaussianParameters | null;
   baselineGuess: Float64Array;
   baselineOrder: number;
-  /** Local noise deviation at each x. */
+  /** Local noise deviation at each x: the fit's σ (measurement noise and the band model's shape error). */
   noise: Float64Array;
+  /**
+   * The measurement noise alone at each x (no shape error). A broad band
+   * left in the residual (step 4) is sought against it as well: the shape
+   * error is smooth, and counted as white noise it sets the curvature
+   * threshold of the candidate search many times too high where the signal
+   * is large (under a charge-transfer rise), so a lost band as tall as the
+   * others went unseen (see residualCandidates). @default noise
+   */
+  whiteNoise?: Float64Array;
   broadFwhm: number;
   narrowFwhm: number;
   /** Most bands kept. */
@@ -59,6 +69,13 @@ export interface FitBandModelOptions {
   uncertainFraction?: number;
   /** How far below the low end a band centre may lie, fraction of its FWHM (RefineBandsOptions). @default 0 */
   beyondLowEnd?: number;
+  /**
+   * The data below the low end were read and masked (negative absorbance, a
+   * detector step: kept-window.ts), so no band has its maximum there: a band
+   * within FWHM/4 of the low end (no maximum of its own in the kept data) is
+   * dropped by rule, not by the criterion. @default false
+   */
+  closedLowEnd?: boolean;
   /** Polynomial of baselineGuess (see RefineBandsOptions); fitBandModel fits it once for all its trial models. */
   baselineStart?: Float64Array;
 }
@@ -194,7 +211,7 @@ export function fitBandModel(x: Float64Array, y: Float64Array, options: FitBandM
   for (; added < 3 && fit.bands.length < o.maxBands; added++) {
     const r = residual(x, y, fit);
     const xMin = x[0] as number;
-    const extra = xyFindBandCandidates(x, r, { noise: o.noise, broadFwhm: o.broadFwhm, narrowFwhm: o.narrowFwhm, significance: 5 })
+    const extra = residualCandidates(x, r, fit, o)
       .filter((c) => fit.bands.every((b) => Math.abs(b.position - c.position) > 0.15 * b.fwhm))
       .filter((c) => !atLowEnd(c, xMin) && !(ctx.mode !== false && edgeLike(c, xMax, o.broadFwhm)))
       .filter((c) => c.fwhm < 2 * o.narrowFwhm || c.height >= (o.minAddedFraction ?? 0) * fit.bands.reduce((m, b) => Math.max(m, b.height), 0))
@@ -214,11 +231,42 @@ export function fitBandModel(x: Float64Array, y: Float64Array, options: FitBandM
   // Converged, a band may have drifted where its position is undetermined (a broad band taking up the baseline's
   // curvature at the end of the range): pruned at the lenient limit a band under the edge is held to.
   for (let loop = 0; loop < 3; loop++) {
-    const kept = prune(final, x, o.noise, o.narrowFwhm, Math.max(o.uncertainFraction ?? 0.5, UNDER_EDGE_UNCERTAIN));
+    const pruned = prune(final, x, o.noise, o.narrowFwhm, Math.max(o.uncertainFraction ?? 0.5, UNDER_EDGE_UNCERTAIN));
+    // At a closed low end a band that drifted onto it (its maximum in the masked data) goes too.
+    const kept = o.closedLowEnd === true && final.bands.some((b) => atLowEnd(b, x[0] as number))
+      ? (pruned ?? final.bands).filter((b) => !atLowEnd(b, x[0] as number)) : pruned;
     if (kept === null || kept.length === 0) break;
     final = refine(x, y, kept, final.edge, ctx.o, { maxIterations: 200, chiSquareTolerance: 0.01 });
   }
   return final;
+}
+
+/** Height, as a fraction of the tallest band, from which a broad band in the residual is sought against the white noise. */
+const LOST_BAND_FRACTION = 0.1;
+
+/**
+ * Bands the residual `r` of `fit` still shows: candidates whose curvature
+ * stands 5 σ above the fit's σ (`noise`), and broad ones (FWHM at least
+ * 2 × narrowFwhm) whose curvature stands 5 σ above the white noise, at
+ * least LOST_BAND_FRACTION of the tallest band high and 5 fit σ above the
+ * residual: a band the first fit lost (collapsed to zero height under a
+ * charge-transfer rise, where the shape error dominates σ: the 4T1g(P)
+ * band of V(II) near 29 000 cm-1 in a 250–2500 nm spectrum, tests/spectrum/
+ * lost-band.test.ts). The shape error is smooth and the criterion that
+ * keeps a band is the fit's, so the white-noise search only proposes.
+ */
+function residualCandidates(x: Float64Array, r: Float64Array, fit: RefineBandsResult, o: FitBandModelOptions): BandCandidate[] {
+  const search = { broadFwhm: o.broadFwhm, narrowFwhm: o.narrowFwhm, significance: 5 };
+  const found = xyFindBandCandidates(x, r, { ...search, noise: o.noise });
+  if (o.whiteNoise === undefined) return found;
+  const tallest = fit.bands.reduce((m, b) => Math.max(m, b.height), 0);
+  const lost = xyFindBandCandidates(x, r, { ...search, noise: o.whiteNoise, narrow: false })
+    .filter((c) => c.fwhm >= 2 * o.narrowFwhm && c.height >= LOST_BAND_FRACTION * tallest && c.height > 5 * (o.noise[xNearestIndex(x, c.position)] as number))
+    .filter((c) => found.every((f) => Math.abs(f.position - c.position) > 0.5 * c.fwhm))
+    // Only where the data showed a band at the start (a broad candidate) that no fitted band now covers: a lost band.
+    .filter((c) => o.candidates.some((k) => k.fwhm >= 2 * o.narrowFwhm && Math.abs(k.position - c.position) < 0.5 * k.fwhm
+      && fit.bands.every((b) => Math.abs(b.position - k.position) > 0.5 * Math.max(b.fwhm, k.fwhm))));
+  return [...found, ...lost];
 }
 
 /**
@@ -279,6 +327,27 @@ function edgeStart(xMax: number, atEnd: number): GaussianParameters {
   return { position, fwhm, height: Math.max(atEnd, 0) / gaussianValue(xMax, position, 1, fwhm) };
 }
 
+/**
+ * At a closed low end (closedLowEnd) the bands on it go by rule. What they
+ * took up is mostly the baseline's curvature there (a scattering baseline
+ * bends, the data beside a masked negative stretch are the upper part of
+ * their noise), so the model without them is tried with the baseline as it
+ * is and one order higher (up to 3), the better kept; ctx.o's order changes
+ * when the higher one is.
+ */
+function withoutLowEndBands(ctx: Context, fit: RefineBandsResult, low: GaussianParameters[]): RefineBandsResult {
+  const { x, y, o } = ctx;
+  const bands = fit.bands.filter((b) => !low.includes(b));
+  const same = refine(x, y, bands, fit.edge, o);
+  if (o.baselineOrder >= 3) return same;
+  const order = o.baselineOrder + 1;
+  const raised: FitBandModelOptions = { ...o, baselineOrder: order, baselineStart: xyPolynomialFit(x, o.baselineGuess, order, xPolynomialScale(x)) };
+  const curved = refine(x, y, bands, fit.edge, raised);
+  if (ctx.score(curved) >= ctx.score(same)) return same;
+  ctx.o = raised;
+  return curved;
+}
+
 /** Steps 2 and 3 of the model selection (see the file's docstring). */
 function simplify(ctx: Context, initial: RefineBandsResult): RefineBandsResult {
   const { x, y, o } = ctx;
@@ -305,6 +374,10 @@ function simplify(ctx: Context, initial: RefineBandsResult): RefineBandsResult {
       }
     }
     const low = bands.filter((b) => atLowEnd(b, xMin));
+    if (low.length > 0 && o.closedLowEnd === true) {
+      fit = withoutLowEndBands(ctx, fit, low);
+      continue;
+    }
     if (low.length > 0 && tryModel(bands.filter((b) => !low.includes(b)), fit.edge, BIC_MARGIN)) continue;
     let merged = false;
     const pairs: Array<[number, number]> = [];

@@ -25,7 +25,10 @@
  * to 0.6 FWHM outside the range; a maximum close to the blue end is
  * proposed as a band, so the UV edge (a CT band centred above the range)
  * cannot take its place. Each band reports its window
- * (inside / near-… / beyond-…); a centre outside the range carries an
+ * (inside / near-… / beyond-…) against the data kept: a stretch masked at
+ * an end moves that end inward (keptRange), and a red end masked as
+ * negative or at a step is closed, no band centred in or on it
+ * (kept-window.ts); a centre outside the range carries an
  * extrapolation error of a tenth of its FWHM in its uncertainty.
  *
  * The fit is weighted by σ (1/σ_i) and the model is chosen by
@@ -63,6 +66,7 @@ import { bandsAboveResidual } from './bands-above-residual.js';
 import { fitBandModel } from './fit-band-model.js';
 import { gaussiansGroupMultiplets } from './gaussians-group-multiplets.js';
 import { gaussianValue } from './gaussian.js';
+import { keptWindow } from './kept-window.js';
 import { spectrumToEnergy } from './spectrum-to-energy.js';
 import type { MaskReason, ProcessedSpectrum, Spectrum, StepCorrection } from './types.js';
 import { xNoiseFromSecondDifferences, xNoiseLocal } from './x-noise.js';
@@ -186,8 +190,10 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const localNoise = measuredNoise.map((s) => Math.hypot(s, quantum / Math.sqrt(12)));
   const noise = median(localNoise);
   const range: [number, number] = [x[0] as number, x[x.length - 1] as number];
+  // The data used: a masked stretch at an end (negative, saturated, a step) moves that end of the band window inward.
+  const used = keptWindow(range, masked, fx.length > 0 ? fx : Float64Array.of(range[0], range[1]));
   const empty = (): ProcessedSpectrum => ({
-    points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid,
+    points: spectrum.x.length, range, keptRange: used.window, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid,
     baseline: new Float64Array(grid.length), model: new Float64Array(grid.length), signalUnit: energy.signalUnit, bands: [], components: [],
     edge: null, noise, quantization: quantum, stepCorrections, fit: { points: fx.length, parameters: 0, rms: 0, iterations: 0, converged: true }, warnings,
   });
@@ -201,7 +207,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const edge = chooseEdge(fx, fy, hull, noise, uvEdge);
   const lowest = fy.reduce((m, v) => Math.min(m, v), Number.POSITIVE_INFINITY);
   // A band whose maximum lies at or beyond the red end has no maximum of its own to find: it is proposed, and the baseline starts under it.
-  const lowEnd = xyLowEndBandCandidate(fx, fy, { noise: localNoise });
+  const lowEnd = used.redEndOpen ? xyLowEndBandCandidate(fx, fy, { noise: localNoise }) : null;
   const baselineGuess = lowEnd === null
     ? hull
     : Float64Array.from(hull, (h, i) => Math.max(Math.min(h, (fy[i] as number) - gaussianValue(fx[i] as number, lowEnd.position, lowEnd.height, lowEnd.fwhm)), lowest));
@@ -220,7 +226,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
     warnings.push('no band stands out of the noise');
     return empty();
   }
-  const fit = fitBandModel(fx, fy, { candidates, edge, baselineGuess, baselineOrder, noise: sigma, beyondLowEnd: BEYOND_LOW_END, uncertainFraction: smooth ? 0.2 : 0.5, minAddedFraction: smooth ? 0.1 : 0, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
+  const fit = fitBandModel(fx, fy, { candidates, edge, baselineGuess, baselineOrder, noise: sigma, whiteNoise: localNoise, beyondLowEnd: used.redEndOpen ? BEYOND_LOW_END : 0, closedLowEnd: !used.redEndOpen, uncertainFraction: smooth ? 0.2 : 0.5, minAddedFraction: smooth ? 0.1 : 0, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
   const polynomial = (xs: Float64Array) => xPolynomialValues(xs, fit.baselineCoefficients, fit.scale);
   const baseline = polynomial(grid);
   if (fit.edge !== null) for (let i = 0; i < grid.length; i++) baseline[i] = (baseline[i] as number) + gaussianValue(grid[i] as number, fit.edge.position, fit.edge.height, fit.edge.fwhm);
@@ -235,10 +241,11 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   const significant = bandsAboveResidual(fit.bands, fx, residualAt, narrowFwhm);
   // One band per envelope: a multiplet (spin–orbit, Jahn–Teller) or an asymmetric band fitted by two Gaussians is one band.
   const grouped = gaussiansGroupMultiplets(significant.map((k) => fit.bands[k] as GaussianParameters), Float64Array.from(significant, (k) => fit.positionSd[k] as number), {
-    minFwhm: thresholds.narrowFwhm, dataBands: candidates.map((c) => c.position),
+    // Only broad candidates say how many broad bands the data show (a narrow one, a line or smoothed noise, says nothing).
+    minFwhm: thresholds.narrowFwhm, dataBands: candidates.filter((c) => c.fwhm >= 2 * narrowFwhm).map((c) => c.position),
   });
   const { bands: found, relative } = bandsFromFit(grouped.bands, {
-    epsilonPerSignal, positionSd: grouped.positionSd, noise, gridStep: step, thresholds, range,
+    epsilonPerSignal, positionSd: grouped.positionSd, noise, gridStep: step, thresholds, range: used.window,
     baselineAt: (v) => (polynomial(Float64Array.of(v))[0] as number) + edgeAt(v),
     maxima: bandMaxima(grid, onGrid, baseline, grouped.bands, grouped.components),
   });
@@ -251,14 +258,16 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
   if (relative && bands.length > 0 && options.chargeTransferOnly !== true) warnings.push('no concentration given: bands classified by relative intensity and width only');
   for (const b of bands) {
     if (b.window === 'inside') continue;
-    const where = b.window.endsWith('red-end') ? `red (low-energy) end, ${Math.round(range[0])} cm-1` : `blue (high-energy) end, ${Math.round(range[1])} cm-1`;
+    const red = b.window.endsWith('red-end');
+    const mask = red ? used.lowEndMask : used.highEndMask;
+    const end = `${red ? 'red (low-energy)' : 'blue (high-energy)'} end${mask === null ? '' : ' of the data kept'}, ${Math.round(used.window[red ? 0 : 1])} cm-1${mask === null ? '' : ` (beyond it masked: ${mask})`}`;
     warnings.push(b.maximumInWindow
-      ? `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum near the ${where}: its far side is not measured, so its centre is less certain (± ${b.positionUncertainty.toFixed(0)} cm-1)`
-      : `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum outside the measured range, beyond the ${where}: its centre is estimated from its flank (± ${b.positionUncertainty.toFixed(0)} cm-1)`);
+      ? `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum near the ${end}: its far side is not measured, so its centre is less certain (± ${b.positionUncertainty.toFixed(0)} cm-1)`
+      : `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum outside the measured range, beyond the ${end}: its centre is estimated from its flank (± ${b.positionUncertainty.toFixed(0)} cm-1)`);
   }
   if (fit.edge !== null) warnings.push(`a UV absorption edge was modelled (a Gaussian tail centred at ${fit.edge.position.toFixed(0)} cm-1, above the measured range)`);
   return {
-    points: spectrum.x.length, range, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid, baseline, model,
+    points: spectrum.x.length, range, keptRange: used.window, xUnit: spectrum.xUnit, yUnit: spectrum.yUnit, masked, grid, signal: onGrid, baseline, model,
     signalUnit: energy.signalUnit, bands, components: grouped.bands.map((b) => ({ position: b.position, height: b.height, fwhm: b.fwhm })),
     edge: fit.edge, noise, quantization: quantum, stepCorrections,
     fit: { points: fx.length, parameters: fit.parameters, rms: fit.rms, iterations: fit.iterations, converged: fit.converged }, warnings,

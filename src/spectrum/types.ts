@@ -112,7 +112,7 @@ export interface Band {
   positionUncertainty: number;
   /** True when the band shows no local maximum of its own in the fitted spectrum. */
   shoulder: boolean;
-  /** Where the maximum lies relative to the measured range (see BandWindow). */
+  /** Where the maximum lies relative to the data used: the measured range less masked end stretches (see BandWindow). */
   window: BandWindow;
   /** True when the centre lies within the measured range (window 'inside' or 'near-…'). */
   maximumInWindow: boolean;
@@ -147,6 +147,12 @@ export interface ProcessedSpectrum {
   points: number;
   /** Measured range, [min, max] in cm-1. */
   range: [number, number];
+  /**
+   * The range of the data the bands were fitted to, [min, max] in cm-1: the
+   * measured range less a masked stretch at either end (kept-window.ts).
+   * Each band's window is judged against it.
+   */
+  keptRange: [number, number];
   /** Units of the input spectrum. */
   xUnit: XUnit;
   yUnit: YUnit;
