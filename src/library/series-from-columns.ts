@@ -1,10 +1,9 @@
 import { parseIon } from '../chemistry/ions.js';
 import { isFieldgapError } from '../errors.js';
-import type { FactorFit, LigandShare, RankOptions, SeriesAnalysis } from '../series/index.js';
-import { fitCheckedLigandFactors } from '../series/factors.js';
-import { rankCheckedByNephelauxetic, rankCheckedByTenDq } from '../series/rank.js';
+import type { LigandShare, RankOptions, SeriesAnalysis } from '../series/index.js';
 import { ligandLabel, ligandShares } from '../series/validate.js';
 import type { SeriesReport, SeriesSkip } from './series.js';
+import { seriesReportOfChecked } from './series-report.js';
 import type { SeriesColumns } from './types.js';
 
 /**
@@ -77,24 +76,7 @@ export function seriesFromColumns(
   }
   if (analyses.length === 0) return undefined;
   const shared = parseIon(ion, { path: 'analyses[0].ion' });
-  const notes: string[] = [];
-  let factors: FactorFit | null = null;
-  try {
-    factors = fitCheckedLigandFactors(analyses, shared, { ion });
-    notes.push(...factors.notes);
-  } catch (error) {
-    if (!isFieldgapError(error) || error.code !== 'invalid-argument') throw error;
-    notes.push(`ligand factors not fitted: ${error.message}`);
-  }
-  return {
-    ion,
-    count: analyses.length,
-    spectrochemical: rankCheckedByTenDq(analyses, labels, options),
-    nephelauxetic: rankCheckedByNephelauxetic(analyses, labels, options),
-    factors,
-    skipped,
-    notes,
-  };
+  return seriesReportOfChecked(ion, analyses, labels, shared, skipped, options);
 }
 
 /** What a record's formula and ligands give a series: its ligands and label, or why it is left out. */

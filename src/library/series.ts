@@ -1,12 +1,12 @@
 import { parseFormula } from '../chemistry/formula.js';
-import { FieldgapError, isFieldgapError } from '../errors.js';
+import { FieldgapError } from '../errors.js';
 import { type FactorFit, type LigandShare, type RankOptions, type Ranking, type SeriesAnalysis } from '../series/index.js';
-import { fitCheckedLigandFactors } from '../series/factors.js';
-import { ligandLabels, rankCheckedByNephelauxetic, rankCheckedByTenDq } from '../series/rank.js';
+import { ligandLabels } from '../series/rank.js';
 import { validateSeriesAnalyses } from '../series/validate.js';
 import type { Library } from './library.js';
 import type { AnalysisDetails, SeriesFit } from './types.js';
 import { seriesFromColumns } from './series-from-columns.js';
+import { seriesReportOfChecked } from './series-report.js';
 import { canonicalIon } from './validate.js';
 
 /** What one stored (or freshly made) analysis contributes to a series. */
@@ -109,25 +109,7 @@ export function buildSeries(ionText: string, sources: readonly SeriesSource[], o
   }
   // Checked once for the factors and both rankings (each would check them again); a bad analysis throws here as it would there.
   const shared = validateSeriesAnalyses(analyses);
-  const labels = ligandLabels(analyses);
-  const notes: string[] = [];
-  let factors: FactorFit | null = null;
-  try {
-    factors = fitCheckedLigandFactors(analyses, shared, { ion });
-    notes.push(...factors.notes);
-  } catch (error) {
-    if (!isFieldgapError(error) || error.code !== 'invalid-argument') throw error;
-    notes.push(`ligand factors not fitted: ${error.message}`);
-  }
-  return {
-    ion,
-    count: analyses.length,
-    spectrochemical: rankCheckedByTenDq(analyses, labels, options),
-    nephelauxetic: rankCheckedByNephelauxetic(analyses, labels, options),
-    factors,
-    skipped,
-    notes,
-  };
+  return seriesReportOfChecked(ion, analyses, ligandLabels(analyses), shared, skipped, options);
 }
 
 /**
