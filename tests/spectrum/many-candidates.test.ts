@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { parseSpectrumText, processSpectrum } from '../../src/spectrum/index.js';
 import { strongestBands } from '../../src/spectrum/fit-band-model.js';
 import { generateSpectrum, WINDOWS } from '../accuracy/generate-spectrum.js';
-import type { TruthBand } from '../accuracy/truth-bands.js';
+import { VANADIUM_AQUA_BANDS } from './helpers/vanadium-aqua.js';
 
 describe('strongestBands', () => {
   it('keeps the largest areas and returns them in ascending position', () => {
@@ -23,16 +23,8 @@ describe('strongestBands', () => {
   });
 });
 
-// [V(H2O)6]2+: 4T2g ≈ 12 300, 4T1g(F) ≈ 18 500, 4T1g(P) ≈ 27 900 cm-1, ε ≈ 3–5, and the sharp doublets 2Eg, 2T1g near
-// 13 000–14 000 (Lever, Inorganic Electronic Spectroscopy, 2nd ed., 1984, from memory). Widths, skews, the CT band, the
-// baseline and the noise are invented to look measured (250–2500 nm, 0.001, noise 0.0015 smoothed over 5 points).
-const vanadium: TruthBand[] = [
-  { label: '4T2g(F)', level: '4T2g#0', centre: 12490, position: 12490, fwhm: 3370, skew: 1.07, epsilon: 3.1, kind: 'spin-allowed', weak: false },
-  { label: '2Eg(G)', level: '2Eg#0', centre: 13264, position: 13264, fwhm: 170, skew: 1.09, epsilon: 0.11, kind: 'spin-forbidden', weak: false },
-  { label: '2T1g(G)', level: '2T1g#0', centre: 13922, position: 13922, fwhm: 180, skew: 1.04, epsilon: 0.1, kind: 'spin-forbidden', weak: false },
-  { label: '4T1g(F)', level: '4T1g#0', centre: 18714, position: 18714, fwhm: 3410, skew: 1.24, epsilon: 2.98, kind: 'spin-allowed', weak: false },
-  { label: '4T1g(P)', level: '4T1g#1', centre: 29106, position: 29106, fwhm: 4020, skew: 1.29, epsilon: 4.32, kind: 'spin-allowed', weak: false },
-];
+// [V(H2O)6]2+ (tests/spectrum/helpers/vanadium-aqua.ts: positions and sources there).
+const vanadium = VANADIUM_AQUA_BANDS;
 
 describe('a strong band at the blue end beyond a crowd of noise candidates', () => {
   // Noise seeds with which the lowest-first start left the 4T1g(P) band out (10 of 40 seeds; 3 of 40 still fail in other

@@ -1,6 +1,6 @@
 import Database from 'better-sqlite3';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { createServer, type Server, type Socket } from 'node:net';
+import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
@@ -12,6 +12,7 @@ import { LIBRARY_FILE, openLibrary, openLibraryAt } from '../../src/library/libr
 import { translatePostgresError } from '../../src/library/postgres-errors.js';
 import { translateSqliteError } from '../../src/library/sqlite-errors.js';
 import { captureLogger } from '../server/helpers.js';
+import { startCutProxy, type CutProxy } from './helpers/cut-proxy.js';
 import { forEachEngine, libraryPerTest, POSTGRES_TEST_URL } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
 import { rejectionOf } from './helpers/rejection.js';
@@ -97,7 +98,7 @@ describe('the service over a damaged library', () => {
 forEachEngine('a database outage', (engine) => {
   const fresh = libraryPerTest(engine, { open: false });
   let app: FieldgapApp | undefined;
-  let proxy: Proxy | undefined;
+  let proxy: CutProxy | undefined;
   // Registered after libraryPerTest, so it runs before the library is removed.
   afterEach(async () => {
     await app?.close();
@@ -107,7 +108,7 @@ forEachEngine('a database outage', (engine) => {
   it.runIf(engine === 'postgres')('answers 503 with Retry-After while the database is away, and recovers by itself', async () => {
     // The service reaches PostgreSQL through a proxy the test can cut, as a network or server outage would.
     const target = new URL(POSTGRES_TEST_URL!);
-    proxy = await startProxy(Number(target.port), target.hostname);
+    proxy = await startCutProxy(Number(target.port), target.hostname);
     if (fresh.where.location.engine !== 'postgres') return;
     const url = new URL(fresh.where.location.url);
     url.port = String(proxy.port);
@@ -129,48 +130,6 @@ forEachEngine('a database outage', (engine) => {
     expect((await request(app).get('/api/v1/health').expect(200)).body.library).toMatchObject({ reachable: true });
   });
 });
-
-interface Proxy {
-  port: number;
-  /** Drops every connection and refuses new ones (they are closed at once). */
-  cut(): void;
-  restore(): void;
-  close(): Promise<void>;
-}
-
-async function startProxy(targetPort: number, targetHost: string): Promise<Proxy> {
-  const { connect } = await import('node:net');
-  let down = false;
-  const sockets = new Set<Socket>();
-  const server: Server = createServer((client) => {
-    if (down) {
-      client.destroy();
-      return;
-    }
-    const upstream = connect(targetPort, targetHost);
-    for (const s of [client, upstream]) {
-      sockets.add(s);
-      s.on('close', () => sockets.delete(s));
-      s.on('error', () => undefined);
-    }
-    client.pipe(upstream).pipe(client);
-  });
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-  return {
-    port: (server.address() as { port: number }).port,
-    cut: () => {
-      down = true;
-      for (const s of sockets) s.destroy();
-    },
-    restore: () => {
-      down = false;
-    },
-    close: async () => {
-      for (const s of sockets) s.destroy();
-      await new Promise<void>((resolve) => server.close(() => resolve()));
-    },
-  };
-}
 
 async function freePort(): Promise<number> {
   const server = createServer();
