@@ -2,8 +2,8 @@ import request from 'supertest';
 import { afterEach, expect, it } from 'vitest';
 import { createApp, type FieldgapApp } from '../../server/app.js';
 import { singleTokenResolver } from '../../server/security/auth.js';
-import { forEachEngine, libraryPerTest, POSTGRES_TEST_URL } from '../storage/helpers/engines.js';
-import { startCutProxy, type CutProxy } from '../storage/helpers/cut-proxy.js';
+import { forEachEngine, libraryPerTest } from '../storage/helpers/engines.js';
+import { throughCutProxy, type CutProxy } from '../storage/helpers/cut-proxy.js';
 import { handBuiltRecord } from '../storage/helpers/records.js';
 import { captureLogger } from './helpers.js';
 
@@ -30,11 +30,10 @@ forEachEngine('a database outage with users', (engine) => {
   });
 
   it.runIf(engine === 'postgres')('health and the stateless routes keep answering; library routes 503 and recover', async () => {
-    const target = new URL(POSTGRES_TEST_URL!);
-    proxy = await startCutProxy(Number(target.port), target.hostname);
-    if (fresh.where.location.engine !== 'postgres') return;
-    const url = new URL(fresh.where.location.url);
-    url.port = String(proxy.port);
+    const routed = await throughCutProxy(fresh.where.location);
+    if (routed === undefined) return;
+    proxy = routed.proxy;
+    const url = routed.url;
     const seeded = await fresh.where.open();
     await seeded.users.add('alice', 'labA');
     const token = await seeded.users.newToken('alice');

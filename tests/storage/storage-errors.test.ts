@@ -12,8 +12,8 @@ import { LIBRARY_FILE, openLibrary, openLibraryAt } from '../../src/library/libr
 import { translatePostgresError } from '../../src/library/postgres-errors.js';
 import { translateSqliteError } from '../../src/library/sqlite-errors.js';
 import { captureLogger } from '../server/helpers.js';
-import { startCutProxy, type CutProxy } from './helpers/cut-proxy.js';
-import { forEachEngine, libraryPerTest, POSTGRES_TEST_URL } from './helpers/engines.js';
+import { throughCutProxy, type CutProxy } from './helpers/cut-proxy.js';
+import { forEachEngine, libraryPerTest } from './helpers/engines.js';
 import { handBuiltRecord } from './helpers/records.js';
 import { rejectionOf } from './helpers/rejection.js';
 
@@ -107,11 +107,10 @@ forEachEngine('a database outage', (engine) => {
 
   it.runIf(engine === 'postgres')('answers 503 with Retry-After while the database is away, and recovers by itself', async () => {
     // The service reaches PostgreSQL through a proxy the test can cut, as a network or server outage would.
-    const target = new URL(POSTGRES_TEST_URL!);
-    proxy = await startCutProxy(Number(target.port), target.hostname);
-    if (fresh.where.location.engine !== 'postgres') return;
-    const url = new URL(fresh.where.location.url);
-    url.port = String(proxy.port);
+    const routed = await throughCutProxy(fresh.where.location);
+    if (routed === undefined) return;
+    proxy = routed.proxy;
+    const url = routed.url;
     const seeded = await fresh.where.open();
     await seeded.add(handBuiltRecord({ sample: 'before the outage' }));
     await seeded.close();

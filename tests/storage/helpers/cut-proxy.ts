@@ -4,6 +4,7 @@
  * outage would; restore() lets connections through again.
  */
 import { connect, createServer, type Server, type Socket } from 'node:net';
+import type { TestLibrary } from './engines.js';
 
 export interface CutProxy {
   port: number;
@@ -43,4 +44,17 @@ export async function startCutProxy(targetPort: number, targetHost: string): Pro
       await new Promise<void>((resolve) => server.close(() => resolve()));
     },
   };
+}
+
+/**
+ * A fresh PostgreSQL test library reached through a new cut proxy: the proxy
+ * (to cut, restore and close) and the library's URL pointed at it; undefined
+ * for any other engine.
+ */
+export async function throughCutProxy(location: TestLibrary['location']): Promise<{ proxy: CutProxy; url: URL } | undefined> {
+  if (location.engine !== 'postgres') return undefined;
+  const url = new URL(location.url);
+  const proxy = await startCutProxy(Number(url.port), url.hostname);
+  url.port = String(proxy.port);
+  return { proxy, url };
 }
