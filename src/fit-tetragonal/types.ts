@@ -1,5 +1,5 @@
 import type { BandInput } from '../fit/bands.js';
-import type { Penalty } from '../fit/types.js';
+import type { AssignedBand, Penalty } from '../fit/types.js';
 import type { FieldLevel } from '../ligand-field/field-levels.js';
 import type { Geometry } from '../ligand-field/types.js';
 import type { SolveResult } from './solve.js';
@@ -22,15 +22,9 @@ export interface TetragonalFitInput {
   b?: number;
 }
 
-export interface TetragonalAssignment {
-  observed: number;
-  calculated: number;
-  residual: number;
-  term: string;
-  parent: string;
-  label: string;
+/** A band's assignment in tetragonal symmetry: the cubic fit's row (src/fit/types.ts) with the level's degeneracy. */
+export interface TetragonalAssignment extends Pick<AssignedBand, 'observed' | 'calculated' | 'residual' | 'term' | 'parent' | 'label' | 'bands'> {
   degeneracy: number;
-  bands: number[];
 }
 
 /** A score term (src/fit's Penalty), or the ζ prior of score.ts. */
