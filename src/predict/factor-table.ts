@@ -85,7 +85,7 @@ const G_ESTIMATES: ReadonlyMap<string, FactorValue> = new Map([
   ['V3+', estimate(18600, 1500, 'g = 10Dq of [V(H2O)6]3+, from memory')],
   ['Cr2+', estimate(14000, 2000, 'g = 10Dq of [Cr(H2O)6]2+, from memory; Jahn–Teller distorted')],
   ['Mn3+', estimate(21000, 3000, 'g = 10Dq of [Mn(H2O)6]3+, its d–d maximum at 21 000 cm-1 ("A spectrophotometric investigation of the aquomanganese(III) ion in perchlorate media", J. Chem. Soc. A (1967) 1858, looked up); Jahn–Teller distorted')],
-  ['Cu2+', estimate(12600, 2000, 'g = 10Dq of [Cu(H2O)6]2+, from memory; its maximum "around 800 nm" (12 500 cm-1, 0.8 % lower) in Chemistry, 8th ed., ex. 21.54, a textbook exercise (looked up); Jahn–Teller distorted')],
+  ['Cu2+', estimate(12600, 2000, 'g = 10Dq of [Cu(H2O)6]2+, from memory; Jahn–Teller distorted')],
   ['Ru3+', estimate(28000, 5000, 'estimate: like Rh3+ (27 000), wide uncertainty')],
   ['Os2+', estimate(27000, 7000, 'estimate: Ru2+ (20 000) × 1.35 for 5d, wide uncertainty')],
   ['Os3+', estimate(35000, 8000, 'estimate: like Ir3+ (32 000), wide uncertainty')],

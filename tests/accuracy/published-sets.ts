@@ -31,19 +31,13 @@ const JORGENSEN = (note: string): string => `${LEVER}; found: Jørgensen, Modern
 /** Found band maxima (search, December 2026), each listed with its address in docs/sources.md. */
 const FOUND = {
   niAqua: 'found: 8 500, 13 800, 25 300 cm-1 as such in a thesis chapter on Ni(II) spectra (123docz.net/trich-doan/2479124, docs/sources.md NI-AQUA-VN)',
-  brownNi: (nm: number, cm: number, diff: string): string => `found: maximum "about ${nm} nm" = ${cm} cm-1 (Brown, LeMay et al., Chemistry: The Central Science, 11th ed., ex. 24.40, docs/sources.md BROWN-NI), ${diff} from the ν2 above`,
   coAqua: 'found: aqueous CoCl2·6H2O band at 512 nm = 19 531 cm-1 (www.iasj.net/iasj/article/131143), +0.7 % from 19 400',
-  coAmmine: 'found: λmax 470 nm = 21 280 cm-1 in a course exercise (tutorsglobe.com, docs/sources.md CO-AMMINE-Q), +1.1 % from 21 050; Δo = 22 900 in a forum exercise (docs/sources.md CO-DQ-VN), +0.1 % from this 10Dq',
-  crAqua: 'found: one measured aqueous spectrum at 17 000 and 24 000 cm-1 (course page C21J on Tanabe–Sugano diagrams, docs/sources.md CR-AQUA-C21J), −2.3 % and −2.4 %',
-  tiAqua: 'found: [Ti(H2O)6]3+ νmax 20 300 cm-1 (Crittenden, University of Sheffield chm131 pages, chem.shef.ac.uk/chm131-2002/cha02tdc/examples.html); 10Dq = ν for d1 (common practice)',
-  feAqua: 'found: 10 400 cm-1 in a course exercise\'s data table (answerhappy.com/viewtopic.php?t=18826, docs/sources.md FE-CO-AQUA-Q)',
-  cuAqua: 'found: maximum "around 800 nm" = 12 500 cm-1 (Chemistry, 8th ed., ex. 21.54, a textbook exercise, docs/sources.md CHEM8-CU); 10Dq = ν for d9 (common practice)',
 };
 const BALLHAUSEN_MN = 'B 670 and C 3710 found: Ballhausen F2 = 1200, F4 = 106 cm-1 (via ppdoc.com/periodical/3f3c46c77bc81eb81e7815cc0f322624.html); bands and 10Dq from memory';
 
 export const PUBLISHED_SETS: readonly PublishedSet[] = [
   { id: 'v3-aqua', complex: '[V(H2O)6]3+', ion: 'V3+', geometry: 'octahedral', bands: '17800,25700', tenDq: 18900, b: 620, spinState: 'no-choice', source: LEVER },
-  { id: 'cr3-aqua', complex: '[Cr(H2O)6]3+', ion: 'Cr3+', geometry: 'octahedral', bands: '17400,24600', tenDq: 17400, b: 725, spinState: 'no-choice', source: `${JORGENSEN('g(Cr3+) = 17 400 = this 10Dq')}; ${FOUND.crAqua}` },
+  { id: 'cr3-aqua', complex: '[Cr(H2O)6]3+', ion: 'Cr3+', geometry: 'octahedral', bands: '17400,24600', tenDq: 17400, b: 725, spinState: 'no-choice', source: JORGENSEN('g(Cr3+) = 17 400 = this 10Dq') },
   { id: 'cr3-ammine', complex: '[Cr(NH3)6]3+', ion: 'Cr3+', geometry: 'octahedral', bands: '21550,28500', tenDq: 21550, b: 657, spinState: 'no-choice', source: JORGENSEN('f(NH3)·g(Cr3+) = 21 750, an estimate within 1 %') },
   { id: 'mn2-aqua', complex: '[Mn(H2O)6]2+', ion: 'Mn2+', geometry: 'octahedral', bands: '18900,23100,25000,28000,29700', freeC: true, tenDq: 8500, b: 671, spinState: 'high-spin', source: `${LEVER}; ${BALLHAUSEN_MN}` },
   { id: 'mn2-aqua-sf', complex: '[Mn(H2O)6]2+ (bands flagged spin-forbidden)', ion: 'Mn2+', geometry: 'octahedral', bands: '18900:sf,23100:sf,25000:sf,28000:sf,29700:sf', freeC: true, tenDq: 8500, b: 671, spinState: 'high-spin', source: `${LEVER}; ${BALLHAUSEN_MN}` },
@@ -62,11 +56,11 @@ export const PUBLISHED_SETS: readonly PublishedSet[] = [
   // here is the value of an analysis without α, so the α fit is not graded against it (done-when.test.ts).
   { id: 'mn2-aqua-7', complex: '[Mn(H2O)6]2+, seven quartets', ion: 'Mn2+', geometry: 'octahedral', bands: '18900,23100,24950,25300,27950,29700,32400', freeC: true, tenDq: 8500, b: 671, spinState: 'high-spin', source: `${LEVER}; Heidt, Koster & Johnson (1958) (from memory); ${BALLHAUSEN_MN}` },
   { id: 'mn2-aqua-7-sf', complex: '[Mn(H2O)6]2+, seven quartets flagged spin-forbidden', ion: 'Mn2+', geometry: 'octahedral', bands: '18900:sf,23100:sf,24950:sf,25300:sf,27950:sf,29700:sf,32400:sf', freeC: true, tenDq: 8500, b: 671, spinState: 'high-spin', source: `${LEVER}; Heidt, Koster & Johnson (1958) (from memory); ${BALLHAUSEN_MN}` },
-  { id: 'co3-ammine', complex: '[Co(NH3)6]3+', ion: 'Co3+', geometry: 'octahedral', bands: '21050,29550', tenDq: 22870, b: 615, spinState: 'low-spin', source: `${JORGENSEN('f(NH3)·g(Co3+) = 22 750, an estimate within 1 %')}; ${FOUND.coAmmine}` },
+  { id: 'co3-ammine', complex: '[Co(NH3)6]3+', ion: 'Co3+', geometry: 'octahedral', bands: '21050,29550', tenDq: 22870, b: 615, spinState: 'low-spin', source: JORGENSEN('f(NH3)·g(Co3+) = 22 750, an estimate within 1 %') },
   { id: 'co2-aqua', complex: '[Co(H2O)6]2+', ion: 'Co2+', geometry: 'octahedral', bands: '8100,19400', tenDq: 9200, b: 825, spinState: 'high-spin', source: `${JORGENSEN('g(Co2+) = 9 000, 2 % below this 10Dq')}; ${FOUND.coAqua}` },
   { id: 'co2-tet-cl', complex: '[CoCl4]2-', ion: 'Co2+', geometry: 'tetrahedral', bands: '5500,14700', tenDq: 3200, b: 710, spinState: 'no-choice', source: LEVER },
   { id: 'ni2-aqua', complex: '[Ni(H2O)6]2+', ion: 'Ni2+', geometry: 'octahedral', bands: '8500,13800,25300', tenDq: 8500, b: 930, spinState: 'no-choice', source: `${JORGENSEN('g(Ni2+) = 8 700, 2.4 % above this 10Dq')}; ${FOUND.niAqua}` },
-  { id: 'ni2-ammine', complex: '[Ni(NH3)6]2+', ion: 'Ni2+', geometry: 'octahedral', bands: '10750,17500,28200', tenDq: 10750, b: 880, spinState: 'no-choice', source: `${JORGENSEN('f(NH3)·g(Ni2+) = 10 875, an estimate within 1.2 %')}; ${FOUND.brownNi(570, 17540, '+0.2 %')}; found: Δo = 129 kJ/mol = 10 784 cm-1 (docs/sources.md NI-DQ-VN), +0.3 % from this 10Dq` },
+  { id: 'ni2-ammine', complex: '[Ni(NH3)6]2+', ion: 'Ni2+', geometry: 'octahedral', bands: '10750,17500,28200', tenDq: 10750, b: 880, spinState: 'no-choice', source: JORGENSEN('f(NH3)·g(Ni2+) = 10 875, an estimate within 1.2 %') },
   // Measured lines with their published analysis (found): Ni2+ in MgO, Phys. Rev. (1958), abstract via
   // preview.concepedia.online/publication/W4254481442: lines 8600, 13 400, (14 800), (21 550), 24 500, … cm-1, Dq = 860,
   // E_P = 13 000 (B ≈ 867). The spin-allowed lines with 14 800, the 1Eg(D) partner that spin–orbit coupling mixes with
@@ -74,10 +68,10 @@ export const PUBLISHED_SETS: readonly PublishedSet[] = [
   // Without 14 800 the fit gives 10Dq 8 225 (−4.4 %): the cubic model puts 3T1g(F) near 14 100, not at 13 400.
   { id: 'ni2-mgo', complex: 'Ni2+ in MgO (crystal)', ion: 'Ni2+', geometry: 'octahedral', bands: '8600,13400,14800,24500', tenDq: 8600, b: 867, spinState: 'no-choice', source: 'Paramagnetic and Optical Spectra of Divalent Nickel in Cubic Crystalline Fields, Phys. Rev. (1958): Dq 860, E_P 13 000 cm-1 (found)' },
   { id: 'ni2-tet-cl', complex: '[NiCl4]2-', ion: 'Ni2+', geometry: 'tetrahedral', bands: '7550,14250', tenDq: 4100, b: null, spinState: 'no-choice', source: LEVER },
-  { id: 'ti3-aqua', complex: '[Ti(H2O)6]3+', ion: 'Ti3+', geometry: 'octahedral', bands: '20300', tenDq: 20300, b: null, spinState: 'no-choice', source: FOUND.tiAqua },
+  { id: 'ti3-aqua', complex: '[Ti(H2O)6]3+', ion: 'Ti3+', geometry: 'octahedral', bands: '20300', tenDq: 20300, b: null, spinState: 'no-choice', source: `${LEVER}; 10Dq = ν for d1 (common practice)` },
   { id: 'v2-aqua', complex: '[V(H2O)6]2+', ion: 'V2+', geometry: 'octahedral', bands: '12350,18500,27900', tenDq: 12350, b: null, spinState: 'no-choice', source: JORGENSEN('g(V2+) = 12 000, 2.8 % below this 10Dq') },
   { id: 'cr3-en', complex: '[Cr(en)3]3+', ion: 'Cr3+', geometry: 'octahedral', bands: '21850,28500', tenDq: 21850, b: null, spinState: 'no-choice', source: LEVER },
-  { id: 'fe2-aqua', complex: '[Fe(H2O)6]2+', ion: 'Fe2+', geometry: 'octahedral', bands: '10400', tenDq: 10400, b: null, spinState: 'high-spin', source: `${LEVER}; ${FOUND.feAqua}` },
-  { id: 'ni2-en', complex: '[Ni(en)3]2+', ion: 'Ni2+', geometry: 'octahedral', bands: '11200,18350,29000', tenDq: 11200, b: null, spinState: 'no-choice', source: `${JORGENSEN('f(en)·g(Ni2+) = 11 136, an estimate within 0.6 %')}; ${FOUND.brownNi(545, 18350, '0 %')}` },
-  { id: 'cu2-aqua', complex: '[Cu(H2O)6]2+', ion: 'Cu2+', geometry: 'octahedral', bands: '12500', tenDq: 12500, b: null, spinState: 'no-choice', source: FOUND.cuAqua },
+  { id: 'fe2-aqua', complex: '[Fe(H2O)6]2+', ion: 'Fe2+', geometry: 'octahedral', bands: '10400', tenDq: 10400, b: null, spinState: 'high-spin', source: LEVER },
+  { id: 'ni2-en', complex: '[Ni(en)3]2+', ion: 'Ni2+', geometry: 'octahedral', bands: '11200,18350,29000', tenDq: 11200, b: null, spinState: 'no-choice', source: JORGENSEN('f(en)·g(Ni2+) = 11 136, an estimate within 0.6 %') },
+  { id: 'cu2-aqua', complex: '[Cu(H2O)6]2+', ion: 'Cu2+', geometry: 'octahedral', bands: '12500', tenDq: 12500, b: null, spinState: 'no-choice', source: `${LEVER}; 10Dq = ν for d9 (common practice)` },
 ];

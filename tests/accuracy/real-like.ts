@@ -66,10 +66,8 @@ export const REAL_LIKE: readonly RealLikeSpectrum[] = [
   {
     file: 'cu-aqua-visible.csv', title: 'aqueous Cu(II) ([Cu(H2O)6]2+), 0.080 mol/L, 1 cm', ion: 'Cu2+', concentration: 0.08, seed: 1303,
     bands: [
-      // One broad Jahn–Teller band with its maximum near 810 nm (12 350 cm-1) and ε ≈ 12 (absorbance 0.246 at 20 mmol/L
-      // and 0.591 at 50 mmol/L at 807 nm, published laboratory calibration data, studymode.com "Spectrophotometric analysis
-      // of copper sulphate"); FWHM ≈ 4 300 cm-1 derived from the published blue flank of 0.5 mol/L CuSO4 (A = 0.458 at
-      // 600 nm, 1.185 at 640 nm, 1.838 at 660 nm; scribd "Determine the concentration of CuSO4 using spectrometer").
+      // One broad Jahn–Teller band with its maximum near 810 nm (12 350 cm-1), ε ≈ 12 and FWHM ≈ 4 300 cm-1
+      // (from memory: the usual values for aqueous Cu(II), Lever 1984).
       band('2Eg', 12350, 4300, 12, 1.15),
     ],
     distortions: { ...VISIBLE, chargeTransfer: { edgeAbsorbance: 0.03, fwhm: 8000, epsilon: 2000 } },

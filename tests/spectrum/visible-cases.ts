@@ -16,7 +16,7 @@ export interface VisibleCase {
  * [Ni(H2O)6]2+: 3T2g 8 500, 3T1g(F) 13 800 (split by the 1Eg level near
  * 15 300: two maxima near 725 and 655 nm), 3T1g(P) 25 300 cm-1 — found:
  * 8 500, 13 800, 1Eg 15 200, 25 300 in a thesis chapter on Ni(II) spectra
- * (docs/sources.md NI-AQUA-VN) and "about 725 nm" (Brown et al., BROWN-NI);
+ * (docs/sources.md NI-AQUA-VN);
  * ε about 2, 2 and 5 — from memory (Lever, Inorganic Electronic
  * Spectroscopy, 2nd ed., 1984; the usual textbook set).
  */
@@ -55,11 +55,7 @@ export const COBALT: VisibleCase = {
 
 /**
  * [Cu(H2O)6]2+: one broad Jahn–Teller band, maximum near 12 300 cm-1
- * (≈ 810 nm), ε ≈ 12 — from memory (Lever, 1984); found: "around 800 nm"
- * = 12 500 cm-1 (textbook exercise, docs/sources.md CHEM8-CU, +1.6 %); ε(807 nm) ≈ 12 also
- * follows from the absorbances of CuSO4 solutions quoted in
- * studymode.com, "Spectrophotometric analysis of copper sulphate"
- * (A = 0.246 at 20 mmol/L, 1 cm). Its lower Jahn–Teller component
+ * (≈ 810 nm), ε ≈ 12 — from memory (Lever, 1984). Its lower Jahn–Teller component
  * (≈ 10 000 cm-1) is invented in size.
  */
 export const COPPER: VisibleCase = {

@@ -52,7 +52,7 @@ describe.each(ROUNDINGS)('visible-only spectra rounded to %i decimals', (decimal
     expect(blue.maximumInWindow).toBe(true);
     expect(r.warnings.some((w) => /maximum near the blue/.test(w))).toBe(true);
     if (r.edge !== null) expect(r.edge.position).toBeGreaterThan(r.range[1]);
-    const low = nearest(r.bands, 13_800); // published 13 800 cm-1 (found: thesis chapter on Ni(II) spectra, 123docz.net/trich-doan/2479124, docs/sources.md NI-AQUA-VN; "about 725 nm" in Brown et al., BROWN-NI)
+    const low = nearest(r.bands, 13_800); // published 13 800 cm-1 (found: thesis chapter on Ni(II) spectra, 123docz.net/trich-doan/2479124, docs/sources.md NI-AQUA-VN)
     expect(Math.abs(low.position - trueMaximum(o, 13_000, 14_300))).toBeLessThan(300);
     expect(Math.abs(nearest(r.bands, 15_300).position - trueMaximum(o, 14_700, 16_000))).toBeLessThan(300);
   });
@@ -82,7 +82,7 @@ describe.each(ROUNDINGS)('visible-only spectra rounded to %i decimals', (decimal
     expect(band.window).toBe('beyond-red-end');
     expect(band.maximumInWindow).toBe(false);
     expect(Math.abs(band.position - trueMaximum(o, 9000, 16_000))).toBeLessThan(1000);
-    expect(Math.abs(band.position - 12_500)).toBeLessThan(1000); // published maximum "around 800 nm" = 12 500 cm-1 (found: Chemistry, 8th ed., ex. 21.54, a textbook exercise, docs/sources.md CHEM8-CU); 12 300 recalled (Lever 1984)
+    expect(Math.abs(band.position - 12_300)).toBeLessThan(1000); // published maximum ≈ 12 300 cm-1 (from memory, Lever 1984)
     // An honest uncertainty: the centre is extrapolated from one flank.
     expect(band.positionUncertainty).toBeGreaterThan(300);
     expect(r.warnings.some((w) => /outside the measured range, beyond the red/.test(w))).toBe(true);
@@ -117,7 +117,7 @@ describe('the pipeline on the visible-only spectra', () => {
   it('Cu(II): one band given to the fit, 10Dq from it beyond the window, the note in the warnings', () => {
     const r = analyzeSpectrum(realisticCsv(COPPER.spectrum), { ion: 'Cu2+', concentration: COPPER.spectrum.concentration });
     expect(r.bands).toHaveLength(1);
-    expect(Math.abs(r.fit.tenDq! - 12_500)).toBeLessThan(1000); // published "around 800 nm" = 12 500 cm-1 (found: Chemistry, 8th ed., ex. 21.54, a textbook exercise, docs/sources.md CHEM8-CU)
+    expect(Math.abs(r.fit.tenDq! - 12_300)).toBeLessThan(1000); // published ≈ 12 300 cm-1 (from memory, Lever 1984)
     expect(r.warnings.some((w) => /outside the measured range/.test(w))).toBe(true);
   });
 
