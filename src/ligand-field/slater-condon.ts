@@ -14,31 +14,51 @@ function lowestBit(mask: number): number {
 }
 
 /**
+ * The n×n row-major matrix of element(operator, bra, ket) over every pair
+ * of the block's determinants: the one loop both Slater–Condon rules below
+ * share. Why a callback is affordable here: these matrices are built once
+ * per block and cached (blocks.ts and its kin), never per evaluation. Timed
+ * against the two loops written out, interleaved: building the one- and two
+ * two-body matrices over all 252 d5 determinants in a warm process took
+ * about 0.9 ms more (6.8 against 5.9 ms CPU, median of 40), and the first
+ * calls of a fresh process, where the caches are actually filled (all
+ * d^n, both cubic geometries, and the d^n field levels with spin–orbit),
+ * showed no difference beyond the noise (about 280 ms either way, 8 runs).
+ */
+function blockMatrixOf(
+  masks: readonly number[], operator: Float64Array, element: (operator: Float64Array, bra: number, ket: number) => number,
+): Float64Array {
+  const n = masks.length;
+  const out = new Float64Array(n * n);
+  for (let row = 0; row < n; row++) {
+    const bra = masks[row]!;
+    for (let col = 0; col < n; col++) out[row * n + col] = element(operator, bra, masks[col]!);
+  }
+  return out;
+}
+
+/**
  * A one-electron spin-free operator h (5×5 spatial, row-major, index m_l + 2)
  * between determinants: diagonal Σ h_ii over occupied spin-orbitals; single
  * excitation q → p (same spin) sign·h_pq; zero otherwise.
  */
 export function oneBodyBlockMatrix(masks: readonly number[], h: Float64Array): Float64Array {
-  const n = masks.length;
-  const out = new Float64Array(n * n);
-  for (let row = 0; row < n; row++) {
-    const bra = masks[row]!;
-    for (let col = 0; col < n; col++) {
-      const ket = masks[col]!;
-      const diff = bra ^ ket;
-      if (diff === 0) {
-        let sum = 0;
-        for (let bit = 0; bit < SPIN_ORBITALS; bit++) if (ket & (1 << bit)) sum += h[bitOrbital(bit) * 5 + bitOrbital(bit)]!;
-        out[row * n + col] = sum;
-      } else if (maskPopcount(diff) === 2) {
-        const p = lowestBit(diff & bra);
-        const q = lowestBit(diff & ket);
-        if (bitIsAlpha(p) !== bitIsAlpha(q)) continue;
-        out[row * n + col] = excitationSign(ket, p, q) * h[bitOrbital(p) * 5 + bitOrbital(q)]!;
-      }
-    }
+  return blockMatrixOf(masks, h, oneBodyElement);
+}
+
+/** <bra| h |ket> for a one-electron operator h (oneBodyBlockMatrix's rule). */
+function oneBodyElement(h: Float64Array, bra: number, ket: number): number {
+  const diff = bra ^ ket;
+  if (diff === 0) {
+    let sum = 0;
+    for (let bit = 0; bit < SPIN_ORBITALS; bit++) if (ket & (1 << bit)) sum += h[bitOrbital(bit) * 5 + bitOrbital(bit)]!;
+    return sum;
   }
-  return out;
+  if (maskPopcount(diff) !== 2) return 0;
+  const p = lowestBit(diff & bra);
+  const q = lowestBit(diff & ket);
+  if (bitIsAlpha(p) !== bitIsAlpha(q)) return 0;
+  return excitationSign(ket, p, q) * h[bitOrbital(p) * 5 + bitOrbital(q)]!;
 }
 
 /** Antisymmetrised spin-orbital integral <pq||rs> from spatial integrals g. */
@@ -58,45 +78,42 @@ function antisymmetrised(g: Float64Array, p: number, q: number, r: number, s: nu
  *   two, q1 < q2 → p1 < p2: sign(a†p1 a†p2 a_q2 a_q1) <p1p2||q1q2>.
  */
 export function twoBodyBlockMatrix(masks: readonly number[], g: Float64Array): Float64Array {
-  const n = masks.length;
-  const out = new Float64Array(n * n);
-  for (let row = 0; row < n; row++) {
-    const bra = masks[row]!;
-    for (let col = 0; col < n; col++) {
-      const ket = masks[col]!;
-      const diff = bra ^ ket;
-      const changed = maskPopcount(diff);
-      let value = 0;
-      if (changed === 0) {
-        for (let i = 0; i < SPIN_ORBITALS; i++) {
-          if (!(ket & (1 << i))) continue;
-          for (let j = i + 1; j < SPIN_ORBITALS; j++) if (ket & (1 << j)) value += antisymmetrised(g, i, j, i, j);
-        }
-      } else if (changed === 2) {
-        const p = lowestBit(diff & bra);
-        const q = lowestBit(diff & ket);
-        let sum = 0;
-        for (let j = 0; j < SPIN_ORBITALS; j++) if (j !== q && ket & (1 << j)) sum += antisymmetrised(g, p, j, q, j);
-        value = excitationSign(ket, p, q) * sum;
-      } else if (changed === 4) {
-        const created = diff & bra;
-        const removed = diff & ket;
-        const p1 = lowestBit(created);
-        const p2 = lowestBit(created & ~(1 << p1));
-        const q1 = lowestBit(removed);
-        const q2 = lowestBit(removed & ~(1 << q1));
-        let state = ket;
-        let sign = signBelow(state, q1);
-        state &= ~(1 << q1);
-        sign *= signBelow(state, q2);
-        state &= ~(1 << q2);
-        sign *= signBelow(state, p2);
-        state |= 1 << p2;
-        sign *= signBelow(state, p1);
-        value = sign * antisymmetrised(g, p1, p2, q1, q2);
-      }
-      out[row * n + col] = value;
+  return blockMatrixOf(masks, g, twoBodyElement);
+}
+
+/** <bra| g |ket> for a two-electron operator g (twoBodyBlockMatrix's rule). */
+function twoBodyElement(g: Float64Array, bra: number, ket: number): number {
+  const diff = bra ^ ket;
+  const changed = maskPopcount(diff);
+  if (changed === 0) {
+    let value = 0;
+    for (let i = 0; i < SPIN_ORBITALS; i++) {
+      if (!(ket & (1 << i))) continue;
+      for (let j = i + 1; j < SPIN_ORBITALS; j++) if (ket & (1 << j)) value += antisymmetrised(g, i, j, i, j);
     }
+    return value;
   }
-  return out;
+  if (changed === 2) {
+    const p = lowestBit(diff & bra);
+    const q = lowestBit(diff & ket);
+    let sum = 0;
+    for (let j = 0; j < SPIN_ORBITALS; j++) if (j !== q && ket & (1 << j)) sum += antisymmetrised(g, p, j, q, j);
+    return excitationSign(ket, p, q) * sum;
+  }
+  if (changed !== 4) return 0;
+  const created = diff & bra;
+  const removed = diff & ket;
+  const p1 = lowestBit(created);
+  const p2 = lowestBit(created & ~(1 << p1));
+  const q1 = lowestBit(removed);
+  const q2 = lowestBit(removed & ~(1 << q1));
+  let state = ket;
+  let sign = signBelow(state, q1);
+  state &= ~(1 << q1);
+  sign *= signBelow(state, q2);
+  state &= ~(1 << q2);
+  sign *= signBelow(state, p2);
+  state |= 1 << p2;
+  sign *= signBelow(state, p1);
+  return sign * antisymmetrised(g, p1, p2, q1, q2);
 }

@@ -1,8 +1,7 @@
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import type { Library } from '../../src/library/library.js';
+import { describe, expect, it } from 'vitest';
 import { MIGRATIONS, migrationRun, SCHEMA_VERSION, stepSql, type MigrationRequest } from '../../src/library/migrations.js';
 import { librarySeries } from '../../src/library/series.js';
-import { forEachEngine, freshLibrary, type TestLibrary } from '../storage/helpers/engines.js';
+import { forEachEngine, libraryPerTest } from '../storage/helpers/engines.js';
 import { handBuiltRecord } from '../storage/helpers/records.js';
 
 /**
@@ -51,18 +50,11 @@ describe('migrationRun, the one logic of both engines', () => {
 });
 
 forEachEngine('schema step 6 (the series index) on a library written before it', (engine) => {
-  let where: TestLibrary;
-  let library: Library;
-  beforeEach(async () => {
-    where = await freshLibrary(engine);
-    library = await where.open();
-  });
-  afterEach(async () => {
-    await library.close();
-    await where.dispose();
-  });
+  const fresh = libraryPerTest(engine);
 
   it('is applied at the next open, keeps every record and gives the same series', async () => {
+    const { where } = fresh;
+    let library = fresh.library;
     // hand-built records; the numbers are made up for the test
     for (const [i, ligand] of ['F', 'H2O', 'NH3', 'en'].entries()) {
       const { formula: _formula, ...record } = handBuiltRecord({ sample: `s${i}`, ligands: [ligand] }, 15_000 + 1_500 * i);
@@ -78,7 +70,7 @@ forEachEngine('schema step 6 (the series index) on a library written before it',
       ? "SELECT count(*) FROM sqlite_master WHERE type = 'index' AND name = 'analyses_series'"
       : "SELECT count(*) FROM pg_indexes WHERE indexname = 'analyses_series' AND schemaname = current_schema()";
     expect(await where.scalar(indexes)).toBe(0);
-    library = await where.open();
+    library = await fresh.reopen();
     expect(await where.scalar(indexes)).toBe(1);
     expect(await where.scalar(engine === 'sqlite' ? 'PRAGMA user_version' : 'SELECT version FROM fieldgap_schema')).toBe(SCHEMA_VERSION);
     expect(await librarySeries(library, 'Cr3+')).toEqual(before);

@@ -1,11 +1,13 @@
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Library } from '../../src/library/library.js';
 import { buildSeries, librarySeries, type SeriesReport, type SeriesSource } from '../../src/library/series.js';
 import { seriesColumnsFromRow } from '../../src/library/series-columns.js';
 import type { NewAnalysis } from '../../src/library/types.js';
 import type { RankOptions } from '../../src/series/index.js';
-import { forEachEngine, freshLibrary, type TestLibrary } from '../storage/helpers/engines.js';
+import { forEachEngine, libraryPerTest } from '../storage/helpers/engines.js';
 import { partialResult } from '../storage/helpers/records.js';
+import { SERIES_FORMULAS, SERIES_LIGAND_LISTS } from '../helpers/series-spellings.js';
+import { seededLcg } from '../reference/seeded-random.js';
 
 /**
  * librarySeries reads the records as columns aggregated by the database and
@@ -30,25 +32,13 @@ async function referenceSeries(library: Library, ion: string, options: RankOptio
   return buildSeries(ion, sources, options);
 }
 
-/** A seeded generator, so a failure can be replayed. */
-function lcg(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (Math.imul(state, 1_664_525) + 1_013_904_223) >>> 0;
-    return state / 2 ** 32;
-  };
-}
-
-const FORMULAS = ['[Cr(H2O)6]Cl3', '[Cr(NH3)6]Cl3', '[Cr(en)3]Cl3', '[Cr(NH3)5Cl]Cl2', 'K3[Cr(ox)3]', 'K3[Cr(CN)6]', 'my own complex', undefined];
-const LIGAND_LISTS = [['H2O'], ['ammine'], ['NH3', 'Cl'], ['urea'], ['L1'], [], ['F']];
-
 /**
  * Seeded records (numbers invented for this test; the test compares two
  * code paths, not chemistry). 10Dq rounded to 0.1 cm-1 so equal values and
  * exact overlaps occur; β from B / 918 as a fit gives it, unrounded.
  */
 function seededRecords(count: number, seed: number): NewAnalysis[] {
-  const next = lcg(seed);
+  const next = seededLcg(seed);
   const pick = <T>(list: readonly T[]): T => list[Math.floor(next() * list.length)]!;
   return Array.from({ length: count }, (_v, i): NewAnalysis => {
     const hasFit = next() > 0.05;
@@ -72,27 +62,19 @@ function seededRecords(count: number, seed: number): NewAnalysis[] {
       options: { ion: 'Cr3+' },
       result: partialResult({ fit }),
     };
-    const formula = pick(FORMULAS);
+    const formula = pick(SERIES_FORMULAS);
     if (formula !== undefined) record.formula = formula;
-    const ligands = pick(LIGAND_LISTS);
+    const ligands = pick(SERIES_LIGAND_LISTS);
     if (ligands.length > 0) record.ligands = ligands;
     return record;
   });
 }
 
 forEachEngine('librarySeries from columns, against the row-by-row reference', (engine) => {
-  let where: TestLibrary;
-  let library: Library;
-  beforeEach(async () => {
-    where = await freshLibrary(engine);
-    library = await where.open();
-  });
-  afterEach(async () => {
-    await library.close();
-    await where.dispose();
-  });
+  const fresh = libraryPerTest(engine);
 
   it.each([1, 2, 3])('gives the same report for 1 500 seeded records (seed %i)', async (seed) => {
+    const { library } = fresh;
     const saved = await library.addMany(seededRecords(1_500, seed));
     expect(saved.every((s) => !(s instanceof Error))).toBe(true);
     // a refit and an edit after adding: the series reads the current revision and details
@@ -108,6 +90,7 @@ forEachEngine('librarySeries from columns, against the row-by-row reference', (e
   });
 
   it("gives one group's view its own records only, as the reference does", async () => {
+    const { library } = fresh;
     const a = library.scoped({ user: 'ann', group: 'A', admin: false });
     const b = library.scoped({ user: 'bob', group: 'B', admin: false });
     await a.addMany(seededRecords(200, 4));
@@ -119,6 +102,7 @@ forEachEngine('librarySeries from columns, against the row-by-row reference', (e
   });
 
   it('throws the error the reference throws for a value written behind the library\'s back', async () => {
+    const { library, where } = fresh;
     await library.addMany(seededRecords(60, 6));
     await where.exec('UPDATE analyses SET ten_dq_sd = -2 WHERE id % 7 = 3');
     const error = async (fn: () => Promise<unknown>) => fn().then(() => { throw new Error('expected a throw'); }, (e: unknown) => e);
@@ -128,6 +112,7 @@ forEachEngine('librarySeries from columns, against the row-by-row reference', (e
   });
 
   it('throws the same not-found error when no record of the ion can be ranked', async () => {
+    const { library } = fresh;
     const error = async (fn: () => Promise<unknown>) => fn().then(() => { throw new Error('expected a throw'); }, (e: unknown) => e);
     expect(await error(() => librarySeries(library, 'Mn2+'))).toEqual(await error(() => referenceSeries(library, 'Mn2+')));
     await library.addMany(seededRecords(5, 7).map((r) => ({ ...r, ion: 'Ni2+', result: partialResult({ fit: {} }) })));
@@ -136,6 +121,7 @@ forEachEngine('librarySeries from columns, against the row-by-row reference', (e
 
   if (engine === 'postgres') {
     it('falls back to the reference for a NaN (which PostgreSQL can hold and prints as text in JSON)', async () => {
+      const { library, where } = fresh;
       await library.addMany(seededRecords(80, 8));
       await where.exec(`UPDATE analyses SET ten_dq = 'NaN' WHERE id = 9; UPDATE analyses SET beta = 'Infinity' WHERE id = 11`);
       expect(await library.seriesColumns('Cr3+')).toBeUndefined();

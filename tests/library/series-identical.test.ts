@@ -3,6 +3,8 @@ import { isFieldgapError } from '../../src/errors.js';
 import { buildSeries, seriesAnalysisOf, type SeriesReport, type SeriesSource } from '../../src/library/series.js';
 import { canonicalIon } from '../../src/library/validate.js';
 import { referenceFactorSamples } from '../reference/ligand-factor-samples.js';
+import { seededLcg } from '../reference/seeded-random.js';
+import { SERIES_FORMULAS, SERIES_LIGAND_LISTS } from '../helpers/series-spellings.js';
 import { combine, fitLigandFactors, rankByNephelauxetic, rankByTenDq, type FactorFit, type RankOptions, type SeriesAnalysis } from '../../src/series/index.js';
 
 /**
@@ -38,22 +40,8 @@ function referenceSeries(ionText: string, sources: readonly SeriesSource[], opti
   };
 }
 
-/** A seeded generator, so a failure can be replayed. */
-function lcg(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (Math.imul(state, 1_664_525) + 1_013_904_223) >>> 0;
-    return state / 2 ** 32;
-  };
-}
-
-// Spellings of a real library: formulas fieldgap reads (mixed, chelating), one it does not,
-// ligand names in several spellings, one ligand nobody tabulates, records without a fit or ligands.
-const FORMULAS = ['[Cr(H2O)6]Cl3', '[Cr(NH3)6]Cl3', '[Cr(en)3]Cl3', '[Cr(NH3)5Cl]Cl2', 'K3[Cr(ox)3]', 'K3[Cr(CN)6]', 'my own complex', undefined];
-const LIGAND_LISTS = [['H2O'], ['ammine'], ['NH3', 'Cl'], ['urea'], ['L1'], [], ['F']];
-
 function sources(count: number, seed: number): SeriesSource[] {
-  const next = lcg(seed);
+  const next = seededLcg(seed);
   const pick = <T>(list: readonly T[]): T => list[Math.floor(next() * list.length)]!;
   return Array.from({ length: count }, (_v, i): SeriesSource => {
     const hasFit = next() > 0.05;
@@ -71,9 +59,9 @@ function sources(count: number, seed: number): SeriesSource[] {
         betaSd: beta !== null && next() > 0.3 ? 0.03 * next() : null,
       },
     };
-    const formula = pick(FORMULAS);
+    const formula = pick(SERIES_FORMULAS);
     if (formula !== undefined) source.formula = formula;
-    const ligands = pick(LIGAND_LISTS);
+    const ligands = pick(SERIES_LIGAND_LISTS);
     if (ligands.length > 0) source.ligands = ligands;
     return source;
   });

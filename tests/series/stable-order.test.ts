@@ -1,23 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { stableOrderOfValues } from '../../src/series/stable-order.js';
+import { seededLcg } from '../reference/seeded-random.js';
 
 /** The slow, obviously correct reference: Array.prototype.sort is stable (ES2019), so equal values keep their index order. */
 function referenceOrder(values: Float64Array): number[] {
   return Array.from(values, (_v, i) => i).sort((i, j) => (values[i] as number) - (values[j] as number));
 }
 
-/** A seeded generator, so a failure can be replayed. */
-function lcg(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (Math.imul(state, 1_664_525) + 1_013_904_223) >>> 0;
-    return state / 2 ** 32;
-  };
-}
-
 describe('stableOrderOfValues against the comparison sort', () => {
   it.each([1, 2, 3, 4])('gives the same order for 20 000 seeded values with ties, signs, zeros and extremes (seed %i)', (seed) => {
-    const next = lcg(seed);
+    const next = seededLcg(seed);
     const pool = [0, -0, 1, -1, 5e-324, -5e-324, Number.MAX_VALUE, -Number.MAX_VALUE, Infinity, -Infinity, 0.1 + 0.2, 0.3];
     const values = Float64Array.from({ length: 20_000 }, () => {
       const r = next();

@@ -1,9 +1,8 @@
 import request from 'supertest';
-import { afterEach, expect, it } from 'vitest';
-import { createApp, type FieldgapApp } from '../../server/app.js';
+import { expect, it } from 'vitest';
 import { singleTokenResolver } from '../../server/security/auth.js';
-import { forEachEngine, libraryPerTest } from '../storage/helpers/engines.js';
-import { throughCutProxy, type CutProxy } from '../storage/helpers/cut-proxy.js';
+import { forEachEngine } from '../storage/helpers/engines.js';
+import { outagePerTest } from '../storage/helpers/outage.js';
 import { handBuiltRecord } from '../storage/helpers/records.js';
 import { captureLogger } from './helpers.js';
 
@@ -21,30 +20,23 @@ import { captureLogger } from './helpers.js';
 const HOST = '192.0.2.7';
 
 forEachEngine('a database outage with users', (engine) => {
-  const fresh = libraryPerTest(engine, { open: false });
-  let app: FieldgapApp | undefined;
-  let proxy: CutProxy | undefined;
-  afterEach(async () => {
-    await app?.close();
-    await proxy?.close();
-  });
+  const outage = outagePerTest(engine);
 
   it.runIf(engine === 'postgres')('health and the stateless routes keep answering; library routes 503 and recover', async () => {
-    const routed = await throughCutProxy(fresh.where.location);
+    const routed = await outage.route();
     if (routed === undefined) return;
-    proxy = routed.proxy;
-    const url = routed.url;
-    const seeded = await fresh.where.open();
+    const { proxy, url } = routed;
+    const seeded = await routed.open();
     await seeded.users.add('alice', 'labA');
     const token = await seeded.users.newToken('alice');
     await seeded.scoped({ user: 'alice', group: 'labA', admin: false }).add(handBuiltRecord({ sample: 'before the outage' }));
     await seeded.close();
-    app = createApp({
+    const app = outage.serve({
       pool: 'in-process', logger: captureLogger().logger, staticDir: false, database: url.toString(),
       identify: singleTokenResolver('the-single-service-token-0123456789'), identifyUsers: true, allowedHosts: [HOST],
     });
     const as = { Authorization: `Bearer ${token}`, Host: `${HOST}:5177` };
-    const fit = () => request(app!).post('/api/v1/fit').set(as).send({ ion: 'Cr3+', bands: [17400, 24600] });
+    const fit = () => request(app).post('/api/v1/fit').set(as).send({ ion: 'Cr3+', bands: [17400, 24600] });
     expect((await request(app).get('/api/v1/analyses').set(as).expect(200)).body.total).toBe(1);
     await fit().expect(200);
 

@@ -12,8 +12,8 @@ import { LIBRARY_FILE, openLibrary, openLibraryAt } from '../../src/library/libr
 import { translatePostgresError } from '../../src/library/postgres-errors.js';
 import { translateSqliteError } from '../../src/library/sqlite-errors.js';
 import { captureLogger } from '../server/helpers.js';
-import { throughCutProxy, type CutProxy } from './helpers/cut-proxy.js';
-import { forEachEngine, libraryPerTest } from './helpers/engines.js';
+import { forEachEngine } from './helpers/engines.js';
+import { outagePerTest } from './helpers/outage.js';
 import { handBuiltRecord } from './helpers/records.js';
 import { rejectionOf } from './helpers/rejection.js';
 
@@ -96,25 +96,17 @@ describe('the service over a damaged library', () => {
 });
 
 forEachEngine('a database outage', (engine) => {
-  const fresh = libraryPerTest(engine, { open: false });
-  let app: FieldgapApp | undefined;
-  let proxy: CutProxy | undefined;
-  // Registered after libraryPerTest, so it runs before the library is removed.
-  afterEach(async () => {
-    await app?.close();
-    await proxy?.close();
-  });
+  const outage = outagePerTest(engine);
 
   it.runIf(engine === 'postgres')('answers 503 with Retry-After while the database is away, and recovers by itself', async () => {
     // The service reaches PostgreSQL through a proxy the test can cut, as a network or server outage would.
-    const routed = await throughCutProxy(fresh.where.location);
+    const routed = await outage.route();
     if (routed === undefined) return;
-    proxy = routed.proxy;
-    const url = routed.url;
-    const seeded = await fresh.where.open();
+    const { proxy, url } = routed;
+    const seeded = await routed.open();
     await seeded.add(handBuiltRecord({ sample: 'before the outage' }));
     await seeded.close();
-    app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, database: url.toString() });
+    const app = outage.serve({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, database: url.toString() });
     expect((await request(app).get('/api/v1/analyses').expect(200)).body.total).toBe(1);
 
     proxy.cut();
