@@ -7,24 +7,14 @@
 import { describe, expect, it } from 'vitest';
 import { FieldgapError } from '../../src/errors.js';
 import { EigenConvergenceError, symmetricEigen, symmetricEigenvalues } from '../../src/ligand-field/eigen-symmetric.js';
+import { randomSymmetricMatrix } from '../helpers/random-symmetric-matrix.js';
 import { seededRandom } from '../reference/seeded-random.js';
-
-function randomSymmetric(n: number, random: () => number): Float64Array {
-  const a = new Float64Array(n * n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j <= i; j++) {
-      const v = 2 * random() - 1;
-      a[i * n + j] = v;
-      a[j * n + i] = v;
-    }
-  return a;
-}
 
 describe('symmetric eigensolver over the double range', () => {
   it.each([1e-300, 1e-150, 1e-20, 1e20, 1e150, 1e300])('eigenvalues of s·A are s times those of A, s = %s', (s) => {
     const random = seededRandom(7);
     for (const n of [2, 5, 12, 30]) {
-      const a = randomSymmetric(n, random);
+      const a = randomSymmetricMatrix(n, random);
       const base = symmetricEigenvalues(a, n);
       const scaled = symmetricEigenvalues(a.map((v) => v * s), n);
       for (let i = 0; i < n; i++) expect(scaled[i]! / s).toBeCloseTo(base[i]!, 10);

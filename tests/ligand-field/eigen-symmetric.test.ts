@@ -3,18 +3,8 @@ import { describe, expect, it } from 'vitest';
 import {
   createEigenWorkspace, symmetricEigen, symmetricEigenvalues, symmetricEigenvaluesInPlace,
 } from '../../src/ligand-field/eigen-symmetric.js';
+import { randomSymmetricMatrix } from '../helpers/random-symmetric-matrix.js';
 import { seededRandom } from '../reference/seeded-random.js';
-
-function randomSymmetric(n: number, random: () => number): Float64Array {
-  const a = new Float64Array(n * n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j <= i; j++) {
-      const v = 2 * random() - 1;
-      a[i * n + j] = v;
-      a[j * n + i] = v;
-    }
-  return a;
-}
 
 const sizes = [1, 2, 3, 4, 7, 12, 25, 40];
 
@@ -22,7 +12,7 @@ describe('symmetric eigen-solver (Householder + implicit QL)', () => {
   it.each(sizes)('n = %i: A·V = V·D and VᵀV = I on seeded random matrices', (n) => {
     const random = seededRandom(n);
     for (let trial = 0; trial < 3; trial++) {
-      const a = randomSymmetric(n, random);
+      const a = randomSymmetricMatrix(n, random);
       const { values, vectors } = symmetricEigen(a, n);
       for (let i = 0; i < n; i++)
         for (let j = 0; j < n; j++) {
@@ -41,7 +31,7 @@ describe('symmetric eigen-solver (Householder + implicit QL)', () => {
 
   it.each(sizes)('n = %i: eigenvalues match mathjs eigs', (n) => {
     const random = seededRandom(100 + n);
-    const a = randomSymmetric(n, random);
+    const a = randomSymmetricMatrix(n, random);
     const rows = Array.from({ length: n }, (_, i) => Array.from(a.subarray(i * n, i * n + n)));
     const reference = (eigs(rows).values as number[]).slice().sort((x, y) => x - y); // mathjs 15 eigs as reference
     const fast = symmetricEigenvalues(a, n);
@@ -67,7 +57,7 @@ describe('symmetric eigen-solver (Householder + implicit QL)', () => {
     const ws = createEigenWorkspace(20);
     const out = new Float64Array(20);
     for (const n of [20, 5, 13]) {
-      const a = randomSymmetric(n, random);
+      const a = randomSymmetricMatrix(n, random);
       const expected = symmetricEigenvalues(a, n);
       symmetricEigenvaluesInPlace(Float64Array.from(a), n, out, ws);
       for (let i = 0; i < n; i++) expect(out[i]!).toBeCloseTo(expected[i]!, 13);

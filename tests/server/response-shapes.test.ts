@@ -1,13 +1,10 @@
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import request from 'supertest';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { createApp, type FieldgapApp } from '../../server/app.js';
+import { afterEach, describe, expect, it } from 'vitest';
 import { analysisRecordResponse, listPageResponse } from '../../server/responses.js';
 import { fitBands } from '../../src/fit/index.js';
-import { captureLogger } from './helpers.js';
+import { makeTestApp, type TestApp } from './helpers.js';
 
 /**
  * The documented answer shapes (issue 18 item 2): the library's answers are
@@ -17,20 +14,16 @@ import { captureLogger } from './helpers.js';
  */
 const AQUA = fileURLToPath(new URL('../../spectra-demo/cr-aqua.csv', import.meta.url));
 
-let dataDir: string;
-let app: FieldgapApp | null = null;
-beforeEach(() => {
-  dataDir = mkdtempSync(join(tmpdir(), 'fieldgap-shapes-'));
-});
+let t: TestApp | undefined;
 afterEach(async () => {
-  await app?.close();
-  app = null;
-  rmSync(dataDir, { recursive: true, force: true });
+  await t?.dispose();
+  t = undefined;
 });
 
 describe('library answers', () => {
   it('are described field by field in the OpenAPI document and real answers parse with those schemas', async () => {
-    app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, dataDir });
+    t = makeTestApp();
+    const { app } = t;
     const doc = (await request(app).get('/api/v1/openapi.json').expect(200)).body as {
       paths: Record<string, Record<string, { responses: Record<string, { content?: Record<string, { schema: { $ref?: string; type?: string } }> }> }>>;
       components: { schemas: Record<string, { properties?: Record<string, unknown> }> };

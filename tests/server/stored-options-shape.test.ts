@@ -1,12 +1,9 @@
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import request from 'supertest';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { createApp, type FieldgapApp } from '../../server/app.js';
+import { afterEach, describe, expect, it } from 'vitest';
 import { analysisRecordResponse } from '../../server/responses.js';
-import { captureLogger } from './helpers.js';
+import { makeTestApp, type TestApp } from './helpers.js';
 
 /**
  * Issue 18 item 2: a stored analysis is described fully, its options too
@@ -17,20 +14,16 @@ import { captureLogger } from './helpers.js';
 const AQUA = fileURLToPath(new URL('../../spectra-demo/cr-aqua.csv', import.meta.url));
 
 interface Schema { $ref?: string; properties?: Record<string, Schema>; anyOf?: Schema[]; allOf?: Schema[]; items?: Schema }
-let dataDir: string;
-let app: FieldgapApp | null = null;
-beforeEach(() => {
-  dataDir = mkdtempSync(join(tmpdir(), 'fieldgap-stored-'));
-});
+let t: TestApp | undefined;
 afterEach(async () => {
-  await app?.close();
-  app = null;
-  rmSync(dataDir, { recursive: true, force: true });
+  await t?.dispose();
+  t = undefined;
 });
 
 describe('stored options in the OpenAPI document', () => {
   it('list every analysis option by its stored name, and a real record uses only those', async () => {
-    app = createApp({ pool: 'in-process', logger: captureLogger().logger, staticDir: false, dataDir });
+    t = makeTestApp();
+    const { app } = t;
     const doc = (await request(app).get('/api/v1/openapi.json').expect(200)).body as { components: { schemas: Record<string, Schema> } };
     const resolve = (s: Schema): Schema => (s.$ref ? resolve(doc.components.schemas[s.$ref.split('/').pop()!]!) : s.allOf?.length === 1 ? resolve(s.allOf[0]!) : s);
     const record = resolve(doc.components.schemas['AnalysisRecord']!);
