@@ -16,14 +16,16 @@ function lowestBit(mask: number): number {
 /**
  * The n×n row-major matrix of element(operator, bra, ket) over every pair
  * of the block's determinants: the one loop both Slater–Condon rules below
- * share. Why a callback is affordable here: these matrices are built once
- * per block and cached (blocks.ts and its kin), never per evaluation. Timed
- * against the two loops written out, interleaved: building the one- and two
+ * share. The callback costs speed only where no one waits for it: these
+ * matrices are built once per block and cached (blocks.ts and its kin),
+ * never per evaluation. Measured against the two loops written out
+ * (interleaved, CPU time, a shared machine): building the one-body and both
  * two-body matrices over all 252 d5 determinants in a warm process took
- * about 0.9 ms more (6.8 against 5.9 ms CPU, median of 40), and the first
- * calls of a fresh process, where the caches are actually filled (all
- * d^n, both cubic geometries, and the d^n field levels with spin–orbit),
- * showed no difference beyond the noise (about 280 ms either way, 8 runs).
+ * 6.8 ms against 5.9 ms (median of 40); the first calls of a fresh process,
+ * where the caches are filled (all d^n, both cubic geometries, and the
+ * field levels with spin–orbit), medians of 363 ms (loops) and 364 ms
+ * (helper) over 8 runs each, single runs 332–432 ms; bench/ligand-field.ts
+ * (evaluations, diagrams, spin–orbit energies), run twice each, unchanged.
  */
 function blockMatrixOf(
   masks: readonly number[], operator: Float64Array, element: (operator: Float64Array, bra: number, ket: number) => number,
