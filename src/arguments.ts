@@ -51,9 +51,20 @@ export function numberOption(
     throw invalidArgument(`--${name}`, `--${name}: expected a whole number, got "${raw}"`);
   }
   if (value < min || value > max) {
-    throw invalidArgument(`--${name}`, `--${name}: ${raw} is outside the allowed range ${min} to ${max}`);
+    throw invalidArgument(`--${name}`, `--${name}: ${raw.trim()} ${rangeWords(min, max)}`);
   }
   return value;
+}
+
+/**
+ * The allowed range in words: a minimum of Number.MIN_VALUE means "greater
+ * than 0" (no user should read 5e-324), an infinite end is left unsaid.
+ */
+export function rangeWords(min: number, max: number): string {
+  const low = min === Number.MIN_VALUE ? 'greater than 0' : `at least ${min}`;
+  if (max === Infinity) return min === -Infinity ? 'is not allowed' : `is not allowed: the value must be ${low}`;
+  if (min === -Infinity) return `is not allowed: the value must be at most ${max}`;
+  return min === Number.MIN_VALUE ? `is not allowed: the value must be greater than 0 and at most ${max}` : `is outside the allowed range ${min} to ${max}`;
 }
 
 /** One of a fixed set of words, or a clear error listing them. */
