@@ -38,8 +38,8 @@ export function parseCommandArgs<O extends Options>(
 }
 
 /**
- * The option name closest to a mistyped one (edit distance at most 2, or one
- * being a prefix of the other), or undefined. Hand-written rather than the
+ * The option name closest to a mistyped one (edit distance at most 2, or one of
+ * three letters or more being a prefix of the other), or undefined. Hand-written rather than the
  * npm package leven: a dozen lines over a handful of short names, and no new
  * dependency in the shared package.json for an error message.
  */
@@ -48,7 +48,7 @@ export function nearestOption(typed: string, names: readonly string[]): string |
   let best: string | undefined;
   let bestDistance = Infinity;
   for (const name of names) {
-    const d = word.length >= 3 && (name.startsWith(word) || word.startsWith(name)) ? 1 : editDistance(word, name);
+    const d = Math.min(word.length, name.length) >= 3 && (name.startsWith(word) || word.startsWith(name)) ? 1 : editDistance(word, name);
     if (d < bestDistance) [best, bestDistance] = [name, d];
   }
   return bestDistance <= 2 ? best : undefined;

@@ -3,7 +3,7 @@ import { nearestOption, parseCommandArgs } from '../../src/arguments.js';
 import { FieldgapError } from '../../src/errors.js';
 
 /** AUDIT2 finding 23: an unknown option names itself, the nearest real one, and --help; not node's wording. */
-const OPTIONS = { ion: { type: 'string' }, conc: { type: 'string' }, path: { type: 'string' }, 'no-step-correction': { type: 'boolean' }, json: { type: 'boolean' } } as const;
+const OPTIONS = { c: { type: 'string' }, ion: { type: 'string' }, conc: { type: 'string' }, path: { type: 'string' }, 'no-step-correction': { type: 'boolean' }, json: { type: 'boolean' } } as const;
 
 function errorOf(argv: string[]): FieldgapError {
   try {
@@ -20,6 +20,8 @@ describe('unknown options', () => {
     const e = errorOf(['a.csv', '--cnoc', '0.1']);
     expect(e.message).toBe('--cnoc: no such option; did you mean --conc? (every option: --help)');
     expect(e.path).toBe('--cnoc');
+    // A one-letter option (--c, Racah C) is no prefix match for a longer typo.
+    expect(errorOf(['--cnoc', '1']).message).not.toMatch(/did you mean --c\?/);
     expect(errorOf(['--no-step']).message).toMatch(/did you mean --no-step-correction\?/);
   });
 
