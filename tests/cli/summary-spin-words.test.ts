@@ -29,3 +29,14 @@ describe('analyze summary table: spin state cell', () => {
     expect(row.spinState).toBe('no-choice');
   });
 });
+
+describe('analyze summary table: the spin state column', () => {
+  it('is wide enough for "one possible", so the rms column stays under its heading', async () => {
+    const { tableLine, tableWidths } = await import('../../src/cli/batch-output.js');
+    const widths = tableWidths(['a.csv']);
+    const head = tableLine({ file: 'file', ion: 'ion', tenDq: '10Dq / cm-1', b: 'B / cm-1', beta: 'beta', spinState: 'spin state', rms: 'rms / cm-1', warnings: 'warnings' }, widths);
+    const row = tableLine(summaryRow(outcome('no-choice')), widths);
+    const at = head.indexOf('rms / cm-1');
+    expect(row.slice(at - 2, at + 1)).toBe('  1'); // the rms value (1) starts under its heading, after the column gap
+  });
+});
