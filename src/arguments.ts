@@ -29,8 +29,42 @@ export function parseCommandArgs<O extends Options>(
     if (/is ambiguous/.test(message) && argv.includes(option) && next !== undefined) {
       throw invalidArgument(option, `${option}: the value "${next}" starts with "-" and reads as an option: write ${option}=${next}`);
     }
+    if (/^Unknown option/.test(message) && match) {
+      const near = nearestOption(option, Object.keys(options));
+      throw invalidArgument(option, `${option}: no such option${near ? `; did you mean --${near}?` : ''} (every option: --help)`);
+    }
     throw invalidArgument(option, message.replace(/\.?\s*To specify.*$/s, '').replace(/\s*\n\s*/g, ' '));
   }
+}
+
+/**
+ * The option name closest to a mistyped one (edit distance at most 2, or one of
+ * three letters or more being a prefix of the other), or undefined. Hand-written rather than the
+ * npm package leven: a dozen lines over a handful of short names, and no new
+ * dependency in the shared package.json for an error message.
+ */
+export function nearestOption(typed: string, names: readonly string[]): string | undefined {
+  const word = typed.replace(/^-+/, '').toLowerCase();
+  let best: string | undefined;
+  let bestDistance = Infinity;
+  for (const name of names) {
+    const d = Math.min(word.length, name.length) >= 3 && (name.startsWith(word) || word.startsWith(name)) ? 1 : editDistance(word, name);
+    if (d < bestDistance) [best, bestDistance] = [name, d];
+  }
+  return bestDistance <= 2 ? best : undefined;
+}
+
+/** Levenshtein distance (insertions, deletions, substitutions each 1). */
+function editDistance(a: string, b: string): number {
+  let previous = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    const row = [i];
+    for (let j = 1; j <= b.length; j++) {
+      row[j] = Math.min((previous[j] as number) + 1, (row[j - 1] as number) + 1, (previous[j - 1] as number) + (a[i - 1] === b[j - 1] ? 0 : 1));
+    }
+    previous = row;
+  }
+  return previous[b.length] as number;
 }
 
 /** A finite number from an option value, or a clear error naming the option. */
@@ -51,9 +85,20 @@ export function numberOption(
     throw invalidArgument(`--${name}`, `--${name}: expected a whole number, got "${raw}"`);
   }
   if (value < min || value > max) {
-    throw invalidArgument(`--${name}`, `--${name}: ${raw} is outside the allowed range ${min} to ${max}`);
+    throw invalidArgument(`--${name}`, `--${name}: ${raw.trim()} ${rangeWords(min, max)}`);
   }
   return value;
+}
+
+/**
+ * The allowed range in words: a minimum of Number.MIN_VALUE means "greater
+ * than 0" (no user should read 5e-324), an infinite end is left unsaid.
+ */
+export function rangeWords(min: number, max: number): string {
+  const low = min === Number.MIN_VALUE ? 'greater than 0' : `at least ${min}`;
+  if (max === Infinity) return min === -Infinity ? 'is not allowed' : `is not allowed: the value must be ${low}`;
+  if (min === -Infinity) return `is not allowed: the value must be at most ${max}`;
+  return min === Number.MIN_VALUE ? `is not allowed: the value must be greater than 0 and at most ${max}` : `is outside the allowed range ${min} to ${max}`;
 }
 
 /** One of a fixed set of words, or a clear error listing them. */

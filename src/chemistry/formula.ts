@@ -162,6 +162,7 @@ interface LigandAt {
 function readInside(scan: FormulaScanner, end: number): { metalSymbol: string; metalAt: number; ligands: LigandAt[] } {
   const metalAt = scan.index;
   const metalSymbol = readMetal(scan);
+  const ligandsStart = scan.index;
   const ligands: LigandAt[] = [];
   while (scan.index < end) {
     const at = scan.index;
@@ -178,6 +179,11 @@ function readInside(scan: FormulaScanner, end: number): { metalSymbol: string; m
       scan.index = close + 1;
     } else {
       const bare = bareLigandAt(scan.text, at);
+      // "[Cr2O7]2-", "[Fe2(CO)9]": a count right after the metal is a second metal atom, not a ligand.
+      const metalCount = at === ligandsStart ? /^\d+/.exec(scan.text.slice(at))?.[0] : undefined;
+      if (!bare && metalCount && Number(metalCount) > 1) {
+        throw scan.error(`${metalCount} ${metalSymbol} atoms: a formula with more than one metal centre cannot be read: write one centre with its own ligands (a spectrum of the compound can still be analysed with --ion)`, at);
+      }
       if (!bare) throw scan.error(`cannot read a ligand in "${scan.text.slice(at, end)}" (write unknown or abbreviated ligands in parentheses, e.g. (en))`, at);
       ligand = bare.ligand;
       scan.index += bare.spelling.length;

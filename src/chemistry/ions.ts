@@ -126,7 +126,9 @@ export function parseIon(text: string, options: ParseIonOptions = {}): Ion {
   }
   const charge = chargeFromText(rest);
   if (charge === undefined) {
-    return fail(rest === '' ? `no charge or oxidation state after ${symbol}` : `cannot read the charge "${rest}"`);
+    // A bare number ("Cr3") is most often "Cr3+" sent in a URL query unencoded, where "+" arrives as a space.
+    const unsigned = /^\d+$/.test(rest) ? `: a charge needs its sign, ${symbol}${rest}+ or ${symbol}${rest}- (in a URL query "+" arrives as a space: write it %2B, ion=${symbol}${rest}%2B)` : '';
+    return fail(rest === '' ? `no charge or oxidation state after ${symbol}` : `cannot read the charge "${rest}"${unsigned}`);
   }
   return ionFromOxidationState(symbol, charge, path);
 }

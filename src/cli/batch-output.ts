@@ -29,10 +29,10 @@ const TABLE_KEYS = Object.keys(TABLE_HEAD) as (keyof SummaryRow)[];
  * Column widths fixed before the first row, since rows are printed as they
  * come: the file column as wide as the longest path listed, the others as
  * wide as their heading or their usual widest value ("Cr3+", "17000 ± 120",
- * "680 ± 41", "high-spin"). A longer value widens its own line only.
+ * "680 ± 41", "one possible"). A longer value widens its own line only.
  */
 export function tableWidths(labels: readonly string[]): number[] {
-  const usual: Partial<Record<keyof SummaryRow, number>> = { ion: 4, tenDq: 11, b: 8, spinState: 10 };
+  const usual: Partial<Record<keyof SummaryRow, number>> = { ion: 4, tenDq: 11, b: 8, spinState: 12 };
   let file = TABLE_HEAD.file.length;
   for (const label of labels) file = Math.max(file, cellWidth(label));
   return TABLE_KEYS.map((k) => (k === 'file' ? file : Math.max(TABLE_HEAD[k].length, usual[k] ?? 0)));

@@ -9,6 +9,7 @@ import { analyzeSpectrum, listSpectra, type AnalyzeOptions, type AnalyzeResult }
 import { FieldgapError, isFieldgapError } from '../errors.js';
 import { readInputFile } from './files.js';
 import { formatPlusMinus } from '../report/plus-minus.js';
+import { spinStateWords } from '../report/spin-state-wording.js';
 import { RESULTS_CSV_COLUMNS, resultsCsvRow, resultsWarningsCell, type ResultsCsvRow } from '../report/results-csv.js';
 
 /** The --csv summary's columns: the results table of src/report/results-csv.ts. */
@@ -120,7 +121,8 @@ export function summaryRow(outcome: Outcome): SummaryRow {
     tenDq: pm(f.tenDq, f.uncertainty.tenDq),
     b: pm(f.b, f.uncertainty.b),
     beta: f.beta === null ? '' : f.beta.toFixed(2),
-    spinState: f.spinState,
+    // The table is read by people: the page's words for 'no-choice' (the --csv summary keeps the value itself).
+    spinState: f.spinState === 'no-choice' ? spinStateWords(f.spinState) : f.spinState,
     rms: f.rmsResidual.toFixed(0),
     warnings: warningsCell(outcome),
   };

@@ -82,12 +82,36 @@ export function decideSpin(
   return { state, decidedBy: 'numbers', rule: null, borderline: numbers.borderline, numbers, summary };
 }
 
-/** Orbital contribution to the moment: expected for T ground terms (orbital triplets), quenched for A and E. */
-export function orbitalContribution(term: string, geometry: PredictGeometry): { expected: boolean; why: string } {
-  const irrep = /^\d+([A-Z]\d?)/.exec(term)?.[1] ?? '';
+/**
+ * Orbital contribution to the moment: expected (first order) for T ground
+ * terms, orbital triplets. A and E terms have none in first order, but
+ * spin–orbit coupling mixes in the T term 10Dq above: μ ≈ μso(1 − αλ/10Dq),
+ * α = 4 for A2, 2 for E (Figgis, Introduction to Ligand Fields (1966); the
+ * formula from memory), λ > 0 for a less than half-filled shell (μ below
+ * spin-only), λ < 0 for a more than half-filled one (μ above); noticeable
+ * where 10Dq is small (tetrahedral Co(II): 4.4–4.8 μB against 3.87, from
+ * memory). A1 terms with S > 0 (6A1 of d5) have no orbital angular momentum
+ * to mix in: spin-only. A closed-shell ground term (singlet) is diamagnetic.
+ * d, when given, decides the sign of λ; without it the direction is not said.
+ */
+export function orbitalContribution(term: string, geometry: PredictGeometry, d?: number): { expected: boolean; why: string } {
+  const m = /^(\d+)([A-Z]\d?)/.exec(term);
+  const multiplicity = m ? Number(m[1]) : NaN;
+  const irrep = m?.[2] ?? '';
+  if (multiplicity === 1) return { expected: false, why: `${term}: no unpaired electrons, the complex is diamagnetic (common practice)` };
   if (geometry !== 'square-planar' && irrep.startsWith('T')) {
     return { expected: true, why: `${term} is an orbital triplet: an orbital contribution is expected, the moment departs from spin-only (common practice)` };
   }
-  if (irrep.startsWith('E')) return { expected: false, why: `${term} is an orbital doublet: orbital angular momentum quenched, close to spin-only (small spin–orbit mixing; common practice)` };
+  const secondOrder = geometry !== 'square-planar' && (irrep === 'A2' || irrep.startsWith('E'));
+  if (secondOrder) {
+    const alpha = irrep === 'A2' ? 4 : 2;
+    const kind = irrep === 'A2' ? 'orbitally non-degenerate' : 'an orbital doublet';
+    const direction = d === undefined || d === 5 ? 'shifted from spin-only' : d > 5 ? 'somewhat above spin-only (λ < 0, shell more than half full)' : 'somewhat below spin-only (λ > 0, shell less than half full)';
+    return {
+      expected: false,
+      why: `${term} is ${kind}: no first-order orbital contribution, but spin–orbit mixing with the excited T term puts the moment ${direction}, μ ≈ μso(1 − ${alpha}λ/10Dq), the more so the smaller 10Dq (Figgis, Introduction to Ligand Fields (1966), from memory)`,
+    };
+  }
+  if (irrep.startsWith('A') && multiplicity === 6) return { expected: false, why: `${term} has no orbital angular momentum, not even by mixing: spin-only (common practice)` };
   return { expected: false, why: `${term === 'not modelled' ? 'non-degenerate ground state assumed' : `${term} is orbitally non-degenerate`}: close to spin-only (common practice)` };
 }

@@ -211,7 +211,7 @@ export function predictComplex(formula: string, options: PredictOptions = {}): P
     unpairedElectrons: est(n, decision.summary),
     groundTerm: est(ground.term, ground.method),
     spinOnlyMoment: est(Math.sqrt(n * (n + 2)), 'spin only: μ = √(n(n+2)) μB', 'μB'),
-    orbitalContribution: orbitalContribution(ground.term, geometry),
+    orbitalContribution: orbitalContribution(ground.term, geometry, metal.d),
     occupation,
     lfse: {
       dq: occupation.lfseDq,

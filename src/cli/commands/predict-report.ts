@@ -111,6 +111,10 @@ export function predictionReport(p: Prediction): string {
   const out: string[] = [];
   const add = (text: string, first = '', indent = '    ') => out.push(...wrapText(text, first, indent));
   add(`${p.complexIon}: ${metalName}, ${p.ion}, d${p.d}`);
+  // A forgotten charge changes the oxidation state and every number below: said on top, not only among the warnings.
+  if (p.warnings.some((w) => /taken as neutral/.test(w))) {
+    add(`Charge: none given, so the complex is read as neutral and the metal as ${metalName}; if you meant an ion, write its charge after the bracket, e.g. "${p.complexIon}2+"`, 'NOTE ', '    ');
+  }
   add(`Ligands: ${p.ligands.map((l) => `${l.count} × ${l.key} (${l.name})`).join(', ')}; coordination number ${p.coordinationNumber}`);
   add(`Geometry: ${p.geometry.value} (${p.geometry.method})`);
   out.push('', 'Estimates (from tabulated factors, not measurements; ± one standard deviation):');
