@@ -1,7 +1,7 @@
 import { FieldgapError } from '../errors.js';
 import { blockHamiltonianInto } from './block-spectra.js';
 import { createEigenWorkspace, symmetricEigenvaluesInPlace, type EigenWorkspace } from './eigen-symmetric.js';
-import type { FieldLevel } from './field-levels.js';
+import type { FieldLevel } from './field-level-types.js';
 import { irrepBlocks, type IrrepBlocks } from './irrep-blocks.js';
 import type { ParentTable } from './labels.js';
 import { energyTolerance } from './levels.js';
@@ -14,7 +14,7 @@ import { tetragonalSpectrum } from './tetragonal-spectrum.js';
  * (octahedral parent geometry, Dq ≠ 0), fast. Each level is (2S+1, D4h
  * irrep) with its octahedral parent: the i-th lowest (S, Γ4) level's parent
  * is the i-th lowest octahedral (S, Γ) level whose O → D4 reduction holds
- * Γ4 (the non-crossing rule along t·(Ds, Dt), see field-levels.ts). The D4
+ * Γ4 (the non-crossing rule along t·(Ds, Dt), see field-level-types.ts). The D4
  * channel of each octahedral irrep (O → D4: A1 → A1, A2 → B1, E → A1 + B1,
  * T1 → A2 + E, T2 → B2 + E), read backwards, says which cubic (S, Γ) lists
  * are merged for each channel: A1 ← A1, E; A2 ← T1; E ← T1, T2;
@@ -33,7 +33,7 @@ import { tetragonalSpectrum } from './tetragonal-spectrum.js';
  * arrays, sorts positions in place and makes one object per level.
  *
  * The slow reference (a labelled computeLevels, then parents by rank) is
- * spinFreeTetragonalLevelsViaCubic in field-levels.ts, which also serves
+ * spinFreeTetragonalLevelsViaCubic in tetragonal-spin-free.ts, which also serves
  * Dq = 0; tests/ligand-field/tetragonal-levels.test.ts compares the two.
  */
 
