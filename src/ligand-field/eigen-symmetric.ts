@@ -234,7 +234,8 @@ function tridiagonalEigenvaluesRootFree(d: Float64Array, e: Float64Array, n: num
       const offDiagonal = Math.sqrt(e[l]!);
       const first = d[l]!;
       const p0 = (d[l + 1]! - first) / (2 * offDiagonal);
-      const r0 = Math.hypot(p0, 1);
+      // hypot(p0, 1) without Math.hypot, slow in V8; beyond 1e150 the 1 is lost anyway and p0² would overflow.
+      const r0 = Math.abs(p0) < 1e150 ? Math.sqrt(p0 * p0 + 1) : Math.abs(p0);
       d[l] = offDiagonal / (p0 + (p0 >= 0 ? r0 : -r0));
       const h0 = first - d[l]!;
       for (let i = l + 1; i < n; i++) d[i] = d[i]! - h0;
