@@ -304,6 +304,21 @@ export function symmetricEigenvaluesInPlace(
 }
 
 /**
+ * The Householder tridiagonal form of the symmetric n×n matrix a (destroyed;
+ * lower triangle read), scaled by the returned power of two (exact, as
+ * symmetricEigenvaluesInPlace scales): diagonal in d[0..n−1], sub-diagonal in
+ * e[1..n−1] (e[i] couples rows i − 1 and i). Its eigenvalues are factor × those
+ * of a. For sturm-count.ts, when the order of eigenvalues against given
+ * values is wanted and the eigenvalues themselves are not.
+ */
+export function symmetricTridiagonalInPlace(a: Float64Array, n: number, d: Float64Array, e: Float64Array): number {
+  if (n === 0) return 1;
+  const factor = scaleLowerTriangle(a, n);
+  tridiagonalise(a, n, d, e, false);
+  return factor;
+}
+
+/**
  * Eigenvalues of [[p, q], [q, r]] (lower triangle: p, q, r), ascending, into
  * out[0], out[1]: centre ± radius, centre = (p + r)/2, radius =
  * hypot((p − r)/2, q), with no intermediate overflow.
