@@ -43,6 +43,9 @@ function workspaceFor(blocks: BlockSet): Workspace {
 export function blockHamiltonianInto(block: OperatorBlock, coefficients: ArrayLike<number>, out: Float64Array): void {
   const n = block.size;
   const ops = block.operators;
+  // The cubic (Dq, B, C) and tetragonal (+ Ds, Dt) blocks in one pass: each entry read and written once.
+  if (ops.length === 3) return sumOfThreeInto(n, ops, coefficients, out);
+  if (ops.length === 5) return sumOfFiveInto(n, ops, coefficients, out);
   const first = ops[0]!;
   const c0 = coefficients[0]!;
   for (let i = 0; i < n; i++) {
@@ -57,6 +60,35 @@ export function blockHamiltonianInto(block: OperatorBlock, coefficients: ArrayLi
       const row = i * n;
       for (let j = row; j <= row + i; j++) out[j] = out[j]! + cp * op[j]!;
     }
+  }
+}
+
+/**
+ * The lower triangle of c0·A + c1·B + c2·C, summed in that order (the order
+ * of the general loop above, so the entries are the same numbers).
+ */
+function sumOfThreeInto(n: number, ops: readonly Float64Array[], coefficients: ArrayLike<number>, out: Float64Array): void {
+  const [a, b, c] = ops as [Float64Array, Float64Array, Float64Array];
+  const c0 = coefficients[0]!;
+  const c1 = coefficients[1]!;
+  const c2 = coefficients[2]!;
+  for (let i = 0; i < n; i++) {
+    const row = i * n;
+    for (let j = row; j <= row + i; j++) out[j] = c0 * a[j]! + c1 * b[j]! + c2 * c[j]!;
+  }
+}
+
+/** As sumOfThreeInto, with five operators (Dq, B, C, Ds, Dt). */
+function sumOfFiveInto(n: number, ops: readonly Float64Array[], coefficients: ArrayLike<number>, out: Float64Array): void {
+  const [a, b, c, d, e] = ops as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
+  const c0 = coefficients[0]!;
+  const c1 = coefficients[1]!;
+  const c2 = coefficients[2]!;
+  const c3 = coefficients[3]!;
+  const c4 = coefficients[4]!;
+  for (let i = 0; i < n; i++) {
+    const row = i * n;
+    for (let j = row; j <= row + i; j++) out[j] = c0 * a[j]! + c1 * b[j]! + c2 * c[j]! + c3 * d[j]! + c4 * e[j]!;
   }
 }
 

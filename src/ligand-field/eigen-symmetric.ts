@@ -18,6 +18,8 @@ import { FieldgapError } from '../errors.js';
 
 const EPSILON = 2 ** -52;
 const MAX_SWEEPS = 60;
+/** Largest |log2| of a matrix's largest entry that is left unscaled (see scaleLowerTriangle). */
+const SAFE_EXPONENT = 128;
 
 /** The QL iteration did not converge: a numerical failure (code "internal"), with the matrix order for the log. */
 export class EigenConvergenceError extends FieldgapError {
@@ -53,6 +55,10 @@ function scaleLowerTriangle(a: Float64Array, n: number): number {
   // 2^-floor(log2(largest)+1), computed in two steps so that neither factor overflows.
   const exponent = Math.floor(Math.log2(largest)) + 1;
   const half = Math.trunc(exponent / 2);
+  // Within 2^±SAFE_EXPONENT nothing in the reduction or the QL iteration under- or overflows, and every
+  // step is exact under a power-of-two scaling (the square roots are of squares or of scale-free sums),
+  // so scaling there would change no bit of the result: only its cost. (Tested in eigen-symmetric-range.test.ts.)
+  if (Math.abs(exponent) <= SAFE_EXPONENT) return 1;
   const factor = 2 ** -half * 2 ** -(exponent - half);
   if (factor === 1) return 1;
   for (let i = 0; i < n; i++) for (let j = 0; j <= i; j++) a[i * n + j]! *= factor;
@@ -234,7 +240,8 @@ function tridiagonalEigenvaluesRootFree(d: Float64Array, e: Float64Array, n: num
       const offDiagonal = Math.sqrt(e[l]!);
       const first = d[l]!;
       const p0 = (d[l + 1]! - first) / (2 * offDiagonal);
-      const r0 = Math.hypot(p0, 1);
+      // hypot(p0, 1) without Math.hypot, slow in V8; beyond 1e150 the 1 is lost anyway and p0² would overflow.
+      const r0 = Math.abs(p0) < 1e150 ? Math.sqrt(p0 * p0 + 1) : Math.abs(p0);
       d[l] = offDiagonal / (p0 + (p0 >= 0 ? r0 : -r0));
       const h0 = first - d[l]!;
       for (let i = l + 1; i < n; i++) d[i] = d[i]! - h0;
@@ -300,6 +307,21 @@ export function symmetricEigenvaluesInPlace(
   tridiagonalise(a, n, values, e, false);
   tridiagonalEigenvaluesRootFree(values, e, n);
   if (factor !== 1) for (let i = 0; i < n; i++) values[i]! /= factor;
+}
+
+/**
+ * The Householder tridiagonal form of the symmetric n×n matrix a (destroyed;
+ * lower triangle read), scaled by the returned power of two (exact, as
+ * symmetricEigenvaluesInPlace scales): diagonal in d[0..n−1], sub-diagonal in
+ * e[1..n−1] (e[i] couples rows i − 1 and i). Its eigenvalues are factor × those
+ * of a. For sturm-count.ts, when the order of eigenvalues against given
+ * values is wanted and the eigenvalues themselves are not.
+ */
+export function symmetricTridiagonalInPlace(a: Float64Array, n: number, d: Float64Array, e: Float64Array): number {
+  if (n === 0) return 1;
+  const factor = scaleLowerTriangle(a, n);
+  tridiagonalise(a, n, d, e, false);
+  return factor;
 }
 
 /**

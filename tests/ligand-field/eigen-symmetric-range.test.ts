@@ -30,6 +30,17 @@ describe('symmetric eigensolver over the double range', () => {
     }
   });
 
+  it.each([-300, -129, -128, -60, -1, 1, 17, 60, 128, 129, 300])('eigenvalues of 2^%i·A are exactly 2^k times those of A (scaled or not, no bit changes)', (k) => {
+    // The solver leaves matrices within 2^±128 unscaled: that is only sound if every step is exact under a power-of-two scaling.
+    const random = seededRandom(11);
+    for (const n of [3, 7, 18, 30]) {
+      const a = randomSymmetric(n, random);
+      const base = symmetricEigenvalues(a, n);
+      const scaled = symmetricEigenvalues(a.map((v) => v * 2 ** k), n);
+      expect(Array.from(scaled)).toEqual(Array.from(base, (v) => v * 2 ** k));
+    }
+  });
+
   it('keeps a matrix of mixed tiny and ordinary entries exact (diagonal: eigenvalues are the entries)', () => {
     const a = Float64Array.from([1e-150, 0, 0, 0, 700, 0, 0, 0, 1e-300]);
     expect(Array.from(symmetricEigenvalues(a, 3))).toEqual([1e-300, 1e-150, 700]);
