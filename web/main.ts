@@ -16,6 +16,7 @@ import { createUploadPanel } from './views/upload.js';
 import { alternativesPanel, assignmentTable, notesBox, parameterCards, warningsBox } from './views/results.js';
 import { bandsPanel } from './views/bands.js';
 import { tetragonalPanel } from './views/tetragonal.js';
+import { showFittedLevels } from './views/levels-from-fit.js';
 import { columnsPanel } from './views/columns.js';
 import { diagramFigure, spectrumFigures } from './views/plots.js';
 import { keptPanel } from './views/keep.js';
@@ -191,7 +192,7 @@ function renderMain(root: HTMLElement): void {
     h('p', { class: 'subtitle', id: 'result-subtitle' }, subtitle, h('span', { class: 'muted' }, ` · ${entry.fileName}, ${entry.result.spectrum.points} points`)),
     columnsPanel(entry, state.entries, { onAnalyse: (columns) => void analyseColumns(entry, columns), onSelect: (key) => { state.currentKey = key; render(); } }) ?? '',
     keptPanel('warnings', [entry, JSON.stringify(warnings)], () => warningsBox(warnings)) ?? '',
-    entry.symmetry === 'tetragonal' && entry.tetragonalFit ? keptPanel('tetragonal', [entry.tetragonalFit], () => tetragonalPanel(entry.tetragonalFit!)) : '',
+    entry.symmetry === 'tetragonal' && entry.tetragonalFit ? keptPanel('tetragonal', [entry.tetragonalFit], () => tetragonalPanel(entry.tetragonalFit!, { onShowLevels: () => showLevelsOf(entry) })) : '',
     fit === null ? '' : keptPanel('cards', [entry.fit, entry.shownAlternative, entry.originalFit], () => parameterCards(fit, entry.originalFit)),
     keptPanel('notes', [entry.fit, entry.shownAlternative], () => notesBox(fit?.notes ?? [])) ?? '',
     h(
@@ -247,6 +248,14 @@ function render(): void {
 }
 
 const tabs = setupTabs((tab) => { state.tab = tab; render(); });
+
+/** The Levels view, computed at the entry's tetragonal fit. */
+function showLevelsOf(entry: AnalysisEntry): void {
+  const fit = entry.tetragonalFit;
+  if (!fit) return;
+  tabs.select('levels');
+  showFittedLevels(fit);
+}
 
 const libraryContext: LibraryContext = {
   open(entry) {

@@ -11,6 +11,7 @@ import { describe, expect, it } from 'vitest';
 import { formatNumber, formatWithUncertainty } from '../../web/format.js';
 import { formatDelimited, synthesizeSpectrum } from '../../src/spectrum/index.js';
 import { fitTetragonal, type TetragonalFitResult } from '../../src/fit-tetragonal/index.js';
+import { computeFieldLevels } from '../../src/ligand-field/field-levels.js';
 import { browserTestsSkipped } from './helpers/browser.js';
 import { cardValue } from './helpers/page-actions.js';
 import { SHOTS, sessionPerSuite } from './helpers/session.js';
@@ -126,6 +127,25 @@ describe.skipIf(browserTestsSkipped())('the tetragonal fit on the page', () => {
     await page.screenshot({ path: join(SHOTS, 'tetragonal-fit-400.png'), fullPage: true });
     expect(await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)).toBeLessThanOrEqual(0);
     await page.setViewportSize({ width: 1280, height: 900 });
+
+    // "see the levels": one click opens the Levels tab computed at the fitted Dq, Ds, Dt.
+    const levelsAnswer = page.waitForResponse((r) => r.url().includes('/api/v1/levels'));
+    await page.click('#tetragonal-levels');
+    await levelsAnswer;
+    await page.waitForSelector('#levels-table');
+    expect(await page.inputValue('#lv-symmetry')).toBe('tetragonal');
+    const field = async (name: string): Promise<number> => Number(await page.inputValue(`#lv-${name}`));
+    expect(await field('dq')).toBeCloseTo(fit.dq, 1);
+    expect(await field('ds')).toBeCloseTo(fit.ds, 1);
+    expect(await field('dt')).toBeCloseTo(fit.dt, 1);
+    const levels = computeFieldLevels(9, 'octahedral', { dq: await field('dq'), b: await field('b'), c: await field('c'), ds: await field('ds'), dt: await field('dt'), zeta: 0 }).levels;
+    const shown = await page.$$eval('#levels-table tbody tr', (trs) => trs.map((tr) => Array.from(tr.querySelectorAll('td'), (td) => td.textContent ?? '')));
+    expect(shown.map((r) => r[0])).toEqual(levels.map((l) => l.term));
+    expect(shown.map((r) => r[1])).toEqual(levels.map((l) => l.energy.toFixed(0)));
+    // The fitted levels are the observed bands (an exact fit of three bands): 14 300, 15 600, 19 100 above the ground level.
+    expect(levels.slice(1).map((l) => Math.round(l.energy))).toEqual(CU_BANDS);
+    await page.screenshot({ path: join(SHOTS, 'tetragonal-fit-levels.png'), fullPage: true });
+    await page.click('#tab-analyse');
     expect(s.problems).toEqual([]);
     expect(s.outside).toEqual([]);
   }, 120_000);

@@ -89,7 +89,12 @@ function componentsList(fit: TetragonalFitResult): HTMLElement | null {
   );
 }
 
-export function tetragonalPanel(fit: TetragonalFitResult): HTMLElement {
+export interface TetragonalHandlers {
+  /** Opens the Levels view with the fitted parameters. */
+  onShowLevels(): void;
+}
+
+export function tetragonalPanel(fit: TetragonalFitResult, handlers: TetragonalHandlers): HTMLElement {
   return h(
     'section',
     { class: 'panel', id: 'tetragonal-fit', 'aria-labelledby': 'tetragonal-title', tabindex: '-1' },
@@ -104,6 +109,7 @@ export function tetragonalPanel(fit: TetragonalFitResult): HTMLElement {
     h('p', { class: 'muted small' }, 'Positive Ds and Dt: octahedron elongated along z (the convention is in the notes below). The cards further down are the cubic fit of the same bands.'),
     assignmentTable(fit),
     componentsList(fit),
+    h('div', { class: 'toolbar' }, h('button', { type: 'button', class: 'button small', id: 'tetragonal-levels', onclick: () => handlers.onShowLevels() }, 'Show these levels and their diagram')),
     fit.notes.length === 0 ? null : h('details', { class: 'notes', id: 'tetragonal-notes' }, h('summary', {}, `Notes from the tetragonal fit (${fit.notes.length})`), h('ul', {}, ...fit.notes.map((n) => h('li', {}, chemistWording(n))))),
   );
 }
