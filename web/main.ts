@@ -126,7 +126,9 @@ async function refit(entry: AnalysisEntry): Promise<void> {
   const tetragonal = entry.symmetry === 'tetragonal';
   try {
     if (tetragonal) {
-      entry.tetragonalFit = await api.fitTetragonal(tetragonalFitRequestFor(entry));
+      const request = tetragonalFitRequestFor(entry);
+      entry.tetragonalFit = await api.fitTetragonal(request);
+      entry.tetragonalFitFor = JSON.stringify(request);
     } else {
       entry.fit = await api.fit(fitRequestFor(entry));
       entry.shownAlternative = null;
@@ -165,6 +167,11 @@ function addBand(entry: AnalysisEntry, position: number): void {
   render();
 }
 
+/** The bands or C/B have changed since the tetragonal fit shown. */
+function tetragonalFitIsStale(entry: AnalysisEntry): boolean {
+  return entry.tetragonalFitFor !== JSON.stringify(tetragonalFitRequestFor(entry));
+}
+
 function renderMain(root: HTMLElement): void {
   const entry = current();
   if (entry === null) {
@@ -192,7 +199,7 @@ function renderMain(root: HTMLElement): void {
     h('p', { class: 'subtitle', id: 'result-subtitle' }, subtitle, h('span', { class: 'muted' }, ` · ${entry.fileName}, ${entry.result.spectrum.points} points`)),
     columnsPanel(entry, state.entries, { onAnalyse: (columns) => void analyseColumns(entry, columns), onSelect: (key) => { state.currentKey = key; render(); } }) ?? '',
     keptPanel('warnings', [entry, JSON.stringify(warnings)], () => warningsBox(warnings)) ?? '',
-    entry.symmetry === 'tetragonal' && entry.tetragonalFit ? keptPanel('tetragonal', [entry.tetragonalFit], () => tetragonalPanel(entry.tetragonalFit!, { onShowLevels: () => showLevelsOf(entry) })) : '',
+    entry.symmetry === 'tetragonal' && entry.tetragonalFit ? keptPanel('tetragonal', [entry.tetragonalFit, tetragonalFitIsStale(entry)], () => tetragonalPanel(entry.tetragonalFit!, { stale: tetragonalFitIsStale(entry), onShowLevels: () => showLevelsOf(entry) })) : '',
     fit === null ? '' : keptPanel('cards', [entry.fit, entry.shownAlternative, entry.originalFit], () => parameterCards(fit, entry.originalFit)),
     keptPanel('notes', [entry.fit, entry.shownAlternative], () => notesBox(fit?.notes ?? [])) ?? '',
     h(

@@ -76,6 +76,8 @@ export interface AnalysisEntry {
   symmetry?: FitSymmetry;
   /** The last tetragonal refit of the current bands; shown beside the cubic fit while the symmetry is tetragonal. */
   tetragonalFit?: TetragonalFitResult | null;
+  /** The request (JSON) the tetragonal fit answered, to tell when the bands or C/B have changed since. */
+  tetragonalFitFor?: string;
 }
 
 export type FitSymmetry = 'cubic' | 'tetragonal';

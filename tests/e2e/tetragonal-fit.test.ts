@@ -155,11 +155,14 @@ describe.skipIf(browserTestsSkipped())('the tetragonal fit on the page', () => {
     // Two of the three bands: Dq, Ds, Dt cannot all be fixed; the page says so instead of showing false uncertainties.
     await page.click(`#band-table tr[data-position="${CU_BANDS[2]}"] button[id$="-delete"]`);
     await page.waitForSelector(`#band-table tr[data-position="${CU_BANDS[2]}"]`, { state: 'detached' });
+    // The fit shown is of three bands: the page says it no longer matches the list.
+    await page.waitForSelector('#tetragonal-stale');
     const answer = page.waitForResponse((r) => r.url().endsWith('/api/v1/fit') && r.request().method() === 'POST');
     await page.click('#refit');
     const fit = (await (await answer).json()) as TetragonalFitResult;
     expect(fit.status).toBe('underdetermined');
     await page.waitForSelector('#tetragonal-determined');
+    expect(await page.locator('#tetragonal-stale').count()).toBe(0);
     const line = (await page.locator('#tetragonal-determined').textContent()) ?? '';
     for (const combination of fit.determined) expect(line).toContain(combination);
     for (const name of fit.undetermined) {

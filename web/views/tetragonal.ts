@@ -90,6 +90,8 @@ function componentsList(fit: TetragonalFitResult): HTMLElement | null {
 }
 
 export interface TetragonalHandlers {
+  /** The bands or C/B have changed since this fit. */
+  stale: boolean;
   /** Opens the Levels view with the fitted parameters. */
   onShowLevels(): void;
 }
@@ -99,6 +101,7 @@ export function tetragonalPanel(fit: TetragonalFitResult, handlers: TetragonalHa
     'section',
     { class: 'panel', id: 'tetragonal-fit', 'aria-labelledby': 'tetragonal-title', tabindex: '-1' },
     h('h3', { id: 'tetragonal-title' }, 'Tetragonal fit (D4h): Dq, Ds, Dt'),
+    handlers.stale ? h('p', { class: 'notice info', id: 'tetragonal-stale', role: 'status' }, 'The bands or C/B have changed since this fit: press Refit to fit them.') : null,
     fit.warnings.length === 0 ? null : h(
       'div',
       { class: 'warnings', id: 'tetragonal-warnings', role: 'status' },
