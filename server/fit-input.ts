@@ -4,7 +4,8 @@
  * exactly what the client sent.
  */
 import type { BandInput, FitInput } from '../src/fit/index.js';
-import type { FitBody } from './schemas.js';
+import type { TetragonalFitInput } from '../src/fit-tetragonal/index.js';
+import { wantsFitBeyondCubic, type FitBody } from './schemas.js';
 
 type BodyBand = FitBody['bands'][number];
 
@@ -30,5 +31,26 @@ export function toFitInput(body: FitBody): FitInput {
   if (body.formula !== undefined) input.formula = body.formula;
   if (body.ligands !== undefined) input.ligands = body.ligands;
   if (body.window !== undefined) input.window = body.window;
+  return input;
+}
+
+/**
+ * The body as the fit beyond the cubic field (src/fit-tetragonal), as the
+ * CLI's `fit --symmetry tetragonal` / `--zeta` / `--free-zeta` builds it; null
+ * when the body asks for the cubic fit. The schema has already refused the
+ * fields only the cubic fit reads.
+ */
+export function toTetragonalFitInput(body: FitBody): TetragonalFitInput | null {
+  if (!wantsFitBeyondCubic(body)) return null;
+  const input: TetragonalFitInput = {
+    bands: body.bands.map(toBandInput),
+    geometry: body.geometry ?? 'octahedral',
+    symmetry: body.symmetry ?? 'cubic',
+  };
+  if (body.ion !== undefined) input.ion = body.ion;
+  if (body.d !== undefined) input.d = body.d;
+  if (body.cOverB !== undefined) input.cOverB = body.cOverB;
+  if (body.zeta !== undefined) input.zeta = body.zeta;
+  if (body.freeZeta === true) input.freeZeta = true;
   return input;
 }

@@ -7,6 +7,7 @@
 import { z } from 'zod';
 import { analysisRecordFields, listQuery, patchBody, refitFields } from './routes/analyses.js';
 import { predictBody, seriesQuery } from './routes/series.js';
+import { tetragonalFitResponse } from './responses-tetragonal.js';
 import { analyzeFields, diagramQuery, fitBody, levelsQuery, SPECTRUM_CONTENT_TYPES } from './schemas.js';
 import {
   analysisRecordResponse,
@@ -143,7 +144,10 @@ export function buildOpenApiDocument(version: string, limits: DocumentedLimits):
           summary: 'Fit 10Dq, B (and C) to observed band maxima',
           requestBody: { required: true, content: { 'application/json': { schema: jsonSchema(fitBody) } } },
           responses: {
-            '200': ok('The fit.', 'FitResult'),
+            '200': {
+              description: 'The fit: the cubic FitResult, or with symmetry "tetragonal", zeta or freeZeta the TetragonalFitResult (what `fieldgap fit --symmetry tetragonal --json` prints).',
+              content: { 'application/json': { schema: { oneOf: [{ $ref: '#/components/schemas/FitResult' }, { $ref: '#/components/schemas/TetragonalFitResult' }] } } },
+            },
             ...errorResponses(['400', '413', '415', '422', '500', '503', '504']),
           },
         },
@@ -240,6 +244,7 @@ export function buildOpenApiDocument(version: string, limits: DocumentedLimits):
         LevelsResult: jsonSchema(levelsResponse, 'output'),
         Diagram: jsonSchema(diagramResponse, 'output'),
         FitResult: jsonSchema(fitResponse, 'output'),
+        TetragonalFitResult: jsonSchema(tetragonalFitResponse, 'output'),
         AnalyzeResult: jsonSchema(analyzeResponse, 'output'),
         AnalysisRecord: jsonSchema(analysisRecordResponse, 'output'),
         AnalysisList: jsonSchema(listPageResponse, 'output'),

@@ -93,6 +93,47 @@ const bandObject = z.strictObject({
   }),
 });
 
+/**
+ * The fit beyond the cubic field (src/fit-tetragonal), the names of the CLI's
+ * `fit --symmetry`, `--zeta`, `--free-zeta`. Symmetry "tetragonal", a zeta or
+ * freeZeta: true switch the fit to Dq, Ds, Dt (and B, ζ); absent, the cubic
+ * fit answers as before.
+ */
+const fitBeyondCubic = {
+  symmetry: z.enum(['cubic', 'tetragonal']).optional().meta({
+    description: 'cubic (default) or tetragonal: fit Dq, Ds, Dt (and B) with a1g(z²) = 6Dq − 2Ds − 6Dt, b1g(x²−y²) = 6Dq + 2Ds − Dt, b2g(xy) = −4Dq + 2Ds − Dt, eg(xz, yz) = −4Dq − Ds + 4Dt (positive Ds, Dt: elongated along z). The answer is then the tetragonal fit: dq, ds, dt, zeta with uncertainties, each band with its D4h level and octahedral parent.',
+  }),
+  zeta: z.union([z.number().min(0).max(LIMITS.maxEnergy), z.literal('free-ion')]).optional().meta({
+    description: 'Spin–orbit constant ζ fixed in cm-1, or "free-ion" for the ion\'s tabulated value (default 0, off).',
+  }),
+  freeZeta: z.boolean().optional().meta({ description: 'Fit ζ as well.' }),
+};
+
+/** True when the body asks for the fit beyond the cubic field. */
+export function wantsFitBeyondCubic(body: { symmetry?: 'cubic' | 'tetragonal' | undefined; zeta?: unknown; freeZeta?: boolean | undefined }): boolean {
+  return body.symmetry === 'tetragonal' || body.zeta !== undefined || body.freeZeta === true;
+}
+
+/** Fields only the cubic fit reads: named as errors with the tetragonal fit rather than left unused. */
+const CUBIC_ONLY: ReadonlyArray<{ field: 'c' | 'freeC' | 'trees' | 'window' | 'formula' | 'ligands'; why: string }> = [
+  { field: 'c', why: 'give "cOverB" (C/B stays fixed)' },
+  { field: 'freeC', why: 'C/B stays fixed' },
+  { field: 'trees', why: 'the tetragonal fit has no Trees correction' },
+  { field: 'window', why: 'the tetragonal fit does not use the measured range' },
+  { field: 'formula', why: 'give the metal as "ion"' },
+  { field: 'ligands', why: 'the tetragonal fit has no ligand priors' },
+];
+
+function refuseCubicOnlyFields(body: Record<string, unknown> & { symmetry?: 'cubic' | 'tetragonal' | undefined; freeZeta?: boolean | undefined }, ctx: z.RefinementCtx): void {
+  if (!wantsFitBeyondCubic(body)) return;
+  for (const { field, why } of CUBIC_ONLY) {
+    const value = body[field];
+    // freeC: false is the default and harmless.
+    if (value === undefined || (field === 'freeC' && value === false)) continue;
+    ctx.addIssue({ code: 'custom', message: `"${field}" is not available with symmetry "tetragonal", zeta or freeZeta: ${why}`, path: [field] });
+  }
+}
+
 export const band = z.union([positive('Band maximum in cm-1.').max(LIMITS.maxEnergy), bandObject]);
 
 export const fitBody = z
@@ -116,11 +157,13 @@ export const fitBody = z
       .refine((w) => w.max > w.min, { message: 'window.max must be above window.min', path: ['max'] })
       .optional()
       .meta({ description: 'The measured range, cm-1: a strong transition predicted inside it must show a band.' }),
+    ...fitBeyondCubic,
   })
   .refine((body) => body.ion !== undefined || body.d !== undefined || body.formula !== undefined, {
     message: 'give the metal as "ion" (e.g. "Cr3+") or as "d" (the d-electron count)',
     path: ['ion'],
-  });
+  })
+  .superRefine(refuseCubicOnlyFields);
 export type FitBody = z.infer<typeof fitBody>;
 
 export { X_UNITS, Y_UNITS };

@@ -8,6 +8,7 @@
 import { analyzeSpectrum, type AnalyzeOptions } from '../src/analysis.js';
 import { FieldgapError, isFieldgapError, type ErrorCode } from '../src/errors.js';
 import { fitLigandField, type FitInput } from '../src/fit/index.js';
+import { fitTetragonal, type TetragonalFitInput } from '../src/fit-tetragonal/index.js';
 import {
   computeFieldDiagram, computeFieldLevels, computeLevels, diagramDocument, fieldDiagramDocument, fieldLevelsDocument, levelsDocument,
   type FieldDiagramAxis,
@@ -52,6 +53,7 @@ export type Task =
   | { kind: 'levels'; input: LevelsTaskInput }
   | { kind: 'diagram'; input: DiagramTaskInput }
   | { kind: 'fit'; input: FitInput }
+  | { kind: 'fit-tetragonal'; input: TetragonalFitInput }
   | { kind: 'analyze'; input: AnalyzeTaskInput };
 
 export type TaskKind = Task['kind'];
@@ -112,6 +114,8 @@ function runTask(task: Task): unknown {
     }
     case 'fit':
       return fitLigandField(task.input);
+    case 'fit-tetragonal':
+      return fitTetragonal(task.input);
     case 'analyze':
       return analyzeSpectrum(task.input.content, task.input.options);
     default: {

@@ -4,8 +4,8 @@
  * problem is; a network failure or a non-JSON answer gets code 'network'.
  */
 import { ANALYSIS_OPTION_NAMES as NAME } from '../src/analysis-option-names.js';
-import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult, LibraryPage, LibraryRecord, SeriesReport } from './types.js';
-import { priorFields, type FitRequest, type SampleDetails } from './state.js';
+import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult, LibraryPage, LibraryRecord, SeriesReport, TetragonalFitResult } from './types.js';
+import { priorFields, type FitRequest, type SampleDetails, type TetragonalFitRequest } from './state.js';
 import type { FieldLevel, ResolvedParameters } from '../src/ligand-field/field-levels.js';
 import type { FieldDiagramAnswer } from './plots/level-diagram-spec.js';
 
@@ -100,6 +100,15 @@ export function fit(request: FitRequest): Promise<FitResult> {
     `${BASE}/fit`,
     { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(request) },
     'the refit',
+  );
+}
+
+/** POST /fit with symmetry "tetragonal": Dq, Ds, Dt (and B) with each band's D4h level and octahedral parent. */
+export function fitTetragonal(request: TetragonalFitRequest): Promise<TetragonalFitResult> {
+  return send<TetragonalFitResult>(
+    `${BASE}/fit`,
+    { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(request) },
+    'the tetragonal fit',
   );
 }
 

@@ -9,12 +9,14 @@ import { download, h, keepingFocus } from './dom.js';
 import { dCountText, safeFileStem } from './format.js';
 import { resultCsv, resultJson } from './export-results.js';
 import type { AnalysisEntry, EditableBand, SampleDetails } from './state.js';
-import { editableBandsFromResult, fitRequestFor, nextKey, shownFit, warningsFor } from './state.js';
+import { editableBandsFromResult, fitRequestFor, nextKey, shownFit, tetragonalFitRequestFor, warningsFor } from './state.js';
 import type { ApiErrorBody } from './types.js';
 import type { AxisUnit } from './plots/spectrum-spec.js';
 import { createUploadPanel } from './views/upload.js';
 import { alternativesPanel, assignmentTable, notesBox, parameterCards, warningsBox } from './views/results.js';
 import { bandsPanel } from './views/bands.js';
+import { tetragonalPanel } from './views/tetragonal.js';
+import { showFittedLevels } from './views/levels-from-fit.js';
 import { columnsPanel } from './views/columns.js';
 import { diagramFigure, spectrumFigures } from './views/plots.js';
 import { keptPanel } from './views/keep.js';
@@ -121,15 +123,28 @@ async function analyseEntries(requests: Array<{ file: File; name: string; detail
 async function refit(entry: AnalysisEntry): Promise<void> {
   state.refitting = true;
   render();
+  const tetragonal = entry.symmetry === 'tetragonal';
   try {
-    entry.fit = await api.fit(fitRequestFor(entry));
-    entry.shownAlternative = null;
+    if (tetragonal) {
+      const request = tetragonalFitRequestFor(entry);
+      entry.tetragonalFit = await api.fitTetragonal(request);
+      entry.tetragonalFitFor = JSON.stringify(request);
+    } else {
+      entry.fit = await api.fit(fitRequestFor(entry));
+      entry.shownAlternative = null;
+    }
     notify('');
   } catch (error) {
-    notify(`Refit failed: ${errorText(asErrorBody(error))}`);
+    notify(`${tetragonal ? 'Tetragonal fit' : 'Refit'} failed: ${errorText(asErrorBody(error))}`);
   } finally {
     state.refitting = false;
     render();
+  }
+  // The tetragonal result is drawn above the cubic cards, far from the Refit button: take the reader there.
+  if (tetragonal && entry.tetragonalFit && state.currentKey === entry.key && state.tab === 'analyse') {
+    const panel = document.getElementById('tetragonal-fit');
+    panel?.scrollIntoView({ block: 'start' });
+    panel?.focus({ preventScroll: true });
   }
 }
 
@@ -150,6 +165,11 @@ function addBand(entry: AnalysisEntry, position: number): void {
   state.pickArmed = false;
   notify('');
   render();
+}
+
+/** The bands or C/B have changed since the tetragonal fit shown. */
+function tetragonalFitIsStale(entry: AnalysisEntry): boolean {
+  return entry.tetragonalFitFor !== JSON.stringify(tetragonalFitRequestFor(entry));
 }
 
 function renderMain(root: HTMLElement): void {
@@ -179,6 +199,7 @@ function renderMain(root: HTMLElement): void {
     h('p', { class: 'subtitle', id: 'result-subtitle' }, subtitle, h('span', { class: 'muted' }, ` · ${entry.fileName}, ${entry.result.spectrum.points} points`)),
     columnsPanel(entry, state.entries, { onAnalyse: (columns) => void analyseColumns(entry, columns), onSelect: (key) => { state.currentKey = key; render(); } }) ?? '',
     keptPanel('warnings', [entry, JSON.stringify(warnings)], () => warningsBox(warnings)) ?? '',
+    entry.symmetry === 'tetragonal' && entry.tetragonalFit ? keptPanel('tetragonal', [entry.tetragonalFit, tetragonalFitIsStale(entry)], () => tetragonalPanel(entry.tetragonalFit!, { stale: tetragonalFitIsStale(entry), onShowLevels: () => showLevelsOf(entry) })) : '',
     fit === null ? '' : keptPanel('cards', [entry.fit, entry.shownAlternative, entry.originalFit], () => parameterCards(fit, entry.originalFit)),
     keptPanel('notes', [entry.fit, entry.shownAlternative], () => notesBox(fit?.notes ?? [])) ?? '',
     h(
@@ -196,13 +217,14 @@ function renderMain(root: HTMLElement): void {
     keptPanel('alternatives', [entry, entry.fit, entry.shownAlternative], () => alternativesPanel(entry, { onShowAlternative: (index) => { entry.shownAlternative = index; render(); } })) ?? '',
     diagramFigure(entry) ?? '',
     // The C/B and free-C fields write to the entry without a render; their values are inputs all the same.
-    keptPanel('bands', [entry, entry.result, JSON.stringify(entry.bands), entry.fit, entry.shownAlternative, state.pickArmed, state.refitting, entry.cOverB, entry.freeC], () => bandsPanel(entry, state.pickArmed, state.refitting, {
+    keptPanel('bands', [entry, entry.result, JSON.stringify(entry.bands), entry.fit, entry.shownAlternative, state.pickArmed, state.refitting, entry.cOverB, entry.freeC, entry.symmetry, entry.tetragonalFit], () => bandsPanel(entry, state.pickArmed, state.refitting, {
       onPatch: (index, patch) => patchBand(entry, index, patch),
       onDelete: (index) => { entry.bands.splice(index, 1); render(); },
       onAdd: (position) => addBand(entry, position),
       onArmPick: (armed) => { state.pickArmed = armed; render(); if (armed) byId('spectrum-figure').scrollIntoView({ block: 'nearest' }); },
       onCOverB: (value) => { entry.cOverB = value; },
       onFreeC: (value) => { entry.freeC = value; },
+      onSymmetry: (value) => { entry.symmetry = value; render(); },
       onRefit: () => void refit(entry),
       onUndo: () => {
         if (entry.result === null) return;
@@ -211,6 +233,8 @@ function renderMain(root: HTMLElement): void {
         entry.cOverB = entry.details.cOverB;
         entry.freeC = entry.details.freeC;
         entry.shownAlternative = null;
+        entry.symmetry = 'cubic';
+        entry.tetragonalFit = null;
         render();
       },
     })),
@@ -231,6 +255,14 @@ function render(): void {
 }
 
 const tabs = setupTabs((tab) => { state.tab = tab; render(); });
+
+/** The Levels view, computed at the entry's tetragonal fit. */
+function showLevelsOf(entry: AnalysisEntry): void {
+  const fit = entry.tetragonalFit;
+  if (!fit) return;
+  tabs.select('levels');
+  showFittedLevels(fit);
+}
 
 const libraryContext: LibraryContext = {
   open(entry) {

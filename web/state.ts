@@ -8,7 +8,7 @@ import { findLigand } from '../src/chemistry/ligands.js';
 import { bandFitSigma, bandFlagsOf, bandKindOfFlags } from '../src/band-fit-input.js';
 import { fitWithAlternative } from '../src/analysis-corrections.js';
 import type { FitResult as CoreFitResult } from '../src/fit/types.js';
-import type { AnalyzeResult, ApiErrorBody, Band, BandFlag, BandKind, FitResult, Geometry, XUnit } from './types.js';
+import type { AnalyzeResult, ApiErrorBody, Band, BandFlag, BandKind, FitResult, Geometry, TetragonalFitResult, XUnit } from './types.js';
 
 /** What the user says about the sample; sent with the analysis and stored with it. */
 export interface SampleDetails {
@@ -72,7 +72,15 @@ export interface AnalysisEntry {
   shownAlternative: number | null;
   /** Id in the results library once saved. */
   libraryId: number | null;
+  /** The symmetry of the next refit: cubic (the fit of the analysis) or tetragonal (Dq, Ds, Dt). @default 'cubic' */
+  symmetry?: FitSymmetry;
+  /** The last tetragonal refit of the current bands; shown beside the cubic fit while the symmetry is tetragonal. */
+  tetragonalFit?: TetragonalFitResult | null;
+  /** The request (JSON) the tetragonal fit answered, to tell when the bands or C/B have changed since. */
+  tetragonalFitFor?: string;
 }
+
+export type FitSymmetry = 'cubic' | 'tetragonal';
 
 export function defaultDetails(): SampleDetails {
   return {
@@ -196,6 +204,29 @@ export function fitRequestFor(entry: AnalysisEntry): FitRequest {
   const priors = priorFields(entry.details);
   if (priors.formula !== undefined) request.formula = priors.formula;
   if (priors.ligands !== undefined) request.ligands = priors.ligands;
+  return request;
+}
+
+/**
+ * The POST /api/v1/fit body of the tetragonal refit: the same bands, ion and
+ * C/B with symmetry "tetragonal". The measured range, the ligand priors and a
+ * free C are the cubic fit's only (the service names them as errors here).
+ */
+export interface TetragonalFitRequest {
+  ion?: string;
+  d?: number;
+  geometry: Geometry;
+  bands: FitRequestBand[];
+  cOverB?: number;
+  symmetry: 'tetragonal';
+}
+
+export function tetragonalFitRequestFor(entry: AnalysisEntry): TetragonalFitRequest {
+  const { ion, d, geometry, bands, cOverB } = fitRequestFor(entry);
+  const request: TetragonalFitRequest = { geometry, bands, symmetry: 'tetragonal' };
+  if (ion !== undefined) request.ion = ion;
+  if (d !== undefined) request.d = d;
+  if (cOverB !== undefined) request.cOverB = cOverB;
   return request;
 }
 

@@ -12,9 +12,12 @@ import type { BandFlag } from '../src/fit/bands.js';
 import type { ErrorCode } from '../src/errors.js';
 import type { FitResult as CoreFit, Alternative as CoreAlternative } from '../src/fit/types.js';
 import type { FitSummary } from '../src/library/types.js';
+import type { TetragonalFitResult } from '../src/fit-tetragonal/types.js';
 import type { RankedEntry, Ranking } from '../src/series/types.js';
 
 export type { BandFlag, BandKind, Diagram, DiagramLine, Geometry, XUnit };
+/** POST /fit with symmetry "tetragonal": the core's own result (what `fit --symmetry tetragonal --json` prints). */
+export type { TetragonalFitResult };
 
 export interface ApiErrorBody {
   /** The service's ErrorCode, or the page's own 'network' / 'http' when no service answer came. */

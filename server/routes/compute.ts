@@ -7,7 +7,7 @@ import { Router, type Request } from 'express';
 import { FieldgapError } from '../../src/errors.js';
 import { clientGoneSignal } from '../abort.js';
 import type { ComputePool } from '../pool.js';
-import { toFitInput } from '../fit-input.js';
+import { toFitInput, toTetragonalFitInput } from '../fit-input.js';
 import { diagramQuery, fitBody, levelsQuery } from '../schemas.js';
 import { parseJsonBody, parseTextFields } from '../validate.js';
 
@@ -42,7 +42,10 @@ export function createComputeRouter({ pool, timeoutMs }: ComputeRouterDeps): Rou
   router.post('/fit', async (req, res) => {
     requireJson(req);
     const body = parseJsonBody(fitBody, req.body);
-    res.json(await pool.run({ kind: 'fit', input: toFitInput(body) }, { timeoutMs, signal: clientGoneSignal(res) }));
+    // symmetry "tetragonal", zeta or freeZeta: the fit beyond the cubic field, as `fit --symmetry tetragonal --json`.
+    const tetragonal = toTetragonalFitInput(body);
+    const task = tetragonal === null ? { kind: 'fit' as const, input: toFitInput(body) } : { kind: 'fit-tetragonal' as const, input: tetragonal };
+    res.json(await pool.run(task, { timeoutMs, signal: clientGoneSignal(res) }));
   });
 
   return router;

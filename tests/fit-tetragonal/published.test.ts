@@ -32,6 +32,26 @@
  * crystal-exciton papers, no ligand-field parameters), Cs3CoCl5 / [CoCl4]2-
  * (abstracts only). The stored pages give each paper's opening, where the
  * band tables never are; no number was taken from memory for a check.
+ *
+ * Searched a third time (the page's tetragonal fit, issue 15 item 5; the
+ * `search` tool, corpora pages, docs and code, new angles): Proc. Indian
+ * Acad. Sci. / J. Chem. Sci. (ias.ac.in: the Cu(II) case above again, no
+ * Cr(III), Co(III) or planar Ni(II) crystal spectrum), SciELO (Cr3+ in
+ * K2PdCl4: spin-Hamiltonian parameters only, no band table), J-STAGE and
+ * Bull. Chem. Soc. Jpn. (dichroism of trans-[Co(en)2Cl2]+ salts: no band
+ * energies in the abstract), Z. Naturforsch. (tetracyanoplatinate exciton
+ * spectra only), theses (Cowman, Caltech 1974, and an Iowa State 1984
+ * dissertation on M(A)4MX4 salts: square-planar Pt/Pd polarized spectra,
+ * abstracts without band tables or Ds, Dt), Rahman 1971 (trans-[Cr(H2O)4F2]+
+ * analysed with D4 matrices: abstract only), Perumareddi's quadrate Cr(III)
+ * papers and trans-[Cr(en)2(CN)2]+ (fitted Dq, Dt, Ds named, values not in
+ * the abstracts), Ballhausen's polarized spectra of Ni(CN)4 2- salts
+ * (conference abstract, no numbers), Souissi & Kammoun, Materials Sciences
+ * and Applications 2 (2011) 1121 (trans-CoCl2(H2O)4, Co(II) not Co(III):
+ * abstract and references only), Cu(II)-doped Mg K phosphate (three bands
+ * and "tetragonal parameters evaluated", values not in the abstract), and
+ * the code corpus for data files of published spectra (none). No band list
+ * with its published Dq, Ds, Dt was readable; nothing was taken from memory.
  * The tetrahedral Co(II) case is analysed in spin-orbit-cobalt.test.ts:
  * why its fitted ζ exceeds the free ion's, with the engine's own numbers.
  */

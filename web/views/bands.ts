@@ -5,7 +5,7 @@
  */
 import { h, numberOrNull } from '../dom.js';
 import { UNIT, formatNumber, nmFromWavenumber } from '../format.js';
-import type { AnalysisEntry, EditableBand } from '../state.js';
+import type { AnalysisEntry, EditableBand, FitSymmetry } from '../state.js';
 import { shownFit } from '../state.js';
 import type { BandKind } from '../types.js';
 import { bandCaption } from '../plots/spectrum-spec.js';
@@ -17,6 +17,8 @@ export interface BandHandlers {
   onArmPick(armed: boolean): void;
   onCOverB(value: number | null): void;
   onFreeC(value: boolean): void;
+  /** The symmetry of the next refit: cubic, or tetragonal (Dq, Ds, Dt). */
+  onSymmetry(value: FitSymmetry): void;
   onRefit(): void;
   onUndo(): void;
 }
@@ -40,8 +42,10 @@ function windowNote(window: string | undefined): HTMLElement | null {
 function bandRow(entry: AnalysisEntry, band: EditableBand, index: number, handlers: BandHandlers): HTMLElement {
   const found = band.sourceIndex === null ? undefined : entry.result?.bands[band.sourceIndex];
   const fit = shownFit(entry);
-  const assignments = fit?.assignments ?? [];
-  const unused = band.included ? fit?.unassigned?.find((u) => Math.abs(u.observed - band.position) <= 1) : undefined;
+  // With the tetragonal fit shown, each band is named by its D4h level with the octahedral parent: "2B2g[2T2g(D)]".
+  const tetragonal = entry.symmetry === 'tetragonal' ? entry.tetragonalFit ?? null : null;
+  const assignments = tetragonal?.assignments ?? fit?.assignments ?? [];
+  const unused = band.included && tetragonal === null ? fit?.unassigned?.find((u) => Math.abs(u.observed - band.position) <= 1) : undefined;
   const kind = h(
     'select',
     { id: `band-${index}-kind`, 'aria-label': `Kind of band ${index + 1}`, disabled: !band.included },
@@ -97,6 +101,15 @@ export function bandsPanel(entry: AnalysisEntry, pickArmed: boolean, refitting: 
   cOverB.addEventListener('change', () => handlers.onCOverB(numberOrNull(cOverB.value)));
   const freeC = h('input', { type: 'checkbox', id: 'refit-free-c', checked: entry.freeC });
   freeC.addEventListener('change', () => handlers.onFreeC(freeC.checked));
+  const symmetryNow = entry.symmetry ?? 'cubic';
+  const symmetry = h(
+    'select',
+    { id: 'refit-symmetry', 'aria-describedby': 'refit-symmetry-hint' },
+    h('option', { value: 'cubic', selected: symmetryNow === 'cubic' }, 'cubic (Oh, Td)'),
+    h('option', { value: 'tetragonal', selected: symmetryNow === 'tetragonal' }, 'tetragonal (D4h)'),
+  );
+  symmetry.addEventListener('change', () => handlers.onSymmetry(symmetry.value === 'tetragonal' ? 'tetragonal' : 'cubic'));
+  const tetragonal = symmetryNow === 'tetragonal';
   const included = entry.bands.filter((b) => b.included && b.kind !== 'charge-transfer').length;
 
   return h(
@@ -117,12 +130,18 @@ export function bandsPanel(entry: AnalysisEntry, pickArmed: boolean, refitting: 
     h(
       'div',
       { class: 'inline refit' },
+      h('label', { for: 'refit-symmetry' }, 'Symmetry'),
+      symmetry,
       h('label', { for: 'refit-c-over-b' }, 'C/B'),
       cOverB,
-      h('span', { class: 'check' }, freeC, h('label', { for: 'refit-free-c' }, 'fit C as well')),
+      // The tetragonal fit keeps C/B fixed.
+      tetragonal ? null : h('span', { class: 'check' }, freeC, h('label', { for: 'refit-free-c' }, 'fit C as well')),
       h('button', { type: 'button', class: 'button primary', id: 'refit', disabled: refitting || included === 0, onclick: () => handlers.onRefit() }, refitting ? 'Refitting…' : 'Refit'),
       h('button', { type: 'button', class: 'button secondary', id: 'undo', onclick: () => handlers.onUndo() }, 'Undo all corrections'),
       h('span', { class: 'muted' }, `${included} band${included === 1 ? '' : 's'} go into the fit; charge-transfer bands are left out.`),
     ),
+    h('small', { id: 'refit-symmetry-hint', class: 'muted' }, tetragonal
+      ? 'Tetragonal: Dq, Ds and Dt (and B for d2–d8) from the same bands, C/B fixed; a split octahedral band is two components of one parent.'
+      : 'Cubic: 10Dq, B (and C) as in the analysis. Choose tetragonal for a trans-disubstituted or Jahn–Teller-distorted complex.'),
   );
 }

@@ -31,7 +31,7 @@ export function warningsBox(messages: readonly string[]): HTMLElement | null {
   );
 }
 
-function card(id: string, name: string, value: string, unit: string, note?: string | HTMLElement): HTMLElement {
+export function card(id: string, name: string, value: string, unit: string, note?: string | HTMLElement): HTMLElement {
   return h(
     'div',
     { class: 'card', id },
