@@ -284,13 +284,6 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   const { group: assignmentGroup, inGroup } = assignmentGroupOf(solutions, probabilities, uncertainty);
   // The ± reported covers the weak-band labellings' spread (assignment-spread.ts); the group itself is judged on the fit's σ.
   const { spread: assignmentSpread, combined } = assignmentSpreadOf(assignmentGroup, { tenDq: 10 * best.params.dq, b: bFit }, uncertainty);
-  if (assignmentSpread.widened) {
-    const sd = (v: number | null) => (v === null ? '' : ` ± ${Math.round(v)}`);
-    notes.push(
-      `uncertainties include the spread of the weak-band labellings: 10Dq fit${sd(uncertainty.tenDq)}, over the labellings ${Math.round(assignmentSpread.tenDqRange[0])}–${Math.round(assignmentSpread.tenDqRange[1])} cm-1`
-      + `${assignmentSpread.bRange && bFit !== null ? `; B fit${sd(uncertainty.b)}, over the labellings ${Math.round(assignmentSpread.bRange[0])}–${Math.round(assignmentSpread.bRange[1])} cm-1` : ''} (${assignmentSpread.rule})`,
-    );
-  }
   const grouped = new Set(solutions.filter((_, i) => inGroup[i]));
   const alternatives = kept.map((o) => alternativeOf(o, best, settings, probabilityOf.get(o) ?? 0, grouped.has(o)));
   const probability = probabilities[0]!;
