@@ -31,13 +31,14 @@ export function warningsBox(messages: readonly string[]): HTMLElement | null {
   );
 }
 
-function card(id: string, name: string, value: string, unit: string, note?: string | HTMLElement): HTMLElement {
+function card(id: string, name: string, value: string, unit: string, note?: string | HTMLElement, spread?: string): HTMLElement {
   return h(
     'div',
     { class: 'card', id },
     h('div', { class: 'card-name' }, name),
     h('div', { class: 'card-value' }, h('span', { class: 'value' }, value), unit === '' ? '' : h('span', { class: 'unit' }, ` ${unit}`)),
     note === undefined ? null : h('div', { class: 'card-note' }, note),
+    spread === undefined ? null : h('div', { class: 'card-spread', id: `${id}-spread` }, spread),
   );
 }
 
@@ -53,8 +54,8 @@ export function parameterCards(fit: FitResult, original: FitResult | null): HTML
   return h(
     'div',
     { class: 'cards', id: 'parameters' },
-    card('p-tendq', '10Dq', formatWithUncertainty(fit.tenDq, u.tenDq), UNIT.wavenumber, previously(fit.tenDq, original?.tenDq, 0) ?? spreadNote(fit, 'tenDq')),
-    card('p-b', 'Racah B', formatWithUncertainty(fit.b, u.b), UNIT.wavenumber, previously(fit.b, original?.b, 0) ?? spreadNote(fit, 'b')),
+    card('p-tendq', '10Dq', formatWithUncertainty(fit.tenDq, u.tenDq), UNIT.wavenumber, previously(fit.tenDq, original?.tenDq, 0), spreadNote(fit, 'tenDq')),
+    card('p-b', 'Racah B', formatWithUncertainty(fit.b, u.b), UNIT.wavenumber, previously(fit.b, original?.b, 0), spreadNote(fit, 'b')),
     card('p-c', 'Racah C', formatWithUncertainty(fit.c, u.c), UNIT.wavenumber, `C/B = ${formatNumber(fit.cOverB, 2)}`),
     card('p-beta', 'β = B/B(free ion)', fit.beta === null ? '—' : formatWithUncertainty(fit.beta, fit.betaSd ?? null, 2), '', fit.freeIonB === null ? 'free-ion B not known for this ion' : `free-ion B = ${formatNumber(fit.freeIonB)} ${UNIT.wavenumber}`),
     card('p-spin', 'Spin state', spinStateText(fit.spinState), '', fit.spinState === 'no-choice' ? `${dCountText(fit.d)}: ${NO_SPIN_STATE_CHOICE} · ground term ${fit.groundTerm}` : `ground term ${fit.groundTerm}`),
