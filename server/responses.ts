@@ -140,6 +140,11 @@ const fitShape = {
     probability: num, members: z.number().int(), spinAllowed: z.array(z.looseObject({ observed: num, label: z.string() })),
     tenDqRange: z.tuple([num, num]), bRange: z.tuple([num, num]).nullable(),
   }).meta({ description: 'The solutions that share the chosen spin-allowed assignment, spin state and parameters (they differ only in the labels of spin-forbidden or unexplained bands): their summed probability and parameter ranges, cm-1.' }),
+  assignmentSpread: z.looseObject({
+    tenDqRange: z.tuple([num, num]), bRange: z.tuple([num, num]).nullable(),
+    spread: z.looseObject({ tenDq: num, b: nullableNum }), fitUncertainty: z.looseObject({ tenDq: nullableNum, b: nullableNum }),
+    widened: z.boolean(), rule: z.string(),
+  }).meta({ description: 'How far the weak-band labellings of the assignment group move 10Dq and B (cm-1): their range, the spread Δ (largest distance from the value to an end of the range) and the fit\'s own σ; uncertainty.tenDq and uncertainty.b are √(σ_fit² + Δ²).' }),
   goodnessOfFit: z.looseObject({
     chiSquare: num, degreesOfFreedom: z.number().int(), pValue: num, verdict: z.enum(['good', 'poor']), betaPhysical: z.boolean().nullable(),
   }).meta({ description: 'Absolute check of the chosen solution: χ² of the positions against its degrees of freedom, its p-value, "poor" below 1 %; betaPhysical false when β lies outside 0.3–1.1. The probability is only relative to the other assignments.' }),

@@ -16,6 +16,7 @@
  * `result.corrections` repeats the corrections it was made with.
  */
 import { goodnessOfFitOf } from './fit/goodness-of-fit.js';
+import { SPREAD_RULE, spreadFromRange } from './fit/assignment-spread.js';
 import { invalidArgument } from './errors.js';
 import { normalizeBands, type BandInput } from './fit/bands.js';
 import { ligandFieldStabilisation, spinOnlyMoment } from './fit/lfse.js';
@@ -135,6 +136,14 @@ export function fitWithAlternative(fit: FitResult, index: number, path = 'correc
       spinAllowed: alternative.assignments.filter((a) => a.spinAllowed).map((a) => ({ observed: Math.round(a.observed), label: a.label })),
       tenDqRange: [alternative.tenDq, alternative.tenDq], bRange: b === null ? null : [b, b],
     },
+    // Not refined: no σ to widen; the range is the alternative's group's when it shares the winner's, else its own value.
+    assignmentSpread: ((tenDqRange: [number, number], bRange: [number, number] | null) => ({
+      tenDqRange, bRange, spread: { tenDq: spreadFromRange(alternative.tenDq, tenDqRange), b: b === null || bRange === null ? null : spreadFromRange(b, bRange) },
+      fitUncertainty: { tenDq: null, b: null }, widened: false, rule: SPREAD_RULE,
+    }))(
+      alternative.inChosenGroup && fit.assignmentGroup ? fit.assignmentGroup.tenDqRange : [alternative.tenDq, alternative.tenDq],
+      b === null ? null : alternative.inChosenGroup && fit.assignmentGroup?.bRange ? fit.assignmentGroup.bRange : [b, b],
+    ),
     undetermined: b === null ? [{ parameter: 'b', reason: 'the alternative assignment does not fix B', action: 'B, C and β are not reported (null)' }] : [],
     penalties: alternative.penalties,
     assignments: alternative.assignments,

@@ -101,7 +101,7 @@ export interface PredictedLevel {
 export type FitResult = Pick<CoreFit,
   'd' | 'geometry' | 'dq' | 'tenDq' | 'b' | 'c' | 'cOverB' | 'beta' | 'freeIonB' | 'groundTerm' | 'spinState'
   | 'unpairedElectrons' | 'spinOnlyMoment' | 'status' | 'warnings'>
-  & Partial<Pick<CoreFit, 'ion' | 'message' | 'betaSd' | 'unassigned' | 'notes' | 'probability' | 'spinStateProbabilities' | 'undetermined' | 'assignmentGroup' | 'goodnessOfFit'>>
+  & Partial<Pick<CoreFit, 'ion' | 'message' | 'betaSd' | 'unassigned' | 'notes' | 'probability' | 'spinStateProbabilities' | 'undetermined' | 'assignmentGroup' | 'assignmentSpread' | 'goodnessOfFit'>>
   & {
     rmsResidual: number | null;
     lfse?: unknown;

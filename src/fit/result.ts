@@ -17,13 +17,14 @@ import { twoElectronLevels } from './two-electron.js';
 import type { LevelsResult } from '../ligand-field/types.js';
 import type { Evaluated } from './evaluate.js';
 import { primaryClass } from './enumerate.js';
-import { dqOnlyLevel } from './candidates.js';
 import { ligandFieldStabilisation, spinOnlyMoment } from './lfse.js';
 import { intensityWeights, type SortedObservations } from './observations.js';
 import { levelIdentityKey } from './scan.js';
 import type { FitSettings } from './settings.js';
 import { betaSdOf, fitUncertainty } from './uncertainty.js';
 import { assignmentGroupOf } from './assignment-groups.js';
+import { assignmentSpreadOf } from './assignment-spread.js';
+import { describeSingle, restingOnWeakBands } from './resting-on-weak-bands.js';
 import { EXACT_CHI_SQUARE, goodnessOfFitOf, goodnessWarnings, pValueText, type GoodnessOfFit } from './goodness-of-fit.js';
 import type {
   Alternative, AssignedBand, CrossoverInfo, FitOptions, FitResult, FitStatus, Penalty, PredictedTransition,
@@ -281,6 +282,8 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   ];
   const kept = solutions.slice(1).filter((o) => o.score <= alternativeMargin(best.score)).slice(0, maxAlternatives);
   const { group: assignmentGroup, inGroup } = assignmentGroupOf(solutions, probabilities, uncertainty);
+  // The ± reported covers the weak-band labellings' spread (assignment-spread.ts); the group itself is judged on the fit's σ.
+  const { spread: assignmentSpread, combined } = assignmentSpreadOf(assignmentGroup, { tenDq: 10 * best.params.dq, b: bFit }, uncertainty);
   const grouped = new Set(solutions.filter((_, i) => inGroup[i]));
   const alternatives = kept.map((o) => alternativeOf(o, best, settings, probabilityOf.get(o) ?? 0, grouped.has(o)));
   const probability = probabilities[0]!;
@@ -312,11 +315,16 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
     rmsResidual: round(best.wrms), status: status.status, message: status.message, evaluations: status.evaluations,
     ...(settings.treesUsed ? { alpha: round(best.params.alpha ?? settings.alpha, 1) } : {}),
     uncertainty: {
-      tenDq: nullableRound(uncertainty.tenDq), dq: nullableRound(uncertainty.dq, 2),
-      b: nullableRound(uncertainty.b), c: nullableRound(uncertainty.c),
+      tenDq: nullableRound(combined.tenDq), dq: nullableRound(combined.tenDq === null ? null : combined.tenDq / 10, 2),
+      b: nullableRound(combined.b), c: nullableRound(uncertainty.c),
       ...(uncertainty.alpha !== undefined ? { alpha: nullableRound(uncertainty.alpha, 1) } : {}),
     },
-    betaSd: betaSdOf(nullableRound(uncertainty.b), settings.b0),
+    assignmentSpread: {
+      ...assignmentSpread,
+      spread: { tenDq: round(assignmentSpread.spread.tenDq), b: nullableRound(assignmentSpread.spread.b) },
+      fitUncertainty: { tenDq: nullableRound(uncertainty.tenDq), b: nullableRound(uncertainty.b) },
+    },
+    betaSd: betaSdOf(nullableRound(combined.b), settings.b0),
     correlation: {
       bDq: nullableRound(correlation.bDq, 4), cDq: nullableRound(correlation.cDq, 4), cB: nullableRound(correlation.cB, 4),
     },
@@ -330,85 +338,6 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   };
 }
 
-/**
- * Parameters that the chosen assignment fixes only through an assumption the
- * positions cannot check (issue 13, item 5: say which parameter the data
- * cannot fix):
- * - B (and C) when a single band is assigned to a spin-allowed transition and
- *   the rest to spin-forbidden ones: B then rests on which of the many weak
- *   spin-forbidden transitions those bands are, and a stray or split maximum
- *   finds one within its σ (common practice: B is read from two spin-allowed
- *   bands, or from the sextet-free spectrum of high-spin d5).
- *   10Dq then rests on that B as well, unless the spin-allowed band lies at
- *   exactly 10Dq (ν1 of d3, d8).
- * - 10Dq when one band is fitted and the spin-allowed class has several
- *   transitions: which one the band is cannot be told from its position
- *   alone, and 10Dq follows from that choice.
- * - 10Dq and B when fewer than two of the spin-allowed bands they are fitted
- *   to have their maximum inside the measured range: the others' positions
- *   are extrapolated from a flank (the spectrum stage's 'beyond-…' bands),
- *   and a two-parameter fit through one extrapolated position is no
- *   measurement of B.
- * The value is still reported; the entry and the warning say on what it rests.
- */
-function restingOnWeakBands(best: Evaluated, settings: FitSettings): Array<{ parameter: 'b' | 'tenDq'; reason: string; action: string; warning: string }> {
-  const { branch, variant, scan } = best.candidate;
-  const out: Array<{ parameter: 'b' | 'tenDq'; reason: string; action: string; warning: string }> = [];
-  if (branch.allowed.length === 0) return out;
-  const allowed = new Set(branch.allowed);
-  // A band flagged spin-forbidden on a weak spin-allowed level (flaggedClass, enumerate.ts) is as weak a support as a spin-forbidden one.
-  const strong = (k: number, i: number) => allowed.has(k) && i < variant.nPrimary;
-  const assignedAllowed = new Set(Array.from(best.levelIndices).filter((k, i) => strong(k, i)));
-  const assignedWeak = Array.from(best.levelIndices).filter((k, i) => !strong(k, i));
-  const weakAllowed = assignedWeak.some((k) => allowed.has(k));
-  if (best.bDetermined && assignedAllowed.size === 1 && assignedWeak.length > 0) {
-    const which = weakAllowed ? 'the weak (flagged) ones' : 'the spin-forbidden ones';
-    out.push({
-      parameter: 'b',
-      reason: `one band is assigned to a strong spin-allowed transition; B rests on the assignment of ${which}`,
-      action: 'reported, but not determined by spin-allowed bands',
-      warning: `B = ${Math.round(best.params.b)} cm-1 is not determined by spin-allowed bands: one band is a strong spin-allowed one and B rests on which ${weakAllowed ? 'weak (spin-forbidden or two-electron)' : 'spin-forbidden'} transitions the others are`,
-    });
-    if (dqOnlyLevel(scan, branch) !== [...assignedAllowed][0]) {
-      out.push({
-        parameter: 'tenDq',
-        reason: `one band is assigned to a strong spin-allowed transition whose energy depends on B; B rests on ${which}`,
-        action: 'reported, but not determined by spin-allowed bands',
-        warning: `10Dq = ${Math.round(10 * best.params.dq)} cm-1 is not determined by spin-allowed bands alone: it rests on B, and B on the ${weakAllowed ? 'weak bands\' assignment' : 'spin-forbidden assignment'}`,
-      });
-    }
-  }
-  const window = settings.window;
-  if (window && best.bDetermined && !best.bPrior) {
-    const observations = variant.observations;
-    const allowedRows = observations.map((o, i) => ({ o, k: best.levelIndices[i]! })).filter(({ k }) => allowed.has(k));
-    const outside = allowedRows.filter(({ o }) => o.position < window.min || o.position > window.max);
-    if (outside.length > 0 && allowedRows.length - outside.length < 2) {
-      const where = outside.map(({ o }) => Math.round(o.position)).join(' and ');
-      const reason = `it rests on the band at ${where} cm-1, whose maximum lies outside the measured range (${Math.round(window.min)}–${Math.round(window.max)} cm-1): its position is extrapolated`;
-      for (const [parameter, name, value] of [['tenDq', '10Dq', 10 * best.params.dq], ['b', 'B', best.params.b]] as const) {
-        if (out.some((u) => u.parameter === parameter)) continue;
-        out.push({ parameter, reason, action: 'reported, but not fixed by bands inside the measured range', warning: `${name} = ${Math.round(value)} cm-1 is not determined by bands inside the measured range: ${reason}` });
-      }
-    }
-  }
-  if (variant.observations.length === 1 && branch.allowed.length > 1 && assignedAllowed.size === 1) {
-    const id = scan.ids[best.levelIndices[0]!]!;
-    out.push({
-      parameter: 'tenDq',
-      reason: `one band, and ${describeSingle(settings, branch.multiplicity)} has ${branch.allowed.length} spin-allowed transitions`,
-      action: `reported, assuming the band is ${scan.ids[branch.ground]!.label} → ${id.label}`,
-      warning: `10Dq = ${Math.round(10 * best.params.dq)} cm-1 is not determined by one band alone: it assumes the band is ${scan.ids[branch.ground]!.label} → ${id.label}, one of ${branch.allowed.length} spin-allowed transitions`,
-    });
-  }
-  return out;
-}
-
 function nullableRound(v: number | null, digits = 1): number | null {
   return v === null ? null : round(v, digits);
-}
-
-function describeSingle(settings: FitSettings, multiplicity: number): string {
-  const names = ['', 'singlet', 'doublet', 'triplet', 'quartet', 'quintet', 'sextet'];
-  return `d${settings.d} ${settings.geometry} with a ${names[multiplicity] ?? `${multiplicity}-fold`} ground level`;
 }

@@ -9,6 +9,7 @@ import type { BandFlag, BandInput } from './bands.js';
 import type { Lfse } from './lfse.js';
 import type { GoodnessOfFit } from './goodness-of-fit.js';
 import type { AssignmentGroup } from './assignment-groups.js';
+import type { AssignmentSpread } from './assignment-spread.js';
 
 export interface FitInput {
   /** "Cr3+", "Cr(III)", or a parsed Ion. Gives d and, where tabulated, B0 and C0. */
@@ -162,7 +163,11 @@ export interface FitResult {
   evaluations: number;
   /** The Trees α in cm-1 (fixed or fitted); present only when the fit used it (`trees`). */
   alpha?: number;
-  /** Standard uncertainties, cm-1; null where the quantity is not fitted (alpha: present only when α was fitted). */
+  /**
+   * Standard uncertainties, cm-1; null where the quantity is not fitted (alpha: present only when α was fitted).
+   * tenDq, dq and b combine the fit's σ with the spread of the weak-band labellings (assignment-spread.ts):
+   * √(σ_fit² + Δ²); equal to the fit's σ when the assignment group has one member. The fit's own σ: assignmentSpread.fitUncertainty.
+   */
   uncertainty: { tenDq: number | null; dq: number | null; b: number | null; c: number | null; alpha?: number | null };
   /** Standard uncertainty of beta: uncertainty.b / freeIonB (betaSdOf in uncertainty.ts); null where either is unknown. */
   betaSd: number | null;
@@ -176,6 +181,8 @@ export interface FitResult {
   probability: number;
   /** The chosen solution's group: the solutions with its spin-allowed assignment and parameters, and their summed probability (assignment-groups.ts). */
   assignmentGroup: AssignmentGroup;
+  /** How far the weak-band labellings of the assignment group move 10Dq and B, and the fit's σ before that spread was added to `uncertainty` (assignment-spread.ts). */
+  assignmentSpread: AssignmentSpread;
   /** Absolute check of the chosen solution (goodness-of-fit.ts): the probability above is only relative to the other assignments. */
   goodnessOfFit: GoodnessOfFit;
   /** Probability of each spin state (summed over its solutions); only states the d-count allows. */

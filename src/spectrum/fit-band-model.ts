@@ -505,7 +505,64 @@ function bandUnderEdge(ctx: Context, fit: RefineBandsResult): RefineBandsResult 
   if (best.bands.some((b) => b !== added && Math.abs(b.position - added.position) < Math.max(b.fwhm, added.fwhm))) return fit;
   if (best.bands.some((b) => edgeLike(b, xMax, o.broadFwhm)) || prune(best, x, o.noise, o.narrowFwhm, Math.max(o.uncertainFraction ?? 0.5, UNDER_EDGE_UNCERTAIN)) !== null) return fit;
   if (curvatureExplains(ctx, fit, best)) return fit;
+  if (skewExplains(ctx, fit, best, added)) return fit;
   return best;
+}
+
+/**
+ * Where a skewed band's high-energy side meets the edge (the start of the
+ * skew component, in FWHM of the band above its centre; its width, in the
+ * band's FWHM): the heavy high-energy half of a d–d band (skewness 1.2–1.6).
+ */
+const SKEW_COMPONENT = { offset: 0.6, fwhm: 0.8, height: 0.3 } as const;
+
+/** Largest distance, cm-1, between the two components of one skewed band: the span gaussians-group-multiplets.ts joins over. */
+const SKEW_SPAN = 2000;
+
+/**
+ * Widest to narrowest component of one skewed band: two Gaussians drawing a
+ * band of skewness up to 1.6 differ in width by about 1.5 (measured here on
+ * split-Gaussian bands); a much broader "component" is a tail reaching for
+ * another band.
+ */
+const SKEW_WIDTH_RATIO = 1.6;
+
+/**
+ * Whether the band below the one added under the edge, given a second
+ * component on its high-energy side (the way a sum of Gaussians draws a
+ * skewed band; gaussians-group-multiplets.ts joins such a pair back into one
+ * band), explains the data about as well as the added band: its score is
+ * not worse by more than BIC_MARGIN (both add three parameters). A d–d band
+ * skewed to high energy (the vibronic envelope, common practice) under a
+ * charge-transfer rise leaves a broad misfit between its maximum and the
+ * rise that the edge's Gaussian cannot take, and a band "under the edge"
+ * took it: a false shoulder (tests/spectrum/skewed-band-on-ct-tail.test.ts).
+ * A real band under the edge, well above the band below it (the 3T1g(P)
+ * band of Ni(II) near 395 nm, 11 000 cm-1 above 3T1g(F)), is not drawn by
+ * a component on that band's flank.
+ */
+function skewExplains(ctx: Context, without: RefineBandsResult, withBand: RefineBandsResult, added: GaussianParameters): boolean {
+  const { x, y, o } = ctx;
+  const below = without.bands.filter((b) => b.position < added.position).sort((a, b) => b.position - a.position)[0];
+  if (below === undefined) return false;
+  const component = { position: below.position + SKEW_COMPONENT.offset * below.fwhm, height: SKEW_COMPONENT.height * below.height, fwhm: SKEW_COMPONENT.fwhm * below.fwhm };
+  const skewed = refine(x, y, [...without.bands, component].sort((a, b) => a.position - b.position), without.edge, o);
+  // Still one skewed band: the two components within SKEW_SPAN of each other (the span a multiplet is joined over),
+  // not a component that wandered off to be the band under the edge itself.
+  const near = skewed.bands.filter((b) => Math.abs(b.position - below.position) < below.fwhm).sort((a, b) => a.position - b.position);
+  const widths = near.map((b) => b.fwhm);
+  const oneBand = near.length >= 2 && (near[near.length - 1]!.position - near[0]!.position) <= SKEW_SPAN
+    && Math.max(...widths) <= SKEW_WIDTH_RATIO * Math.min(...widths)
+    && skewed.bands.every((b) => b.position < added.position - 0.5 * added.fwhm);
+  if (!oneBand) return false;
+  // The band is needed when it still wins by BIC_MARGIN over the skewed band, with the skew component beside it.
+  // Two starts (the skewed band with the added one, the added band's model with the component): the better counts.
+  const starts = [
+    refine(x, y, [...skewed.bands, added].sort((a, b) => a.position - b.position), skewed.edge, o),
+    refine(x, y, [...withBand.bands, component].sort((a, b) => a.position - b.position), withBand.edge, o),
+  ];
+  const both = ctx.score(starts[0]!) <= ctx.score(starts[1]!) ? starts[0]! : starts[1]!;
+  return ctx.score(skewed) <= Math.min(ctx.score(withBand), ctx.score(both)) + BIC_MARGIN;
 }
 
 /**

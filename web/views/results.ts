@@ -31,13 +31,14 @@ export function warningsBox(messages: readonly string[]): HTMLElement | null {
   );
 }
 
-export function card(id: string, name: string, value: string, unit: string, note?: string | HTMLElement): HTMLElement {
+export function card(id: string, name: string, value: string, unit: string, note?: string | HTMLElement, spread?: string): HTMLElement {
   return h(
     'div',
     { class: 'card', id },
     h('div', { class: 'card-name' }, name),
     h('div', { class: 'card-value' }, h('span', { class: 'value' }, value), unit === '' ? '' : h('span', { class: 'unit' }, ` ${unit}`)),
     note === undefined ? null : h('div', { class: 'card-note' }, note),
+    spread === undefined ? null : h('div', { class: 'card-spread', id: `${id}-spread` }, spread),
   );
 }
 
@@ -53,8 +54,8 @@ export function parameterCards(fit: FitResult, original: FitResult | null): HTML
   return h(
     'div',
     { class: 'cards', id: 'parameters' },
-    card('p-tendq', '10Dq', formatWithUncertainty(fit.tenDq, u.tenDq), UNIT.wavenumber, previously(fit.tenDq, original?.tenDq, 0)),
-    card('p-b', 'Racah B', formatWithUncertainty(fit.b, u.b), UNIT.wavenumber, previously(fit.b, original?.b, 0)),
+    card('p-tendq', '10Dq', formatWithUncertainty(fit.tenDq, u.tenDq), UNIT.wavenumber, previously(fit.tenDq, original?.tenDq, 0), spreadNote(fit, 'tenDq')),
+    card('p-b', 'Racah B', formatWithUncertainty(fit.b, u.b), UNIT.wavenumber, previously(fit.b, original?.b, 0), spreadNote(fit, 'b')),
     card('p-c', 'Racah C', formatWithUncertainty(fit.c, u.c), UNIT.wavenumber, `C/B = ${formatNumber(fit.cOverB, 2)}`),
     card('p-beta', 'β = B/B(free ion)', fit.beta === null ? '—' : formatWithUncertainty(fit.beta, fit.betaSd ?? null, 2), '', fit.freeIonB === null ? 'free-ion B not known for this ion' : `free-ion B = ${formatNumber(fit.freeIonB)} ${UNIT.wavenumber}`),
     card('p-spin', 'Spin state', spinStateText(fit.spinState), '', fit.spinState === 'no-choice' ? `${dCountText(fit.d)}: ${NO_SPIN_STATE_CHOICE} · ground term ${fit.groundTerm}` : `ground term ${fit.groundTerm}`),
@@ -63,6 +64,19 @@ export function parameterCards(fit: FitResult, original: FitResult | null): HTML
     card('p-rms', 'RMS residual', formatNumber(fit.rmsResidual, fit.rmsResidual !== null && Math.abs(fit.rmsResidual) < 10 ? 1 : 0), UNIT.wavenumber, fitStatusNote(fit)),
     ...(fit.probability === undefined ? [] : [card('p-probability', 'Probability of this assignment', percentText(fit.probability), '', spinStateProbabilityNote(fit))]),
   );
+}
+
+/**
+ * "7198–8411 over the weak-band labellings (fit alone ± 529)" under 10Dq or B
+ * when the ± was widened by that spread (src/fit/assignment-spread.ts).
+ */
+function spreadNote(fit: FitResult, which: 'tenDq' | 'b'): string | undefined {
+  const s = fit.assignmentSpread;
+  if (!s?.widened) return undefined;
+  const range = which === 'tenDq' ? s.tenDqRange : s.bRange;
+  const sd = which === 'tenDq' ? s.fitUncertainty.tenDq : s.fitUncertainty.b;
+  if (!range || sd === null || range[0] === range[1]) return undefined;
+  return `${formatNumber(range[0])}–${formatNumber(range[1])} over the weak-band labellings (fit alone ± ${formatNumber(sd)}); the ± covers both`;
 }
 
 /** 0.973 → "97 %"; below 0.1 % → "< 0.1 %" (src/report's wording, with the page's space before %). */

@@ -38,6 +38,10 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
   // The group (src/fit/assignment-groups.ts): a stored result from an older fieldgap may lack it.
   const group = fit.assignmentGroup as typeof fit.assignmentGroup | undefined;
   const grouped = group && group.members > 1 ? `; spin-allowed assignment and parameters ${percentText(group.probability)} (${group.members} labellings of the weak bands)` : '';
+  const spread = fit.assignmentSpread as typeof fit.assignmentSpread | undefined;
+  if (spread?.widened) {
+    lines.push(`  labellings  10Dq ${spread.tenDqRange.map((v) => v.toFixed(0)).join('–')}${spread.bRange && fit.b !== null ? `, B ${spread.bRange.map((v) => v.toFixed(0)).join('–')}` : ''} cm-1 over the weak-band labellings (inside the ± above; fit alone ± ${spread.fitUncertainty.tenDq?.toFixed(0) ?? '—'})`);
+  }
   lines.push(`  assignment  probability ${percentText(fit.probability)}${grouped}${spinStates(fit.spinStateProbabilities)}`);
   const goodness = fit.goodnessOfFit as typeof fit.goodnessOfFit | undefined;
   if (goodness?.verdict === 'poor') lines.push(`  fit         POOR: χ² = ${goodness.chiSquare.toFixed(1)} for ${goodness.degreesOfFreedom} degrees of freedom (p = ${goodness.pValue.toPrecision(2)})`);

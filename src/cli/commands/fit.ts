@@ -223,6 +223,13 @@ export function fitReport(r: FitResult): string {
     const range = (x: [number, number]) => (Math.round(x[0]) === Math.round(x[1]) ? fmt(x[0]) : `${fmt(x[0])}–${fmt(x[1])}`);
     lines.push(`Probability of the spin-allowed assignment and parameters: ${percentText(group.probability)} (${group.members} solutions differing only in weak-band labels; 10Dq ${range(group.tenDqRange)}${group.bRange ? `, B ${range(group.bRange)}` : ''} cm-1)`);
   }
+  // The spread over the weak-band labellings (src/fit/assignment-spread.ts), already inside the ± above; older results lack it.
+  const spread = r.assignmentSpread as FitResult['assignmentSpread'] | undefined;
+  if (spread?.widened) {
+    const range = (x: [number, number]) => `${fmt(x[0])}–${fmt(x[1])}`;
+    const fitSd = (v: number | null) => (v === null ? 'not fitted' : `± ${fmt(v)}`);
+    lines.push(`Uncertainty from the weak-band labellings: 10Dq ${range(spread.tenDqRange)} cm-1 (fit alone ${fitSd(spread.fitUncertainty.tenDq)})${spread.bRange && r.b !== null ? `, B ${range(spread.bRange)} cm-1 (fit alone ${fitSd(spread.fitUncertainty.b)})` : ''}; the ± above is √(σ_fit² + Δ²), Δ the largest distance from the value to an end of that range`);
+  }
   // The absolute check (src/fit/goodness-of-fit.ts): older stored results lack it.
   const g = r.goodnessOfFit as FitResult['goodnessOfFit'] | undefined;
   if (g) lines.push(`Goodness of fit: ${g.verdict === 'poor' ? 'POOR' : 'good'}: χ² = ${fmt(g.chiSquare, 1)} for ${g.degreesOfFreedom} degree${g.degreesOfFreedom === 1 ? '' : 's'} of freedom (p = ${g.pValue < 1e-6 ? '< 1e-6' : g.pValue.toPrecision(2)})${g.betaPhysical === false ? '; β outside 0.3–1.1, not physical' : ''}`);
