@@ -34,7 +34,7 @@ describe('symmetric eigensolver over the double range', () => {
     // The solver leaves matrices within 2^±128 unscaled: that is only sound if every step is exact under a power-of-two scaling.
     const random = seededRandom(11);
     for (const n of [3, 7, 18, 30]) {
-      const a = randomSymmetric(n, random);
+      const a = randomSymmetricMatrix(n, random);
       const base = symmetricEigenvalues(a, n);
       const scaled = symmetricEigenvalues(a.map((v) => v * 2 ** k), n);
       expect(Array.from(scaled)).toEqual(Array.from(base, (v) => v * 2 ** k));
