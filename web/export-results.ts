@@ -1,6 +1,6 @@
 /**
  * The downloads of one analysis: JSON (everything the page knows: sample
- * details, bands as corrected, the fit shown) and CSV (parameters, then the
+ * details, bands as corrected, the fit shown, the tetragonal refit shown) and CSV (parameters, then the
  * band and assignment table). Pure; cm-1 throughout, nm as an extra column.
  */
 import type { AnalysisEntry } from './state.js';
@@ -31,6 +31,8 @@ export function resultJson(entry: AnalysisEntry): string {
       warnings: warningsFor(entry),
       cOverB: entry.cOverB,
       freeC: entry.freeC,
+      // The tetragonal refit, when one is shown: the service's answer as it came.
+      ...(entry.symmetry === 'tetragonal' && entry.tetragonalFit ? { tetragonalFit: entry.tetragonalFit } : {}),
     },
     null,
     2,

@@ -5,7 +5,7 @@
  * /api/v1/fit, and the page shows Dq, Ds, Dt with their uncertainties and
  * each band's D4h level with its octahedral parent, as the service answered.
  */
-import { writeFile } from 'node:fs/promises';
+import { readFile, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { formatNumber, formatWithUncertainty } from '../../web/format.js';
@@ -93,6 +93,8 @@ describe.skipIf(browserTestsSkipped())('the tetragonal fit on the page', () => {
     expect(sent.freeC).toBeUndefined();
     const fit = (await response.json()) as TetragonalFitResult;
     await page.waitForSelector('#tetragonal-fit');
+    // The result is drawn far above the Refit button: the page takes the reader (and the keyboard focus) there.
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe('tetragonal-fit');
 
     // The answer is the core's fit of the same bands (the project's own fit, not an outside check: that is
     // tests/fit-tetragonal/published.test.ts, where these bands give the published Dq, Ds, Dt).
@@ -109,22 +111,28 @@ describe.skipIf(browserTestsSkipped())('the tetragonal fit on the page', () => {
     // d9: no Racah B card.
     expect(await page.locator('#t-b').count()).toBe(0);
     const rows = await page.$$eval('#tetragonal-assignments tbody tr', (trs) => trs.map((tr) => Array.from(tr.querySelectorAll('th, td'), (c) => c.textContent ?? '')));
-    expect(rows.map((r) => [r[1], r[2], r[3]])).toEqual(fit.assignments.map((a) => [a.term, a.parent, formatNumber(a.observed)]));
-    expect(rows.map((r) => r[1])).toEqual(['2A1g', '2B2g', '2Eg']);
-    expect(rows.map((r) => r[2])).toEqual(['2Eg(D)', '2T2g(D)', '2T2g(D)']);
+    expect(rows.map((r) => [r[0], r[1], r[2]])).toEqual(fit.assignments.map((a) => [a.term, a.parent, formatNumber(a.observed)]));
+    expect(rows.map((r) => r[0])).toEqual(['2A1g', '2B2g', '2Eg']);
+    expect(rows.map((r) => r[1])).toEqual(['2Eg(D)', '2T2g(D)', '2T2g(D)']);
     // The split 2T2g band is said to be one octahedral band, and the equally good compressed assignment is warned about.
     await expect(page.locator('#tetragonal-components').textContent()).resolves.toContain(`${formatNumber(15_600)} and ${formatNumber(19_100)} cm⁻¹: components of one octahedral 2T2g(D) band`);
     await expect(page.locator('#tetragonal-warnings').textContent()).resolves.toMatch(/another assignment fits as well/);
+    // Download JSON carries the tetragonal fit shown, as the service sent it.
+    const download = page.waitForEvent('download');
+    await page.click('#download-json');
+    const saved = JSON.parse(await readFile((await (await download).path())!, 'utf8')) as { tetragonalFit?: TetragonalFitResult };
+    expect(saved.tetragonalFit).toEqual(fit);
     // The band list names each band by its D4h level and parent while the tetragonal fit is shown.
     for (const a of fit.assignments) {
       await expect(page.locator(`#band-table tr[data-position="${a.observed}"] td`).nth(4).textContent()).resolves.toBe(a.label);
     }
     const text = await page.locator('#tetragonal-fit').innerText();
     expect(text).not.toMatch(/\bcm-1\b/);
-    expect(await page.evaluate(() => document.activeElement?.id)).toBe('tetragonal-fit');
     await page.screenshot({ path: join(SHOTS, 'tetragonal-fit-1280.png'), fullPage: true });
     await page.setViewportSize({ width: 400, height: 900 });
     await page.screenshot({ path: join(SHOTS, 'tetragonal-fit-400.png'), fullPage: true });
+    await page.locator('#tetragonal-fit').screenshot({ path: join(SHOTS, 'tetragonal-fit-400-panel.png') });
+    await page.locator('#bands').screenshot({ path: join(SHOTS, 'tetragonal-fit-400-bands.png') });
     expect(await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)).toBeLessThanOrEqual(0);
     await page.setViewportSize({ width: 1280, height: 900 });
 

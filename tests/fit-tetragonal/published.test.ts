@@ -49,7 +49,8 @@
  * (conference abstract, no numbers), Souissi & Kammoun, Materials Sciences
  * and Applications 2 (2011) 1121 (trans-CoCl2(H2O)4, Co(II) not Co(III):
  * abstract and references only), Cu(II)-doped Mg K phosphate (three bands
- * and "tetragonal parameters evaluated", values not in the abstract), and
+ * and "tetragonal parameters evaluated", values not in the abstract),
+ * [AuCl4]- and Croatica Chemica Acta (no tetragonal analysis found), and
  * the code corpus for data files of published spectra (none). No band list
  * with its published Dq, Ds, Dt was readable; nothing was taken from memory.
  * The tetrahedral Co(II) case is analysed in spin-orbit-cobalt.test.ts:

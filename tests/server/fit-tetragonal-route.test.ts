@@ -9,6 +9,9 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CliIo } from '../../src/cli/command.js';
 import { runCli } from '../../src/cli/main.js';
+import { FieldgapError } from '../../src/errors.js';
+import { fitTetragonal } from '../../src/fit-tetragonal/index.js';
+import { createWorkerPool } from '../../server/pool.js';
 import { errorResponse, fitResponse } from '../../server/responses.js';
 import { tetragonalFitResponse } from '../../server/responses-tetragonal.js';
 import { makeTestApp, type TestApp } from './helpers.js';
@@ -136,4 +139,20 @@ describe('POST /api/v1/fit with symmetry "tetragonal"', () => {
     expect(post.responses['200']!.content['application/json']!.schema.oneOf.map((s) => s.$ref)).toEqual(['#/components/schemas/FitResult', '#/components/schemas/TetragonalFitResult']);
     expect(Object.keys(doc.components.schemas['TetragonalFitResult']!.properties ?? {})).toEqual(expect.arrayContaining(['ds', 'dt', 'zeta', 'uncertainty', 'components']));
   });
+});
+
+describe('the tetragonal fit on a worker thread', () => {
+  it('computes there exactly what fitTetragonal computes here, and brings its errors back with their field', async () => {
+    const pool = createWorkerPool({ threads: 1 });
+    try {
+      const input = { ion: 'Cu2+', geometry: 'octahedral' as const, symmetry: 'tetragonal' as const, bands: CU_BANDS };
+      expect(await pool.run({ kind: 'fit-tetragonal', input })).toEqual(JSON.parse(JSON.stringify(fitTetragonal(input))));
+      const bad = { d: 1, symmetry: 'tetragonal' as const, bands: [10000, 15000, 20000, 25000, 30000] };
+      const error = await pool.run({ kind: 'fit-tetragonal', input: bad }).then(() => null, (e: unknown) => e);
+      expect(error).toBeInstanceOf(FieldgapError);
+      expect((error as FieldgapError).path).toBe('bands');
+    } finally {
+      await pool.close();
+    }
+  }, 60_000);
 });

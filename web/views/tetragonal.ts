@@ -49,7 +49,7 @@ function determinedLine(fit: TetragonalFitResult): HTMLElement | null {
 }
 
 function assignmentTable(fit: TetragonalFitResult): HTMLElement {
-  const head = ['Transition', 'D4h level', 'Octahedral parent', `Observed / ${UNIT.wavenumber}`, 'Observed / nm', `Calculated / ${UNIT.wavenumber}`, `Obs. − calc. / ${UNIT.wavenumber}`];
+  const head = ['D4h level', 'Octahedral parent', `Observed / ${UNIT.wavenumber}`, 'Observed / nm', `Calculated / ${UNIT.wavenumber}`, `Obs. − calc. / ${UNIT.wavenumber}`];
   return h(
     'table',
     { class: 'data', id: 'tetragonal-assignments' },
@@ -62,8 +62,7 @@ function assignmentTable(fit: TetragonalFitResult): HTMLElement {
         h(
           'tr',
           {},
-          h('th', { scope: 'row' }, `${fit.groundTerm} → ${a.term}`),
-          h('td', {}, a.term),
+          h('th', { scope: 'row' }, a.term),
           h('td', {}, a.parent),
           h('td', { class: 'num' }, formatNumber(a.observed)),
           h('td', { class: 'num' }, formatNumber(nmFromWavenumber(a.observed), 1)),
