@@ -47,6 +47,18 @@ export const LOW_SPIN_G: ReadonlyMap<string, FactorValue> = new Map([
   ['Mn3+', lowSpinG(30000, '[Mn(CN)6]3-', 'Figgis & Hitchman, Ligand Field Theory and Its Applications (2000), from memory')],
 ]);
 
+/** The complex each low-spin g was taken from: predicting that complex only gives its own source back. */
+export const LOW_SPIN_G_COMPLEX: ReadonlyMap<string, string> = new Map([
+  ['Fe2+', '[Fe(CN)6]4-'],
+  ['Fe3+', '[Fe(CN)6]3-'],
+  ['Mn3+', '[Mn(CN)6]3-'],
+]);
+
+/** True when a prediction's 10Dq rests on a low-spin g taken from this very complex (circular: no independent estimate). */
+export function isLowSpinGSource(ionLabel: string, complexIon: string, tenDqMethod: string): boolean {
+  return /low-spin g/.test(tenDqMethod) && LOW_SPIN_G_COMPLEX.get(ionLabel) === complexIon;
+}
+
 export type LowSpinAdjustment =
   | { kind: 'low-spin-g'; g: FactorValue; warning: string }
   | { kind: 'widened'; scatter: number; warning: string };

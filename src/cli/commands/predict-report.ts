@@ -1,5 +1,6 @@
 import { parseIon, romanOxidationState } from '../../chemistry/ions.js';
 import { boxArrows } from '../../predict/occupation.js';
+import { isLowSpinGSource } from '../../predict/low-spin-g.js';
 import type { Prediction, UsedFactor } from '../../series/predict.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
 import { probabilityText } from '../../report/probability.js';
@@ -121,7 +122,7 @@ export function predictionReport(p: Prediction): string {
   // d0, d1, d9, d10 have no electron-repulsion terms in their ligand-field levels.
   const none = p.d <= 1 || p.d >= 9 ? `not needed for d${p.d}` : 'not estimated';
   const rows: [string, string][] = [
-    ['10Dq', `${cm(p.tenDq.value)} cm-1 (${cm(1e7 / p.tenDq.value)} nm), ± ${cm(round(p.tenDq.uncertainty ?? 0, 10))}`],
+    ['10Dq', `${cm(p.tenDq.value)} cm-1 (${cm(1e7 / p.tenDq.value)} nm), ± ${cm(round(p.tenDq.uncertainty ?? 0, 10))}${isLowSpinGSource(p.ion, p.complexIon, p.tenDq.method) ? ` (circular: the low-spin g of ${p.ion} is taken from this complex, so this is its published value back, not an independent estimate)` : ''}`],
     ['beta', p.beta ? pm(p.beta.value, p.beta.uncertainty, 2) : none],
     ['Racah B', p.b ? `${cm(p.b.value)} ± ${cm(p.b.uncertainty ?? 0)} cm-1` : none],
     ['Racah C', p.c ? `${cm(p.c.value)} cm-1 (C/B kept at the free-ion ratio)` : none],
