@@ -1,9 +1,9 @@
 /**
  * The one wording of a spin state for people. A d^n and geometry with one
  * spin state only ('no-choice') is said as NO_SPIN_STATE_CHOICE in every
- * sentence of the CLI and the page; table cells and CSV keep the value
- * itself ('high-spin', 'low-spin', 'no-choice'), and the page's cards their
- * short words (spinStateWords).
+ * sentence of the CLI and the page; text-table cells and the page's cards
+ * use the short words (spinStateWords: "one possible"), while CSV and JSON
+ * keep the value itself ('high-spin', 'low-spin', 'no-choice').
  */
 import type { SpinState } from '../ligand-field/types.js';
 
