@@ -24,8 +24,8 @@ export interface RunOptions {
    * Answer with the result's JSON text instead of the result. The text is
    * made where the task ran, so a worker's answer crosses to the event loop
    * as one string, not an object graph cloned field by field and serialised
-   * again there: about a fifth of the event loop's work per POST /fit
-   * (scripts/load.ts).
+   * again there (JSON.stringify of a fit result is ~5.7 kB of numbers): the
+   * event loop's CPU per POST /fit fell by about a tenth (bench/service-fit.ts).
    */
   asJson?: boolean;
 }
