@@ -70,6 +70,8 @@ export type TaskKind = Task['kind'];
 export interface WorkerRequest {
   task: Task;
   abandoned: Int32Array;
+  /** Answer the result as its JSON text (see RunOptions.asJson in pool.ts). */
+  json?: boolean;
 }
 
 /** Indices into WorkerRequest.abandoned. */
@@ -125,10 +127,15 @@ function runTask(task: Task): unknown {
   }
 }
 
-/** Runs one task and never throws: errors become the outcome's `error`. */
-export function dispatchTask(task: Task): Outcome {
+/**
+ * Runs one task and never throws: errors become the outcome's `error`. With
+ * `json`, the value is the result's JSON text (JSON.stringify, what
+ * express's res.json would send).
+ */
+export function dispatchTask(task: Task, json = false): Outcome {
   try {
-    return { ok: true, value: runTask(task) };
+    const value = runTask(task);
+    return { ok: true, value: json ? JSON.stringify(value) : value };
   } catch (error) {
     if (isFieldgapError(error)) return { ok: false, error: error.toJSON() };
     const message = error instanceof Error ? error.message : String(error);

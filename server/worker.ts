@@ -8,8 +8,8 @@ import { dispatchTask, markStarted, TASK_FLAG, type Outcome, type WorkerRequest 
 /** Answer of a task whose client left before it started; the pool has already answered for it. */
 const ABANDONED: Outcome = { ok: false, error: { code: 'client-left', message: 'dropped: nobody waits for the answer', path: '' } };
 
-export default function runInWorker({ task, abandoned }: WorkerRequest): Outcome {
+export default function runInWorker({ task, abandoned, json }: WorkerRequest): Outcome {
   if (Atomics.load(abandoned, TASK_FLAG.ABANDONED) === 1) return ABANDONED;
   markStarted(abandoned);
-  return dispatchTask(task);
+  return dispatchTask(task, json === true);
 }

@@ -14,6 +14,7 @@ import { fileURLToPath } from 'node:url';
 import { analyzeContent, type AnalyzeContentTask, type ContentOutcome } from './batch-analyze.js';
 import { analyzeBatchFile, type BatchFileTask, type BatchRow } from './batch-rows.js';
 import type { WorkerTask } from './batch-worker.js';
+import { collectEvery } from './worker-gc.js';
 
 export interface BatchRunner {
   /** One file of an `analyze` batch to its finished rows. */
@@ -41,6 +42,15 @@ export const MIN_FILES_FOR_WORKERS = 8;
  * kept in check by a collection every few hundred files (worker-gc.ts).
  */
 export const WORKER_YOUNG_GENERATION_MB = 8;
+
+/**
+ * Files between two full collections on the calling thread, which receives
+ * every row: its old generation otherwise fills with dead rows and promises
+ * for thousands of files before V8 collects it (measured: the main heap
+ * from 12 to 19 MB over 10 000 files). A collection of that heap costs a few
+ * ms.
+ */
+export const MAIN_FILES_PER_COLLECTION = 500;
 
 /** The default thread count: every core. */
 export function defaultThreads(): number {
@@ -87,10 +97,15 @@ export async function createBatchRunner(files: number, threads?: number, explici
     filename, execArgv, minThreads: count, maxThreads: count, idleTimeout: 1000,
     resourceLimits: { maxYoungGenerationSizeMb: WORKER_YOUNG_GENERATION_MB },
   });
+  const afterFile = collectEvery(MAIN_FILES_PER_COLLECTION);
+  const settled = <R>(result: R): R => {
+    afterFile();
+    return result;
+  };
   return {
     threads: count,
-    run: async (task) => (await piscina.run({ rows: task })) as BatchRow[],
-    analyze: async (task) => (await piscina.run({ analyze: task })) as ContentOutcome,
+    run: async (task) => settled((await piscina.run({ rows: task })) as BatchRow[]),
+    analyze: async (task) => settled((await piscina.run({ analyze: task })) as ContentOutcome),
     close: () => piscina.close(),
   };
 }
