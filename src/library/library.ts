@@ -6,6 +6,7 @@ import type { Library, LibraryLocation, LibraryOptions } from './library-api.js'
 import { openPostgresEngine } from './postgres-engine.js';
 import { fitParams, likeWord, revisionFromRow, SUMMARY_SELECT, summaryFromRow, type FitColumns, type RevisionRow, type SummaryRow } from './rows.js';
 import { seriesColumnsFromRow, seriesColumnsSql } from './series-columns.js';
+import { seriesQueriesOver } from './series-queries.js';
 import { LIBRARY_FILE, openSqliteEngine } from './sqlite-engine.js';
 import { ionOfResult, summarizeResult } from './summary.js';
 import type {
@@ -286,6 +287,8 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
       const row = await engine.read((tx) => tx.get<Record<string, unknown>>(seriesColumnsSql(sql.jsonArray, where), params));
       return seriesColumnsFromRow(row);
     },
+
+    seriesRead: (ion, fn) => engine.read((tx) => fn(seriesQueriesOver(tx, sql, ion, inScope('a.')))),
 
     get,
 
