@@ -106,12 +106,12 @@ const ORDER_SQL: Record<SeriesRowOrder, string> = {
  */
 export function seriesQueriesOver(tx: SqlTx, sql: Pick<DialectSql, 'jsonArray' | 'oneScanAggregates'>, ion: string, scope: { sql: string; params: unknown[] }): SeriesQueries {
   const base = { sql: `a.ion = ?${scope.sql}`, params: [ion, ...scope.params] };
-  // (Counts come as text from PostgreSQL, bigint: kindRow reads every value as a number.)
   // The sums per kind, each over the rows it needs (all, fitted, fitted with a valid β). SQLite takes
   // three scans of the kinds index, each with its rows chosen by WHERE: a CASE or FILTER per aggregate
   // and row costs it more than the two extra scans. PostgreSQL scans the table in parallel workers
   // and takes one scan with FILTER. A σ of 0 gives no weight: NULLIF makes it NULL, which sum and
-  // count leave out (negative σ are refused before these sums are used).
+  // count leave out (negative σ are refused before these sums are used). Counts come from PostgreSQL
+  // as text (bigint): kindRow reads every value as a number.
   const F = FITTED;
   const groups: Record<'all' | 'fitted' | 'beta', { where: string; columns: [string, string][] }> = {
     all: { where: '', columns: [['n', 'count(*)']] },
@@ -120,7 +120,7 @@ export function seriesQueriesOver(tx: SqlTx, sql: Pick<DialectSql, 'jsonArray' |
       columns: [
         ['fitted', 'count(*)'], ['firstId', 'max(a.id)'],
         ['tMin', 'min(a.ten_dq)'], ['tMax', 'max(a.ten_dq)'], ['sdMin', 'min(a.ten_dq_sd)'], ['sdMax', 'max(a.ten_dq_sd)'],
-        ['bMin', 'min(a.beta)'], ['bMax', 'max(a.beta)'], ['bsdAllMin', 'min(a.beta_sd)'], ['bsdMax', 'max(a.beta_sd)'], ['sampleMin', 'min(trim(a.sample))'],
+        ['sampleMin', 'min(trim(a.sample))'],
         ['sdKnown', 'count(a.ten_dq_sd)'], ['sdPositive', 'count(NULLIF(a.ten_dq_sd, 0))'],
         ['t1', 'sum(a.ten_dq)'], ['t2', 'sum(a.ten_dq * a.ten_dq)'],
         ['w', 'sum(1 / NULLIF(a.ten_dq_sd * a.ten_dq_sd, 0))'], ['wt', 'sum(a.ten_dq / NULLIF(a.ten_dq_sd * a.ten_dq_sd, 0))'],
@@ -131,7 +131,7 @@ export function seriesQueriesOver(tx: SqlTx, sql: Pick<DialectSql, 'jsonArray' |
       where: `+${F} AND ${BETA_VALID}`,
       columns: [
         ['betaN', 'count(*)'], ['bsdKnown', 'count(a.beta_sd)'], ['bsdPositive', 'count(NULLIF(a.beta_sd, 0))'],
-        ['bsdMin', 'min(a.beta_sd)'], ['u1', 'sum(1 - a.beta)'], ['u2', 'sum((1 - a.beta) * (1 - a.beta))'],
+        ['bsdMin', 'min(a.beta_sd)'], ['bsdMax', 'max(a.beta_sd)'], ['u1', 'sum(1 - a.beta)'], ['u2', 'sum((1 - a.beta) * (1 - a.beta))'],
         ['uw', 'sum(1 / NULLIF(a.beta_sd * a.beta_sd, 0))'], ['uwu', 'sum((1 - a.beta) / NULLIF(a.beta_sd * a.beta_sd, 0))'],
       ],
     },
@@ -200,16 +200,18 @@ export function kindText(kind: KindKey): string {
 
 /**
  * One kind's row from the three scans. `bad` counts the extremes of the
- * fitted records' numbers that are not finite numbers: SQLite sorts text
+ * ranked records' 10Dq and σ that are not finite numbers: SQLite sorts text
  * above every number (so max is text when any is), PostgreSQL sorts NaN
- * above every number, and ±Infinity is an extreme itself.
+ * above every number, and ±Infinity is an extreme itself. A β that is not
+ * a number in (0, 1.2] (text, NaN, ±Infinity) fails the β condition, so the
+ * record counts as one without β, as buildSeries takes it too.
  */
 function kindRow(all: Record<string, unknown> & KindKey, fitted: Record<string, unknown> | undefined, beta: Record<string, unknown> | undefined): SeriesKindRow {
   const n = (v: unknown) => (v === null || v === undefined ? 0 : Number(v));
   const orNull = (v: unknown) => (v === null || v === undefined ? null : Number(v));
   const f = fitted ?? {};
   const b = beta ?? {};
-  const extremes = ['tMin', 'tMax', 'sdMin', 'sdMax', 'bMin', 'bMax', 'bsdAllMin', 'bsdMax'].map((key) => f[key] ?? null);
+  const extremes = [f['tMin'], f['tMax'], f['sdMin'], f['sdMax'], b['bsdMin'], b['bsdMax']].map((v) => v ?? null);
   return {
     formula: all.formula, ligands: all.ligands, n: n(all['n']), fitted: n(f['fitted']), firstId: orNull(f['firstId']),
     bad: extremes.filter((v) => v !== null && !(typeof v === 'number' && Number.isFinite(v))).length,

@@ -137,6 +137,14 @@ forEachEngine('a series page from the database, against the whole report cut to 
     expect(await error(() => librarySeries(library, 'Cr3+'))).toMatchObject({ code: 'invalid-argument', path: expect.stringMatching(/^analyses\[\d+\]\.tenDqUncertainty$/) });
   });
 
+  it('takes a β that is not a number as no β, as the reference does, and goes the per-analysis way for such a 10Dq', async () => {
+    await library.addMany(seededRecords(300, 13));
+    await where.exec("UPDATE analyses SET beta = 'Infinity' WHERE id % 5 = 1");
+    expectSamePage((await pagedLibrarySeries(library, 'Cr3+', {}, 0, 60, 0))!, await slowPage(library, 'Cr3+', {}, 0, 60));
+    await where.exec("UPDATE analyses SET ten_dq = 'Infinity' WHERE id = 7");
+    expect(await pagedLibrarySeries(library, 'Cr3+', {}, 0, 60, 0)).toBeUndefined();
+  });
+
   it('refuses a limit or offset that is not a whole number in range, naming it', async () => {
     await library.addMany(seededRecords(20, 3));
     await expect(librarySeries(library, 'Cr3+', { limit: 0 })).rejects.toMatchObject({ code: 'invalid-argument', path: 'limit' });
