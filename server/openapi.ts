@@ -225,7 +225,7 @@ export function buildOpenApiDocument(version: string, limits: DocumentedLimits):
           operationId: 'series',
           summary: 'Spectrochemical and nephelauxetic ranking of the stored analyses of one ion',
           parameters: queryParameters(seriesQuery),
-          responses: { '200': { description: 'The ranking and the fitted Jørgensen factors.' }, ...errorResponses(['400', '404', '500']) },
+          responses: { '200': { description: 'The ranking and the fitted Jørgensen factors. Per ligand complete (`ligands`: n, mean 10Dq and β with σ, places, f and h; `ligandSeries`); the per-analysis lists (each ranking\'s entries, overlaps, skipped and series, `skipped`, each factor\'s fFrom and hFrom, the notes of analyses that give no f) hold items offset+1 … offset+limit unless all=true; `page` gives offset, limit and each list\'s whole length (`count` is the spectrochemical one).' }, ...errorResponses(['400', '404', '500']) },
         },
       },
       '/api/v1/predict': {

@@ -294,6 +294,8 @@ const summaryShape = {
   revision: z.int().positive(),
   toolVersion: z.string(),
   summary: fitSummary,
+  owner: z.string().optional().meta({ description: 'The user who added the record (absent in the single-user mode).' }),
+  group: z.string().optional().meta({ description: "The owner's group: who may read the record (absent in the single-user mode)." }),
 } satisfies Record<keyof AnalysisSummary, z.ZodType>;
 
 const revisionShape = {

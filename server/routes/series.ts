@@ -1,9 +1,11 @@
 /**
  * Ligand series over HTTP, mounted at /api/v1:
- *   GET  /series?ion=Cr3%2B[&criterion=two-sigma]
+ *   GET  /series?ion=Cr3%2B[&criterion=two-sigma][&limit=50&offset=0 | &all=true]
  *        the library's analyses of that ion ranked by 10Dq and by 1 − β
  *        (weakest first, neighbours within their uncertainties flagged) and
- *        Jørgensen's f and h fitted per ligand (src/library/series.ts)
+ *        Jørgensen's f and h fitted per ligand (src/library/series.ts); per
+ *        ligand complete, the per-analysis lists a page (`page` says which)
+ *        unless all=true
  *   POST /predict { "formula", "geometry"?, "library"? }
  *        10Dq, β, B, C, the spin state (rule or probability), occupation,
  *        LFSE and moment estimated from the formula alone (src/series
@@ -30,6 +32,9 @@ export interface SeriesRouterDeps {
 export const seriesQuery = z.strictObject({
   ion: z.string().trim().min(1).max(40).meta({ description: 'The metal ion whose analyses to rank, e.g. "Cr3+".', examples: ['Cr3+'] }),
   criterion: criterionField.optional(),
+  limit: z.number().int().min(1).max(100_000).optional().meta({ description: 'Analyses per list (rankings, skipped, fFrom/hFrom, no-f notes): a page; default 50. The ligand-level fields are always complete.' }),
+  offset: z.number().int().min(0).optional().meta({ description: 'Analyses skipped at the start of each list; default 0.' }),
+  all: z.boolean().optional().meta({ description: 'Every analysis in every list (the whole report, tens of MB at 100 000 analyses); default false.' }),
 });
 
 export const predictBody = z.strictObject({
@@ -58,8 +63,10 @@ export function createSeriesRouter({ library }: SeriesRouterDeps): Router {
   const router = Router();
 
   router.get('/series', async (req, res) => {
-    const { ion, criterion } = parseTextFields(seriesQuery, req.query);
-    res.json(await librarySeries(libraryFor(library, res), ion, criterion === undefined ? {} : { criterion }));
+    const { ion, criterion, limit, offset, all } = parseTextFields(seriesQuery, req.query);
+    res.json(await librarySeries(libraryFor(library, res), ion, {
+      ...(criterion !== undefined && { criterion }), ...(limit !== undefined && { limit }), ...(offset !== undefined && { offset }), ...(all !== undefined && { all }),
+    }));
   });
 
   // One ligand-field calculation at one Dq: milliseconds, so it runs here rather than in the pool.

@@ -44,10 +44,12 @@ export interface DialectSql {
   lockRow: string;
   /** The aggregate that makes a JSON array of a column's values in the order the rows come (SQLite gives its text, PostgreSQL json). */
   jsonArray: string;
+  /** Whether aggregates over different rows are cheaper as one scan with FILTER than as a scan each (series-queries.ts). */
+  oneScanAggregates: boolean;
 }
 
 export const DIALECT_SQL: Record<Dialect, DialectSql> = {
   // SQLite's LIKE ignores ASCII case; one writer at a time holds the whole database.
-  sqlite: { like: 'LIKE', lockRow: '', jsonArray: 'json_group_array' },
-  postgres: { like: 'ILIKE', lockRow: ' FOR UPDATE', jsonArray: 'json_agg' },
+  sqlite: { like: 'LIKE', lockRow: '', jsonArray: 'json_group_array', oneScanAggregates: false },
+  postgres: { like: 'ILIKE', lockRow: ' FOR UPDATE', jsonArray: 'json_agg', oneScanAggregates: true },
 };

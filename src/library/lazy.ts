@@ -43,6 +43,7 @@ export function lazyLibrary(engine: Library['engine'], open: () => Promise<Libra
     listAll: async (filter) => (await library()).listAll(filter),
     listFits: async (filter) => (await library()).listFits(filter),
     seriesColumns: async (ion) => (await library()).seriesColumns(ion),
+    seriesRead: async (ion, fn) => (await library()).seriesRead(ion, fn),
     listPages: (filter, pageSize) => ({
       async *[Symbol.asyncIterator]() {
         yield* (await library()).listPages(filter, pageSize);

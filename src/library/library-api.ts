@@ -10,6 +10,7 @@ import type {
   AnalysisPatch, AnalysisRecord, AnalysisSummary, FitRow, ListOptions, ListPage, NewAnalysis, OriginalFile, SeriesColumns,
 } from './types.js';
 import type { RecordScope, UserStore } from './users.js';
+import type { SeriesQueries } from './series-queries.js';
 
 export interface LibraryOptions extends SqliteEngineOptions, PostgresEngineOptions {
   /** Largest original file accepted, bytes. Default 32 MiB. */
@@ -64,6 +65,12 @@ export interface Library {
    * listFits, which keeps them as they are.
    */
   seriesColumns(ion: string): Promise<SeriesColumns | undefined>;
+  /**
+   * Runs `fn` with the aggregate and page queries of the records of `ion`
+   * (a canonical label; series-queries.ts), all in one read (one snapshot):
+   * how a series of 100 000 records is answered without reading them all.
+   */
+  seriesRead<T>(ion: string, fn: (queries: SeriesQueries) => Promise<T>): Promise<T>;
   get(id: number): Promise<AnalysisRecord>;
   /** The full records of `ids`, in the order given, in one read; ids not in the library (or out of scope) are left out. */
   getMany(ids: readonly number[]): Promise<AnalysisRecord[]>;

@@ -1,18 +1,19 @@
 import { FieldgapError, invalidArgument, isFieldgapError } from '../errors.js';
 import { packageVersion as toolVersion } from '../version.js';
 import { DIALECT_SQL, type SqlEngine, type SqlTx } from './engine.js';
-import { checkId, jsonText, notFound, originalBytes, pageNumber, sha256Hex, words } from './input-checks.js';
+import { checkId, notFound, pageNumber, sha256Hex, words } from './input-checks.js';
 import type { Library, LibraryLocation, LibraryOptions } from './library-api.js';
 import { openPostgresEngine } from './postgres-engine.js';
-import { fitParams, likeWord, revisionFromRow, SUMMARY_SELECT, summaryFromRow, type FitColumns, type RevisionRow, type SummaryRow } from './rows.js';
+import { likeWord, revisionFromRow, SUMMARY_SELECT, summaryFromRow, type RevisionRow, type SummaryRow } from './rows.js';
+import { addRevision, FIT_COLUMNS, insertPrepared, prepareAdd, revisionTexts, ROWS_PER_INSERT, type PreparedAdd } from './record-writes.js';
 import { seriesColumnsFromRow, seriesColumnsSql } from './series-columns.js';
+import { seriesQueriesOver } from './series-queries.js';
 import { LIBRARY_FILE, openSqliteEngine } from './sqlite-engine.js';
-import { ionOfResult, summarizeResult } from './summary.js';
 import type {
   AnalysisPatch, AnalysisRecord, FitRow, ListOptions, NewAnalysis, StoredOptions, StoredResult,
 } from './types.js';
 import { userStoreOver, type RecordScope } from './users.js';
-import { baseFileName, canonicalIon, canonicalIonOrNull, checkDetails } from './validate.js';
+import { canonicalIon, checkDetails } from './validate.js';
 
 export { LIBRARY_FILE };
 
@@ -36,9 +37,6 @@ const DETAIL_COLUMNS = {
 } as const;
 const PATCH_KEYS = new Set([...Object.keys(DETAIL_COLUMNS), 'ligands', 'options', 'result', 'toolVersion']);
 const SEARCHED = ['a.sample', 'a.formula', 'a.ion', 'a.ligands', 'a.solvent', 'a.note'];
-/** Rows a multi-row INSERT or an IN (...) list takes at most (PostgreSQL allows 65 535 parameters a statement). */
-const ROWS_PER_INSERT = 200;
-const FIT_COLUMNS: readonly (keyof FitColumns)[] = ['ten_dq', 'ten_dq_sd', 'b', 'b_sd', 'c', 'beta', 'beta_sd', 'spin_state', 'rms', 'status'];
 
 /** The library's rules over one engine. */
 export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'maxOriginalBytes'> = {}, scope?: RecordScope): Library {
@@ -48,73 +46,11 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
   const groupOnly = scope === undefined || scope.admin ? undefined : scope.group;
   const inScope = (alias: string) => (groupOnly === undefined ? { sql: '', params: [] as unknown[] } : { sql: ` AND ${alias}group_name = ?`, params: [groupOnly] as unknown[] });
 
-  const addRevision = async (tx: SqlTx, id: number, revision: number, texts: RevisionTexts, version: string, now: string) => {
-    const row = await tx.get<{ id: number }>(
-      `INSERT INTO revisions (analysis_id, revision, created_at, tool_version, options, ${FIT_COLUMNS.join(', ')})
-       VALUES (?, ?, ?, ?, ?, ${FIT_COLUMNS.map(() => '?').join(', ')}) RETURNING id`,
-      [id, revision, now, version, texts.options, ...FIT_COLUMNS.map((c) => texts.fit[c])],
-    );
-    await tx.run('INSERT INTO results (revision_id, result) VALUES (?, ?)', [row!.id, texts.result]);
-  };
-
-  /** Checks a new record and makes every value its rows need, before any transaction. */
-  const prepareAdd = (record: NewAnalysis): PreparedAdd => {
-    if (typeof record !== 'object' || record === null) throw invalidArgument('record', 'expected an analysis record');
-    const details = checkDetails({ ...record, sample: record.sample ?? '' });
-    const fileName = baseFileName(record.fileName);
-    const content = originalBytes(record.content, maxOriginalBytes);
-    const ion = details.ion ?? canonicalIonOrNull(ionOfResult(record.result)) ?? canonicalIonOrNull(record.options?.ion);
-    return {
-      values: [
-        details.sample!, details.formula ?? null, ion, JSON.stringify(details.ligands ?? []), details.solvent ?? null,
-        details.temperature ?? null, details.measuredOn ?? null, details.note ?? null,
-        fileName, sha256Hex(content), content.length, scope?.user ?? null, scope?.group ?? null,
-      ],
-      content,
-      texts: revisionTexts(record.options, record.result),
-      toolVersion: record.toolVersion ?? toolVersion(),
-    };
-  };
-
-  /**
-   * Inserts checked records; returns their ids in order. Each analyses row is
-   * its own INSERT (its id is needed, and RETURNING gives no order for many
-   * rows); the originals, revisions and results go in multi-row INSERTs of
-   * up to ROWS_PER_INSERT rows, matched to their analysis by id, not by order.
-   */
-  const insertPrepared = async (tx: SqlTx, records: readonly PreparedAdd[], now: string): Promise<number[]> => {
-    const ids: number[] = [];
-    for (const p of records) {
-      const row = await tx.get<{ id: number }>(
-        `INSERT INTO analyses
-          (created_at, updated_at, sample, formula, ion, ligands, solvent, temperature, measured_on, note,
-           original_name, original_sha256, original_size, owner, group_name, revision, tool_version, ${FIT_COLUMNS.join(', ')})
-         VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ${FIT_COLUMNS.map(() => '?').join(', ')}) RETURNING id`,
-        [now, now, ...p.values, 1, p.toolVersion, ...FIT_COLUMNS.map((c) => p.texts.fit[c])],
-      );
-      ids.push(Number(row!.id));
-    }
-    for (let start = 0; start < records.length; start += ROWS_PER_INSERT) {
-      const part = records.slice(start, start + ROWS_PER_INSERT);
-      const partIds = ids.slice(start, start + ROWS_PER_INSERT);
-      await tx.run(`INSERT INTO originals (analysis_id, bytes) VALUES ${part.map(() => '(?, ?)').join(', ')}`, part.flatMap((p, i) => [partIds[i], p.content]));
-      const revisionRow = `(?, 1, ?, ?, ?, ${FIT_COLUMNS.map(() => '?').join(', ')})`;
-      const revisions = await tx.all<{ id: number; analysis_id: number }>(
-        `INSERT INTO revisions (analysis_id, revision, created_at, tool_version, options, ${FIT_COLUMNS.join(', ')})
-         VALUES ${part.map(() => revisionRow).join(', ')} RETURNING id, analysis_id`,
-        part.flatMap((p, i) => [partIds[i], now, p.toolVersion, p.texts.options, ...FIT_COLUMNS.map((c) => p.texts.fit[c])]),
-      );
-      const revisionOf = new Map(revisions.map((r) => [Number(r.analysis_id), Number(r.id)]));
-      await tx.run(`INSERT INTO results (revision_id, result) VALUES ${part.map(() => '(?, ?)').join(', ')}`, part.flatMap((p, i) => [revisionOf.get(partIds[i]!), p.texts.result]));
-    }
-    return ids;
-  };
-
   const addMany = async (records: readonly NewAnalysis[]): Promise<(AnalysisRecord | FieldgapError)[]> => {
     if (!Array.isArray(records)) throw invalidArgument('records', 'expected a list of analysis records');
     const prepared = records.map((record): PreparedAdd | FieldgapError => {
       try {
-        return prepareAdd(record);
+        return prepareAdd(record, maxOriginalBytes, scope);
       } catch (error) {
         if (isFieldgapError(error)) return error;
         throw error;
@@ -287,6 +223,8 @@ export function libraryOver(engine: SqlEngine, options: Pick<LibraryOptions, 'ma
       return seriesColumnsFromRow(row);
     },
 
+    seriesRead: (ion, fn) => engine.read((tx) => fn(seriesQueriesOver(tx, sql, ion, inScope('a.')))),
+
     get,
 
     getMany: async (ids: readonly number[]) => {
@@ -379,23 +317,3 @@ interface FitRowColumns {
   beta: number | null;
   beta_sd: number | null;
 }
-
-/** A revision's options and result as the JSON text stored, and its fit numbers as columns. */
-interface RevisionTexts {
-  options: string;
-  result: string;
-  fit: FitColumns;
-}
-
-function revisionTexts(options: StoredOptions, result: StoredResult): RevisionTexts {
-  return { options: jsonText('options', options), result: jsonText('result', result), fit: fitParams(summarizeResult(result)) };
-}
-
-/** A checked new record: the analyses row's values after its two timestamps, the original, the revision. */
-interface PreparedAdd {
-  values: unknown[];
-  content: Buffer;
-  texts: RevisionTexts;
-  toolVersion: string;
-}
-

@@ -238,6 +238,23 @@ export const MIGRATIONS: readonly MigrationStep[] = [
     sqlite: `CREATE INDEX analyses_series ON analyses(ion, id, group_name, sample, formula, ligands, ten_dq, ten_dq_sd, beta, beta_sd);`,
     postgres: `CREATE INDEX analyses_series ON analyses (ion, id) INCLUDE (group_name, sample, formula, ligands, ten_dq, ten_dq_sd, beta, beta_sd);`,
   },
+  // 7: a series at the ligand level and a page of its rankings (series-queries.ts):
+  // the sums per kind (formula, ligands) read from one index in its GROUP BY
+  // order (no sort), and each ranking's page from an index in its ORDER BY
+  // order, so the first page costs a few entries. 1 - beta is the very
+  // expression the nephelauxetic page orders by.
+  {
+    sqlite: `
+      CREATE INDEX analyses_series_kinds ON analyses(ion, formula, ligands, ten_dq, ten_dq_sd, beta, beta_sd, group_name, sample, id);
+      CREATE INDEX analyses_by_ten_dq ON analyses(ion, ten_dq, id DESC);
+      CREATE INDEX analyses_by_one_minus_beta ON analyses(ion, (1 - beta), id DESC);
+    `,
+    postgres: `
+  CREATE INDEX analyses_series_kinds ON analyses (ion, formula, ligands) INCLUDE (ten_dq, ten_dq_sd, beta, beta_sd, group_name, sample, id);
+  CREATE INDEX analyses_by_ten_dq ON analyses (ion, ten_dq, id DESC);
+  CREATE INDEX analyses_by_one_minus_beta ON analyses (ion, (1 - beta), id DESC);
+  `,
+  },
 ];
 
 /** The schema version this fieldgap writes. */

@@ -16,7 +16,7 @@ export const SUMMARY_COLUMNS = `
   a.id, a.created_at, a.updated_at, a.sample, a.formula, a.ion, a.ligands, a.solvent,
   a.temperature, a.measured_on, a.note, a.original_name, a.original_sha256, a.original_size,
   a.revision, a.tool_version, a.ten_dq, a.ten_dq_sd, a.b, a.b_sd, a.c, a.beta, a.beta_sd,
-  a.spin_state, a.rms, a.status`;
+  a.spin_state, a.rms, a.status, a.owner, a.group_name`;
 
 export const SUMMARY_SELECT = `SELECT ${SUMMARY_COLUMNS} FROM analyses a`;
 
@@ -50,6 +50,8 @@ export interface SummaryRow extends FitColumns {
   original_size: number;
   revision: number;
   tool_version: string;
+  owner: string | null;
+  group_name: string | null;
 }
 
 export interface RevisionRow extends FitColumns {
@@ -78,6 +80,9 @@ export function summaryFromRow(row: SummaryRow): AnalysisSummary {
     revision: row.revision,
     toolVersion: row.tool_version,
     summary: fitFromColumns(row),
+    // Who added it, where users exist (absent in the single-user mode).
+    ...(row.owner !== null && { owner: row.owner }),
+    ...(row.group_name !== null && { group: row.group_name }),
   };
 }
 

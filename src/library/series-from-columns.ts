@@ -80,15 +80,17 @@ export function seriesFromColumns(
 }
 
 /** What a record's formula and ligands give a series: its ligands and label, or why it is left out. */
-interface Kind {
+export interface Kind {
   shares?: LigandShare[];
   ligand?: string;
   label: string;
+  /** The ligands with canonical keys (ligandShares), for the factor fit; empty for a kind left out. */
+  canonical: LigandShare[];
   skip?: string;
 }
 
 /** seriesAnalysisOf's ligand rule and validateSeriesAnalyses's ligand check, for one formula and ligands text; undefined when the check fails. */
-function makeKind(formula: string | null, ligandsText: string, readFormula: (formula: string | undefined) => LigandShare[] | undefined): Kind | undefined {
+export function makeKind(formula: string | null, ligandsText: string, readFormula: (formula: string | undefined) => LigandShare[] | undefined): Kind | undefined {
   const shares = readFormula(formula ?? undefined);
   let probe: SeriesAnalysis;
   if (shares) {
@@ -97,12 +99,13 @@ function makeKind(formula: string | null, ligandsText: string, readFormula: (for
     const list = JSON.parse(ligandsText) as unknown;
     if (!Array.isArray(list)) return undefined;
     if (list.length === 1) probe = { sample: 'x', tenDq: 1, ligand: list[0] as string };
-    else if (list.length === 0) return { label: '', skip: 'no ligand given (set its ligands or a formula fieldgap reads)' };
-    else return { label: '', skip: `several ligands (${list.join(', ')}) but no formula that gives their numbers` };
+    else if (list.length === 0) return { label: '', canonical: [], skip: 'no ligand given (set its ligands or a formula fieldgap reads)' };
+    else return { label: '', canonical: [], skip: `several ligands (${list.join(', ')}) but no formula that gives their numbers` };
   }
   try {
-    const label = ligandLabel(ligandShares(probe, 'analyses'));
-    return shares ? { shares, label } : { ligand: probe.ligand as string, label };
+    const canonical = ligandShares(probe, 'analyses');
+    const label = ligandLabel(canonical);
+    return shares ? { shares, label, canonical } : { ligand: probe.ligand as string, label, canonical };
   } catch (error) {
     if (isFieldgapError(error)) return undefined;
     throw error;

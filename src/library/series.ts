@@ -1,6 +1,7 @@
 import { parseFormula } from '../chemistry/formula.js';
 import { FieldgapError } from '../errors.js';
-import { type FactorFit, type LigandShare, type RankOptions, type Ranking, type SeriesAnalysis } from '../series/index.js';
+import { type FactorFit, type LigandFactor, type LigandShare, type RankOptions, type Ranking, type SeriesAnalysis } from '../series/index.js';
+import type { LigandSeries, LigandSummary } from './series-ligands.js';
 import { ligandLabels } from '../series/rank.js';
 import { validateSeriesAnalyses } from '../series/validate.js';
 import type { Library } from './library.js';
@@ -8,6 +9,9 @@ import type { AnalysisDetails, SeriesFit } from './types.js';
 import { seriesFromColumns } from './series-from-columns.js';
 import { seriesReportOfChecked } from './series-report.js';
 import { canonicalIon } from './validate.js';
+import { pageNumber } from './input-checks.js';
+import { pageOfSeries, SERIES_PAGE_SIZE, type SeriesPage } from './series-page.js';
+import { pagedLibrarySeries } from './series-paged.js';
 
 /** What one stored (or freshly made) analysis contributes to a series. */
 export interface SeriesSource extends Pick<AnalysisDetails, 'sample' | 'formula' | 'ligands' | 'ion'> {
@@ -35,10 +39,21 @@ export interface SeriesReport {
   spectrochemical: Ranking;
   nephelauxetic: Ranking;
   /** null when the factors cannot be fitted for this ion (the reason is in `notes`). */
-  factors: FactorFit | null;
+  factors: SeriesFactorFit | null;
   /** Analyses left out before ranking (no fit, ligands unknown), with why. */
   skipped: SeriesSkip[];
   notes: string[];
+  /** One row per ligand: analyses, mean 10Dq and β with σ, places in the two series, f and h. Always complete. */
+  ligands: LigandSummary[];
+  /** The two series of ligands, one line each. */
+  ligandSeries: LigandSeries;
+  /** Which part of the per-analysis lists this report holds (series-page.ts). */
+  page: SeriesPage;
+}
+
+/** The factor fit with how many analyses gave each f and h (fFrom and hFrom may be a page of them). */
+export interface SeriesFactorFit extends Omit<FactorFit, 'factors'> {
+  factors: (LigandFactor & { fCount: number; hCount?: number })[];
 }
 
 /**
@@ -112,15 +127,37 @@ export function buildSeries(ionText: string, sources: readonly SeriesSource[], o
   return seriesReportOfChecked(ion, analyses, ligandLabels(analyses), shared, skipped, options);
 }
 
+/** How much of a library series to give: a page of its per-analysis lists (default the first SERIES_PAGE_SIZE), or `all`. */
+export interface LibrarySeriesOptions extends RankOptions {
+  /** Every analysis in every list, as the report always was. Default false. */
+  all?: boolean;
+  /** Items per list, 1 to 100 000. Default 50. */
+  limit?: number;
+  /** Items skipped at the start of each list. Default 0. */
+  offset?: number;
+}
+
 /**
- * The series of every analysis of `ion` in the library: the records read as
- * columns (library.seriesColumns) and ranked by seriesFromColumns, which gives
- * buildSeries's report without an object per record on the way; when it
- * cannot (a value buildSeries refuses, so its error names the analysis),
- * buildSeries itself over the records read one by one.
+ * The series of every analysis of `ion` in the library. By default a page of
+ * the per-analysis lists with every ligand-level figure complete, from the
+ * database's aggregates (pagedLibrarySeries): tens of milliseconds at
+ * 100 000 records. With `all`, the whole report: the records read as columns
+ * (library.seriesColumns) and ranked by seriesFromColumns, which gives
+ * buildSeries's report without an object per record on the way. Where a
+ * fast path cannot stand for the records (a value buildSeries refuses, so
+ * its error names the analysis), buildSeries itself over the records read
+ * one by one, cut to the page asked for.
  */
-export async function librarySeries(library: Library, ion: string, options: RankOptions = {}): Promise<SeriesReport> {
+export async function librarySeries(library: Library, ion: string, options: LibrarySeriesOptions = {}): Promise<SeriesReport> {
   const label = canonicalIon(ion);
+  const { all = false, limit, offset, ...rank } = options;
+  if (all) return wholeLibrarySeries(library, label, rank);
+  const size = pageNumber('limit', limit, SERIES_PAGE_SIZE, 1, 100_000);
+  const from = pageNumber('offset', offset, 0, 0, Number.MAX_SAFE_INTEGER);
+  return (await pagedLibrarySeries(library, label, rank, from, size)) ?? pageOfSeries(await wholeLibrarySeries(library, label, rank), from, size);
+}
+
+async function wholeLibrarySeries(library: Library, label: string, options: RankOptions): Promise<SeriesReport> {
   const columns = await library.seriesColumns(label);
   const fast = columns === undefined ? undefined : seriesFromColumns(label, columns, formulaReader(), options);
   return fast ?? buildSeries(label, await librarySources(library, label), options);

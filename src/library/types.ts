@@ -105,6 +105,9 @@ export interface AnalysisSummary extends AnalysisDetails {
   revision: number;
   toolVersion: string;
   summary: FitSummary;
+  /** The user who added the record and their group, where users exist; absent for a record of the single-user mode. */
+  owner?: string;
+  group?: string;
 }
 
 /** The fit numbers a ligand series reads (src/library/series.ts), cm-1 and β as in FitSummary. */

@@ -2,7 +2,7 @@ import { invalidArgument } from '../errors.js';
 import { jorgensenF, jorgensenG, jorgensenH, jorgensenK, JORGENSEN_SOURCE } from '../chemistry/jorgensen.js';
 import { ligandByKey } from '../chemistry/ligands.js';
 import { parseIon, type Ion } from '../chemistry/ions.js';
-import type { SeriesAnalysis } from './types.js';
+import type { LigandShare, SeriesAnalysis } from './types.js';
 import { ligandShares, validateSeriesAnalyses } from './validate.js';
 
 export interface FitFactorsOptions {
@@ -61,13 +61,7 @@ export function fitLigandFactors(analyses: readonly SeriesAnalysis[], options: F
 
 /** fitLigandFactors of analyses that validateSeriesAnalyses has passed, `shared` being the ion it returned. */
 export function fitCheckedLigandFactors(analyses: readonly SeriesAnalysis[], shared: Ion | undefined, options: FitFactorsOptions = {}): FactorFit {
-  const ion = metalIon(shared, options.ion);
-  const g = options.g ?? jorgensenG(ion);
-  if (g === undefined || !(g > 0)) throw invalidArgument('g', `no tabulated g for ${ion.label} in Jørgensen's table: give g (cm-1) yourself`);
-  const k = options.k ?? jorgensenK(ion);
-  const known = options.known ?? {};
-  const knownF = (key: string) => known[key]?.f ?? jorgensenF(key);
-  const knownH = (key: string) => known[key]?.h ?? jorgensenH(key);
+  const { ion, g, k, knownF, knownH } = factorConstants(shared, options);
   const fSamples = new Map<string, Sample[]>();
   const hSamples = new Map<string, Sample[]>();
   const notes: string[] = [];
@@ -78,25 +72,7 @@ export function fitCheckedLigandFactors(analyses: readonly SeriesAnalysis[], sha
     const key = a.ligand !== undefined ? `1${a.ligand}` : `*${(a.ligands ?? []).map((l) => `${l.ligand}\u0000${l.count}`).join('\u0001')}`;
     let plan = plans.get(key);
     if (plan === undefined) {
-      const shares = ligandShares(a, at).map((s) => ({ ...s, positions: s.count * (ligandByKey(s.ligand)?.denticity ?? 1) }));
-      const positions = shares.reduce((n, s) => n + s.positions, 0);
-      const fUnknown = shares.length === 1 ? shares : shares.filter((s) => knownF(s.ligand) === undefined);
-      let f: CompositionPlan['f'];
-      if (fUnknown.length !== 1) {
-        f = fUnknown.length === 0 ? 'every ligand already has an f' : 'more than one ligand without an f';
-      } else {
-        const x = fUnknown[0] as (typeof shares)[number];
-        const rest = shares.filter((s) => s !== x).reduce((sum, s) => sum + s.positions * (knownF(s.ligand) as number), 0);
-        f = { ligand: x.ligand, scale: positions / (g * x.positions), restPerPosition: rest / x.positions };
-      }
-      let h: CompositionPlan['h'];
-      const hUnknown = shares.length === 1 ? shares : shares.filter((s) => knownH(s.ligand) === undefined);
-      if (k !== undefined && hUnknown.length === 1) {
-        const x = hUnknown[0] as (typeof shares)[number];
-        const rest = shares.filter((s) => s !== x).reduce((sum, s) => sum + s.positions * (knownH(s.ligand) as number), 0);
-        h = { ligand: x.ligand, scale: positions / (k * x.positions), restPerPosition: rest / x.positions };
-      }
-      plan = { f, h };
+      plan = compositionPlan(ligandShares(a, at), g, k, knownF, knownH);
       plans.set(key, plan);
     }
     return plan;
@@ -111,7 +87,7 @@ export function fitCheckedLigandFactors(analyses: readonly SeriesAnalysis[], sha
     if (a.beta === undefined || h === undefined) return;
     push(hSamples, h.ligand, { value: (1 - a.beta) * h.scale - h.restPerPosition, sigma: a.betaUncertainty === undefined ? undefined : a.betaUncertainty * h.scale, index });
   });
-  if (k === undefined) notes.push(`no tabulated k for ${ion.label}: h is not fitted (give k yourself)`);
+  if (k === undefined) notes.push(noTabulatedKNote(ion));
   const factors: LigandFactor[] = [...fSamples].map(([ligand, samples]) => {
     const mean = combine(samples);
     const factor: LigandFactor = { ligand, f: mean.value, fUncertainty: mean.sigma, fFrom: samples.map((s) => s.index) };
@@ -132,8 +108,57 @@ export function fitCheckedLigandFactors(analyses: readonly SeriesAnalysis[], sha
   return { ion: ion.label, g, k, source, factors, notes };
 }
 
+/** The note of a fit without k. */
+export function noTabulatedKNote(ion: Ion): string {
+  return `no tabulated k for ${ion.label}: h is not fitted (give k yourself)`;
+}
+
+/** The metal's g and k and the factors taken as known, for a fit of `shared` (the analyses' ion) with these options; throws when g is not known. */
+export function factorConstants(shared: Ion | undefined, options: FitFactorsOptions = {}): {
+  ion: Ion; g: number; k: number | undefined; knownF: (key: string) => number | undefined; knownH: (key: string) => number | undefined;
+} {
+  const ion = metalIon(shared, options.ion);
+  const g = options.g ?? jorgensenG(ion);
+  if (g === undefined || !(g > 0)) throw invalidArgument('g', `no tabulated g for ${ion.label} in Jørgensen's table: give g (cm-1) yourself`);
+  const k = options.k ?? jorgensenK(ion);
+  const known = options.known ?? {};
+  return { ion, g, k, knownF: (key) => known[key]?.f ?? jorgensenF(key), knownH: (key) => known[key]?.h ?? jorgensenH(key) };
+}
+
+/**
+ * What a complex of these ligands (canonical keys, as ligandShares gives
+ * them) contributes to the factor fit: the one ligand whose f (and h) it
+ * measures, with scale = N / (g·n_x) and Σ n_j f_j / n_x of the others, so
+ * f_x = 10Dq·scale − restPerPosition; or why it gives none. `knownF`/`knownH`
+ * give the factors taken as known (the user's, else Jørgensen's table).
+ */
+export function compositionPlan(
+  ligandShareList: readonly LigandShare[], g: number, k: number | undefined,
+  knownF: (key: string) => number | undefined, knownH: (key: string) => number | undefined,
+): CompositionPlan {
+  const shares = ligandShareList.map((s) => ({ ...s, positions: s.count * (ligandByKey(s.ligand)?.denticity ?? 1) }));
+  const positions = shares.reduce((n, s) => n + s.positions, 0);
+  const fUnknown = shares.length === 1 ? shares : shares.filter((s) => knownF(s.ligand) === undefined);
+  let f: CompositionPlan['f'];
+  if (fUnknown.length !== 1) {
+    f = fUnknown.length === 0 ? 'every ligand already has an f' : 'more than one ligand without an f';
+  } else {
+    const x = fUnknown[0] as (typeof shares)[number];
+    const rest = shares.filter((s) => s !== x).reduce((sum, s) => sum + s.positions * (knownF(s.ligand) as number), 0);
+    f = { ligand: x.ligand, scale: positions / (g * x.positions), restPerPosition: rest / x.positions };
+  }
+  let h: CompositionPlan['h'];
+  const hUnknown = shares.length === 1 ? shares : shares.filter((s) => knownH(s.ligand) === undefined);
+  if (k !== undefined && hUnknown.length === 1) {
+    const x = hUnknown[0] as (typeof shares)[number];
+    const rest = shares.filter((s) => s !== x).reduce((sum, s) => sum + s.positions * (knownH(s.ligand) as number), 0);
+    h = { ligand: x.ligand, scale: positions / (k * x.positions), restPerPosition: rest / x.positions };
+  }
+  return { f, h };
+}
+
 /** What one set of ligands gives: the ligand whose factor it measures, scale = N / (g·n_x), and Σ n_j f_j / n_x of the others; or why it gives none. */
-interface CompositionPlan {
+export interface CompositionPlan {
   f: { ligand: string; scale: number; restPerPosition: number } | string;
   /** Undefined when k is unknown or the set has no single ligand without an h. */
   h: { ligand: string; scale: number; restPerPosition: number } | undefined;

@@ -36,6 +36,21 @@ afterEach(async () => {
     expect(res.body.factors.factors.map((f: { ligand: string }) => f.ligand).sort()).toEqual(['H2O', 'en']);
   });
 
+  it('pages the per-analysis lists (limit, offset, total) and gives every analysis with all=true', async () => {
+    // hand-built records; the numbers are made up for the test
+    for (let i = 0; i < 5; i++) await library.add(handBuiltRecord({ sample: `aqua ${i}`, formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_000 + 100 * i));
+    const page = (await request(app).get('/api/v1/series').query({ ion: 'Cr3+', limit: '2', offset: '1' }).expect(200)).body;
+    expect(page.spectrochemical.entries.map((e: { position: number }) => e.position)).toEqual([2, 3]);
+    expect(page.page).toMatchObject({ all: false, offset: 1, limit: 2, total: 5 });
+    expect(page.ligands).toMatchObject([{ ligand: 'H2O', count: 5, spectrochemicalPosition: 1 }]);
+    expect(page.factors.factors[0]).toMatchObject({ ligand: 'H2O', fCount: 5, fFrom: [1, 2] });
+    const all = (await request(app).get('/api/v1/series').query({ ion: 'Cr3+', all: 'true' }).expect(200)).body;
+    expect(all.spectrochemical.entries).toHaveLength(5);
+    expect(all.page).toMatchObject({ all: true, limit: null });
+    expect((await request(app).get('/api/v1/series').query({ ion: 'Cr3+', limit: '0' }).expect(400)).body.error.path).toBe('limit');
+    expect((await request(app).get('/api/v1/series').query({ ion: 'Cr3+', offset: 'x' }).expect(400)).body.error.path).toBe('offset');
+  });
+
   it('answers 404 when the library has none, 400 for a bad or missing ion', async () => {
     const none = await request(app).get('/api/v1/series?ion=Cr3%2B').expect(404);
     expect(none.body.error).toMatchObject({ code: 'not-found', path: 'ion' });

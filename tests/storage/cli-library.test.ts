@@ -24,6 +24,23 @@ async function seed(): Promise<void> {
 }
 
 describe('fieldgap library', () => {
+  it('lists each record\'s owner and group where users exist, in text and JSON', async () => {
+    // hand-built records; the numbers are made up for the test
+    const library = await fresh.where.open();
+    await library.add(handBuiltRecord({ sample: 'single-user record' }));
+    const before = await cli('list');
+    expect(before.out).not.toContain('OWNER');
+    await library.scoped({ user: 'ann', group: 'inorganic', admin: false }).add(handBuiltRecord({ sample: 'ann record' }));
+    await library.close();
+    const { code, out } = await cli('list');
+    expect(code).toBe(0);
+    expect(out.split('\n')[0]).toMatch(/ SAVED +OWNER +GROUP$/);
+    expect(out).toMatch(/ann record .* ann +inorganic\n/);
+    expect(out).toMatch(/single-user record .* - +-\n/);
+    const json = JSON.parse((await cli('list', '--json')).out) as { analyses: { sample: string; owner?: string; group?: string }[] };
+    expect(json.analyses.map((a) => [a.sample, a.owner, a.group])).toEqual([['ann record', 'ann', 'inorganic'], ['single-user record', undefined, undefined]]);
+  });
+
   it('is registered and explains itself', async () => {
     const { code, out } = await cli('--help');
     expect(code).toBe(0);

@@ -30,6 +30,33 @@ forEachEngine('fieldgap series --library', (engine) => {
     expect(json.count).toBe(3);
   });
 
+  it('shows a page of each list with a line saying so, the ligand table whole, and every analysis with --all', async () => {
+    // hand-built records; the numbers are made up for the test
+    const library = await fresh.where.open();
+    for (let i = 0; i < 7; i++) {
+      await library.add(handBuiltRecord({ sample: `aqua ${i}`, formula: '[Cr(H2O)6]3+', ligands: ['H2O'] }, 17_000 + 100 * i));
+      await library.add(handBuiltRecord({ sample: `en ${i}`, formula: '[Cr(en)3]Cl3', ligands: ['en'] }, 21_000 + 100 * i));
+    }
+    await library.close();
+    const paged = await cli('--ion', 'Cr3+', '--limit', '3', '--offset', '2', ...fresh.where.flags);
+    expect(paged.code).toBe(0);
+    expect(paged.out).toContain('(showing 3–5 of 14 in the ranking; --all for every analysis, --offset N for the next)');
+    expect(paged.out).toMatch(/\n +3 +H2O +aqua 2 /);
+    expect(paged.out).not.toMatch(/\n +6 +H2O /);
+    expect(paged.out).toMatch(/Ligands \(mean of their analyses, weakest field first; 14 analyses\)\n.*\n +1 +H2O +7 +17300 ± \d+/);
+    expect(paged.out).toContain('  H2O < en');
+    expect(paged.out).toMatch(/ H2O +[\d.]+ ± [\d.]+ .* 7 analyses/);
+    const whole = await cli('--ion', 'Cr3+', '--all', ...fresh.where.flags);
+    expect(whole.out).not.toContain('showing');
+    expect(whole.out).toMatch(/\n +14 +en +en 6 /);
+    const json = JSON.parse((await cli('--ion', 'Cr3+', '--limit', '4', '--json', ...fresh.where.flags)).out) as { spectrochemical: { entries: unknown[] }; page: object; ligands: { ligand: string; count: number }[] };
+    expect(json.spectrochemical.entries).toHaveLength(4);
+    expect(json.page).toMatchObject({ all: false, offset: 0, limit: 4, total: 14, skippedTotal: 0 });
+    expect(json.ligands.map((l) => [l.ligand, l.count])).toEqual([['H2O', 7], ['en', 7]]);
+    expect((await cli('--ion', 'Cr3+', '--limit', '0', ...fresh.where.flags)).err).toMatch(/^fieldgap series: .*limit/);
+    expect((await cli('--ion', 'Cr3+', '--all', '--offset', '2', ...fresh.where.flags)).err).toBe('fieldgap series: --all: give --all or --limit/--offset, not both\n');
+  });
+
   it('fails in one line without --ion or without analyses', async () => {
     expect((await cli()).err).toBe('fieldgap series: --ion is required: the metal ion of the series, e.g. --ion Cr3+\n');
     const none = await cli('--ion', 'V3+', ...fresh.where.flags);

@@ -55,14 +55,17 @@ export function table(rows: string[][], rightAligned: ReadonlySet<number> = new 
   return `${textTableLines(rows, { align }).join('\n')}\n`;
 }
 
+/** The list's table; OWNER and GROUP columns where users exist (a record on the page has an owner). */
 export function summaryTable(analyses: AnalysisSummary[]): string {
-  const rows = [['ID', 'SAMPLE', 'FORMULA', 'ION', '10Dq/cm-1', 'B/cm-1', 'β', 'SPIN', 'RMS/cm-1', 'SAVED']];
+  const users = analyses.some((a) => a.owner !== undefined || a.group !== undefined);
+  const rows = [['ID', 'SAMPLE', 'FORMULA', 'ION', '10Dq/cm-1', 'B/cm-1', 'β', 'SPIN', 'RMS/cm-1', 'SAVED', ...(users ? ['OWNER', 'GROUP'] : [])]];
   for (const a of analyses) {
     const s = a.summary;
     rows.push([
       String(a.id), clip(a.sample, 28), clip(a.formula ?? '', 22), terminalSafe(a.ion ?? ''),
       plusMinus(s.tenDq, s.tenDqSd), plusMinus(s.b, s.bSd), plusMinus(s.beta, s.betaSd, 2), s.spinState ?? '',
       s.rmsResidual === null ? '-' : s.rmsResidual.toFixed(0), a.createdAt.slice(0, 10),
+      ...(users ? [clip(a.owner ?? '-', 16), clip(a.group ?? '-', 16)] : []),
     ]);
   }
   return table(rows, new Set([0, 4, 5, 6, 8]));

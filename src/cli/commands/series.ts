@@ -4,9 +4,10 @@ import { invalidArgument, isFieldgapError } from '../../errors.js';
 import type { Ranking } from '../../series/index.js';
 import type { Command, CliIo } from '../command.js';
 import { expandInputPaths, readInputFile } from '../files.js';
-import { parseCommandArgs } from '../options.js';
+import { numberOption, parseCommandArgs } from '../options.js';
 import { checkCliOption, criterionField } from '../../analysis-option-schema.js';
 import type { SeriesReport, SeriesSource } from '../../library/series.js';
+import { pageLine, SERIES_PAGE_SIZE } from '../../library/series-page.js';
 import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analysis-options.js';
 import { plusMinus, table, withLibrary } from './library.js';
 
@@ -37,6 +38,10 @@ Jørgensen's f and h per ligand.
                       without it, taken from the file name ("cr-NH3.csv" → NH3)
                       or the column header ("Cr-en" → en)
   --criterion C       one-sigma (default: |Δ| < sqrt(σ1² + σ2²)) or two-sigma
+  --limit N           analyses shown per list (rankings, skipped, notes; default 50);
+                      the ligand table and the factors always cover every analysis
+  --offset N          skip the first N analyses of each list (default 0)
+  --all               every analysis in every list (the whole report)
   --data DIR          library folder (default $FIELDGAP_DATA, else ./fieldgap-data)
   --database URL      a PostgreSQL library (default $FIELDGAP_DATABASE_URL)
   --json              print the whole report as JSON
@@ -57,6 +62,9 @@ export const seriesCommand: Command = {
         library: { type: 'boolean' },
         ligand: { type: 'string', multiple: true },
         criterion: { type: 'string' },
+        limit: { type: 'string' },
+        offset: { type: 'string' },
+        all: { type: 'boolean' },
         data: { type: 'string' },
         database: { type: 'string' },
         json: { type: 'boolean' },
@@ -67,15 +75,21 @@ export const seriesCommand: Command = {
     if (values.library && positionals.length > 0) throw invalidArgument('--library', 'give --library or FILES, not both');
     // The REST field's check (src/analysis-option-schema.ts); typed in any case, as the other choices are.
     const criterion = values.criterion === undefined ? 'one-sigma' : checkCliOption(criterionField, values.criterion.trim().toLowerCase(), 'criterion');
-    const { buildSeries, librarySeries } = await import('../../library/series.js');
+    const all = values.all === true;
+    if (all && (values.limit !== undefined || values.offset !== undefined)) throw invalidArgument('--all', 'give --all or --limit/--offset, not both');
+    const limit = numberOption('limit', values.limit, { min: 1, max: 100_000, integer: true }) ?? SERIES_PAGE_SIZE;
+    const offset = numberOption('offset', values.offset, { min: 0, integer: true }) ?? 0;
+    const [{ buildSeries, librarySeries }, { pageOfSeries }] = await Promise.all([import('../../library/series.js'), import('../../library/series-page.js')]);
     let report: SeriesReport;
     if (positionals.length === 0) {
       if (values.ligand) throw invalidArgument('--ligand', '--ligand names the ligand of each of FILES; with --library the records carry their own');
-      report = await withLibrary({ data: values.data, database: values.database }, io, (library) => librarySeries(library, values.ion!, { criterion }));
+      report = await withLibrary({ data: values.data, database: values.database }, io, (library) => librarySeries(library, values.ion!, all ? { criterion, all } : { criterion, limit, offset }));
     } else {
       const { sources, failed } = await analyseFiles(positionals, values.ligand ?? [], analysisOptionsFrom(values), io);
-      report = buildSeries(values.ion, sources, { criterion });
-      report.skipped.push(...failed);
+      const whole = buildSeries(values.ion, sources, { criterion });
+      whole.skipped.push(...failed);
+      whole.page.skippedTotal = whole.skipped.length;
+      report = all ? whole : pageOfSeries(whole, offset, limit);
     }
     io.stdout(values.json ? `${JSON.stringify(report, null, 2)}\n` : reportText(report));
     return 0;
@@ -146,11 +160,23 @@ export function ligandFromFileName(file: string): string {
 }
 
 function reportText(report: SeriesReport): string {
+  const { page } = report;
   const out = [`${report.ion}: ${report.count} ${report.count === 1 ? 'analysis' : 'analyses'}`, ''];
-  out.push('Spectrochemical series (by 10Dq, weakest field first)', rankingTable(report.spectrochemical, '10Dq/cm-1', (v, s) => plusMinus(v, s)), `  ${report.spectrochemical.series}`, '');
-  if (report.nephelauxetic.entries.length > 0) {
-    out.push('Nephelauxetic series (by 1 - β, least nephelauxetic first)', rankingTable(report.nephelauxetic, 'β', (v, s) => plusMinus(1 - v, s, 2)), `  ${report.nephelauxetic.series}`, '');
+  const shownOf = (shown: number, total: number, what: string) => {
+    const line = pageLine(page, shown, total, what);
+    return line === undefined ? [] : [`  (${line})`];
+  };
+  out.push(
+    'Spectrochemical series (by 10Dq, weakest field first)', rankingTable(report.spectrochemical, '10Dq/cm-1', (v, s) => plusMinus(v, s)), `  ${report.spectrochemical.series}`,
+    ...shownOf(report.spectrochemical.entries.length, page.total, 'in the ranking'), '',
+  );
+  if (page.nephelauxeticTotal > 0) {
+    out.push(
+      'Nephelauxetic series (by 1 - β, least nephelauxetic first)', rankingTable(report.nephelauxetic, 'β', (v, s) => plusMinus(1 - v, s, 2)), `  ${report.nephelauxetic.series}`,
+      ...shownOf(report.nephelauxetic.entries.length, page.nephelauxeticTotal, 'in the ranking'), '',
+    );
   }
+  out.push(ligandText(report), '');
   const f = report.factors;
   if (f && f.factors.length > 0) {
     out.push(`Jørgensen factors for ${f.ion} (f = 10Dq/g, g = ${f.g} cm-1${f.k === undefined ? '' : `; h = (1 - β)/k, k = ${f.k}`}; ${f.source})`);
@@ -159,14 +185,29 @@ function reportText(report: SeriesReport): string {
       rows.push([
         `  ${x.ligand}`, plusMinus(x.f, x.fUncertainty ?? null, 2), x.tabulatedF?.toFixed(2) ?? '-',
         x.h === undefined ? '-' : plusMinus(x.h, x.hUncertainty ?? null, 2), x.tabulatedH?.toFixed(2) ?? '-',
-        `${x.fFrom.length} ${x.fFrom.length === 1 ? 'analysis' : 'analyses'}`,
+        `${x.fCount} ${x.fCount === 1 ? 'analysis' : 'analyses'}`,
       ]);
     }
     out.push(table(rows, new Set([1, 2, 3, 4])).trimEnd(), '');
   }
   for (const s of report.skipped) out.push(`skipped ${s.id} (${s.sample}): ${s.reason}`);
+  out.push(...shownOf(report.skipped.length, page.skippedTotal, 'left out'));
   for (const n of report.notes) out.push(`note: ${n}`);
   return `${out.join('\n').trimEnd()}\n`;
+}
+
+/** The ligands with their means, places and factors: what the series says at any size. */
+function ligandText(report: SeriesReport): string {
+  const rows = [['  #', 'LIGAND', 'N', '10Dq/cm-1', 'β', 'f', 'h']];
+  for (const l of report.ligands) {
+    rows.push([
+      `  ${l.spectrochemicalPosition}`, l.ligand, String(l.count), plusMinus(l.tenDq, l.tenDqUncertainty),
+      l.beta === null ? '-' : plusMinus(l.beta, l.betaUncertainty, 2), l.f === null ? '-' : plusMinus(l.f, l.fUncertainty, 2), l.h === null ? '-' : plusMinus(l.h, l.hUncertainty, 2),
+    ]);
+  }
+  const lines = [`Ligands (mean of their analyses, weakest field first; ${report.count} ${report.count === 1 ? 'analysis' : 'analyses'})`, table(rows, new Set([0, 2, 3, 4, 5, 6])).trimEnd(), `  ${report.ligandSeries.spectrochemical}`];
+  if (report.ligandSeries.nephelauxetic !== '') lines.push(`  by 1 - β: ${report.ligandSeries.nephelauxetic}`);
+  return lines.join('\n');
 }
 
 function rankingTable(ranking: Ranking, heading: string, show: (value: number, sd: number) => string): string {
