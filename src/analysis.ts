@@ -6,6 +6,7 @@
  */
 import { checkCorrections, fitWithAlternative, type AnalysisCorrections } from './analysis-corrections.js';
 import { parseFormula } from './chemistry/formula.js';
+import { NoLigandFieldFit } from './analysis-no-fit.js';
 import { FieldgapError, invalidArgument } from './errors.js';
 import { bandToFitInput } from './band-fit-input.js';
 import { fitLigandField, type BandInput, type FitResult } from './fit/index.js';
@@ -14,6 +15,7 @@ import { gaussianValue } from './spectrum/gaussian.js';
 import { bandsOnEdge } from './spectrum/bands-on-edge.js';
 import { parseSpectrumText, processSpectrum } from './spectrum/index.js';
 import { parseIon } from './chemistry/ions.js';
+import { bandAssignedKinds, type AssignedKind } from './report/band-assigned-kind.js';
 import type { Band, MaskedRegion, ParsedFile, Spectrum, StepCorrection, XUnit, YUnit } from './spectrum/types.js';
 
 export interface AnalyzeOptions {
@@ -88,7 +90,14 @@ export interface AnalyzeResult {
     /** Every spectrum of a file that holds more than one (its y columns), so a caller can offer the others. */
     columns?: Array<{ column: number; name: string }>;
   };
-  bands: Band[];
+  /**
+   * The found bands. `kind` is the spectrum stage's class by intensity and
+   * width alone; `assignedKind` what the fit's assignment makes of the band
+   * (src/report/band-assigned-kind.ts), null when the fit left it unassigned
+   * or the fit used a corrected band list. A record from an older fieldgap
+   * lacks it.
+   */
+  bands: Array<Band & { assignedKind?: AssignedKind | null }>;
   fit: FitResult;
   warnings: string[];
   curves?: AnalyzeCurves;
@@ -132,12 +141,27 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
   const where = `${options.fileName ?? '<input>'}${format === 'delimited' && spectrum.column > 1 ? `#${spectrum.column}` : ''}`;
   const corrections = options.corrections === undefined ? undefined : checkCorrections(options.corrections);
   const dd = processed.bands.filter((b) => b.kind !== 'charge-transfer');
+  const spectrumPart: AnalyzeResult['spectrum'] = {
+    points: processed.points,
+    range: processed.range,
+    xUnit: processed.xUnit,
+    yUnit: processed.yUnit,
+    masked: processed.masked,
+    name: spectrum.name,
+    column: spectrum.column,
+    format,
+    signalUnit: processed.signalUnit,
+    noise: processed.noise,
+    quantization: processed.quantization,
+    stepCorrections: processed.stepCorrections,
+  };
   if (dd.length === 0 && corrections?.bands === undefined) {
     const found = processed.bands.length === 0 ? 'no bands were found' : `only charge-transfer bands were found (${positions(processed.bands)} cm-1)`;
-    if (d === 0 || d === 10) {
-      throw new FieldgapError('unexplained', `no ligand-field fit: a d${d} ion has no d–d transitions; ${found.replace('only ', '')} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`, where);
-    }
-    throw new FieldgapError('unexplained', `no d–d bands to fit: ${found} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`, where);
+    const message = d === 0 || d === 10
+      ? `no ligand-field fit: a d${d} ion has no d–d transitions; ${found.replace('only ', '')} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`
+      : `no d–d bands to fit: ${found} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`;
+    // The bands were found and classified: the error carries them, so the CLI can print the table beside the note.
+    throw new NoLigandFieldFit(message, where, { spectrum: spectrumPart, bands: processed.bands, warnings });
   }
   const fitOf = (bands: BandInput[]): FitResult => fitLigandField({
     ...(options.ion !== undefined && { ion: options.ion }),
@@ -168,21 +192,8 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
   }
   if (corrections?.alternative !== undefined) fit = fitWithAlternative(fit, corrections.alternative);
   const result: AnalyzeResult = {
-    spectrum: {
-      points: processed.points,
-      range: processed.range,
-      xUnit: processed.xUnit,
-      yUnit: processed.yUnit,
-      masked: processed.masked,
-      name: spectrum.name,
-      column: spectrum.column,
-      format,
-      signalUnit: processed.signalUnit,
-      noise: processed.noise,
-      quantization: processed.quantization,
-      stepCorrections: processed.stepCorrections,
-    },
-    bands: processed.bands,
+    spectrum: spectrumPart,
+    bands: withAssignedKinds(processed.bands, corrections?.bands === undefined ? fit : null),
     fit,
     warnings: [...warnings, ...fit.warnings.map((w) => `fit: ${w}`)],
     ...(corrections !== undefined && { corrections }),
@@ -239,6 +250,12 @@ function fitOrNull(fit: () => FitResult): FitResult | null {
     if (error instanceof FieldgapError && error.code === 'unexplained') return null;
     throw error;
   }
+}
+
+/** Each band with the kind its assignment gives (null without one; null throughout when `fit` is null: a corrected band list, whose indices are not these bands'). */
+function withAssignedKinds(bands: Band[], fit: FitResult | null): Array<Band & { assignedKind: AssignedKind | null }> {
+  const kinds = bandAssignedKinds(bands, fit);
+  return bands.map((b, i) => ({ ...b, assignedKind: kinds[i] ?? null }));
 }
 
 function positions(bands: readonly Band[]): string {
