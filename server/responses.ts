@@ -24,6 +24,8 @@ export const errorResponse = z
       code: z.enum(ERROR_CODES),
       message: z.string(),
       path: z.string().meta({ description: 'The field, option or file position the error is about; "" when none.' }),
+      problems: z.array(z.strictObject({ path: z.string(), message: z.string() })).optional()
+        .meta({ description: 'When a request has several bad fields: each of them (the message lists them all too); `path` is the first one\'s.' }),
     }),
   })
   .meta({ description: 'Every error answer.' });

@@ -7,6 +7,7 @@
 import { checkCorrections, fitWithAlternative, type AnalysisCorrections } from './analysis-corrections.js';
 import { parseFormula } from './chemistry/formula.js';
 import { NoLigandFieldFit } from './analysis-no-fit.js';
+import { assignedKindWarnings, bandsTooStrongForFit, spinForbiddenEpsilonCeiling } from './analysis-kind-checks.js';
 import { FieldgapError, invalidArgument } from './errors.js';
 import { bandToFitInput } from './band-fit-input.js';
 import { fitLigandField, type BandInput, type FitResult } from './fit/index.js';
@@ -191,9 +192,24 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
     } else throw error;
   }
   if (corrections?.alternative !== undefined) fit = fitWithAlternative(fit, corrections.alternative);
+  if (corrections === undefined) {
+    // High-spin d5 has only spin-forbidden d–d bands: one whose ε is far above them is not d–d (analysis-kind-checks.ts); it is left out, as charge transfer, and the fit made again.
+    const tooStrong = bandsTooStrongForFit(processed.bands, bandAssignedKinds(processed.bands, fit), fit);
+    if (tooStrong.length > 0) {
+      const which = `${tooStrong.map((k) => `${Math.round(processed.bands[k]!.position)} cm-1 (ε = ${processed.bands[k]!.epsilon!.toPrecision(3)})`).join(', ')}`;
+      const why = `far above any d–d band of high-spin d5 (spin-forbidden, ε < ~${spinForbiddenEpsilonCeiling(geometry, fit.ion)} L mol-1 cm-1 ${geometry}): not d–d (charge transfer? another ion?); check the ion or the concentration`;
+      const left = processed.bands.map((b, k) => bandToFitInput(tooStrong.includes(k) ? { ...b, kind: 'charge-transfer' } : b));
+      const refit = left.some((b) => !b.flags?.includes('charge-transfer')) ? fitOrNull(() => fitOf(left)) : null;
+      if (refit === null) throw new NoLigandFieldFit(`no ligand-field fit: the band${tooStrong.length > 1 ? 's' : ''} at ${which} ${tooStrong.length > 1 ? 'are' : 'is'} ${why}, and no assignment explains the other bands without ${tooStrong.length > 1 ? 'them' : 'it'}`, where, { spectrum: spectrumPart, bands: processed.bands, warnings });
+      fit = refit;
+      warnings.push(`the band${tooStrong.length > 1 ? 's' : ''} at ${which}, ${why}: left out of the fit`);
+    }
+  }
+  const assignedKinds = bandAssignedKinds(processed.bands, corrections?.bands === undefined ? fit : null);
+  if (corrections?.bands === undefined) warnings.push(...assignedKindWarnings(processed.bands, assignedKinds, fit, options.pathLength ?? 1));
   const result: AnalyzeResult = {
     spectrum: spectrumPart,
-    bands: withAssignedKinds(processed.bands, corrections?.bands === undefined ? fit : null),
+    bands: processed.bands.map((b, i) => ({ ...b, assignedKind: assignedKinds[i] ?? null })),
     fit,
     warnings: [...warnings, ...fit.warnings.map((w) => `fit: ${w}`)],
     ...(corrections !== undefined && { corrections }),
@@ -250,12 +266,6 @@ function fitOrNull(fit: () => FitResult): FitResult | null {
     if (error instanceof FieldgapError && error.code === 'unexplained') return null;
     throw error;
   }
-}
-
-/** Each band with the kind its assignment gives (null without one; null throughout when `fit` is null: a corrected band list, whose indices are not these bands'). */
-function withAssignedKinds(bands: Band[], fit: FitResult | null): Array<Band & { assignedKind: AssignedKind | null }> {
-  const kinds = bandAssignedKinds(bands, fit);
-  return bands.map((b, i) => ({ ...b, assignedKind: kinds[i] ?? null }));
 }
 
 function positions(bands: readonly Band[]): string {
