@@ -55,7 +55,8 @@ describe('bands: kind by assignment', () => {
   });
 
   it('high-spin d5: every assigned band is spin-forbidden, and a band strong by its size says the two disagree', () => {
-    const result = analyzeSpectrum(fixture('permanganate-visible.csv'), { fileName: 'mn.csv', ion: 'Mn2+' });
+    // 0.4 mol/L: ε ≈ 3, a d–d class by intensity, beyond what high-spin d5 has
+    const result = analyzeSpectrum(fixture('permanganate-visible.csv'), { fileName: 'mn.csv', ion: 'Mn2+', concentration: 0.4 });
     expect(result.fit.spinState).toBe('high-spin');
     const assigned = result.bands.filter((b) => b.assignedKind !== null);
     expect(assigned.length).toBeGreaterThan(0);
@@ -63,6 +64,10 @@ describe('bands: kind by assignment', () => {
     const text = formatAnalysisReport('mn', result);
     expect(text).not.toMatch(/ d-d {2,}6A1g/);
     expect(text).toMatch(/by intensity and width alone the spectrum suggested d-d for \d+ cm-1/);
+    // without ε the strongest band of an all-forbidden spectrum is d-d by relative size only: no note (the d5 warning speaks)
+    const relative = formatAnalysisReport('mn', analyzeSpectrum(fixture('permanganate-visible.csv'), { fileName: 'mn.csv', ion: 'Mn2+' }));
+    expect(relative).not.toContain('spectrum suggested');
+    expect(relative).toContain('for high-spin d5 all d–d bands are spin-forbidden');
   });
 
   it('an unassigned band has no assigned kind', () => {

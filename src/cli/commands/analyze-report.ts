@@ -56,7 +56,9 @@ function bandLines(label: string, result: Pick<AnalyzeResult, 'spectrum' | 'band
     ];
   });
   lines.push(...table([head, ...rows]));
-  const differ = bands.filter((b, i) => kindsDisagree(b, assignedKinds[i] ?? null));
+  // Without ε a spectrum of only spin-forbidden bands (high-spin d5) has its strongest called d-d by relative size: no contradiction to note.
+  const allForbidden = assignedKinds.every((k) => k === null || k === 'spin-forbidden');
+  const differ = bands.filter((b, i) => kindsDisagree(b, assignedKinds[i] ?? null) && !(allForbidden && b.epsilon === null));
   if (differ.length > 0) {
     lines.push(`  (kind: from the assignment; by intensity and width alone the spectrum suggested ${differ.map((b) => `${b.kind} for ${Math.round(b.position)} cm-1`).join(', ')})`);
   }
