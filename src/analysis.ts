@@ -7,6 +7,7 @@
 import { checkCorrections, fitWithAlternative, type AnalysisCorrections } from './analysis-corrections.js';
 import { parseFormula } from './chemistry/formula.js';
 import { NoLigandFieldFit } from './analysis-no-fit.js';
+import { peakTableError } from './analysis-peak-table.js';
 import { assignedKindWarnings, bandsTooStrongForFit, spinForbiddenEpsilonCeiling } from './analysis-kind-checks.js';
 import { FieldgapError, invalidArgument } from './errors.js';
 import { bandToFitInput } from './band-fit-input.js';
@@ -130,6 +131,7 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
   // A formula's geometry guess (from its coordination number) stands in when none is given.
   const geometry = options.geometry ?? formulaGeometry(options.formula) ?? 'octahedral';
   const d = options.d ?? dCountOf(options.ion ?? formulaMetal(options.formula));
+  if (spectrum.metadata['jcampForm'] === 'PEAK TABLE') throw peakTableError(spectrum, { ...options, geometry }, options.fileName ?? '<input>');
   const processed = processSpectrum(spectrum, {
     geometry,
     // d0 (MnO4-, CrO4 2-) and d10 have no d–d transitions: every band is charge transfer.
