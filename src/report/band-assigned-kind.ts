@@ -43,13 +43,17 @@ type FitPart = Pick<FitResult, 'd' | 'geometry' | 'groundTerm' | 'cOverB' | 'ass
  */
 export function bandAssignedKinds(bands: readonly Pick<Band, 'kind'>[], fit: FitPart | null): Array<AssignedKind | null> {
   if (fit === null) return bands.map(() => null);
-  const twoElectron = twoElectronTransitions(fit.d, fit.geometry, fit.groundTerm, fit.cOverB ?? 4.5);
   return bands.map((_, i) => {
     const a = fit.assignments.find((row) => row.bands.includes(i));
-    if (a === undefined) return null;
-    if (!a.spinAllowed) return 'spin-forbidden';
-    return twoElectron.has(`${a.multiplicity}${irrepOf(a.term)}`) ? 'two-electron' : 'spin-allowed';
+    return a === undefined ? null : assignedKindOf(a, fit);
   });
+}
+
+/** The kind of one assignment row of `fit` (for a caller that matches bands to rows its own way, as the page does by position). */
+export function assignedKindOf(row: Pick<FitPart['assignments'][number], 'spinAllowed' | 'multiplicity' | 'term'>, fit: Omit<FitPart, 'assignments'>): AssignedKind {
+  if (!row.spinAllowed) return 'spin-forbidden';
+  const twoElectron = twoElectronTransitions(fit.d, fit.geometry, fit.groundTerm, fit.cOverB ?? 4.5);
+  return twoElectron.has(`${row.multiplicity}${irrepOf(row.term)}`) ? 'two-electron' : 'spin-allowed';
 }
 
 /**
