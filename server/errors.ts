@@ -6,9 +6,9 @@
 import type { z } from 'zod';
 import { FieldgapError, isFieldgapError, type ErrorCode } from '../src/errors.js';
 
-/** The body of every error answer: `{ "error": { "code", "message", "path" } }`. */
+/** The body of every error answer: `{ "error": { "code", "message", "path" } }`, with `problems` (each with its field) when a request has several bad fields. */
 export interface ErrorBody {
-  error: { code: ErrorCode; message: string; path: string };
+  error: { code: ErrorCode; message: string; path: string; problems?: Array<{ path: string; message: string }> };
 }
 
 /**
@@ -72,6 +72,7 @@ export function httpStatusFor(error: FieldgapError): number {
 
 /** The JSON body for a FieldgapError. */
 export function errorBody(error: FieldgapError): ErrorBody {
+  if (error instanceof RequestProblemsError) return { error: { ...error.toJSON(), problems: error.problems } };
   return { error: error.toJSON() };
 }
 
@@ -176,11 +177,35 @@ function issueMessage(issue: Issue, input: unknown): { path: string; message: st
   return { path, message: `${path}: ${detail}` };
 }
 
-/** A failed zod parse as one FieldgapError('invalid-argument') naming the first bad field. */
+/** One problem of a request with several: the field and the sentence about it (which starts with the field). */
+export interface RequestProblem {
+  path: string;
+  message: string;
+}
+
+/**
+ * A request with more than one bad field: the message lists every problem
+ * ("conc: must be > 0, got -0.1; path: expected number, got \"x\""), `path`
+ * is the first one's, and the error body carries them all as `problems`.
+ */
+export class RequestProblemsError extends FieldgapError {
+  readonly problems: RequestProblem[];
+  constructor(problems: RequestProblem[]) {
+    super('invalid-argument', problems.map((p) => p.message).join('; '), problems[0]?.path ?? 'body');
+    this.problems = problems;
+  }
+}
+
+/** A failed zod parse as one FieldgapError('invalid-argument') naming the bad field, or every bad field when there are several. */
 export function zodToFieldgapError(error: z.ZodError, input: unknown): FieldgapError {
-  const first = error.issues[0];
+  const problems: RequestProblem[] = [];
+  for (const issue of error.issues) {
+    const problem = issueMessage(issue, input);
+    // zod may report one field twice (conc > 0 and conc ≥ 1e-7): the first, the plainer, is enough.
+    if (!problems.some((p) => p.path === problem.path)) problems.push(problem);
+  }
+  const first = problems[0];
   if (first === undefined) return new FieldgapError('invalid-argument', 'invalid request', 'body');
-  const { path, message } = issueMessage(first, input);
-  const more = error.issues.length > 1 ? ` (and ${error.issues.length - 1} more problem${error.issues.length > 2 ? 's' : ''})` : '';
-  return new FieldgapError('invalid-argument', `${message}${more}`, path);
+  if (problems.length === 1) return new FieldgapError('invalid-argument', first.message, first.path);
+  return new RequestProblemsError(problems);
 }

@@ -13,6 +13,7 @@ import type { BandInput } from '../src/fit/bands.js';
 import type { FitResult } from '../src/fit/types.js';
 import type { AnalysisRecord, AnalysisSummary, FitSummary, ListPage, RevisionInfo } from '../src/library/types.js';
 import { X_UNITS, Y_UNITS } from '../src/spectrum/types.js';
+import { ASSIGNED_KINDS } from '../src/report/band-assigned-kind.js';
 
 const num = z.number();
 const geometry = z.enum(['octahedral', 'tetrahedral']);
@@ -23,6 +24,8 @@ export const errorResponse = z
       code: z.enum(ERROR_CODES),
       message: z.string(),
       path: z.string().meta({ description: 'The field, option or file position the error is about; "" when none.' }),
+      problems: z.array(z.strictObject({ path: z.string(), message: z.string() })).optional()
+        .meta({ description: 'When a request has several bad fields: each of them (the message lists them all too); `path` is the first one\'s.' }),
     }),
   })
   .meta({ description: 'Every error answer.' });
@@ -204,6 +207,7 @@ const bandShape = {
   shoulder: z.boolean(),
   window: z.string().meta({ description: 'Where the maximum lies relative to the measured range.' }),
   maximumInWindow: z.boolean(),
+  assignedKind: z.enum(ASSIGNED_KINDS).nullable().optional().meta({ description: "What the band is by its assigned transition ('spin-allowed', 'two-electron': spin-allowed but weak, 'spin-forbidden'); null when unassigned. `kind` stays the class by intensity and width alone." }),
 } satisfies Record<keyof AnalyzeResult['bands'][number], z.ZodType>;
 
 /** Every field of the core's AnalyzeResult (src/analysis.ts); the `satisfies` ties the keys to it. */

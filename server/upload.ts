@@ -12,8 +12,10 @@ import { SPECTRUM_CONTENT_TYPES } from './schemas.js';
 /** What the upload middleware leaves in res.locals.spectrum. */
 export interface UploadedSpectrum {
   content: Buffer;
-  /** The uploaded file's name, or one made from the content type for a raw body. */
+  /** The uploaded file's name, or one made from the content type for a raw body (a stored original's name). */
   fileName: string | undefined;
+  /** What messages call the upload: the multipart file's own name when it has one, else "request body" (never a name the user did not give). */
+  label: string;
   /** Query parameters, then form fields (a form field wins over a query parameter of the same name). */
   fields: Record<string, unknown>;
 }
@@ -24,6 +26,9 @@ const RAW_EXTENSIONS: Record<string, string> = {
   'text/plain': 'spectrum.txt',
   'chemical/x-jcamp-dx': 'spectrum.jdx',
 };
+
+/** The name error messages give a spectrum sent as the raw body. */
+export const REQUEST_BODY = 'request body';
 
 function describeBytes(bytes: number): string {
   return bytes >= 1024 * 1024 ? `${(bytes / (1024 * 1024)).toFixed(bytes % (1024 * 1024) === 0 ? 0 : 1)} MiB` : `${bytes} bytes`;
@@ -69,7 +74,7 @@ export function spectrumUpload(maxBytes: number): RequestHandler {
 
   return (req: Request, res: Response, next: NextFunction) => {
     const query = { ...(req.query as Record<string, unknown>) };
-    const done = (content: Buffer | undefined, fileName: string | undefined, formFields: Record<string, unknown>) => {
+    const done = (content: Buffer | undefined, fileName: string | undefined, formFields: Record<string, unknown>, label = REQUEST_BODY) => {
       if (content === undefined) {
         next(
           new FieldgapError(
@@ -84,7 +89,7 @@ export function spectrumUpload(maxBytes: number): RequestHandler {
         next(new FieldgapError('invalid-argument', 'spectrum: the uploaded spectrum is empty', 'spectrum'));
         return;
       }
-      const spectrum: UploadedSpectrum = { content, fileName, fields: { ...query, ...formFields } };
+      const spectrum: UploadedSpectrum = { content, fileName, label, fields: { ...query, ...formFields } };
       res.locals['spectrum'] = spectrum;
       next();
     };
@@ -97,7 +102,8 @@ export function spectrumUpload(maxBytes: number): RequestHandler {
         }
         if (error) return next(error);
         const fields = { ...(req.body as Record<string, unknown> | undefined) };
-        return done(req.file?.buffer, req.file?.originalname, fields);
+        const name = req.file?.originalname;
+        return done(req.file?.buffer, name, fields, name !== undefined && name !== '' ? name : 'form field "spectrum"');
       });
       return;
     }

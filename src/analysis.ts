@@ -6,6 +6,9 @@
  */
 import { checkCorrections, fitWithAlternative, type AnalysisCorrections } from './analysis-corrections.js';
 import { parseFormula } from './chemistry/formula.js';
+import { NoLigandFieldFit } from './analysis-no-fit.js';
+import { peakTableError } from './analysis-peak-table.js';
+import { assignedKindWarnings, bandsTooStrongForFit, spinForbiddenEpsilonCeiling } from './analysis-kind-checks.js';
 import { FieldgapError, invalidArgument } from './errors.js';
 import { bandToFitInput } from './band-fit-input.js';
 import { fitLigandField, type BandInput, type FitResult } from './fit/index.js';
@@ -14,6 +17,7 @@ import { gaussianValue } from './spectrum/gaussian.js';
 import { bandsOnEdge } from './spectrum/bands-on-edge.js';
 import { parseSpectrumText, processSpectrum } from './spectrum/index.js';
 import { parseIon } from './chemistry/ions.js';
+import { bandAssignedKinds, type AssignedKind } from './report/band-assigned-kind.js';
 import type { Band, MaskedRegion, ParsedFile, Spectrum, StepCorrection, XUnit, YUnit } from './spectrum/types.js';
 
 export interface AnalyzeOptions {
@@ -88,7 +92,14 @@ export interface AnalyzeResult {
     /** Every spectrum of a file that holds more than one (its y columns), so a caller can offer the others. */
     columns?: Array<{ column: number; name: string }>;
   };
-  bands: Band[];
+  /**
+   * The found bands. `kind` is the spectrum stage's class by intensity and
+   * width alone; `assignedKind` what the fit's assignment makes of the band
+   * (src/report/band-assigned-kind.ts), null when the fit left it unassigned
+   * or the fit used a corrected band list. A record from an older fieldgap
+   * lacks it.
+   */
+  bands: Array<Band & { assignedKind?: AssignedKind | null }>;
   fit: FitResult;
   warnings: string[];
   curves?: AnalyzeCurves;
@@ -120,6 +131,7 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
   // A formula's geometry guess (from its coordination number) stands in when none is given.
   const geometry = options.geometry ?? formulaGeometry(options.formula) ?? 'octahedral';
   const d = options.d ?? dCountOf(options.ion ?? formulaMetal(options.formula));
+  if (spectrum.metadata['jcampForm'] === 'PEAK TABLE') throw peakTableError(spectrum, { ...options, geometry }, options.fileName ?? '<input>');
   const processed = processSpectrum(spectrum, {
     geometry,
     // d0 (MnO4-, CrO4 2-) and d10 have no d–d transitions: every band is charge transfer.
@@ -132,12 +144,27 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
   const where = `${options.fileName ?? '<input>'}${format === 'delimited' && spectrum.column > 1 ? `#${spectrum.column}` : ''}`;
   const corrections = options.corrections === undefined ? undefined : checkCorrections(options.corrections);
   const dd = processed.bands.filter((b) => b.kind !== 'charge-transfer');
+  const spectrumPart: AnalyzeResult['spectrum'] = {
+    points: processed.points,
+    range: processed.range,
+    xUnit: processed.xUnit,
+    yUnit: processed.yUnit,
+    masked: processed.masked,
+    name: spectrum.name,
+    column: spectrum.column,
+    format,
+    signalUnit: processed.signalUnit,
+    noise: processed.noise,
+    quantization: processed.quantization,
+    stepCorrections: processed.stepCorrections,
+  };
   if (dd.length === 0 && corrections?.bands === undefined) {
     const found = processed.bands.length === 0 ? 'no bands were found' : `only charge-transfer bands were found (${positions(processed.bands)} cm-1)`;
-    if (d === 0 || d === 10) {
-      throw new FieldgapError('unexplained', `no ligand-field fit: a d${d} ion has no d–d transitions; ${found.replace('only ', '')} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`, where);
-    }
-    throw new FieldgapError('unexplained', `no d–d bands to fit: ${found} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`, where);
+    const message = d === 0 || d === 10
+      ? `no ligand-field fit: a d${d} ion has no d–d transitions; ${found.replace('only ', '')} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`
+      : `no d–d bands to fit: ${found} between ${Math.round(processed.range[0])} and ${Math.round(processed.range[1])} cm-1`;
+    // The bands were found and classified: the error carries them, so the CLI can print the table beside the note.
+    throw new NoLigandFieldFit(message, where, { spectrum: spectrumPart, bands: processed.bands, warnings });
   }
   const fitOf = (bands: BandInput[]): FitResult => fitLigandField({
     ...(options.ion !== undefined && { ion: options.ion }),
@@ -167,22 +194,24 @@ function analyzeOne(spectrum: Spectrum, format: ParsedFile['format'], options: A
     } else throw error;
   }
   if (corrections?.alternative !== undefined) fit = fitWithAlternative(fit, corrections.alternative);
+  if (corrections === undefined) {
+    // High-spin d5 has only spin-forbidden d–d bands: one whose ε is far above them is not d–d (analysis-kind-checks.ts); it is left out, as charge transfer, and the fit made again.
+    const tooStrong = bandsTooStrongForFit(processed.bands, bandAssignedKinds(processed.bands, fit), fit);
+    if (tooStrong.length > 0) {
+      const which = `${tooStrong.map((k) => `${Math.round(processed.bands[k]!.position)} cm-1 (ε = ${processed.bands[k]!.epsilon!.toPrecision(3)})`).join(', ')}`;
+      const why = `far above any d–d band of high-spin d5 (spin-forbidden, ε < ~${spinForbiddenEpsilonCeiling(geometry, fit.ion)} L mol-1 cm-1 ${geometry}): not d–d (charge transfer? another ion?); check the ion or the concentration`;
+      const left = processed.bands.map((b, k) => bandToFitInput(tooStrong.includes(k) ? { ...b, kind: 'charge-transfer' } : b));
+      const refit = left.some((b) => !b.flags?.includes('charge-transfer')) ? fitOrNull(() => fitOf(left)) : null;
+      if (refit === null) throw new NoLigandFieldFit(`no ligand-field fit: the band${tooStrong.length > 1 ? 's' : ''} at ${which} ${tooStrong.length > 1 ? 'are' : 'is'} ${why}, and no assignment explains the other bands without ${tooStrong.length > 1 ? 'them' : 'it'}`, where, { spectrum: spectrumPart, bands: processed.bands, warnings });
+      fit = refit;
+      warnings.push(`the band${tooStrong.length > 1 ? 's' : ''} at ${which}, ${why}: left out of the fit`);
+    }
+  }
+  const assignedKinds = bandAssignedKinds(processed.bands, corrections?.bands === undefined ? fit : null);
+  if (corrections?.bands === undefined) warnings.push(...assignedKindWarnings(processed.bands, assignedKinds, fit, options.pathLength ?? 1));
   const result: AnalyzeResult = {
-    spectrum: {
-      points: processed.points,
-      range: processed.range,
-      xUnit: processed.xUnit,
-      yUnit: processed.yUnit,
-      masked: processed.masked,
-      name: spectrum.name,
-      column: spectrum.column,
-      format,
-      signalUnit: processed.signalUnit,
-      noise: processed.noise,
-      quantization: processed.quantization,
-      stepCorrections: processed.stepCorrections,
-    },
-    bands: processed.bands,
+    spectrum: spectrumPart,
+    bands: processed.bands.map((b, i) => ({ ...b, assignedKind: assignedKinds[i] ?? null })),
     fit,
     warnings: [...warnings, ...fit.warnings.map((w) => `fit: ${w}`)],
     ...(corrections !== undefined && { corrections }),

@@ -42,7 +42,7 @@ export function createAnalyzeRouter({ analyze, maxBodyBytes }: AnalyzeRouterDeps
   router.post('/analyze', spectrumUpload(maxBodyBytes), async (_req, res) => {
     const upload = res.locals['spectrum'] as UploadedSpectrum;
     const fields = parseTextFields(analyzeFields, upload.fields);
-    res.json(await analyze(upload.content, toAnalyzeOptions(fields, upload.fileName), clientGoneSignal(res)));
+    res.json(await analyze(upload.content, toAnalyzeOptions(fields, upload.label), clientGoneSignal(res)));
   });
   return router;
 }

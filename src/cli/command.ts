@@ -29,7 +29,7 @@ export interface Command {
   summary: string;
   /** Full usage text for `fieldgap NAME --help`. */
   usage: string;
-  /** Returns the exit code: 0 success, 1 some items failed (batch), 2 bad input. */
+  /** Returns the exit code: 0 success, 1 some items failed (batch), 2 bad input, 3 analysed but nothing to fit (analyze, one spectrum). */
   run(argv: string[], io: CliIo): Promise<number>;
 }
 

@@ -2,7 +2,8 @@
  * src/report: the one writer of each output, shared by the CLI, the service
  * and the page. CSV (csv.ts), text tables (text-table.ts), "±" (plus-minus.ts),
  * the spin-state wording (spin-state-wording.ts), probabilities in words (probability.ts)
- * and the per-analysis results table (results-csv.ts). Pure; no file or network access.
+ * the per-analysis results table (results-csv.ts) and a band's kind by its
+ * assignment (band-assigned-kind.ts). Pure; no file or network access.
  */
 export * from './csv.js';
 export * from './text-table.js';
@@ -10,3 +11,4 @@ export * from './plus-minus.js';
 export * from './spin-state-wording.js';
 export * from './results-csv.js';
 export * from './probability.js';
+export * from './band-assigned-kind.js';

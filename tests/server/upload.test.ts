@@ -31,7 +31,7 @@ describe('POST /api/v1/analyze: happy paths', () => {
       .set('content-type', 'text/csv')
       .send(aqua)
       .expect(200);
-    expect(res.body).toEqual(direct(aqua, { ion: 'Cr3+', concentration: 0.05, pathLength: 1, fileName: 'spectrum.csv' }));
+    expect(res.body).toEqual(direct(aqua, { ion: 'Cr3+', concentration: 0.05, pathLength: 1, fileName: 'request body' }));
     analyzeResponse.parse(res.body);
   });
   it('takes a multipart upload with options as form fields, keeping the file name', async () => {
@@ -52,7 +52,7 @@ describe('POST /api/v1/analyze: happy paths', () => {
       .set('content-type', 'chemical/x-jcamp-dx')
       .send(jdx)
       .expect(200);
-    expect(res.body).toEqual(direct(jdx, { d: 3, geometry: 'octahedral', fileName: 'spectrum.jdx' }));
+    expect(res.body).toEqual(direct(jdx, { d: 3, geometry: 'octahedral', fileName: 'request body' }));
   });
 });
 
@@ -103,5 +103,19 @@ describe('POST /api/v1/analyze: errors', () => {
   it('422 when the bands found fit no model of the ion given', async () => {
     const res = await request(t.app).post('/api/v1/analyze?d=1').set('content-type', 'text/csv').send(aqua).expect(422);
     expect(res.body.error.code).toBe('unexplained');
+  });
+});
+
+describe('POST /api/v1/analyze: the name errors give the upload (AUDIT2 finding 14)', () => {
+  it('a raw body is "request body", never a name the user did not give', async () => {
+    const text = await request(t.app).post('/api/v1/analyze?ion=Cr3%2B').set('content-type', 'text/plain').send('no numbers here\njust words\n').expect(400);
+    expect(text.body.error.path).toBe('request body');
+    const binary = await request(t.app).post('/api/v1/analyze?ion=Cr3%2B').set('content-type', 'text/plain').send(Buffer.from([0, 1, 2, 255, 254, 0, 0, 9, 9])).expect(415);
+    expect(binary.body.error.path).toBe('request body');
+    expect(JSON.stringify([text.body, binary.body])).not.toMatch(/spectrum\.txt|<input>/);
+  });
+  it('a multipart upload is named by its file name', async () => {
+    const res = await request(t.app).post('/api/v1/analyze?ion=Cr3%2B').attach('spectrum', Buffer.from('no numbers here\n'), { filename: 'mine.csv', contentType: 'text/csv' }).expect(400);
+    expect(res.body.error.path).toBe('mine.csv');
   });
 });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseSpectrumText } from '../../src/spectrum/index.js';
 import { fixtureBytes } from './load.js';
+import { jcampDamageFromLog } from '../../src/spectrum/parse/jcamp-library-message.js';
 
 const reference = parseSpectrumText(fixtureBytes('header.csv')).spectra[0]!;
 
@@ -69,5 +70,33 @@ describe('JCAMP-DX', () => {
     expect(() => parseSpectrumText('##TITLE= t\n##JCAMP-DX= 4.24\n##END=\n', { fileName: 's.jdx' })).toThrow(
       expect.objectContaining({ code: 'parse-error', path: 's.jdx' }),
     );
+  });
+});
+
+describe('JCAMP-DX damage in fieldgap\'s words (AUDIT2 finding 18)', () => {
+  it('a failed X check names the file line and says what is wrong, without the converter\'s text', () => {
+    const lines = new TextDecoder().decode(fixtureBytes('xydata-affn.jdx')).split('\n');
+    const i = lines.findIndex((l) => l.startsWith('##XYDATA'));
+    const tokens = lines[i + 1]!.split(' ');
+    // the second data line (file line i + 3, 1-based) starts at X = 700 where the spacing puts 600
+    const text = [...lines.slice(0, i + 1), tokens.slice(0, 11).join(' '), ['700', ...tokens.slice(11)].join(' '), ...lines.slice(i + 2)].join('\n');
+    let message = '';
+    try {
+      parseSpectrumText(text, { fileName: 's.jdx' });
+    } catch (error) {
+      message = (error as Error).message;
+    }
+    expect(message).toBe(`damaged data: line ${i + 3}: the line starts at X = 700, but ##FIRSTX and ##DELTAX put the next point at X = 600: a line is missing, repeated or damaged`);
+    expect(message).not.toMatch(/Data line|is too high/);
+  });
+
+  it('garbage in XYDATA: the first character that is not JCAMP-DX, with line and column', () => {
+    expect(() => parseSpectrumText(fixtureBytes('jcamp-garbage.jdx'), { fileName: 's.jdx' })).toThrow('line 15, column 1: character "t" is not valid in JCAMP-DX XYDATA');
+  });
+
+  it('the converter\'s other messages are translated; an unknown one gives no library text', () => {
+    expect(jcampDamageFromLog('Data line 2: After a duplicate the next line should repeat the same value 5 !== 6', 9)).toEqual({ line: 13, message: expect.stringMatching(/^after a line that ends in a duplicate \(DUP\)/) });
+    expect(jcampDamageFromLog('Format error: 1,2,3', 4)).toEqual({ line: undefined, message: expect.stringContaining('odd number of values (1,2,3)') });
+    expect(jcampDamageFromLog('Data line 0: something new from the library', 0).message).toBe('the data cannot be decoded');
   });
 });

@@ -1,4 +1,6 @@
 import type { AnalyzeResult } from '../../analysis.js';
+import type { AnalysisWithoutFit } from '../../analysis-no-fit.js';
+import { bandAssignedKinds, bandKindText, kindsDisagree } from '../../report/band-assigned-kind.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
 import { percentText } from '../../report/probability.js';
 import { textTableLines } from '../../report/text-table.js';
@@ -6,26 +8,8 @@ import { spinStateSentence } from '../../report/spin-state-wording.js';
 
 /** The readable report of one analysed spectrum: what was measured, the bands, the fit. */
 export function formatAnalysisReport(label: string, result: AnalyzeResult): string {
-  const { spectrum, bands, fit } = result;
-  const eps = spectrum.signalUnit === 'epsilon' || bands.some((b) => b.epsilon !== null);
-  const lines: string[] = [];
-  lines.push(`${label}: ${spectrum.name} (${spectrum.format}, ${spectrum.points} points, ${Math.round(spectrum.range[0])}–${Math.round(spectrum.range[1])} cm-1, ${(1e7 / spectrum.range[1]).toFixed(0)}–${(1e7 / spectrum.range[0]).toFixed(0)} nm)`);
-  for (const m of spectrum.masked) lines.push(`  masked ${Math.round(m.from)}–${Math.round(m.to)} cm-1: ${m.reason}`);
-  lines.push('', 'Bands');
-  const head = ['position / cm-1', 'nm', eps ? 'epsilon / L mol-1 cm-1' : 'height / A', 'FWHM / cm-1', eps ? 'f' : '', 'kind', 'assigned to'];
-  const rows = bands.map((b, i) => {
-    const assigned = fit.assignments.find((a) => a.bands.includes(i));
-    return [
-      `${Math.round(b.position)} ± ${Math.max(1, Math.round(b.positionUncertainty))}`,
-      b.wavelength.toFixed(1),
-      eps && b.epsilon !== null ? b.epsilon.toPrecision(3) : b.height.toPrecision(3),
-      Math.round(b.fwhm).toString(),
-      eps && b.oscillatorStrength !== null ? b.oscillatorStrength.toExponential(2) : '',
-      `${b.kind}${b.shoulder ? ' (shoulder)' : ''}${b.window === undefined || b.window === 'inside' ? '' : ` (maximum ${b.window.replace(/-/g, ' ')})`}`,
-      assigned ? `${fit.groundLabel} → ${assigned.label}` : b.kind === 'charge-transfer' ? '(not fitted)' : '(unexplained)',
-    ];
-  });
-  lines.push(...table([head, ...rows]));
+  const { fit } = result;
+  const lines = bandLines(label, result, fit);
   lines.push('', 'Ligand field');
   const pm = (v: number | null, u: number | null | undefined, unit: string, digits = 0) =>
     v === null ? 'not determined' : `${formatPlusMinus(v, u, { digits })} ${unit}`.trimEnd();
@@ -48,6 +32,53 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
   const warnings = result.warnings;
   if (warnings.length > 0) lines.push('', 'Warnings', ...warnings.map((w) => `  - ${w}`));
   lines.push('', 'Results are model estimates: check the assignment against the spectrum.');
+  return `${lines.join('\n')}\n`;
+}
+
+/** The heading line, masked stretches and the band table; `fit` null when there was none. */
+function bandLines(label: string, result: Pick<AnalyzeResult, 'spectrum' | 'bands' | 'corrections'>, fit: AnalyzeResult['fit'] | null): string[] {
+  const { spectrum, bands } = result;
+  const eps = spectrum.signalUnit === 'epsilon' || bands.some((b) => b.epsilon !== null);
+  const lines: string[] = [];
+  lines.push(`${label}: ${spectrum.name} (${spectrum.format}, ${spectrum.points} points, ${Math.round(spectrum.range[0])}–${Math.round(spectrum.range[1])} cm-1, ${(1e7 / spectrum.range[1]).toFixed(0)}–${(1e7 / spectrum.range[0]).toFixed(0)} nm)`);
+  for (const m of spectrum.masked) lines.push(`  masked ${Math.round(m.from)}–${Math.round(m.to)} cm-1: ${m.reason}`);
+  lines.push('', 'Bands');
+  const head = ['position / cm-1', 'nm', eps ? 'epsilon / L mol-1 cm-1' : 'height / A', 'FWHM / cm-1', eps ? 'f' : '', 'kind', 'assigned to'];
+  // The kind an assignment gives (band-assigned-kind.ts); a stored record from an older fieldgap lacks it and gets it here.
+  const computed = bandAssignedKinds(bands, result.corrections?.bands === undefined ? fit : null);
+  const assignedKinds = bands.map((b, i) => (b.assignedKind !== undefined ? b.assignedKind : computed[i] ?? null));
+  const rows = bands.map((b, i) => {
+    const assigned = fit?.assignments.find((a) => a.bands.includes(i));
+    return [
+      `${Math.round(b.position)} ± ${Math.max(1, Math.round(b.positionUncertainty))}`,
+      b.wavelength.toFixed(1),
+      eps && b.epsilon !== null ? b.epsilon.toPrecision(3) : b.height.toPrecision(3),
+      Math.round(b.fwhm).toString(),
+      eps && b.oscillatorStrength !== null ? b.oscillatorStrength.toExponential(2) : '',
+      `${bandKindText(b, assignedKinds[i] ?? null)}${b.shoulder ? ' (shoulder)' : ''}${b.window === undefined || b.window === 'inside' ? '' : ` (maximum ${b.window.replace(/-/g, ' ')})`}`,
+      assigned ? `${fit!.groundLabel} → ${assigned.label}` : b.kind === 'charge-transfer' ? '(not fitted)' : '(unexplained)',
+    ];
+  });
+  lines.push(...table([head, ...rows]));
+  // Without ε a spectrum of only spin-forbidden bands (high-spin d5) has its strongest called d-d by relative size: no contradiction to note.
+  const allForbidden = assignedKinds.every((k) => k === null || k === 'spin-forbidden');
+  const differ = bands.filter((b, i) => kindsDisagree(b, assignedKinds[i] ?? null) && !(allForbidden && b.epsilon === null));
+  if (differ.length > 0) {
+    lines.push(`  (kind: from the assignment; by intensity and width alone the spectrum suggested ${differ.map((b) => `${b.kind} for ${Math.round(b.position)} cm-1`).join(', ')})`);
+  }
+  return lines;
+}
+
+/**
+ * The report of an analysis that found bands but made no fit (a d0 or d10
+ * ion, only charge-transfer bands, no bands): the band table, why there is
+ * no fit, and the warnings.
+ */
+export function formatAnalysisWithoutFit(label: string, found: AnalysisWithoutFit<AnalyzeResult['spectrum']>, reason: string): string {
+  const lines = bandLines(label, found, null);
+  if (found.bands.length === 0) lines.push('  (none)');
+  lines.push('', 'Ligand field', `  none: ${reason}`);
+  if (found.warnings.length > 0) lines.push('', 'Warnings', ...found.warnings.map((w) => `  - ${w}`));
   return `${lines.join('\n')}\n`;
 }
 

@@ -1,4 +1,4 @@
-import type { AnalyzeOptions } from '../../analysis.js';
+import type { AnalyzeOptions, AnalyzeResult } from '../../analysis.js';
 import { FieldgapError, invalidArgument } from '../../errors.js';
 import { ANALYSIS_OPTIONS, analysisOptionsFrom } from '../analysis-options.js';
 import { csvSink, jsonSink, openOutputStream, tableSink, type RowSink } from '../batch-output.js';
@@ -11,7 +11,8 @@ import { splitJsonOption } from '../json-flag.js';
 import { numberOption, parseCommandArgs } from '../options.js';
 import { inputsApartFromOutputs, type OutputFile } from '../output-guard.js';
 import { createProgress } from '../progress.js';
-import { formatAnalysisReport } from './analyze-report.js';
+import { formatAnalysisReport, formatAnalysisWithoutFit } from './analyze-report.js';
+import { NoLigandFieldFit, type AnalysisWithoutFit } from '../../analysis-no-fit.js';
 import { csvLine } from '../../report/csv.js';
 
 const USAGE = `Usage: fieldgap analyze FILES-or-FOLDERS... (--ion ION | --d N) [options]
@@ -48,7 +49,12 @@ bands, and fits 10Dq, Racah B and C to the d-d bands.
 
 A folder contributes every spectrum file inside it (.csv .txt .tsv .dat .asc
 .prn .jdx .dx .jcamp). Files are read, never changed. Exit code: 0 all went
-well; 1 some spectra in a batch failed (their rows say why); 2 bad input.`;
+well; 1 some spectra in a batch failed (their rows say why); 2 bad input;
+3 one spectrum analysed, its bands printed, but no ligand-field fit (a d0
+or d10 ion, or only charge-transfer bands).`;
+
+/** Exit code of a one-spectrum run whose bands were found but gave nothing to fit (see USAGE). */
+const EXIT_NO_FIT = 3;
 
 /** Options of a run on many files. */
 const BATCH_OPTIONS = { threads: { type: 'string' } } as const;
@@ -90,7 +96,18 @@ export const analyzeCommand: Command = {
       const items = onlyFile;
       if (items.length === 1) {
         const item = items[0]!;
-        const result = analyzeItem(item, options, io.cwd, true);
+        let result: ReturnType<typeof analyzeItem>;
+        try {
+          result = analyzeItem(item, options, io.cwd, true);
+        } catch (error) {
+          if (!(error instanceof NoLigandFieldFit)) throw error;
+          // Bands found, nothing to fit (a d0 ion): the table and the reason, and exit code 3.
+          const found = error.found as AnalysisWithoutFit<AnalyzeResult['spectrum']>;
+          io.stdout(json.jsonFlag
+            ? `${JSON.stringify({ ...found, fit: null, noFit: { code: error.code, message: error.message, path: error.path } }, null, 2)}\n`
+            : formatAnalysisWithoutFit(item.label, found, error.message));
+          return EXIT_NO_FIT;
+        }
         io.stdout(json.jsonFlag ? `${JSON.stringify(result.result, null, 2)}\n` : formatAnalysisReport(item.label, result.result!));
         return 0;
       }

@@ -16,6 +16,7 @@ import type { Spectrum, XUnit, YUnit } from '../types.js';
 import { xUnitFromLabel, yUnitFromLabel } from '../unit-labels.js';
 import { inferXUnit } from './infer-x-unit.js';
 import { jcampOrdinateBound } from './jcamp-point-bound.js';
+import { jcampDamageFromLog } from './jcamp-library-message.js';
 
 /**
  * Most points one XYDATA block may decode to: far beyond any UV-vis-NIR
@@ -77,10 +78,12 @@ export function parseJcamp(text: string, options: JcampOptions): JcampResult {
     throw new FieldgapError('parse-error', 'no ##XYDATA or ##PEAK TABLE record in this JCAMP-DX file', fileName);
   }
   const recordPath = `${fileName}:##${dataRecord.name}`;
-  if (logged.length > 0) {
-    throw new FieldgapError('parse-error', `damaged data (line ${dataRecord.line + 1} is the record's first line): ${logged[0]}`, recordPath);
-  }
+  // Characters outside the ASDF alphabet first: they say plainly what the converter's X checks only hint at.
   for (const record of records) if (record.label === 'XYDATA') checkAsdfLines(text, record, `${fileName}:##${record.name}`);
+  if (logged.length > 0) {
+    const damage = jcampDamageFromLog(logged[0]!, dataRecord.line);
+    throw new FieldgapError('parse-error', `damaged data: ${damage.line === undefined ? '' : `line ${damage.line}: `}${damage.message}`, recordPath);
+  }
 
   const warnings: string[] = [];
   const spectra: Spectrum[] = [];
