@@ -282,6 +282,7 @@ function start(): void {
   document.addEventListener('keydown', (event) => {
     if (event.key === 'Escape' && state.pickArmed) { state.pickArmed = false; render(); }
   });
+  void api.uploadLimit().then((bytes) => upload?.setUploadLimit(bytes));
   void api.libraryAvailable().then((available) => {
     state.libraryAvailable = available;
     if (available) tabs.enable('library');
