@@ -110,6 +110,8 @@ export function buildOpenApiDocument(version: string, limits: DocumentedLimits):
         `one computation may take ${limits.requestTimeoutMs} ms of running time (504 over it; 503 with Retry-After when the queue is full). Errors are { "error": { code, message, path } }. ` +
         'Every request must name this server in its Host header (403 otherwise); a change sent by a web browser must come from the service\'s own page and carry X-Fieldgap-Request (403 otherwise); ' +
         'a server bound beyond loopback requires its access token on every request, as Authorization: Bearer TOKEN (401 without).',
+      // The same limits for programs (the page checks a file's size before it uploads it): one source, the server's options.
+      'x-fieldgap-limits': { maxUploadBytes: limits.maxBodyBytes, maxJsonBytes: limits.maxJsonBytes, requestTimeoutMs: limits.requestTimeoutMs },
     },
     paths: {
       '/api/v1/health': {

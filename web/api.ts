@@ -186,19 +186,40 @@ export interface LibraryQuery {
   offset?: number;
 }
 
+/** What the page reads from the service's OpenAPI document. */
+interface ServiceDocument {
+  paths?: Record<string, unknown>;
+  info?: { 'x-fieldgap-limits'?: { maxUploadBytes?: unknown } };
+}
+
+let serviceDocument: Promise<ServiceDocument | null> | null = null;
+
+/** The service's OpenAPI document, asked once per page load; null when it cannot be read. */
+function readServiceDocument(): Promise<ServiceDocument | null> {
+  serviceDocument ??= fetch(`${BASE}/openapi.json`).then(
+    async (response) => (response.ok ? ((await response.json()) as ServiceDocument) : null),
+    () => null,
+  ).catch(() => null);
+  return serviceDocument;
+}
+
 /**
  * Whether this service has the results library, read from its OpenAPI
  * document (asking the endpoint itself would log a 404 where it is missing).
  */
 export async function libraryAvailable(): Promise<boolean> {
-  try {
-    const response = await fetch(`${BASE}/openapi.json`);
-    if (!response.ok) return false;
-    const document = (await response.json()) as { paths?: Record<string, unknown> };
-    return document.paths !== undefined && `${BASE}/analyses` in document.paths;
-  } catch {
-    return false;
-  }
+  const document = await readServiceDocument();
+  return document?.paths !== undefined && `${BASE}/analyses` in document.paths;
+}
+
+/**
+ * The largest spectrum file the service accepts, bytes, from its OpenAPI
+ * document (info['x-fieldgap-limits'], stated from the server's own option);
+ * null when the service does not say: the page then lets the service judge.
+ */
+export async function uploadLimit(): Promise<number | null> {
+  const limit = (await readServiceDocument())?.info?.['x-fieldgap-limits']?.maxUploadBytes;
+  return typeof limit === 'number' && Number.isFinite(limit) && limit > 0 ? limit : null;
 }
 
 export function listAnalyses(query: LibraryQuery = {}): Promise<LibraryPage> {

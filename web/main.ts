@@ -217,7 +217,7 @@ function renderMain(root: HTMLElement): void {
     keptPanel('alternatives', [entry, entry.fit, entry.shownAlternative], () => alternativesPanel(entry, { onShowAlternative: (index) => { entry.shownAlternative = index; render(); } })) ?? '',
     diagramFigure(entry) ?? '',
     // The C/B and free-C fields write to the entry without a render; their values are inputs all the same.
-    keptPanel('bands', [entry, entry.result, JSON.stringify(entry.bands), entry.fit, entry.shownAlternative, state.pickArmed, state.refitting, entry.cOverB, entry.freeC, entry.symmetry, entry.tetragonalFit], () => bandsPanel(entry, state.pickArmed, state.refitting, {
+    keptPanel('bands', [entry, entry.result, JSON.stringify(entry.bands), entry.fit, entry.shownAlternative, state.pickArmed, state.refitting, entry.cOverB, entry.freeC, entry.symmetry, entry.tetragonalFit, entry.zeta?.mode], () => bandsPanel(entry, state.pickArmed, state.refitting, {
       onPatch: (index, patch) => patchBand(entry, index, patch),
       onDelete: (index) => { entry.bands.splice(index, 1); render(); },
       onAdd: (position) => addBand(entry, position),
@@ -225,6 +225,7 @@ function renderMain(root: HTMLElement): void {
       onCOverB: (value) => { entry.cOverB = value; },
       onFreeC: (value) => { entry.freeC = value; },
       onSymmetry: (value) => { entry.symmetry = value; render(); },
+      onZeta: (value) => { const redraw = value.mode !== (entry.zeta ?? { mode: 'off' }).mode; entry.zeta = value; if (redraw) render(); },
       onRefit: () => void refit(entry),
       onUndo: () => {
         if (entry.result === null) return;
@@ -235,6 +236,7 @@ function renderMain(root: HTMLElement): void {
         entry.shownAlternative = null;
         entry.symmetry = 'cubic';
         entry.tetragonalFit = null;
+        entry.zeta = { mode: 'off' };
         render();
       },
     })),
@@ -282,6 +284,7 @@ function start(): void {
   document.addEventListener('keydown', (event) => {
     if (event.key === 'Escape' && state.pickArmed) { state.pickArmed = false; render(); }
   });
+  void api.uploadLimit().then((bytes) => upload?.setUploadLimit(bytes));
   void api.libraryAvailable().then((available) => {
     state.libraryAvailable = available;
     if (available) tabs.enable('library');

@@ -78,9 +78,18 @@ export interface AnalysisEntry {
   tetragonalFit?: TetragonalFitResult | null;
   /** The request (JSON) the tetragonal fit answered, to tell when the bands or C/B have changed since. */
   tetragonalFitFor?: string;
+  /** Spin–orbit coupling in the tetragonal refit. @default { mode: 'off' } */
+  zeta?: ZetaChoice;
 }
 
 export type FitSymmetry = 'cubic' | 'tetragonal';
+
+/**
+ * Spin–orbit coupling in the tetragonal refit (POST /fit `zeta`, `freeZeta`):
+ * off (ζ = 0, the default), fixed at a value in cm-1, the free ion's
+ * tabulated ζ, or fitted with the other parameters.
+ */
+export type ZetaChoice = { mode: 'off' } | { mode: 'fixed'; value: number | null } | { mode: 'free-ion' } | { mode: 'fitted' };
 
 export function defaultDetails(): SampleDetails {
   return {
@@ -219,6 +228,9 @@ export interface TetragonalFitRequest {
   bands: FitRequestBand[];
   cOverB?: number;
   symmetry: 'tetragonal';
+  /** ζ in cm-1 or the free ion's; absent: 0 (off). */
+  zeta?: number | 'free-ion';
+  freeZeta?: boolean;
 }
 
 export function tetragonalFitRequestFor(entry: AnalysisEntry): TetragonalFitRequest {
@@ -227,6 +239,10 @@ export function tetragonalFitRequestFor(entry: AnalysisEntry): TetragonalFitRequ
   if (ion !== undefined) request.ion = ion;
   if (d !== undefined) request.d = d;
   if (cOverB !== undefined) request.cOverB = cOverB;
+  const zeta = entry.zeta ?? { mode: 'off' };
+  if (zeta.mode === 'fixed' && zeta.value !== null) request.zeta = zeta.value;
+  if (zeta.mode === 'free-ion') request.zeta = 'free-ion';
+  if (zeta.mode === 'fitted') request.freeZeta = true;
   return request;
 }
 

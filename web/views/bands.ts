@@ -5,7 +5,7 @@
  */
 import { h, numberOrNull } from '../dom.js';
 import { UNIT, formatNumber, nmFromWavenumber } from '../format.js';
-import type { AnalysisEntry, EditableBand, FitSymmetry } from '../state.js';
+import type { AnalysisEntry, EditableBand, FitSymmetry, ZetaChoice } from '../state.js';
 import { shownFit } from '../state.js';
 import type { BandKind } from '../types.js';
 import { bandCaption } from '../plots/spectrum-spec.js';
@@ -19,6 +19,8 @@ export interface BandHandlers {
   onFreeC(value: boolean): void;
   /** The symmetry of the next refit: cubic, or tetragonal (Dq, Ds, Dt). */
   onSymmetry(value: FitSymmetry): void;
+  /** Spin–orbit coupling of the next tetragonal refit. */
+  onZeta(value: ZetaChoice): void;
   onRefit(): void;
   onUndo(): void;
 }
@@ -110,6 +112,7 @@ export function bandsPanel(entry: AnalysisEntry, pickArmed: boolean, refitting: 
   );
   symmetry.addEventListener('change', () => handlers.onSymmetry(symmetry.value === 'tetragonal' ? 'tetragonal' : 'cubic'));
   const tetragonal = symmetryNow === 'tetragonal';
+  const zetaControls = tetragonal ? zetaChoice(entry.zeta ?? { mode: 'off' }, handlers.onZeta) : null;
   const included = entry.bands.filter((b) => b.included && b.kind !== 'charge-transfer').length;
 
   return h(
@@ -136,6 +139,7 @@ export function bandsPanel(entry: AnalysisEntry, pickArmed: boolean, refitting: 
       cOverB,
       // The tetragonal fit keeps C/B fixed.
       tetragonal ? null : h('span', { class: 'check' }, freeC, h('label', { for: 'refit-free-c' }, 'fit C as well')),
+      ...(zetaControls ?? []),
       h('button', { type: 'button', class: 'button primary', id: 'refit', disabled: refitting || included === 0, onclick: () => handlers.onRefit() }, refitting ? 'Refitting…' : 'Refit'),
       h('button', { type: 'button', class: 'button secondary', id: 'undo', onclick: () => handlers.onUndo() }, 'Undo all corrections'),
       h('span', { class: 'muted' }, `${included} band${included === 1 ? '' : 's'} go into the fit; charge-transfer bands are left out.`),
@@ -144,4 +148,39 @@ export function bandsPanel(entry: AnalysisEntry, pickArmed: boolean, refitting: 
       ? 'Tetragonal: Dq, Ds and Dt (and B for d2–d8) from the same bands, C/B fixed; a split octahedral band is two components of one parent.'
       : 'Cubic: 10Dq, B (and C) as in the analysis. Choose tetragonal for a trans-disubstituted or Jahn–Teller-distorted complex.'),
   );
+}
+
+const ZETA_MODES: ReadonlyArray<[ZetaChoice['mode'], string]> = [
+  ['off', 'off (ζ = 0)'],
+  ['fixed', 'fixed at…'],
+  ['free-ion', 'the free ion’s ζ'],
+  ['fitted', 'fitted'],
+];
+
+/**
+ * The spin–orbit choice of the tetragonal refit: a mode, a value for "fixed",
+ * and the caution that fits with spin–orbit coupling are not yet validated
+ * (README), always beside it.
+ */
+function zetaChoice(choice: ZetaChoice, onZeta: (value: ZetaChoice) => void): HTMLElement[] {
+  const mode = h('select', { id: 'refit-zeta-mode', 'aria-describedby': 'refit-zeta-caution' },
+    ...ZETA_MODES.map(([value, text]) => h('option', { value, selected: choice.mode === value }, text)));
+  mode.addEventListener('change', () => {
+    const next = mode.value as ZetaChoice['mode'];
+    onZeta(next === 'fixed' ? { mode: 'fixed', value: choice.mode === 'fixed' ? choice.value : null } : { mode: next } as ZetaChoice);
+  });
+  const out: HTMLElement[] = [h('label', { for: 'refit-zeta-mode' }, 'Spin–orbit ζ'), mode];
+  if (choice.mode === 'fixed') {
+    const value = h('input', { id: 'refit-zeta', inputmode: 'decimal', value: choice.value === null ? '' : String(choice.value), placeholder: 'cm⁻¹', 'aria-label': `ζ / ${UNIT.wavenumber}` });
+    // Written without a redraw, as C/B: the field keeps the focus while the user types.
+    value.addEventListener('change', () => {
+      const v = numberOrNull(value.value);
+      value.toggleAttribute('aria-invalid', v !== null && v < 0);
+      onZeta({ mode: 'fixed', value: v !== null && v >= 0 ? v : null });
+    });
+    out.push(value);
+  }
+  out.push(h('small', { id: 'refit-zeta-caution', class: choice.mode === 'off' ? 'muted' : 'caution' },
+    'Fits with spin–orbit coupling run but are not yet validated.'));
+  return out;
 }

@@ -193,18 +193,23 @@ export function renderLevels(host: HTMLElement): void {
   const showTetragonal = (): void => { form.classList.toggle('is-tetragonal', symmetry.value === 'tetragonal'); };
   symmetry.addEventListener('change', showTetragonal);
   showTetragonal();
+  // Only the latest request's answer is drawn (the first look's default may still be on its way when the user computes).
+  let generation = 0;
   form.addEventListener('submit', (event) => {
     event.preventDefault();
     const query = readQuery(form);
+    const asked = ++generation;
     out.replaceChildren(h('p', { class: 'muted' }, 'Computing…'));
     api.fieldLevels(query).then(
       (answer) => {
+        if (asked !== generation) return;
         // The convention and the double-group labels are said in the form already; other notes go under the table.
         const notes = answer.notes.filter((n) => !n.startsWith('tetragonal field:') && !n.startsWith('spin–orbit coupling on:'));
         out.replaceChildren(table(answer), ...notes.map((n) => h('p', { class: 'muted small' }, chemistWording(n))));
         diagram.show(query);
       },
       (error: unknown) => {
+        if (asked !== generation) return;
         out.replaceChildren(h('p', { class: 'error', role: 'alert' }, errorMessage(error, 'levels')));
       },
     );
@@ -216,4 +221,6 @@ export function renderLevels(host: HTMLElement): void {
       h('section', { class: 'panel levels-side', 'aria-label': 'Parameters' }, form),
       h('div', { class: 'levels-main' }, h('section', { class: 'panel', id: 'levels-result' }, out), diagram.element)),
   );
+  // The first look shows the form's example computed (Cr(III)-like d3), not an empty box; submitted once the form is in the page.
+  form.requestSubmit();
 }

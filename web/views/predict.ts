@@ -147,24 +147,30 @@ function resultBlock(p: Prediction, id: string, scaleMax: number): HTMLElement {
   );
 }
 
+/** Asks the service for a column's prediction and redraws when it is in. */
+async function runColumn(column: Column, rerender: () => void): Promise<void> {
+  if (column.formula.trim() === '') return;
+  column.status = 'busy';
+  rerender();
+  try {
+    column.result = await requestPrediction(predictBody(column));
+    column.error = null;
+    column.status = 'done';
+  } catch (error) {
+    column.error = error instanceof api.ApiError ? error.body : { code: 'internal', message: 'Something went wrong in the page.', path: '' };
+    column.result = null;
+    column.status = 'failed';
+  }
+  rerender();
+}
+
+/** The example pair is predicted on the first visit, so the view does not open on two empty forms. */
+let examplesShown = false;
+
 function columnPanel(column: Column, index: number, libraryAvailable: boolean, scaleMax: number, rerender: () => void): HTMLElement {
   const id = `predict-${index === 0 ? 'a' : 'b'}`;
   const letter = index === 0 ? 'A' : 'B';
-  const run = async (): Promise<void> => {
-    if (column.formula.trim() === '') return;
-    column.status = 'busy';
-    rerender();
-    try {
-      column.result = await requestPrediction(predictBody(column));
-      column.error = null;
-      column.status = 'done';
-    } catch (error) {
-      column.error = error instanceof api.ApiError ? error.body : { code: 'internal', message: 'Something went wrong in the page.', path: '' };
-      column.result = null;
-      column.status = 'failed';
-    }
-    rerender();
-  };
+  const run = (): Promise<void> => runColumn(column, rerender);
   const form = h(
     'form',
     { class: 'predict-form', id: `${id}-form`, onsubmit: (event: Event) => { event.preventDefault(); void run(); } },
@@ -199,4 +205,8 @@ export function renderPredict(root: HTMLElement, libraryAvailable: boolean): voi
     h('p', { class: 'muted' }, 'Type a complex — "[Co(NH3)6]3+", "K3[Fe(CN)6]", "[NiCl4]2-" — to see its d-count, spin state and magnetism estimated from the formula alone (Jørgensen’s factors and the rules of the trade). Every number is an estimate, not a measurement. Compare two side by side: the same metal with two ligands.'),
     h('div', { class: 'predict-grid' }, ...columns.map((column, index) => columnPanel(column, index, libraryAvailable, scaleMax, rerender))),
   );
+  if (!examplesShown) {
+    examplesShown = true;
+    for (const column of columns) if (column.status === 'idle') void runColumn(column, rerender);
+  }
 }

@@ -17,6 +17,12 @@ export function setupTabs(onChange: (tab: TabName) => void): Tabs {
   const button = (tab: TabName): HTMLButtonElement => document.getElementById(`tab-${tab}`) as HTMLButtonElement;
   const panel = (tab: TabName): HTMLElement => document.getElementById(`view-${tab}`) as HTMLElement;
   const select = (tab: TabName): void => {
+    // The skip link leads to the view shown: #main (hidden with its tab) would lead nowhere from the others.
+    const skip = document.querySelector<HTMLAnchorElement>('a.skip');
+    if (skip !== null) {
+      skip.href = tab === 'analyse' ? '#main' : `#view-${tab}`;
+      skip.textContent = tab === 'analyse' ? 'Skip to the results' : `Skip to the ${button(tab).textContent ?? tab} view`;
+    }
     for (const name of NAMES) {
       const chosen = name === tab;
       button(name).setAttribute('aria-selected', String(chosen));

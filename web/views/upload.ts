@@ -7,6 +7,7 @@ import type { AnalysisEntry, SampleDetails } from '../state.js';
 import { columnNote } from './columns.js';
 import type { Geometry, XUnit } from '../types.js';
 import { ANALYSIS_OPTION_NAMES as NAME } from '../../src/analysis-option-names.js';
+import { oversizeMessage } from '../upload-size.js';
 
 export interface UploadHandlers {
   onAnalyse(files: File[], details: SampleDetails): void;
@@ -23,11 +24,21 @@ function field(id: string, label: string, input: HTMLElement, hint?: string): HT
 export interface UploadPanel {
   /** Redraws the list of analyses; the form keeps what the user typed. */
   renderEntries(entries: readonly AnalysisEntry[], currentKey: string | null): void;
+  /** The service's upload limit, bytes (null: unknown): larger files are refused here, before they are sent. */
+  setUploadLimit(bytes: number | null): void;
 }
 
 /** Builds the form once inside `root`. */
 export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): UploadPanel {
   const queued: File[] = [];
+  let uploadLimit: number | null = null;
+  // Files refused for their size, said in words beside the list; cleared when files are added again.
+  const refusedNote = h('div', { id: 'upload-refused', role: 'alert' });
+  const refuseOversized = (files: File[]): File[] => {
+    const refused = files.map((file) => oversizeMessage(file.name, file.size, uploadLimit)).filter((m): m is string => m !== null);
+    refusedNote.replaceChildren(...refused.map((message) => h('p', { class: 'error' }, message)));
+    return files.filter((file) => oversizeMessage(file.name, file.size, uploadLimit) === null);
+  };
   const fileInput = h('input', { type: 'file', id: 'file-input', multiple: true, accept: '.csv,.txt,.tsv,.dat,.jdx,.dx,.jcamp,text/plain,text/csv' });
   const queueList = h('ul', { class: 'queue', id: 'queue', 'aria-live': 'polite' });
   const showQueue = (): void => {
@@ -48,7 +59,7 @@ export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): 
   };
   const addFiles = (files: FileList | null): void => {
     if (files === null) return;
-    for (const file of Array.from(files)) if (!queued.some((q) => q.name === file.name && q.size === file.size)) queued.push(file);
+    for (const file of refuseOversized(Array.from(files))) if (!queued.some((q) => q.name === file.name && q.size === file.size)) queued.push(file);
     showQueue();
   };
   fileInput.addEventListener('change', () => addFiles(fileInput.files));
@@ -93,6 +104,7 @@ export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): 
     { id: 'sample-form', novalidate: true },
     h('h2', {}, 'Spectra'),
     drop,
+    refusedNote,
     queueList,
     h('h2', {}, 'Sample'),
     h('div', { class: 'row' }, field('ion', 'Metal ion', ion, 'charge with the sign: Co2+'), field('d-count', 'or dⁿ', dCount)),
@@ -140,6 +152,15 @@ export function createUploadPanel(root: HTMLElement, handlers: UploadHandlers): 
   root.replaceChildren(form, heading, list);
   showQueue();
   return {
+    setUploadLimit(bytes) {
+      uploadLimit = bytes;
+      // Files chosen before the limit was known are checked now.
+      const kept = refuseOversized(queued);
+      if (kept.length !== queued.length) {
+        queued.splice(0, queued.length, ...kept);
+        showQueue();
+      }
+    },
     renderEntries(entries, currentKey) {
       heading.hidden = entries.length === 0;
       list.replaceChildren(...entries.map((entry) => entryItem(entry, currentKey, handlers)));
@@ -175,6 +196,8 @@ function entryItem(entry: AnalysisEntry, currentKey: string | null, handlers: Up
         onclick: () => handlers.onSelect(entry.key),
       },
       h('span', { class: 'name' }, entry.details.sample || entry.fileName, columnItemNote(entry)),
+      // Read aloud between name and status ("cr-aqua.csv, 10Dq …"); not drawn between the flex items.
+      h('span', { class: 'visually-hidden' }, ', '),
       h('span', { class: `status ${entry.status}` }, entryStatus(entry)),
     ),
   );
