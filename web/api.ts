@@ -253,6 +253,7 @@ export async function deleteAnalysis(id: number): Promise<void> {
   if (!response.ok) await readJson<unknown>(response, `deleting record ${id}`);
 }
 
+/** The whole series (all=true): the page lists and downloads every analysis, as it always did; the service's default is a page of each list. */
 export function series(ion: string): Promise<SeriesReport> {
-  return send<SeriesReport>(`${BASE}/series?${new URLSearchParams({ ion }).toString()}`, { method: 'GET' }, `the ${ion} series`);
+  return send<SeriesReport>(`${BASE}/series?${new URLSearchParams({ ion, all: 'true' }).toString()}`, { method: 'GET' }, `the ${ion} series`);
 }
