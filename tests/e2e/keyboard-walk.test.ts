@@ -83,13 +83,14 @@ describe.skipIf(browserTestsSkipped())('the page with the keyboard alone', () =>
       await uploadAndAnalyse(s.page, [s.files[0]!]);
       await s.page.waitForSelector('#p-tendq', { timeout: 60_000 });
       const report: Record<string, { stops: Stop[]; unnamed: string[] }> = {};
-      for (const tab of ['analyse', 'compare', 'predict', 'levels']) {
+      for (const tab of ['analyse', 'compare', 'library', 'predict', 'levels']) {
         await s.page.focus('#tab-analyse');
         // The arrow keys move along the tab list (the ARIA tabs pattern); Enter is not needed.
         for (let i = 0; i < 5 && (await s.page.getAttribute(`#tab-${tab}`, 'aria-selected')) !== 'true'; i++) await s.page.keyboard.press('ArrowRight');
         expect(await s.page.getAttribute(`#tab-${tab}`, 'aria-selected')).toBe('true');
         if (tab === 'levels') await s.page.waitForSelector('#levels-table');
         if (tab === 'predict') await s.page.waitForSelector('#predict-b-result');
+        if (tab === 'library') await s.page.waitForSelector('#view-library:not([hidden]) > *');
         const stops = await walk(s.page, 120);
         report[tab] = { stops, unnamed: await unnamedControls(s.page) };
       }
