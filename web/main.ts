@@ -138,7 +138,10 @@ async function refit(entry: AnalysisEntry): Promise<void> {
     notify(`${tetragonal ? 'Tetragonal fit' : 'Refit'} failed: ${errorText(asErrorBody(error))}`);
   } finally {
     state.refitting = false;
+    // The Refit button was disabled while it ran, which drops the keyboard focus: give it back (the tetragonal result takes it below).
+    const focusLost = document.activeElement === document.body || document.activeElement === null;
     render();
+    if (focusLost) document.getElementById('refit')?.focus({ preventScroll: true });
   }
   // The tetragonal result is drawn above the cubic cards, far from the Refit button: take the reader there.
   if (tetragonal && entry.tetragonalFit && state.currentKey === entry.key && state.tab === 'analyse') {

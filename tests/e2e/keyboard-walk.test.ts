@@ -83,13 +83,14 @@ describe.skipIf(browserTestsSkipped())('the page with the keyboard alone', () =>
       await uploadAndAnalyse(s.page, [s.files[0]!]);
       await s.page.waitForSelector('#p-tendq', { timeout: 60_000 });
       const report: Record<string, { stops: Stop[]; unnamed: string[] }> = {};
-      for (const tab of ['analyse', 'compare', 'predict', 'levels']) {
+      for (const tab of ['analyse', 'compare', 'library', 'predict', 'levels']) {
         await s.page.focus('#tab-analyse');
         // The arrow keys move along the tab list (the ARIA tabs pattern); Enter is not needed.
         for (let i = 0; i < 5 && (await s.page.getAttribute(`#tab-${tab}`, 'aria-selected')) !== 'true'; i++) await s.page.keyboard.press('ArrowRight');
         expect(await s.page.getAttribute(`#tab-${tab}`, 'aria-selected')).toBe('true');
         if (tab === 'levels') await s.page.waitForSelector('#levels-table');
         if (tab === 'predict') await s.page.waitForSelector('#predict-b-result');
+        if (tab === 'library') await s.page.waitForSelector('#view-library:not([hidden]) > *');
         const stops = await walk(s.page, 120);
         report[tab] = { stops, unnamed: await unnamedControls(s.page) };
       }
@@ -121,4 +122,28 @@ describe.skipIf(browserTestsSkipped())('the page with the keyboard alone', () =>
       expect(await s.page.evaluate((id) => document.getElementById(id)!.contains(document.activeElement), target), tab).toBe(true);
     }
   }, 60_000);
+
+  it('keeps the keyboard focus on the button pressed while Predict and Refit run', async () => {
+    await s.page.setViewportSize({ width: 1280, height: 900 });
+    await s.page.goto(s.service.baseUrl);
+    await s.page.click('#tab-predict');
+    await s.page.waitForSelector('#predict-a-result');
+    await s.page.fill('#predict-a-formula', '[Co(NH3)6]3+');
+    await s.page.focus('#predict-a-go');
+    const answer = s.page.waitForResponse((r) => r.url().endsWith('/api/v1/predict'));
+    await s.page.keyboard.press('Enter');
+    await answer;
+    await s.page.waitForFunction(() => document.querySelector('#predict-a-result h3')?.textContent?.includes('Co(NH3)6'));
+    await s.page.waitForFunction(() => document.activeElement?.id === 'predict-a-go');
+
+    await s.page.click('#tab-analyse');
+    await uploadAndAnalyse(s.page, [s.files[0]!]);
+    await s.page.waitForSelector('#refit');
+    await s.page.focus('#refit');
+    const refit = s.page.waitForResponse((r) => r.url().endsWith('/api/v1/fit'));
+    await s.page.keyboard.press('Enter');
+    await refit;
+    await s.page.waitForSelector('#refit:not([disabled])');
+    await s.page.waitForFunction(() => document.activeElement?.id === 'refit');
+  }, 90_000);
 });

@@ -8,7 +8,7 @@
  */
 import './predict.css';
 import * as api from '../api.js';
-import { h } from '../dom.js';
+import { h, keepingFocus } from '../dom.js';
 import type { Prediction } from '../../src/series/predict.js';
 import { formatPlusMinus } from '../../src/report/plus-minus.js';
 import { probabilityText } from '../../src/report/probability.js';
@@ -150,6 +150,8 @@ function resultBlock(p: Prediction, id: string, scaleMax: number): HTMLElement {
 /** Asks the service for a column's prediction and redraws when it is in. */
 async function runColumn(column: Column, rerender: () => void): Promise<void> {
   if (column.formula.trim() === '') return;
+  // The button pressed is disabled while busy, which drops the keyboard focus: it is given back when the answer is in.
+  const returnTo = document.activeElement instanceof HTMLElement ? document.activeElement.id : '';
   column.status = 'busy';
   rerender();
   try {
@@ -162,6 +164,7 @@ async function runColumn(column: Column, rerender: () => void): Promise<void> {
     column.status = 'failed';
   }
   rerender();
+  if (returnTo !== '' && (document.activeElement === document.body || document.activeElement === null)) document.getElementById(returnTo)?.focus({ preventScroll: true });
 }
 
 /** The example pair is predicted on the first visit, so the view does not open on two empty forms. */
@@ -198,7 +201,7 @@ function columnPanel(column: Column, index: number, libraryAvailable: boolean, s
 
 /** Draws the view into its tab panel. */
 export function renderPredict(root: HTMLElement, libraryAvailable: boolean): void {
-  const rerender = (): void => renderPredict(root, libraryAvailable);
+  const rerender = (): void => keepingFocus(() => renderPredict(root, libraryAvailable));
   const scaleMax = Math.max(1, ...columns.flatMap((c) => (c.result ? scaleEnergies(c.result) : [])));
   root.replaceChildren(
     h('h2', {}, 'What a formula says'),
