@@ -76,7 +76,7 @@ export function resultCsv(entry: AnalysisEntry): string {
       band.kind,
       band.shoulder ? 'yes' : 'no',
       band.included ? 'yes' : 'no',
-      bandCaption(band, assignments),
+      bandCaption(band, assignments, fit ?? null),
       cell(a?.calculated),
     ]);
   });

@@ -83,6 +83,9 @@ export interface Assignment {
   label?: string;
   /** Indices of the bands behind it: two for a split pair read at their mean (absent in an alternative's). */
   bands?: number[];
+  /** The core's: whether the transition keeps the ground level's spin, and the final level's 2S+1 (absent from older services). */
+  spinAllowed?: boolean;
+  multiplicity?: number;
 }
 
 export interface PredictedLevel {

@@ -5,12 +5,13 @@
  * spectra. Data arrive in cm-1; the nm axis is made here by the core's 10^7/x (src/spectrum/units.ts) and a
  * reversal so x stays ascending.
  */
-import type { Assignment, Curves, MaskedRange } from '../types.js';
+import type { Assignment, Curves, FitResult, MaskedRange } from '../types.js';
 import type { EditableBand } from '../state.js';
 import type { Mark, PlotSpec, SeriesSpec } from './spec.js';
 import { levelLabel } from '../format.js';
 import { valueToWavenumber, wavenumberToValue } from '../../src/spectrum/units.js';
 import { splitPairLimit } from '../../src/fit/penalties.js';
+import { ASSIGNED_KIND_TEXT, assignedKindOf } from '../../src/report/band-assigned-kind.js';
 import { dataRange } from './spec.js';
 
 export type AxisUnit = 'cm-1' | 'nm';
@@ -69,12 +70,24 @@ export function assignmentForBand(position: number, assignments: readonly Assign
   return best;
 }
 
-/** What a band is called on the plot and in tables. */
-export function bandCaption(band: EditableBand, assignments: readonly Assignment[]): string {
+/** The fit a band's kind is read from (src/report/band-assigned-kind.ts). */
+export type KindContext = Pick<FitResult, 'd' | 'geometry' | 'groundTerm' | 'cOverB'>;
+
+/**
+ * What a band is called on the plot and in tables. An assigned band is
+ * called by its transition's kind (spin-forbidden, two-electron), the one
+ * rule the CLI and the JSON use, when `fit` is given and the assignment
+ * carries its spin; otherwise by the band's own kind, as the user set it.
+ */
+export function bandCaption(band: EditableBand, assignments: readonly Assignment[], fit: KindContext | null = null): string {
   if (!band.included) return 'removed';
   if (band.kind === 'charge-transfer') return 'charge transfer';
   const a = assignmentForBand(band.position, assignments);
   const name = a === undefined ? 'unassigned' : levelLabel(a.term, a.parent, a.label);
+  if (a !== undefined && fit !== null && a.spinAllowed !== undefined && a.multiplicity !== undefined) {
+    const kind = assignedKindOf({ spinAllowed: a.spinAllowed, multiplicity: a.multiplicity, term: a.term }, fit);
+    return kind === 'spin-allowed' ? name : `${name} (${ASSIGNED_KIND_TEXT[kind].replace('d-d, ', '')})`;
+  }
   return band.kind === 'spin-forbidden' ? `${name} (spin-forbidden)` : name;
 }
 
@@ -109,6 +122,8 @@ export interface SpectrumSpecInput {
   signalUnit: string | undefined;
   bands: readonly EditableBand[];
   assignments: readonly Assignment[];
+  /** The fit the assignments come from: names each band's kind by its transition (null: by the band's own kind). */
+  fit?: KindContext | null;
   masked: readonly MaskedRange[];
   unit: AxisUnit;
 }
@@ -162,7 +177,7 @@ export function spectrumSpec(input: SpectrumSpecInput): PlotSpec {
     placed.push({ x: bx, row });
     const color = band.included ? (band.kind === 'charge-transfer' ? '#6b7280' : '#111827') : '#9ca3af';
     if (band.origin === 'added') marks.push({ kind: 'vline', x: bx, color: '#7e22ce', dash: [2, 3] });
-    marks.push({ kind: 'text', x: bx, y, text: bandCaption(band, assignments), color, rise: 8 + row * 15 });
+    marks.push({ kind: 'text', x: bx, y, text: bandCaption(band, assignments, input.fit ?? null), color, rise: 8 + row * 15 });
   }
   const [lo, hi] = dataRange(ys);
   return {

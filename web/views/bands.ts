@@ -70,7 +70,7 @@ function bandRow(entry: AnalysisEntry, band: EditableBand, index: number, handle
     h('td', { class: 'num' }, formatNumber(nmFromWavenumber(band.position), 1), windowNote(found?.window)),
     h('td', { class: 'num' }, formatNumber(band.epsilon, 1)),
     h('td', { class: 'num' }, formatNumber(found?.fwhm, 0)),
-    h('td', {}, bandCaption(band, assignments), unused === undefined ? null : h('div', { class: 'muted small' }, `not used: ${unused.reason}`)),
+    h('td', {}, bandCaption(band, assignments, tetragonal === null ? fit : null), unused === undefined ? null : h('div', { class: 'muted small' }, `not used: ${unused.reason}`)),
     h('td', {}, kind),
     h('td', { class: 'center' }, shoulder),
     h('td', {}, action),

@@ -140,6 +140,7 @@ export function spectrumFigures(entry: AnalysisEntry, unit: AxisUnit, pickArmed:
       signalUnit: result.spectrum.signalUnit,
       bands: entry.bands,
       assignments,
+      fit,
       masked: result.spectrum.masked,
       unit,
     }));

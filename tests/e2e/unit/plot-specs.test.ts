@@ -60,6 +60,23 @@ describe('spectrum plot data', () => {
     expect(bandCaption(band(17_500, { kind: 'spin-forbidden' }), assignments)).toBe('3T1g(F) (spin-forbidden)');
   });
 
+  it('names an assigned band by its transition when the fit is given: a weak quartet of high-spin Co(II) is two-electron, not spin-forbidden', () => {
+    // d7 octahedral from 4T1g(F): 4A2g(F) is a quartet, spin-allowed, reached by moving two electrons (t2g^5 eg^2 → t2g^3 eg^4;
+    // common practice); 4T1g(P) is the one-electron band; a doublet is spin-forbidden. The band's own kind (here the
+    // spectrum's "spin-forbidden" by intensity) no longer names it once the fit has assigned it.
+    const fit = { d: 7, geometry: 'octahedral' as const, groundTerm: '4T1g', cOverB: 4.5 };
+    const rows: Assignment[] = [
+      { observed: 15_579, calculated: 15_579, term: '4A2g', label: '4A2g(F)', spinAllowed: true, multiplicity: 4 },
+      { observed: 19_912, calculated: 19_912, term: '4T1g', label: '4T1g(P)', spinAllowed: true, multiplicity: 4 },
+      { observed: 21_500, calculated: 21_500, term: '2T1g', label: '2T1g', spinAllowed: false, multiplicity: 2 },
+    ];
+    expect(bandCaption(band(15_579, { kind: 'spin-forbidden' }), rows, fit)).toBe('4A2g(F) (two-electron, weak)');
+    expect(bandCaption(band(19_912), rows, fit)).toBe('4T1g(P)');
+    expect(bandCaption(band(21_500), rows, fit)).toBe('2T1g (spin-forbidden)');
+    // Without the fit (or from an older service without the spin fields): the band's own kind, as before.
+    expect(bandCaption(band(15_579, { kind: 'spin-forbidden' }), rows)).toBe('4A2g(F) (spin-forbidden)');
+  });
+
   it('names both components of a split pair by the assignment of the pair, and nothing beyond half the split limit', () => {
     // One 3T1g(F) read from two maxima 1 622 cm-1 apart, observed at their mean (the fit's split-band reading).
     const pair = [{ observed: 14_333, calculated: 14_333, term: '3T1g', parent: '3F', label: '3T1g(F)', bands: [0, 1] }];
