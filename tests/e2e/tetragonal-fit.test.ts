@@ -5,51 +5,16 @@
  * /api/v1/fit, and the page shows Dq, Ds, Dt with their uncertainties and
  * each band's D4h level with its octahedral parent, as the service answered.
  */
-import { readFile, writeFile } from 'node:fs/promises';
+import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { formatNumber, formatWithUncertainty } from '../../web/format.js';
-import { formatDelimited, synthesizeSpectrum } from '../../src/spectrum/index.js';
 import { fitTetragonal, type TetragonalFitResult } from '../../src/fit-tetragonal/index.js';
 import { computeFieldLevels } from '../../src/ligand-field/field-levels.js';
 import { browserTestsSkipped } from './helpers/browser.js';
 import { cardValue } from './helpers/page-actions.js';
+import { CU_BANDS, loadCuWithPublishedBands } from './helpers/invented-cu.js';
 import { SHOTS, sessionPerSuite } from './helpers/session.js';
-
-// Polarized crystal spectrum of bisethylenediamine copper(II) thiosulfate, Proc. Indian Acad. Sci. (Chem. Sci.) 88(3),
-// 143–147, https://www.ias.ac.in/describe/article/jcsc/088/03/0143-0147: bands at 14.30, 15.60 and 19.10 kK.
-const CU_BANDS = [14300, 15600, 19100];
-
-/**
- * An invented Cu(II) spectrum (not a measurement, never a check value): one broad asymmetric envelope of three
- * overlapping bands in a 380–900 nm window, as a d9 complex gives. The user types the band maxima of the paper in.
- */
-async function writeInventedCu(folder: string): Promise<string> {
-  const spectrum = synthesizeSpectrum({
-    bands: [
-      { position: 14_300, fwhm: 2600, epsilon: 40 },
-      { position: 15_600, fwhm: 2600, epsilon: 60 },
-      { position: 19_100, fwhm: 3600, epsilon: 25 },
-    ],
-    fromNm: 380,
-    toNm: 900,
-    stepNm: 1,
-    concentration: 0.01,
-    baselineOffset: 0.01,
-    edge: { position: 38_000, fwhm: 6000, height: 1.0 },
-    noise: 0.001,
-    seed: 5,
-  });
-  const text = formatDelimited({
-    x: spectrum.wavelength,
-    ys: [spectrum.absorbance],
-    header: ['wavelength (nm)', 'absorbance'],
-    preamble: ['# invented Cu(II) spectrum for the fieldgap page tests, not a measurement'],
-  });
-  const path = join(folder, 'invented-cu.csv');
-  await writeFile(path, text);
-  return path;
-}
 
 describe.skipIf(browserTestsSkipped())('the tetragonal fit on the page', () => {
   const s = sessionPerSuite();
@@ -57,24 +22,8 @@ describe.skipIf(browserTestsSkipped())('the tetragonal fit on the page', () => {
   it('refits the bands in D4h and shows Dq, Ds, Dt with uncertainties, D4h levels and octahedral parents', async () => {
     const page = s.page;
     await page.setViewportSize({ width: 1280, height: 900 });
-    await page.goto(s.service.baseUrl);
-    await page.setInputFiles('#file-input', [await writeInventedCu(s.folder)]);
-    await page.fill('#ion', 'Cu2+');
-    await page.fill('#conc', '0.01');
-    await page.click('#analyse');
-    await page.waitForSelector('#band-table', { timeout: 60_000 });
-
     // Take out the bands the finder found in the envelope; type in the published maxima.
-    for (;;) {
-      const remove = page.locator('#band-table button[id$="-remove"]').first();
-      if ((await remove.count()) === 0) break;
-      await remove.click();
-    }
-    for (const position of CU_BANDS) {
-      await page.fill('#add-position', String(position));
-      await page.click('#add-band');
-      await page.waitForSelector(`#band-table tr[data-position="${position}"]`);
-    }
+    await loadCuWithPublishedBands(page, s.service.baseUrl, s.folder);
 
     // The symmetry choice: tetragonal hides the cubic-only "fit C" box and says what it fits.
     await page.selectOption('#refit-symmetry', 'tetragonal');

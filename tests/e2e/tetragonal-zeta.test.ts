@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { fitTetragonal, type TetragonalFitResult } from '../../src/fit-tetragonal/index.js';
 import { formatWithUncertainty } from '../../web/format.js';
-import { CU_BANDS, writeInventedCu } from './helpers/invented-cu.js';
+import { CU_BANDS, loadCuWithPublishedBands } from './helpers/invented-cu.js';
 import { browserTestsSkipped } from './helpers/browser.js';
 import { cardValue } from './helpers/page-actions.js';
 import { SHOTS, sessionPerSuite } from './helpers/session.js';
@@ -35,22 +35,7 @@ describe.skipIf(browserTestsSkipped())('the spin–orbit choice of the tetragona
 
   it('sends off, fixed, free-ion and fitted ζ as REST takes them, with the caution beside the choice', async () => {
     const page = s.page;
-    await page.goto(s.service.baseUrl);
-    await page.setInputFiles('#file-input', [await writeInventedCu(s.folder)]);
-    await page.fill('#ion', 'Cu2+');
-    await page.fill('#conc', '0.01');
-    await page.click('#analyse');
-    await page.waitForSelector('#band-table', { timeout: 60_000 });
-    for (;;) {
-      const remove = page.locator('#band-table button[id$="-remove"]').first();
-      if ((await remove.count()) === 0) break;
-      await remove.click();
-    }
-    for (const position of CU_BANDS) {
-      await page.fill('#add-position', String(position));
-      await page.click('#add-band');
-      await page.waitForSelector(`#band-table tr[data-position="${position}"]`);
-    }
+    await loadCuWithPublishedBands(page, s.service.baseUrl, s.folder);
     // The ζ choice belongs to the tetragonal refit only.
     expect(await page.locator('#refit-zeta-mode').count()).toBe(0);
     await page.selectOption('#refit-symmetry', 'tetragonal');

@@ -1,10 +1,10 @@
 /**
  * The Cu(II) case of the tetragonal page tests: published band maxima, and an
  * invented spectrum (not a measurement) to load before typing them in.
- * (The same as tests/e2e/tetragonal-fit.test.ts, shared here for new tests.)
  */
 import { writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
+import type { Page } from 'playwright-core';
 import { formatDelimited, synthesizeSpectrum } from '../../../src/spectrum/index.js';
 
 // Polarized crystal spectrum of bisethylenediamine copper(II) thiosulfate, Proc. Indian Acad. Sci. (Chem. Sci.) 88(3),
@@ -42,3 +42,27 @@ export async function writeInventedCu(folder: string): Promise<string> {
   return path;
 }
 
+
+/**
+ * On the page at `baseUrl`: analyse the invented spectrum as Cu2+ (0.01 M),
+ * take out the bands the finder found in the envelope and type in the
+ * published maxima (CU_BANDS), as a user would before a tetragonal refit.
+ */
+export async function loadCuWithPublishedBands(page: Page, baseUrl: string, folder: string): Promise<void> {
+  await page.goto(baseUrl);
+  await page.setInputFiles('#file-input', [await writeInventedCu(folder)]);
+  await page.fill('#ion', 'Cu2+');
+  await page.fill('#conc', '0.01');
+  await page.click('#analyse');
+  await page.waitForSelector('#band-table', { timeout: 60_000 });
+  for (;;) {
+    const remove = page.locator('#band-table button[id$="-remove"]').first();
+    if ((await remove.count()) === 0) break;
+    await remove.click();
+  }
+  for (const position of CU_BANDS) {
+    await page.fill('#add-position', String(position));
+    await page.click('#add-band');
+    await page.waitForSelector(`#band-table tr[data-position="${position}"]`);
+  }
+}
