@@ -1,17 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { parseIon } from '../../src/chemistry/ions.js';
 import { parseFormula } from '../../src/chemistry/formula.js';
-import { FieldgapError } from '../../src/errors.js';
+import { errorOf } from '../helpers/errors.js';
 
-function errorOf(f: () => unknown): FieldgapError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof FieldgapError) return e;
-    throw e;
-  }
-  throw new Error('no error thrown');
-}
 
 /** AUDIT2 findings 9 and 11: errors that named the wrong problem. */
 describe('formula and ion errors say the real problem', () => {

@@ -1,32 +1,28 @@
 import { describe, expect, it } from 'vitest';
 import { nearestOption, parseCommandArgs } from '../../src/arguments.js';
-import { FieldgapError } from '../../src/errors.js';
+import type { FieldgapError } from '../../src/errors.js';
+import { errorOf } from '../helpers/errors.js';
 
 /** AUDIT2 finding 23: an unknown option names itself, the nearest real one, and --help; not node's wording. */
 const OPTIONS = { c: { type: 'string' }, ion: { type: 'string' }, conc: { type: 'string' }, path: { type: 'string' }, 'no-step-correction': { type: 'boolean' }, json: { type: 'boolean' } } as const;
 
-function errorOf(argv: string[]): FieldgapError {
-  try {
-    parseCommandArgs(argv, OPTIONS, true);
-  } catch (e) {
-    if (e instanceof FieldgapError) return e;
-    throw e;
-  }
-  throw new Error('no error thrown');
+/** The error `parseCommandArgs` gives for `argv`. */
+function parseError(argv: string[]): FieldgapError {
+  return errorOf(() => parseCommandArgs(argv, OPTIONS, true));
 }
 
 describe('unknown options', () => {
   it('suggest the nearest option for a typo', () => {
-    const e = errorOf(['a.csv', '--cnoc', '0.1']);
+    const e = parseError(['a.csv', '--cnoc', '0.1']);
     expect(e.message).toBe('--cnoc: no such option; did you mean --conc? (every option: --help)');
     expect(e.path).toBe('--cnoc');
     // A one-letter option (--c, Racah C) is no prefix match for a longer typo.
-    expect(errorOf(['--cnoc', '1']).message).not.toMatch(/did you mean --c\?/);
-    expect(errorOf(['--no-step']).message).toMatch(/did you mean --no-step-correction\?/);
+    expect(parseError(['--cnoc', '1']).message).not.toMatch(/did you mean --c\?/);
+    expect(parseError(['--no-step']).message).toMatch(/did you mean --no-step-correction\?/);
   });
 
   it('suggest nothing for a word far from every option', () => {
-    expect(errorOf(['--bogus']).message).toBe('--bogus: no such option (every option: --help)');
+    expect(parseError(['--bogus']).message).toBe('--bogus: no such option (every option: --help)');
   });
 
   it('nearestOption against a slow reference: every option is its own nearest', () => {
