@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, expect, it } from 'vitest';
 import { analyzeSpectrum } from '../../src/analysis.js';
-import { changeLines, fitLine, recordText } from '../../src/cli/commands/library-text.js';
+import { changeLines, fitLine, recordText, summaryTable } from '../../src/cli/commands/library-text.js';
 import { openLibraryAt, type Library } from '../../src/library/library.js';
 import { NO_SPIN_STATE_CHOICE } from '../../src/report/spin-state-wording.js';
 
@@ -43,4 +43,12 @@ it('library show: the spin state in words, and each band by its full term with i
 
 it('a refit that changes the spin state says it in words', () => {
   expect(changeLines([{ what: 'spinState', before: 'no-choice', after: 'high-spin' }] as never)).toBe(`  spin state: ${NO_SPIN_STATE_CHOICE} → high-spin\n`);
+});
+
+it('library list: the SPIN cell of a d^n with one spin state says "one possible", as the analyze summary table does (AUDIT2 finding 7)', async () => {
+  const options = { ion: 'Ni2+', fileName: 'ni-aqua-visible.csv' };
+  await library.add({ sample: 'ni aqua', fileName: 'ni-aqua-visible.csv', content: NI, options, result: analyzeSpectrum(NI, options) });
+  const table = summaryTable((await library.list({ limit: 10, offset: 0 })).analyses);
+  expect(table).toContain('one possible');
+  expect(table).not.toContain('no-choice');
 });

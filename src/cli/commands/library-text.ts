@@ -6,7 +6,7 @@ import type { AnalysisRecord, AnalysisSummary, FitSummary } from '../../library/
 import type { AssignmentChange } from '../../library/refit.js';
 import { terminalSafe } from '../terminal-text.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
-import { NO_SPIN_STATE_CHOICE } from '../../report/spin-state-wording.js';
+import { NO_SPIN_STATE_CHOICE, spinStateWords } from '../../report/spin-state-wording.js';
 import { textTableLines, type ColumnAlign } from '../../report/text-table.js';
 import type { FitResult } from '../../fit/types.js';
 
@@ -63,7 +63,7 @@ export function summaryTable(analyses: AnalysisSummary[]): string {
     const s = a.summary;
     rows.push([
       String(a.id), clip(a.sample, 28), clip(a.formula ?? '', 22), terminalSafe(a.ion ?? ''),
-      plusMinus(s.tenDq, s.tenDqSd), plusMinus(s.b, s.bSd), plusMinus(s.beta, s.betaSd, 2), s.spinState ?? '',
+      plusMinus(s.tenDq, s.tenDqSd), plusMinus(s.b, s.bSd), plusMinus(s.beta, s.betaSd, 2), s.spinState === 'no-choice' ? spinStateWords(s.spinState) : s.spinState ?? '',
       s.rmsResidual === null ? '-' : s.rmsResidual.toFixed(0), a.createdAt.slice(0, 10),
       ...(users ? [clip(a.owner ?? '-', 16), clip(a.group ?? '-', 16)] : []),
     ]);
