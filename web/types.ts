@@ -10,7 +10,7 @@ import type { Diagram, DiagramLine, Geometry } from '../src/ligand-field/types.j
 import type { BandKind, XUnit } from '../src/spectrum/types.js';
 import type { BandFlag } from '../src/fit/bands.js';
 import type { ErrorCode } from '../src/errors.js';
-import type { FitResult as CoreFit, Alternative as CoreAlternative } from '../src/fit/types.js';
+import type { AssignedBand, FitResult as CoreFit, Alternative as CoreAlternative } from '../src/fit/types.js';
 import type { FitSummary } from '../src/library/types.js';
 import type { TetragonalFitResult } from '../src/fit-tetragonal/types.js';
 import type { RankedEntry, Ranking } from '../src/series/types.js';
@@ -72,21 +72,14 @@ export interface Band {
   maximumInWindow?: boolean;
 }
 
-export interface Assignment {
-  /** cm-1. */
-  observed: number;
-  /** cm-1. */
-  calculated: number;
-  term: string;
-  /** Absent in the assignments of an alternative. */
-  parent?: string;
-  label?: string;
-  /** Indices of the bands behind it: two for a split pair read at their mean (absent in an alternative's). */
-  bands?: number[];
-  /** The core's: whether the transition keeps the ground level's spin, and the final level's 2S+1 (absent from older services). */
-  spinAllowed?: boolean;
-  multiplicity?: number;
-}
+/**
+ * An assignment row as the page reads it: the core's AssignedBand
+ * (src/fit/types.ts), with what an alternative's rows or an older service may
+ * lack optional. observed and calculated in cm-1; `bands` two for a split
+ * pair read at their mean.
+ */
+export type Assignment = Pick<AssignedBand, 'observed' | 'calculated' | 'term'>
+  & Partial<Pick<AssignedBand, 'parent' | 'label' | 'bands' | 'spinAllowed' | 'multiplicity'>>;
 
 export interface PredictedLevel {
   energy: number;

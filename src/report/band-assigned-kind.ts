@@ -34,6 +34,13 @@ export const ASSIGNED_KIND_TEXT: Record<AssignedKind, string> = {
   'spin-forbidden': 'd-d, spin-forbidden',
 };
 
+/** A band caption's note on the page (nothing for the ordinary case, a spin-allowed one-electron band). */
+export const ASSIGNED_KIND_NOTE: Record<AssignedKind, string | null> = {
+  'spin-allowed': null,
+  'two-electron': 'two-electron, weak',
+  'spin-forbidden': 'spin-forbidden',
+};
+
 type FitPart = Pick<FitResult, 'd' | 'geometry' | 'groundTerm' | 'cOverB' | 'assignments'>;
 
 /**

@@ -11,7 +11,7 @@ import type { Mark, PlotSpec, SeriesSpec } from './spec.js';
 import { levelLabel } from '../format.js';
 import { valueToWavenumber, wavenumberToValue } from '../../src/spectrum/units.js';
 import { splitPairLimit } from '../../src/fit/penalties.js';
-import { ASSIGNED_KIND_TEXT, assignedKindOf } from '../../src/report/band-assigned-kind.js';
+import { ASSIGNED_KIND_NOTE, assignedKindOf } from '../../src/report/band-assigned-kind.js';
 import { dataRange } from './spec.js';
 
 export type AxisUnit = 'cm-1' | 'nm';
@@ -85,8 +85,8 @@ export function bandCaption(band: EditableBand, assignments: readonly Assignment
   const a = assignmentForBand(band.position, assignments);
   const name = a === undefined ? 'unassigned' : levelLabel(a.term, a.parent, a.label);
   if (a !== undefined && fit !== null && a.spinAllowed !== undefined && a.multiplicity !== undefined) {
-    const kind = assignedKindOf({ spinAllowed: a.spinAllowed, multiplicity: a.multiplicity, term: a.term }, fit);
-    return kind === 'spin-allowed' ? name : `${name} (${ASSIGNED_KIND_TEXT[kind].replace('d-d, ', '')})`;
+    const note = ASSIGNED_KIND_NOTE[assignedKindOf({ spinAllowed: a.spinAllowed, multiplicity: a.multiplicity, term: a.term }, fit)];
+    return note === null ? name : `${name} (${note})`;
   }
   return band.kind === 'spin-forbidden' ? `${name} (spin-forbidden)` : name;
 }
