@@ -55,6 +55,36 @@
  * with its published Dq, Ds, Dt was readable; nothing was taken from memory.
  * The tetrahedral Co(II) case is analysed in spin-orbit-cobalt.test.ts:
  * why its fitted ζ exceeds the free ion's, with the engine's own numbers.
+ *
+ * Searched a fourth time (the `search` tool, corpora pages, docs and code, plus
+ * find_string, about 30 look-ups, none repeating the lists above): J.-H. Choi's
+ * Bull. Korean Chem. Soc. / J. Korean Chem. Soc. / koreascience pages (cis- and
+ * trans-[Cr(cyclam)X2]+, trans-[CrX2([15]aneN4)]+ (X = F, Cl; J. Korean Chem.
+ * Soc. 47 (2003) 109), [Cr(trans-diammac)]3+, cis-[Cr(cyclam)F2]+: abstracts
+ * only, "ligand field analysis" and "strong σ- and π-donor" without Dq, Ds, Dt
+ * or eσ, eπ values); trans-[CrCl2(Me2tn)2]Cl (Spectrochim. Acta A, 2007;
+ * daneshyari abstract: "resolved band maxima ... fitted with a secular
+ * determinant for a quartet energy state of the d3 configuration in a
+ * tetragonal field", no numbers), trans-[Cr(Me2tn)2Cl2]2ZnCl4 (Z. Anorg. Allg.
+ * Chem. 2011, doi 10.1002/zaac.201100029) and trans-[Cr(tn)2Cl2]ClO4 (Choi,
+ * Takayama & Suzuki, J. Struct. Chem., pp. 395-399): the same, abstracts
+ * without numbers — these are the best leads if the full text can be had;
+ * trans-[Cr(en)2(CN)2]+, trans-[Cr(cyclam)(CN)2]+, trans-[Cr(NH3)4(CN)2]+
+ * ("UV-Vis absorption study of some tetragonal chromium(III) complexes": Dq,
+ * Dt, Ds fitted, values not in the abstract; dicyano, not dihalo); Baker &
+ * Phillips 1966 again, through the page of the following article in the same
+ * issue (the datapdf pages open with the tail of the preceding paper: not
+ * stored); Wentworth & Piper 1965 (not stored); trans-[CoCl2(NH3)n(H2O)4−n]Cl
+ * polarized spectra (one band, 15 200 cm-1, no parameters); Ni(II) planar and
+ * tetragonal (Hitchman-type CLF and AOM abstracts: eσ, eπ named, not given);
+ * [Ni(CN)4]2- (Hummel, Halpern-Manners & Gray, Inorg. Chem. 45 (2006) 7397:
+ * band positions re-assigned by TD-DFT, no ligand-field parameters); Pramana /
+ * CNKI abstracts of doped crystals (Cr3+ in ruby with Dq, B, C, trigonal v:
+ * trigonal, not tetragonal); Academia.edu table pages (a Ru(III) table only);
+ * the docs corpus (its hits are programs of the kind the house rules keep out
+ * of this project; not read); the code corpus and find_string for complex
+ * names (no data file of a published tetragonal analysis). Still no band list
+ * with its published Dq, Ds, Dt readable; nothing was taken from memory.
  */
 import { describe, expect, it } from 'vitest';
 import type { CliIo } from '../../src/cli/command.js';
@@ -102,6 +132,7 @@ describe('tetragonal fit on published spectra', () => {
     expect(json.groundTerm).toBe('2B1g');
   });
 
+  // Best lead (header, fourth search): trans-[CrCl2(Me2tn)2]Cl, Spectrochim. Acta A (2007; authors not on the stored page): band maxima fitted in a tetragonal d3 field.
   it.todo('trans-dihalo tetragonal Cr(III) or Co(III): band maxima with published Dq, Ds, Dt (not found, see the header)');
   it.todo('square-planar d8 ([PtCl4]2-, [PdCl4]2- or [Ni(CN)4]2-): band maxima with published Dq, Ds, Dt (not found)');
   it.todo('tetrahedral Co(II): the 4A2 → 4T1(P) multiplet with a published ζ (not found; see spin-orbit-cobalt.test.ts for why the fitted ζ is high)');
