@@ -40,6 +40,20 @@ import { tetragonalSpectrum } from './tetragonal-spectrum.js';
  * each eigenvalue of the first, which saves its QL iteration, the larger
  * part of its cost.
  *
+ * Where the time goes (issue 15's 2× is not met; measured at d5 with
+ * bench/ligand-field.ts, Ds = 0.1 Dq, Dt = 0.05 Dq, as CPU-time ratios to one
+ * labelled cubic call): the tetragonal eigenvalues 1.6–1.7× (the blocks are
+ * already the smallest: one row of E, spin-adapted, 11 + 8 + 18 + 10 + 10
+ * doublet states against the cubic 4 + 3 + 7 + 8 + 10), the parents
+ * (tetragonalParentRanks) 0.4× (every cubic block a merge needs brought to
+ * tridiagonal form, the shorter lists' QL), the rest (free-ion parent
+ * table, sort, label strings, objects, validation) 0.3–0.6×. The first two
+ * are a floor near 2.1× for this method. A shortcut that orders the merges
+ * from the tetragonal eigenvalues alone (Weyl: when every gap of a merged
+ * cubic list exceeds 2‖V‖, V the Ds, Dt part) holds for no d3–d7 parameter
+ * set at the bench's distortion (bench weylShortcutShare), so it is not
+ * used.
+ *
  * The slow reference (a labelled computeLevels, then parents by rank) is
  * spinFreeTetragonalLevelsViaCubic in tetragonal-spin-free.ts, which also serves
  * Dq = 0; tests/ligand-field/tetragonal-levels.test.ts and
