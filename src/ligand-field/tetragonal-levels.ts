@@ -40,6 +40,20 @@ import { tetragonalSpectrum } from './tetragonal-spectrum.js';
  * each eigenvalue of the first, which saves its QL iteration, the larger
  * part of its cost.
  *
+ * Where the time goes (issue 15's 2× is not met; measured at d5 with
+ * bench/ligand-field.ts, Ds = 0.1 Dq, Dt = 0.05 Dq, as CPU-time ratios to one
+ * labelled cubic call): the tetragonal eigenvalues 1.6–1.7× (the blocks are
+ * already the smallest: one row of E, spin-adapted, 11 + 8 + 18 + 10 + 10
+ * doublet states against the cubic 4 + 3 + 7 + 8 + 10), the parents
+ * (tetragonalParentRanks) 0.4× (every cubic block a merge needs brought to
+ * tridiagonal form, the shorter lists' QL), the rest (free-ion parent
+ * table, sort, label strings, objects, validation) 0.3–0.6×. The first two
+ * are a floor near 2.1× for this method. A shortcut that orders the merges
+ * from the tetragonal eigenvalues alone (Weyl: when every gap of a merged
+ * cubic list exceeds 2‖V‖, V the Ds, Dt part) holds for no d3–d7 parameter
+ * set at the bench's distortion (bench weylShortcutShare), so it is not
+ * used.
+ *
  * The slow reference (a labelled computeLevels, then parents by rank) is
  * spinFreeTetragonalLevelsViaCubic in tetragonal-spin-free.ts, which also serves
  * Dq = 0; tests/ligand-field/tetragonal-levels.test.ts and
@@ -95,6 +109,8 @@ interface Plan {
   /** Per call: the parent's cubic column and rank of each position, and the sorted order. */
   parentColumn: Int32Array;
   parentRank: Int32Array;
+  /** The two arrays above, as tetragonalParentRanks returns them. */
+  parents: TetragonalParentRanks;
   order: Int32Array;
   /** Largest cubic block, for the label index. */
   maxRank: number;
@@ -166,11 +182,13 @@ function planFor(d: number): Plan {
     }
   const largest = Math.max(1, ...needed.map(({ size }) => size));
   const runs = Int32Array.from([...slots.map((slot) => slot.start), count]);
+  const parentColumn = new Int32Array(count);
+  const parentRank = new Int32Array(count);
   const plan: Plan = {
     tetragonal, cubic, slots, count,
     term: new Array<string>(count), irrep: new Array<string>(count),
     multiplicity: new Int32Array(count), degeneracy: new Int32Array(count),
-    parentColumn: new Int32Array(count), parentRank: new Int32Array(count), order: new Int32Array(count),
+    parentColumn, parentRank, parents: { column: parentColumn, rank: parentRank }, order: new Int32Array(count),
     maxRank: Math.max(1, ...cubic.blocks.flat().map((b) => b.size)),
     needed, sources, runs, buffer: new Int32Array(count),
     scratch: new Float64Array(largest * largest),
@@ -193,11 +211,12 @@ function planFor(d: number): Plan {
 /** Per parent table (fixed objects, parent-tables.ts): "4A2g[4T1g(F)]" by position, cubic column and rank, made on first use. */
 const labelTables = new WeakMap<ParentTable, Map<number, Array<string | undefined>>>();
 
-function labelStore(table: ParentTable, d: number): Array<string | undefined> {
+function labelStore(table: ParentTable, d: number, size: number): Array<string | undefined> {
   let byD = labelTables.get(table);
   if (!byD) labelTables.set(table, (byD = new Map()));
   let store = byD.get(d);
-  if (!store) byD.set(d, (store = []));
+  // Filled to its full size at once: writes far beyond the end of an empty array would turn it into a slow dictionary.
+  if (!store) byD.set(d, (store = Array.from({ length: size }, (): string | undefined => undefined)));
   return store;
 }
 
@@ -286,6 +305,46 @@ function orderPositions(energy: Float64Array, runs: Int32Array, count: number, o
 const cubicCoefficients = new Float64Array(3);
 const coefficients = new Float64Array(5);
 
+/** The cubic blocks the merges need at Dq, B, C: eigenvalues of the shorter list of each merge, the tridiagonal form of the longer. */
+function evaluateCubicSources(plan: Plan, dq: number, b: number, c: number): void {
+  cubicCoefficients[0] = dq;
+  cubicCoefficients[1] = b;
+  cubicCoefficients[2] = c;
+  const { needed, scratch, eigen } = plan;
+  for (let k = 0; k < needed.length; k++) {
+    const source = needed[k]!;
+    const block = plan.cubic.blocks[source.spinIndex]![source.column]!;
+    blockHamiltonianInto(block, cubicCoefficients, scratch);
+    if (source.mode === 'values') symmetricEigenvaluesInPlace(scratch, block.size, source.values, eigen);
+    else source.factor = symmetricTridiagonalInPlace(scratch, block.size, source.diagonal, source.offDiagonal);
+  }
+}
+
+/** Per tetragonal position (tetragonal-spectrum.ts order): its octahedral parent as a cubic irrep column (A1, A2, E, T1, T2 = 0..4) and rank. */
+export interface TetragonalParentRanks {
+  column: Int32Array;
+  rank: Int32Array;
+}
+
+/**
+ * The octahedral parent of every spin-free tetragonal level of d^n (1..9)
+ * at Dq (≠ 0), B, C, by position (the order of tetragonal-spectrum.ts): the
+ * part of a labelled evaluation that needs the cubic blocks. It does not
+ * depend on Ds and Dt. The arrays belong to the per-d^n plan: valid until
+ * the next call for the same d.
+ */
+export function tetragonalParentRanks(d: number, dq: number, b: number, c: number): TetragonalParentRanks {
+  const plan = planFor(d);
+  evaluateCubicSources(plan, dq, b, c);
+  const mergeTol = energyTolerance({ dq, b, c });
+  const { slots, sources, parentColumn, parentRank } = plan;
+  for (let k = 0; k < slots.length; k++) {
+    const slot = slots[k]!;
+    mergeParents(slot, sources[slot.spinIndex]!, mergeTol, parentColumn, parentRank);
+  }
+  return plan.parents;
+}
+
 /**
  * The levels, ascending (ties: higher spin, then channel), energies from the
  * ground level (cm-1); tol (cm-1) zeroes round-off at the ground. dq ≠ 0:
@@ -294,24 +353,11 @@ const coefficients = new Float64Array(5);
  */
 export function tetragonalLevelsFast(d: number, dq: number, b: number, c: number, ds: number, dt: number, tol: number): FieldLevel[] {
   const plan = planFor(d);
-  const { slots, count, parentColumn, parentRank, order, maxRank } = plan;
-  cubicCoefficients[0] = dq;
-  cubicCoefficients[1] = b;
-  cubicCoefficients[2] = c;
-  const { needed, sources, scratch, eigen } = plan;
-  for (let k = 0; k < needed.length; k++) {
-    const source = needed[k]!;
-    const block = plan.cubic.blocks[source.spinIndex]![source.column]!;
-    blockHamiltonianInto(block, cubicCoefficients, scratch);
-    if (source.mode === 'values') symmetricEigenvaluesInPlace(scratch, block.size, source.values, eigen);
-    else source.factor = symmetricTridiagonalInPlace(scratch, block.size, source.diagonal, source.offDiagonal);
-  }
-  const mergeTol = energyTolerance({ dq, b, c });
-  for (let k = 0; k < slots.length; k++) {
-    const slot = slots[k]!;
-    mergeParents(slot, sources[slot.spinIndex]!, mergeTol, parentColumn, parentRank);
-  }
-  coefficients.set(cubicCoefficients);
+  const { count, order, maxRank } = plan;
+  const { column: parentColumn, rank: parentRank } = tetragonalParentRanks(d, dq, b, c);
+  coefficients[0] = dq;
+  coefficients[1] = b;
+  coefficients[2] = c;
   coefficients[3] = ds;
   coefficients[4] = dt;
   const { energy } = tetragonalSpectrum(plan.tetragonal, coefficients);
@@ -320,7 +366,7 @@ export function tetragonalLevelsFast(d: number, dq: number, b: number, c: number
   const names = table.labels('octahedral');
   if (plan.lastTable !== table) {
     plan.lastTable = table;
-    plan.lastStore = labelStore(table, d);
+    plan.lastStore = labelStore(table, d, count * 5 * maxRank);
   }
   const store = plan.lastStore;
   const ground = energy[order[0]!]!;
