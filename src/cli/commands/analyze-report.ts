@@ -3,6 +3,7 @@ import type { AnalysisWithoutFit } from '../../analysis-no-fit.js';
 import { bandAssignedKinds, bandKindText, kindsDisagree } from '../../report/band-assigned-kind.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
 import { percentText } from '../../report/probability.js';
+import { priorStrainOf, priorStrainText } from '../../report/prior-strain.js';
 import { textTableLines } from '../../report/text-table.js';
 import { spinStateSentence } from '../../report/spin-state-wording.js';
 
@@ -27,6 +28,9 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
     lines.push(`  labellings  10Dq ${spread.tenDqRange.map((v) => v.toFixed(0)).join('–')}${spread.bRange && fit.b !== null ? `, B ${spread.bRange.map((v) => v.toFixed(0)).join('–')}` : ''} cm-1 over the weak-band labellings (inside the ± above; fit alone ± ${spread.fitUncertainty.tenDq?.toFixed(0) ?? '—'})`);
   }
   lines.push(`  assignment  probability ${percentText(fit.probability)}${grouped}${spinStates(fit.spinStateProbabilities)}`);
+  // Probability is relative; a reading far outside its own priors says so here (src/report/prior-strain.ts, AUDIT3 finding 2).
+  const strain = priorStrainOf(fit.penalties as typeof fit.penalties | undefined);
+  if (strain) lines.push(`  priors      ${priorStrainText(strain)}`);
   const goodness = fit.goodnessOfFit as typeof fit.goodnessOfFit | undefined;
   if (goodness?.verdict === 'poor') lines.push(`  fit         POOR: χ² = ${goodness.chiSquare.toFixed(1)} for ${goodness.degreesOfFreedom} degrees of freedom (p = ${goodness.pValue.toPrecision(2)})`);
   const warnings = result.warnings;

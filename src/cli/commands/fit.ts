@@ -9,6 +9,7 @@ import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
 import { percentText } from '../../report/probability.js';
+import { priorStrainOf, priorStrainText } from '../../report/prior-strain.js';
 import { spinStateSentence } from '../../report/spin-state-wording.js';
 import { textTableLines } from '../../report/text-table.js';
 
@@ -218,6 +219,9 @@ export function fitReport(r: FitResult): string {
   lines.push(`Fit: ${r.message}; rms residual ${fmt(r.rmsResidual)} cm-1`);
   const spinChoice = Object.entries(r.spinStateProbabilities).filter(([key]) => key !== 'no-choice');
   lines.push(`Probability of this assignment: ${percentText(r.probability)}${spinChoice.length ? `; spin state: ${spinChoice.map(([key, p]) => `${key} ${percentText(p ?? 0)}`).join(', ')}` : ''} (score ${fmt(r.score, 1)} = −2 ln p + const; relative to the other assignments tried)`);
+  // Probability is relative; a reading far outside its own priors says so here (src/report/prior-strain.ts, AUDIT3 finding 2).
+  const strain = priorStrainOf(r.penalties as FitResult['penalties'] | undefined);
+  if (strain) lines.push(priorStrainText(strain));
   const group = r.assignmentGroup as FitResult['assignmentGroup'] | undefined;
   if (group && group.members > 1) {
     const range = (x: [number, number]) => (Math.round(x[0]) === Math.round(x[1]) ? fmt(x[0]) : `${fmt(x[0])}–${fmt(x[1])}`);
