@@ -1,7 +1,8 @@
 /**
- * AUDIT3 (a chemist's walk-through, AUDIT3.md findings 1–3 and 9): three
+ * AUDIT3 (a chemist's walk-through, AUDIT3.md findings 1–3, 9 and 12): three
  * visible-only spectra (380–780 nm, 1 nm, absorbance to 0.01) on which the
- * pipeline gives a confident wrong answer today. The spectra are SYNTHESIZED
+ * pipeline gives a confident wrong answer today, and a 300–1700 nm pair with
+ * and without a real detector step. The spectra are SYNTHESIZED
  * (fixtures/spectra/real-like/audit3/generate.mjs, band positions and their
  * sources in the README there); they are not measurements.
  *
@@ -89,5 +90,27 @@ describe('AUDIT3 finding 3: visible-only [Ni(NH3)6]2+, 3T2g beyond the red end',
     const fit = r().fit;
     expect(Math.abs(fit.tenDq - 10750)).toBeLessThanOrEqual(2 * fit.uncertainty.tenDq!);
     expect(fit.beta!).toBeGreaterThan(0.6);
+  });
+});
+
+describe('AUDIT3 finding 12: a real detector step at 860 nm on the flank of [Ni(en)3]2+ 3T2g', () => {
+  // Internal checks only: the generator put a step of +0.015 from 860 nm up into an otherwise identical file
+  // (fixtures/spectra/real-like/audit3/generate.mjs); the reference is the analysis of the file without it.
+  const plain = () => analyze('ni-en3-nir.csv', { ion: 'Ni2+', concentration: 0.05 });
+  const stepped = () => analyze('ni-en3-nir-step860.csv', { ion: 'Ni2+', concentration: 0.05 });
+  const nu1 = (r: ReturnType<typeof plain>) => r.bands.reduce((a, b) => (b.position < a.position ? b : a));
+
+  it('the step is found near 860 nm and listed with its size; the file without it has none', () => {
+    expect(plain().spectrum.stepCorrections).toEqual([]);
+    const steps = stepped().spectrum.stepCorrections;
+    expect(steps).toHaveLength(1);
+    expect(Math.abs(steps[0]!.wavelength - 860)).toBeLessThan(2);
+    expect(Math.abs(Math.abs(steps[0]!.size) - 0.015)).toBeLessThan(0.003);
+  });
+
+  it.fails('after the correction the lowest band lies where it lies without the step (within 3 of its reported σ)', () => {
+    const a = nu1(plain());
+    const b = nu1(stepped());
+    expect(Math.abs(b.position - a.position)).toBeLessThanOrEqual(3 * Math.max(a.positionUncertainty, b.positionUncertainty));
   });
 });
