@@ -1,12 +1,12 @@
 import { FieldgapError, invalidArgument, isFieldgapError } from '../../errors.js';
 import { fitLigandField, parseBandList, type FitInput, type FitResult } from '../../fit/index.js';
-import { GEOMETRIES } from '../../ligand-field/index.js';
 import { fitTetragonal, tetragonalFitReport, type TetragonalFitInput } from '../../fit-tetragonal/index.js';
 import { valueToWavenumber, xUnitFromName } from '../../spectrum/units.js';
 import type { Command } from '../command.js';
 import { checkFitBandCount } from '../../fit/band-count.js';
 import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
+import { geometryOption } from '../geometry-option.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
 import { percentText } from '../../report/probability.js';
 import { priorStrainOf, priorStrainText } from '../../report/prior-strain.js';
@@ -36,7 +36,7 @@ band, with a warning; one band of d3/d8 octahedral or d2/d7 tetrahedral gives
 Options:
   --ion ION        the metal ion: Cr3+, Cr(III), Co2+, ... (gives d, and B0, C0 for beta)
   --d N            the d-electron count 1 to 9 instead of --ion (beta is then null)
-  --geometry G     octahedral or tetrahedral (default octahedral)
+  --geometry G     octahedral or tetrahedral (also Oh, Td; default octahedral)
   --bands LIST     band maxima, separated by commas (required); each one
                      POSITION[UNIT][±UNCERTAINTY][:FLAG]...
                    UNIT: cm-1 (default), nm, um or eV            625nm
@@ -120,7 +120,7 @@ export function parseFitArgs(argv: string[]): { input: FitInput; json: boolean; 
   const input: FitInput = { bands };
   // Without --geometry a formula's guess (or octahedral) is used by the fit.
   if (values.geometry !== undefined || values.formula === undefined) {
-    input.geometry = choiceOption('geometry', values.geometry, GEOMETRIES, 'octahedral');
+    input.geometry = geometryOption(values.geometry);
   }
   if (values.formula !== undefined) input.formula = values.formula;
   if (values.ligands !== undefined) input.ligands = values.ligands;
