@@ -114,3 +114,22 @@ describe('AUDIT3 finding 12: a real detector step at 860 nm on the flank of [Ni(
     expect(Math.abs(b.position - a.position)).toBeLessThanOrEqual(3 * Math.max(a.positionUncertainty, b.positionUncertainty));
   });
 });
+
+describe('AUDIT3 finding 15: visible-only [Cr(en)3]3+, one spin-allowed band and the sharp 2Eg line', () => {
+  // Bands 21 800 (4T2g) and the 2Eg line near 14 900 (from memory). Internal check: the solutions that keep 4T2g at the
+  // same 10Dq and differ only in what the sharp line is called are one spin-allowed assignment (README, assignmentGroup).
+  const r = () => analyze('cr-en3-visible-desc.csv', { ion: 'Cr3+', concentration: 0.01 });
+
+  it('10Dq is the 4T2g band (ν1 = 10Dq for d3, common practice)', () => {
+    const fit = r().fit;
+    const nu1 = fit.assignments.find((a) => a.label.startsWith('4T2g'));
+    expect(nu1).toBeDefined();
+    expect(fit.tenDq).toBeCloseTo(nu1!.observed, 0);
+  });
+
+  it.fails('the labellings of the sharp line are grouped: the spin-allowed assignment is > 95 % and no "not certain" warning', () => {
+    const result = r();
+    expect(result.fit.assignmentGroup.probability).toBeGreaterThan(0.95);
+    expect(result.warnings.some((w) => /not certain/.test(w))).toBe(false);
+  });
+});
