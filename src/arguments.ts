@@ -79,7 +79,9 @@ export function numberOption(
   }
   const value = Number(raw.trim());
   if (raw.trim() === '' || !Number.isFinite(value)) {
-    throw invalidArgument(`--${name}`, `--${name}: expected a number, got "${raw}"`);
+    // A decimal comma (a European locale's 0,012) is not read as a number, so as not to guess: say how to write it.
+    const comma = /^\s*[-+]?\d*,\d+\s*$/.test(raw) ? ` (write the decimal point: ${raw.trim().replace(',', '.')})` : '';
+    throw invalidArgument(`--${name}`, `--${name}: expected a number, got "${raw}"${comma}`);
   }
   if (integer && !Number.isInteger(value)) {
     throw invalidArgument(`--${name}`, `--${name}: expected a whole number, got "${raw}"`);

@@ -2,9 +2,9 @@ import type { AnalyzeOptions } from '../analysis.js';
 import { parseIon } from '../chemistry/ions.js';
 import { ANALYSIS_OPTION_NAMES, type AnalysisOptionKey } from '../analysis-option-names.js';
 import { checkCliAnalysisOptions } from '../analysis-option-schema.js';
-import { GEOMETRIES } from '../ligand-field/types.js';
 import { parseXUnitOption } from '../spectrum/index.js';
-import { choiceOption, numberOption } from './options.js';
+import { numberOption } from './options.js';
+import { geometryOption } from './geometry-option.js';
 
 /** The analysis options of `analyze`, `library add|refit` and `series`. Energies in cm-1. */
 export const ANALYSIS_OPTIONS = {
@@ -43,7 +43,7 @@ export function analysisOptionsFrom(values: AnalysisValues): AnalyzeOptions {
   }
   const d = numberOption('d', values.d, { min: 1, max: 9, integer: true });
   if (d !== undefined) options.d = d;
-  if (values.geometry !== undefined) options.geometry = choiceOption('geometry', values.geometry, GEOMETRIES, 'octahedral');
+  if (values.geometry !== undefined) options.geometry = geometryOption(values.geometry);
   const conc = numberOption('conc', values.conc, { min: Number.MIN_VALUE });
   if (conc !== undefined) options.concentration = conc;
   const path = numberOption('path', values.path, { min: Number.MIN_VALUE });

@@ -3,6 +3,7 @@ import type { AnalysisWithoutFit } from '../../analysis-no-fit.js';
 import { bandAssignedKinds, bandKindText, kindsDisagree } from '../../report/band-assigned-kind.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
 import { percentText } from '../../report/probability.js';
+import { priorStrainOf, priorStrainText } from '../../report/prior-strain.js';
 import { textTableLines } from '../../report/text-table.js';
 import { spinStateSentence } from '../../report/spin-state-wording.js';
 
@@ -19,6 +20,7 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
   lines.push(`  beta        ${fit.beta === null ? 'not determined' : `${formatPlusMinus(fit.beta, fit.betaSd, { digits: 3 })} (B0 = ${fit.freeIonB} cm-1)`}`);
   lines.push(`  ground      ${fit.groundLabel}, ${spinStateSentence(fit.spinState, fit.d, fit.geometry)}, ${fit.unpairedElectrons} unpaired, spin-only ${fit.spinOnlyMoment.toFixed(2)} μB`);
   lines.push(`  rms         ${fit.rmsResidual.toFixed(0)} cm-1 (${fit.message})`);
+  lines.push(...splitBandLines(result));
   // The group (src/fit/assignment-groups.ts): a stored result from an older fieldgap may lack it.
   const group = fit.assignmentGroup as typeof fit.assignmentGroup | undefined;
   const grouped = group && group.members > 1 ? `; spin-allowed assignment and parameters ${percentText(group.probability)} (${group.members} labellings of the weak bands)` : '';
@@ -27,6 +29,9 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
     lines.push(`  labellings  10Dq ${spread.tenDqRange.map((v) => v.toFixed(0)).join('–')}${spread.bRange && fit.b !== null ? `, B ${spread.bRange.map((v) => v.toFixed(0)).join('–')}` : ''} cm-1 over the weak-band labellings (inside the ± above; fit alone ± ${spread.fitUncertainty.tenDq?.toFixed(0) ?? '—'})`);
   }
   lines.push(`  assignment  probability ${percentText(fit.probability)}${grouped}${spinStates(fit.spinStateProbabilities)}`);
+  // Probability is relative; a reading far outside its own priors says so here (src/report/prior-strain.ts, AUDIT3 finding 2).
+  const strain = priorStrainOf(fit.penalties as typeof fit.penalties | undefined);
+  if (strain) lines.push(`  priors      ${priorStrainText(strain)}`);
   const goodness = fit.goodnessOfFit as typeof fit.goodnessOfFit | undefined;
   if (goodness?.verdict === 'poor') lines.push(`  fit         POOR: χ² = ${goodness.chiSquare.toFixed(1)} for ${goodness.degreesOfFreedom} degrees of freedom (p = ${goodness.pValue.toPrecision(2)})`);
   const warnings = result.warnings;
@@ -97,4 +102,25 @@ function table(rows: string[][]): string[] {
 function spinStates(p: Partial<Record<string, number>>): string {
   const entries = Object.entries(p).filter(([key]) => key !== 'no-choice');
   return entries.length ? `; ${entries.map(([key, v]) => `${key} ${percentText(v ?? 0)}`).join(', ')}` : '';
+}
+
+/**
+ * One line per transition fitted to several bands at once (a Jahn–Teller or
+ * spin–orbit split band of a one-transition ion, read at the components'
+ * centroid by src/fit). The fit's note says so in the JSON; the text report
+ * prints no notes, so a chemist saw two bands labelled with one transition
+ * and a 10Dq that is neither maximum (AUDIT3 finding 5). The ± of 10Dq is
+ * the centroid's: the maximum is named so the reader sees the other convention.
+ */
+export function splitBandLines(result: Pick<AnalyzeResult, 'bands' | 'fit'>): string[] {
+  const out: string[] = [];
+  for (const a of result.fit.assignments) {
+    const parts = a.bands.map((i) => result.bands[i]).filter((b): b is AnalyzeResult['bands'][number] => b !== undefined);
+    if (parts.length < 2) continue;
+    const strongest = parts.reduce((x, y) => (y.height > x.height ? y : x));
+    const positions = parts.map((b) => Math.round(b.position)).sort((x, y) => x - y).join(' + ');
+    out.push(`  one band    ${positions} cm-1 read as one transition (${a.label}) at their centroid ${Math.round(a.observed)} cm-1: `
+      + `split components (Jahn–Teller or spin–orbit); the strongest maximum is at ${Math.round(strongest.position)} cm-1, and the ± above does not cover that choice`);
+  }
+  return out;
 }

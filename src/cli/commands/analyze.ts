@@ -22,7 +22,7 @@ bands, and fits 10Dq, Racah B and C to the d-d bands.
 
   --ion ION           metal ion: Cr3+, Cr(III), Co2+ ...
   --d N               d-electron count 1-9 (instead of --ion; then no beta)
-  --geometry G        octahedral (default) or tetrahedral
+  --geometry G        octahedral (default) or tetrahedral (also Oh, Td)
   --conc M            concentration, mol/L (bands get epsilon, L mol-1 cm-1)
   --path CM           path length, cm (default 1)
   --x-unit U          x unit when the file does not say: nm, cm-1, eV, um

@@ -1,14 +1,15 @@
 import { FieldgapError, invalidArgument, isFieldgapError } from '../../errors.js';
 import { fitLigandField, parseBandList, type FitInput, type FitResult } from '../../fit/index.js';
-import { GEOMETRIES } from '../../ligand-field/index.js';
 import { fitTetragonal, tetragonalFitReport, type TetragonalFitInput } from '../../fit-tetragonal/index.js';
 import { valueToWavenumber, xUnitFromName } from '../../spectrum/units.js';
 import type { Command } from '../command.js';
 import { checkFitBandCount } from '../../fit/band-count.js';
 import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
+import { geometryOption } from '../geometry-option.js';
 import { formatPlusMinus } from '../../report/plus-minus.js';
 import { percentText } from '../../report/probability.js';
+import { priorStrainOf, priorStrainText } from '../../report/prior-strain.js';
 import { spinStateSentence } from '../../report/spin-state-wording.js';
 import { textTableLines } from '../../report/text-table.js';
 
@@ -35,7 +36,7 @@ band, with a warning; one band of d3/d8 octahedral or d2/d7 tetrahedral gives
 Options:
   --ion ION        the metal ion: Cr3+, Cr(III), Co2+, ... (gives d, and B0, C0 for beta)
   --d N            the d-electron count 1 to 9 instead of --ion (beta is then null)
-  --geometry G     octahedral or tetrahedral (default octahedral)
+  --geometry G     octahedral or tetrahedral (also Oh, Td; default octahedral)
   --bands LIST     band maxima, separated by commas (required); each one
                      POSITION[UNIT][±UNCERTAINTY][:FLAG]...
                    UNIT: cm-1 (default), nm, um or eV            625nm
@@ -119,7 +120,7 @@ export function parseFitArgs(argv: string[]): { input: FitInput; json: boolean; 
   const input: FitInput = { bands };
   // Without --geometry a formula's guess (or octahedral) is used by the fit.
   if (values.geometry !== undefined || values.formula === undefined) {
-    input.geometry = choiceOption('geometry', values.geometry, GEOMETRIES, 'octahedral');
+    input.geometry = geometryOption(values.geometry);
   }
   if (values.formula !== undefined) input.formula = values.formula;
   if (values.ligands !== undefined) input.ligands = values.ligands;
@@ -218,6 +219,9 @@ export function fitReport(r: FitResult): string {
   lines.push(`Fit: ${r.message}; rms residual ${fmt(r.rmsResidual)} cm-1`);
   const spinChoice = Object.entries(r.spinStateProbabilities).filter(([key]) => key !== 'no-choice');
   lines.push(`Probability of this assignment: ${percentText(r.probability)}${spinChoice.length ? `; spin state: ${spinChoice.map(([key, p]) => `${key} ${percentText(p ?? 0)}`).join(', ')}` : ''} (score ${fmt(r.score, 1)} = −2 ln p + const; relative to the other assignments tried)`);
+  // Probability is relative; a reading far outside its own priors says so here (src/report/prior-strain.ts, AUDIT3 finding 2).
+  const strain = priorStrainOf(r.penalties as FitResult['penalties'] | undefined);
+  if (strain) lines.push(priorStrainText(strain));
   const group = r.assignmentGroup as FitResult['assignmentGroup'] | undefined;
   if (group && group.members > 1) {
     const range = (x: [number, number]) => (Math.round(x[0]) === Math.round(x[1]) ? fmt(x[0]) : `${fmt(x[0])}–${fmt(x[1])}`);
