@@ -10,10 +10,16 @@
  *   default σ = max(100 cm-1, 1% of its position) (observations.ts), and
  *   cov = (J_σᵀJ_σ)⁻¹: the spread of the exact solution under that noise.
  * With C/B fixed, σ(C) = (C/B)·σ(B); with C fixed it is null.
+ * - A band whose position rests on an assumed C/B (c-sensitivity.ts) has
+ *   σ_eff = √(σ² + σ_C²) in J, and the fit is then weighted, every band
+ *   taking its σ (given or default): the covariance carries the C/B spread
+ *   the way the score does.
  * - One band with B fixed at its prior (prior-b.ts): σ(B) is the prior's σ,
  *   and 10Dq carries both the band's σ and B's: with E(Dq, B) = ν,
- *   σ²(Dq) = (σν/E_Dq)² + (E_B/E_Dq)²·σB², cov(Dq, B) = −(E_B/E_Dq)·σB².
+ *   σ²(Dq) = (σν/E_Dq)² + (E_B/E_Dq)²·σB², cov(Dq, B) = −(E_B/E_Dq)·σB²;
+ *   σν² includes σ_C² where the band rests on the assumed C/B.
  */
+import { anyWidened } from './c-sensitivity.js';
 import { covarianceCorrelation, jacobianCovariance } from './covariance.js';
 import type { Evaluated } from './evaluate.js';
 import { parameterCount } from './refine.js';
@@ -41,6 +47,8 @@ export function fitUncertainty(best: Evaluated, weighted: boolean): FitUncertain
   }
   if (best.bPrior) return priorBUncertainty(best);
   if (!best.lsq || !best.problem) return NONE;
+  // A fit with a band widened by an assumed C/B was weighted (likelihood.ts leastSquaresSigma).
+  weighted = weighted || anyWidened(best.sigmaFromC);
   const m = observations.length;
   const p = parameterCount(best.problem);
   const dof = m - p;
@@ -82,7 +90,8 @@ export function fitUncertainty(best: Evaluated, weighted: boolean): FitUncertain
 function priorBUncertainty(best: Evaluated): FitUncertainty {
   const { sigma: sB, dEdDq, dEdB, cHeld } = best.bPrior!;
   if (!Number.isFinite(dEdDq) || !Number.isFinite(dEdB) || dEdDq === 0) return { ...NONE, basis: 'not available (the solution was not polished)' };
-  const sigmaBand = best.candidate.variant.observations[0]!.sigma;
+  // The band's σ with the spread it takes from the assumed C/B (c-sensitivity.ts), as in the score.
+  const sigmaBand = Math.hypot(best.candidate.variant.observations[0]!.sigma, best.sigmaFromC?.[0] ?? 0);
   const k = dEdB / dEdDq;
   const sdDq = Math.sqrt((sigmaBand / dEdDq) ** 2 + (k * sB) ** 2);
   const corr = sdDq > 0 && sB > 0 ? (-k * sB * sB) / (sdDq * sB) : null;
