@@ -53,6 +53,12 @@ export interface Evaluated {
    * fixed, or the transition does not depend on C).
    */
   sigmaFromC?: Float64Array;
+  /**
+   * When C is tied to B by an assumed C/B: the signed ∂ΔE/∂C of each
+   * observation at params and σ_C = B·σ(C/B), cm-1, for the covariance
+   * (uncertainty.ts: one C moves every band at once).
+   */
+  assumedC?: { derivatives: Float64Array; sigma: number };
 }
 
 /** The spin state a branch stands for: the higher multiplicity of a scan with two ground levels is high-spin. */
@@ -117,10 +123,11 @@ export function evaluateGridCandidate(
   };
   // σ_C (c-sensitivity.ts) at the start weighs the refinement; recomputed at its result for the χ².
   const cSd = assumedCOverBSd(settings);
-  const sigmaCAt = (p: FieldParameters) => (cSd > 0
-    ? sigmaFromCOf(transitionCDerivatives(settings.d, settings.geometry, p, groundKey, levelKeys), p.b, cSd)
+  const derivativesAt = (p: FieldParameters) => (cSd > 0
+    ? transitionCDerivatives(settings.d, settings.geometry, p, groundKey, levelKeys)
     : new Float64Array(observations.length));
-  const startSigmaC = sigmaCAt(start);
+  const startDerivatives = derivativesAt(start);
+  const startSigmaC = sigmaFromCOf(startDerivatives, start.b, cSd);
   const weighted = sorted.weighted || anyWidened(startSigmaC);
   const problem: RefineProblem = {
     d: settings.d, geometry: settings.geometry, mode: settings.mode, cOverB: scan.cOverB, cFixed: settings.cFixed,
@@ -142,7 +149,8 @@ export function evaluateGridCandidate(
     assignedEnergies(levels, problem.groundKey, problem.levelKeys, calculated);
     notes.push('the least-squares optimum of this assignment lies across the spin crossover; the best self-consistent grid point is kept');
   }
-  const sigmaFromC = cSd > 0 && !keptGrid ? sigmaCAt(params) : startSigmaC;
+  const derivatives = cSd > 0 && !keptGrid ? derivativesAt(params) : startDerivatives;
+  const sigmaFromC = sigmaFromCOf(derivatives, params.b, cSd);
   let ssr = 0;
   let wSum = 0;
   observations.forEach((o, i) => {
@@ -163,6 +171,7 @@ export function evaluateGridCandidate(
     calculated, levelIndices: candidate.levels, wrms, chiSquare, penalties,
     skipped: skip.skipped, coincident: skip.coincident, score: chiSquare + penaltyTotal(penalties),
     lsq: keptGrid ? null : refined.lsq, problem, keptGrid, notes, sigmaFromC,
+    ...(cSd > 0 ? { assumedC: { derivatives, sigma: params.b * cSd } } : {}),
   };
 }
 

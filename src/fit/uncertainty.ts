@@ -11,9 +11,10 @@
  *   cov = (J_σᵀJ_σ)⁻¹: the spread of the exact solution under that noise.
  * With C/B fixed, σ(C) = (C/B)·σ(B); with C fixed it is null.
  * - A band whose position rests on an assumed C/B (c-sensitivity.ts) has
- *   σ_eff = √(σ² + σ_C²) in J, and the fit is then weighted, every band
- *   taking its σ (given or default): the covariance carries the C/B spread
- *   the way the score does.
+ *   σ_eff = √(σ² + σ_C²) in the fit's weights, and the fit is then
+ *   weighted, every band taking its σ (given or default); the covariance is
+ *   that of this estimator under the bands' own σ and one shared C error
+ *   (sandwichCovariance).
  * - One band with B fixed at its prior (prior-b.ts): σ(B) is the prior's σ,
  *   and 10Dq carries both the band's σ and B's: with E(Dq, B) = ν,
  *   σ²(Dq) = (σν/E_Dq)² + (E_B/E_Dq)²·σB², cov(Dq, B) = −(E_B/E_Dq)·σB²;
@@ -67,8 +68,12 @@ export function fitUncertainty(best: Evaluated, weighted: boolean): FitUncertain
     scale = 1;
     basis = 'the default band uncertainty max(100 cm-1, 1% of the position), the fit being exact';
   }
-  const cov = jacobianCovariance(jacobian, m, p, { scale });
+  let cov = jacobianCovariance(jacobian, m, p, { scale });
   if (!cov) return { ...NONE, basis: 'singular: the bands do not determine every parameter' };
+  if (best.assumedC && anyWidened(best.sigmaFromC)) {
+    cov = sandwichCovariance(jacobian, m, p, scale, best);
+    basis += ', and the spread of the assumed C/B (one C shifting every band that depends on it)';
+  }
   const corr = covarianceCorrelation(cov, p);
   const sd = (j: number) => Math.sqrt(Math.max(cov[j * p + j]!, 0));
   const ratio = best.params.c / best.params.b;
@@ -84,6 +89,41 @@ export function fitUncertainty(best: Evaluated, weighted: boolean): FitUncertain
     },
     basis,
   };
+}
+
+/**
+ * The covariance of the estimator the fit used when bands were widened by an
+ * assumed C/B: the weighted least-squares solution θ = A·obs, A =
+ * (JᵀWJ)⁻¹JᵀW with W = 1/(σ² + σ_C²) per band (the widened weights), has
+ * covariance A·Σ·Aᵀ under the errors Σ = scale·diag(σ²) + σ_C²·g·gᵀ, g the
+ * signed ∂ΔE/∂C of each band: the bands' own errors are independent, but
+ * one unknown C shifts every band that depends on it at once (the two
+ * singlets of low-spin d6 together: 10Dq takes the whole of C's spread, B
+ * none of it). Rows of `jacobian` are those of the weighted residuals.
+ */
+function sandwichCovariance(jacobian: Float64Array, m: number, p: number, scale: number, best: Evaluated): Float64Array {
+  const inner = jacobianCovariance(jacobian, m, p)!;
+  const { derivatives, sigma: sigmaC } = best.assumedC!;
+  const sigmaLs = best.problem!.sigma;
+  const observations = best.candidate.variant.observations;
+  const cov = new Float64Array(p * p);
+  const shift = new Float64Array(p);
+  const column = new Float64Array(p);
+  for (let i = 0; i < m; i++) {
+    // Column i of A: (JᵀWJ)⁻¹ times row i of the weighted Jacobian, over σ_LS,i.
+    for (let j = 0; j < p; j++) {
+      let sum = 0;
+      for (let k = 0; k < p; k++) sum += inner[j * p + k]! * jacobian[i * p + k]!;
+      column[j] = sum / sigmaLs[i]!;
+    }
+    const variance = scale * observations[i]!.sigma ** 2;
+    for (let j = 0; j < p; j++) {
+      shift[j] = shift[j]! + column[j]! * derivatives[i]!;
+      for (let k = 0; k < p; k++) cov[j * p + k] = cov[j * p + k]! + variance * column[j]! * column[k]!;
+    }
+  }
+  for (let j = 0; j < p; j++) for (let k = 0; k < p; k++) cov[j * p + k] = cov[j * p + k]! + sigmaC * sigmaC * shift[j]! * shift[k]!;
+  return cov;
 }
 
 /** The prior-B case of fitUncertainty (see the module docstring). */

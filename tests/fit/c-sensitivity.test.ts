@@ -46,7 +46,7 @@ function hellmannFeynman(d: number, geometry: Geometry, params: FieldParameters,
   });
   const scale = Math.max(...values) - ground;
   return levels.map((level) => {
-    const members = values.map((v, j) => j).filter((j) => Math.abs(values[j]! - ground - level.energy) <= 1e-7 * scale);
+    const members = values.map((_, j) => j).filter((j) => Math.abs(values[j]! - ground - level.energy) <= 1e-7 * scale);
     if (members.length !== level.degeneracy) return Number.NaN;
     return members.reduce((s, j) => s + expectation[j]!, 0) / members.length;
   });
@@ -157,6 +157,27 @@ describe('which bands are widened', () => {
       expect(Math.abs(fit.b! - twoBands.b!)).toBeLessThan(0.25 * fit.uncertainty.b!);
       expect(fit.notes.some((n) => n.includes('depends on C') && n.includes(`${line} cm-1 by`))).toBe(true);
     }
+  });
+
+  it('carries the assumed C/B into the covariance as one shared shift: low-spin Co(III) refitted at C/B ± 0.3', () => {
+    // Own-engine check, independent of the derivative code: refits with the ratio stated (no widening) give
+    // d10Dq/d(C/B) and dB/d(C/B); the reported σ² must be the stated fit's σ² plus (slope·σ(C/B))².
+    // 1T1g ≈ 10Dq − C and 1T2g ≈ 10Dq + 16B − C move together with C: 10Dq takes C's spread, B hardly any.
+    const bands = '16600,24700';
+    const assumed = fitLigandField({ ion: 'Co3+', bands });
+    expect(assumed.assignments.every((a) => (a.sigmaFromC ?? 0) > 0)).toBe(true);
+    const ratio = assumed.cOverB!;
+    const step = 0.3;
+    const stated = fitLigandField({ ion: 'Co3+', bands, cOverB: ratio });
+    const up = fitLigandField({ ion: 'Co3+', bands, cOverB: ratio + step });
+    const down = fitLigandField({ ion: 'Co3+', bands, cOverB: ratio - step });
+    const sd = cOverBPriorSd();
+    const expected = (sigma: number, slope: number) => Math.hypot(sigma, slope * sd);
+    const tenDq = expected(stated.uncertainty.tenDq!, (up.tenDq - down.tenDq) / (2 * step));
+    const b = expected(stated.uncertainty.b!, (up.b! - down.b!) / (2 * step));
+    expect(Math.abs(assumed.uncertainty.tenDq! / tenDq - 1)).toBeLessThan(0.02);
+    expect(Math.abs(assumed.uncertainty.b! / b - 1)).toBeLessThan(0.02);
+    expect(assumed.uncertainty.tenDq!).toBeGreaterThan(3 * stated.uncertainty.tenDq!);
   });
 
   it('does not widen a line when C/B is stated or C is fitted', () => {
