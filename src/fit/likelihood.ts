@@ -22,10 +22,13 @@
  *   d8). A sharp spin-forbidden line (4A2g → 2Eg of Cr(III), ≈ 9B + 3C) so
  *   weighs as little as the unknown C makes it worth and no longer fixes B
  *   through an assumed C/B. The same σ_C enters the least-squares weights
- *   (leastSquaresSigma), the goodness of fit and the covariance. Each band's
- *   σ_C is taken as independent (a diagonal covariance), although one C
- *   shifts them all together: conservative where several bands depend on C
- *   alike (the two singlets of low-spin d6).
+ *   (leastSquaresSigma) and the goodness of fit. In the score each band's
+ *   σ_C is taken as independent, and in an over-determined fit the widened
+ *   σ costs its normalisation, Σ ln(1 + σ_C²/(σ² + σm²)) (c-sensitivity.ts
+ *   assumedCPenalty: else an assignment whose bands all depend on C would
+ *   win by its discounted χ²). The reported covariance treats C as one
+ *   shared error (uncertainty.ts sandwichCovariance): the two singlets of
+ *   low-spin d6 move together with C, so 10Dq takes its spread and B not.
  * - A band left unexplained: a band list may hold a maximum that is no d–d
  *   maximum of this model (a split maximum, noise, an impurity) with prior
  *   probability π, anywhere in a range R = 30 000 cm-1. Against explaining
