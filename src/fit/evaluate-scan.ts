@@ -13,6 +13,9 @@ import { crossoverAt } from './engine.js';
 import { branchSpinState, chiSquareOf, type Evaluated } from './evaluate.js';
 import { refineProfileOnScan, scanEnergyAt } from './interpolate.js';
 import type { SortedObservations } from './observations.js';
+import { anyWidened, assumedCOverBSd, assumedCPenalty, scanTransitionCDerivatives, sigmaFromCOf } from './c-sensitivity.js';
+import { leastSquaresSigma } from './likelihood.js';
+import { parameterCount } from './refine.js';
 import { penaltyTotal } from './penalties.js';
 import { scoreTerms } from './score-terms.js';
 import { twoElectronLevels } from './two-electron.js';
@@ -39,10 +42,18 @@ export function evaluateOnScan(candidate: GridCandidate, settings: FitSettings, 
   const { scan, branch, variant, levels } = candidate;
   const observations = variant.observations;
   const o = Float64Array.from(observations, (obs) => obs.position);
-  const w = Float64Array.from(observations, (obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
+  // σ_C at the grid optimum weighs the refinement; at the refined point, the χ² (c-sensitivity.ts).
+  const cSd = assumedCOverBSd(settings);
+  const sigmaCAt = (x: number, b: number) => sigmaFromCOf(scanTransitionCDerivatives(scan, branch.ground, levels, x), b, cSd);
+  const gridSigmaC = cSd > 0 ? sigmaCAt(candidate.grid.x, candidate.grid.b) : new Float64Array(observations.length);
+  const weighted = sorted.weighted || anyWidened(gridSigmaC);
+  const w = Float64Array.from(observations, (obs, i) => leastSquaresSigma(obs.sigma, gridSigmaC[i]!, weighted) ** -2);
   const [lo, hi] = searchInterval(candidate, settings);
   const refined = lo < hi ? refineProfileOnScan(scan, branch.ground, levels, o, w, lo, hi) : { ...candidate.grid };
-  const { x, b } = Number.isFinite(refined.ssr) && refined.ssr <= candidate.grid.ssr ? refined : candidate.grid;
+  // The grid's ssr has the χ² weights of candidates.ts; the refined one these: compare like with like.
+  const atGrid = refineProfileOnScan(scan, branch.ground, levels, o, w, candidate.grid.x, candidate.grid.x);
+  const { x, b } = Number.isFinite(refined.ssr) && refined.ssr <= atGrid.ssr ? refined : candidate.grid;
+  const sigmaFromC = cSd > 0 ? sigmaCAt(x, b) : gridSigmaC;
   const energy = (k: number) => b * scanEnergyAt(scan, k, branch.ground, x);
   const calculated = Float64Array.from(levels, energy);
   const two = twoElectronLevels(scan, branch.ground);
@@ -51,7 +62,8 @@ export function evaluateOnScan(candidate: GridCandidate, settings: FitSettings, 
   }));
   const c = scan.cOverB * b;
   const skip = scoreTerms({ candidate, settings, sorted, transitions, calculated, levels, dq: x * b, b, c, bDetermined: true });
-  const penalties = [...variant.penalties, ...skip.penalties];
+  const cPenalty = assumedCPenalty(observations, sigmaFromC, parameterCount({ mode: settings.mode, alphaFree: settings.alphaFree }));
+  const penalties = [...variant.penalties, ...skip.penalties, ...(cPenalty ? [cPenalty] : [])];
   let ssr = 0;
   let wSum = 0;
   observations.forEach((obs, i) => {
@@ -59,11 +71,11 @@ export function evaluateOnScan(candidate: GridCandidate, settings: FitSettings, 
     wSum += w[i]!;
   });
   const wrms = Math.sqrt(ssr / wSum);
-  const chiSquare = chiSquareOf(observations, calculated);
+  const chiSquare = chiSquareOf(observations, calculated, sigmaFromC);
   return {
     candidate, params: { dq: x * b, b, c }, bDetermined: true, levels: null,
     groundTerm: scan.ids[branch.ground]!.term, spinState: branchSpinState(candidate),
     calculated, levelIndices: levels, wrms, chiSquare, penalties, skipped: skip.skipped, coincident: skip.coincident,
-    score: chiSquare + penaltyTotal(penalties), lsq: null, problem: null, keptGrid: false, notes: [],
+    score: chiSquare + penaltyTotal(penalties), lsq: null, problem: null, keptGrid: false, notes: [], sigmaFromC,
   };
 }

@@ -7,9 +7,10 @@ import type { FieldParameters, LevelsResult, SpinState } from '../ligand-field/t
 import type { DqOnlyCandidate, GridCandidate } from './candidates.js';
 import { primaryClass } from './enumerate.js';
 import type { LeastSquaresResult } from './least-squares.js';
-import { effectiveWeight } from './likelihood.js';
+import { effectiveWeight, leastSquaresSigma } from './likelihood.js';
+import { anyWidened, assumedCOverBSd, assumedCPenalty, sigmaFromCOf, transitionCDerivatives } from './c-sensitivity.js';
 import { penaltyTotal, type ClassTransition } from './penalties.js';
-import { assignedEnergies, refineSolution, type RefineProblem } from './refine.js';
+import { assignedEnergies, parameterCount, refineSolution, type RefineProblem } from './refine.js';
 import { levelIdentityKey } from './scan.js';
 import { scoreTerms } from './score-terms.js';
 import { twoElectronLevels } from './two-electron.js';
@@ -46,6 +47,18 @@ export interface Evaluated {
   /** The refinement crossed the spin crossover; the grid solution is kept. */
   keptGrid: boolean;
   notes: string[];
+  /**
+   * Per observation, the σ its position takes from an assumed C/B, cm-1
+   * (c-sensitivity.ts), at params; absent or 0 where none (C fitted or
+   * fixed, or the transition does not depend on C).
+   */
+  sigmaFromC?: Float64Array;
+  /**
+   * When C is tied to B by an assumed C/B: the signed ∂ΔE/∂C of each
+   * observation at params and σ_C = B·σ(C/B), cm-1, for the covariance
+   * (uncertainty.ts: one C moves every band at once).
+   */
+  assumedC?: { derivatives: Float64Array; sigma: number };
 }
 
 /** The spin state a branch stands for: the higher multiplicity of a scan with two ground levels is high-spin. */
@@ -70,11 +83,15 @@ function classTransitionsOf(candidate: GridCandidate | DqOnlyCandidate, levels: 
   }));
 }
 
-/** χ² of calculated against observed positions with the σ² + σm² weights. */
-export function chiSquareOf(observations: ReadonlyArray<{ position: number; sigma: number }>, calculated: Float64Array): number {
+/** χ² of calculated against observed positions with the σ² + σm² + σ_C² weights (σ_C: per observation, default none). */
+export function chiSquareOf(
+  observations: ReadonlyArray<{ position: number; sigma: number }>,
+  calculated: Float64Array,
+  sigmaFromC?: Float64Array,
+): number {
   let chi2 = 0;
   observations.forEach((o, i) => {
-    chi2 += effectiveWeight(o.position, o.sigma) * (calculated[i]! - o.position) ** 2;
+    chi2 += effectiveWeight(o.position, o.sigma, sigmaFromC?.[i] ?? 0) * (calculated[i]! - o.position) ** 2;
   });
   return chi2;
 }
@@ -98,18 +115,27 @@ export function evaluateGridCandidate(
 ): Evaluated {
   const { scan, branch, variant, grid } = candidate;
   const observations = variant.observations;
-  const problem: RefineProblem = {
-    d: settings.d, geometry: settings.geometry, mode: settings.mode, cOverB: scan.cOverB, cFixed: settings.cFixed,
-    groundKey: scan.ids[branch.ground]!.key,
-    levelKeys: Array.from(candidate.levels, (k) => scan.ids[k]!.key),
-    observed: Float64Array.from(observations, (o) => o.position),
-    sigma: Float64Array.from(observations, (o) => (sorted.weighted ? o.sigma : 1)),
-    bRange: bRangeOf(settings),
-    ...(settings.treesUsed ? { alpha: settings.alpha, alphaFree: settings.alphaFree } : {}),
-  };
+  const groundKey = scan.ids[branch.ground]!.key;
+  const levelKeys = Array.from(candidate.levels, (k) => scan.ids[k]!.key);
   const start: FieldParameters = from ?? {
     dq: grid.x * grid.b, b: grid.b, c: settings.mode === 'fixed' ? settings.cFixed : scan.cOverB * grid.b,
     ...(settings.alpha !== 0 ? { alpha: settings.alpha } : {}),
+  };
+  // σ_C (c-sensitivity.ts) at the start weighs the refinement; recomputed at its result for the χ².
+  const cSd = assumedCOverBSd(settings);
+  const derivativesAt = (p: FieldParameters) => (cSd > 0
+    ? transitionCDerivatives(settings.d, settings.geometry, p, groundKey, levelKeys)
+    : new Float64Array(observations.length));
+  const startDerivatives = derivativesAt(start);
+  const startSigmaC = sigmaFromCOf(startDerivatives, start.b, cSd);
+  const weighted = sorted.weighted || anyWidened(startSigmaC);
+  const problem: RefineProblem = {
+    d: settings.d, geometry: settings.geometry, mode: settings.mode, cOverB: scan.cOverB, cFixed: settings.cFixed,
+    groundKey, levelKeys,
+    observed: Float64Array.from(observations, (o) => o.position),
+    sigma: Float64Array.from(observations, (o, i) => leastSquaresSigma(o.sigma, startSigmaC[i]!, weighted)),
+    bRange: bRangeOf(settings),
+    ...(settings.treesUsed ? { alpha: settings.alpha, alphaFree: settings.alphaFree } : {}),
   };
   const refined = refineSolution(problem, start, maxEvaluations);
   let { params, levels, calculated } = refined;
@@ -123,10 +149,12 @@ export function evaluateGridCandidate(
     assignedEnergies(levels, problem.groundKey, problem.levelKeys, calculated);
     notes.push('the least-squares optimum of this assignment lies across the spin crossover; the best self-consistent grid point is kept');
   }
+  const derivatives = cSd > 0 && !keptGrid ? derivativesAt(params) : startDerivatives;
+  const sigmaFromC = sigmaFromCOf(derivatives, params.b, cSd);
   let ssr = 0;
   let wSum = 0;
   observations.forEach((o, i) => {
-    const w = sorted.weighted ? 1 / o.sigma ** 2 : 1;
+    const w = leastSquaresSigma(o.sigma, startSigmaC[i]!, weighted) ** -2;
     ssr += w * (calculated[i]! - o.position) ** 2;
     wSum += w;
   });
@@ -134,14 +162,16 @@ export function evaluateGridCandidate(
     candidate, settings, sorted, transitions: classTransitionsOf(candidate, levels), calculated, levels: candidate.levels,
     dq: params.dq, b: params.b, c: params.c, bDetermined: true,
   });
-  const penalties = [...variant.penalties, ...skip.penalties];
+  const cPenalty = assumedCPenalty(observations, sigmaFromC, parameterCount(problem));
+  const penalties = [...variant.penalties, ...skip.penalties, ...(cPenalty ? [cPenalty] : [])];
   const wrms = Math.sqrt(ssr / wSum);
-  const chiSquare = chiSquareOf(observations, calculated);
+  const chiSquare = chiSquareOf(observations, calculated, sigmaFromC);
   return {
     candidate, params, bDetermined: true, levels, groundTerm: levels.groundTerm, spinState: levels.spinState,
     calculated, levelIndices: candidate.levels, wrms, chiSquare, penalties,
     skipped: skip.skipped, coincident: skip.coincident, score: chiSquare + penaltyTotal(penalties),
-    lsq: keptGrid ? null : refined.lsq, problem, keptGrid, notes,
+    lsq: keptGrid ? null : refined.lsq, problem, keptGrid, notes, sigmaFromC,
+    ...(cSd > 0 ? { assumedC: { derivatives, sigma: params.b * cSd } } : {}),
   };
 }
 

@@ -9,10 +9,26 @@
  * except the position term, which is `Evaluated.chiSquare`.
  *
  * Likelihood
- * - Positions: χ² = Σ (o − c)² / (σ² + σm²), with σ the band's uncertainty
- *   (given, or max(100 cm-1, 1% of the position)) and σm the model error of a
- *   cubic ligand field with one C/B: max(150 cm-1, 1.5% of the position)
- *   (common practice: such fits leave residuals of a few hundred cm-1).
+ * - Positions: χ² = Σ (o − c)² / (σ² + σm² + σ_C²), with σ the band's
+ *   uncertainty (given, or max(100 cm-1, 1% of the position)) and σm the
+ *   model error of a cubic ligand field with one C/B: max(150 cm-1, 1.5% of
+ *   the position) (common practice: such fits leave residuals of a few
+ *   hundred cm-1). σ_C (errors in variables, c-sensitivity.ts): when C is
+ *   not fitted but tied to B by an assumed C/B (the free ion's; not one the
+ *   user gave), σ_C = |∂ΔE/∂C|·B·σ(C/B), ∂ΔE/∂C the derivative of the
+ *   assigned transition energy with respect to C at fixed Dq and B and
+ *   σ(C/B) = 1.62 the standard deviation of the C/B prior below; 0 for a
+ *   transition that does not depend on C (the spin-allowed bands of d3 and
+ *   d8). A sharp spin-forbidden line (4A2g → 2Eg of Cr(III), ≈ 9B + 3C) so
+ *   weighs as little as the unknown C makes it worth and no longer fixes B
+ *   through an assumed C/B. The same σ_C enters the least-squares weights
+ *   (leastSquaresSigma) and the goodness of fit. In the score each band's
+ *   σ_C is taken as independent, and in an over-determined fit the widened
+ *   σ costs its normalisation, Σ ln(1 + σ_C²/(σ² + σm²)) (c-sensitivity.ts
+ *   assumedCPenalty: else an assignment whose bands all depend on C would
+ *   win by its discounted χ²). The reported covariance treats C as one
+ *   shared error (uncertainty.ts sandwichCovariance): the two singlets of
+ *   low-spin d6 move together with C, so 10Dq takes its spread and B not.
  * - A band left unexplained: a band list may hold a maximum that is no d–d
  *   maximum of this model (a split maximum, noise, an impurity) with prior
  *   probability π, anywhere in a range R = 30 000 cm-1. Against explaining
@@ -95,9 +111,23 @@ export function modelSigma(position: number): number {
   return Math.max(150, 0.015 * position);
 }
 
-/** 1/(σ² + σm²): the weight of a band in χ². */
-export function effectiveWeight(position: number, sigma: number): number {
-  return 1 / (sigma * sigma + modelSigma(position) ** 2);
+/**
+ * 1/(σ² + σm² + σ_C²): the weight of a band in χ², σ_C the spread its
+ * position takes from an assumed C/B (c-sensitivity.ts; 0 when C is fitted
+ * or fixed, or the transition does not depend on C).
+ */
+export function effectiveWeight(position: number, sigma: number, sigmaC = 0): number {
+  return 1 / (sigma * sigma + modelSigma(position) ** 2 + sigmaC * sigmaC);
+}
+
+/**
+ * The divisor of a band's residual in the least-squares fit: σ_eff without
+ * the model error, √(σ² + σ_C²), when the fit is weighted (or any band is
+ * widened by σ_C: such a fit is weighted, every band taking its σ, given or
+ * default); 1 when it is unweighted.
+ */
+export function leastSquaresSigma(sigma: number, sigmaC: number, weighted: boolean): number {
+  return weighted ? Math.sqrt(sigma * sigma + sigmaC * sigmaC) : 1;
 }
 
 /** −2·ln p, ≥ 0 for p ≤ 1. */

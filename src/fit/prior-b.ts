@@ -20,6 +20,7 @@
  * with the engine by Newton steps in Dq (refinePriorB).
  */
 import { levelsAt } from './engine.js';
+import { cOverBPriorSd, sigmaFromCOf, transitionCDerivatives } from './c-sensitivity.js';
 import { branchSpinState, type Evaluated } from './evaluate.js';
 import { primaryClass, type Branch } from './enumerate.js';
 import type { DqOnlyCandidate, Variant } from './candidates.js';
@@ -221,6 +222,9 @@ export function refinePriorB(e: Evaluated, settings: FitSettings, sorted: Sorted
     level: k, term: scan.ids[k]!.term, label: scan.ids[k]!.label, energy: (byKey.get(scan.ids[k]!.key) ?? Number.NaN) - zero, twoElectron: two[k] === 1,
   }));
   const polished = scored(candidate, settings, sorted, prior, { dq, b, c }, transitions, at.levels, { dEdDq: slope, dEdB });
+  // The band's spread from the C/B it assumes (c-sensitivity.ts; a free C is held at the ratio here too): into 10Dq's ± (uncertainty.ts).
+  const cSd = settings.mode === 'fixed' || settings.cOverBGiven ? 0 : cOverBPriorSd();
+  if (cSd > 0) polished.sigmaFromC = sigmaFromCOf(transitionCDerivatives(settings.d, settings.geometry, { dq, b, c }, groundKey, [levelKey]), b, cSd);
   polished.notes.push(`B fixed at its prior ${Math.round(b)} cm-1 (${prior.source}); 10Dq from the one band with it`);
   return polished;
 }

@@ -10,6 +10,7 @@
  * 4A1g/4Eg(G) of d5). Each says why it lost (`reason`).
  * Near spin crossover: within 10% of the crossover Dq/B.
  */
+import { cOverBPriorSd } from './c-sensitivity.js';
 import { spinStateChoice } from '../ligand-field/index.js';
 import { crossoverAt, levelsAt as computeLevels } from './engine.js';
 import { deviance, LIKELIHOOD, probabilitiesOf } from './likelihood.js';
@@ -51,6 +52,7 @@ function assignmentRows(best: Evaluated): AssignedBand[] {
         term: id.term, parent: id.parent, label: id.label, multiplicity: id.multiplicity,
         spinAllowed: id.multiplicity === branch.multiplicity, bands: o.bands, flags: o.flags,
         coincident: best.coincident[i] ?? [],
+        ...((best.sigmaFromC?.[i] ?? 0) > 0 ? { sigmaFromC: round(best.sigmaFromC![i]!, 0) } : {}),
       };
     })
     .sort((a, b) => a.observed - b.observed);
@@ -237,7 +239,8 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   }
   // Small terms (expected-weak transitions skipped) are worth a note, large ones (p < 0.1) a warning.
   for (const p of best.penalties) {
-    if (p.rule === 'jahn-teller-pair') continue;
+    // The widened bands have a note of their own (below).
+    if (p.rule === 'jahn-teller-pair' || p.rule === 'assumed-c-over-b') continue;
     // A band left out or merged always warrants a warning: the band list may hold a spurious band.
     const warn = p.amount >= deviance(0.1) || p.rule === 'unexplained-band' || p.rule === 'split-band';
     (warn ? warnings : notes).push(`${p.detail} (score +${p.amount.toFixed(1)})`);
@@ -270,6 +273,11 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
   }
   if (bFit !== null) notes.push(`uncertainties from ${basis}`);
   if (settings.mode === 'ratio' && bFit !== null) notes.push(settings.cOverBSource);
+  const widened = variant.observations.map((o, i) => ({ o, s: best.sigmaFromC?.[i] ?? 0 })).filter(({ s }) => s > 0);
+  if (widened.length > 0) {
+    const list = widened.map(({ o, s }) => `${Math.round(o.position)} cm-1 by ${Math.round(s)}`).join(', ');
+    notes.push(`band${widened.length === 1 ? '' : 's'} whose energy depends on C, which is not fitted but assumed at C/B = ${settings.cOverB.toFixed(2)}: σ widened by the C/B prior's spread (±${cOverBPriorSd().toFixed(2)}) in quadrature, ${list}; ${widened.length === 1 ? 'it weighs' : 'they weigh'} that much less in the fit, the score and the uncertainties`);
+  }
   if (settings.b0 === null && settings.ion === null) notes.push('beta is null: no ion was given (only d), so no free-ion B0');
   else if (settings.b0 === null) notes.push(`beta is null: no free-ion B0 is tabulated for ${settings.ion!.label}`);
   if (settings.freeIonSource) notes.push(`free-ion B0, C0: ${settings.freeIonSource}`);

@@ -27,11 +27,11 @@ export function treesSuggestion(best: Evaluated, settings: FitSettings): string 
   // α needs one band beyond the parameters, and one more to judge it by.
   if (m < parameterCount(best.problem) + 2) return undefined;
   // The gain cannot exceed the cubic fit's own χ²: below the bar no refinement is needed (and none is paid for).
-  const plain = chiSquareOf(observations, best.calculated);
+  const plain = chiSquareOf(observations, best.calculated, best.sigmaFromC);
   if (!(plain - Math.log(m) > TREES_NOTE_MIN_GAIN)) return undefined;
   const refined = refineSolution({ ...best.problem, alphaFree: true, alpha: 0 }, { ...best.params, alpha: 0 }, 60);
   if (!refined.selfConsistent || !refined.lsq.success) return undefined;
-  const gain = plain - chiSquareOf(observations, refined.calculated) - Math.log(m);
+  const gain = plain - chiSquareOf(observations, refined.calculated, best.sigmaFromC) - Math.log(m);
   if (!(gain > TREES_NOTE_MIN_GAIN)) return undefined;
   const rms = Math.sqrt(observations.reduce((s, o, i) => s + (refined.calculated[i]! - o.position) ** 2, 0) / m);
   const { dq, b, c, alpha = 0 } = refined.params;

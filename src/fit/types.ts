@@ -72,10 +72,17 @@ export interface AssignedBand {
   flags: BandFlag[];
   /** Other transitions within the band (degenerate or nearly so), e.g. ["4Eg(G)"]. */
   coincident: string[];
+  /**
+   * Present when the band's σ was widened because its transition energy
+   * depends on C and C was not fitted but tied to B by an assumed C/B: the
+   * σ added in quadrature, |∂ΔE/∂C|·B·σ(C/B), cm-1 (likelihood.ts,
+   * c-sensitivity.ts). Absent: the band weighs with σ² + σm² alone.
+   */
+  sigmaFromC?: number;
 }
 
 export interface Penalty {
-  rule: 'skipped-transition' | 'unexplained-band' | 'split-band' | 'beta' | 'c-over-b' | 'jahn-teller-pair' | 'ten-dq' | 'ligands' | 'intensity' | 'forbidden-band' | 'assignments';
+  rule: 'skipped-transition' | 'unexplained-band' | 'split-band' | 'beta' | 'c-over-b' | 'jahn-teller-pair' | 'ten-dq' | 'ligands' | 'intensity' | 'forbidden-band' | 'assignments' | 'assumed-c-over-b';
   /** Added to the score: a deviance, −2·ln p (likelihood.ts). */
   amount: number;
   detail: string;
