@@ -107,7 +107,9 @@ export const MAX_PRIOR_B_POLISHED = 6;
  * which the Dq-only candidate already takes without assuming B.
  */
 function priorBCandidates(settings: FitSettings, sorted: SortedObservations, reduction: Reduction, scan: ReturnType<typeof cachedLevelScan>): Evaluated[] {
-  if (reduction.touchesUnflagged || reduction.sorted.primary.length + reduction.sorted.flagged.length !== 1) return [];
+  // Bands left out are not a one-band reading of the spectrum; a split pair merged into one is (reductions.ts).
+  const leavesUnflaggedOut = reduction.dropped.some((o) => !o.flags.includes('spin-forbidden'));
+  if (leavesUnflaggedOut || reduction.sorted.primary.length + reduction.sorted.flagged.length !== 1) return [];
   const prior = bPriorOf(settings);
   const out: Evaluated[] = [];
   for (const branch of scanBranches(scan)) {

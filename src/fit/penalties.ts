@@ -256,6 +256,10 @@ export function intensityPenalties({ geometry, bands, allForbidden }: IntensityC
   const penalties: Penalty[] = [];
   const allowedEps = bands.filter((b) => b.spinAllowed && b.epsilon !== undefined && b.epsilon > 0).map((b) => b.epsilon!);
   const strongest = allowedEps.length ? Math.max(...allowedEps) : undefined;
+  // The strongest one-electron spin-allowed band: the yardstick of the weak classes (likelihood.ts).
+  const oneElectronEps = bands.filter((b) => b.spinAllowed && !b.twoElectron && b.orbitallyForbidden !== true && b.epsilon !== undefined && b.epsilon > 0)
+    .map((b) => b.epsilon!);
+  const strongestOneElectron = oneElectronEps.length ? Math.max(...oneElectronEps) : undefined;
   const allowedMu = geometry === 'tetrahedral' ? L.epsilonTetrahedral : L.epsilonOctahedral;
   for (const band of bands) {
     if (band.epsilon === undefined || !(band.epsilon > 0)) continue;
@@ -264,8 +268,12 @@ export function intensityPenalties({ geometry, bands, allForbidden }: IntensityC
     let sigma: number = L.logEpsilonSigma;
     if (band.spinAllowed) {
       const weak = band.twoElectron || band.orbitallyForbidden === true;
-      mu = band.twoElectron ? allowedMu * L.epsilonTwoElectronFactor : band.orbitallyForbidden ? allowedMu * L.epsilonOrbitallyForbiddenFactor : allowedMu;
+      const factor = band.twoElectron ? L.epsilonTwoElectronFactor : L.epsilonOrbitallyForbiddenFactor;
+      // A weak class is weak beside the strong bands of the same spectrum: relative to them when one is assigned.
+      const relative = weak && strongestOneElectron !== undefined;
+      mu = !weak ? allowedMu : relative ? strongestOneElectron * factor : allowedMu * factor;
       kind = band.twoElectron ? 'a two-electron band' : weak ? 'a band orbitally forbidden in Td' : `a spin-allowed ${geometry} band`;
+      if (relative) kind += ` beside a one-electron band of ε ${strongestOneElectron.toPrecision(3)}`;
     } else if (strongest !== undefined && !allForbidden) {
       mu = strongest * L.forbiddenRelative;
       kind = 'a spin-forbidden band beside the spin-allowed ones';
