@@ -232,7 +232,7 @@ export function fitReport(r: FitResult): string {
   }
   // The absolute check (src/fit/goodness-of-fit.ts): older stored results lack it.
   const g = r.goodnessOfFit as FitResult['goodnessOfFit'] | undefined;
-  if (g) lines.push(`Goodness of fit: ${g.verdict === 'poor' ? 'POOR' : 'good'}: χ² = ${fmt(g.chiSquare, 1)} for ${g.degreesOfFreedom} degree${g.degreesOfFreedom === 1 ? '' : 's'} of freedom (p = ${g.pValue < 1e-6 ? '< 1e-6' : g.pValue.toPrecision(2)})${g.betaPhysical === false ? '; β outside 0.3–1.1, not physical' : ''}`);
+  if (g) lines.push(`Goodness of fit: ${g.verdict === 'poor' ? 'POOR' : 'good'}: χ² = ${fmt(g.chiSquare, 1)} for ${g.degreesOfFreedom} degree${g.degreesOfFreedom === 1 ? '' : 's'} of freedom (p = ${g.pValue < 1e-6 ? '< 1e-6' : g.pValue.toPrecision(2)})${g.reason ? `; ${g.reason}` : g.betaPhysical === false ? '; β outside 0.3–1.1, not physical' : ''}`);
   for (const u of r.undetermined) lines.push(`Not determined by these bands: ${u.parameter === 'tenDq' ? '10Dq' : u.parameter.toUpperCase()} (${u.reason}); ${u.action}`);
   if (r.window) lines.push(`Measured range: ${fmt(r.window.min)}–${fmt(r.window.max)} cm-1 (${fmt(1e7 / r.window.max)}–${fmt(1e7 / r.window.min)} nm)`);
   lines.push('', 'Assignment (cm-1):');
