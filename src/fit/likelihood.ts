@@ -42,7 +42,9 @@
  *     weak) p = 0.2;
  *   · below the lowest band when the range is not known: in the infrared
  *     (< 5000 cm-1) p = 0.3 octahedral, 1 tetrahedral; a tetrahedral ion's
- *     lowest transition below 7000 cm-1 p = 0.7; else p = 0.05.
+ *     transitions below 7000 cm-1 p = 0.7 (the lowest, and ν2 of Co(II),
+ *     4T1(F) near 5 000–7 000 cm-1, common practice: UV–vis instruments
+ *     seldom reach them); else p = 0.05.
  *   (Values: common practice.)
  * - A band explained by a spin-forbidden transition beside spin-allowed ones:
  *   −2·ln 0.15, the chance that a given one of the many weak spin-forbidden
