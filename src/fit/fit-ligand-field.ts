@@ -49,6 +49,7 @@ import { penaltyTotal } from './penalties.js';
 import { gridPrior } from './score-terms.js';
 import { fitUncertainty } from './uncertainty.js';
 import { bandReductions } from './reductions.js';
+import { splitBandSuggestion, splitSuggestionText } from './split-suggestion.js';
 import { freeCStart } from './free-c-start.js';
 import { candidateOnScan } from './move-candidate.js';
 import { evaluateDqOnly, evaluateGridCandidate, type Evaluated } from './evaluate.js';
@@ -107,7 +108,9 @@ export const MAX_PRIOR_B_POLISHED = 6;
  * which the Dq-only candidate already takes without assuming B.
  */
 function priorBCandidates(settings: FitSettings, sorted: SortedObservations, reduction: Reduction, scan: ReturnType<typeof cachedLevelScan>): Evaluated[] {
-  if (reduction.touchesUnflagged || reduction.sorted.primary.length + reduction.sorted.flagged.length !== 1) return [];
+  // Bands left out are not a one-band reading of the spectrum; a split pair merged into one is (reductions.ts).
+  const leavesUnflaggedOut = reduction.dropped.some((o) => !o.flags.includes('spin-forbidden'));
+  if (leavesUnflaggedOut || reduction.sorted.primary.length + reduction.sorted.flagged.length !== 1) return [];
   const prior = bPriorOf(settings);
   const out: Evaluated[] = [];
   for (const branch of scanBranches(scan)) {
@@ -361,9 +364,15 @@ export function fitLigandField(input: FitInput, options: FitOptions = {}): FitRe
     best = whole;
   }
   if (best.wrms > threshold) {
+    // A way forward (split-suggestion.ts): the closest bands read as one split band, when that fits.
+    let tenDq = Number.NaN;
+    const split = splitBandSuggestion(bands, (next) => {
+      tenDq = fitLigandField({ ...input, bands: next }, { maxAlternatives: 0 }).tenDq;
+      return true;
+    });
     throw new FieldgapError(
       'unexplained',
-      `no assignment explains these bands for ${describeSystem(settings)}; best rms ${Math.round(best.wrms)} cm-1 (limit ${Math.round(threshold)} cm-1)`,
+      `no assignment explains these bands for ${describeSystem(settings)}; best rms ${Math.round(best.wrms)} cm-1 (limit ${Math.round(threshold)} cm-1)${split ? `; ${splitSuggestionText(split, tenDq)}` : ''}`,
       'bands',
     );
   }

@@ -58,7 +58,9 @@
  *     weak) p = 0.2;
  *   · below the lowest band when the range is not known: in the infrared
  *     (< 5000 cm-1) p = 0.3 octahedral, 1 tetrahedral; a tetrahedral ion's
- *     lowest transition below 7000 cm-1 p = 0.7; else p = 0.05.
+ *     transitions below 7000 cm-1 p = 0.7 (the lowest, and ν2 of Co(II),
+ *     4T1(F) near 5 000–7 000 cm-1, common practice: UV–vis instruments
+ *     seldom reach them); else p = 0.05.
  *   (Values: common practice.)
  * - A band explained by a spin-forbidden transition beside spin-allowed ones:
  *   −2·ln 0.15, the chance that a given one of the many weak spin-forbidden
@@ -66,9 +68,14 @@
  *   do); without it any stray band finds a doublet within its σ.
  * - Intensities, for bands that carry ε (L mol-1 cm-1): ln ε ~ Normal(μ, 1.3)
  *   with ε_μ = 20 for octahedral spin-allowed d–d bands, 300 tetrahedral
- *   (common practice: 1–150 and 50–1 500), a tenth of that for a two-electron
- *   transition and for a tetrahedral one forbidden by the orbital rule (ν1 of
- *   tetrahedral Co(II) and V(III): tens against hundreds, common practice); for spin-forbidden bands 3% of the strongest spin-allowed ε
+ *   (common practice: 1–150 and 50–1 500); for a two-electron transition and
+ *   for a tetrahedral one forbidden by the orbital rule (ν1 of tetrahedral
+ *   Co(II) and V(III): tens against hundreds, common practice) a tenth of the
+ *   strongest one-electron spin-allowed ε assigned in the same spectrum, or,
+ *   when none is, a tenth of the typical allowed ε (common practice: weak
+ *   classes lie well below the allowed bands of the same spectrum, issue 13;
+ *   an absolute yardstick alone calls a band as strong as its neighbour
+ *   "weak" whenever both are weaker than typical); for spin-forbidden bands 3% of the strongest spin-allowed ε
  *   of the spectrum, or, when every band is spin-forbidden (high-spin d5),
  *   ε_μ = 0.3 octahedral / 1 tetrahedral with σ 1.7: the quartets of
  *   octahedral d5 span about 0.01 (hexaaqua Mn(II)) to 10 (Fe(III) in

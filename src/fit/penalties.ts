@@ -136,8 +136,9 @@ export function skippedTransitionPenalties(context: SkipContext): SkipOutcome {
       add('is orbitally forbidden in Td, expected weak', LIKELIHOOD.missOrbitallyForbidden);
     } else if (t.energy < LIMITS.infrared) {
       add('lies in the infrared, below the measured range', geometry === 'tetrahedral' ? 1 : LIKELIHOOD.missInfraredOctahedral);
-    } else if (geometry === 'tetrahedral' && t.energy === lowestOfClass && t.energy < LIMITS.tetrahedralLowest) {
-      add("is a tetrahedral ion's lowest band, near the infrared", LIKELIHOOD.missTetrahedralLowest);
+    } else if (geometry === 'tetrahedral' && t.energy < LIMITS.tetrahedralLowest) {
+      // Not only the lowest: ν2 of tetrahedral Co(II) (4T1(F), 5 000–7 000 cm-1) lies as far in the near infrared.
+      add(t.energy === lowestOfClass ? "is a tetrahedral ion's lowest band, near the infrared" : 'lies in the near infrared, below the lowest band, where tetrahedral ions have their low bands', LIKELIHOOD.missTetrahedralLowest);
     } else {
       add('lies below the lowest band but in the usual range', context.classForbidden ? LIKELIHOOD.missForbiddenClass : LIKELIHOOD.missBelowOctahedral);
     }
@@ -153,6 +154,11 @@ export interface PriorSettings {
   cOverB: number;
   /** 10Dq expected from the ligands (Jørgensen f·g, ×4/9 tetrahedral), or null. */
   tenDqExpected: number | null;
+  /**
+   * σ of ln 10Dq around tenDqExpected when wider than likelihood.ts's 15%: √(0.15² + (σg/g)²) when g is an
+   * estimate (settings.ts); absent otherwise.
+   */
+  tenDqSigma?: number;
   /** The range 10Dq shows with common ligands, or null without g. */
   tenDqRange: [number, number] | null;
   /** β expected from the ligands (1 − h·k), or null. */
@@ -183,9 +189,14 @@ export function betaPriorDeviance(b: number, priors: PriorSettings): number {
   return term;
 }
 
+/** σ of ln 10Dq around the ligands' expectation: 15%, wider when g is an estimate (PriorSettings.tenDqSigma). */
+function tenDqSigmaOf(priors: PriorSettings): number {
+  return priors.tenDqSigma ?? LIKELIHOOD.tenDqSigma;
+}
+
 /** σ of ln 10Dq above the expectation or range: wider for a low-spin solution (likelihood.ts). */
-function tenDqSigmaAbove(lowSpin: boolean): number {
-  return lowSpin ? LIKELIHOOD.tenDqSigmaLowSpinHigh : LIKELIHOOD.tenDqSigma;
+function tenDqSigmaAbove(lowSpin: boolean, sigma: number = LIKELIHOOD.tenDqSigma): number {
+  return lowSpin ? Math.max(LIKELIHOOD.tenDqSigmaLowSpinHigh, sigma) : sigma;
 }
 
 /** The 10Dq prior's deviance at Dq; `lowSpin`: the solution's ground is the strong-field one. */
@@ -195,7 +206,7 @@ export function tenDqPriorDeviance(dq: number, priors: PriorSettings, lowSpin = 
   const above = tenDqSigmaAbove(lowSpin);
   if (priors.tenDqExpected !== null) {
     const r = Math.log((10 * dq) / priors.tenDqExpected);
-    return (r / (r > 0 ? above : L.tenDqSigma)) ** 2;
+    return (r / (r > 0 ? tenDqSigmaAbove(lowSpin, tenDqSigmaOf(priors)) : tenDqSigmaOf(priors))) ** 2;
   }
   if (priors.tenDqRange) return flatWithTails(Math.log(10 * dq), Math.log(priors.tenDqRange[0]), Math.log(priors.tenDqRange[1]), L.tenDqSigma, above);
   return 0;
@@ -231,7 +242,7 @@ export function plausibilityPenalties({ b, c, mode, dq, priors, lowSpin = false 
     const tenDq = 10 * dq;
     if (priors.tenDqExpected !== null) {
       const r = Math.log(tenDq / priors.tenDqExpected);
-      const term = (r / (r > 0 ? tenDqSigmaAbove(lowSpin) : L.tenDqSigma)) ** 2;
+      const term = (r / (r > 0 ? tenDqSigmaAbove(lowSpin, tenDqSigmaOf(priors)) : tenDqSigmaOf(priors))) ** 2;
       if (term > 0) penalties.push({ rule: 'ten-dq', amount: term, detail: `10Dq = ${Math.round(tenDq)} cm-1 against ${Math.round(priors.tenDqExpected)} expected from the ligands (${priors.ligandNote})` });
     } else if (priors.tenDqRange) {
       const [lo10, hi10] = priors.tenDqRange;
@@ -256,6 +267,10 @@ export function intensityPenalties({ geometry, bands, allForbidden }: IntensityC
   const penalties: Penalty[] = [];
   const allowedEps = bands.filter((b) => b.spinAllowed && b.epsilon !== undefined && b.epsilon > 0).map((b) => b.epsilon!);
   const strongest = allowedEps.length ? Math.max(...allowedEps) : undefined;
+  // The strongest one-electron spin-allowed band: the yardstick of the weak classes (likelihood.ts).
+  const oneElectronEps = bands.filter((b) => b.spinAllowed && !b.twoElectron && b.orbitallyForbidden !== true && b.epsilon !== undefined && b.epsilon > 0)
+    .map((b) => b.epsilon!);
+  const strongestOneElectron = oneElectronEps.length ? Math.max(...oneElectronEps) : undefined;
   const allowedMu = geometry === 'tetrahedral' ? L.epsilonTetrahedral : L.epsilonOctahedral;
   for (const band of bands) {
     if (band.epsilon === undefined || !(band.epsilon > 0)) continue;
@@ -264,8 +279,12 @@ export function intensityPenalties({ geometry, bands, allForbidden }: IntensityC
     let sigma: number = L.logEpsilonSigma;
     if (band.spinAllowed) {
       const weak = band.twoElectron || band.orbitallyForbidden === true;
-      mu = band.twoElectron ? allowedMu * L.epsilonTwoElectronFactor : band.orbitallyForbidden ? allowedMu * L.epsilonOrbitallyForbiddenFactor : allowedMu;
+      const factor = band.twoElectron ? L.epsilonTwoElectronFactor : L.epsilonOrbitallyForbiddenFactor;
+      // A weak class is weak beside the strong bands of the same spectrum: relative to them when one is assigned.
+      const relative = weak && strongestOneElectron !== undefined;
+      mu = !weak ? allowedMu : relative ? strongestOneElectron * factor : allowedMu * factor;
       kind = band.twoElectron ? 'a two-electron band' : weak ? 'a band orbitally forbidden in Td' : `a spin-allowed ${geometry} band`;
+      if (relative) kind += ` beside a one-electron band of ε ${strongestOneElectron.toPrecision(3)}`;
     } else if (strongest !== undefined && !allForbidden) {
       mu = strongest * L.forbiddenRelative;
       kind = 'a spin-forbidden band beside the spin-allowed ones';

@@ -20,10 +20,14 @@
  * Limits: of the unflagged bands, at most half (and at most
  * MAX_UNEXPLAINED_UNFLAGGED) are left unexplained, and fewer than half of
  * those that are neither shoulders nor weak nor narrow, so most of what was
- * clearly measured is explained; a reduction that touches
- * an unflagged band must leave at least p + 1 observations (p the number of
- * fitted parameters), so an exact fit of p bands never buys its way out of a
- * poor fit of all of them. Bands flagged spin-forbidden may always be left
+ * clearly measured is explained; a reduction that leaves
+ * an unflagged band out must leave at least p observations (p the number of
+ * fitted parameters), so an exact fit never buys its way out of a poor fit
+ * of all of them; one that only merges split pairs explains every band and
+ * may leave a single observation (when each merged pair is two maxima at
+ * least 300 cm-1 apart, resolvedPair), for the one-band reading with B at its
+ * prior (prior-b.ts: the spin–orbit multiplet of 4T1(P) of tetrahedral
+ * Co(II) alone in a visible-only window, AUDIT3 finding 2). Bands flagged spin-forbidden may always be left
  * (at most MAX_UNEXPLAINED_FLAGGED), down to a single remaining band. Reductions are returned by ascending
  * penalty, the identity (nothing left out, penalty 0) first, so a caller can
  * stop as soon as the penalty alone exceeds the best score found.
@@ -103,6 +107,15 @@ export function splitPairAllowed(a: Observation, b: Observation): boolean {
   return separation <= splitPairLimit(0.5 * (a.position + b.position));
 }
 
+/**
+ * Two maxima at least LIKELIHOOD.coincidence apart: resolved components of
+ * one split band. Closer, they are one maximum given twice, and the fit of
+ * the pair as two transitions (poor, and said so) is the honest answer.
+ */
+function resolvedPair(pair: Observation[]): boolean {
+  return Math.abs(pair[1]!.position - pair[0]!.position) >= LIKELIHOOD.coincidence;
+}
+
 function splitPenalty(a: Observation, b: Observation): Penalty {
   const separation = Math.abs(b.position - a.position);
   return {
@@ -130,7 +143,10 @@ export function bandReductions(sorted: SortedObservations, p: number): Reduction
   const finish = (keptF: Observation[], flaggedDropped: Observation[], flaggedPenalties: Penalty[]) => {
     const touches = unflaggedDrops > 0 || merged.length > 0;
     const remaining = keptP.length + keptF.length;
-    if (remaining < (touches ? p : 1)) return;
+    // Merging explains both bands (as one): it may leave fewer than p, for the one-band prior-B reading,
+    // when every merged pair is two resolved maxima.
+    if (remaining < (unflaggedDrops > 0 ? p : 1)) return;
+    if (remaining < p && !merged.every(resolvedPair)) return;
     const all = [...penalties, ...flaggedPenalties];
     out.push({
       sorted: { ...sorted, primary: [...keptP], flagged: [...keptF] },

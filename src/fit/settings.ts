@@ -11,6 +11,7 @@ import { parseIon, type Ion } from '../chemistry/ions.js';
 import { findLigand } from '../chemistry/ligands.js';
 import { parseFormula, type ParsedComplex } from '../chemistry/formula.js';
 import { jorgensenF, jorgensenG, jorgensenH, jorgensenK, JORGENSEN_SOURCE } from '../chemistry/jorgensen.js';
+import { metalG, type FactorValue } from '../predict/factor-table.js';
 import { FieldgapError, invalidArgument, isFieldgapError } from '../errors.js';
 import { GEOMETRIES, type Geometry } from '../ligand-field/types.js';
 import { LIKELIHOOD } from './likelihood.js';
@@ -96,6 +97,7 @@ function readWindow(value: unknown): Window | undefined {
  */
 function priorSettings(ion: Ion | null, geometry: Geometry, b0: number | null, cOverB: number, ligands: Array<{ key: string; count: number }>): PriorSettings {
   const g = ion ? jorgensenG(ion) : undefined;
+  const gEstimate = ion && g === undefined ? aquaIonGEstimate(ion) : undefined;
   const k = ion ? jorgensenK(ion) : undefined;
   const t = geometry === 'tetrahedral' ? LIKELIHOOD.tetrahedralFactor : 1;
   const total = ligands.reduce((s, l) => s + l.count, 0);
@@ -112,15 +114,34 @@ function priorSettings(ion: Ion | null, geometry: Geometry, b0: number | null, c
   const f = mean(jorgensenF);
   const h = mean(jorgensenH);
   const names = [...new Set(ligands.map((l) => l.key))].join(', ');
-  const tenDqExpected = f !== undefined && g !== undefined ? f * g * t : null;
+  const gUsed = g ?? gEstimate?.value;
+  const tenDqExpected = f !== undefined && gUsed !== undefined ? f * gUsed * t : null;
   const betaExpected = h !== undefined && k !== undefined ? Math.max(0.2, 1 - h * k) : null;
-  return {
+  const estimated = tenDqExpected !== null && g === undefined && gEstimate !== undefined;
+  const priors: PriorSettings = {
     b0, cOverB,
     tenDqExpected,
     tenDqRange: g !== undefined ? [LIKELIHOOD.fLow * g * t, LIKELIHOOD.fHigh * g * t] : null,
     betaExpected,
-    ligandNote: tenDqExpected !== null || betaExpected !== null ? `${names}; ${JORGENSEN_SOURCE}` : null,
+    ligandNote: tenDqExpected !== null || betaExpected !== null
+      ? `${names}; ${JORGENSEN_SOURCE}${estimated ? `; g(${ion!.label}) = ${gEstimate.value} ± ${gEstimate.sigma} cm-1 is an estimate (${gEstimate.source}), not in the table` : ''}`
+      : null,
   };
+  if (estimated) priors.tenDqSigma = Math.hypot(LIKELIHOOD.tenDqSigma, gEstimate.sigma / gEstimate.value);
+  return priors;
+}
+
+/**
+ * g of an ion Jørgensen's table lacks, when src/predict/factor-table.ts has
+ * one from a measured hexaaqua ion (its source "g = 10Dq of [M(H2O)6]n+ …",
+ * marked as an estimate with its σ): the fit's ligand prior may then use it,
+ * with that σ added to its own (AUDIT3 finding 1: V3+). The rough estimates
+ * from the oxidation state and row, or from a neighbour ion, are not used:
+ * a prior that wide would only look like knowledge.
+ */
+function aquaIonGEstimate(ion: Ion): FactorValue | undefined {
+  const estimate = metalG(ion);
+  return estimate.kind === 'estimate' && estimate.source.startsWith('g = 10Dq of') ? estimate : undefined;
 }
 
 function resolveIon(value: unknown): Ion {
@@ -201,11 +222,15 @@ export function resolveFitSettings(input: FitInput): FitSettings {
   const window = readWindow(input.window);
   const priorCentre = free ? free.c / free.b : LIKELIHOOD.defaultCOverB;
   const trees = readTrees(input.trees);
+  const priors = priorSettings(ion, geometry, b0, priorCentre, ligands);
+  if (priors.tenDqSigma !== undefined && priors.tenDqExpected !== null) {
+    notes.push(`10Dq prior from the ligands ${Math.round(priors.tenDqExpected)} cm-1 (±${Math.round(100 * priors.tenDqSigma)}%, wider than the usual 15%): ${priors.ligandNote}`);
+  }
   return {
     ...trees,
     d, ion, geometry, b0, c0, freeIonSource: free?.source ?? null, mode, cOverB: ratio, cOverBSource,
     cFixed: c ?? Number.NaN, cOverBGiven: cOverB !== undefined, window, ligands,
-    priors: priorSettings(ion, geometry, b0, priorCentre, ligands), notes,
+    priors, notes,
   };
 }
 

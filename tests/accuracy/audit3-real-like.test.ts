@@ -36,7 +36,7 @@ describe('AUDIT3 finding 1: visible-only [V(H2O)6]3+ with its concentration', ()
   // Bands 17 800 (ε 6) and 25 700 (ε 9) (from memory: the usual [V(H2O)6]3+ values; docs/sources.md lists them as not found).
   const r = () => analyze('v-aqua-visible.csv', { ion: 'V3+', concentration: 0.05 });
 
-  it.fails('the lowest band is 3T1g → 3T2g and 10Dq is near 19 000, not the two-electron reading with 10Dq ≈ 13 000', () => {
+  it('the lowest band is 3T1g → 3T2g and 10Dq is near 19 000, not the two-electron reading with 10Dq ≈ 13 000', () => {
     const fit = r().fit;
     const lowest = fit.assignments.reduce((a, b) => (b.observed < a.observed ? b : a));
     // The lowest spin-allowed band of octahedral d2 is 3T1g(F) → 3T2g(F) (common practice).
@@ -46,7 +46,7 @@ describe('AUDIT3 finding 1: visible-only [V(H2O)6]3+ with its concentration', ()
     expect(fit.tenDq).toBeLessThan(20500);
   });
 
-  it.fails('a band as strong as the spin-allowed one is not called the weak two-electron 3A2g jump', () => {
+  it('a band as strong as the spin-allowed one is not called the weak two-electron 3A2g jump', () => {
     const fit = r().fit;
     // Two-electron bands are far weaker than the spin-allowed bands of the same spectrum (common practice; issue 13 item 3).
     expect(fit.assignments.some((a) => a.label.startsWith('3A2g'))).toBe(false);
@@ -59,14 +59,14 @@ describe('AUDIT3 finding 2: visible-only [CoCl4]2-, the spin–orbit multiplet o
   // f(Cl-)·g(Co2+)·4/9 = 0.78 × 9 000 × 4/9 = 3 120 (docs/sources.md JORGENSEN-FG).
   const r = () => analyze('cocl4-visible.csv', { ion: 'Co2+', geometry: 'tetrahedral', concentration: 0.002 });
 
-  it.fails('10Dq is a tetrahedral chloride value (2 000–4 500 cm-1) and β is physical', () => {
+  it('10Dq is a tetrahedral chloride value (2 000–4 500 cm-1) and β is physical', () => {
     const fit = r().fit;
     expect(fit.tenDq).toBeGreaterThan(2000);
     expect(fit.tenDq).toBeLessThan(4500);
     expect(fit.beta!).toBeGreaterThan(0.3);
   });
 
-  it.fails('the two maxima are not read as 4T2 and 4T1(F)', () => {
+  it('the two maxima are not read as 4T2 and 4T1(F)', () => {
     const labels = r().fit.assignments.map((a) => a.label);
     expect(labels.some((l) => /^4T2/.test(l))).toBe(false);
   });

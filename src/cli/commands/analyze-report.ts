@@ -33,7 +33,7 @@ export function formatAnalysisReport(label: string, result: AnalyzeResult): stri
   const strain = priorStrainOf(fit.penalties as typeof fit.penalties | undefined);
   if (strain) lines.push(`  priors      ${priorStrainText(strain)}`);
   const goodness = fit.goodnessOfFit as typeof fit.goodnessOfFit | undefined;
-  if (goodness?.verdict === 'poor') lines.push(`  fit         POOR: χ² = ${goodness.chiSquare.toFixed(1)} for ${goodness.degreesOfFreedom} degrees of freedom (p = ${goodness.pValue.toPrecision(2)})`);
+  if (goodness?.verdict === 'poor') lines.push(`  fit         POOR: χ² = ${goodness.chiSquare.toFixed(1)} for ${goodness.degreesOfFreedom} degrees of freedom (p = ${goodness.pValue.toPrecision(2)})${goodness.reason ? `: ${goodness.reason}` : ''}`);
   const warnings = result.warnings;
   if (warnings.length > 0) lines.push('', 'Warnings', ...warnings.map((w) => `  - ${w}`));
   lines.push('', 'Results are model estimates: check the assignment against the spectrum.');

@@ -4,6 +4,8 @@ import { fitTetragonal, tetragonalFitReport, type TetragonalFitInput } from '../
 import { valueToWavenumber, xUnitFromName } from '../../spectrum/units.js';
 import type { Command } from '../command.js';
 import { checkFitBandCount } from '../../fit/band-count.js';
+import { normalizeBands } from '../../fit/bands.js';
+import { splitBandSuggestion } from '../../fit/split-suggestion.js';
 import { checkParameterRange } from '../../ligand-field/parameter-bounds.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 import { geometryOption } from '../geometry-option.js';
@@ -88,6 +90,38 @@ function toOptionError(error: FieldgapError): FieldgapError {
   if (!option) return error;
   const message = error.message.startsWith(`${error.path}: `) ? error.message.slice(error.path.length + 2) : error.message;
   return new FieldgapError(error.code, message, option);
+}
+
+/** An argument as a shell word: quoted when it holds anything but plain characters. */
+function shellWord(arg: string): string {
+  return /^[\w@%+=:,./-]+$/.test(arg) ? arg : `'${arg.replace(/'/g, "'\\''")}'`;
+}
+
+/**
+ * The refusal with the ready command line of its split-band suggestion
+ * (src/fit/split-suggestion.ts), when the fit made one: the same arguments
+ * with --bands replaced by the centroid reading.
+ */
+function withSplitCommand(error: FieldgapError, argv: string[], input: FitInput): FieldgapError {
+  const split = splitBandSuggestion(normalizeBands(input.bands, 'bands'), (next) => {
+    fitLigandField({ ...input, bands: next });
+    return true;
+  });
+  if (!split) return error;
+  const list = split.bands.map((b) => Math.round(b.position)).join(',');
+  const args: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const arg = argv[i]!;
+    if (arg === '--bands') {
+      args.push('--bands', list);
+      i++;
+    } else if (arg.startsWith('--bands=')) {
+      args.push('--bands', list);
+    } else {
+      args.push(arg);
+    }
+  }
+  return new FieldgapError(error.code, `${error.message}. Ready to run: fieldgap fit ${args.map(shellWord).join(' ')}`, error.path);
 }
 
 /** Reads and checks the options; every failure names its option. */
@@ -236,7 +270,7 @@ export function fitReport(r: FitResult): string {
   }
   // The absolute check (src/fit/goodness-of-fit.ts): older stored results lack it.
   const g = r.goodnessOfFit as FitResult['goodnessOfFit'] | undefined;
-  if (g) lines.push(`Goodness of fit: ${g.verdict === 'poor' ? 'POOR' : 'good'}: χ² = ${fmt(g.chiSquare, 1)} for ${g.degreesOfFreedom} degree${g.degreesOfFreedom === 1 ? '' : 's'} of freedom (p = ${g.pValue < 1e-6 ? '< 1e-6' : g.pValue.toPrecision(2)})${g.betaPhysical === false ? '; β outside 0.3–1.1, not physical' : ''}`);
+  if (g) lines.push(`Goodness of fit: ${g.verdict === 'poor' ? 'POOR' : 'good'}: χ² = ${fmt(g.chiSquare, 1)} for ${g.degreesOfFreedom} degree${g.degreesOfFreedom === 1 ? '' : 's'} of freedom (p = ${g.pValue < 1e-6 ? '< 1e-6' : g.pValue.toPrecision(2)})${g.reason ? `; ${g.reason}` : g.betaPhysical === false ? '; β outside 0.3–1.1, not physical' : ''}`);
   for (const u of r.undetermined) lines.push(`Not determined by these bands: ${u.parameter === 'tenDq' ? '10Dq' : u.parameter.toUpperCase()} (${u.reason}); ${u.action}`);
   if (r.window) lines.push(`Measured range: ${fmt(r.window.min)}–${fmt(r.window.max)} cm-1 (${fmt(1e7 / r.window.max)}–${fmt(1e7 / r.window.min)} nm)`);
   lines.push('', 'Assignment (cm-1):');
@@ -281,6 +315,7 @@ export const fitCommand: Command = {
     try {
       result = fitLigandField(input);
     } catch (error) {
+      if (isFieldgapError(error) && error.code === 'unexplained') throw toOptionError(withSplitCommand(error, argv, input));
       throw isFieldgapError(error) ? toOptionError(error) : error;
     }
     io.stdout(json ? `${JSON.stringify(fitJson(result), null, 2)}\n` : fitReport(result));
