@@ -11,6 +11,7 @@ import type { GridCandidate } from './candidates.js';
 import { primaryClass } from './enumerate.js';
 import { crossoverAt } from './engine.js';
 import { branchSpinState, chiSquareOf, type Evaluated } from './evaluate.js';
+import { float64Of } from './float64-of.js';
 import { refineProfileOnScan, scanEnergyAt } from './interpolate.js';
 import type { SortedObservations } from './observations.js';
 import { penaltyTotal } from './penalties.js';
@@ -38,13 +39,13 @@ function searchInterval(candidate: GridCandidate, settings: FitSettings): [numbe
 export function evaluateOnScan(candidate: GridCandidate, settings: FitSettings, sorted: SortedObservations): Evaluated {
   const { scan, branch, variant, levels } = candidate;
   const observations = variant.observations;
-  const o = Float64Array.from(observations, (obs) => obs.position);
+  const o = float64Of(observations, (obs) => obs.position);
   const w = Float64Array.from(observations, (obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
   const [lo, hi] = searchInterval(candidate, settings);
   const refined = lo < hi ? refineProfileOnScan(scan, branch.ground, levels, o, w, lo, hi) : { ...candidate.grid };
   const { x, b } = Number.isFinite(refined.ssr) && refined.ssr <= candidate.grid.ssr ? refined : candidate.grid;
   const energy = (k: number) => b * scanEnergyAt(scan, k, branch.ground, x);
-  const calculated = Float64Array.from(levels, energy);
+  const calculated = float64Of(levels, (k) => energy(k));
   const two = twoElectronLevels(scan, branch.ground);
   const transitions = primaryClass(branch).levels.map((k) => ({
     level: k, term: scan.ids[k]!.term, label: scan.ids[k]!.label, energy: energy(k), twoElectron: two[k] === 1,

@@ -17,6 +17,7 @@ import type { FitSettings } from './settings.js';
 import type { SortedObservations } from './observations.js';
 import type { Penalty, SkippedTransition } from './types.js';
 import type { PriorBFix } from './prior-b.js';
+import { float64Of } from './float64-of.js';
 
 export interface Evaluated {
   candidate: GridCandidate | DqOnlyCandidate;
@@ -102,7 +103,7 @@ export function evaluateGridCandidate(
     d: settings.d, geometry: settings.geometry, mode: settings.mode, cOverB: scan.cOverB, cFixed: settings.cFixed,
     groundKey: scan.ids[branch.ground]!.key,
     levelKeys: Array.from(candidate.levels, (k) => scan.ids[k]!.key),
-    observed: Float64Array.from(observations, (o) => o.position),
+    observed: float64Of(observations, (o) => o.position),
     sigma: Float64Array.from(observations, (o) => (sorted.weighted ? o.sigma : 1)),
     bRange: bRangeOf(settings),
     ...(settings.treesUsed ? { alpha: settings.alpha, alphaFree: settings.alphaFree } : {}),

@@ -19,6 +19,7 @@ import type { FieldParameters, Geometry, LevelsResult } from '../ligand-field/ty
 import { leastSquares, type LeastSquaresResult } from './least-squares.js';
 import { levelIdentityKey } from './scan.js';
 import type { CMode } from './types.js';
+import { float64Of } from './float64-of.js';
 
 export interface RefineProblem {
   d: number;
@@ -115,20 +116,20 @@ export function refineSolution(problem: RefineProblem, start: FieldParameters, m
     for (let i = 0; i < m; i++) calc[i] = r[i]! * problem.sigma[i]! + problem.observed[i]!;
     const hDq = 1e-6 * Math.max(dq, 0.1 * b, 1);
     energiesOnlyAt({ ...params, dq: dq + hDq }, shifted);
-    const dDq = Float64Array.from(shifted, (v, i) => (v - calc[i]!) / hDq);
+    const dDq = float64Of(shifted, (v, i) => (v - calc[i]!) / hDq);
     let dC: Float64Array | undefined;
     let dAlpha: Float64Array | undefined;
     let calls = 1;
     if (problem.mode !== 'ratio') {
       const hC = 1e-6 * Math.max(c, b, 1);
       energiesOnlyAt({ ...params, c: c + hC }, shifted);
-      dC = Float64Array.from(shifted, (v, i) => (v - calc[i]!) / hC);
+      dC = float64Of(shifted, (v, i) => (v - calc[i]!) / hC);
       calls++;
     }
     if (problem.alphaFree) {
       const hAlpha = 1e-6 * Math.max(Math.abs(alpha), 0.1 * b, 1);
       energiesOnlyAt({ ...params, alpha: alpha + hAlpha }, shifted);
-      dAlpha = Float64Array.from(shifted, (v, i) => (v - calc[i]!) / hAlpha);
+      dAlpha = float64Of(shifted, (v, i) => (v - calc[i]!) / hAlpha);
       calls++;
     }
     for (let i = 0; i < m; i++) {
