@@ -197,7 +197,7 @@ export function candidateGroups(
       const table = enumerateAssignments(scan, branch, variant.nPrimary, m - variant.nPrimary);
       const o = float64Of(variant.observations, (obs) => obs.position);
       // χ² weights: the band's σ and the model error (likelihood.ts).
-      const w = Float64Array.from(variant.observations, (obs) => effectiveWeight(obs.position, obs.sigma));
+      const w = float64Of(variant.observations, (obs) => effectiveWeight(obs.position, obs.sigma));
       const variantPenalty = penaltyTotal(variant.penalties);
       const group: CandidateGroup = {
         scan, branch, variant, table, wrms: new Float64Array(table.count).fill(Infinity),

@@ -40,7 +40,7 @@ export function evaluateOnScan(candidate: GridCandidate, settings: FitSettings, 
   const { scan, branch, variant, levels } = candidate;
   const observations = variant.observations;
   const o = float64Of(observations, (obs) => obs.position);
-  const w = Float64Array.from(observations, (obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
+  const w = float64Of(observations, (obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
   const [lo, hi] = searchInterval(candidate, settings);
   const refined = lo < hi ? refineProfileOnScan(scan, branch.ground, levels, o, w, lo, hi) : { ...candidate.grid };
   const { x, b } = Number.isFinite(refined.ssr) && refined.ssr <= candidate.grid.ssr ? refined : candidate.grid;

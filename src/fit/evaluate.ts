@@ -104,7 +104,7 @@ export function evaluateGridCandidate(
     groundKey: scan.ids[branch.ground]!.key,
     levelKeys: Array.from(candidate.levels, (k) => scan.ids[k]!.key),
     observed: float64Of(observations, (o) => o.position),
-    sigma: Float64Array.from(observations, (o) => (sorted.weighted ? o.sigma : 1)),
+    sigma: float64Of(observations, (o) => (sorted.weighted ? o.sigma : 1)),
     bRange: bRangeOf(settings),
     ...(settings.treesUsed ? { alpha: settings.alpha, alphaFree: settings.alphaFree } : {}),
   };

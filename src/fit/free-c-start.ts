@@ -40,7 +40,7 @@ function fitAtRatio(candidate: GridCandidate, scan: LevelScan, x0: number, sorte
   const mapped = Array.from(levels, (k) => scan.index.get(own.ids[k]!.key));
   if (ground === undefined || mapped.some((k) => k === undefined)) return undefined;
   const o = float64Of(variant.observations, (obs) => obs.position);
-  const w = Float64Array.from(variant.observations, (obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
+  const w = float64Of(variant.observations, (obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
   const lo = Math.max(scan.x[0]!, 0.85 * x0);
   const hi = Math.min(scan.x[scan.x.length - 1]!, 1.15 * x0);
   const fit = refineProfileOnScan(scan, ground, mapped as number[], o, w, lo, hi);
