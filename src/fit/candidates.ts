@@ -27,6 +27,7 @@ import { scoreTerms } from './score-terms.js';
 import { twoElectronLevels } from './two-electron.js';
 import type { FitSettings } from './settings.js';
 import type { Penalty } from './types.js';
+import { float64Of } from './float64-of.js';
 
 /** Grid stride of the first pass for reduced band lists (profile.ts gridOptimum). */
 export const REDUCED_GRID_STRIDE = 3;
@@ -194,9 +195,9 @@ export function candidateGroups(
         continue;
       }
       const table = enumerateAssignments(scan, branch, variant.nPrimary, m - variant.nPrimary);
-      const o = Float64Array.from(variant.observations, (obs) => obs.position);
+      const o = float64Of(variant.observations, (obs) => obs.position);
       // χ² weights: the band's σ and the model error (likelihood.ts).
-      const w = Float64Array.from(variant.observations, (obs) => effectiveWeight(obs.position, obs.sigma));
+      const w = float64Of(variant.observations, (obs) => effectiveWeight(obs.position, obs.sigma));
       const variantPenalty = penaltyTotal(variant.penalties);
       const group: CandidateGroup = {
         scan, branch, variant, table, wrms: new Float64Array(table.count).fill(Infinity),
@@ -238,7 +239,7 @@ export function approximateScore(candidate: GridCandidate, settings: FitSettings
   const transitions = classTransitionsAt(scan, branch, solution.point, solution.b);
   const n = scan.ids.length;
   const zero = scan.energies[solution.point * n + branch.ground]!;
-  const calculated = Float64Array.from(levels, (k) => solution.b * (scan.energies[solution.point * n + k]! - zero));
+  const calculated = float64Of(levels, (k) => solution.b * (scan.energies[solution.point * n + k]! - zero));
   const c = settings.mode === 'fixed' ? settings.cFixed : scan.cOverB * solution.b;
   const terms = scoreTerms({
     candidate, settings, sorted, transitions, calculated, levels: levels.subarray(0, variant.observations.length),

@@ -4,6 +4,7 @@
  */
 import { computeLevels, crossoverDqOverB } from '../ligand-field/index.js';
 import type { FieldParameters, Geometry, LevelsResult } from '../ligand-field/types.js';
+import { assignedLevelEnergies, type AssignedIdentities } from './assigned-level-energies.js';
 
 let levelCalls = 0;
 
@@ -11,6 +12,14 @@ let levelCalls = 0;
 export function levelsAt(d: number, geometry: Geometry, params: FieldParameters): LevelsResult {
   levelCalls++;
   return computeLevels(d, geometry, params);
+}
+
+/** assignedLevelEnergies (the refinement's energies without the labelled list), counted as one engine call. */
+export function assignedEnergiesAt(
+  d: number, geometry: Geometry, params: FieldParameters, groundKey: string, keys: readonly string[], identities: AssignedIdentities, out: Float64Array,
+): void {
+  levelCalls++;
+  assignedLevelEnergies(d, geometry, params, groundKey, keys, identities, out);
 }
 
 /** Engine level computations since the process started. */

@@ -42,7 +42,19 @@ export function isLowSpinBranch(scan: LevelScan, branch: Branch): boolean {
   return branch.ground !== scan.ground[0];
 }
 
-export function scanBranches(scan: LevelScan): Branch[] {
+/**
+ * The scan's branches, built once per scan (a scan is cached and never
+ * changes, scan.ts): the same objects every call, so callers only read them.
+ */
+export function scanBranches(scan: LevelScan): readonly Branch[] {
+  let branches = branchesOfScan.get(scan);
+  if (branches === undefined) branchesOfScan.set(scan, (branches = scanBranchesUncached(scan)));
+  return branches;
+}
+
+const branchesOfScan = new WeakMap<LevelScan, readonly Branch[]>();
+
+function scanBranchesUncached(scan: LevelScan): Branch[] {
   const branches: Branch[] = [];
   scan.ground.forEach((g, j) => {
     let branch = branches.find((b) => b.ground === g);

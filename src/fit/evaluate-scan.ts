@@ -11,6 +11,7 @@ import type { GridCandidate } from './candidates.js';
 import { primaryClass } from './enumerate.js';
 import { crossoverAt } from './engine.js';
 import { branchSpinState, chiSquareOf, type Evaluated } from './evaluate.js';
+import { float64Of } from './float64-of.js';
 import { refineProfileOnScan, scanEnergyAt } from './interpolate.js';
 import type { SortedObservations } from './observations.js';
 import { anyWidened, assumedCOverBSd, assumedCPenalty, scanTransitionCDerivatives, sigmaFromCOf } from './c-sensitivity.js';
@@ -41,13 +42,13 @@ function searchInterval(candidate: GridCandidate, settings: FitSettings): [numbe
 export function evaluateOnScan(candidate: GridCandidate, settings: FitSettings, sorted: SortedObservations): Evaluated {
   const { scan, branch, variant, levels } = candidate;
   const observations = variant.observations;
-  const o = Float64Array.from(observations, (obs) => obs.position);
+  const o = float64Of(observations, (obs) => obs.position);
   // σ_C at the grid optimum weighs the refinement; at the refined point, the χ² (c-sensitivity.ts).
   const cSd = assumedCOverBSd(settings);
   const sigmaCAt = (x: number, b: number) => sigmaFromCOf(scanTransitionCDerivatives(scan, branch.ground, levels, x), b, cSd);
   const gridSigmaC = cSd > 0 ? sigmaCAt(candidate.grid.x, candidate.grid.b) : new Float64Array(observations.length);
   const weighted = sorted.weighted || anyWidened(gridSigmaC);
-  const w = Float64Array.from(observations, (obs, i) => leastSquaresSigma(obs.sigma, gridSigmaC[i]!, weighted) ** -2);
+  const w = float64Of(observations, (obs, i) => leastSquaresSigma(obs.sigma, gridSigmaC[i]!, weighted) ** -2);
   const [lo, hi] = searchInterval(candidate, settings);
   const refined = lo < hi ? refineProfileOnScan(scan, branch.ground, levels, o, w, lo, hi) : { ...candidate.grid };
   // The grid's ssr has the χ² weights of candidates.ts; the refined one these: compare like with like.
@@ -55,7 +56,7 @@ export function evaluateOnScan(candidate: GridCandidate, settings: FitSettings, 
   const { x, b } = Number.isFinite(refined.ssr) && refined.ssr <= atGrid.ssr ? refined : candidate.grid;
   const sigmaFromC = cSd > 0 ? sigmaCAt(x, b) : gridSigmaC;
   const energy = (k: number) => b * scanEnergyAt(scan, k, branch.ground, x);
-  const calculated = Float64Array.from(levels, energy);
+  const calculated = float64Of(levels, (k) => energy(k));
   const two = twoElectronLevels(scan, branch.ground);
   const transitions = primaryClass(branch).levels.map((k) => ({
     level: k, term: scan.ids[k]!.term, label: scan.ids[k]!.label, energy: energy(k), twoElectron: two[k] === 1,

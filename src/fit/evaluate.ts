@@ -18,6 +18,7 @@ import type { FitSettings } from './settings.js';
 import type { SortedObservations } from './observations.js';
 import type { Penalty, SkippedTransition } from './types.js';
 import type { PriorBFix } from './prior-b.js';
+import { float64Of } from './float64-of.js';
 
 export interface Evaluated {
   candidate: GridCandidate | DqOnlyCandidate;
@@ -132,8 +133,8 @@ export function evaluateGridCandidate(
   const problem: RefineProblem = {
     d: settings.d, geometry: settings.geometry, mode: settings.mode, cOverB: scan.cOverB, cFixed: settings.cFixed,
     groundKey, levelKeys,
-    observed: Float64Array.from(observations, (o) => o.position),
-    sigma: Float64Array.from(observations, (o, i) => leastSquaresSigma(o.sigma, startSigmaC[i]!, weighted)),
+    observed: float64Of(observations, (o) => o.position),
+    sigma: float64Of(observations, (o, i) => leastSquaresSigma(o.sigma, startSigmaC[i]!, weighted)),
     bRange: bRangeOf(settings),
     ...(settings.treesUsed ? { alpha: settings.alpha, alphaFree: settings.alphaFree } : {}),
   };

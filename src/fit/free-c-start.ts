@@ -18,6 +18,7 @@ import type { GridCandidate } from './candidates.js';
 import { refineProfileOnScan } from './interpolate.js';
 import type { SortedObservations } from './observations.js';
 import { cachedLevelScan, type LevelScan } from './scan.js';
+import { float64Of } from './float64-of.js';
 
 interface RatioFit {
   ratio: number;
@@ -38,8 +39,8 @@ function fitAtRatio(candidate: GridCandidate, scan: LevelScan, x0: number, sorte
   const ground = scan.index.get(own.ids[branch.ground]!.key);
   const mapped = Array.from(levels, (k) => scan.index.get(own.ids[k]!.key));
   if (ground === undefined || mapped.some((k) => k === undefined)) return undefined;
-  const o = Float64Array.from(variant.observations, (obs) => obs.position);
-  const w = Float64Array.from(variant.observations, (obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
+  const o = float64Of(variant.observations, (obs) => obs.position);
+  const w = float64Of(variant.observations, (obs) => (sorted.weighted ? 1 / obs.sigma ** 2 : 1));
   const lo = Math.max(scan.x[0]!, 0.85 * x0);
   const hi = Math.min(scan.x[scan.x.length - 1]!, 1.15 * x0);
   const fit = refineProfileOnScan(scan, ground, mapped as number[], o, w, lo, hi);

@@ -13,11 +13,13 @@
  * more forward difference); H stays linear in (Dq, B, C, α), so Euler's
  * relation still gives ∂/∂B, less α·∂E/∂α.
  */
-import { levelsAt as computeLevels } from './engine.js';
+import { assignedIdentitiesOf } from './assigned-level-energies.js';
+import { assignedEnergiesAt, levelsAt as computeLevels } from './engine.js';
 import type { FieldParameters, Geometry, LevelsResult } from '../ligand-field/types.js';
 import { leastSquares, type LeastSquaresResult } from './least-squares.js';
 import { levelIdentityKey } from './scan.js';
 import type { CMode } from './types.js';
+import { float64Of } from './float64-of.js';
 
 export interface RefineProblem {
   d: number;
@@ -97,8 +99,12 @@ export function refineSolution(problem: RefineProblem, start: FieldParameters, m
     assignedEnergies(levels, problem.groundKey, problem.levelKeys, out);
     return levels;
   };
+  // Inside the iterations only the assigned energies are read: the fast path, same numbers (assigned-level-energies.ts).
+  const identities = assignedIdentitiesOf(problem.groundKey, problem.levelKeys, problem.geometry);
+  const energiesOnlyAt = (params: FieldParameters, out: Float64Array): void =>
+    assignedEnergiesAt(problem.d, problem.geometry, params, problem.groundKey, problem.levelKeys, identities, out);
   const residuals = (theta: Float64Array, out: Float64Array) => {
-    energiesAt(parametersOf(problem, theta), calc);
+    energiesOnlyAt(parametersOf(problem, theta), calc);
     for (let i = 0; i < m; i++) out[i] = (calc[i]! - problem.observed[i]!) / problem.sigma[i]!;
   };
   const p = parameterCount(problem);
@@ -109,21 +115,21 @@ export function refineSolution(problem: RefineProblem, start: FieldParameters, m
     // calc from the residuals (exact: r was computed at theta).
     for (let i = 0; i < m; i++) calc[i] = r[i]! * problem.sigma[i]! + problem.observed[i]!;
     const hDq = 1e-6 * Math.max(dq, 0.1 * b, 1);
-    energiesAt({ ...params, dq: dq + hDq }, shifted);
-    const dDq = Float64Array.from(shifted, (v, i) => (v - calc[i]!) / hDq);
+    energiesOnlyAt({ ...params, dq: dq + hDq }, shifted);
+    const dDq = float64Of(shifted, (v, i) => (v - calc[i]!) / hDq);
     let dC: Float64Array | undefined;
     let dAlpha: Float64Array | undefined;
     let calls = 1;
     if (problem.mode !== 'ratio') {
       const hC = 1e-6 * Math.max(c, b, 1);
-      energiesAt({ ...params, c: c + hC }, shifted);
-      dC = Float64Array.from(shifted, (v, i) => (v - calc[i]!) / hC);
+      energiesOnlyAt({ ...params, c: c + hC }, shifted);
+      dC = float64Of(shifted, (v, i) => (v - calc[i]!) / hC);
       calls++;
     }
     if (problem.alphaFree) {
       const hAlpha = 1e-6 * Math.max(Math.abs(alpha), 0.1 * b, 1);
-      energiesAt({ ...params, alpha: alpha + hAlpha }, shifted);
-      dAlpha = Float64Array.from(shifted, (v, i) => (v - calc[i]!) / hAlpha);
+      energiesOnlyAt({ ...params, alpha: alpha + hAlpha }, shifted);
+      dAlpha = float64Of(shifted, (v, i) => (v - calc[i]!) / hAlpha);
       calls++;
     }
     for (let i = 0; i < m; i++) {
