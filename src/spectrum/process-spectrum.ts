@@ -29,7 +29,11 @@
  * an end moves that end inward (keptRange), and a red end masked as
  * negative or at a step is closed, no band centred in or on it
  * (kept-window.ts); a centre outside the range carries an
- * extrapolation error of a tenth of its FWHM in its uncertainty.
+ * extrapolation error of a tenth of its FWHM in its uncertainty, and a
+ * centre outside it or within half its FWHM of an end is profiled: its σ
+ * is at least half the distance to where the refit with the centre held is
+ * clearly worse, and at least the shift to the centre at the width of the
+ * bands inside the window (xy-profile-band-centre.ts).
  *
  * The fit is weighted by σ (1/σ_i) and the model is chosen by
  * the Bayesian information criterion with that noise, χ² + p ln n; a model
