@@ -268,8 +268,16 @@ export function buildFitResult({ settings, sorted, best, others, warnings, optio
     warnings.push(`B is not determined by one band: ${fixed}; 10Dq rests on it (its ± carries B's)`);
   }
   if (variant.jahnTeller) {
-    const weighted = intensityWeights(variant.jahnTeller).some((w) => w !== 1);
-    notes.push(`${variant.jahnTeller.map((o) => Math.round(o.position)).join(' and ')} cm-1 are taken as Jahn–Teller components of one transition at their ${weighted ? 'intensity-weighted centroid' : 'mean (no intensities given to weight them)'}, ${Math.round(best.candidate.variant.observations[0]!.position)} cm-1`);
+    const weights = intensityWeights(variant.jahnTeller);
+    const weighted = weights.some((w) => w !== 1);
+    const centroid = best.candidate.variant.observations[0]!.position;
+    // A warning, shown with the result (AUDIT3 finding 5): the value rests on a convention the ± does not carry.
+    // Published analyses quote either the centroid or the stronger component's maximum (common practice).
+    const stronger = variant.jahnTeller[weights.indexOf(Math.max(...weights))]!.position;
+    const convention = weighted
+      ? `; the other convention, the stronger component's maximum, gives ${Math.round(stronger)} cm-1 (${Math.round(Math.abs(stronger - centroid))} cm-1 away, a difference of convention the ± does not include)`
+      : '';
+    warnings.push(`${variant.jahnTeller.map((o) => Math.round(o.position)).join(' and ')} cm-1 are read as one Jahn–Teller-split transition at their ${weighted ? 'intensity-weighted centroid' : 'mean (no intensities given to weight them)'}, ${Math.round(centroid)} cm-1${convention}`);
   }
   if (bFit !== null) notes.push(`uncertainties from ${basis}`);
   if (settings.mode === 'ratio' && bFit !== null) notes.push(settings.cOverBSource);

@@ -90,7 +90,7 @@ export function refine(
 const weightCache = new WeakMap<Float64Array, Float64Array>();
 
 /** 1/σ_i, floored at a tenth of the median σ so that no point dominates. */
-function weightsFromNoise(noise: Float64Array): Float64Array {
+export function weightsFromNoise(noise: Float64Array): Float64Array {
   let w = weightCache.get(noise);
   if (w === undefined) {
     const floor = 0.1 * xMedian(noise);

@@ -29,7 +29,11 @@
  * an end moves that end inward (keptRange), and a red end masked as
  * negative or at a step is closed, no band centred in or on it
  * (kept-window.ts); a centre outside the range carries an
- * extrapolation error of a tenth of its FWHM in its uncertainty.
+ * extrapolation error of a tenth of its FWHM in its uncertainty, and a
+ * centre outside it or within half its FWHM of an end is profiled: its σ
+ * is at least half the distance to where the refit with the centre held is
+ * clearly worse, and at least the shift to the centre at the width of the
+ * bands inside the window (xy-profile-band-centre.ts).
  *
  * The fit is weighted by σ (1/σ_i) and the model is chosen by
  * the Bayesian information criterion with that noise, χ² + p ln n; a model
@@ -78,9 +82,11 @@ import { xyHighEndBandCandidate, xyLowEndBandCandidate, xyNearLowEndBandCandidat
 import { xyLowerHull } from './xy-lower-hull.js';
 import { maskAroundStep, xyMaskedRegions, xyMaskPoints } from './xy-mask.js';
 import { xPolynomialValues } from './xy-polynomial.js';
+import { xyBeyondWindowCentre } from './xy-profile-band-centre.js';
+import { weightsFromNoise } from './band-model-trial.js';
 import { xChooseGridStep, xUniformGrid, xyResampleUniformWithCounts } from './xy-resample.js';
 import { median as medianOf } from '../numeric/median.js';
-import type { GaussianParameters } from './xy-refine-bands.js';
+import type { GaussianParameters, RefineBandsResult } from './xy-refine-bands.js';
 
 export interface ProcessSpectrumOptions {
   /** mol/L; with it, heights become ε (Beer–Lambert). @default unknown */
@@ -226,7 +232,13 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
     warnings.push('no band stands out of the noise');
     return empty();
   }
-  const fit = fitBandModel(fx, fy, { candidates, edge, baselineGuess, baselineOrder, noise: sigma, whiteNoise: localNoise, beyondLowEnd: used.redEndOpen ? BEYOND_LOW_END : 0, closedLowEnd: !used.redEndOpen, uncertainFraction: smooth ? 0.2 : 0.5, minAddedFraction: smooth ? 0.1 : 0, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
+  const fitted = fitBandModel(fx, fy, { candidates, edge, baselineGuess, baselineOrder, noise: sigma, whiteNoise: localNoise, beyondLowEnd: used.redEndOpen ? BEYOND_LOW_END : 0, closedLowEnd: !used.redEndOpen, uncertainFraction: smooth ? 0.2 : 0.5, minAddedFraction: smooth ? 0.1 : 0, broadFwhm, narrowFwhm, maxBands, edgeMode: uvEdge });
+  // A centre outside the window is extrapolated from one flank: its σ from the profile and from the width assumed
+  // (model error and all), not from the curvature at the best fit (xy-profile-band-centre.ts).
+  const fit = fitted;
+  const { positionSd, beyond } = beyondWindowBands(fx, fy, fit, {
+    weights: weightsFromNoise(sigma), baselineGuess, window: used.window, redEndOpen: used.redEndOpen, narrowFwhm,
+  });
   const polynomial = (xs: Float64Array) => xPolynomialValues(xs, fit.baselineCoefficients, fit.scale);
   const baseline = polynomial(grid);
   if (fit.edge !== null) for (let i = 0; i < grid.length; i++) baseline[i] = (baseline[i] as number) + gaussianValue(grid[i] as number, fit.edge.position, fit.edge.height, fit.edge.fwhm);
@@ -240,7 +252,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
     - fit.bands.reduce((sum, b) => sum + gaussianValue(fx[i] as number, b.position, b.height, b.fwhm), 0));
   const significant = bandsAboveResidual(fit.bands, fx, residualAt, narrowFwhm);
   // One band per envelope: a multiplet (spin–orbit, Jahn–Teller) or an asymmetric band fitted by two Gaussians is one band.
-  const grouped = gaussiansGroupMultiplets(significant.map((k) => fit.bands[k] as GaussianParameters), Float64Array.from(significant, (k) => fit.positionSd[k] as number), {
+  const grouped = gaussiansGroupMultiplets(significant.map((k) => fit.bands[k] as GaussianParameters), Float64Array.from(significant, (k) => positionSd[k] as number), {
     // Only broad candidates say how many broad bands the data show (a narrow one, a line or smoothed noise, says nothing).
     minFwhm: thresholds.narrowFwhm, dataBands: candidates.filter((c) => c.fwhm >= 2 * narrowFwhm).map((c) => c.position),
   });
@@ -263,7 +275,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
     const end = `${red ? 'red (low-energy)' : 'blue (high-energy)'} end${mask === null ? '' : ' of the data kept'}, ${Math.round(used.window[red ? 0 : 1])} cm-1${mask === null ? '' : ` (beyond it masked: ${mask})`}`;
     warnings.push(b.maximumInWindow
       ? `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum near the ${end}: its far side is not measured, so its centre is less certain (± ${b.positionUncertainty.toFixed(0)} cm-1)`
-      : `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum outside the measured range, beyond the ${end}: its centre is estimated from its flank (± ${b.positionUncertainty.toFixed(0)} cm-1)`);
+      : `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum outside the measured range, beyond the ${end}: its centre is estimated from its flank (± ${b.positionUncertainty.toFixed(0)} cm-1, from how far the centre can move before the fit is clearly worse)${widthNote(b.position, beyond)}`);
   }
   if (fit.edge !== null) warnings.push(`a UV absorption edge was modelled (a Gaussian tail centred at ${fit.edge.position.toFixed(0)} cm-1, above the measured range)`);
   return {
@@ -301,6 +313,51 @@ function bandMaxima(grid: Float64Array, signal: Float64Array, baseline: Float64A
     return xyBandMaximum(grid, own, mean, band.fwhm) ?? { position: mean, sd: 0 };
   });
 }
+
+/** For a band outside the window: where it would lie at the width of the bands inside the window. */
+function widthNote(position: number, beyond: ReadonlyArray<{ position: number; siblingWidthPosition: number | null }>): string {
+  const b = beyond.find((o) => o.siblingWidthPosition !== null && Math.abs(o.position - position) < 1);
+  return b === undefined ? '' : `; at the width of the bands inside the window it would lie at ${b.siblingWidthPosition!.toFixed(0)} cm-1, and the ± includes that`;
+}
+
+/**
+ * The bands of `fit` centred outside the window or within half their FWHM
+ * of an end, each given its σ by
+ * xyBeyondWindowCentre (profiled at the fit's own baseline order, which the
+ * model selection may have raised; the width of the broad bands inside the
+ * window, twice narrowFwhm or more, as its siblings' width). Returns every
+ * band's position σ, and for each band outside the window its centre at
+ * the siblings' width.
+ */
+function beyondWindowBands(
+  x: Float64Array, y: Float64Array, fit: RefineBandsResult,
+  o: { weights: Float64Array; baselineGuess: Float64Array; window: [number, number]; redEndOpen: boolean; narrowFwhm: number },
+): { positionSd: Float64Array; beyond: Array<{ position: number; siblingWidthPosition: number | null }> } {
+  const [low, high] = o.window;
+  const inside = fit.bands.filter((b) => b.position >= low + 0.5 * b.fwhm && b.position <= high - 0.5 * b.fwhm && b.fwhm >= 2 * o.narrowFwhm);
+  const siblingFwhm = inside.length === 0 ? null : inside.reduce((s, b) => s + b.fwhm, 0) / inside.length;
+  const positionSd = Float64Array.from(fit.positionSd);
+  const beyond: Array<{ position: number; siblingWidthPosition: number | null }> = [];
+  fit.bands.forEach((b, k) => {
+    // Near an end (within half its FWHM, bandWindow's 'near-…') the far side is not measured either.
+    const towards = b.position < low + 0.5 * b.fwhm ? 1 : b.position > high - 0.5 * b.fwhm ? -1 : 0;
+    if (towards === 0) return;
+    const r = xyBeyondWindowCentre(x, y, fit, k, {
+      weights: o.weights, baselineGuess: o.baselineGuess, baselineOrder: fit.baselineCoefficients.length - 1,
+      beyondLowEnd: o.redEndOpen ? BEYOND_LOW_END_PROFILE : 0, towards, siblingFwhm,
+    });
+    const sd = fit.positionSd[k] as number;
+    positionSd[k] = Math.max(Number.isFinite(sd) ? sd : 0, r.sd);
+    beyond.push({ position: b.position, siblingWidthPosition: r.siblingWidthPosition });
+  });
+  return { positionSd, beyond };
+}
+
+/**
+ * How far beyond the red end a held or refitted centre may go in a profile, fraction of its FWHM: far enough that
+ * the profile, not the bound, ends the interval.
+ */
+const BEYOND_LOW_END_PROFILE = 10;
 
 /** A band centre may lie up to this fraction of its FWHM below the low-energy end of the range. */
 const BEYOND_LOW_END = 0.6;

@@ -60,6 +60,14 @@ export interface RefineBandsOptions {
    * another may stop coarser.
    */
   chiSquareTolerance?: number;
+  /**
+   * Band centres held fixed (cm-1; NaN or absent: free), by band index: a
+   * profile of one centre (xy-profile-band-centre.ts) refits everything
+   * else with that centre fixed. @default none
+   */
+  fixedPositions?: ArrayLike<number>;
+  /** Band FWHMs held fixed (cm-1; NaN or absent: free), by band index. @default none */
+  fixedFwhms?: ArrayLike<number>;
 }
 
 export interface RefineBandsResult {
@@ -100,6 +108,18 @@ export function xyRefineBands(x: Float64Array, y: Float64Array, options: RefineB
     initial.set([c.position, c.height, c.fwhm], 3 * j);
     lower.set([Math.max(Math.min(xMin, c.position) - beyondLowEnd * c.fwhm, c.position - freedom), 0, fwhmLimits[0]], 3 * j);
     upper.set([Math.min(xMax, c.position + freedom), 3 * yMax, fwhmLimits[1]], 3 * j);
+    const fixed = options.fixedPositions?.[j];
+    if (fixed !== undefined && Number.isFinite(fixed)) {
+      initial[3 * j] = fixed;
+      lower[3 * j] = fixed;
+      upper[3 * j] = fixed;
+    }
+    const width = options.fixedFwhms?.[j];
+    if (width !== undefined && Number.isFinite(width)) {
+      initial[3 * j + 2] = width;
+      lower[3 * j + 2] = width;
+      upper[3 * j + 2] = width;
+    }
   });
   const e0 = 3 * options.bands.length;
   if (options.edge !== null) {

@@ -86,10 +86,18 @@ describe('AUDIT3 finding 3: visible-only [Ni(NH3)6]2+, 3T2g beyond the red end',
     expect(beyond.length).toBeGreaterThan(0);
   });
 
-  it.fails('10Dq is honest: 10 750 lies within two reported standard uncertainties, and β is an ammine β (> 0.6)', () => {
+  // The band beyond the red end now carries the model error of its extrapolation (src/spectrum/xy-profile-band-centre.ts):
+  // 12 184 ± 1 018 (was ± 306), and the fit weighs it by that ±.
+  it('10Dq is honest: 10 750 lies within two reported standard uncertainties', () => {
     const fit = r().fit;
     expect(Math.abs(fit.tenDq - 10750)).toBeLessThanOrEqual(2 * fit.uncertainty.tenDq!);
-    expect(fit.beta!).toBeGreaterThan(0.6);
+  });
+
+  // Still fails: β 0.535. Two bands fix 10Dq and B exactly, so the band's ± moves neither, and the β prior is flat
+  // between 0.35 and 1. Given the true maxima (`fit --ion Ni2+ --bands 10750,17500 --window 380-780nm`) src/fit picks
+  // 3T1g(F), 3T1g(P) (10Dq 6 711, β 0.52) at 50 % against the right reading: the choice is src/fit's to make.
+  it.fails('β is an ammine β (> 0.6)', () => {
+    expect(r().fit.beta!).toBeGreaterThan(0.6);
   });
 });
 

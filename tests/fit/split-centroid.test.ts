@@ -48,7 +48,7 @@ describe('intensity-weighted centroid of split components', () => {
     expect(r.assignments).toHaveLength(1);
     expect(r.assignments[0]!.bands).toEqual([0, 1]);
     expect(r.tenDq).toBeCloseTo(centroidReference([17_400, 20_300], [1400, 2800]), 0);
-    expect(r.notes.join(' ')).toMatch(/intensity-weighted centroid/);
+    expect(r.warnings.join(' ')).toMatch(/read as one Jahn–Teller-split transition at their intensity-weighted centroid, \d+ cm-1; the other convention, the stronger component's maximum, gives 20300 cm-1/);
   });
 
   it('uses ε·width from the text form, and the plain mean without intensities', () => {
@@ -57,7 +57,7 @@ describe('intensity-weighted centroid of split components', () => {
     expect(weighted.tenDq).toBeCloseTo(centroidReference([10_300, 13_500], [6 * 2100, 12 * 3200]), 0);
     const plain = fitBands({ ion: 'Cu2+', bands: '10300, 13500' });
     expect(plain.tenDq).toBe(11_900);
-    expect(plain.notes.join(' ')).toMatch(/mean \(no intensities/);
+    expect(plain.warnings.join(' ')).toMatch(/mean \(no intensities/);
   });
 
   it('takes a close pair read as one split band at its 1/σ²-weighted mean (equal weights without σ)', () => {
