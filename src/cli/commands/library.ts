@@ -111,12 +111,21 @@ const SUBCOMMANDS: Record<string, Handler> = {
     fillFromFormula(values.formula, options, details, io);
     const content = readInputFile(file, io.cwd);
     options.fileName = basename(file);
-    const { analyzeSpectrum } = await import('../../analysis.js');
-    const result = analyzeSpectrum(content, options);
-    const saved = await withLibrary(values, io, (library) => library.add({ ...details, fileName: basename(file), content, options, result }));
-    if (values.json) io.stdout(`${JSON.stringify(saved, null, 2)}\n`);
-    else io.stdout(savedText(saved));
-    return 0;
+    const [{ analyzeSpectrum, listSpectra }, { storeFileSpectra, notSavedLines, fileRecordsFields }] = await Promise.all([import('../../analysis.js'), import('../../library/store-file.js')]);
+    // Every spectrum of the file is its own record (as analyze reads them, and watch stores them).
+    const stored = await withLibrary(values, io, (library) => storeFileSpectra({
+      content, fileName: basename(file), options, details, library, analyze: analyzeSpectrum, list: listSpectra,
+      names: { corrections: '--corrections', column: '--column' },
+    }));
+    const first = stored.records[0]!;
+    if (values.json) io.stdout(`${JSON.stringify({ ...first, ...fileRecordsFields(stored) }, null, 2)}\n`);
+    else for (const record of stored.records) io.stdout(savedText(record));
+    for (const line of notSavedLines(basename(file), stored.notSaved)) io.stderr(`fieldgap library: ${terminalSafe(line)}\n`);
+    if (stored.spectra > 1 && !values.json) {
+      const { recordCountText } = await import('../../library/spectra-to-store.js');
+      io.stdout(`${terminalSafe(basename(file))}: ${recordCountText(stored.records.length, stored.spectra)}${stored.notSaved.length > 0 ? `, ${stored.notSaved.length} not saved` : ''}\n`);
+    }
+    return stored.notSaved.length > 0 ? 1 : 0;
   },
 
   list: async (argv, io) => {
