@@ -119,12 +119,13 @@ export function createAnalysesRouter({ library, analyze, list = listSpectra, max
       ...(detailLigands !== undefined && { ligands: detailLigands }),
       ...(analysis.ion !== undefined && { ion: analysis.ion }),
     }) as AnalysisDetails;
-    // Messages name the upload as the user sent it ("request body" for a raw body), never the stored name made up for it.
-    const options = toAnalyzeOptions(analysis, upload.label);
+    const options = toAnalyzeOptions(analysis, upload.fileName);
     if (corrections != null) options.corrections = checkCorrections(corrections);
     // Every spectrum of the file is its own record (the rule of library add and watch); the answer is the first, with `records` listing all.
     const stored = await storeFileSpectra({
-      content: upload.content, fileName, label: upload.label, options, details, library: libraryFor(library, res),
+      content: upload.content, fileName, options,
+      // Messages name the upload as the user sent it ("request body" for a raw body), never the stored name made up for it.
+      label: analysis.fileName ?? upload.label, details, library: libraryFor(library, res),
       analyze: (content, o) => analyze(Buffer.from(content.buffer, content.byteOffset, content.byteLength), o), list,
       names: { corrections: 'corrections', column: 'column' },
     });

@@ -42,9 +42,13 @@ export interface StoreFileInput {
   content: Uint8Array;
   /** The stored original's name. */
   fileName: string;
-  /** How messages name the upload ("cr.csv", "request body"); default fileName. */
+  /**
+   * How messages name the upload ("cr.csv", "request body"): the analysis
+   * runs with it as its fileName, so an error names what the user sent,
+   * while the record keeps `options` as given. Default: options.fileName.
+   */
   label?: string;
-  /** The analysis options for the file; a record of one of several spectra adds its column. */
+  /** The analysis options stored with each record; a record of one of several spectra adds its column. */
   options: AnalyzeOptions;
   /** The details of every record; `sample` gets ": <column name>" for one of several spectra. */
   details: AnalysisDetails;
@@ -57,11 +61,12 @@ export interface StoreFileInput {
 }
 
 export async function storeFileSpectra(input: StoreFileInput): Promise<StoredFile> {
-  const { content, fileName, options, details, library, analyze, list, names } = input;
-  const label = input.label ?? fileName;
-  const spectra = await spectraToStore(content, options.fileName ?? label, options, list);
+  const { content, fileName, options, details, library, list, names } = input;
+  const label = input.label ?? options.fileName ?? fileName;
+  const analyze = (o: AnalyzeOptions) => input.analyze(content, { ...o, fileName: label });
+  const spectra = await spectraToStore(content, label, options, list);
   if (spectra.length === 1) {
-    const result = await analyze(content, options);
+    const result = await analyze(options);
     return { records: [await library.add({ ...details, fileName, content, options, result })], recordSpectra: [spectra[0]!], notSaved: [], spectra: 1 };
   }
   if (options.corrections !== undefined) {
@@ -75,7 +80,7 @@ export async function storeFileSpectra(input: StoreFileInput): Promise<StoredFil
   for (const spectrum of spectra) {
     const spectrumOptions = optionsOfSpectrum(options, spectrum);
     try {
-      ready.push({ spectrum, options: spectrumOptions, result: await analyze(content, spectrumOptions) });
+      ready.push({ spectrum, options: spectrumOptions, result: await analyze(spectrumOptions) });
     } catch (error) {
       if (!isFieldgapError(error) || !SPECTRUM_FAILURES.includes(error.code)) throw error;
       notSaved.push({ ...notSavedOf(spectrum, error), thrown: error });

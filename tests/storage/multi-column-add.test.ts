@@ -3,6 +3,7 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
+import { savedFileResponse } from '../../server/responses.js';
 import { analyzeSpectrum } from '../../src/analysis.js';
 import { runCliCaptured } from '../helpers/cli-run.js';
 import { forEachEngine, libraryPerTest } from './helpers/engines.js';
@@ -129,6 +130,7 @@ forEachEngine('a multi-column file in the library', (engine) => {
       expect(body.records.map((r) => [r.column, r.sample])).toEqual(NAMES.map((n, i) => [i + 1, `cr-series: ${n}`]));
       expect(body.id).toBe(body.records[0]!.id);
       expect(body.options.column).toBe(1);
+      expect(savedFileResponse.safeParse(res.body).error).toBeUndefined(); // the documented answer (OpenAPI SavedFile)
       expect(res.headers['location']).toBe(`/api/v1/analyses/${body.id}`);
       const records = await expectThreeColumnRecords();
       // A refit reads its own column again.
@@ -148,6 +150,7 @@ forEachEngine('a multi-column file in the library', (engine) => {
         .attach('spectrum', WITH_BLANK, { filename: 'with-blank.csv', contentType: 'text/csv' })
         .expect(201);
       const body = res.body as { records: Array<{ column: number }>; notSaved: Array<{ column: number; columnName: string; error: { code: string; message: string; path: string } }> };
+      expect(savedFileResponse.safeParse(res.body).error).toBeUndefined();
       expect(body.records.map((r) => r.column)).toEqual([1, 2]);
       expect(body.notSaved).toHaveLength(1);
       expect(body.notSaved[0]).toMatchObject({ column: 3, columnName: 'blank', error: { code: 'unexplained', path: 'with-blank.csv#3' } });
