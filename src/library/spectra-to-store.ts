@@ -64,6 +64,11 @@ export function labelOfSpectrum(fileName: string, spectrum: SpectrumToStore): st
   return spectrum.column === undefined ? fileName : `${fileName}#${spectrum.column}${spectrum.name ? ` (${spectrum.name})` : ''}`;
 }
 
+/** Whether an error's path names no more than the file or one of its spectra ("mix.csv", "mix.csv#3"): then a line that names the spectrum need not repeat it. */
+export function pathNamesOnlySpectrum(path: string, fileName: string): boolean {
+  return path === fileName || (path.startsWith(`${fileName}#`) && /^\d+$/.test(path.slice(fileName.length + 1)));
+}
+
 /** "1 record", "3 records (one per spectrum)": how many records one file gave. */
 export function recordCountText(count: number, spectra: number): string {
   return `${count} ${count === 1 ? 'record' : 'records'}${spectra > 1 ? ` (one per spectrum; the file holds ${spectra})` : ''}`;

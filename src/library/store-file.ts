@@ -1,7 +1,7 @@
 import type { AnalyzeOptions, AnalyzeResult } from '../analysis.js';
 import { FieldgapError, invalidArgument, isFieldgapError, type ErrorCode } from '../errors.js';
 import type { Library } from './library-api.js';
-import { SPECTRUM_FAILURES, labelOfSpectrum, optionsOfSpectrum, sampleOfSpectrum, spectraToStore, type SpectrumLister, type SpectrumToStore } from './spectra-to-store.js';
+import { SPECTRUM_FAILURES, labelOfSpectrum, pathNamesOnlySpectrum, optionsOfSpectrum, sampleOfSpectrum, spectraToStore, type SpectrumLister, type SpectrumToStore } from './spectra-to-store.js';
 import type { AnalysisDetails, AnalysisRecord } from './types.js';
 
 /**
@@ -129,7 +129,7 @@ function notSavedOf(spectrum: SpectrumToStore, error: FieldgapError): NotSavedSp
 /** "mix.csv#3 (en): not saved: …", one line per spectrum left out (for the CLI's stderr). */
 export function notSavedLines(fileName: string, notSaved: readonly NotSavedSpectrum[]): string[] {
   return notSaved.map((n) => {
-    const where = n.error.path && n.error.path !== fileName ? `${n.error.path}: ` : '';
+    const where = n.error.path && !pathNamesOnlySpectrum(n.error.path, fileName) ? `${n.error.path}: ` : '';
     const spectrum: SpectrumToStore = n.column === null ? {} : { column: n.column, ...(n.columnName !== null && { name: n.columnName }) };
     return `${labelOfSpectrum(fileName, spectrum)}: not saved: ${where}${n.error.message}`;
   });

@@ -90,6 +90,28 @@ forEachEngine('a multi-column file in the library', (engine) => {
       await expectThreeColumnRecords();
     });
 
+    it('several files: each spectrum of each file is a record, and the summary counts records', { timeout: 300_000 }, async () => {
+      const { code, out, err } = await cli('add', 'spectra-demo/cr-aqua.csv', 'spectra-demo/cr-series.csv', '--ion', 'Cr3+', '--conc', '0.05');
+      expect(err).toBe('');
+      expect(code).toBe(0);
+      expect(out.match(/^saved #\d+ "[^"]*"/gm)).toEqual(['saved #1 "cr-aqua"', ...NAMES.map((n, i) => `saved #${i + 2} "cr-series: ${n}"`)]);
+      expect(out).toMatch(/\n2 of 2 files saved \(4 records: one per spectrum of a file\)\.\n$/);
+      const records = await storedRecords();
+      const series = records.filter((r) => r.original.fileName === 'cr-series.csv').sort((a, b) => Number(a.options.column) - Number(b.options.column));
+      expect(series.map((r) => [r.options.column, r.summary.tenDq])).toEqual(columnTenDq.map((t, i) => [i + 1, t]));
+      expect(records.find((r) => r.original.fileName === 'cr-aqua.csv')!.options.column).toBeUndefined();
+    });
+
+    it('several files: a blank column is named on stderr, the rest saved, exit 1', { timeout: 300_000 }, async () => {
+      const file = join(fresh.where.dir, 'with-blank.csv');
+      writeFileSync(file, WITH_BLANK);
+      const { code, out, err } = await cli('add', 'spectra-demo/cr-aqua.csv', file, '--ion', 'Cr3+', '--conc', '0.05');
+      expect(code).toBe(1);
+      expect(err).toMatch(/^fieldgap library: .*with-blank\.csv#3 \(blank\): not saved: no d–d bands to fit/m);
+      expect(out).toMatch(/\n2 of 2 files saved \(3 records: one per spectrum of a file\), 1 not saved\.\n$/);
+      expect((await storedRecords()).length).toBe(3);
+    });
+
     it('--column N stores that column alone, as before', { timeout: 120_000 }, async () => {
       const { code, out } = await cli('add', 'spectra-demo/cr-series.csv', '--ion', 'Cr3+', '--conc', '0.05', '--column', '2');
       expect(code).toBe(0);
@@ -106,7 +128,7 @@ forEachEngine('a multi-column file in the library', (engine) => {
       expect(code).toBe(1);
       expect(out.match(/^saved #\d+ /gm)).toHaveLength(2);
       expect(out).toContain('with-blank.csv: 2 records (one per spectrum; the file holds 3), 1 not saved\n');
-      expect(err).toMatch(/^fieldgap library: with-blank\.csv#3 \(blank\): not saved: .*no d–d bands to fit/m);
+      expect(err).toMatch(/^fieldgap library: with-blank\.csv#3 \(blank\): not saved: no d–d bands to fit/m);
       const records = await storedRecords();
       expect(records.map((r) => r.options.column).sort()).toEqual([1, 2]);
       expect(readFileSync(file).equals(WITH_BLANK)).toBe(true); // the user's file untouched
