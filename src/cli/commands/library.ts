@@ -25,7 +25,9 @@ import { terminalSafe } from '../terminal-text.js';
  * - `library add` without --sample names the sample after the file;
  *   with --formula it takes the ion, the ligands and a geometry guess from
  *   the formula when --ion/--d, --ligands or --geometry are not given;
- * - exports never overwrite a file unless --force is given.
+ * - exports never overwrite a file unless --force is given;
+ * - a file with several spectra (y columns) is one record per spectrum, as
+ *   analyze reads it and watch stores it (src/library/spectra-to-store.ts).
  */
 
 const DETAIL_OPTIONS = {
@@ -48,7 +50,10 @@ byte, with its SHA-256), options, results and the fieldgap version.
   library add FILE... [analysis options] [details] [--json]
                              analyse each FILE and save it (many files: one
                              record each, named after its file; a file that
-                             fails is reported and the others are saved)
+                             fails is reported and the others are saved); a
+                             file with several y columns is one record per
+                             column ("sample: column name"), unless --column
+                             chooses one
   library list [--query Q] [--ion I] [--limit N] [--offset N] [--json]
                              newest first; Q words must all match sample,
                              formula, ion, ligands, solvent or note
