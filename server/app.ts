@@ -23,7 +23,7 @@ import { buildOpenApiDocument } from './openapi.js';
 import { defaultStaticDir, packageVersion } from './paths.js';
 import { createInProcessPool, createWorkerPool, type ComputePool } from './pool.js';
 import { createAnalysesRouter } from './routes/analyses.js';
-import { analyzeInPool, createAnalyzeRouter } from './routes/analyze.js';
+import { analyzeInPool, createAnalyzeRouter, spectraInPool } from './routes/analyze.js';
 import { createComputeRouter } from './routes/compute.js';
 import { createSeriesRouter } from './routes/series.js';
 import { lazyLibrary } from '../src/library/lazy.js';
@@ -156,7 +156,7 @@ export function createApp(options: AppOptions = {}): FieldgapApp {
   const analyze = analyzeInPool(pool, requestTimeoutMs);
   api.use(createAnalyzeRouter({ analyze, maxBodyBytes }));
   // The results library: /api/v1/analyses (its records) and /api/v1/series, /api/v1/predict.
-  api.use('/analyses', createAnalysesRouter({ library, analyze, maxBodyBytes }));
+  api.use('/analyses', createAnalysesRouter({ library, analyze, list: spectraInPool(pool, requestTimeoutMs), maxBodyBytes }));
   api.use(createSeriesRouter({ library }));
   app.use('/api/v1', api);
 

@@ -11,6 +11,7 @@ import { tetragonalFitResponse } from './responses-tetragonal.js';
 import { analyzeFields, diagramQuery, fitBody, levelsQuery, SPECTRUM_CONTENT_TYPES } from './schemas.js';
 import {
   analysisRecordResponse,
+  savedFileResponse,
   analyzeResponse,
   diagramResponse,
   errorResponse,
@@ -175,7 +176,7 @@ export function buildOpenApiDocument(version: string, limits: DocumentedLimits):
           summary: 'Analyse a spectrum and save it in the results library',
           parameters: queryParameters(analysisRecordFields),
           requestBody: { required: true, content: { 'multipart/form-data': { schema: recordForm }, ...rawBody } },
-          responses: { '201': record('The saved record.'), ...errorResponses(['400', '413', '415', '422', '500', '503', '504']) },
+          responses: { '201': ok('The saved record; a file with several spectra is one record per spectrum, listed in `records` (the answer is the first).', 'SavedFile'), ...errorResponses(['400', '413', '415', '422', '500', '503', '504']) },
         },
         get: {
           operationId: 'listAnalyses',
@@ -249,6 +250,7 @@ export function buildOpenApiDocument(version: string, limits: DocumentedLimits):
         TetragonalFitResult: jsonSchema(tetragonalFitResponse, 'output'),
         AnalyzeResult: jsonSchema(analyzeResponse, 'output'),
         AnalysisRecord: jsonSchema(analysisRecordResponse, 'output'),
+        SavedFile: jsonSchema(savedFileResponse, 'output'),
         AnalysisList: jsonSchema(listPageResponse, 'output'),
       },
     },

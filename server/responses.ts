@@ -12,6 +12,7 @@ import type { AnalysisCorrections } from '../src/analysis-corrections.js';
 import type { BandInput } from '../src/fit/bands.js';
 import type { FitResult } from '../src/fit/types.js';
 import type { AnalysisRecord, AnalysisSummary, FitSummary, ListPage, RevisionInfo } from '../src/library/types.js';
+import type { FileRecordEntry, NotSavedSpectrum } from '../src/library/store-file.js';
 import { X_UNITS, Y_UNITS } from '../src/spectrum/types.js';
 import { ASSIGNED_KINDS } from '../src/report/band-assigned-kind.js';
 
@@ -317,6 +318,21 @@ export const analysisRecordResponse = z.looseObject({
   result: analyzeResponse,
   revisions: z.array(z.looseObject(revisionShape)).meta({ description: 'Every revision, oldest first; the last is the current one.' }),
 } satisfies Record<keyof AnalysisRecord, z.ZodType>);
+
+/** POST /api/v1/analyses: the first saved record, with every record the uploaded file gave (one per spectrum it holds). */
+export const savedFileResponse = analysisRecordResponse.extend({
+  records: z.array(z.strictObject({
+    id: z.int().positive(),
+    sample: z.string(),
+    column: z.int().positive().nullable().meta({ description: 'The spectrum\'s data column in the file (1 = the first y column); null for a file with one spectrum or a column the client chose.' }),
+    columnName: z.string().nullable().meta({ description: 'That column\'s header; null as for column.' }),
+  } satisfies Record<keyof FileRecordEntry, z.ZodType>)).meta({ description: 'Every record the file gave, in the file\'s column order: one for a file with one spectrum (or with `column` given), one per y column of a file with several; the answer\'s own fields are the first\'s.' }),
+  notSaved: z.array(z.strictObject({
+    column: z.int().positive().nullable(),
+    columnName: z.string().nullable(),
+    error: z.strictObject({ code: z.enum(ERROR_CODES), message: z.string(), path: z.string() }),
+  } satisfies Record<keyof NotSavedSpectrum, z.ZodType>)).meta({ description: 'The spectra of the file that could not be analysed (each with its error); the others are saved. Empty when all were.' }),
+});
 
 /** GET /api/v1/analyses. */
 export const listPageResponse = z.looseObject({

@@ -5,7 +5,7 @@
  * class, so the outcome carries it as `{ code, message, path }` and
  * `rebuildError` makes it a FieldgapError again on the main side.
  */
-import { analyzeSpectrum, type AnalyzeOptions } from '../src/analysis.js';
+import { analyzeSpectrum, listSpectra, type AnalyzeOptions } from '../src/analysis.js';
 import { FieldgapError, isFieldgapError, type ErrorCode } from '../src/errors.js';
 import { fitLigandField, type FitInput } from '../src/fit/index.js';
 import { fitTetragonal, type TetragonalFitInput } from '../src/fit-tetragonal/index.js';
@@ -54,7 +54,9 @@ export type Task =
   | { kind: 'diagram'; input: DiagramTaskInput }
   | { kind: 'fit'; input: FitInput }
   | { kind: 'fit-tetragonal'; input: TetragonalFitInput }
-  | { kind: 'analyze'; input: AnalyzeTaskInput };
+  | { kind: 'analyze'; input: AnalyzeTaskInput }
+  /** The spectra a file holds (column and name each): which records one upload becomes in the library. */
+  | { kind: 'spectra'; input: { content: Uint8Array | string; options: Pick<AnalyzeOptions, 'fileName' | 'xUnit' | 'yUnit'> } };
 
 export type TaskKind = Task['kind'];
 
@@ -120,6 +122,8 @@ function runTask(task: Task): unknown {
       return fitTetragonal(task.input);
     case 'analyze':
       return analyzeSpectrum(task.input.content, task.input.options);
+    case 'spectra':
+      return listSpectra(task.input.content, task.input.options);
     default: {
       const kind = (task as { kind?: unknown }).kind;
       throw new FieldgapError('internal', `unknown task kind ${JSON.stringify(kind)}`);

@@ -4,7 +4,7 @@
  * problem is; a network failure or a non-JSON answer gets code 'network'.
  */
 import { ANALYSIS_OPTION_NAMES as NAME } from '../src/analysis-option-names.js';
-import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult, LibraryPage, LibraryRecord, SeriesReport, TetragonalFitResult } from './types.js';
+import type { AnalyzeResult, ApiErrorBody, Diagram, FitResult, LibraryPage, LibraryRecord, SavedFile, SeriesReport, TetragonalFitResult } from './types.js';
 import { priorFields, type FitRequest, type SampleDetails, type TetragonalFitRequest } from './state.js';
 import type { FieldLevel, ResolvedParameters } from '../src/ligand-field/field-levels.js';
 import type { FieldDiagramAnswer } from './plots/level-diagram-spec.js';
@@ -230,13 +230,15 @@ export function listAnalyses(query: LibraryQuery = {}): Promise<LibraryPage> {
 
 /**
  * POST /analyses: the service analyses the original again with the same
- * fields and stores file, options, result and details together.
+ * fields and stores file, options, result and details together: one record
+ * per spectrum of a file with several (unless `column` names one), all
+ * listed in the answer's `records`.
  */
-export function saveAnalysis(file: File, fields: URLSearchParams, details: LibraryDetails): Promise<LibraryRecord> {
+export function saveAnalysis(file: File, fields: URLSearchParams, details: LibraryDetails): Promise<SavedFile> {
   const form = new FormData();
   form.append('spectrum', file, file.name);
   for (const [key, value] of Object.entries(details)) if (value.trim() !== '') form.append(key, value.trim());
-  return send<LibraryRecord>(`${BASE}/analyses?${fields.toString()}`, { method: 'POST', body: form }, `saving ${file.name}`);
+  return send<SavedFile>(`${BASE}/analyses?${fields.toString()}`, { method: 'POST', body: form }, `saving ${file.name}`);
 }
 
 export function getAnalysis(id: number): Promise<LibraryRecord> {

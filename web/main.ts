@@ -277,6 +277,7 @@ const libraryContext: LibraryContext = {
   },
   notify,
   changed: render,
+  entries: () => state.entries,
 };
 
 function start(): void {

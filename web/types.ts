@@ -12,6 +12,7 @@ import type { BandFlag } from '../src/fit/bands.js';
 import type { ErrorCode } from '../src/errors.js';
 import type { AssignedBand, FitResult as CoreFit, Alternative as CoreAlternative } from '../src/fit/types.js';
 import type { FitSummary } from '../src/library/types.js';
+import type { FileRecordEntry, NotSavedSpectrum } from '../src/library/store-file.js';
 import type { TetragonalFitResult } from '../src/fit-tetragonal/types.js';
 import type { RankedEntry, Ranking } from '../src/series/types.js';
 
@@ -161,6 +162,12 @@ export interface LibraryPage {
 export interface LibraryRecord extends LibraryRow {
   options: Record<string, unknown>;
   result: AnalyzeResult;
+}
+
+/** POST /api/v1/analyses: the first saved record, with every record the file gave (one per spectrum) and the spectra not saved. */
+export interface SavedFile extends LibraryRecord {
+  records: FileRecordEntry[];
+  notSaved: NotSavedSpectrum[];
 }
 
 /** A ranking and its entries (weakest first): the core's types (src/series/types.ts), type-only. */

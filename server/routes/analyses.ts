@@ -16,12 +16,15 @@
 import { Router, type Request } from 'express';
 import { extname } from 'node:path';
 import { z } from 'zod';
+import { listSpectra } from '../../src/analysis.js';
 import { checkCorrections } from '../../src/analysis-corrections.js';
 import { detailsFromFormula } from '../../src/library/formula-details.js';
 import { invalidArgument } from '../../src/errors.js';
 import { analyzeFields } from '../schemas.js';
 import type { Library } from '../../src/library/library.js';
 import { refitAnalysis } from '../../src/library/refit.js';
+import { fileRecordsFields, storeFileSpectra } from '../../src/library/store-file.js';
+import type { SpectrumLister } from '../../src/library/spectra-to-store.js';
 import type { AnalysisDetails, AnalysisPatch, StoredOptions } from '../../src/library/types.js';
 import { checkDetails, MAX_NOTE, MAX_SHORT_TEXT } from '../../src/library/validate.js';
 import { libraryFor } from '../security/scope.js';
@@ -33,6 +36,8 @@ export interface AnalysesRouterDeps {
   library: Library;
   /** The pipeline, off the event loop (createApp passes its pool's). */
   analyze: AnalyzeFunction;
+  /** The spectra a file holds (one record each), off the event loop (createApp passes its pool's); default: parsed here. */
+  list?: SpectrumLister;
   /** Upload size limit, bytes; default 10 MiB. */
   maxBodyBytes?: number;
 }
@@ -94,7 +99,7 @@ const ORIGINAL_TYPES: Record<string, string> = {
   '.jcamp': 'chemical/x-jcamp-dx',
 };
 
-export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 1024 * 1024 }: AnalysesRouterDeps): Router {
+export function createAnalysesRouter({ library, analyze, list = listSpectra, maxBodyBytes = 10 * 1024 * 1024 }: AnalysesRouterDeps): Router {
   const router = Router();
 
   router.post('/', spectrumUpload(maxBodyBytes), async (req, res) => {
@@ -116,9 +121,16 @@ export function createAnalysesRouter({ library, analyze, maxBodyBytes = 10 * 102
     }) as AnalysisDetails;
     const options = toAnalyzeOptions(analysis, upload.fileName);
     if (corrections != null) options.corrections = checkCorrections(corrections);
-    const result = await analyze(upload.content, options);
-    const saved = await libraryFor(library, res).add({ ...details, fileName, content: upload.content, options, result });
-    res.status(201).location(`${req.baseUrl}/${saved.id}`).json(saved);
+    // Every spectrum of the file is its own record (the rule of library add and watch); the answer is the first, with `records` listing all.
+    const stored = await storeFileSpectra({
+      content: upload.content, fileName, options,
+      // Messages name the upload as the user sent it ("request body" for a raw body), never the stored name made up for it.
+      label: analysis.fileName ?? upload.label, details, library: libraryFor(library, res),
+      analyze: (content, o) => analyze(Buffer.from(content.buffer, content.byteOffset, content.byteLength), o), list,
+      names: { corrections: 'corrections', column: 'column' },
+    });
+    const first = stored.records[0]!;
+    res.status(201).location(`${req.baseUrl}/${first.id}`).json({ ...first, ...fileRecordsFields(stored) });
   });
 
   router.get('/', async (req, res) => {

@@ -6,6 +6,7 @@
 import { Router } from 'express';
 import type { AnalyzeOptions, AnalyzeResult } from '../../src/analysis.js';
 import { analyzeOptionsFromRest } from '../../src/analysis-option-schema.js';
+import type { SpectrumLister } from '../../src/library/spectra-to-store.js';
 import { clientGoneSignal } from '../abort.js';
 import type { ComputePool } from '../pool.js';
 import { analyzeFields, type AnalyzeFields } from '../schemas.js';
@@ -35,6 +36,12 @@ export function toAnalyzeOptions(fields: AnalyzeFields, fileName: string | undef
 export function analyzeInPool(pool: ComputePool, timeoutMs: number): AnalyzeFunction {
   return async (content, options, signal) =>
     (await pool.run({ kind: 'analyze', input: { content, options } }, signal ? { timeoutMs, signal } : { timeoutMs })) as AnalyzeResult;
+}
+
+/** The spectra a file holds (src/analysis.ts listSpectra), parsed in the pool: a 10 MiB upload is not parsed on the event loop. */
+export function spectraInPool(pool: ComputePool, timeoutMs: number): SpectrumLister {
+  return async (content, options) =>
+    (await pool.run({ kind: 'spectra', input: { content, options: options ?? {} } }, { timeoutMs })) as Array<{ column: number; name: string }>;
 }
 
 export function createAnalyzeRouter({ analyze, maxBodyBytes }: AnalyzeRouterDeps): Router {

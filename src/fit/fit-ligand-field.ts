@@ -37,6 +37,7 @@
  *    the assumed C/B fits poorly or only by leaving bands out, C/B is
  *    estimated with its prior and kept when it wins by more than ln m.
  */
+import { oxidationStateNote, oxidationStateWarning } from '../chemistry/oxidation-states.js';
 import { FieldgapError } from '../errors.js';
 import { normalizeBands } from './bands.js';
 import {
@@ -83,7 +84,8 @@ function scanRatios(settings: FitSettings): number[] {
 }
 
 function describeSystem(settings: FitSettings): string {
-  return `d${settings.d} ${settings.geometry}${settings.ion ? ` (${settings.ion.label})` : ''}`;
+  const oxidation = settings.ion ? oxidationStateNote(settings.ion) : null;
+  return `d${settings.d} ${settings.geometry}${settings.ion ? ` (${settings.ion.label}${oxidation !== null ? `: ${oxidation}` : ''})` : ''}`;
 }
 
 /** Free C: the candidate refined on its coarse scan and on the FREE_C_RATIOS next to it; the best of these. */
@@ -294,7 +296,9 @@ export function fitLigandField(input: FitInput, options: FitOptions = {}): FitRe
   let settings = resolveFitSettings(input);
   const bands = normalizeBands(input.bands, 'bands');
   const sorted = sortObservations(bands);
-  const warnings: string[] = [];
+  // An ion above its element's known oxidation states is fitted as asked, with a word (src/chemistry/oxidation-states.ts).
+  const oxidation = settings.ion ? oxidationStateWarning(settings.ion) : null;
+  const warnings: string[] = oxidation !== null ? [oxidation] : [];
   const notes: string[] = [...settings.notes];
   const byDefault = estimatesCByDefault(settings, sorted.primary.length + sorted.flagged.length);
   if (byDefault) {

@@ -1,3 +1,4 @@
+import { oxidationStateWarning } from '../chemistry/oxidation-states.js';
 import { FieldgapError } from '../errors.js';
 import { freeIonRacah } from '../chemistry/free-ion-racah.js';
 import { parseFormula, type LigandCount, type ParsedComplex } from '../chemistry/formula.js';
@@ -127,7 +128,8 @@ const used = (v: FactorValue): UsedFactor => ({ value: v.value, uncertainty: v.s
 export function predictComplex(formula: string, options: PredictOptions = {}): Prediction {
   const parsed = parseFormula(formula);
   const { metal } = parsed;
-  const warnings: string[] = [];
+  const oxidation = oxidationStateWarning(metal);
+  const warnings: string[] = oxidation !== null ? [oxidation] : [];
   const { geometry, geometryRule, geometryMethod } = chooseGeometry(parsed, options.geometry, warnings);
   const own = options.factors ?? {};
   const gFactor = options.g === undefined ? used(metalG(metal)) : { value: options.g, uncertainty: 0.05 * options.g, kind: 'user' as const, source: 'g given by the user' };

@@ -8,7 +8,7 @@ import { download, h } from '../dom.js';
 import { UNIT, formatNumber, formatWithUncertainty, spinStateText } from '../format.js';
 import type { AnalysisEntry } from '../state.js';
 import { correctionsFor, defaultDetails, editableBandsFromCorrections, editableBandsFromResult, nextKey, type FitRequestBand } from '../state.js';
-import type { Geometry, LibraryRecord, LibraryRow, XUnit } from '../types.js';
+import type { Geometry, LibraryRecord, LibraryRow, SavedFile, XUnit } from '../types.js';
 import { csvText } from '../../src/report/csv.js';
 
 export interface LibraryContext {
@@ -17,6 +17,8 @@ export interface LibraryContext {
   notify(message: string, kind?: 'error' | 'info'): void;
   /** Redraw after a change of an entry. */
   changed(): void;
+  /** The page's analyses (to mark the other columns of a file saved with it). */
+  entries(): readonly AnalysisEntry[];
 }
 
 function errorText(error: unknown): string {
@@ -37,6 +39,12 @@ export function saveControls(entry: AnalysisEntry, ctx: LibraryContext): HTMLEle
     const fields = api.analyzeQuery(details);
     const corrections = correctionsFor(entry);
     if (corrections !== null) fields.set('corrections', JSON.stringify(corrections));
+    // A file with several spectra is saved as one record per spectrum (the service's rule, as library add and watch);
+    // corrections belong to the spectrum on screen, so with them only that column is saved.
+    const shownColumn = entry.result?.spectrum.column;
+    if (corrections !== null && (entry.result?.spectrum.columns?.length ?? 0) > 1 && !fields.has('column') && shownColumn !== undefined) {
+      fields.set('column', String(shownColumn));
+    }
     api
       .saveAnalysis(file, fields, {
         sample: entry.details.sample || entry.fileName.replace(/\.[^.]*$/, ''),
@@ -49,7 +57,8 @@ export function saveControls(entry: AnalysisEntry, ctx: LibraryContext): HTMLEle
         // Show what was stored (the corrected fit, the chosen assignment applied), not what was on screen before.
         entry.fit = record.result.fit;
         entry.shownAlternative = null;
-        ctx.notify(`Saved ${entry.fileName} as record ${record.id}.`, 'info');
+        markSiblingsSaved(entry, record, ctx.entries());
+        ctx.notify(savedMessage(entry.fileName, record), record.notSaved.length > 0 ? 'error' : 'info');
         ctx.changed();
       })
       .catch((error: unknown) => {
@@ -63,6 +72,24 @@ export function saveControls(entry: AnalysisEntry, ctx: LibraryContext): HTMLEle
     out.push(h('span', { class: 'muted small', id: 'save-note' }, 'The library stores the file, this C/B and the corrections made here (bands, chosen assignment).'));
   }
   return out;
+}
+
+/** "Saved cr-series.csv as record 4.", or for a file with several spectra every record and each spectrum not saved. */
+export function savedMessage(fileName: string, saved: SavedFile): string {
+  if (saved.records.length <= 1 && saved.notSaved.length === 0) return `Saved ${fileName} as record ${saved.id}.`;
+  const records = saved.records.map((r) => `${r.id} (${r.columnName ?? `column ${r.column}`})`).join(', ');
+  const missing = saved.notSaved.map((n) => `column ${n.column}${n.columnName !== null ? ` (${n.columnName})` : ''}: ${n.error.message}`).join('; ');
+  return `Saved ${fileName} as ${saved.records.length} record${saved.records.length === 1 ? '' : 's'}, one per spectrum in the file: ${records}.${missing !== '' ? ` Not saved: ${missing}.` : ''}`;
+}
+
+/** The other analyses on the page of the same uploaded file and a column saved with it: marked saved, so they are not saved twice. */
+function markSiblingsSaved(entry: AnalysisEntry, saved: SavedFile, entries: readonly AnalysisEntry[]): void {
+  for (const other of entries) {
+    if (other === entry || other.file !== entry.file || other.libraryId !== null || correctionsFor(other) !== null) continue;
+    const column = other.result?.spectrum.column ?? (other.details.column.trim() === '' ? undefined : Number(other.details.column));
+    const record = saved.records.find((r) => r.column !== null && r.column === column);
+    if (record !== undefined) other.libraryId = record.id;
+  }
 }
 
 /** A page entry for a stored record: its details and stored result, ready to correct and refit. */

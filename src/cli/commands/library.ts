@@ -9,6 +9,7 @@ import { ANALYSIS_OPTIONS, ANALYSIS_USAGE, analysisOptionsFrom } from '../analys
 import { readInputFile } from '../files.js';
 import { choiceOption, numberOption, parseCommandArgs } from '../options.js';
 import type { AnalysisRecord, NewAnalysis } from '../../library/types.js';
+import type { SpectrumLister } from '../../library/spectra-to-store.js';
 import type { Library } from '../../library/library.js';
 import { checkCorrections, type AnalysisCorrections } from '../../analysis-corrections.js';
 import { terminalSafe } from '../terminal-text.js';
@@ -24,7 +25,9 @@ import { terminalSafe } from '../terminal-text.js';
  * - `library add` without --sample names the sample after the file;
  *   with --formula it takes the ion, the ligands and a geometry guess from
  *   the formula when --ion/--d, --ligands or --geometry are not given;
- * - exports never overwrite a file unless --force is given.
+ * - exports never overwrite a file unless --force is given;
+ * - a file with several spectra (y columns) is one record per spectrum, as
+ *   analyze reads it and watch stores it (src/library/spectra-to-store.ts).
  */
 
 const DETAIL_OPTIONS = {
@@ -47,7 +50,10 @@ byte, with its SHA-256), options, results and the fieldgap version.
   library add FILE... [analysis options] [details] [--json]
                              analyse each FILE and save it (many files: one
                              record each, named after its file; a file that
-                             fails is reported and the others are saved)
+                             fails is reported and the others are saved); a
+                             file with several y columns is one record per
+                             column ("sample: column name"), unless --column
+                             chooses one
   library list [--query Q] [--ion I] [--limit N] [--offset N] [--json]
                              newest first; Q words must all match sample,
                              formula, ion, ligands, solvent or note
@@ -111,12 +117,21 @@ const SUBCOMMANDS: Record<string, Handler> = {
     fillFromFormula(values.formula, options, details, io);
     const content = readInputFile(file, io.cwd);
     options.fileName = basename(file);
-    const { analyzeSpectrum } = await import('../../analysis.js');
-    const result = analyzeSpectrum(content, options);
-    const saved = await withLibrary(values, io, (library) => library.add({ ...details, fileName: basename(file), content, options, result }));
-    if (values.json) io.stdout(`${JSON.stringify(saved, null, 2)}\n`);
-    else io.stdout(savedText(saved));
-    return 0;
+    const [{ analyzeSpectrum, listSpectra }, { storeFileSpectra, notSavedLines, fileRecordsFields }] = await Promise.all([import('../../analysis.js'), import('../../library/store-file.js')]);
+    // Every spectrum of the file is its own record (as analyze reads them, and watch stores them).
+    const stored = await withLibrary(values, io, (library) => storeFileSpectra({
+      content, fileName: basename(file), options, details, library, analyze: analyzeSpectrum, list: listSpectra,
+      names: { corrections: '--corrections', column: '--column' },
+    }));
+    const first = stored.records[0]!;
+    if (values.json) io.stdout(`${JSON.stringify({ ...first, ...fileRecordsFields(stored) }, null, 2)}\n`);
+    else for (const record of stored.records) io.stdout(savedText(record));
+    for (const line of notSavedLines(basename(file), stored.notSaved)) io.stderr(`fieldgap library: ${terminalSafe(line)}\n`);
+    if (stored.spectra > 1 && !values.json) {
+      const { recordCountText } = await import('../../library/spectra-to-store.js');
+      io.stdout(`${terminalSafe(basename(file))}: ${recordCountText(stored.records.length, stored.spectra)}${stored.notSaved.length > 0 ? `, ${stored.notSaved.length} not saved` : ''}\n`);
+    }
+    return stored.notSaved.length > 0 ? 1 : 0;
   },
 
   list: async (argv, io) => {
@@ -258,36 +273,54 @@ async function addMany(files: string[], values: AddValues, io: CliIo): Promise<n
   if (values.corrections !== undefined) throw invalidArgument('--corrections', `--corrections belong to one spectrum; ${files.length} files were given`);
   const options = analysisOptionsFrom(values);
   fillFromFormula(values.formula, options, {}, io);
-  const [{ createBatchRunner }, { runInOrder }, { resultOf }] = await Promise.all([import('../batch-pool.js'), import('../batch-run.js'), import('../batch-analyze.js')]);
+  const [{ createBatchRunner }, { runInOrder }, { resultOf }, spectraRule] = await Promise.all([
+    import('../batch-pool.js'), import('../batch-run.js'), import('../batch-analyze.js'), import('../../library/spectra-to-store.js'),
+  ]);
+  const { spectraToStore, optionsOfSpectrum, sampleOfSpectrum, labelOfSpectrum, pathNamesOnlySpectrum } = spectraRule;
   let failed = 0;
   let saved = 0;
+  const filesSaved = new Set<string>();
+  let severalSpectra = false;
   await withLibrary(values, io, async (library) => {
     const runner = await createBatchRunner(files.length);
     try {
       if (values.json) io.stdout('[');
-      // Read on this thread (the library keeps the bytes), analysed on the pool; a read error is the file's outcome.
+      // Read on this thread (the library keeps the bytes), analysed on the pool, each spectrum of the file its own record (the rule of spectra-to-store.ts); a read error is the file's outcome.
       const analyse = async (file: string) => {
         try {
           const content = readInputFile(file, io.cwd);
           const fileOptions = { ...options, fileName: basename(file) };
-          return { content, fileOptions, outcome: await runner.analyze({ content, options: fileOptions }) };
+          // The file's analysis on the pool lists its spectra (result.spectrum.columns), so a file with one costs one analysis
+          // and no parse here; only when it failed is the file parsed here to learn its spectra.
+          const first = await runner.analyze({ content, options: fileOptions });
+          const lister: SpectrumLister = 'result' in first
+            ? () => first.result.spectrum.columns ?? []
+            : async (bytes, listOptions) => (await import('../../analysis.js')).listSpectra(bytes, listOptions);
+          const spectra = await spectraToStore(content, basename(file), fileOptions, lister);
+          if (spectra.length === 1) return { content, parts: [{ spectrum: spectra[0]!, options: fileOptions, outcome: first }] };
+          const parts = await Promise.all(spectra.map(async (spectrum) => {
+            const spectrumOptions = optionsOfSpectrum(fileOptions, spectrum);
+            return { spectrum, options: spectrumOptions, outcome: await runner.analyze({ content, options: spectrumOptions }) };
+          }));
+          return { content, parts };
         } catch (error) {
           return { error };
         }
       };
       // Saved a batch at a time: one transaction (one fsync) per batch, and each file's line printed only once its batch is committed.
-      const pending: { file: string; record?: NewAnalysis; error?: FieldgapError }[] = [];
+      const pending: { file: string; label: string; record?: NewAnalysis; error?: FieldgapError }[] = [];
       let since = Date.now();
-      const report = (file: string, outcome: AnalysisRecord | FieldgapError) => {
+      const report = (file: string, label: string, outcome: AnalysisRecord | FieldgapError) => {
         if (outcome instanceof FieldgapError) {
           failed++;
-          const where = outcome.path && outcome.path !== file && outcome.path !== basename(file) ? `${outcome.path}: ` : '';
-          io.stderr(`fieldgap library: ${file}: not saved: ${where}${outcome.message}\n`);
+          const where = outcome.path && outcome.path !== file && !pathNamesOnlySpectrum(outcome.path, basename(file)) ? `${outcome.path}: ` : '';
+          io.stderr(`fieldgap library: ${label}: not saved: ${where}${outcome.message}\n`);
           return;
         }
         if (values.json) io.stdout(`${saved > 0 ? ',' : ''}\n  ${JSON.stringify(outcome, null, 2).replaceAll('\n', '\n  ')}`);
         else io.stdout(savedText(outcome));
         saved++;
+        filesSaved.add(file);
       };
       const flush = async () => {
         const batch = pending.splice(0);
@@ -295,17 +328,26 @@ async function addMany(files: string[], values: AddValues, io: CliIo): Promise<n
         const records = batch.flatMap((p) => (p.record ? [p.record] : []));
         const outcomes = records.length > 0 ? await library.addMany(records) : [];
         let next = 0;
-        for (const p of batch) report(p.file, p.record ? outcomes[next++]! : p.error!);
+        for (const p of batch) report(p.file, p.label, p.record ? outcomes[next++]! : p.error!);
       };
       await runInOrder(files, analyse, async (done, file) => {
-        try {
-          if ('error' in done) throw done.error;
-          const details = detailsFrom(values, file);
-          fillFromFormula(values.formula, {}, details, { ...io, stderr: () => {} });
-          pending.push({ file, record: { ...details, fileName: basename(file), content: done.content, options: done.fileOptions, result: resultOf(done.outcome) } });
-        } catch (error) {
-          if (!(error instanceof FieldgapError)) throw error;
-          pending.push({ file, error });
+        if ('error' in done) {
+          if (!(done.error instanceof FieldgapError)) throw done.error;
+          pending.push({ file, label: file, error: done.error });
+        } else {
+          if (done.parts.length > 1) severalSpectra = true;
+          for (const part of done.parts) {
+            const label = part.spectrum.column === undefined ? file : labelOfSpectrum(file, part.spectrum);
+            try {
+              const details = detailsFrom(values, file);
+              fillFromFormula(values.formula, {}, details, { ...io, stderr: () => {} });
+              details.sample = sampleOfSpectrum(details.sample, part.spectrum);
+              pending.push({ file, label, record: { ...details, fileName: basename(file), content: done.content, options: part.options, result: resultOf(part.outcome) } });
+            } catch (error) {
+              if (!(error instanceof FieldgapError)) throw error;
+              pending.push({ file, label, error });
+            }
+          }
         }
         // A batch is written when it is full, or after a second, so a slow folder still shows progress.
         if (pending.length >= ADD_BATCH || Date.now() - since >= 1000) await flush();
@@ -316,7 +358,11 @@ async function addMany(files: string[], values: AddValues, io: CliIo): Promise<n
       await runner.close();
     }
   });
-  if (!values.json) io.stdout(`${saved} of ${files.length} files saved${failed ? `, ${failed} failed` : ''}.\n`);
+  if (!values.json) {
+    // A file with several spectra is several records: then the records are counted too.
+    const records = severalSpectra ? ` (${saved} ${saved === 1 ? 'record' : 'records'}: one per spectrum of a file)` : '';
+    io.stdout(`${filesSaved.size} of ${files.length} files saved${records}${failed ? `, ${failed} ${severalSpectra ? 'not saved' : 'failed'}` : ''}.\n`);
+  }
   return failed > 0 ? 1 : 0;
 }
 

@@ -1,8 +1,9 @@
 import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, extname, join, resolve } from 'node:path';
-import type { AnalyzeOptions, listSpectra } from '../../analysis.js';
+import type { AnalyzeOptions } from '../../analysis.js';
 import { FieldgapError, invalidArgument, isFieldgapError } from '../../errors.js';
+import { labelOfSpectrum, optionsOfSpectrum, sampleOfSpectrum, spectraToStore, type SpectrumToStore } from '../../library/spectra-to-store.js';
 import type { Library } from '../../library/library.js';
 import type { FitSummary } from '../../library/types.js';
 import type { CliIo, Command } from '../command.js';
@@ -49,12 +50,8 @@ ${ANALYSIS_USAGE}
 
 Energies are in cm-1.`;
 
-/** One spectrum of a file: `column` undefined for a file's only spectrum (or the one --column chose, kept in the options). */
-export interface WatchedSpectrum {
-  column?: number;
-  /** The column's name, for a file that holds several. */
-  name?: string;
-}
+/** One spectrum of a file (the shared rule's type, src/library/spectra-to-store.ts). */
+export type WatchedSpectrum = SpectrumToStore;
 
 /** Where analysed files go: this machine's library, or a service. */
 export interface Sink {
@@ -66,24 +63,6 @@ export interface Sink {
   stored(sha256: string): Promise<Array<number | string | null>>;
   save(file: string, content: Uint8Array, spectrum: WatchedSpectrum): Promise<{ id: number; summary: FitSummary }>;
   close(): Promise<void>;
-}
-
-/**
- * The spectra of a file to store, one record each, as `analyze` and `series`
- * read them: every y column of a multi-column file, unless --column chose one.
- * A file that cannot be parsed is one item: its analysis says why.
- */
-export function spectraToStore(
-  content: Uint8Array, fileName: string, options: Pick<AnalyzeOptions, 'column' | 'xUnit'>, list: typeof listSpectra,
-): WatchedSpectrum[] {
-  if (options.column !== undefined) return [{}];
-  try {
-    const spectra = list(content, { fileName, ...(options.xUnit !== undefined && { xUnit: options.xUnit }) });
-    return spectra.length <= 1 ? [{}] : spectra.map((s) => ({ column: s.column, name: s.name }));
-  } catch (error) {
-    if (!isFieldgapError(error)) throw error;
-    return [{}];
-  }
 }
 
 /** Whether `spectrum` is among the `stored` columns of its file (a record without a column is the file's first spectrum). */
@@ -178,7 +157,7 @@ export async function watchFolder(
   { interval, settle, once, signal, spectra = () => [{}] }: {
     interval: number; settle: number; once: boolean; signal: AbortSignal;
     /** The spectra of a file, each stored as its own record; default: the file is one. */
-    spectra?: (content: Uint8Array, fileName: string) => WatchedSpectrum[];
+    spectra?: (content: Uint8Array, fileName: string) => WatchedSpectrum[] | Promise<WatchedSpectrum[]>;
   },
 ): Promise<void> {
   const tracked = new Map<string, Tracked>();
@@ -224,10 +203,10 @@ export async function watchFolder(
       if (entry.handled === sha) continue;
       entry.handled = sha;
       // Every spectrum of the file is its own record (as analyze and series read them); none is left out unsaid.
-      const parts = spectra(content, name);
+      const parts = await spectra(content, name);
       let stored: Array<number | string | null> | undefined;
       for (const spectrum of parts) {
-        const label = spectrum.column === undefined ? name : `${name}#${spectrum.column}${spectrum.name ? ` (${spectrum.name})` : ''}`;
+        const label = labelOfSpectrum(name, spectrum);
         try {
           stored ??= await sink.stored(sha);
           if (alreadyStored(spectrum, stored, parts[0])) {
@@ -290,7 +269,7 @@ async function localSink(flags: LibraryFlags, io: CliIo, options: AnalyzeOptions
       return Promise.all(page.analyses.map(async (a) => (await library.get(a.id)).options.column ?? null));
     },
     save: async (file, content, spectrum) => {
-      const fileOptions = { ...options, fileName: basename(file), ...(spectrum.column !== undefined && { column: spectrum.column }) };
+      const fileOptions = optionsOfSpectrum({ ...options, fileName: basename(file) }, spectrum);
       const result = analyzeSpectrum(content, fileOptions);
       const saved = await library.add({ ...details, sample: sampleName(file, spectrum), fileName: basename(file), content, options: fileOptions, result });
       return { id: saved.id, summary: saved.summary };
@@ -299,10 +278,9 @@ async function localSink(flags: LibraryFlags, io: CliIo, options: AnalyzeOptions
   };
 }
 
-/** The record's sample: the file's name, and for one of several spectra its column's name too ("cr-series: en", as series names them). */
+/** The record's sample: the file's name, and for one of several spectra its column's name too (the shared rule). */
 function sampleName(file: string, spectrum: WatchedSpectrum): string {
-  const base = basename(file, extname(file));
-  return spectrum.column === undefined ? base : `${base}: ${spectrum.name ?? `column ${spectrum.column}`}`;
+  return sampleOfSpectrum(basename(file, extname(file)), spectrum);
 }
 
 /** A fieldgap service at `base` (http://host:port, with or without /api/v1). */

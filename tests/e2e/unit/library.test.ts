@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import Papa from 'papaparse';
-import { entryFromRecord, libraryCsv } from '../../../web/views/library.js';
+import { entryFromRecord, libraryCsv, savedMessage } from '../../../web/views/library.js';
 import type { LibraryRecord, LibraryRow } from '../../../web/types.js';
 
 const row: LibraryRow = {
@@ -30,5 +30,22 @@ describe('library view data', () => {
     expect(entry.details).toMatchObject({ ion: 'Cr3+', concentration: 0.05, cOverB: 4.2, sample: 'aqua', ligand: 'H2O' });
     expect(entry.bands.map((b) => b.position)).toEqual([17_400]);
     expect(entry.file).toBeNull();
+  });
+});
+
+describe('the save message of a file with several spectra', () => {
+  const base = { ...row, options: {}, result: { spectrum: { points: 3, range: [1, 2] as [number, number], xUnit: 'nm' as const, yUnit: 'absorbance' as const, masked: [] }, bands: [], fit: null, warnings: [] } };
+
+  it('a file with one spectrum: one record, as before', () => {
+    expect(savedMessage('cr.csv', { ...base, records: [{ id: 7, sample: 'cr', column: null, columnName: null }], notSaved: [] })).toBe('Saved cr.csv as record 7.');
+  });
+
+  it('names every record by its column, and each spectrum not saved with its reason', () => {
+    const saved = {
+      ...base,
+      records: [{ id: 7, sample: 'mix: en', column: 1, columnName: 'en' }, { id: 8, sample: 'mix: urea', column: 2, columnName: 'urea' }],
+      notSaved: [{ column: 3, columnName: 'blank', error: { code: 'unexplained' as const, message: 'no d–d bands to fit', path: 'mix.csv#3' } }],
+    };
+    expect(savedMessage('mix.csv', saved)).toBe('Saved mix.csv as 2 records, one per spectrum in the file: 7 (en), 8 (urea). Not saved: column 3 (blank): no d–d bands to fit.');
   });
 });
