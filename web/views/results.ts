@@ -3,6 +3,7 @@
  * state and magnetism with uncertainties and units, the assignment table and
  * the close alternative assignments.
  */
+import { poorFitText } from '../goodness-wording.js';
 import { h } from '../dom.js';
 import { NO_SPIN_STATE_CHOICE } from '../../src/report/spin-state-wording.js';
 import { percentText as percentOf } from '../../src/report/probability.js';
@@ -92,7 +93,8 @@ function spinStateProbabilityNote(fit: FitResult): HTMLElement {
   const parts = entries.map(([key, p]) => `${spinStateText(key)} ${percentText(p)}`);
   // Relative to the other assignments: say so when only weak-band labels differ, and when even the best fits poorly.
   if (fit.assignmentGroup && fit.assignmentGroup.members > 1) parts.push(`spin-allowed assignment and parameters ${percentText(fit.assignmentGroup.probability)}`);
-  if (fit.goodnessOfFit?.verdict === 'poor') parts.push(`poorly fitted (χ² p = ${fit.goodnessOfFit.pValue.toPrecision(2)})`);
+  const poor = poorFitText(fit.goodnessOfFit);
+  if (poor !== null) parts.push(poor);
   const spin = parts.join(' · ');
   const undetermined = fit.undetermined ?? [];
   return h(
