@@ -1,3 +1,4 @@
+import { priorStrainOf, priorStrainText } from '../src/report/prior-strain.js';
 import type { FitResult } from './types.js';
 
 /**
@@ -9,4 +10,10 @@ import type { FitResult } from './types.js';
 export function poorFitText(gof: FitResult['goodnessOfFit']): string | null {
   if (gof?.verdict !== 'poor') return null;
   return `poorly fitted: ${gof.reason ?? `χ² p = ${gof.pValue.toPrecision(2)}`}`;
+}
+
+/** The CLI's IMPLAUSIBLE sentence (src/report/prior-strain.ts) when the chosen reading breaks its priors, else null. */
+export function priorStrainNote(fit: Pick<FitResult, 'penalties'>): string | null {
+  const strain = priorStrainOf(fit.penalties);
+  return strain === null ? null : priorStrainText(strain);
 }

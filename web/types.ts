@@ -98,7 +98,7 @@ export interface PredictedLevel {
 export type FitResult = Pick<CoreFit,
   'd' | 'geometry' | 'dq' | 'tenDq' | 'b' | 'c' | 'cOverB' | 'beta' | 'freeIonB' | 'groundTerm' | 'spinState'
   | 'unpairedElectrons' | 'spinOnlyMoment' | 'status' | 'warnings'>
-  & Partial<Pick<CoreFit, 'ion' | 'message' | 'betaSd' | 'unassigned' | 'notes' | 'probability' | 'spinStateProbabilities' | 'undetermined' | 'assignmentGroup' | 'assignmentSpread' | 'goodnessOfFit'>>
+  & Partial<Pick<CoreFit, 'ion' | 'message' | 'betaSd' | 'unassigned' | 'notes' | 'probability' | 'spinStateProbabilities' | 'undetermined' | 'assignmentGroup' | 'assignmentSpread' | 'goodnessOfFit' | 'penalties'>>
   & {
     rmsResidual: number | null;
     lfse?: unknown;

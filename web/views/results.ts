@@ -3,7 +3,7 @@
  * state and magnetism with uncertainties and units, the assignment table and
  * the close alternative assignments.
  */
-import { poorFitText } from '../goodness-wording.js';
+import { poorFitText, priorStrainNote } from '../goodness-wording.js';
 import { h } from '../dom.js';
 import { NO_SPIN_STATE_CHOICE } from '../../src/report/spin-state-wording.js';
 import { percentText as percentOf } from '../../src/report/probability.js';
@@ -95,6 +95,8 @@ function spinStateProbabilityNote(fit: FitResult): HTMLElement {
   if (fit.assignmentGroup && fit.assignmentGroup.members > 1) parts.push(`spin-allowed assignment and parameters ${percentText(fit.assignmentGroup.probability)}`);
   const poor = poorFitText(fit.goodnessOfFit);
   if (poor !== null) parts.push(poor);
+  const strain = priorStrainNote(fit);
+  if (strain !== null) parts.push(strain);
   const spin = parts.join(' · ');
   const undetermined = fit.undetermined ?? [];
   return h(
