@@ -71,10 +71,8 @@ describe('AUDIT3 finding 2: visible-only [CoCl4]2-, the spin–orbit multiplet o
     expect(labels.some((l) => /^4T2/.test(l))).toBe(false);
   });
 
-  // AUDIT3 finding 9 (a design question for src/fit/goodness-of-fit.ts, so a todo, not a failing check): this fit
-  // reproduces neither band (χ² 2.8 for 0 degrees of freedom, judged leniently against k = 1) and β = 0.15 is unphysical,
-  // yet the verdict printed is "good".
-  it.todo('AUDIT3 finding 9: the goodness of fit is not printed as "good" beside an unphysical β and a non-exact exactly-determined fit');
+  // AUDIT3 finding 9 ("good" beside an unphysical β and an exactly determined fit that reproduces nothing) is fixed and
+  // checked in tests/fit/goodness-of-fit.test.ts.
 });
 
 describe('AUDIT3 finding 3: visible-only [Ni(NH3)6]2+, 3T2g beyond the red end', () => {
