@@ -82,11 +82,11 @@ import { xyHighEndBandCandidate, xyLowEndBandCandidate, xyNearLowEndBandCandidat
 import { xyLowerHull } from './xy-lower-hull.js';
 import { maskAroundStep, xyMaskedRegions, xyMaskPoints } from './xy-mask.js';
 import { xPolynomialValues } from './xy-polynomial.js';
-import { xyBeyondWindowCentre } from './xy-profile-band-centre.js';
+import { beyondWindowBands, beyondWindowWidthNote } from './xy-profile-band-centre.js';
 import { weightsFromNoise } from './band-model-trial.js';
 import { xChooseGridStep, xUniformGrid, xyResampleUniformWithCounts } from './xy-resample.js';
 import { median as medianOf } from '../numeric/median.js';
-import type { GaussianParameters, RefineBandsResult } from './xy-refine-bands.js';
+import type { GaussianParameters } from './xy-refine-bands.js';
 
 export interface ProcessSpectrumOptions {
   /** mol/L; with it, heights become ε (Beer–Lambert). @default unknown */
@@ -275,7 +275,7 @@ export function processSpectrum(spectrum: Spectrum, options: ProcessSpectrumOpti
     const end = `${red ? 'red (low-energy)' : 'blue (high-energy)'} end${mask === null ? '' : ' of the data kept'}, ${Math.round(used.window[red ? 0 : 1])} cm-1${mask === null ? '' : ` (beyond it masked: ${mask})`}`;
     warnings.push(b.maximumInWindow
       ? `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum near the ${end}: its far side is not measured, so its centre is less certain (± ${b.positionUncertainty.toFixed(0)} cm-1)`
-      : `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum outside the measured range, beyond the ${end}: its centre is estimated from its flank (± ${b.positionUncertainty.toFixed(0)} cm-1, from how far the centre can move before the fit is clearly worse)${widthNote(b.position, beyond)}`);
+      : `the band at ${b.position.toFixed(0)} cm-1 (${b.wavelength.toFixed(0)} nm) has its maximum outside the measured range, beyond the ${end}: its centre is estimated from its flank (± ${b.positionUncertainty.toFixed(0)} cm-1, from how far the centre can move before the fit is clearly worse)${beyondWindowWidthNote(b.position, beyond)}`);
   }
   if (fit.edge !== null) warnings.push(`a UV absorption edge was modelled (a Gaussian tail centred at ${fit.edge.position.toFixed(0)} cm-1, above the measured range)`);
   return {
@@ -313,51 +313,6 @@ function bandMaxima(grid: Float64Array, signal: Float64Array, baseline: Float64A
     return xyBandMaximum(grid, own, mean, band.fwhm) ?? { position: mean, sd: 0 };
   });
 }
-
-/** For a band outside the window: where it would lie at the width of the bands inside the window. */
-function widthNote(position: number, beyond: ReadonlyArray<{ position: number; siblingWidthPosition: number | null }>): string {
-  const b = beyond.find((o) => o.siblingWidthPosition !== null && Math.abs(o.position - position) < 1);
-  return b === undefined ? '' : `; at the width of the bands inside the window it would lie at ${b.siblingWidthPosition!.toFixed(0)} cm-1, and the ± includes that`;
-}
-
-/**
- * The bands of `fit` centred outside the window or within half their FWHM
- * of an end, each given its σ by
- * xyBeyondWindowCentre (profiled at the fit's own baseline order, which the
- * model selection may have raised; the width of the broad bands inside the
- * window, twice narrowFwhm or more, as its siblings' width). Returns every
- * band's position σ, and for each band outside the window its centre at
- * the siblings' width.
- */
-function beyondWindowBands(
-  x: Float64Array, y: Float64Array, fit: RefineBandsResult,
-  o: { weights: Float64Array; baselineGuess: Float64Array; window: [number, number]; redEndOpen: boolean; narrowFwhm: number },
-): { positionSd: Float64Array; beyond: Array<{ position: number; siblingWidthPosition: number | null }> } {
-  const [low, high] = o.window;
-  const inside = fit.bands.filter((b) => b.position >= low + 0.5 * b.fwhm && b.position <= high - 0.5 * b.fwhm && b.fwhm >= 2 * o.narrowFwhm);
-  const siblingFwhm = inside.length === 0 ? null : inside.reduce((s, b) => s + b.fwhm, 0) / inside.length;
-  const positionSd = Float64Array.from(fit.positionSd);
-  const beyond: Array<{ position: number; siblingWidthPosition: number | null }> = [];
-  fit.bands.forEach((b, k) => {
-    // Near an end (within half its FWHM, bandWindow's 'near-…') the far side is not measured either.
-    const towards = b.position < low + 0.5 * b.fwhm ? 1 : b.position > high - 0.5 * b.fwhm ? -1 : 0;
-    if (towards === 0) return;
-    const r = xyBeyondWindowCentre(x, y, fit, k, {
-      weights: o.weights, baselineGuess: o.baselineGuess, baselineOrder: fit.baselineCoefficients.length - 1,
-      beyondLowEnd: o.redEndOpen ? BEYOND_LOW_END_PROFILE : 0, towards, siblingFwhm,
-    });
-    const sd = fit.positionSd[k] as number;
-    positionSd[k] = Math.max(Number.isFinite(sd) ? sd : 0, r.sd);
-    beyond.push({ position: b.position, siblingWidthPosition: r.siblingWidthPosition });
-  });
-  return { positionSd, beyond };
-}
-
-/**
- * How far beyond the red end a held or refitted centre may go in a profile, fraction of its FWHM: far enough that
- * the profile, not the bound, ends the interval.
- */
-const BEYOND_LOW_END_PROFILE = 10;
 
 /** A band centre may lie up to this fraction of its FWHM below the low-energy end of the range. */
 const BEYOND_LOW_END = 0.6;

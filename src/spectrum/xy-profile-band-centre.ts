@@ -231,3 +231,48 @@ export function xyBeyondWindowCentre(x: Float64Array, y: Float64Array, fit: Refi
 function movedWidth(b: GaussianParameters, fwhm: number, towards: 1 | -1): GaussianParameters {
   return { position: b.position + 0.5 * towards * (b.fwhm - fwhm), height: b.height, fwhm };
 }
+
+/** For a band outside the window: where it would lie at the width of the bands inside the window. */
+export function beyondWindowWidthNote(position: number, beyond: ReadonlyArray<{ position: number; siblingWidthPosition: number | null }>): string {
+  const b = beyond.find((o) => o.siblingWidthPosition !== null && Math.abs(o.position - position) < 1);
+  return b === undefined ? '' : `; at the width of the bands inside the window it would lie at ${b.siblingWidthPosition!.toFixed(0)} cm-1, and the ± includes that`;
+}
+
+/**
+ * The bands of `fit` centred outside the window or within half their FWHM
+ * of an end, each given its σ by
+ * xyBeyondWindowCentre (profiled at the fit's own baseline order, which the
+ * model selection may have raised; the width of the broad bands inside the
+ * window, twice narrowFwhm or more, as its siblings' width). Returns every
+ * band's position σ, and for each band outside the window its centre at
+ * the siblings' width.
+ */
+export function beyondWindowBands(
+  x: Float64Array, y: Float64Array, fit: RefineBandsResult,
+  o: { weights: Float64Array; baselineGuess: Float64Array; window: [number, number]; redEndOpen: boolean; narrowFwhm: number },
+): { positionSd: Float64Array; beyond: Array<{ position: number; siblingWidthPosition: number | null }> } {
+  const [low, high] = o.window;
+  const inside = fit.bands.filter((b) => b.position >= low + 0.5 * b.fwhm && b.position <= high - 0.5 * b.fwhm && b.fwhm >= 2 * o.narrowFwhm);
+  const siblingFwhm = inside.length === 0 ? null : inside.reduce((s, b) => s + b.fwhm, 0) / inside.length;
+  const positionSd = Float64Array.from(fit.positionSd);
+  const beyond: Array<{ position: number; siblingWidthPosition: number | null }> = [];
+  fit.bands.forEach((b, k) => {
+    // Near an end (within half its FWHM, bandWindow's 'near-…') the far side is not measured either.
+    const towards = b.position < low + 0.5 * b.fwhm ? 1 : b.position > high - 0.5 * b.fwhm ? -1 : 0;
+    if (towards === 0) return;
+    const r = xyBeyondWindowCentre(x, y, fit, k, {
+      weights: o.weights, baselineGuess: o.baselineGuess, baselineOrder: fit.baselineCoefficients.length - 1,
+      beyondLowEnd: o.redEndOpen ? BEYOND_LOW_END_PROFILE : 0, towards, siblingFwhm,
+    });
+    const sd = fit.positionSd[k] as number;
+    positionSd[k] = Math.max(Number.isFinite(sd) ? sd : 0, r.sd);
+    beyond.push({ position: b.position, siblingWidthPosition: r.siblingWidthPosition });
+  });
+  return { positionSd, beyond };
+}
+
+/**
+ * How far beyond the red end a held or refitted centre may go in a profile, fraction of its FWHM: far enough that
+ * the profile, not the bound, ends the interval.
+ */
+const BEYOND_LOW_END_PROFILE = 10;
