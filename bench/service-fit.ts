@@ -20,14 +20,13 @@
  * The request is the fit of `npm run load` (two band maxima of a Cr(III)
  * complex, invented for load only); it checks nothing.
  */
-import { spawn } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { reportFigure } from './figures.js';
-import { BIN } from './spawn.js';
+import { startServiceProcess } from './spawn.js';
 
 interface AutocannonResult {
   requests: { average: number };
@@ -59,23 +58,6 @@ function threadTicks(pid: number): Map<number, number> {
     }
   }
   return out;
-}
-
-function startServer(dataDir: string): Promise<{ url: string; pid: number; stop: () => Promise<void> }> {
-  const child = spawn(process.execPath, [BIN, 'serve', '--port', '0', '--host', '127.0.0.1', '--data', dataDir], {
-    env: { ...process.env, FIELDGAP_LOG_LEVEL: 'warn' },
-    stdio: ['ignore', 'pipe', 'ignore'],
-  });
-  const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
-  return new Promise((resolve, reject) => {
-    let out = '';
-    child.stdout.setEncoding('utf8').on('data', (chunk: string) => {
-      out += chunk;
-      const url = /serving on (http:\/\/\S+\/)/.exec(out)?.[1];
-      if (url !== undefined) resolve({ url, pid: child.pid!, stop: async () => void (child.kill('SIGTERM'), await exited) });
-    });
-    child.once('exit', (code) => reject(new Error(`the server stopped before it listened (exit code ${code})`)));
-  });
 }
 
 interface Measured {
@@ -111,7 +93,7 @@ export async function run(): Promise<void> {
     return;
   }
   const dataDir = mkdtempSync(join(tmpdir(), 'fieldgap-bench-service-'));
-  const server = await startServer(dataDir);
+  const server = await startServiceProcess(dataDir);
   try {
     const options = {
       url: `${server.url}api/v1/fit`, method: 'POST', headers: { 'content-type': 'application/json' },

@@ -55,3 +55,33 @@ export function median(values: readonly number[]): number {
   const mid = sorted.length >> 1;
   return sorted.length % 2 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
 }
+
+/** A running `fieldgap serve` (its own process), as the load test and the service bench start it. */
+export interface ServiceProcess {
+  url: string;
+  pid: number;
+  stop(): Promise<void>;
+}
+
+/**
+ * `BIN serve` on 127.0.0.1 and a free port with `dataDir` as its library, logging warnings only; resolves once it
+ * prints the address it listens on. `stderr` 'inherit' shows the service's own messages (the load test), 'ignore'
+ * keeps a bench's table clean.
+ */
+export function startServiceProcess(dataDir: string, stderr: 'inherit' | 'ignore' = 'ignore'): Promise<ServiceProcess> {
+  const child = spawn(process.execPath, [BIN, 'serve', '--port', '0', '--host', '127.0.0.1', '--data', dataDir], {
+    env: { ...process.env, FIELDGAP_LOG_LEVEL: 'warn' },
+    stdio: ['ignore', 'pipe', stderr],
+  });
+  const exited = new Promise<void>((resolveExit) => child.once('exit', () => resolveExit()));
+  return new Promise((resolveStart, rejectStart) => {
+    let out = '';
+    child.stdout.setEncoding('utf8').on('data', (chunk: string) => {
+      out += chunk;
+      const url = /serving on (http:\/\/\S+\/)/.exec(out)?.[1];
+      if (url === undefined) return;
+      resolveStart({ url, pid: child.pid!, stop: async () => { child.kill('SIGTERM'); await exited; } });
+    });
+    child.once('exit', (code) => rejectStart(new Error(`the server stopped before it listened (exit code ${code}): ${out.trim()}`)));
+  });
+}

@@ -29,13 +29,12 @@
  * The spectrum and the band list are invented for load only (two Gaussian
  * bands on a sloping baseline, with noise); they check nothing.
  */
-import { spawn } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { Agent, request } from 'node:http';
 import { createRequire } from 'node:module';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { startServiceProcess, type ServiceProcess } from '../bench/spawn.js';
 import { formatDelimited, synthesizeSpectrum } from '../src/spectrum/index.js';
 
 interface AutocannonResult {
@@ -160,39 +159,6 @@ async function paced(e: Endpoint, rate: number): Promise<number> {
   return failed > 0 ? Number.POSITIVE_INFINITY : p99;
 }
 
-interface ServerProcess {
-  url: string;
-  stop(): Promise<void>;
-}
-
-/** `bin/fieldgap serve` on 127.0.0.1 and a free port, logging warnings only; resolves once it listens. */
-function startServerProcess(dataDir: string): Promise<ServerProcess> {
-  const bin = fileURLToPath(new URL('../bin/fieldgap', import.meta.url));
-  const child = spawn(process.execPath, [bin, 'serve', '--port', '0', '--host', '127.0.0.1', '--data', dataDir], {
-    env: { ...process.env, FIELDGAP_LOG_LEVEL: 'warn' },
-    stdio: ['ignore', 'pipe', 'inherit'],
-  });
-  const exited = new Promise<void>((resolveExit) => child.once('exit', () => resolveExit()));
-  return new Promise((resolveStart, rejectStart) => {
-    let out = '';
-    child.stdout.setEncoding('utf8');
-    child.stdout.on('data', (chunk: string) => {
-      out += chunk;
-      const url = /serving on (http:\/\/\S+\/)/.exec(out)?.[1];
-      if (url !== undefined) {
-        resolveStart({
-          url,
-          stop: async () => {
-            child.kill('SIGTERM');
-            await exited;
-          },
-        });
-      }
-    });
-    child.once('exit', (code) => rejectStart(new Error(`the server stopped before it listened (exit code ${code}): ${out.trim()}`)));
-  });
-}
-
 async function main(): Promise<void> {
   const dataDir = mkdtempSync(join(tmpdir(), 'fieldgap-load-'));
   const watchdog = setTimeout(() => {
@@ -200,9 +166,9 @@ async function main(): Promise<void> {
     process.exit(1);
   }, ((SECONDS + 2) * 10 + 60) * 1000);
   watchdog.unref();
-  let server: ServerProcess | undefined;
+  let server: ServiceProcess | undefined;
   try {
-    server = await startServerProcess(dataDir);
+    server = await startServiceProcess(dataDir, 'inherit');
     const api = `${server.url}api/v1`;
     process.stdout.write(`load: ${server.url} (bin/fieldgap serve, its own process), at most ${CONNECTIONS} connections, ${SECONDS} s per measurement\n`);
     const health: Endpoint = { name: 'GET /api/v1/health', url: `${api}/health`, method: 'GET' };
