@@ -133,7 +133,7 @@ function priorSettings(ion: Ion | null, geometry: Geometry, b0: number | null, c
 
 /**
  * g of an ion Jørgensen's table lacks, when src/predict/factor-table.ts has
- * one from a measured hexaaqua ion (its source "g = 10Dq of [M(H2O)6]n+ …",
+ * one from a measured hexaaqua ion (`aquaIon` set in src/predict/factor-table.ts,
  * marked as an estimate with its σ): the fit's ligand prior may then use it,
  * with that σ added to its own (AUDIT3 finding 1: V3+). The rough estimates
  * from the oxidation state and row, or from a neighbour ion, are not used:
@@ -141,7 +141,7 @@ function priorSettings(ion: Ion | null, geometry: Geometry, b0: number | null, c
  */
 function aquaIonGEstimate(ion: Ion): FactorValue | undefined {
   const estimate = metalG(ion);
-  return estimate.kind === 'estimate' && estimate.source.startsWith('g = 10Dq of') ? estimate : undefined;
+  return estimate.aquaIon === true ? estimate : undefined;
 }
 
 function resolveIon(value: unknown): Ion {

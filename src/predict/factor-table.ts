@@ -21,6 +21,8 @@ export interface FactorValue {
   sigma: number;
   kind: FactorKind;
   source: string;
+  /** Set on a g that is the 10Dq of the ion's hexaaqua complex (an observed value), not a trend estimate. */
+  aquaIon?: true;
 }
 
 export const SPECTROCHEMICAL_ESTIMATE = 'estimate from the spectrochemical series, wide uncertainty';
@@ -28,6 +30,8 @@ export const NEPHELAUXETIC_ESTIMATE = 'estimate from the nephelauxetic series, w
 
 const published = (value: number, sigma: number): FactorValue => ({ value, sigma, kind: 'published', source: JORGENSEN_SOURCE });
 const estimate = (value: number, sigma: number, why: string): FactorValue => ({ value, sigma, kind: 'estimate', source: why });
+/** g read off the hexaaqua ion: f(H2O) = 1, so g is its 10Dq. */
+const aquaIon = (value: number, sigma: number, complex: string, why: string): FactorValue => ({ ...estimate(value, sigma, `g = 10Dq of ${complex}, ${why}`), aquaIon: true });
 
 /**
  * f estimates for ligands Jørgensen's table lacks. Each is placed where the
@@ -81,11 +85,11 @@ const H_DEFAULT_ESTIMATE = estimate(1.6, 0.6, `${NEPHELAUXETIC_ESTIMATE}: N- or 
  * 30–50% from 3d to 4d and from 4d to 5d.
  */
 const G_ESTIMATES: ReadonlyMap<string, FactorValue> = new Map([
-  ['Ti3+', estimate(20300, 1500, 'g = 10Dq of [Ti(H2O)6]3+, its band maximum at 20 300 cm-1 (University of Sheffield teaching page, looked up); Jahn–Teller broadened')],
-  ['V3+', estimate(18600, 1500, 'g = 10Dq of [V(H2O)6]3+, from memory')],
-  ['Cr2+', estimate(14000, 2000, 'g = 10Dq of [Cr(H2O)6]2+, from memory; Jahn–Teller distorted')],
-  ['Mn3+', estimate(21000, 3000, 'g = 10Dq of [Mn(H2O)6]3+, its d–d maximum at 21 000 cm-1 ("A spectrophotometric investigation of the aquomanganese(III) ion in perchlorate media", J. Chem. Soc. A (1967) 1858, looked up); Jahn–Teller distorted')],
-  ['Cu2+', estimate(12600, 2000, 'g = 10Dq of [Cu(H2O)6]2+, from memory; Jahn–Teller distorted')],
+  ['Ti3+', aquaIon(20300, 1500, '[Ti(H2O)6]3+', 'its band maximum at 20 300 cm-1 (University of Sheffield teaching page, looked up); Jahn–Teller broadened')],
+  ['V3+', aquaIon(18600, 1500, '[V(H2O)6]3+', 'from memory')],
+  ['Cr2+', aquaIon(14000, 2000, '[Cr(H2O)6]2+', 'from memory; Jahn–Teller distorted')],
+  ['Mn3+', aquaIon(21000, 3000, '[Mn(H2O)6]3+', 'its d–d maximum at 21 000 cm-1 ("A spectrophotometric investigation of the aquomanganese(III) ion in perchlorate media", J. Chem. Soc. A (1967) 1858, looked up); Jahn–Teller distorted')],
+  ['Cu2+', aquaIon(12600, 2000, '[Cu(H2O)6]2+', 'from memory; Jahn–Teller distorted')],
   ['Ru3+', estimate(28000, 5000, 'estimate: like Rh3+ (27 000), wide uncertainty')],
   ['Os2+', estimate(27000, 7000, 'estimate: Ru2+ (20 000) × 1.35 for 5d, wide uncertainty')],
   ['Os3+', estimate(35000, 8000, 'estimate: like Ir3+ (32 000), wide uncertainty')],
